@@ -1,0 +1,134 @@
+/**
+ * createApp builds the Express app from its parts, without listening, so tests can drive it with
+ * supertest and a restart can be simulated by building a second app over the same database.
+ */
+import fs from 'node:fs';
+import path from 'node:path';
+import express, { type Express } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import cors from 'cors';
+import type { AppConfig } from './config';
+import type { Orm } from './db';
+import type { Logger } from './logger';
+import { apiNotFound, errorHandler } from './middleware/errors';
+import { loadUser } from './middleware/auth';
+import { sameOriginOnly } from './middleware/same-origin';
+import { authRoutes } from './modules/auth/auth.routes';
+import { SignInLimiter, type SignInLimits, DEFAULT_SIGN_IN_LIMITS } from './modules/auth/sign-in-limiter';
+import type { Mailer } from './modules/mail/mailer';
+import { outboxRoutes } from './modules/mail/outbox.routes';
+import { OrmSessionStore } from './modules/sessions/orm-session-store';
+import { invitationsRoutes } from './modules/users/invitations.routes';
+import { usersRoutes } from './modules/users/users.routes';
+
+export interface AppDeps {
+  config: AppConfig;
+  orm: Orm;
+  mailer: Mailer;
+  log: Logger;
+  sessionSecret: string;
+  signInLimits?: SignInLimits;
+}
+
+export interface SightfanApp {
+  app: Express;
+  close(): void;
+}
+
+export const SESSION_COOKIE = 'sightfan.sid';
+const SESSION_DAYS = 14;
+
+export function createApp(deps: AppDeps): SightfanApp {
+  const { config, orm, log } = deps;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.trustProxy);
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          // react-native-web injects its style sheet at run time.
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'", 'data:'],
+          connectSrc: ["'self'", ...config.devOrigins],
+          objectSrc: ["'none'"],
+          frameAncestors: ["'none'"],
+          upgradeInsecureRequests: config.secureCookies ? [] : null,
+        },
+      },
+      crossOriginEmbedderPolicy: false,
+      strictTransportSecurity: config.secureCookies,
+    }),
+  );
+
+  const store = new OrmSessionStore(orm);
+  const api = express.Router();
+  if (config.devOrigins.length) {
+    api.use(cors({ origin: config.devOrigins, credentials: true }));
+  }
+  api.use(express.json({ limit: '1mb' }));
+  api.use(sameOriginOnly(config.devOrigins));
+  api.use(
+    session({
+      name: SESSION_COOKIE,
+      secret: deps.sessionSecret,
+      store,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      proxy: config.trustProxy !== false,
+      cookie: {
+        httpOnly: true,
+        sameSite: 'lax',
+        secure: config.secureCookies,
+        maxAge: SESSION_DAYS * 24 * 60 * 60 * 1000,
+        path: '/',
+      },
+    }),
+  );
+  api.use(loadUser(orm));
+  api.use((_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
+
+  const publicUrl = (host: string) => config.publicUrl ?? `http://${host}`;
+  api.get('/health', (_req, res) => {
+    res.json({ ok: true });
+  });
+  api.use('/auth', authRoutes(orm, new SignInLimiter(deps.signInLimits ?? DEFAULT_SIGN_IN_LIMITS)));
+  api.use('/invitations', invitationsRoutes(orm, config.bcryptCost));
+  api.use('/users', usersRoutes({ orm, mailer: deps.mailer, store, publicUrl }));
+  api.use('/outbox', outboxRoutes(orm, config.demoMode));
+  api.use(apiNotFound);
+  app.use('/api', api);
+
+  // The exported web app: hashed assets cached long, index.html always fresh (single-page routes).
+  const indexHtml = path.join(config.distDir, 'index.html');
+  app.use(
+    express.static(config.distDir, {
+      index: false,
+      setHeaders: (res, file) => {
+        if (file.includes(`${path.sep}_expo${path.sep}`) || file.includes(`${path.sep}assets${path.sep}`)) {
+          res.set('Cache-Control', 'public, max-age=31536000, immutable');
+        }
+      },
+    }),
+  );
+  app.get('/{*splat}', (_req, res) => {
+    if (!fs.existsSync(indexHtml)) {
+      res.status(503).type('text').send('The Sightfan web app has not been built yet. Run `npm start`, which builds it first.');
+      return;
+    }
+    res.set('Cache-Control', 'no-cache');
+    res.sendFile(indexHtml);
+  });
+  app.use(errorHandler(log));
+
+  return { app, close: () => store.close() };
+}

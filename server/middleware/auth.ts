@@ -1,0 +1,38 @@
+import type { RequestHandler } from 'express';
+import type { Role } from '../../shared/schemas';
+import type { Orm } from '../db';
+import { HttpError } from '../http-error';
+import { User } from '../modules/users/user.entity';
+
+/**
+ * Loads the signed-in user on every request, so a disabled account or a changed role takes
+ * effect at once rather than when the cookie expires.
+ */
+export function loadUser(orm: Orm): RequestHandler {
+  return async (req, _res, next) => {
+    const id = req.session?.userId;
+    if (!id) return next();
+    const user = await orm.em.fork().findOne(User, { id }, { populate: ['organization', 'passwordHash'] });
+    if (!user || user.disabled) {
+      await new Promise<void>((resolve) => req.session.destroy(() => resolve()));
+      return next();
+    }
+    req.user = user;
+    next();
+  };
+}
+
+export const requireUser: RequestHandler = (req, _res, next) => {
+  if (!req.user) return next(new HttpError(401, 'You are signed out. Sign in to continue.'));
+  next();
+};
+
+export function requireRole(...allowed: Role[]): RequestHandler {
+  return (req, _res, next) => {
+    if (!req.user) return next(new HttpError(401, 'You are signed out. Sign in to continue.'));
+    if (!allowed.includes(req.user.role)) {
+      return next(new HttpError(403, `Only ${allowed.join(' or ')} accounts can do this. Ask an administrator if you need access.`));
+    }
+    next();
+  };
+}

@@ -1,0 +1,8 @@
+/**
+ * The committed migrations, listed explicitly so they load the same under tsx, ts-jest and a
+ * bundled build (no folder scanning at run time). Add each new migration here, in order.
+ */
+import type { MigrationObject } from '@mikro-orm/core';
+import { Migration20261202022227 } from './Migration20261202022227';
+
+export const migrationsList: MigrationObject[] = [{ name: 'Migration20261202022227', class: Migration20261202022227 }];

@@ -1,0 +1,12 @@
+/**
+ * Every entity, in one list, for the ORM config and the migrator.
+ * Entities use `defineEntity` with plain classes: decorators need emitted metadata, which tsx and
+ * Babel do not produce (see DEVELOPERS.md, Footguns).
+ */
+import { Organization } from './users/organization.entity';
+import { User } from './users/user.entity';
+import { Invitation } from './users/invitation.entity';
+import { SessionRecord } from './sessions/session.entity';
+import { MailMessage } from './mail/mail-message.entity';
+
+export const entities = [Organization.schema, User.schema, Invitation.schema, SessionRecord.schema, MailMessage.schema];

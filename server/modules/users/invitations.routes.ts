@@ -1,0 +1,46 @@
+import { Router } from 'express';
+import { acceptInvitationBody, invitationToken } from '../../../shared/schemas';
+import type { Orm } from '../../db';
+import { HttpError } from '../../http-error';
+import { parseOr400 } from '../../middleware/validate';
+import { hashPassword } from '../auth/passwords';
+import { startSession } from '../auth/auth.routes';
+import { Invitation } from './invitation.entity';
+import { hashToken } from './invitations';
+import { toUserDto } from './user.dto';
+import type { EntityManager } from '@mikro-orm/sqlite';
+
+async function usableInvitation(em: EntityManager, token: string): Promise<Invitation> {
+  const inv = await em.findOne(Invitation, { tokenHash: hashToken(token) }, { populate: ['user', 'user.organization'] });
+  if (!inv) throw new HttpError(404, 'This link is not valid. Ask your administrator for a new invitation.');
+  if (inv.usedAt) throw new HttpError(410, 'This link has already been used. Sign in with the password you chose, or ask for a new invitation.');
+  if (inv.expiresAt.getTime() <= Date.now()) throw new HttpError(410, 'This link has expired. Ask your administrator for a new invitation.');
+  if (inv.user.disabled) throw new HttpError(410, 'This account has been turned off. Ask your administrator.');
+  return inv;
+}
+
+export function invitationsRoutes(orm: Orm, bcryptCost: number): Router {
+  const r = Router();
+
+  r.get('/:token', async (req, res) => {
+    const token = parseOr400(invitationToken, req.params.token, 'The link');
+    const inv = await usableInvitation(orm.em.fork(), token);
+    res.json({ invitation: { email: inv.user.email, name: inv.user.name, organizationName: inv.user.organization.name } });
+  });
+
+  r.post('/accept', async (req, res) => {
+    const body = parseOr400(acceptInvitationBody, req.body, 'The new password');
+    const em = orm.em.fork();
+    const inv = await usableInvitation(em, body.token);
+    const hash = await hashPassword(body.password, bcryptCost);
+    // Mark used and set the password in one guarded update, so two clicks cannot both succeed.
+    const claimed = await em.nativeUpdate(Invitation, { id: inv.id, usedAt: null }, { usedAt: new Date() });
+    if (claimed !== 1) throw new HttpError(410, 'This link has already been used. Sign in with the password you chose.');
+    inv.user.passwordHash = hash;
+    await em.flush();
+    await startSession(req, inv.user.id);
+    res.json({ user: toUserDto(inv.user) });
+  });
+
+  return r;
+}

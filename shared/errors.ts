@@ -1,0 +1,22 @@
+import { ApiError } from './api-client';
+
+/**
+ * The one place that turns a raw failure into words a person can act on.
+ * Screens show this sentence; forms also show `ApiError.fields` beside each field.
+ */
+export function describeError(error: unknown): string {
+  if (error instanceof ApiError) {
+    if (error.status === 429) {
+      const wait = error.retryAfterS ? ` Try again in ${formatWait(error.retryAfterS)}.` : '';
+      return `${error.message}${wait}`;
+    }
+    return error.message;
+  }
+  if (error instanceof Error && error.message) return error.message;
+  return 'Something went wrong. Try again; if it keeps happening, tell your administrator.';
+}
+
+function formatWait(seconds: number): string {
+  if (seconds < 90) return `${Math.ceil(seconds)} seconds`;
+  return `${Math.ceil(seconds / 60)} minutes`;
+}

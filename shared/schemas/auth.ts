@@ -1,0 +1,72 @@
+import { z } from 'zod';
+import { email, newPassword, personName, role, unitSystem } from './common';
+
+export const signInBody = z.object({
+  email,
+  password: z.string({ message: 'Enter your password.' }).min(1, 'Enter your password.').max(200, 'That password is too long.'),
+});
+export type SignInBody = z.infer<typeof signInBody>;
+
+export const userDto = z.object({
+  id: z.number(),
+  email: z.string(),
+  name: z.string(),
+  role,
+  disabled: z.boolean(),
+  units: unitSystem,
+  organizationId: z.number(),
+  organizationName: z.string(),
+  hasPassword: z.boolean(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type UserDto = z.infer<typeof userDto>;
+
+export const userResponse = z.object({ user: userDto });
+export type UserResponse = z.infer<typeof userResponse>;
+
+export const usersResponse = z.object({ users: z.array(userDto) });
+export type UsersResponse = z.infer<typeof usersResponse>;
+
+/** What a signed-in person may change about themselves. */
+export const updateMeBody = z
+  .object({ units: unitSystem.optional(), name: personName.optional() })
+  .strict()
+  .refine((b) => b.units !== undefined || b.name !== undefined, { message: 'Nothing to change.' });
+export type UpdateMeBody = z.infer<typeof updateMeBody>;
+
+/** Admin: invite someone by e-mail; they choose their own password through a one-time link. */
+export const inviteBody = z.object({ email, name: personName, role }).strict();
+export type InviteBody = z.infer<typeof inviteBody>;
+
+export const patchUserBody = z
+  .object({ role: role.optional(), disabled: z.boolean({ message: 'Disabled must be true or false.' }).optional() })
+  .strict()
+  .refine((b) => b.role !== undefined || b.disabled !== undefined, { message: 'Nothing to change: give a role or the disabled flag.' });
+export type PatchUserBody = z.infer<typeof patchUserBody>;
+
+export const invitationToken = z
+  .string({ message: 'This link is missing its code.' })
+  .regex(/^[A-Za-z0-9_-]{32,128}$/, 'This link is not complete. Open it again from the e-mail.');
+
+export const invitationDto = z.object({ email: z.string(), name: z.string(), organizationName: z.string() });
+export type InvitationDto = z.infer<typeof invitationDto>;
+
+export const acceptInvitationBody = z
+  .object({ token: invitationToken, password: newPassword, confirm: z.string({ message: 'Type the password again.' }) })
+  .strict()
+  .refine((b) => b.password === b.confirm, { message: 'The two passwords are not the same.', path: ['confirm'] });
+export type AcceptInvitationBody = z.infer<typeof acceptInvitationBody>;
+
+export const outboxMessageDto = z.object({
+  id: z.number(),
+  from: z.string(),
+  to: z.array(z.string()),
+  subject: z.string(),
+  text: z.string(),
+  attachments: z.array(z.object({ filename: z.string(), contentType: z.string(), size: z.number() })),
+  receivedAt: z.string(),
+});
+export type OutboxMessageDto = z.infer<typeof outboxMessageDto>;
+export const outboxResponse = z.object({ messages: z.array(outboxMessageDto), demo: z.boolean() });
+export type OutboxResponse = z.infer<typeof outboxResponse>;

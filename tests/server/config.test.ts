@@ -1,0 +1,30 @@
+import { ConfigError, parseConfig } from '../../server/config';
+
+describe('the environment', () => {
+  it('defaults to port 8080, data/sightfan.sqlite and demo mode outside production', () => {
+    const c = parseConfig({});
+    expect(c.port).toBe(8080);
+    expect(c.databasePath.endsWith('data/sightfan.sqlite')).toBe(true);
+    expect(c.demoMode).toBe(true);
+    expect(c.secureCookies).toBe(false);
+  });
+
+  it('refuses to start in production without a session secret', () => {
+    expect(() => parseConfig({ NODE_ENV: 'production' })).toThrow(ConfigError);
+  });
+
+  it('refuses a bcrypt cost below 12', () => {
+    expect(() => parseConfig({ BCRYPT_COST: '10' })).toThrow(/BCRYPT_COST must be at least 12/);
+  });
+
+  it('makes cookies Secure when a TLS proxy is declared', () => {
+    expect(parseConfig({ TRUST_PROXY: '1' }).secureCookies).toBe(true);
+    expect(parseConfig({ TRUST_PROXY: 'true' }).trustProxy).toBe(true);
+  });
+
+  it('turns demo mode off in production unless asked', () => {
+    const secret = 'x'.repeat(40);
+    expect(parseConfig({ NODE_ENV: 'production', SESSION_SECRET: secret }).demoMode).toBe(false);
+    expect(parseConfig({ NODE_ENV: 'production', SESSION_SECRET: secret, DEMO_MODE: 'true' }).demoMode).toBe(true);
+  });
+});

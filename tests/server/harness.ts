@@ -1,0 +1,93 @@
+/**
+ * A fresh Sightfan for one test file: its own SQLite file in a temp folder, migrations applied, the
+ * demo users seeded, the real fake SMTP server on a free port, and the Express app (not listening;
+ * supertest drives it). `restart()` builds a new ORM and app over the same file, as a server restart would.
+ */
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import request from 'supertest';
+import type { Express } from 'express';
+import { createApp } from '../../server/app';
+import { parseConfig, type AppConfig } from '../../server/config';
+import { initORM, type Orm } from '../../server/db';
+import { createLogger } from '../../server/logger';
+import { startFakeSmtp, type FakeSmtp } from '../../server/modules/mail/fake-smtp';
+import { createMailer, type Mailer } from '../../server/modules/mail/mailer';
+import { MailMessage } from '../../server/modules/mail/mail-message.entity';
+import type { SignInLimits } from '../../server/modules/auth/sign-in-limiter';
+import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from '../../server/seeders/demo';
+
+export const PASSWORD = DEMO_PASSWORD;
+export const EMAIL = {
+  installer: DEMO_USERS[0].email,
+  reviewer: DEMO_USERS[1].email,
+  admin: DEMO_USERS[2].email,
+};
+
+export interface Harness {
+  app: Express;
+  orm: Orm;
+  config: AppConfig;
+  dir: string;
+  restart(): Promise<void>;
+  signedIn(email: string, password?: string): Promise<ReturnType<typeof request.agent>>;
+  waitForMail(to: string, timeoutMs?: number): Promise<MailMessage>;
+  close(): Promise<void>;
+}
+
+const SECRET = 'test-secret-that-is-long-enough-for-the-config-check';
+
+export async function startHarness(opts: { signInLimits?: SignInLimits; env?: Record<string, string> } = {}): Promise<Harness> {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'sightfan-test-'));
+  const config = parseConfig({ NODE_ENV: 'test', DATABASE_PATH: path.join(dir, 'test.sqlite'), PUBLIC_URL: 'http://sightfan.test', ...opts.env });
+  const log = createLogger(true);
+  let orm: Orm = await initORM(config.databasePath);
+  await seedDemo(orm, config.bcryptCost);
+  let fake: FakeSmtp = await startFakeSmtp(orm, log, 0);
+  let mailer: Mailer = createMailer({ fakePort: fake.port, from: config.mailFrom });
+  let built = createApp({ config, orm, mailer, log, sessionSecret: SECRET, signInLimits: opts.signInLimits });
+
+  const h: Harness = {
+    app: built.app,
+    orm,
+    config,
+    dir,
+    async restart() {
+      built.close();
+      mailer.close();
+      await fake.close();
+      await orm.close(true);
+      orm = await initORM(config.databasePath);
+      fake = await startFakeSmtp(orm, log, 0);
+      mailer = createMailer({ fakePort: fake.port, from: config.mailFrom });
+      built = createApp({ config, orm, mailer, log, sessionSecret: SECRET, signInLimits: opts.signInLimits });
+      h.app = built.app;
+      h.orm = orm;
+    },
+    async signedIn(email, password = PASSWORD) {
+      const agent = request.agent(h.app);
+      const res = await agent.post('/api/auth/sign-in').send({ email, password });
+      if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
+      return agent;
+    },
+    async waitForMail(to, timeoutMs = 5000) {
+      const until = Date.now() + timeoutMs;
+      while (Date.now() < until) {
+        const rows = await h.orm.em.fork().find(MailMessage, {}, { orderBy: { id: 'desc' }, populate: ['raw'] });
+        const hit = rows.find((m) => m.toAddresses.includes(to));
+        if (hit) return hit;
+        await new Promise((r) => setTimeout(r, 50));
+      }
+      throw new Error(`no mail for ${to} within ${timeoutMs} ms`);
+    },
+    async close() {
+      built.close();
+      mailer.close();
+      await fake.close();
+      await orm.close(true);
+      fs.rmSync(dir, { recursive: true, force: true });
+    },
+  };
+  return h;
+}
