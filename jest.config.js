@@ -2,6 +2,8 @@
 const tsJest = ['ts-jest', { tsconfig: 'tsconfig.server.json', diagnostics: { warnOnly: false } }];
 module.exports = {
   testTimeout: 120000,
+  // A leaked handle must never hang CI for its whole budget; Jest still prints its summary first.
+  forceExit: true,
   projects: [
     {
       displayName: 'node',
@@ -14,6 +16,7 @@ module.exports = {
       displayName: 'e2e',
       testEnvironment: 'node',
       roots: ['<rootDir>/tests/e2e'],
+      testMatch: ['**/*.e2e.test.ts'],
       transform: { '^.+\\.ts$': tsJest },
       moduleFileExtensions: ['ts', 'js', 'json'],
     },
