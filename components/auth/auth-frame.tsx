@@ -1,0 +1,89 @@
+import type { ReactNode } from 'react';
+import { ScrollView, StyleSheet, View } from 'react-native';
+import { useSafeAreaInsets } from 'react-native-safe-area-context';
+import { AppText, PageTitle, Wordmark } from '@/components/ui';
+import { layout, palette, spacing } from '@/constants/theme';
+import { useIsWide } from '@/hooks/use-breakpoint';
+import { FanIllustration } from './fan-illustration';
+
+export interface AuthFrameProps {
+  title: string;
+  lead?: string;
+  children: ReactNode;
+}
+
+const TAGLINE = 'Size convex safety mirrors, show the zone each one covers, and get the sheet approved.';
+
+/** The signed-out screens' frame: the brand panel beside the form when wide, above it on a phone. */
+export function AuthFrame({ title, lead, children }: AuthFrameProps) {
+  const wide = useIsWide();
+  const insets = useSafeAreaInsets();
+  const heading = (
+    <View style={styles.heading}>
+      <PageTitle title={title} />
+      <AppText variant={wide ? 'display' : 'title'} role="heading" aria-level={1} testID="screen-title">
+        {title}
+      </AppText>
+      {lead ? (
+        <AppText variant="body" tone="muted">
+          {lead}
+        </AppText>
+      ) : null}
+    </View>
+  );
+
+  if (wide) {
+    return (
+      <View style={styles.wideRoot}>
+        <View style={styles.brandPanel}>
+          <Wordmark onDark size="lg" />
+          <FanIllustration width={500} />
+          <AppText variant="heading" tone="onAsphalt" style={styles.tagline}>
+            {TAGLINE}
+          </AppText>
+        </View>
+        <ScrollView style={styles.formSide} contentContainerStyle={styles.formSideContent} keyboardShouldPersistTaps="handled">
+          <View style={styles.formColumn}>
+            {heading}
+            {children}
+          </View>
+        </ScrollView>
+      </View>
+    );
+  }
+
+  return (
+    <ScrollView style={styles.narrowRoot} contentContainerStyle={{ paddingBottom: insets.bottom + spacing.xl }} keyboardShouldPersistTaps="handled">
+      <View style={[styles.phoneBand, { paddingTop: insets.top + spacing.lg }]}>
+        <Wordmark onDark />
+        <AppText variant="body" tone="onAsphaltMuted">
+          {TAGLINE}
+        </AppText>
+      </View>
+      <View style={styles.phoneForm}>
+        {heading}
+        {children}
+      </View>
+    </ScrollView>
+  );
+}
+
+const styles = StyleSheet.create({
+  wideRoot: { flex: 1, flexDirection: 'row', backgroundColor: palette.chalk },
+  brandPanel: {
+    flex: 1,
+    maxWidth: 620,
+    backgroundColor: palette.asphalt,
+    padding: spacing.xxxl,
+    justifyContent: 'space-between',
+    alignItems: 'flex-start',
+  },
+  tagline: { maxWidth: 440 },
+  formSide: { flex: 1 },
+  formSideContent: { flexGrow: 1, justifyContent: 'center', padding: spacing.xxxl },
+  formColumn: { width: '100%', maxWidth: layout.formMaxWidth, alignSelf: 'center', gap: spacing.xl },
+  heading: { gap: spacing.sm },
+  narrowRoot: { flex: 1, backgroundColor: palette.chalk },
+  phoneBand: { backgroundColor: palette.asphalt, paddingHorizontal: spacing.lg, paddingBottom: spacing.xl, gap: spacing.md },
+  phoneForm: { padding: spacing.lg, gap: spacing.xl },
+});

@@ -1,0 +1,132 @@
+import { Formik } from 'formik';
+import { useRef } from 'react';
+import { StyleSheet, View, type TextInput } from 'react-native';
+import * as yup from 'yup';
+import { Button, Notice, Segmented, TextField, AppText } from '@/components/ui';
+import { roleOptions, shortRoleLabels } from '@/constants/navigation';
+import { spacing } from '@/constants/theme';
+import type { Role } from '@/shared/schemas';
+import { FormFrame } from './form-frame';
+import { fieldMessage, serverErrorsFor, type FormStatus } from './server-errors';
+
+export interface InviteValues {
+  email: string;
+  name: string;
+  /** '' until chosen, so nobody is made an admin by default. */
+  role: Role | '';
+}
+
+export const inviteSchema = yup.object({
+  email: yup.string().trim().required('Enter their e-mail address.').email('Enter a full e-mail address, like name@company.com.'),
+  name: yup.string().trim().required('Enter their name.').max(120, 'Keep the name to 120 characters.'),
+  role: yup.string().oneOf(roleOptions, 'Choose a role.').required('Choose a role.'),
+});
+
+export interface InviteFormProps {
+  onSubmit: (values: { email: string; name: string; role: Role }) => Promise<unknown>;
+  /** Said after a successful invite, e.g. where the e-mail can be read in demo mode. */
+  sentNote?: string;
+}
+
+const roleChoices = roleOptions.map((role) => ({ value: role, label: shortRoleLabels[role], testID: `invite-role-${role}` }));
+
+export function InviteForm({ onSubmit, sentNote }: InviteFormProps) {
+  const nameRef = useRef<TextInput>(null);
+  return (
+    <Formik<InviteValues>
+      initialValues={{ email: '', name: '', role: '' }}
+      validationSchema={inviteSchema}
+      onSubmit={async (values, helpers) => {
+        helpers.setStatus(undefined);
+        if (values.role === '') return; // the schema has already refused this
+        const body = { email: values.email.trim(), name: values.name.trim(), role: values.role };
+        try {
+          await onSubmit(body);
+          helpers.resetForm();
+          helpers.setStatus({ done: `Invitation sent to ${body.name} <${body.email}>.${sentNote ? ` ${sentNote}` : ''}` } satisfies FormStatus);
+        } catch (error) {
+          const { fieldErrors, status } = serverErrorsFor<InviteValues>(error, ['email', 'name', 'role'], values);
+          helpers.setErrors(fieldErrors);
+          helpers.setStatus(status);
+        }
+      }}
+    >
+      {(form) => {
+        const { values, status, isSubmitting, handleChange, handleBlur, handleSubmit, setFieldValue, setFieldTouched } = form;
+        const formStatus = status as FormStatus | undefined;
+        const roleError = fieldMessage(form, 'role');
+        return (
+          <FormFrame label="Invite someone" onSubmit={handleSubmit} testID="invite-form">
+            <TextField
+              name="email"
+              label="Their e-mail"
+              testID="invite-email"
+              value={values.email}
+              onChangeText={handleChange('email')}
+              onBlur={handleBlur('email')}
+              error={fieldMessage(form, 'email')}
+              autoComplete="off"
+              inputMode="email"
+              keyboardType="email-address"
+              autoCapitalize="none"
+              autoCorrect={false}
+              enterKeyHint="next"
+              submitBehavior="submit"
+              onSubmitEditing={() => nameRef.current?.focus()}
+            />
+            <TextField
+              ref={nameRef}
+              name="name"
+              label="Their name"
+              testID="invite-name"
+              value={values.name}
+              onChangeText={handleChange('name')}
+              onBlur={handleBlur('name')}
+              error={fieldMessage(form, 'name')}
+              autoComplete="off"
+              autoCapitalize="words"
+              enterKeyHint="send"
+              onSubmitEditing={() => handleSubmit()}
+            />
+            <View style={styles.roleField}>
+              <AppText variant="label">Role</AppText>
+              <AppText variant="small" tone="muted">
+                Installers measure and size mirrors; reviewers approve jobs; admins manage people.
+              </AppText>
+              <Segmented<Role>
+                stretch
+                label="Role"
+                options={roleChoices}
+                value={values.role === '' ? undefined : values.role}
+                onChange={(role) => {
+                  void setFieldValue('role', role);
+                  void setFieldTouched('role', true, false);
+                }}
+              />
+              {roleError ? (
+                <AppText variant="small" tone="stop" testID="field-error-role" aria-live="polite">
+                  {roleError}
+                </AppText>
+              ) : null}
+            </View>
+            {formStatus?.formError ? (
+              <Notice tone="stop" testID="invite-error">
+                {formStatus.formError}
+              </Notice>
+            ) : null}
+            {formStatus?.done ? (
+              <Notice tone="go" testID="invite-sent">
+                {formStatus.done}
+              </Notice>
+            ) : null}
+            <Button label="Send invitation" testID="invite-submit" onPress={() => handleSubmit()} busy={isSubmitting} block />
+          </FormFrame>
+        );
+      }}
+    </Formik>
+  );
+}
+
+const styles = StyleSheet.create({
+  roleField: { gap: spacing.xs },
+});

@@ -1,0 +1,14 @@
+export { AppText } from './text';
+export { Badge } from './badge';
+export { BrandMark, Wordmark } from './brand-mark';
+export { Button } from './button';
+export { Card } from './card';
+export { CenteredMessage } from './centered-message';
+export { EmptyState } from './empty-state';
+export { NavIcon } from './nav-icon';
+export { Notice } from './notice';
+export { Screen } from './screen';
+export { Segmented } from './segmented';
+export { TextField } from './text-field';
+export { TextLink } from './text-link';
+export { PageTitle } from './page-title';

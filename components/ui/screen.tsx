@@ -1,0 +1,66 @@
+import type { ReactNode } from 'react';
+import { ScrollView, StyleSheet, View } from 'react-native';
+import { layout, palette, spacing } from '@/constants/theme';
+import { useIsWide } from '@/hooks/use-breakpoint';
+import { PageTitle } from './page-title';
+import { AppText } from './text';
+
+export interface ScreenProps {
+  title: string;
+  /** One line under the title saying what this screen is for. */
+  lead?: string;
+  children: ReactNode;
+  /**
+   * Actions kept in reach of the thumb: pinned under the content on a phone, in line on a wide
+   * screen where reach does not matter.
+   */
+  footer?: ReactNode;
+  /** 'narrow' for forms and reading, 'full' for tables beside a form; default suits most screens. */
+  width?: 'narrow' | 'default' | 'full';
+}
+
+/** Every signed-in screen's frame: heading (test id `screen-title`), scrolling content, optional footer. */
+export function Screen({ title, lead, children, footer, width = 'default' }: ScreenProps) {
+  const wide = useIsWide();
+  const columnStyle = [styles.column, width === 'narrow' && styles.narrow, width === 'full' && styles.full];
+  return (
+    <View style={styles.root}>
+      <PageTitle title={title} />
+      <ScrollView contentContainerStyle={[styles.scroll, wide && styles.scrollWide]} keyboardShouldPersistTaps="handled">
+        <View style={columnStyle}>
+          <View style={styles.header}>
+            <AppText variant={wide ? 'display' : 'title'} role="heading" aria-level={1} testID="screen-title">
+              {title}
+            </AppText>
+            {lead ? (
+              <AppText variant="body" tone="muted">
+                {lead}
+              </AppText>
+            ) : null}
+          </View>
+          {children}
+          {footer && wide ? <View style={styles.footerInline}>{footer}</View> : null}
+        </View>
+      </ScrollView>
+      {footer && !wide ? <View style={styles.footerPinned}>{footer}</View> : null}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  root: { flex: 1, backgroundColor: palette.chalk },
+  scroll: { padding: spacing.lg, paddingBottom: spacing.xxl },
+  scrollWide: { paddingHorizontal: spacing.xxl, paddingTop: spacing.xxl },
+  column: { width: '100%', maxWidth: layout.contentMaxWidth, alignSelf: 'center', gap: spacing.xl },
+  narrow: { maxWidth: 640 },
+  full: { maxWidth: 1280 },
+  header: { gap: spacing.sm },
+  footerInline: { flexDirection: 'row', gap: spacing.md },
+  footerPinned: {
+    padding: spacing.lg,
+    gap: spacing.sm,
+    backgroundColor: palette.chalk,
+    borderTopWidth: 1,
+    borderTopColor: palette.ruleSoft,
+  },
+});

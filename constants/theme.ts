@@ -1,0 +1,87 @@
+/**
+ * Sightfan's one theme, "Yardlight": dark asphalt ink on chalk paper, with a sodium-amber beacon for the
+ * one thing to press. Chosen for a bright loading dock: every text/background pair here is at least
+ * 7:1 except `haze` on `chalk` (about 6.6:1, still above WCAG AA for body text).
+ */
+export const palette = {
+  /** Deep blue-black of wet asphalt: text, the side rail, the bottom bar. */
+  asphalt: '#14202b',
+  asphaltRaised: '#223140',
+  /** Warm off-white paper the screens sit on. */
+  chalk: '#f4f1ea',
+  /** Cards and inputs: plain white so entered values stand out from the page. */
+  sheet: '#ffffff',
+  /** Hairlines and input borders; dark enough to see in sunlight. */
+  rule: '#b9b2a3',
+  ruleSoft: '#dcd6ca',
+  /** Secondary text. */
+  haze: '#4b5763',
+  /** Sodium-vapour amber: primary actions and the active nav marker. Always carries asphalt text. */
+  beacon: '#f2b01e',
+  beaconPressed: '#d99a0c',
+  beaconSoft: '#fdf0cf',
+  /** Steel blue of a mirror's face: links, focus rings, the brand fan. */
+  glass: '#1d5f8a',
+  glassSoft: '#dcebf5',
+  /** Errors and destructive actions. */
+  stop: '#a4231b',
+  stopSoft: '#fbe4e1',
+  /** Success and "active" states. */
+  go: '#1f6a3f',
+  goSoft: '#dff1e5',
+  /** Text on asphalt. */
+  onAsphalt: '#f4f1ea',
+  onAsphaltMuted: '#b5c0ca',
+} as const;
+
+export const spacing = { xxs: 2, xs: 4, sm: 8, md: 12, lg: 16, xl: 24, xxl: 32, xxxl: 48 } as const;
+
+export const radii = { sm: 6, md: 10, lg: 16, pill: 999 } as const;
+
+/** Family names as registered with expo-font in app/_layout.tsx (one family per weight, so no faux bold). */
+export const fonts = {
+  regular: 'Barlow-Regular',
+  medium: 'Barlow-Medium',
+  semibold: 'Barlow-SemiBold',
+  bold: 'Barlow-Bold',
+  mono: 'JetBrainsMono-Regular',
+  monoMedium: 'JetBrainsMono-Medium',
+} as const;
+
+/** Large on purpose: the installer reads this at arm's length in daylight. */
+export const type = {
+  display: { fontFamily: fonts.bold, fontSize: 34, lineHeight: 40 },
+  title: { fontFamily: fonts.bold, fontSize: 28, lineHeight: 34 },
+  heading: { fontFamily: fonts.semibold, fontSize: 21, lineHeight: 28 },
+  body: { fontFamily: fonts.regular, fontSize: 17, lineHeight: 25 },
+  bodyStrong: { fontFamily: fonts.semibold, fontSize: 17, lineHeight: 25 },
+  label: { fontFamily: fonts.semibold, fontSize: 16, lineHeight: 22 },
+  small: { fontFamily: fonts.medium, fontSize: 15, lineHeight: 21 },
+  caps: { fontFamily: fonts.semibold, fontSize: 13, lineHeight: 18, letterSpacing: 1.2, textTransform: 'uppercase' as const },
+  mono: { fontFamily: fonts.mono, fontSize: 15, lineHeight: 22 },
+} as const;
+
+export const layout = {
+  /** Smallest touch target, per the phone-first rule. */
+  minTarget: 48,
+  /** From this width the shell shows a side rail instead of bottom tabs, and lists become tables. */
+  wideFrom: 1024,
+  /** Readable line length for forms and text on a wide screen. */
+  contentMaxWidth: 960,
+  formMaxWidth: 480,
+  railWidth: 248,
+} as const;
+
+/** Keyboard focus: a thick steel-blue ring, visible on chalk, white and asphalt alike. */
+export const focusRing = { outlineStyle: 'solid', outlineWidth: 3, outlineColor: palette.glass, outlineOffset: 2 } as const;
+
+/** A low lift for cards; boxShadow is understood by both react-native-web and React Native ≥ 0.76. */
+export const shadow = { boxShadow: '0 1px 2px rgba(20,32,43,0.10), 0 2px 10px rgba(20,32,43,0.06)' } as const;
+
+export const theme = { palette, spacing, radii, fonts, type, layout } as const;
+export type Theme = typeof theme;
+
+/** Through a hook so a later dark or high-contrast variant changes one place. */
+export function useTheme(): Theme {
+  return theme;
+}
