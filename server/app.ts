@@ -21,6 +21,8 @@ import { outboxRoutes } from './modules/mail/outbox.routes';
 import { OrmSessionStore } from './modules/sessions/orm-session-store';
 import { invitationsRoutes } from './modules/users/invitations.routes';
 import { usersRoutes } from './modules/users/users.routes';
+import { catalogRoutes } from './modules/catalog/catalog.routes';
+import { projectsRoutes } from './modules/projects/projects.routes';
 
 export interface AppDeps {
   config: AppConfig;
@@ -105,6 +107,8 @@ export function createApp(deps: AppDeps): SightfanApp {
   api.use('/invitations', invitationsRoutes(orm, config.bcryptCost));
   api.use('/users', usersRoutes({ orm, mailer: deps.mailer, store, publicUrl }));
   api.use('/outbox', outboxRoutes(orm, config.demoMode));
+  api.use('/catalog', catalogRoutes(orm));
+  api.use('/projects', projectsRoutes(orm));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -5,6 +5,8 @@ export class HttpError extends Error {
     message: string,
     readonly fields?: Record<string, string>,
     readonly headers?: Record<string, string>,
+    /** Extra members of the error body, e.g. `current` with the record a stale edit lost to. */
+    readonly extra?: Record<string, unknown>,
   ) {
     super(message);
     this.name = 'HttpError';

@@ -19,7 +19,7 @@ export function ormOptions(databasePath: string) {
       silent: true,
       allOrNothing: true,
       emit: 'ts',
-      snapshot: true,
+      snapshot: false,
       glob: 'Migration*.{js,ts}',
       migrationsList,
     },

@@ -11,7 +11,7 @@ export function errorHandler(log: Logger): ErrorRequestHandler {
   return (err, req, res, _next) => {
     if (err instanceof HttpError) {
       if (err.headers) res.set(err.headers);
-      res.status(err.status).json({ error: err.message, ...(err.fields ? { fields: err.fields } : {}) });
+      res.status(err.status).json({ error: err.message, ...(err.fields ? { fields: err.fields } : {}), ...(err.extra ?? {}) });
       return;
     }
     const e = err as { type?: string; status?: number };

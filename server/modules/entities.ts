@@ -8,5 +8,8 @@ import { User } from './users/user.entity';
 import { Invitation } from './users/invitation.entity';
 import { SessionRecord } from './sessions/session.entity';
 import { MailMessage } from './mail/mail-message.entity';
+import { MirrorModel } from './catalog/mirror-model.entity';
+import { Project } from './projects/project.entity';
+import { Placement } from './projects/placement.entity';
 
-export const entities = [Organization.schema, User.schema, Invitation.schema, SessionRecord.schema, MailMessage.schema];
+export const entities = [Organization.schema, User.schema, Invitation.schema, SessionRecord.schema, MailMessage.schema, MirrorModel.schema, Project.schema, Placement.schema];

@@ -2,6 +2,12 @@ import type { Orm } from '../db';
 import { hashPassword } from '../modules/auth/passwords';
 import { Organization } from '../modules/users/organization.entity';
 import { User } from '../modules/users/user.entity';
+import { MirrorModel } from '../modules/catalog/mirror-model.entity';
+import { assignMirror } from '../modules/catalog/catalog.dto';
+import { Project } from '../modules/projects/project.entity';
+import { Placement } from '../modules/projects/placement.entity';
+import { DEMO_CATALOGUE } from './demo-catalogue';
+import { DEMO_PROJECT } from './demo-project';
 
 /** Demo only: listed in README.md. Never use these anywhere real. */
 export const DEMO_PASSWORD = 'demo-password-1';
@@ -12,7 +18,8 @@ export const DEMO_USERS = [
 ];
 
 /**
- * Seeds the invented demo organisation and one user per role, once: if the demo organisation is
+ * Seeds the invented demo organisation, one user per role, the demo catalogue and the demo
+ * project, once: if the demo organisation is
  * already there, nothing changes (so a restart keeps whatever people did).
  */
 export async function seedDemo(orm: Orm, bcryptCost: number): Promise<boolean> {
@@ -20,8 +27,28 @@ export async function seedDemo(orm: Orm, bcryptCost: number): Promise<boolean> {
   if (await em.count(Organization, { demo: true })) return false;
   const org = em.create(Organization, { name: 'Harbourline Cold Storage (demo)', demo: true });
   const hash = await hashPassword(DEMO_PASSWORD, bcryptCost);
-  for (const u of DEMO_USERS) {
-    em.create(User, { ...u, organization: org, passwordHash: hash, disabled: false, units: 'metric' });
+  const users = DEMO_USERS.map((u) => em.create(User, { ...u, organization: org, passwordHash: hash, disabled: false, units: 'metric' }));
+  const byCode = new Map<string, MirrorModel>();
+  for (const item of DEMO_CATALOGUE) {
+    const { mirror, ...rest } = item;
+    const row = em.create(MirrorModel, { ...rest, shape: mirror.shape, currency: 'EUR', demo: true, notes: 'Demo catalogue item: invented figures.' });
+    assignMirror(row, mirror);
+    byCode.set(item.code, row);
+  }
+  const { placements, ...projectFields } = DEMO_PROJECT;
+  const project = em.create(Project, { ...projectFields, owner: users[0], organization: org, demo: true });
+  for (const p of placements) {
+    em.create(Placement, {
+      project,
+      label: p.label,
+      catalogueItem: byCode.get(p.code)!,
+      xM: p.positionM[0],
+      yM: p.positionM[1],
+      heightM: p.heightM,
+      azimuthRad: (p.azimuthDeg * Math.PI) / 180,
+      tiltDownRad: (p.tiltDownDeg * Math.PI) / 180,
+      viewerId: p.viewerId,
+    });
   }
   await em.flush();
   return true;

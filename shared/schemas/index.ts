@@ -1,2 +1,4 @@
 export * from './common';
 export * from './auth';
+export * from './catalog';
+export * from './projects';

@@ -16,6 +16,9 @@ import { startFakeSmtp, type FakeSmtp } from '../../server/modules/mail/fake-smt
 import { createMailer, type Mailer } from '../../server/modules/mail/mailer';
 import { MailMessage } from '../../server/modules/mail/mail-message.entity';
 import type { SignInLimits } from '../../server/modules/auth/sign-in-limiter';
+import { hashPassword } from '../../server/modules/auth/passwords';
+import { Organization } from '../../server/modules/users/organization.entity';
+import { User } from '../../server/modules/users/user.entity';
 import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from '../../server/seeders/demo';
 
 export const PASSWORD = DEMO_PASSWORD;
@@ -33,6 +36,8 @@ export interface Harness {
   restart(): Promise<void>;
   signedIn(email: string, password?: string): Promise<ReturnType<typeof request.agent>>;
   waitForMail(to: string, timeoutMs?: number): Promise<MailMessage>;
+  /** Adds a user straight to the database (same organisation as the demo), with the demo password. */
+  addUser(email: string, role: 'installer' | 'reviewer' | 'admin', organizationName?: string): Promise<number>;
   close(): Promise<void>;
 }
 
@@ -80,6 +85,15 @@ export async function startHarness(opts: { signInLimits?: SignInLimits; env?: Re
         await new Promise((r) => setTimeout(r, 50));
       }
       throw new Error(`no mail for ${to} within ${timeoutMs} ms`);
+    },
+    async addUser(email, role, organizationName) {
+      const em = h.orm.em.fork();
+      const org = organizationName
+        ? em.create(Organization, { name: organizationName })
+        : await em.findOneOrFail(Organization, { demo: true });
+      const user = em.create(User, { email, name: email.split('@')[0], role, organization: org, passwordHash: await hashPassword(PASSWORD, 12) });
+      await em.flush();
+      return user.id;
     },
     async close() {
       built.close();

@@ -1,0 +1,41 @@
+import { defineEntity, type Opt } from '@mikro-orm/core';
+import type { MirrorSpec } from '../../../shared/schemas';
+import { BaseRecord, baseProperties } from '../base';
+import { MirrorModel } from '../catalog/mirror-model.entity';
+import { Project } from './project.entity';
+
+/** A mirror placed in a project: a catalogue item or a custom mirror, where and how it is mounted. */
+export class Placement extends BaseRecord {
+  project!: Project;
+  label!: string;
+  catalogueItem: Opt<MirrorModel> | null = null;
+  customMirror: Opt<MirrorSpec> | null = null;
+  xM!: number;
+  yM!: number;
+  heightM!: number;
+  azimuthRad!: number;
+  tiltDownRad!: number;
+  viewerId: Opt<string> | null = null;
+  notes: Opt<string> = '';
+  version: Opt<number> = 1;
+
+  static readonly schema = defineEntity({
+    class: Placement,
+    tableName: 'placement',
+    properties: (p) => ({
+      ...baseProperties(),
+      project: p.manyToOne(Project.schema).deleteRule('cascade'),
+      label: p.string().length(80),
+      catalogueItem: p.manyToOne(MirrorModel.schema).nullable(),
+      customMirror: p.json<MirrorSpec>().nullable(),
+      xM: p.float(),
+      yM: p.float(),
+      heightM: p.float(),
+      azimuthRad: p.float(),
+      tiltDownRad: p.float(),
+      viewerId: p.string().length(40).nullable(),
+      notes: p.text().default(''),
+      version: p.integer().default(1),
+    }),
+  });
+}

@@ -1,0 +1,178 @@
+import { Router } from 'express';
+import type { EntityManager } from '@mikro-orm/sqlite';
+import {
+  createPlacementBody,
+  createProjectBody,
+  idParam,
+  patchPlacementBody,
+  patchProjectBody,
+  type Scene,
+} from '../../../shared/schemas';
+import { z } from 'zod';
+import type { Orm } from '../../db';
+import { HttpError, notFound } from '../../http-error';
+import { requireRole, requireUser } from '../../middleware/auth';
+import { parseOr400 } from '../../middleware/validate';
+import type { User } from '../users/user.entity';
+import { MirrorModel } from '../catalog/mirror-model.entity';
+import { Placement } from './placement.entity';
+import { Project } from './project.entity';
+import { assertCanEdit, canEdit, visibleProjects } from './project-access';
+import { toPlacementDto, toProjectDto, toProjectSummaryDto } from './project.dto';
+
+const listQuery = z.object({
+  q: z.string().trim().max(100, 'Keep the search to 100 characters.').optional(),
+  sort: z.enum(['updated', 'name', 'customer'], { message: 'Sort by updated, name or customer.' }).default('updated'),
+});
+
+async function loadVisible(em: EntityManager, user: User, rawId: unknown): Promise<Project> {
+  const id = parseOr400(idParam, rawId, 'The address');
+  const project = await em.findOne(Project, { $and: [{ id }, visibleProjects(user)] }, { populate: ['owner', 'organization'] });
+  if (!project) throw notFound('That project');
+  return project;
+}
+
+async function placementsOf(em: EntityManager, project: Project): Promise<Placement[]> {
+  return em.find(Placement, { project: project.id }, { orderBy: { id: 'asc' } });
+}
+
+/** Placement references must point at things that exist: a catalogue item, a viewer in the plan. */
+async function checkReferences(em: EntityManager, scene: Scene, body: { catalogueItemId?: number | null; viewerId?: string | null }) {
+  const fields: Record<string, string> = {};
+  if (body.catalogueItemId != null && !(await em.count(MirrorModel, { id: body.catalogueItemId }))) {
+    fields.catalogueItemId = 'That catalogue mirror does not exist; pick one from the catalogue.';
+  }
+  if (body.viewerId != null && !scene.viewers.some((v) => v.id === body.viewerId)) {
+    fields.viewerId = 'That viewer is not in this plan; add the viewer first or pick another.';
+  }
+  if (Object.keys(fields).length) throw new HttpError(400, Object.values(fields)[0], fields);
+}
+
+const staleProject = (current: unknown) =>
+  new HttpError(409, 'This project was changed elsewhere since you opened it. Your change was not saved; the current version is loaded so you can make it again.', undefined, undefined, { current });
+const stalePlacement = (current: unknown) =>
+  new HttpError(409, 'This mirror was changed elsewhere since you opened it. Your change was not saved; the current values are loaded so you can make it again.', undefined, undefined, { current });
+
+export function projectsRoutes(orm: Orm): Router {
+  const r = Router();
+  r.use(requireUser);
+
+  r.get('/', async (req, res) => {
+    const q = parseOr400(listQuery, req.query, 'The search');
+    const em = orm.em.fork();
+    const where = q.q
+      ? { $and: [visibleProjects(req.user!), { $or: [{ name: { $like: `%${q.q}%` } }, { customer: { $like: `%${q.q}%` } }, { site: { $like: `%${q.q}%` } }] }] }
+      : visibleProjects(req.user!);
+    const orderBy = q.sort === 'name' ? { name: 'asc' as const } : q.sort === 'customer' ? { customer: 'asc' as const, name: 'asc' as const } : { updatedAt: 'desc' as const };
+    const projects = await em.find(Project, where, { populate: ['owner'], orderBy: { ...orderBy, id: 'asc' } });
+    const counts = new Map<number, number>();
+    if (projects.length) {
+      const ids = projects.map((p) => p.id);
+      const rows: { project_id: number; n: number }[] = await em
+        .getConnection()
+        .execute(`select project_id, count(*) as n from placement where project_id in (${ids.map(() => '?').join(',')}) group by project_id`, ids);
+      for (const row of rows) counts.set(Number(row.project_id), Number(row.n));
+    }
+    res.json({ projects: projects.map((p) => toProjectSummaryDto(p, counts.get(p.id) ?? 0)) });
+  });
+
+  r.post('/', requireRole('installer'), async (req, res) => {
+    const body = parseOr400(createProjectBody, req.body, 'The project');
+    const em = orm.em.fork();
+    const project = em.create(Project, { ...body, owner: req.user!.id, organization: req.user!.organization.id });
+    await em.flush();
+    await em.populate(project, ['owner']);
+    res.status(201).json({ project: toProjectDto(project, [], true) });
+  });
+
+  r.get('/:id', async (req, res) => {
+    const em = orm.em.fork();
+    const project = await loadVisible(em, req.user!, req.params.id);
+    res.json({ project: toProjectDto(project, await placementsOf(em, project), canEdit(req.user!, project)) });
+  });
+
+  r.patch('/:id', async (req, res) => {
+    const em = orm.em.fork();
+    const project = await loadVisible(em, req.user!, req.params.id);
+    assertCanEdit(req.user!, project);
+    const body = parseOr400(patchProjectBody, req.body, 'The change');
+    if (body.version !== project.version) throw staleProject(toProjectDto(project, await placementsOf(em, project), true));
+    const { version: _v, ...changes } = body;
+    if (changes.scene) {
+      // A viewer still served by a mirror cannot vanish from the plan.
+      const ids = new Set(changes.scene.viewers.map((v) => v.id));
+      const orphan = (await placementsOf(em, project)).find((p) => p.viewerId && !ids.has(p.viewerId));
+      if (orphan) throw new HttpError(409, `Mirror "${orphan.label}" serves a viewer this change removes; move it to another viewer first.`, { scene: 'A viewer in use was removed.' });
+    }
+    em.assign(project, changes);
+    project.version += 1;
+    await em.flush();
+    res.json({ project: toProjectDto(project, await placementsOf(em, project), true) });
+  });
+
+  r.delete('/:id', async (req, res) => {
+    const em = orm.em.fork();
+    const project = await loadVisible(em, req.user!, req.params.id);
+    assertCanEdit(req.user!, project);
+    await em.nativeDelete(Placement, { project: project.id });
+    em.remove(project);
+    await em.flush();
+    res.status(204).end();
+  });
+
+  r.post('/:id/placements', async (req, res) => {
+    const em = orm.em.fork();
+    const project = await loadVisible(em, req.user!, req.params.id);
+    assertCanEdit(req.user!, project);
+    const body = parseOr400(createPlacementBody, req.body, 'The mirror');
+    await checkReferences(em, project.scene, body);
+    const { positionM, catalogueItemId, ...rest } = body;
+    const placement = em.create(Placement, {
+      ...rest,
+      project,
+      catalogueItem: catalogueItemId,
+      xM: positionM[0],
+      yM: positionM[1],
+    });
+    project.updatedAt = new Date();
+    await em.flush();
+    res.status(201).json({ placement: toPlacementDto(placement) });
+  });
+
+  r.patch('/:id/placements/:placementId', async (req, res) => {
+    const em = orm.em.fork();
+    const project = await loadVisible(em, req.user!, req.params.id);
+    assertCanEdit(req.user!, project);
+    const placementId = parseOr400(idParam, req.params.placementId, 'The address');
+    const placement = await em.findOne(Placement, { id: placementId, project: project.id });
+    if (!placement) throw notFound('That mirror');
+    const body = parseOr400(patchPlacementBody, req.body, 'The mirror');
+    if (body.version !== placement.version) throw stalePlacement(toPlacementDto(placement));
+    await checkReferences(em, project.scene, body);
+    const { version: _v, positionM, catalogueItemId, ...rest } = body;
+    em.assign(placement, rest);
+    if (positionM) {
+      placement.xM = positionM[0];
+      placement.yM = positionM[1];
+    }
+    if (catalogueItemId !== undefined) placement.catalogueItem = catalogueItemId === null ? null : em.getReference(MirrorModel, catalogueItemId);
+    if (body.catalogueItemId != null) placement.customMirror = null;
+    if (body.customMirror != null) placement.catalogueItem = null;
+    placement.version += 1;
+    project.updatedAt = new Date();
+    await em.flush();
+    res.json({ placement: toPlacementDto(placement) });
+  });
+
+  r.delete('/:id/placements/:placementId', async (req, res) => {
+    const em = orm.em.fork();
+    const project = await loadVisible(em, req.user!, req.params.id);
+    assertCanEdit(req.user!, project);
+    const placementId = parseOr400(idParam, req.params.placementId, 'The address');
+    const deleted = await em.nativeDelete(Placement, { id: placementId, project: project.id });
+    if (!deleted) throw notFound('That mirror');
+    res.status(204).end();
+  });
+
+  return r;
+}

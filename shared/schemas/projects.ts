@@ -1,0 +1,178 @@
+import { z } from 'zod';
+import { unitSystem } from './common';
+import { checkedMirrorSpec } from './catalog';
+import { isSimpleRing } from '../geometry/polygon';
+
+const MAX_SITE_M = 2000;
+const coord = z.number({ message: 'Enter a position.' }).finite('Positions must be numbers.').min(-MAX_SITE_M, 'That point is more than 2 km from the origin.').max(MAX_SITE_M, 'That point is more than 2 km from the origin.');
+const pair = z.tuple([coord, coord], { message: 'A point needs x and y.' });
+const sceneId = z.string().min(1).max(40).regex(/^[A-Za-z0-9_-]+$/, 'Ids use letters, digits, dash or underscore.');
+const label = (what: string) => z.string({ message: `Give the ${what} a name.` }).trim().min(1, `Give the ${what} a name.`).max(80, `Keep the ${what}'s name to 80 characters.`);
+
+export const wallKinds = ['wall', 'racking', 'door'] as const;
+export const wall = z
+  .object({
+    id: sceneId,
+    kind: z.enum(wallKinds).default('wall'),
+    aM: pair,
+    bM: pair,
+    heightM: z.number({ message: 'Enter the height.' }).positive('The height must be more than zero.').max(60, 'A wall higher than 60 m is not a wall.'),
+  })
+  .refine((w) => Math.hypot(w.bM[0] - w.aM[0], w.bM[1] - w.aM[1]) >= 0.01, { message: 'A wall needs two different ends (at least 10 mm apart).', path: ['bM'] });
+
+/** Who must be recognisable in a zone: a standing adult, a child, or a custom height. */
+export const targetKinds = ['adult', 'child', 'custom'] as const;
+export const zoneTarget = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('adult') }),
+  z.object({ kind: z.literal('child') }),
+  z.object({ kind: z.literal('custom'), heightM: z.number().positive('The target height must be more than zero.').max(10, 'The target height must be at most 10 m.') }),
+]);
+export type ZoneTarget = z.infer<typeof zoneTarget>;
+
+export const zone = z.object({
+  id: sceneId,
+  name: label('zone'),
+  polygonM: z
+    .array(pair)
+    .min(3, 'A zone needs at least three corners.')
+    .max(200, 'A zone may have at most 200 corners.')
+    .refine((ring) => isSimpleRing(ring), 'The zone outline crosses or touches itself; redraw it as one simple outline.'),
+  target: zoneTarget.default({ kind: 'adult' }),
+});
+
+export const viewer = z.object({
+  id: sceneId,
+  name: label('viewer'),
+  positionM: pair,
+  eyeHeightM: z.number({ message: 'Enter the eye height.' }).min(0.3, 'An eye height under 0.3 m is not a seated or standing person.').max(6, 'An eye height over 6 m is not a person on the floor.'),
+});
+
+export const scene = z
+  .object({
+    walls: z.array(wall).max(2000, 'At most 2,000 walls per project.').default([]),
+    zones: z.array(zone).max(100, 'At most 100 zones per project.').default([]),
+    viewers: z.array(viewer).max(100, 'At most 100 viewers per project.').default([]),
+  })
+  .superRefine((s, ctx) => {
+    const seen = new Set<string>();
+    for (const [listName, list] of [['walls', s.walls], ['zones', s.zones], ['viewers', s.viewers]] as const) {
+      list.forEach((item, i) => {
+        if (seen.has(item.id)) ctx.addIssue({ code: 'custom', path: [listName, i, 'id'], message: 'Two items in the plan share an id.' });
+        seen.add(item.id);
+      });
+    }
+  });
+export type Scene = z.infer<typeof scene>;
+export type SceneWall = z.infer<typeof wall>;
+export type SceneZone = z.infer<typeof zone>;
+export type SceneViewer = z.infer<typeof viewer>;
+
+export const projectKinds = ['site', 'vehicle'] as const;
+export const projectStatuses = ['draft'] as const;
+
+const projectFields = {
+  name: label('project'),
+  customer: z.string().trim().max(160, 'Keep the customer to 160 characters.').default(''),
+  site: z.string().trim().max(200, 'Keep the site to 200 characters.').default(''),
+  kind: z.enum(projectKinds, { message: 'Choose a site or a vehicle.' }).default('site'),
+  units: unitSystem.nullable().default(null),
+  notes: z.string().max(5000, 'Keep the notes to 5,000 characters.').default(''),
+  scene: scene.default({ walls: [], zones: [], viewers: [] }),
+};
+
+export const createProjectBody = z.object(projectFields).strict();
+export type CreateProjectBody = z.input<typeof createProjectBody>;
+
+export const patchProjectBody = z
+  .object({
+    version: z.number({ message: 'The change must say which version it edits.' }).int(),
+    name: projectFields.name.optional(),
+    customer: z.string().trim().max(160, 'Keep the customer to 160 characters.').optional(),
+    site: z.string().trim().max(200, 'Keep the site to 200 characters.').optional(),
+    units: unitSystem.nullable().optional(),
+    notes: z.string().max(5000, 'Keep the notes to 5,000 characters.').optional(),
+    scene: scene.optional(),
+  })
+  .strict();
+export type PatchProjectBody = z.input<typeof patchProjectBody>;
+
+const angle = (what: string, min: number, max: number) =>
+  z.number({ message: `Enter the ${what}.` }).finite(`Enter the ${what} as a number.`).min(min, `The ${what} is out of range.`).max(max, `The ${what} is out of range.`);
+
+/** Placement fields without defaults: a PATCH must not fill in what it did not say. */
+const placementFields = {
+  label: label('mirror'),
+  catalogueItemId: z.number().int().positive().nullable(),
+  customMirror: checkedMirrorSpec.nullable(),
+  positionM: pair,
+  heightM: z.number({ message: 'Enter the mounting height.' }).min(0.2, 'Mount the mirror at least 0.2 m above the floor.').max(30, 'A mounting height over 30 m is out of range.'),
+  azimuthRad: angle('aim direction', -4 * Math.PI, 4 * Math.PI),
+  tiltDownRad: angle('tilt', -Math.PI / 2, Math.PI / 2),
+  viewerId: sceneId.nullable(),
+  notes: z.string().max(2000, 'Keep the notes to 2,000 characters.'),
+};
+
+const oneMirror = (b: { catalogueItemId?: number | null; customMirror?: unknown }) => (b.catalogueItemId == null) !== (b.customMirror == null);
+const oneMirrorMessage = { message: 'Choose a catalogue mirror or describe a custom one (one of the two).', path: ['catalogueItemId'] };
+
+export const createPlacementBody = z
+  .object({
+    ...placementFields,
+    catalogueItemId: placementFields.catalogueItemId.default(null),
+    customMirror: placementFields.customMirror.default(null),
+    viewerId: placementFields.viewerId.default(null),
+    notes: placementFields.notes.default(''),
+  })
+  .strict()
+  .refine(oneMirror, oneMirrorMessage);
+export type CreatePlacementBody = z.input<typeof createPlacementBody>;
+
+export const patchPlacementBody = z
+  .object({ ...placementFields, version: z.number().int() })
+  .partial()
+  .required({ version: true })
+  .strict()
+  .refine((b) => (b.catalogueItemId === undefined && b.customMirror === undefined) || oneMirror(b), oneMirrorMessage);
+export type PatchPlacementBody = z.input<typeof patchPlacementBody>;
+
+export const placementDto = z.object({
+  id: z.number(),
+  projectId: z.number(),
+  label: z.string(),
+  catalogueItemId: z.number().nullable(),
+  customMirror: checkedMirrorSpec.nullable(),
+  positionM: z.tuple([z.number(), z.number()]),
+  heightM: z.number(),
+  azimuthRad: z.number(),
+  tiltDownRad: z.number(),
+  viewerId: z.string().nullable(),
+  notes: z.string(),
+  version: z.number(),
+  updatedAt: z.string(),
+});
+export type PlacementDto = z.infer<typeof placementDto>;
+
+export const projectSummaryDto = z.object({
+  id: z.number(),
+  name: z.string(),
+  customer: z.string(),
+  site: z.string(),
+  kind: z.enum(projectKinds),
+  status: z.enum(projectStatuses),
+  ownerId: z.number(),
+  ownerName: z.string(),
+  placementCount: z.number(),
+  version: z.number(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type ProjectSummaryDto = z.infer<typeof projectSummaryDto>;
+
+export const projectDto = projectSummaryDto.extend({
+  units: unitSystem.nullable(),
+  notes: z.string(),
+  scene,
+  placements: z.array(placementDto),
+  canEdit: z.boolean(),
+});
+export type ProjectDto = z.infer<typeof projectDto>;
