@@ -3,6 +3,16 @@
  * It knows the routes and the shapes (from shared/schemas); it does not know React.
  */
 import type {
+  CatalogueItemDto,
+  CreateCatalogueItemBody,
+  CreatePlacementBody,
+  CreateProjectBody,
+  PatchCatalogueItemBody,
+  PatchPlacementBody,
+  PatchProjectBody,
+  PlacementDto,
+  ProjectDto,
+  ProjectSummaryDto,
   AcceptInvitationBody,
   ApiErrorBody,
   InvitationDto,
@@ -22,6 +32,8 @@ export class ApiError extends Error {
     message: string,
     readonly fields: Record<string, string> = {},
     readonly retryAfterS?: number,
+    /** On 409, the record as it now stands on the server. */
+    readonly current?: unknown,
   ) {
     super(message);
     this.name = 'ApiError';
@@ -70,6 +82,7 @@ export function createApiClient(options: ApiClientOptions = {}) {
         typeof errBody.error === 'string' ? errBody.error : `The server answered ${res.status} without an explanation. Try again in a moment.`,
         errBody.fields ?? {},
         Number.isFinite(retry) && retry > 0 ? retry : undefined,
+        (data as { current?: unknown } | undefined)?.current,
       );
     }
     return data as T;
@@ -93,6 +106,28 @@ export function createApiClient(options: ApiClientOptions = {}) {
     },
     outbox: {
       list: () => request<OutboxResponse>('GET', '/outbox'),
+    },
+    catalog: {
+      list: () => request<{ items: CatalogueItemDto[] }>('GET', '/catalog'),
+      create: (body: CreateCatalogueItemBody) => request<{ item: CatalogueItemDto }>('POST', '/catalog', body),
+      update: (id: number, body: PatchCatalogueItemBody) => request<{ item: CatalogueItemDto }>('PATCH', `/catalog/${id}`, body),
+    },
+    projects: {
+      list: (params: { q?: string; sort?: 'updated' | 'name' | 'customer' } = {}) => {
+        const qs = new URLSearchParams();
+        if (params.q) qs.set('q', params.q);
+        if (params.sort) qs.set('sort', params.sort);
+        const suffix = qs.toString() ? `?${qs.toString()}` : '';
+        return request<{ projects: ProjectSummaryDto[] }>('GET', `/projects${suffix}`);
+      },
+      get: (id: number) => request<{ project: ProjectDto }>('GET', `/projects/${id}`),
+      create: (body: CreateProjectBody) => request<{ project: ProjectDto }>('POST', '/projects', body),
+      update: (id: number, body: PatchProjectBody) => request<{ project: ProjectDto }>('PATCH', `/projects/${id}`, body),
+      remove: (id: number) => request<void>('DELETE', `/projects/${id}`),
+      addPlacement: (id: number, body: CreatePlacementBody) => request<{ placement: PlacementDto }>('POST', `/projects/${id}/placements`, body),
+      updatePlacement: (id: number, placementId: number, body: PatchPlacementBody) =>
+        request<{ placement: PlacementDto }>('PATCH', `/projects/${id}/placements/${placementId}`, body),
+      removePlacement: (id: number, placementId: number) => request<void>('DELETE', `/projects/${id}/placements/${placementId}`),
     },
   };
 }

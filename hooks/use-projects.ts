@@ -1,0 +1,108 @@
+/** Projects and their placements. Edits carry the version; a 409 brings back the current record. */
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { CreatePlacementBody, CreateProjectBody, PatchPlacementBody, PatchProjectBody, PlacementDto, ProjectDto } from '@/shared/schemas';
+import { ApiError } from '@/shared/api-client';
+import { api } from './api';
+
+/** Only the owner edits a project, so the list can be a little stale; the open project refetches on focus. */
+export const PROJECTS_STALE_MS = 30_000;
+export const PROJECT_STALE_MS = 10_000;
+
+export type ProjectListParams = { q?: string; sort?: 'updated' | 'name' | 'customer' };
+
+export const projectKeys = {
+  all: ['projects'] as const,
+  list: (params: ProjectListParams = {}) => [...projectKeys.all, 'list', params] as const,
+  detail: (id: number) => [...projectKeys.all, 'detail', id] as const,
+};
+
+export function useProjectsQuery(params: ProjectListParams = {}) {
+  return useQuery({ queryKey: projectKeys.list(params), queryFn: async () => (await api.projects.list(params)).projects, staleTime: PROJECTS_STALE_MS });
+}
+
+export function useProjectQuery(id: number | undefined) {
+  return useQuery({
+    queryKey: projectKeys.detail(id ?? -1),
+    queryFn: async () => (await api.projects.get(id!)).project,
+    enabled: id !== undefined && Number.isInteger(id) && id > 0,
+    staleTime: PROJECT_STALE_MS,
+  });
+}
+
+export function useCreateProjectMutation() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: CreateProjectBody) => api.projects.create(body),
+    onSuccess: ({ project }) => {
+      qc.setQueryData(projectKeys.detail(project.id), project);
+      void qc.invalidateQueries({ queryKey: [...projectKeys.all, 'list'] });
+    },
+  });
+}
+
+/** A 409 replaces the cached project with the server's current one, so the screen shows what is true. */
+export function useUpdateProjectMutation(id: number) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: PatchProjectBody) => api.projects.update(id, body),
+    onSuccess: ({ project }) => {
+      qc.setQueryData(projectKeys.detail(id), project);
+      void qc.invalidateQueries({ queryKey: [...projectKeys.all, 'list'] });
+    },
+    onError: (err) => {
+      if (err instanceof ApiError && err.status === 409 && err.current) qc.setQueryData(projectKeys.detail(id), err.current as ProjectDto);
+    },
+  });
+}
+
+export function useDeleteProjectMutation() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (id: number) => api.projects.remove(id),
+    onSuccess: (_v, id) => {
+      qc.removeQueries({ queryKey: projectKeys.detail(id) });
+      void qc.invalidateQueries({ queryKey: [...projectKeys.all, 'list'] });
+    },
+  });
+}
+
+function replacePlacement(project: ProjectDto | undefined, placement: PlacementDto): ProjectDto | undefined {
+  if (!project) return project;
+  const exists = project.placements.some((p) => p.id === placement.id);
+  return { ...project, placements: exists ? project.placements.map((p) => (p.id === placement.id ? placement : p)) : [...project.placements, placement] };
+}
+
+export function useAddPlacementMutation(projectId: number) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: CreatePlacementBody) => api.projects.addPlacement(projectId, body),
+    onSuccess: ({ placement }) => {
+      qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) => replacePlacement(old, placement));
+      void qc.invalidateQueries({ queryKey: [...projectKeys.all, 'list'] });
+    },
+  });
+}
+
+export function useUpdatePlacementMutation(projectId: number) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ placementId, body }: { placementId: number; body: PatchPlacementBody }) => api.projects.updatePlacement(projectId, placementId, body),
+    onSuccess: ({ placement }) => qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) => replacePlacement(old, placement)),
+    onError: (err) => {
+      if (err instanceof ApiError && err.status === 409 && err.current) {
+        qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) => replacePlacement(old, err.current as PlacementDto));
+      }
+    },
+  });
+}
+
+export function useRemovePlacementMutation(projectId: number) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (placementId: number) => api.projects.removePlacement(projectId, placementId),
+    onSuccess: (_v, placementId) => {
+      qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) => (old ? { ...old, placements: old.placements.filter((p) => p.id !== placementId) } : old));
+      void qc.invalidateQueries({ queryKey: [...projectKeys.all, 'list'] });
+    },
+  });
+}
