@@ -4,6 +4,7 @@ import type { Scene, SceneWall } from '../../shared/schemas';
  * DEMO DATA — an invented cold store ("Harbourline Cold Storage, Dock Road", fictional). A side
  * aisle between two racking blocks meets the main aisle at a blind T-junction, where forklifts cross;
  * at the loading-dock corner, trucks leaving the main aisle turn blind around a racking end.
+ * M1 is a half dome on a building column's north face, facing up the side aisle.
  * Coordinates in metres from the building's south-west corner; x east, y north.
  */
 const RACK_M = 6;
@@ -29,6 +30,7 @@ export const DEMO_PROJECT = {
       ...box('rack-w', 4, 13.5, 18, 23, RACK_M, 'racking'),
       ...box('rack-e', 21.5, 13.5, 36, 23, RACK_M, 'racking'),
       ...box('rack-sw', 4, 3, 16, 10, RACK_M, 'racking'),
+      ...box('column', 19.2, 9.5, 20.3, 10, WALL_M, 'wall'),
     ],
     zones: [
       { id: 'z-junction', name: 'T-junction cross traffic', polygonM: [[12, 10.2], [28, 10.2], [28, 13.3], [12, 13.3]], target: { kind: 'adult' } },
@@ -40,7 +42,7 @@ export const DEMO_PROJECT = {
     ],
   } satisfies Scene,
   placements: [
-    { label: 'M1 junction', code: 'DEMO-R800', positionM: [19.75, 10.0] as [number, number], heightM: 3.2, azimuthDeg: 90, tiltDownDeg: 18, viewerId: 'v-aisle' },
-    { label: 'M2 dock corner', code: 'DEMO-R600', positionM: [16.05, 10.05] as [number, number], heightM: 3.0, azimuthDeg: -25, tiltDownDeg: 20, viewerId: 'v-dock' },
+    { label: 'M1 junction', code: 'DEMO-DH610', positionM: [19.75, 10.05] as [number, number], heightM: 2.9, azimuthDeg: 90, tiltDownDeg: 45, viewerId: 'v-aisle' },
+    { label: 'M2 dock corner', code: 'DEMO-R600', positionM: [16.05, 10.05] as [number, number], heightM: 3.0, azimuthDeg: -25, tiltDownDeg: 25, viewerId: 'v-dock' },
   ],
 };

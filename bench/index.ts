@@ -1,0 +1,10 @@
+/** `npm run bench`: runs every benchmark in turn. Add new runners to the list. */
+import { runOpticsBench } from './optics.bench';
+
+const runners: Array<() => Promise<void>> = [runOpticsBench];
+
+async function main(): Promise<void> {
+  for (const run of runners) await run();
+}
+
+void main();

@@ -1,0 +1,130 @@
+/**
+ * Speed of the optics engine. Budgets (from the engine's issue): one round placement with 256
+ * rim rays ≤ 0.5 ms; the same with 200 wall segments ≤ 2 ms; 30 placements plus the zone union
+ * ≤ 40 ms; rankOptions over 20 items × 8 mount points × 36 aims ≤ 1 s. Prints medians.
+ */
+import { Bench } from 'tinybench';
+import {
+  coverage,
+  poseFromAim,
+  rankOptions,
+  zoneCoverage,
+  ARCMIN_RAD,
+  type CatalogueItem,
+  type Mirror,
+  type Polygon,
+  type Vec3,
+  type Wall,
+} from '../shared/optics';
+
+function rng(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+const mirror: Mirror = { shape: 'round', diameterM: 0.8, radiusM: 1.6 };
+const pose = poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0.3, tiltDownRad: 0.35 });
+const eyeM: Vec3 = [5, 3, 1.6];
+
+/** 200 rack and wall segments scattered over a 40 m × 40 m demo warehouse. */
+function demoWalls(): Wall[] {
+  const r = rng(111);
+  const walls: Wall[] = [];
+  for (let i = 0; i < 200; i++) {
+    const x = -20 + 40 * r();
+    const y = -20 + 40 * r();
+    const a = r() * Math.PI;
+    const len = 0.5 + 2.5 * r();
+    if (Math.hypot(x, y) < 1.5 || Math.hypot(x - eyeM[0], y - eyeM[1]) < 1.5) continue;
+    walls.push({ aM: [x, y], bM: [x + len * Math.cos(a), y + len * Math.sin(a)], heightM: 1 + 2 * r() });
+  }
+  while (walls.length < 200) walls.push({ aM: [18, -18 + walls.length * 0.1], bM: [19, -18 + walls.length * 0.1], heightM: 2 });
+  return walls;
+}
+
+function demoCatalogue(): CatalogueItem[] {
+  const items: CatalogueItem[] = [];
+  const sizes = [0.3, 0.4, 0.5, 0.6, 0.8, 1.0];
+  sizes.forEach((d, i) => items.push({ id: `round-${d}`, mirror: { shape: 'round', diameterM: d, radiusM: 2 * d }, cost: 40 + 100 * d }));
+  sizes.forEach((d, i) => items.push({ id: `round-tight-${d}`, mirror: { shape: 'round', diameterM: d, radiusM: 1.2 * d }, cost: 45 + 100 * d + i }));
+  [[0.4, 0.3], [0.6, 0.4], [0.8, 0.5], [1.0, 0.6]].forEach(([w, h]) => items.push({ id: `rect-${w}x${h}`, mirror: { shape: 'rect', widthM: w, heightM: h, radiusM: 1.5 * w }, cost: 60 + 120 * w }));
+  (['full', 'half', 'quarter'] as const).forEach((portion) => items.push({ id: `dome-${portion}`, mirror: { shape: 'dome', portion, diameterM: 0.8 }, cost: 150 }));
+  items.push({ id: 'round-1.2', mirror: { shape: 'round', diameterM: 1.2, radiusM: 2.4 }, cost: 300 });
+  return items.slice(0, 20);
+}
+
+function fmt(ms: number): string {
+  return ms < 1 ? `${(ms * 1000).toFixed(1)} µs` : `${ms.toFixed(2)} ms`;
+}
+
+export async function runOpticsBench(): Promise<void> {
+  const walls = demoWalls();
+  const r = rng(7);
+  const placements = Array.from({ length: 30 }, (_, i) => {
+    const x = -15 + 30 * r();
+    const y = -15 + 30 * r();
+    const az = Math.atan2(-y, -x) + (r() - 0.5);
+    return {
+      mirror: { shape: 'round', diameterM: 0.5 + 0.5 * r(), radiusM: 1.5 + r() } as Mirror,
+      pose: poseFromAim({ vertexM: [x, y, 2.8 + 0.5 * r()], azimuthRad: az, tiltDownRad: 0.2 + 0.3 * r() }),
+      eyeM: [x + 4 * Math.cos(az + 0.5), y + 4 * Math.sin(az + 0.5), 1.6] as Vec3,
+      id: i,
+    };
+  });
+  const siteZone: Polygon = [[[-18, -18], [18, -18], [18, 18], [-18, 18]]];
+  const rankZone: Polygon = [[[3, -6], [9, -6], [9, -2], [3, -2]]];
+  const catalogue = demoCatalogue();
+  const mountPoints = Array.from({ length: 8 }, (_, i) => ({ id: `m${i}`, vertexM: [-2 + i * 1.5, 1 + (i % 3), 2.6 + 0.2 * (i % 2)] as Vec3 }));
+  const rankEye: Vec3 = [6, 3, 1.6];
+  const target = { sizeM: 1.7, minAngleRad: 5 * ARCMIN_RAD };
+
+  const budgets: Record<string, number> = {
+    'coverage, 1 round placement, 256 rim rays': 0.5,
+    'coverage, 1 placement, 200 wall segments': 2,
+    '30 placements + zone union': 40,
+    'rankOptions, 20 items × 8 mounts × 36 aims': 1000,
+  };
+  let sink = 0;
+  const fast = new Bench({ name: 'optics', time: 1500, warmupTime: 300 });
+  fast
+    .add('coverage, 1 round placement, 256 rim rays', () => {
+      sink += coverage({ mirror, pose, eyeM, maxRangeM: 15, rimSamples: 256 }).areaM2;
+    })
+    .add('coverage, 1 placement, 200 wall segments', () => {
+      sink += coverage({ mirror, pose, eyeM, maxRangeM: 15, walls }).areaM2;
+    })
+    .add('30 placements + zone union', () => {
+      const regions = placements.map((p) => coverage({ mirror: p.mirror, pose: p.pose, eyeM: p.eyeM, maxRangeM: 12 }).region);
+      sink += zoneCoverage({ zone: siteZone, regions }).coveredM2;
+    });
+  await fast.run();
+
+  const slow = new Bench({ name: 'sizing', time: 0, iterations: 5, warmupIterations: 1 });
+  slow.add('rankOptions, 20 items × 8 mounts × 36 aims', () => {
+    sink += rankOptions({ catalogue, mountPoints, eyeM: rankEye, zone: rankZone, target }).length;
+  });
+  await slow.run();
+
+  console.log(`optics engine (sum ${sink.toFixed(0)} keeps the work alive)`);
+  let allMet = true;
+  for (const task of [...fast.tasks, ...slow.tasks]) {
+    const res = task.result;
+    if (!res || !('latency' in res)) {
+      console.log(`  ${task.name}: no result`);
+      allMet = false;
+      continue;
+    }
+    const median = res.latency.p50;
+    const budget = budgets[task.name];
+    const met = median <= budget;
+    allMet &&= met;
+    console.log(`  ${task.name}: median ${fmt(median)} (budget ${fmt(budget)}) ${met ? 'meets' : 'MISSES'}`);
+  }
+  if (!allMet) process.exitCode = 1;
+}

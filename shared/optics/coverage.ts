@@ -1,0 +1,275 @@
+import { bbox, multiPolygonArea, pointInMultiPolygon, polygonArea, ringLength, segmentsIntersect, windingNumber, type MultiPolygon, type Ring } from '../geometry/polygon';
+import { clipCurveToDisc } from '../geometry/clip-disc';
+import { simplifyMultiPolygon } from '../geometry/simplify';
+import { robustDifference } from '../geometry/robust-boolean';
+import type { Vec3 } from '../geometry/vec3';
+import type { Pair } from '../geometry/polygon';
+import { OpticsInputError, requireNonNegative, requirePoint, requirePositive } from './errors';
+import { placeMirror, type Mirror, type PlacedMirror } from './mirror';
+import type { Pose } from './pose';
+import { traceOutline, visibleOutline, type TracedFan } from './trace';
+import { checkWalls, wallShadowRing, type Wall } from './walls';
+import { eyeSideShadows } from './eye-side';
+
+export type CoverageInput = {
+  mirror: Mirror;
+  pose: Pose;
+  /** The viewer's eye, metres. */
+  eyeM: Vec3;
+  /** Height of the plane on which coverage is measured, metres (0 = floor). */
+  planeHeightM?: number;
+  /** Coverage ends this far (horizontally) from the point under the mirror's vertex, metres. */
+  maxRangeM: number;
+  walls?: readonly Wall[];
+  /** Points traced along the visible outline of the mirror (default 256). */
+  rimSamples?: number;
+  /** Largest angle of one chord of the range circle, radians (default: chords within 5 mm of the circle). */
+  arcStepRad?: number;
+  /**
+   * Douglas–Peucker tolerance applied to the outline before walls and scoring, metres
+   * (default 0.001; 0 keeps every traced point). Area changes by at most this × perimeter.
+   */
+  simplifyM?: number;
+  /** Largest gap, metres, between a wall shadow's traced edge and its straight pieces (default 0.005). */
+  wallToleranceM?: number;
+};
+
+export type CoverageResult = {
+  /** Seen part of the plane, polygon-clipping's MultiPolygon in plan x, y (metres). */
+  region: MultiPolygon;
+  /** Its area, m² (shoelace). */
+  areaM2: number;
+};
+
+export const DEFAULT_RIM_SAMPLES = 256;
+
+/** Horizontal distance at which rays that miss the plane are parked before the range clip. */
+export function farDistanceM(pm: PlacedMirror, maxRangeM: number): number {
+  return 3 * maxRangeM + 4 * pm.R + 10;
+}
+
+export type PreparedCoverage = {
+  pm: PlacedMirror;
+  eyeM: Vec3;
+  h0: number;
+  maxRangeM: number;
+  farM: number;
+  fan: TracedFan;
+};
+
+/** Validates the input and traces the fan; shared by {@link coverage} and the sizing search. */
+export function prepareCoverage(input: CoverageInput): PreparedCoverage {
+  const pm = placeMirror(input.mirror, input.pose);
+  const eyeM = requirePoint('eyeM', input.eyeM, 'eye position');
+  const h0 = requireNonNegative('planeHeightM', input.planeHeightM ?? 0, 'plane height');
+  const maxRangeM = requirePositive('maxRangeM', input.maxRangeM, 'range');
+  const samples = input.rimSamples ?? DEFAULT_RIM_SAMPLES;
+  if (!Number.isInteger(samples) || samples < 8 || samples > 1_000_000) {
+    throw new OpticsInputError('rimSamples', 'Trace between 8 and 1,000,000 rays around the rim.');
+  }
+  const farM = farDistanceM(pm, maxRangeM);
+  const outline = visibleOutline(pm, eyeM, samples);
+  const fan = traceOutline(pm, eyeM, outline, h0, farM);
+  if (!(fan.minZ > h0)) {
+    throw new OpticsInputError(
+      'planeHeightM',
+      'The mirror reaches down to the plane being measured; mount it higher or measure a lower plane.',
+    );
+  }
+  return { pm, eyeM, h0, maxRangeM, farM, fan };
+}
+
+/**
+ * Chord angle for the range circle such that no chord strays more than 5 mm inside the circle:
+ * sagitta r(1 − cos(θ/2)) = 0.005 m, and never coarser than 2π/64. The range is a chosen limit
+ * (often the recognisable range), so millimetres on it carry no meaning.
+ */
+export function defaultArcStepRad(maxRangeM: number): number {
+  return Math.min((2 * Math.PI) / 64, 2 * Math.acos(Math.max(-1, 1 - 0.005 / maxRangeM)));
+}
+
+/** The traced fan clipped to the range circle, before walls. */
+export function fanRegion(p: PreparedCoverage, arcStepRad = defaultArcStepRad(p.maxRangeM)): MultiPolygon {
+  const v = p.pm.pose.vertexM;
+  return clipCurveToDisc(p.fan.gx, p.fan.gy, p.fan.count, v[0], v[1], p.maxRangeM, arcStepRad);
+}
+
+/**
+ * The part of a plane (z = planeHeightM) that the eye sees in the mirror, by exact 3-D ray
+ * tracing: rays from the eye to the outline of the mirror's visible part reflect about the
+ * local normal (r = i − 2(i·n)n) and meet the plane; a convex mirror maps its surface
+ * one-to-one onto the reflected rays, so the traced outline bounds the region. The region is
+ * clipped to `maxRangeM` around the point under the vertex, then the floor hidden by each
+ * wall is removed: on the mirror → floor leg (see `wallShadowRing`) and on the eye → mirror
+ * leg (see `eyeSideShadows`); each states its approximation.
+ *
+ * Accuracy: the outline is a polygon through exact traced points, `rimSamples` of them plus
+ * exact corners; the range circle is a polygon with chords of `arcStepRad`; the result is then
+ * simplified within `simplifyM` (1 mm). Tests bound the distance from the polygon's edge of any
+ * point where it and the exact point test disagree (under 2 cm at 256 rays and 14 m range).
+ */
+export function coverage(input: CoverageInput): CoverageResult {
+  const p = prepareCoverage(input);
+  const walls = checkWalls(input.walls);
+  const arcStep = input.arcStepRad ?? defaultArcStepRad(p.maxRangeM);
+  if (!(arcStep > 0 && arcStep <= Math.PI / 4)) {
+    throw new OpticsInputError('arcStepRad', 'The range circle step must be between 0 and 45°.');
+  }
+  const simplifyM = input.simplifyM ?? 1e-3;
+  if (!(simplifyM >= 0 && simplifyM <= 0.1)) {
+    throw new OpticsInputError('simplifyM', 'The outline simplification must be between 0 and 0.1 m.');
+  }
+  let region = fanRegion(p, arcStep);
+  if (simplifyM > 0) region = simplifyMultiPolygon(region, simplifyM);
+  if (walls.length > 0 && region.length > 0) region = subtractWalls(p, region, walls, input.wallToleranceM ?? 0.005);
+  return { region, areaM2: multiPolygonArea(region) };
+}
+
+/**
+ * Removes wall shadows from a region with one boolean difference (polygon-clipping). Before
+ * the exact (Alhazen) shadow of a wall is traced, two conservative tests skip walls that cannot
+ * matter: walls wholly beyond the range circle, and walls whose bounding wedge
+ * ({@link shadowBound}) does not meet the region. Exact shadows that miss the region are
+ * skipped too, and the rest are cut to the region's box, which leaves the result unchanged.
+ */
+export function subtractWalls(p: PreparedCoverage, region: MultiPolygon, walls: readonly Wall[], tolM: number): MultiPolygon {
+  const v = p.pm.pose.vertexM;
+  const [minX, minY, maxX, maxY] = bbox(region);
+  // Every reflection point lies within `reach` of the vertex (the outline bounds the mirror).
+  let reach = 0;
+  for (let j = 0; j < p.fan.count; j++) {
+    reach = Math.max(reach, Math.hypot(p.fan.point[3 * j] - v[0], p.fan.point[3 * j + 1] - v[1], p.fan.point[3 * j + 2] - v[2]));
+  }
+  const shadows: Ring[][] = [];
+  for (const w of walls) {
+    if (w.heightM <= p.h0) continue;
+    if (segmentDistance(v[0], v[1], w) >= p.maxRangeM) continue;
+    const bound = shadowBound(w, v, reach, p.farM);
+    if (bound) {
+      const cut = clipToBox(bound, minX, minY, maxX, maxY);
+      if (cut.length < 4 || !overlaps(region, cut)) continue;
+    }
+    const ring = wallShadowRing(p.pm, p.eyeM, w, p.h0, p.farM, tolM);
+    if (!ring || !overlaps(region, ring)) continue;
+    shadows.push([clipToBox(ring, minX - 0.01, minY - 0.01, maxX + 0.01, maxY + 0.01)]);
+  }
+  for (const ring of eyeSideShadows(p.pm, p.eyeM, p.fan, walls, p.h0, p.farM)) {
+    if (overlaps(region, ring)) shadows.push([ring]);
+  }
+  if (shadows.length === 0) return region;
+  // Slivers left where a shadow's traced edge runs along the region's own edge enclose no
+  // meaningful area (below one square millimetre); drop them.
+  return robustDifference(region, ...shadows).filter((poly) => polygonArea(poly) > 1e-6);
+}
+
+/**
+ * A cheap polygon sure to contain a wall's shadow, whatever the reflection point within
+ * `reach` of the vertex: every shadow point lies on a ray from a reflection point P through the
+ * wall's foot segment A–B, beyond it. The direction from A is within asin(reach/|A − V|) of the
+ * direction from the vertex V, so the wedge behind A–B bounded by the rays from A and from B
+ * turned outward by those angles, out to `farM`, contains the shadow. Returns null when the
+ * vertex is too close to the wall for the bound (then the exact shadow is always computed).
+ */
+export function shadowBound(w: Wall, v: Vec3, reach: number, farM: number): Ring | null {
+  const A = w.aM;
+  const B = w.bM;
+  const ax = A[0] - v[0];
+  const ay = A[1] - v[1];
+  const bx = B[0] - v[0];
+  const by = B[1] - v[1];
+  const la = Math.hypot(ax, ay);
+  const lb = Math.hypot(bx, by);
+  if (la <= reach * 1.5 || lb <= reach * 1.5 || segmentDistance(v[0], v[1], w) <= reach * 1.5) return null;
+  // Outward: away from the other end, seen from V.
+  const side = ax * by - ay * bx >= 0 ? 1 : -1; // sign of the turn from A to B about V
+  const da = -side * Math.asin(reach / la);
+  const db = side * Math.asin(reach / lb);
+  const rot = (x: number, y: number, l: number, t: number): Pair => {
+    const c = Math.cos(t);
+    const s = Math.sin(t);
+    return [((x * c - y * s) / l) * farM, ((x * s + y * c) / l) * farM];
+  };
+  const fa = rot(ax, ay, la, da);
+  const fb = rot(bx, by, lb, db);
+  return [
+    [A[0], A[1]],
+    [B[0], B[1]],
+    [B[0] + fb[0], B[1] + fb[1]],
+    [A[0] + fa[0], A[1] + fa[1]],
+    [A[0], A[1]],
+  ];
+}
+
+/**
+ * A shadow ring cut to a box around the region (Sutherland–Hodgman against the four sides):
+ * nothing outside the box can change the difference, and the long far edges of shadows would
+ * otherwise cross each other many times in the boolean sweep.
+ */
+export function clipToBox(ring: Ring, x0: number, y0: number, x1: number, y1: number): Ring {
+  let pts: Ring = ring.slice(0, ringLength(ring));
+  const sides: [number, number, number][] = [
+    [1, 0, -x0],
+    [-1, 0, x1],
+    [0, 1, -y0],
+    [0, -1, y1],
+  ];
+  for (const [a, b, c] of sides) {
+    const out: Ring = [];
+    for (let i = 0; i < pts.length; i++) {
+      const p = pts[i];
+      const q = pts[(i + 1) % pts.length];
+      const fp = a * p[0] + b * p[1] + c;
+      const fq = a * q[0] + b * q[1] + c;
+      if (fp >= 0) out.push(p);
+      if ((fp >= 0) !== (fq >= 0)) {
+        const t = fp / (fp - fq);
+        out.push([p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1])]);
+      }
+    }
+    pts = out;
+    if (pts.length === 0) break;
+  }
+  if (pts.length > 0) pts.push([pts[0][0], pts[0][1]]);
+  return pts;
+}
+
+/**
+ * Exact test that a ring and a region share some area or boundary: an edge crossing, or one
+ * inside the other. Used only to skip boolean work that could not change the result.
+ */
+export function overlaps(region: MultiPolygon, ring: Ring): boolean {
+  let x0 = Infinity;
+  let y0 = Infinity;
+  let x1 = -Infinity;
+  let y1 = -Infinity;
+  for (const q of ring) {
+    if (q[0] < x0) x0 = q[0];
+    if (q[1] < y0) y0 = q[1];
+    if (q[0] > x1) x1 = q[0];
+    if (q[1] > y1) y1 = q[1];
+  }
+  const nr = ringLength(ring);
+  for (const poly of region) {
+    for (const rr of poly) {
+      const n = ringLength(rr);
+      for (let i = 0; i < n; i++) {
+        const a = rr[i];
+        const b = rr[(i + 1) % n];
+        if (Math.max(a[0], b[0]) < x0 || Math.min(a[0], b[0]) > x1 || Math.max(a[1], b[1]) < y0 || Math.min(a[1], b[1]) > y1) continue;
+        for (let j = 0; j < nr; j++) if (segmentsIntersect(a, b, ring[j], ring[(j + 1) % nr])) return true;
+      }
+    }
+    if (poly.length > 0 && windingNumber(ring, poly[0][0]) !== 0) return true;
+  }
+  return ring.length > 0 && pointInMultiPolygon(region, ring[0]);
+}
+
+function segmentDistance(px: number, py: number, w: Wall): number {
+  const ax = w.aM[0];
+  const ay = w.aM[1];
+  const dx = w.bM[0] - ax;
+  const dy = w.bM[1] - ay;
+  const l2 = dx * dx + dy * dy;
+  const t = Math.max(0, Math.min(1, ((px - ax) * dx + (py - ay) * dy) / l2));
+  return Math.hypot(px - ax - t * dx, py - ay - t * dy);
+}

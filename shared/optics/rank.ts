@@ -1,0 +1,200 @@
+import { signedPieces, intersectionAreaWithPieces } from '../geometry/clip-area';
+import { polygonArea, type MultiPolygon, type Polygon } from '../geometry/polygon';
+import { distance, type Vec3 } from '../geometry/vec3';
+import { coverage, fanRegion, prepareCoverage } from './coverage';
+import { OpticsInputError, requirePoint, requirePositive } from './errors';
+import { checkMirror, domeMountTiltRad, sphereRadiusM, type Mirror } from './mirror';
+import { recognisableRange } from './paraxial';
+import { poseFromAim, type Pose } from './pose';
+import type { Wall } from './walls';
+import { checkZone, zoneCoverage } from './zones';
+
+export type CatalogueItem = { id: string; name?: string; mirror: Mirror; cost: number };
+export type MountPoint = { id: string; vertexM: Vec3 };
+export type Aim = { azimuthRad: number; tiltDownRad: number };
+/** What must be recognisable: a target of `sizeM` subtending at least `minAngleRad`. */
+export type Target = { sizeM: number; minAngleRad: number; requiredRangeM?: number };
+
+export type RankInput = {
+  catalogue: readonly CatalogueItem[];
+  mountPoints: readonly MountPoint[];
+  eyeM: Vec3;
+  zone: Polygon;
+  target: Target;
+  /** Aims to try at every mount point; by default 12 azimuths × 3 tilts about the zone. */
+  aims?: readonly Aim[];
+  planeHeightM?: number;
+  /** Upper limit on the coverage range, metres; the recognisable range also limits it. */
+  maxRangeM?: number;
+  walls?: readonly Wall[];
+  /** How many options to return (default 10). */
+  limit?: number;
+  /** Rays per outline in the screening pass (default 64); returned options use 256. */
+  screenRimSamples?: number;
+  /** Coverage fractions within one step rank as equal and are separated by range, then cost (default 0.01). */
+  coverageStep?: number;
+};
+
+export type RankedOption = {
+  item: CatalogueItem;
+  mountPoint: MountPoint;
+  aim: Aim;
+  pose: Pose;
+  /** Fraction of the zone covered within the recognisable range (0..1). */
+  fraction: number;
+  coveredM2: number;
+  /** Paraxial recognisable range for the target, metres from the mirror. */
+  rangeM: number;
+  cost: number;
+  region: MultiPolygon;
+};
+
+/** Default aims: 12 azimuths from −55° to +55° about the direction to the zone, × tilts 5°, 15°, 25° down. */
+export function defaultAims(mount: Vec3, zone: Polygon): Aim[] {
+  const ring = zone[0];
+  let cx = 0;
+  let cy = 0;
+  for (const p of ring) {
+    cx += p[0];
+    cy += p[1];
+  }
+  cx /= ring.length;
+  cy /= ring.length;
+  const az0 = Math.atan2(cy - mount[1], cx - mount[0]);
+  const aims: Aim[] = [];
+  for (let i = 0; i < 12; i++) {
+    for (const t of [5, 15, 25]) {
+      aims.push({ azimuthRad: az0 + ((-55 + 10 * i) * Math.PI) / 180, tiltDownRad: (t * Math.PI) / 180 });
+    }
+  }
+  return aims;
+}
+
+type Candidate = {
+  item: CatalogueItem;
+  mount: MountPoint;
+  aim: Aim;
+  rangeM: number;
+  rangeKey: number;
+  fraction: number;
+};
+
+/**
+ * Sizing search: every catalogue item × mount point × aim is traced and scored on the zone.
+ * The coverage of each candidate is limited to its recognisable range (paraxial, eye at the
+ * distance from eye to vertex), so "covered" means "seen large enough to recognise the target".
+ * Ranking, best first: coverage fraction in steps of `coverageStep`, then recognisable range
+ * (capped at `requiredRangeM` when given: beyond what is needed counts equal), then lower cost,
+ * then the exact fraction. Domes are tried at their mounting tilt only.
+ *
+ * Method: a screening pass with `screenRimSamples` rays and no walls (walls only remove
+ * coverage) scores all candidates by clipping the traced region against a triangulation of
+ * the zone; the best max(5·limit, 50) are then recomputed exactly (256 rays, walls,
+ * polygon-clipping) and re-ranked. Candidates whose eye is behind the mirror are skipped.
+ */
+export function rankOptions(input: RankInput): RankedOption[] {
+  const zone = checkZone(input.zone);
+  const zoneArea = polygonArea(zone);
+  const eyeM = requirePoint('eyeM', input.eyeM, 'eye position');
+  const size = requirePositive('target.sizeM', input.target?.sizeM, 'target size');
+  const minAngle = requirePositive('target.minAngleRad', input.target?.minAngleRad, 'smallest recognisable angle');
+  const required = input.target.requiredRangeM === undefined ? Infinity : requirePositive('target.requiredRangeM', input.target.requiredRangeM, 'required range');
+  const cap = input.maxRangeM === undefined ? Infinity : requirePositive('maxRangeM', input.maxRangeM, 'range');
+  const limit = input.limit ?? 10;
+  const step = input.coverageStep ?? 0.01;
+  const screenSamples = input.screenRimSamples ?? 64;
+  if (!Array.isArray(input.catalogue) || input.catalogue.length === 0) {
+    throw new OpticsInputError('catalogue', 'Add at least one mirror to choose from.');
+  }
+  if (!Array.isArray(input.mountPoints) || input.mountPoints.length === 0) {
+    throw new OpticsInputError('mountPoints', 'Add at least one place where a mirror could be mounted.');
+  }
+  input.catalogue.forEach((c, i) => {
+    checkMirror(c.mirror, `catalogue[${i}].mirror`);
+    if (typeof c.cost !== 'number' || !Number.isFinite(c.cost) || c.cost < 0) {
+      throw new OpticsInputError(`catalogue[${i}].cost`, 'Give each catalogue item a cost of zero or more.');
+    }
+  });
+  input.mountPoints.forEach((m, i) => requirePoint(`mountPoints[${i}].vertexM`, m.vertexM, 'mount point'));
+  const pieces = signedPieces(zone);
+
+  const candidates: Candidate[] = [];
+  for (const item of input.catalogue) {
+    const R = sphereRadiusM(item.mirror);
+    for (const mount of input.mountPoints) {
+      const D = distance(eyeM, mount.vertexM);
+      if (!(D > 0)) continue;
+      const rangeM = recognisableRange({ radiusM: R, eyeDistanceM: D, targetSizeM: size, minAngleRad: minAngle }).rangeM;
+      const reach = Math.min(cap, rangeM);
+      if (!(reach > 0)) continue;
+      for (const aim of aimsFor(item.mirror, mount.vertexM, zone, input.aims)) {
+        let fraction = 0;
+        try {
+          const prepared = prepareCoverage({
+            mirror: item.mirror,
+            pose: poseFromAim({ vertexM: mount.vertexM, ...aim }),
+            eyeM,
+            planeHeightM: input.planeHeightM,
+            maxRangeM: reach,
+            rimSamples: screenSamples,
+          });
+          fraction = intersectionAreaWithPieces(fanRegion(prepared), pieces) / zoneArea;
+        } catch (e) {
+          if (e instanceof OpticsInputError) continue;
+          throw e;
+        }
+        candidates.push({ item, mount, aim, rangeM, rangeKey: Math.min(rangeM, required), fraction });
+      }
+    }
+  }
+  const key = (c: { fraction: number; rangeKey: number; item: CatalogueItem }) => [Math.floor(c.fraction / step + 1e-9), c.rangeKey, -c.item.cost, c.fraction];
+  const byKey = (a: Candidate, b: Candidate): number => compareKeys(key(b), key(a));
+  candidates.sort(byKey);
+
+  const exact: (Candidate & { coveredM2: number; region: MultiPolygon; pose: Pose })[] = [];
+  for (const c of candidates.slice(0, Math.max(5 * limit, 50))) {
+    const pose = poseFromAim({ vertexM: c.mount.vertexM, ...c.aim });
+    const cov = coverage({
+      mirror: c.item.mirror,
+      pose,
+      eyeM,
+      planeHeightM: input.planeHeightM,
+      maxRangeM: Math.min(cap, c.rangeM),
+      walls: input.walls,
+    });
+    const z = zoneCoverage({ zone, regions: [cov.region] });
+    exact.push({ ...c, fraction: z.fraction, coveredM2: z.coveredM2, region: cov.region, pose });
+  }
+  exact.sort(byKey);
+  return exact.slice(0, limit).map((c) => ({
+    item: c.item,
+    mountPoint: c.mount,
+    aim: c.aim,
+    pose: c.pose,
+    fraction: c.fraction,
+    coveredM2: c.coveredM2,
+    rangeM: c.rangeM,
+    cost: c.item.cost,
+    region: c.region,
+  }));
+}
+
+function aimsFor(mirror: Mirror, mount: Vec3, zone: Polygon, aims: readonly Aim[] | undefined): readonly Aim[] {
+  const list = aims ?? defaultAims(mount, zone);
+  if (mirror.shape !== 'dome') return list;
+  const tilt = domeMountTiltRad(mirror.portion);
+  if (mirror.portion === 'full') return [{ azimuthRad: 0, tiltDownRad: tilt }];
+  const seen = new Set<number>();
+  const out: Aim[] = [];
+  for (const a of list) {
+    if (seen.has(a.azimuthRad)) continue;
+    seen.add(a.azimuthRad);
+    out.push({ azimuthRad: a.azimuthRad, tiltDownRad: tilt });
+  }
+  return out;
+}
+
+function compareKeys(a: number[], b: number[]): number {
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return a[i] < b[i] ? -1 : 1;
+  return 0;
+}

@@ -1,0 +1,224 @@
+import { dot, norm, sub, type Vec3 } from '../geometry/vec3';
+import { checkEye, type Constraint, type PlacedMirror } from './mirror';
+
+/**
+ * Forward ray tracing from the eye over the visible outline of a mirror.
+ *
+ * The reflecting part seen by the eye is the set of sphere points C + R·m with
+ * - m·k ≥ c for each constraint of the mirror's portion (rim circle, panel edges, dome faces);
+ * - m·ê ≥ R/|E − C| (ê = unit (E − C)): the eye is on the outer side of the tangent plane.
+ * Each constraint is a circle on the sphere. Along every great circle leaving an interior
+ * point m₀ in direction g, the constraint's value is A·cos(ρ − δ), so the first angle ρ at
+ * which it becomes active has the closed form ρ = δ + acos(c/A). The outline in direction g is
+ * the smallest such ρ. Corners (where two constraint circles meet) are added exactly, so
+ * rectangle corners and dome edges are not cut off. The region is star-shaped about m₀ along
+ * these great circles (caps no larger than a hemisphere are convex; a panel's edge planes are
+ * crossed once on the front hemisphere).
+ */
+
+export type Outline = {
+  /** Unit directions m from the centre, 3 per point. */
+  m: Float64Array;
+  count: number;
+};
+
+function constraintsWithEye(pm: PlacedMirror, eyeM: Vec3): Constraint[] {
+  const e = sub(eyeM, pm.C);
+  const d = norm(e);
+  return [...pm.portion, { k: [e[0] / d, e[1] / d, e[2] / d], c: pm.R / d }];
+}
+
+/**
+ * Outline of the part of the mirror that the eye sees, as unit directions from the sphere's
+ * centre, ordered around the interior point; `samples` evenly spaced directions plus corners.
+ */
+export function visibleOutline(pm: PlacedMirror, eyeM: Vec3, samples: number): Outline {
+  const m0 = checkEye(pm, eyeM);
+  const cons = constraintsWithEye(pm, eyeM);
+  // Tangent basis at m0: the panel's own (u, v) so rectangle corners sit at atan2(h, w).
+  let e1: Vec3;
+  let e2: Vec3;
+  if (!pm.isDome) {
+    e1 = pm.frame.u;
+    e2 = pm.frame.v;
+  } else {
+    const a: Vec3 = Math.abs(m0[2]) < 0.9 ? [0, 0, 1] : [1, 0, 0];
+    const t = dot(a, m0);
+    const x: Vec3 = [a[0] - t * m0[0], a[1] - t * m0[1], a[2] - t * m0[2]];
+    const xn = norm(x);
+    e1 = [x[0] / xn, x[1] / xn, x[2] / xn];
+    e2 = [m0[1] * e1[2] - m0[2] * e1[1], m0[2] * e1[0] - m0[0] * e1[2], m0[0] * e1[1] - m0[1] * e1[0]];
+  }
+
+  const angles: number[] = [];
+  for (let j = 0; j < samples; j++) angles.push(-Math.PI + (2 * Math.PI * j) / samples);
+  for (const corner of corners(cons)) {
+    const b = Math.atan2(dot(corner, e2), dot(corner, e1));
+    angles.push(b);
+  }
+  angles.sort((p, q) => p - q);
+
+  const nk = cons.length;
+  const kn = new Float64Array(nk);
+  const k1 = new Float64Array(nk);
+  const k2 = new Float64Array(nk);
+  for (let i = 0; i < nk; i++) {
+    kn[i] = dot(cons[i].k, m0);
+    k1[i] = dot(cons[i].k, e1);
+    k2[i] = dot(cons[i].k, e2);
+  }
+  const out = new Float64Array(3 * angles.length);
+  let count = 0;
+  let last = NaN;
+  for (const b of angles) {
+    if (b === last) continue;
+    last = b;
+    const cb = Math.cos(b);
+    const sb = Math.sin(b);
+    let rho = Math.PI;
+    for (let i = 0; i < nk; i++) {
+      const an = kn[i];
+      const ag = cb * k1[i] + sb * k2[i];
+      const A = Math.hypot(an, ag);
+      if (A === 0) continue;
+      const ratio = cons[i].c / A;
+      if (ratio <= -1) continue;
+      const r = Math.atan2(ag, an) + Math.acos(Math.min(1, ratio));
+      if (r > 0 && r < rho) rho = r;
+    }
+    const cr = Math.cos(rho);
+    const sr = Math.sin(rho);
+    const gx = cb * e1[0] + sb * e2[0];
+    const gy = cb * e1[1] + sb * e2[1];
+    const gz = cb * e1[2] + sb * e2[2];
+    out[3 * count] = cr * m0[0] + sr * gx;
+    out[3 * count + 1] = cr * m0[1] + sr * gy;
+    out[3 * count + 2] = cr * m0[2] + sr * gz;
+    count++;
+  }
+  return { m: out, count };
+}
+
+/** Points where two constraint circles meet and every other constraint holds. */
+function corners(cons: Constraint[]): Vec3[] {
+  const out: Vec3[] = [];
+  for (let i = 0; i < cons.length; i++) {
+    for (let j = i + 1; j < cons.length; j++) {
+      const a = cons[i];
+      const b = cons[j];
+      const G = dot(a.k, b.k);
+      const den = 1 - G * G;
+      if (den < 1e-12) continue;
+      const al = (a.c - G * b.c) / den;
+      const be = (b.c - G * a.c) / den;
+      const base: Vec3 = [al * a.k[0] + be * b.k[0], al * a.k[1] + be * b.k[1], al * a.k[2] + be * b.k[2]];
+      const rest = 1 - dot(base, base);
+      if (rest < 0) continue;
+      const cx: Vec3 = [
+        a.k[1] * b.k[2] - a.k[2] * b.k[1],
+        a.k[2] * b.k[0] - a.k[0] * b.k[2],
+        a.k[0] * b.k[1] - a.k[1] * b.k[0],
+      ];
+      const g = Math.sqrt(rest / den);
+      for (const s of [1, -1]) {
+        const p: Vec3 = [base[0] + s * g * cx[0], base[1] + s * g * cx[1], base[2] + s * g * cx[2]];
+        let ok = true;
+        for (let q = 0; q < cons.length && ok; q++) {
+          if (q !== i && q !== j && dot(p, cons[q].k) < cons[q].c - 1e-12) ok = false;
+        }
+        if (ok) out.push(p);
+      }
+    }
+  }
+  return out;
+}
+
+export type TracedFan = {
+  count: number;
+  /** Reflection points on the mirror, 3 per ray, metres. */
+  point: Float64Array;
+  /** Unit reflected directions, 3 per ray. */
+  dir: Float64Array;
+  /** Where each reflected ray meets the plane, or is pushed out to `farM` horizontally. */
+  gx: Float64Array;
+  gy: Float64Array;
+  /** 1 when the ray really meets the plane within `farM` of its reflection point. */
+  hits: Uint8Array;
+  /** Lowest reflection point height, metres. */
+  minZ: number;
+};
+
+/**
+ * Traces eye → outline point → reflected ray → plane z = planeHeightM for every outline point.
+ * Reflection uses the local normal n = m (unit, outward): r = i − 2(i·n)n with i the unit
+ * incident direction. A ray that rises, runs level, or meets the plane farther than `farM`
+ * (horizontally) is pushed to `farM` along its horizontal direction, which keeps the outline
+ * a continuous closed curve for the range clip that follows.
+ */
+export function traceOutline(pm: PlacedMirror, eyeM: Vec3, outline: Outline, planeHeightM: number, farM: number): TracedFan {
+  const n = outline.count;
+  const point = new Float64Array(3 * n);
+  const dir = new Float64Array(3 * n);
+  const gx = new Float64Array(n);
+  const gy = new Float64Array(n);
+  const hits = new Uint8Array(n);
+  const R = pm.R;
+  const cx = pm.C[0];
+  const cy = pm.C[1];
+  const cz = pm.C[2];
+  const ex = eyeM[0];
+  const ey = eyeM[1];
+  const ez = eyeM[2];
+  const m = outline.m;
+  let minZ = Infinity;
+  let lastHx = 1;
+  let lastHy = 0;
+  for (let j = 0; j < n; j++) {
+    const mx = m[3 * j];
+    const my = m[3 * j + 1];
+    const mz = m[3 * j + 2];
+    const px = cx + R * mx;
+    const py = cy + R * my;
+    const pz = cz + R * mz;
+    let ix = px - ex;
+    let iy = py - ey;
+    let iz = pz - ez;
+    const il = Math.sqrt(ix * ix + iy * iy + iz * iz);
+    ix /= il;
+    iy /= il;
+    iz /= il;
+    const k = 2 * (ix * mx + iy * my + iz * mz);
+    const rx = ix - k * mx;
+    const ry = iy - k * my;
+    const rz = iz - k * mz;
+    point[3 * j] = px;
+    point[3 * j + 1] = py;
+    point[3 * j + 2] = pz;
+    dir[3 * j] = rx;
+    dir[3 * j + 1] = ry;
+    dir[3 * j + 2] = rz;
+    if (pz < minZ) minZ = pz;
+    const h = Math.sqrt(rx * rx + ry * ry);
+    let hx = lastHx;
+    let hy = lastHy;
+    if (h > 0) {
+      hx = rx / h;
+      hy = ry / h;
+      lastHx = hx;
+      lastHy = hy;
+    }
+    const dz = planeHeightM - pz;
+    // t along the unit ray to the plane; horizontal run is t·h.
+    if (rz < 0 && dz < 0 && (dz / rz) * h <= farM) {
+      const t = dz / rz;
+      gx[j] = px + t * rx;
+      gy[j] = py + t * ry;
+      hits[j] = 1;
+    } else {
+      gx[j] = px + hx * farM;
+      gy[j] = py + hy * farM;
+      hits[j] = 0;
+    }
+  }
+  return { count: n, point, dir, gx, gy, hits, minZ };
+}

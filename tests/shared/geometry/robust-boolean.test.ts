@@ -1,0 +1,53 @@
+import { coverage, poseFromAim, type Mirror, type Wall } from '../../../shared/optics';
+import { robustDifference, snapMultiPolygon } from '../../../shared/geometry/robust-boolean';
+import { multiPolygonArea } from '../../../shared/geometry/polygon';
+
+// A fixture named after the case it pins: a 40 m × 25 m hall (8 m walls) with three racking
+// blocks (6 m), in which polygon-clipping's plain difference threw "Unable to find segment" and
+// "Unable to complete output ring" for these three poses.
+const box = (x0: number, y0: number, x1: number, y1: number, h: number): Wall[] => [
+  { aM: [x0, y0], bM: [x1, y0], heightM: h },
+  { aM: [x1, y0], bM: [x1, y1], heightM: h },
+  { aM: [x1, y1], bM: [x0, y1], heightM: h },
+  { aM: [x0, y1], bM: [x0, y0], heightM: h },
+];
+const walls = [...box(0, 0, 40, 25, 8), ...box(4, 13.5, 18, 23, 6), ...box(21.5, 13.5, 36, 23, 6), ...box(4, 3, 16, 10, 6)];
+const deg = Math.PI / 180;
+const cases: [string, Mirror, number, number][] = [
+  ['600 mm round aimed −25°, tilted 5°', { shape: 'round', diameterM: 0.6, radiusM: 1.2 }, -25, 5],
+  ['600 mm round aimed −45°, tilted 15°', { shape: 'round', diameterM: 0.6, radiusM: 1.2 }, -45, 15],
+  ['800 mm round aimed −25°, tilted 15°', { shape: 'round', diameterM: 0.8, radiusM: 1.6 }, -25, 15],
+];
+
+describe('wall subtraction on nearly degenerate shadows', () => {
+  it.each(cases)('gives a region for the %s that the hall walls confine', (_name, mirror, azDeg, tiltDeg) => {
+    const pose = poseFromAim({ vertexM: [16.05, 10.05, 3.0], azimuthRad: azDeg * deg, tiltDownRad: tiltDeg * deg });
+    const eyeM: [number, number, number] = [26, 6.5, 2.1];
+    const far = coverage({ mirror, pose, eyeM, maxRangeM: 60, walls });
+    // The farthest hall corner is 28 m from the mirror, so a 30 m range cuts nothing the walls leave.
+    const near = coverage({ mirror, pose, eyeM, maxRangeM: 30, walls });
+    expect(far.areaM2).toBeGreaterThan(1);
+    expect(Math.abs(far.areaM2 - near.areaM2) / near.areaM2).toBeLessThan(1e-3);
+    for (const poly of far.region) for (const [x, y] of poly[0]) {
+      expect(x).toBeGreaterThanOrEqual(-0.01);
+      expect(x).toBeLessThanOrEqual(40.01);
+      expect(y).toBeGreaterThanOrEqual(-0.01);
+      expect(y).toBeLessThanOrEqual(25.01);
+    }
+  });
+
+  it('snapping moves no vertex by more than half a grid step and keeps the area', () => {
+    const square = [[[[0.1234567, 0.9876543], [5.0000004, 1.0000001], [5, 6], [0, 6]]]] as [number, number][][][];
+    const snapped = snapMultiPolygon(square, 1e-3);
+    snapped[0][0].forEach(([x, y], i) => {
+      expect(Math.abs(x - square[0][0][i][0])).toBeLessThanOrEqual(5e-4 + 1e-12);
+      expect(Math.abs(y - square[0][0][i][1])).toBeLessThanOrEqual(5e-4 + 1e-12);
+    });
+    expect(multiPolygonArea(snapped)).toBeCloseTo(multiPolygonArea(square), 2);
+  });
+
+  it('subtracts exactly when the input is well conditioned (10 × 10 minus 5 × 5 leaves 75 m²)', () => {
+    const out = robustDifference([[[0, 0], [10, 0], [10, 10], [0, 10]]], [[[0, 0], [5, 0], [5, 5], [0, 5]]]);
+    expect(multiPolygonArea(out)).toBeCloseTo(75, 9);
+  });
+});
