@@ -11,7 +11,7 @@ import {
 } from '../../../shared/optics';
 
 // Human factors (SOURCES.md): 20/20 acuity resolves 1 minute of arc; a Snellen 20/20 letter
-// subtends 5 minutes of arc. Confirmed (optics course notes, as SOURCES.md records; common practice).
+// subtends 5 minutes of arc. Common practice in vision testing (recorded as confirmed in the project's outside-facts list).
 const normalize = (a: Vec3): Vec3 => {
   const n = Math.hypot(a[0], a[1], a[2]);
   return [a[0] / n, a[1] / n, a[2] / n];
