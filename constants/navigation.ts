@@ -4,18 +4,21 @@
  */
 import type { Role } from '@/shared/schemas';
 
-export type NavKey = 'projects' | 'reviews' | 'users' | 'outbox' | 'account';
+export type NavKey = 'projects' | 'catalog' | 'reviews' | 'users' | 'outbox' | 'account';
 
 export interface NavItem {
   key: NavKey;
   label: string;
   /** The URL path, also what a pathname is matched against. */
-  href: '/projects' | '/reviews' | '/users' | '/outbox' | '/account';
+  href: '/projects' | '/catalog' | '/reviews' | '/users' | '/outbox' | '/account';
   roles: readonly Role[];
 }
 
 export const navItems: readonly NavItem[] = [
-  { key: 'projects', label: 'Projects', href: '/projects', roles: ['installer', 'admin'] },
+  // Reviewers read the organisation's projects (read-only); the server enforces what each may change.
+  { key: 'projects', label: 'Projects', href: '/projects', roles: ['installer', 'reviewer', 'admin'] },
+  // Everyone reads the mirror catalogue; only the admin's screens offer editing.
+  { key: 'catalog', label: 'Catalogue', href: '/catalog', roles: ['installer', 'reviewer', 'admin'] },
   { key: 'reviews', label: 'Reviews', href: '/reviews', roles: ['reviewer'] },
   { key: 'users', label: 'Users', href: '/users', roles: ['admin'] },
   { key: 'outbox', label: 'Outbox', href: '/outbox', roles: ['admin'] },
@@ -24,9 +27,9 @@ export const navItems: readonly NavItem[] = [
 
 /** The order a role's tabs appear in: their daily work first, Account last. */
 const orderByRole: Record<Role, readonly NavKey[]> = {
-  installer: ['projects', 'account'],
-  reviewer: ['reviews', 'account'],
-  admin: ['users', 'outbox', 'projects', 'account'],
+  installer: ['projects', 'catalog', 'account'],
+  reviewer: ['reviews', 'projects', 'catalog', 'account'],
+  admin: ['users', 'outbox', 'projects', 'catalog', 'account'],
 };
 
 export function navItemsFor(role: Role): NavItem[] {

@@ -4,10 +4,7 @@ import { AppText, Card, EmptyState, TextLink } from '@/components/ui';
 import { palette, spacing } from '@/constants/theme';
 import type { Role } from '@/shared/schemas';
 
-/**
- * Projects are built in a later step. Until then this says plainly what will live here and what is
- * useful to do now; it shows no made-up jobs.
- */
+/** Shown when there are no projects at all: says plainly what will live here; shows no made-up jobs. */
 export function ProjectsEmpty({ role }: { role: Role }) {
   return (
     <View style={styles.column}>
@@ -16,9 +13,9 @@ export function ProjectsEmpty({ role }: { role: Role }) {
         art={<PlanArt />}
         title="No projects yet"
         body={
-          role === 'admin'
-            ? "Your installers' jobs will be listed here: each site or vehicle, its mirrors, and whether it is with a reviewer or approved."
-            : 'Each job you take on will be listed here: a site plan or a vehicle outline, the mirrors you mount on it, and where it stands in review.'
+          role === 'installer'
+            ? 'Each job you take on will be listed here: a site plan or a vehicle outline, the mirrors you mount on it, and where it stands in review. Start one with “New project”.'
+            : "Your organisation's installers have no jobs yet. Each site or vehicle they fit with mirrors will be listed here, to read and review."
         }
         next={
           <TextLink href="/account" testID="projects-go-account" label="Meanwhile, set metric or imperial units on your account" />
@@ -29,7 +26,7 @@ export function ProjectsEmpty({ role }: { role: Role }) {
         <Bullet text="Each mirror mount: which mirror, how high, where it points, and the fan of what it shows." />
         <Bullet text="A specification sheet (PDF) a safety officer approves and a buyer attaches to a purchase request." />
         <AppText variant="small" tone="muted">
-          Creating projects is not available in this version of Sightfan yet.
+          Only installers create projects; reviewers and administrators read them.
         </AppText>
       </Card>
     </View>

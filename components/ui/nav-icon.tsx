@@ -33,6 +33,14 @@ export function NavIcon({ name, color, size = 24 }: { name: NavKey; color: strin
           <Path d="M3.5 6 L12 13 L20.5 6" {...stroke} />
         </>
       ) : null}
+      {name === 'catalog' ? (
+        <>
+          {/* A convex mirror on its bracket, beside catalogue lines. */}
+          <Circle cx={8} cy={10} r={5} {...stroke} />
+          <Path d="M8 15 V21 M5 21 H11" {...stroke} />
+          <Path d="M15 6 H21 M15 10 H21 M15 14 H19" {...stroke} />
+        </>
+      ) : null}
       {name === 'account' ? (
         <>
           <Circle cx={12} cy={8} r={4} {...stroke} />

@@ -1,0 +1,345 @@
+import { useMemo, useState } from 'react';
+import { StyleSheet, View, type LayoutChangeEvent } from 'react-native';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Notice } from '@/components/ui/notice';
+import { NumberField } from '@/components/ui/number-field';
+import { SafetyCautions } from '@/components/ui/safety-cautions';
+import { AppText } from '@/components/ui/text';
+import { TextField } from '@/components/ui/text-field';
+import { palette, spacing } from '@/constants/theme';
+import { useRemovePlacementMutation } from '@/hooks/use-projects';
+import { describeError } from '@/shared/errors';
+import { evaluatePlacement, evaluateProject, wallsOfScene, DEFAULT_MIN_ANGLE_RAD, type EvaluatedPlacement, type EvaluatedZone } from '@/shared/project-optics';
+import type { CatalogueItemDto, PlacementDto, ProjectDto } from '@/shared/schemas';
+import { formatAngle, formatLength, type UnitSystem } from '@/shared/units';
+import { ChoiceChips } from './choice-chips';
+import { ElevationView } from './elevation-view';
+import { MirrorPicker, type MirrorChoice } from './mirror-picker';
+import { mirrorSizeText, radiusText, SHAPE_LABELS } from './mirror-text';
+import { PlacementNumbersPanel } from './numbers-panel';
+import { usePlacementDraft, type PlacementEdits } from './use-placement-draft';
+
+export interface PlacementEditorProps {
+  project: ProjectDto;
+  placementId: number;
+  catalogue: readonly CatalogueItemDto[];
+  units: UnitSystem;
+  canEdit: boolean;
+  onClose?: () => void;
+}
+
+/** Wide enough inside its own box (not the window: it may sit in a side panel) for two columns. */
+const TWO_COLUMNS_FROM = 760;
+const DEG = Math.PI / 180;
+
+/**
+ * Edits one mirror mount and shows its live numbers. Keyed by placement so switching mirrors
+ * starts a fresh draft (the old one's unsaved edits are saved on the way out).
+ */
+export function PlacementEditor(props: PlacementEditorProps) {
+  return <PlacementEditorInner key={`${props.project.id}:${props.placementId}`} {...props} />;
+}
+
+/** Every placement as saved, with this one's draft in its place: the numbers follow typing. */
+export function evaluateDraft(project: ProjectDto, draft: PlacementDto, catalogue: readonly CatalogueItemDto[]): { evaluation: EvaluatedPlacement; zones: (EvaluatedZone & { problem?: string | null })[] } {
+  const placements = project.placements.map((p) => (p.id === draft.id ? draft : p));
+  try {
+    const all = evaluateProject({ scene: project.scene, placements, catalogue });
+    const evaluation = all.placements.find((e) => e.placementId === draft.id) ?? all.placements[0];
+    return { evaluation, zones: all.zones };
+  } catch {
+    // Zone clipping can fail on near-degenerate shapes: keep this mirror's own numbers, explain the zones.
+    const evaluation = evaluatePlacement({ placement: draft, scene: project.scene, catalogue, walls: wallsOfScene(project.scene), minAngleRad: DEFAULT_MIN_ANGLE_RAD });
+    const zones = project.scene.zones.map((z) => ({ zoneId: z.id, fraction: Number.NaN, coveredM2: 0, problem: 'Could not be computed for these positions.' }));
+    return { evaluation, zones };
+  }
+}
+
+function PlacementEditorInner({ project, placementId, catalogue, units, canEdit, onClose }: PlacementEditorProps) {
+  const d = usePlacementDraft(project, placementId, canEdit);
+  const remove = useRemovePlacementMutation(project.id);
+  const [confirmDelete, setConfirmDelete] = useState(false);
+  const [showPicker, setShowPicker] = useState(false);
+  const [width, setWidth] = useState(0);
+  const onLayout = (e: LayoutChangeEvent) => setWidth(e.nativeEvent.layout.width);
+  const draft = d.draft;
+
+  const live = useMemo(() => (draft ? evaluateDraft(project, draft, catalogue) : null), [project, draft && JSON.stringify(draft), catalogue]); // eslint-disable-line react-hooks/exhaustive-deps
+
+  if (!draft) {
+    return (
+      <View style={styles.root} testID="placement-editor">
+        <Notice tone="info" testID="placement-gone">
+          This mirror is no longer in the project; it may have been removed.
+        </Notice>
+        {onClose ? <Button label="Close" testID="placement-close" variant="secondary" onPress={onClose} /> : null}
+      </View>
+    );
+  }
+
+  const e = d.fieldErrors;
+  const set = (patch: PlacementEdits) => d.change(patch);
+  const item = draft.catalogueItemId !== null ? catalogue.find((c) => c.id === draft.catalogueItemId) ?? null : null;
+  const spec = draft.customMirror ?? item?.mirror ?? null;
+  const mirrorChoice: MirrorChoice = draft.customMirror ? { catalogueItemId: null, customMirror: draft.customMirror } : { catalogueItemId: draft.catalogueItemId ?? -1, customMirror: null };
+  const heightStep = units === 'metric' ? 0.05 : 2 * 0.0254;
+  const twoColumns = width >= TWO_COLUMNS_FROM;
+
+  const close = () => {
+    if (d.dirty && !d.conflict) d.save();
+    onClose?.();
+  };
+
+  const form = (
+    <View style={styles.column}>
+      <TextField
+        name="label"
+        label="Label"
+        testID="placement-label"
+        value={draft.label}
+        onChangeText={(label) => set({ label })}
+        editable={canEdit}
+        error={e.label}
+        onBlur={() => d.save()}
+      />
+
+      <View style={styles.section}>
+        <AppText variant="label">Mirror</AppText>
+        <View style={styles.mirrorSummary} testID="placement-mirror-summary">
+          {spec ? (
+            <>
+              <AppText variant="bodyStrong">{item ? item.name : `Custom ${SHAPE_LABELS[spec.shape].toLowerCase()} mirror`}</AppText>
+              <AppText variant="small">{`${mirrorSizeText(spec, units)} · ${radiusText(spec, units)}`}</AppText>
+            </>
+          ) : (
+            <AppText tone="stop">No mirror chosen yet.</AppText>
+          )}
+        </View>
+        {canEdit ? (
+          showPicker || !spec ? (
+            <>
+              <MirrorPicker catalogue={catalogue} units={units} value={mirrorChoice} errors={e} onChange={(choice) => set(choice)} />
+              {spec ? <Button label="Done choosing" testID="placement-mirror-done" variant="quiet" onPress={() => setShowPicker(false)} /> : null}
+            </>
+          ) : (
+            <Button label="Change mirror" testID="placement-mirror-change" variant="secondary" onPress={() => setShowPicker(true)} />
+          )
+        ) : null}
+      </View>
+
+      <NumberField
+        name="heightM"
+        label="Mounting height (to the mirror's centre)"
+        testID="placement-height"
+        units={units}
+        kind="distance"
+        value={draft.heightM}
+        onChangeValue={(v) => v !== null && set({ heightM: v })}
+        editable={canEdit}
+        step={heightStep}
+        min={0.2}
+        max={30}
+        error={e.heightM}
+      />
+      <NumberField
+        name="azimuthRad"
+        label="Aim (0° along the plan's x axis, 90° along y)"
+        testID="placement-azimuth"
+        units={units}
+        kind="angle"
+        value={draft.azimuthRad}
+        onChangeValue={(v) => v !== null && set({ azimuthRad: v })}
+        editable={canEdit}
+        step={5 * DEG}
+        min={-4 * Math.PI}
+        max={4 * Math.PI}
+        error={e.azimuthRad}
+      />
+      <NumberField
+        name="tiltDownRad"
+        label="Tilt down from level"
+        testID="placement-tilt"
+        units={units}
+        kind="angle"
+        value={draft.tiltDownRad}
+        onChangeValue={(v) => v !== null && set({ tiltDownRad: v })}
+        editable={canEdit}
+        step={1 * DEG}
+        min={-90 * DEG}
+        max={90 * DEG}
+        error={e.tiltDownRad}
+      />
+      <View style={styles.pair}>
+        <View style={styles.flex}>
+          <NumberField
+            name="positionM.0"
+            label="Position x"
+            testID="placement-x"
+            units={units}
+            kind="distance"
+            value={draft.positionM[0]}
+            onChangeValue={(v) => v !== null && set({ positionM: [v, draft.positionM[1]] })}
+            editable={canEdit}
+            error={e['positionM.0'] ?? e.positionM}
+          />
+        </View>
+        <View style={styles.flex}>
+          <NumberField
+            name="positionM.1"
+            label="Position y"
+            testID="placement-y"
+            units={units}
+            kind="distance"
+            value={draft.positionM[1]}
+            onChangeValue={(v) => v !== null && set({ positionM: [draft.positionM[0], v] })}
+            editable={canEdit}
+            error={e['positionM.1']}
+          />
+        </View>
+      </View>
+
+      <View style={styles.section}>
+        <AppText variant="label">Serves the viewer</AppText>
+        {project.scene.viewers.length === 0 ? (
+          <AppText tone="muted">The plan has no viewers yet. Add the driver's or walker's eye point on the plan to see numbers.</AppText>
+        ) : (
+          <ChoiceChips
+            label="Viewer this mirror serves"
+            value={draft.viewerId ?? '__none'}
+            disabled={!canEdit}
+            onChange={(v) => set({ viewerId: v === '__none' ? null : v })}
+            options={[
+              ...project.scene.viewers.map((v) => ({ value: v.id, label: `${v.name} (eye ${formatLength(v.eyeHeightM, units)})`, testID: `placement-viewer-${v.id}` })),
+              { value: '__none', label: 'None yet', testID: 'placement-viewer-none' },
+            ]}
+          />
+        )}
+        {e.viewerId ? <AppText tone="stop">{e.viewerId}</AppText> : null}
+      </View>
+
+      <TextField
+        name="notes"
+        label="Notes"
+        testID="placement-notes"
+        value={draft.notes}
+        onChangeText={(notes) => set({ notes })}
+        onBlur={() => d.save()}
+        editable={canEdit}
+        multiline
+        numberOfLines={3}
+        error={e.notes}
+      />
+    </View>
+  );
+
+  const numbers = (
+    <View style={styles.column}>
+      <Card title="Live numbers">
+        <PlacementNumbersPanel evaluation={live?.evaluation ?? null} zones={live?.zones ?? []} scene={project.scene} units={units} />
+      </Card>
+      <Card title="Side view">
+        <ElevationView evaluation={live?.evaluation ?? null} units={units} />
+      </Card>
+      <SafetyCautions compact />
+    </View>
+  );
+
+  return (
+    <View style={styles.root} testID="placement-editor" onLayout={onLayout}>
+      <View style={styles.head}>
+        <View style={styles.flex}>
+          <AppText variant="heading" role="heading" aria-level={2}>
+            {draft.label}
+          </AppText>
+          <SaveStatus canEdit={canEdit} dirty={d.dirty} saving={d.saving} error={d.formError} conflict={Boolean(d.conflict)} />
+        </View>
+        {onClose ? <Button label="Close" testID="placement-close" variant="secondary" onPress={close} /> : null}
+      </View>
+
+      {d.conflict ? (
+        <View style={styles.section} testID="placement-conflict">
+          <Notice tone="stop">{d.conflict.message}</Notice>
+          <AppText testID="placement-conflict-theirs-values">{describeValues(d.conflict.theirs, units, catalogue)}</AppText>
+          <View style={styles.actions}>
+            <Button label="Save mine over it" testID="placement-conflict-keep" onPress={d.keepMine} />
+            <Button label="Use the saved values" testID="placement-conflict-theirs" variant="secondary" onPress={d.useTheirs} />
+          </View>
+        </View>
+      ) : null}
+      {d.formError ? <Notice tone="stop" testID="placement-error">{d.formError}</Notice> : null}
+
+      <View style={twoColumns ? styles.columns : styles.stack}>
+        {form}
+        {numbers}
+      </View>
+
+      {canEdit ? (
+        <View style={styles.actions}>
+          <Button label={d.saving ? 'Saving…' : 'Save now'} testID="placement-save" onPress={() => d.save()} disabled={!d.dirty || Boolean(d.conflict)} busy={d.saving} />
+          {confirmDelete ? (
+            <View style={styles.confirm} testID="placement-delete-confirmation">
+              <AppText variant="bodyStrong">{`Remove “${draft.label}” from this project? This cannot be undone.`}</AppText>
+              <View style={styles.actions}>
+                <Button
+                  label="Remove mirror"
+                  testID="placement-delete-confirm"
+                  variant="danger"
+                  busy={remove.isPending}
+                  onPress={() => remove.mutate(placementId, { onSuccess: () => onClose?.() })}
+                />
+                <Button label="Keep it" testID="placement-delete-cancel" variant="secondary" onPress={() => setConfirmDelete(false)} />
+              </View>
+              {remove.isError ? <Notice tone="stop">{describeError(remove.error)}</Notice> : null}
+            </View>
+          ) : (
+            <Button label="Remove this mirror…" testID="placement-delete" variant="danger" onPress={() => setConfirmDelete(true)} />
+          )}
+        </View>
+      ) : (
+        <AppText tone="muted" testID="placement-read-only">
+          You can read this mirror's values; only the project's installer can change them.
+        </AppText>
+      )}
+    </View>
+  );
+}
+
+function SaveStatus({ canEdit, dirty, saving, error, conflict }: { canEdit: boolean; dirty: boolean; saving: boolean; error: string | null; conflict: boolean }) {
+  if (!canEdit) return null;
+  const text = saving ? 'Saving…' : conflict ? 'Not saved: changed elsewhere.' : error ? 'Not saved.' : dirty ? 'Unsaved changes; saving shortly.' : 'All changes saved.';
+  return (
+    <AppText variant="small" tone={error || conflict ? 'stop' : 'muted'} testID="placement-save-status" aria-live="polite">
+      {text}
+    </AppText>
+  );
+}
+
+/** The server's values for the fields in a conflict, in the person's units. */
+export function describeValues(v: PlacementEdits, units: UnitSystem, catalogue: readonly CatalogueItemDto[]): string {
+  const parts: string[] = [];
+  if (v.label !== undefined) parts.push(`label “${v.label}”`);
+  if (v.heightM !== undefined) parts.push(`height ${formatLength(v.heightM, units)}`);
+  if (v.azimuthRad !== undefined) parts.push(`aim ${formatAngle(v.azimuthRad)}`);
+  if (v.tiltDownRad !== undefined) parts.push(`tilt ${formatAngle(v.tiltDownRad)}`);
+  if (v.positionM !== undefined) parts.push(`position ${formatLength(v.positionM[0], units)}, ${formatLength(v.positionM[1], units)}`);
+  if (v.customMirror) parts.push(`custom mirror ${mirrorSizeText(v.customMirror, units)}`);
+  else if (v.catalogueItemId != null) parts.push(`mirror ${catalogue.find((c) => c.id === v.catalogueItemId)?.name ?? `#${v.catalogueItemId}`}`);
+  if (v.viewerId !== undefined) parts.push(v.viewerId ? `viewer ${v.viewerId}` : 'no viewer');
+  if (v.notes !== undefined) parts.push('notes changed');
+  return parts.length ? `Saved now: ${parts.join('; ')}.` : 'The saved values are shown in the fields you did not change.';
+}
+
+const styles = StyleSheet.create({
+  root: { gap: spacing.lg, alignSelf: 'stretch' },
+  head: { flexDirection: 'row', alignItems: 'flex-start', gap: spacing.md },
+  columns: { flexDirection: 'row', gap: spacing.xl, alignItems: 'flex-start' },
+  stack: { gap: spacing.xl },
+  column: { flex: 1, gap: spacing.lg, minWidth: 0 },
+  section: { gap: spacing.sm },
+  mirrorSummary: { gap: spacing.xxs, padding: spacing.md, backgroundColor: palette.chalk, borderRadius: 8 },
+  pair: { flexDirection: 'row', gap: spacing.md },
+  flex: { flex: 1 },
+  actions: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.md, alignItems: 'center' },
+  confirm: { gap: spacing.sm, padding: spacing.md, borderWidth: 2, borderColor: palette.stop, borderRadius: 8, backgroundColor: palette.stopSoft, alignSelf: 'stretch' },
+});

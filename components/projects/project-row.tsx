@@ -1,0 +1,78 @@
+import { router } from 'expo-router';
+import { Pressable, StyleSheet, View } from 'react-native';
+import { AppText } from '@/components/ui/text';
+import { Badge } from '@/components/ui/badge';
+import { focusRing, layout, palette, radii, spacing } from '@/constants/theme';
+import { useFocusVisible } from '@/hooks/use-focus-visible';
+import type { ProjectSummaryDto } from '@/shared/schemas';
+import { lastChangeText } from './relative-time';
+
+export const STATUS_LABELS: Record<ProjectSummaryDto['status'], string> = { draft: 'Draft' };
+
+export function mirrorsText(n: number): string {
+  return n === 0 ? 'No mirrors yet' : n === 1 ? '1 mirror' : `${n} mirrors`;
+}
+
+/** One project in the list; the whole row is the link (a big target for a thumb). */
+export function ProjectRow({ project, showOwner }: { project: ProjectSummaryDto; showOwner: boolean }) {
+  const { focusVisible, onFocus, onBlur } = useFocusVisible();
+  const where = [project.customer, project.site].filter(Boolean).join(' · ');
+  return (
+    <Pressable
+      testID={`project-row-${project.id}`}
+      role="link"
+      onPress={() => router.push(`/projects/${project.id}`)}
+      aria-label={`${project.name}${where ? `, ${where}` : ''}, ${mirrorsText(project.placementCount)}`}
+      onFocus={onFocus}
+      onBlur={onBlur}
+      style={({ hovered, pressed }) => [styles.row, (hovered || pressed) && styles.rowHover, focusVisible && focusRing]}
+    >
+      <View style={styles.main}>
+        <View style={styles.titleLine}>
+          <AppText variant="bodyStrong" style={styles.name} numberOfLines={2}>
+            {project.name}
+          </AppText>
+          <Badge label={STATUS_LABELS[project.status]} tone="neutral" testID={`project-status-${project.id}`} />
+        </View>
+        <AppText tone="muted" numberOfLines={2}>
+          {where || 'No customer or site given'}
+        </AppText>
+        <View style={styles.meta}>
+          <AppText variant="small" testID={`project-mirrors-${project.id}`}>
+            {mirrorsText(project.placementCount)}
+          </AppText>
+          <AppText variant="small" tone="muted" testID={`project-changed-${project.id}`}>
+            {`Changed ${lastChangeText(project.updatedAt)}`}
+          </AppText>
+          {showOwner ? (
+            <AppText variant="small" tone="muted">
+              {`Installer: ${project.ownerName}`}
+            </AppText>
+          ) : null}
+        </View>
+      </View>
+      <AppText variant="heading" tone="glass" aria-hidden>
+        ›
+      </AppText>
+    </Pressable>
+  );
+}
+
+const styles = StyleSheet.create({
+  row: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: spacing.md,
+    minHeight: layout.minTarget + 24,
+    padding: spacing.lg,
+    backgroundColor: palette.sheet,
+    borderRadius: radii.lg,
+    borderWidth: 1,
+    borderColor: palette.ruleSoft,
+  },
+  rowHover: { borderColor: palette.glass, backgroundColor: palette.glassSoft },
+  main: { flex: 1, gap: spacing.xs },
+  titleLine: { flexDirection: 'row', gap: spacing.sm, alignItems: 'center', flexWrap: 'wrap' },
+  name: { flexShrink: 1 },
+  meta: { flexDirection: 'row', flexWrap: 'wrap', columnGap: spacing.lg, rowGap: spacing.xxs },
+});

@@ -1,0 +1,162 @@
+import '@testing-library/jest-dom';
+import { act, fireEvent, screen, waitFor } from '@testing-library/react';
+import { PlacementEditor } from '@/components/placement/placement-editor';
+import { api } from '@/hooks/api';
+import { projectKeys, useProjectQuery } from '@/hooks/use-projects';
+import { ApiError } from '@/shared/api-client';
+import { evaluateProject } from '@/shared/project-optics';
+import type { CatalogueItemDto, PlacementDto, ProjectDto } from '@/shared/schemas';
+import { formatLength } from '@/shared/units';
+import { makeTestQueryClient, renderWithQuery } from './render';
+
+jest.mock('@/hooks/api', () => ({
+  api: { projects: { get: jest.fn(), updatePlacement: jest.fn(), removePlacement: jest.fn(), list: jest.fn() } },
+}));
+
+const catalogue: CatalogueItemDto[] = [
+  {
+    id: 1,
+    code: 'T-600',
+    name: 'Test round 600 (demo)',
+    mirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 },
+    material: '',
+    reflectance: null,
+    massKg: null,
+    unitPriceMinor: 12900,
+    currency: 'EUR',
+    notes: '',
+    active: true,
+    demo: true,
+    version: 1,
+    updatedAt: '2025-01-01T00:00:00.000Z',
+  },
+];
+const placement: PlacementDto = {
+  id: 7,
+  projectId: 3,
+  label: 'Corner',
+  catalogueItemId: 1,
+  customMirror: null,
+  positionM: [0, 0],
+  heightM: 2.6,
+  azimuthRad: 0,
+  tiltDownRad: 0.3,
+  viewerId: 'v1',
+  notes: '',
+  version: 4,
+  updatedAt: '2025-01-01T00:00:00.000Z',
+};
+const project: ProjectDto = {
+  id: 3,
+  name: 'Test aisle',
+  customer: '',
+  site: '',
+  kind: 'site',
+  status: 'draft',
+  ownerId: 1,
+  ownerName: 'Ines',
+  placementCount: 1,
+  version: 1,
+  createdAt: '2025-01-01T00:00:00.000Z',
+  updatedAt: '2025-01-01T00:00:00.000Z',
+  units: null,
+  notes: '',
+  scene: {
+    walls: [],
+    zones: [{ id: 'z1', name: 'Crossing', polygonM: [[2, -3], [8, -3], [8, 3], [2, 3]], target: { kind: 'adult' } }],
+    viewers: [{ id: 'v1', name: 'Driver', positionM: [6, 0], eyeHeightM: 1.6 }],
+  },
+  placements: [placement],
+  canEdit: true,
+};
+
+/** Reads the project from the cache, as the project screen does, so saves and 409s flow back in. */
+function Harness({ onClose }: { onClose?: () => void }) {
+  const q = useProjectQuery(3);
+  if (!q.data) return null;
+  return <PlacementEditor project={q.data} placementId={7} catalogue={catalogue} units="imperial" canEdit onClose={onClose} />;
+}
+
+function renderEditor(onClose?: () => void) {
+  const client = makeTestQueryClient();
+  client.setQueryData(projectKeys.detail(3), project);
+  jest.mocked(api.projects.get).mockResolvedValue({ project });
+  return renderWithQuery(<Harness onClose={onClose} />, client);
+}
+
+const eyeDistanceFor = (heightM: number) =>
+  formatLength(evaluateProject({ scene: project.scene, placements: [{ ...placement, heightM }], catalogue }).placements[0].numbers!.eyeDistanceM, 'imperial');
+
+beforeEach(() => jest.clearAllMocks());
+
+describe('PlacementEditor', () => {
+  it('recomputes the numbers as soon as a height is typed, before anything is saved', () => {
+    renderEditor();
+    expect(screen.getByTestId('numbers-eye-distance')).toHaveTextContent(eyeDistanceFor(2.6));
+
+    fireEvent.change(screen.getByTestId('placement-height'), { target: { value: '9 ft' } });
+
+    expect(screen.getByTestId('numbers-eye-distance')).toHaveTextContent(eyeDistanceFor(9 * 0.3048));
+    expect(api.projects.updatePlacement).not.toHaveBeenCalled();
+  });
+
+  it('saves a metric value typed in imperial mode, in metres, with the version it edits', async () => {
+    jest.mocked(api.projects.updatePlacement).mockResolvedValue({ placement: { ...placement, heightM: 3.2, version: 5 } });
+    renderEditor();
+
+    fireEvent.change(screen.getByTestId('placement-height'), { target: { value: '3.2 m' } });
+    fireEvent.click(screen.getByTestId('placement-save'));
+
+    await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenCalledWith(3, 7, { heightM: 3.2, version: 4 }));
+    await waitFor(() => expect(screen.getByTestId('placement-save-status')).toHaveTextContent('All changes saved.'));
+  });
+
+  it("keeps the typed value and shows the server's on a 409", async () => {
+    const theirs = { ...placement, heightM: 2.4384, version: 5 };
+    jest.mocked(api.projects.updatePlacement).mockRejectedValue(new ApiError(409, 'Changed elsewhere.', {}, undefined, theirs));
+    renderEditor();
+
+    fireEvent.change(screen.getByTestId('placement-height'), { target: { value: '10 ft' } });
+    fireEvent.click(screen.getByTestId('placement-save'));
+
+    await screen.findByTestId('placement-conflict');
+    expect(screen.getByTestId('placement-conflict-theirs-values')).toHaveTextContent(`height ${formatLength(2.4384, 'imperial')}`);
+    expect(screen.getByTestId('placement-height')).toHaveValue('10 ft');
+
+    jest.mocked(api.projects.updatePlacement).mockResolvedValue({ placement: { ...placement, heightM: 10 * 0.3048, version: 6 } });
+    fireEvent.click(screen.getByTestId('placement-conflict-keep'));
+    await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenLastCalledWith(3, 7, { heightM: 10 * 0.3048, version: 5 }));
+  });
+
+  it('says why a typed height cannot be read, and does not save it', () => {
+    renderEditor();
+    const field = screen.getByTestId('placement-height');
+
+    fireEvent.change(field, { target: { value: 'tall' } });
+    fireEvent.blur(field);
+
+    expect(screen.getByTestId('field-error-heightM')).toHaveTextContent(/not a length we can read/);
+    expect(screen.getByTestId('placement-save')).toHaveAttribute('aria-disabled', 'true');
+  });
+
+  it('asks before removing the mirror, then removes it', async () => {
+    jest.mocked(api.projects.removePlacement).mockResolvedValue(undefined as never);
+    const onClose = jest.fn();
+    renderEditor(onClose);
+
+    fireEvent.click(screen.getByTestId('placement-delete'));
+    expect(api.projects.removePlacement).not.toHaveBeenCalled();
+    await act(async () => {
+      fireEvent.click(screen.getByTestId('placement-delete-confirm'));
+    });
+
+    await waitFor(() => expect(api.projects.removePlacement).toHaveBeenCalledWith(3, 7));
+    await waitFor(() => expect(onClose).toHaveBeenCalled());
+  });
+
+  it('shows the safety cautions beside the numbers', () => {
+    renderEditor();
+    expect(screen.getByTestId('safety-cautions')).toHaveTextContent('Objects in a convex mirror appear smaller and farther away than they are');
+    expect(screen.getByTestId('safety-cautions')).toHaveTextContent('which take precedence');
+  });
+});

@@ -1,0 +1,94 @@
+import '@testing-library/jest-dom';
+import { render, screen } from '@testing-library/react';
+import { PlacementNumbersPanel, rimSqueezeText } from '@/components/placement/numbers-panel';
+import { evaluateProject } from '@/shared/project-optics';
+import type { CatalogueItemDto, PlacementDto, Scene } from '@/shared/schemas';
+import { formatAngle, formatArea, formatLength, formatNumber, formatPercent, type UnitSystem } from '@/shared/units';
+
+// An invented aisle: a viewer 6 m from a 600 mm round mirror on a 0.8 m sphere, mounted at 2.6 m.
+const catalogue: CatalogueItemDto[] = [
+  {
+    id: 1,
+    code: 'T-600',
+    name: 'Test round 600 (demo)',
+    mirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 },
+    material: '',
+    reflectance: null,
+    massKg: null,
+    unitPriceMinor: 12900,
+    currency: 'EUR',
+    notes: '',
+    active: true,
+    demo: true,
+    version: 1,
+    updatedAt: '2025-01-01T00:00:00.000Z',
+  },
+];
+const scene: Scene = {
+  walls: [],
+  zones: [{ id: 'z1', name: 'Crossing', polygonM: [[2, -3], [8, -3], [8, 3], [2, 3]], target: { kind: 'adult' } }],
+  viewers: [{ id: 'v1', name: 'Driver', positionM: [6, 0], eyeHeightM: 1.6 }],
+};
+const placement: PlacementDto = {
+  id: 7,
+  projectId: 1,
+  label: 'Corner',
+  catalogueItemId: 1,
+  customMirror: null,
+  positionM: [0, 0],
+  heightM: 2.6,
+  azimuthRad: 0,
+  tiltDownRad: 0.3,
+  viewerId: 'v1',
+  notes: '',
+  version: 1,
+  updatedAt: '2025-01-01T00:00:00.000Z',
+};
+
+const project = evaluateProject({ scene, placements: [placement], catalogue });
+const evaluation = project.placements[0];
+
+describe('PlacementNumbersPanel', () => {
+  it('has numbers to show for this test scene (else the other tests prove nothing)', () => {
+    expect(evaluation.numbers).not.toBeNull();
+    expect(evaluation.problem).toBeNull();
+  });
+
+  it.each<UnitSystem>(['metric', 'imperial'])("shows the engine's values in %s", (units) => {
+    render(<PlacementNumbersPanel evaluation={evaluation} zones={project.zones} scene={scene} units={units} />);
+    const n = evaluation.numbers!;
+    const size = (m: number) => formatLength(m, units, { kind: 'size' });
+    const dist = (m: number) => formatLength(m, units, { kind: 'distance' });
+
+    expect(screen.getByTestId('numbers-focal-length')).toHaveTextContent(size(n.focalLengthM));
+    expect(screen.getByTestId('numbers-radius')).toHaveTextContent(size(n.radiusM));
+    expect(screen.getByTestId('numbers-eye-distance')).toHaveTextContent(dist(n.eyeDistanceM));
+    expect(screen.getByTestId('numbers-field-of-view')).toHaveTextContent(`${formatAngle(n.fieldOfView.horizontalRad)} × ${formatAngle(n.fieldOfView.verticalRad)}`);
+    expect(screen.getByTestId('numbers-range-adult')).toHaveTextContent(dist(n.rangeM.adult));
+    expect(screen.getByTestId('numbers-range-child')).toHaveTextContent(dist(n.rangeM.child));
+    expect(screen.getByTestId('numbers-area')).toHaveTextContent(formatArea(evaluation.coverage!.areaM2, units));
+    expect(screen.getByTestId('numbers-rim-squeeze')).toHaveTextContent(rimSqueezeText(n.rimSqueeze));
+    for (const r of n.references) {
+      const text = screen.getByTestId(`numbers-reference-${r.objectDistanceM}-text`);
+      expect(text).toHaveTextContent(`×${formatNumber(r.magnification, 3)}`);
+      expect(text).toHaveTextContent(`true distance ${dist(r.trueDistanceM)}`);
+      expect(text).toHaveTextContent(`looks like ${dist(r.sizeCueDistanceM)}`);
+    }
+    const zone = project.zones[0];
+    expect(screen.getByTestId('numbers-zone-z1')).toHaveTextContent(`${formatPercent(zone.fraction)} (${formatArea(zone.coveredM2, units)})`);
+  });
+
+  it('writes imperial lengths in feet and inches, not metres', () => {
+    render(<PlacementNumbersPanel evaluation={evaluation} zones={project.zones} scene={scene} units="imperial" />);
+    expect(screen.getByTestId('numbers-range-adult').textContent).toMatch(/ft/);
+    expect(screen.getByTestId('numbers-focal-length').textContent).toMatch(/in$/);
+    expect(screen.getByTestId('numbers-panel').textContent).not.toMatch(/\d m\b/);
+  });
+
+  it("shows the engine's problem as a sentence instead of numbers", () => {
+    const noViewer = evaluateProject({ scene, placements: [{ ...placement, viewerId: null }], catalogue });
+    render(<PlacementNumbersPanel evaluation={noViewer.placements[0]} zones={noViewer.zones} scene={scene} units="metric" />);
+    expect(screen.getByTestId('numbers-problem')).toHaveTextContent(noViewer.placements[0].problem!.message);
+    expect(screen.queryByTestId('numbers-focal-length')).toBeNull();
+  });
+});

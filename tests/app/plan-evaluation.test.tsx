@@ -1,0 +1,43 @@
+import { PlanEvaluator, type PlanPlacement } from '@/hooks/use-plan-evaluation';
+import { evaluateProject } from '@/shared/project-optics';
+import type { CatalogueItemDto, Scene } from '@/shared/schemas';
+import { DEMO_PROJECT } from '../../server/seeders/demo-project';
+
+const catalogue = [
+  { id: 1, mirror: { shape: 'round', diameterM: 0.8, radiusM: 1.6 } },
+  { id: 2, mirror: { shape: 'round', diameterM: 0.6, radiusM: 1.2 } },
+] as unknown as CatalogueItemDto[];
+
+/** The demo scene with one zone switched to a child target, so the re-clipped path is exercised too. */
+const scene: Scene = { ...DEMO_PROJECT.scene, zones: DEMO_PROJECT.scene.zones.map((z, i) => (i === 1 ? { ...z, target: { kind: 'child' as const } } : z)) };
+
+const placements: PlanPlacement[] = DEMO_PROJECT.placements.map((p, i) => ({
+  id: i + 1,
+  catalogueItemId: p.code === 'DEMO-R800' ? 1 : 2,
+  customMirror: null,
+  positionM: p.positionM,
+  heightM: p.heightM,
+  azimuthRad: (p.azimuthDeg * Math.PI) / 180,
+  tiltDownRad: (p.tiltDownDeg * Math.PI) / 180,
+  viewerId: p.viewerId,
+}));
+
+const fractions = (zones: { zoneId: string; fraction: number }[]) => zones.map((z) => [z.zoneId, z.fraction]);
+
+describe('the plan’s cached evaluation', () => {
+  it('gives the same zone fractions and coverage areas as evaluateProject', () => {
+    const cached = new PlanEvaluator().evaluate({ scene, placements, catalogue });
+    const direct = evaluateProject({ scene, placements, catalogue });
+    expect(fractions(cached.zones)).toEqual(fractions(direct.zones));
+    expect(cached.placements.map((p) => p.coverage?.areaM2)).toEqual(direct.placements.map((p) => p.coverage?.areaM2));
+  });
+
+  it('still agrees after one mirror moves, reusing the others', () => {
+    const evaluator = new PlanEvaluator();
+    const first = evaluator.evaluate({ scene, placements, catalogue });
+    const moved = placements.map((p, i) => (i === 0 ? { ...p, positionM: [p.positionM[0] + 0.8, p.positionM[1]] as [number, number] } : p));
+    const again = evaluator.evaluate({ scene, placements: moved, catalogue });
+    expect(again.placements[1]).toBe(first.placements[1]);
+    expect(fractions(again.zones)).toEqual(fractions(evaluateProject({ scene, placements: moved, catalogue }).zones));
+  });
+});
