@@ -1,7 +1,8 @@
 /** `npm run bench`: runs every benchmark in turn. Add new runners to the list. */
 import { runOpticsBench } from './optics.bench';
+import { runPlanBench } from './plan.bench';
 
-const runners: Array<() => Promise<void>> = [runOpticsBench];
+const runners: Array<() => Promise<void>> = [runOpticsBench, runPlanBench];
 
 async function main(): Promise<void> {
   for (const run of runners) await run();

@@ -1,0 +1,98 @@
+/**
+ * The plan's viewport: plan coordinates are metres with y north (up); the screen's y grows down.
+ * screenX = offsetX + xM · scale, screenY = offsetY − yM · scale, relative to the canvas's top-left.
+ * The same three numbers are published on the canvas (data-transform) so browser tests can click
+ * at a plan point.
+ */
+export type PairM = [number, number];
+
+export interface PlanView {
+  /** Pixels per metre. */
+  scale: number;
+  offsetX: number;
+  offsetY: number;
+}
+
+export interface Size {
+  width: number;
+  height: number;
+}
+
+export const MIN_SCALE = 2;
+export const MAX_SCALE = 400;
+
+export const toScreen = (v: PlanView, p: readonly [number, number]): PairM => [v.offsetX + p[0] * v.scale, v.offsetY - p[1] * v.scale];
+export const toPlan = (v: PlanView, x: number, y: number): PairM => [(x - v.offsetX) / v.scale, (v.offsetY - y) / v.scale];
+
+/** "scale offsetX offsetY", what data-transform carries. */
+export const formatTransform = (v: PlanView): string => `${round3(v.scale)} ${round3(v.offsetX)} ${round3(v.offsetY)}`;
+const round3 = (n: number) => Math.round(n * 1000) / 1000;
+
+export interface Bounds {
+  minX: number;
+  minY: number;
+  maxX: number;
+  maxY: number;
+}
+
+export function boundsOf(points: readonly (readonly [number, number])[]): Bounds | null {
+  if (points.length === 0) return null;
+  let minX = Infinity;
+  let minY = Infinity;
+  let maxX = -Infinity;
+  let maxY = -Infinity;
+  for (const [x, y] of points) {
+    minX = Math.min(minX, x);
+    minY = Math.min(minY, y);
+    maxX = Math.max(maxX, x);
+    maxY = Math.max(maxY, y);
+  }
+  return { minX, minY, maxX, maxY };
+}
+
+/**
+ * A view showing the whole bounds inside the canvas with a margin; `reserveBottom` keeps the
+ * lower strip (the toolbar on a phone) from hiding part of the plan.
+ */
+export function fitView(bounds: Bounds | null, size: Size, margin = 24, reserveBottom = 0): PlanView {
+  const b = bounds ?? { minX: 0, minY: 0, maxX: 20, maxY: 20 };
+  const w = Math.max(b.maxX - b.minX, 1);
+  const h = Math.max(b.maxY - b.minY, 1);
+  const availW = Math.max(size.width - 2 * margin, 40);
+  const availH = Math.max(size.height - 2 * margin - reserveBottom, 40);
+  const scale = clampScale(Math.min(availW / w, availH / h));
+  const offsetX = margin + (availW - w * scale) / 2 - b.minX * scale;
+  const offsetY = margin + (availH - h * scale) / 2 + b.maxY * scale;
+  return { scale, offsetX, offsetY };
+}
+
+export const clampScale = (s: number) => Math.min(MAX_SCALE, Math.max(MIN_SCALE, s));
+
+/** Zoom by `factor` keeping the screen point (x, y) over the same plan point. */
+export function zoomAt(v: PlanView, factor: number, x: number, y: number): PlanView {
+  const scale = clampScale(v.scale * factor);
+  const k = scale / v.scale;
+  return { scale, offsetX: x - (x - v.offsetX) * k, offsetY: y - (y - v.offsetY) * k };
+}
+
+export const panBy = (v: PlanView, dx: number, dy: number): PlanView => ({ ...v, offsetX: v.offsetX + dx, offsetY: v.offsetY + dy });
+
+/** Distance in pixels from screen point p to the segment a–b (all in pixels). */
+export function distanceToSegment(p: PairM, a: PairM, b: PairM): number {
+  const dx = b[0] - a[0];
+  const dy = b[1] - a[1];
+  const len2 = dx * dx + dy * dy;
+  const t = len2 === 0 ? 0 : Math.max(0, Math.min(1, ((p[0] - a[0]) * dx + (p[1] - a[1]) * dy) / len2));
+  return Math.hypot(p[0] - (a[0] + t * dx), p[1] - (a[1] + t * dy));
+}
+
+/** Point-in-polygon by ray casting (even–odd), for picking a zone under the finger. */
+export function insideRing(p: readonly [number, number], ring: readonly (readonly [number, number])[]): boolean {
+  let inside = false;
+  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
+    const [xi, yi] = ring[i];
+    const [xj, yj] = ring[j];
+    if (yi > p[1] !== yj > p[1] && p[0] < ((xj - xi) * (p[1] - yi)) / (yj - yi) + xi) inside = !inside;
+  }
+  return inside;
+}
