@@ -1,8 +1,9 @@
 /** `npm run bench`: runs every benchmark in turn. Add new runners to the list. */
 import { runOpticsBench } from './optics.bench';
 import { runPlanBench } from './plan.bench';
+import { runSheetBench } from './sheet.bench';
 
-const runners: Array<() => Promise<void>> = [runOpticsBench, runPlanBench];
+const runners: Array<() => Promise<void>> = [runOpticsBench, runSheetBench, runPlanBench];
 
 async function main(): Promise<void> {
   for (const run of runners) await run();

@@ -23,6 +23,7 @@ import { invitationsRoutes } from './modules/users/invitations.routes';
 import { usersRoutes } from './modules/users/users.routes';
 import { catalogRoutes } from './modules/catalog/catalog.routes';
 import { projectsRoutes } from './modules/projects/projects.routes';
+import { sheetsRoutes } from './modules/sheets/sheets.routes';
 
 export interface AppDeps {
   config: AppConfig;
@@ -109,6 +110,7 @@ export function createApp(deps: AppDeps): SightfanApp {
   api.use('/outbox', outboxRoutes(orm, config.demoMode));
   api.use('/catalog', catalogRoutes(orm));
   api.use('/projects', projectsRoutes(orm));
+  api.use('/projects', sheetsRoutes({ orm, mailer: deps.mailer }));
   api.use(apiNotFound);
   app.use('/api', api);
 

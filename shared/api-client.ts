@@ -23,6 +23,10 @@ import type {
   UpdateMeBody,
   UserResponse,
   UsersResponse,
+  SheetEmailBody,
+  SheetEmailResponse,
+  SheetPaper,
+  SheetStatusDto,
 } from './schemas';
 
 /** An answer from the API that was not a success, carrying the server's sentence and field messages. */
@@ -88,6 +92,29 @@ export function createApiClient(options: ApiClientOptions = {}) {
     return data as T;
   }
 
+  /** A file from the API (the sheet PDF): its bytes, the server's filename and its revision. */
+  async function download(path: string, fallbackName: string): Promise<{ blob: Blob; filename: string; revision: number | null }> {
+    let res: Response;
+    try {
+      res = await doFetch(`${baseUrl}/api${path}`, { method: 'GET', credentials: 'include', headers: { Accept: 'application/pdf' } });
+    } catch {
+      throw new ApiError(0, 'Sightfan cannot reach its server. Check the connection and try again.');
+    }
+    if (!res.ok) {
+      let body: Partial<ApiErrorBody> = {};
+      try {
+        body = (await res.json()) as Partial<ApiErrorBody>;
+      } catch {
+        body = {};
+      }
+      throw new ApiError(res.status, typeof body.error === 'string' ? body.error : `The server answered ${res.status} without an explanation. Try again in a moment.`, body.fields ?? {});
+    }
+    const disposition = res.headers.get('Content-Disposition') ?? '';
+    const filename = /filename="([^"]+)"/.exec(disposition)?.[1] ?? fallbackName;
+    const revision = Number(res.headers.get('X-Sheet-Revision'));
+    return { blob: await res.blob(), filename, revision: Number.isInteger(revision) && revision > 0 ? revision : null };
+  }
+
   return {
     auth: {
       signIn: (body: SignInBody) => request<UserResponse>('POST', '/auth/sign-in', body),
@@ -128,6 +155,13 @@ export function createApiClient(options: ApiClientOptions = {}) {
       updatePlacement: (id: number, placementId: number, body: PatchPlacementBody) =>
         request<{ placement: PlacementDto }>('PATCH', `/projects/${id}/placements/${placementId}`, body),
       removePlacement: (id: number, placementId: number) => request<void>('DELETE', `/projects/${id}/placements/${placementId}`),
+    },
+    sheets: {
+      status: (projectId: number) => request<SheetStatusDto>('GET', `/projects/${projectId}/sheet`),
+      pdfPath: (projectId: number, paper?: SheetPaper) => `${baseUrl}/api/projects/${projectId}/sheet.pdf${paper ? `?paper=${paper}` : ''}`,
+      download: (projectId: number, paper?: SheetPaper) =>
+        download(`/projects/${projectId}/sheet.pdf${paper ? `?paper=${paper}` : ''}`, `sightfan-project-${projectId}.pdf`),
+      email: (projectId: number, body: SheetEmailBody) => request<SheetEmailResponse>('POST', `/projects/${projectId}/sheet/email`, body),
     },
   };
 }

@@ -6,6 +6,7 @@ import type { ReactNode } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { AppText, Badge, Button, Segmented } from '@/components/ui';
 import { SafetyCautions } from '@/components/ui/safety-cautions';
+import { SheetActions } from '@/components/sheet';
 import { palette, radii, spacing } from '@/constants/theme';
 import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
 import { targetLabel } from '@/shared/project-optics';
@@ -167,6 +168,9 @@ function ProjectSummary(p: PlanDetailsProps) {
             </View>
           </ListRow>
         ))}
+      </Section>
+      <Section title="Specification sheet">
+        <SheetActions projectId={p.project.id} canEdit={p.project.canEdit} />
       </Section>
       <SafetyCautions compact />
     </View>

@@ -11,5 +11,6 @@ import { MailMessage } from './mail/mail-message.entity';
 import { MirrorModel } from './catalog/mirror-model.entity';
 import { Project } from './projects/project.entity';
 import { Placement } from './projects/placement.entity';
+import { SheetRevision } from './sheets/sheet-revision.entity';
 
-export const entities = [Organization.schema, User.schema, Invitation.schema, SessionRecord.schema, MailMessage.schema, MirrorModel.schema, Project.schema, Placement.schema];
+export const entities = [Organization.schema, User.schema, Invitation.schema, SessionRecord.schema, MailMessage.schema, MirrorModel.schema, Project.schema, Placement.schema, SheetRevision.schema];

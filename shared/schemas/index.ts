@@ -2,3 +2,4 @@ export * from './common';
 export * from './auth';
 export * from './catalog';
 export * from './projects';
+export * from './sheets';

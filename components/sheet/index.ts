@@ -1,0 +1,1 @@
+export { SheetActions, revisionText, sheetEmailSchema, type SheetActionsProps } from './sheet-actions';

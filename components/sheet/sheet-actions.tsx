@@ -1,0 +1,140 @@
+import { Formik } from 'formik';
+import { Linking, StyleSheet, View } from 'react-native';
+import * as yup from 'yup';
+import { AppText, Button, Notice, TextField } from '@/components/ui';
+import { FormFrame } from '@/components/forms/form-frame';
+import { fieldMessage, serverErrorsFor, type FormStatus } from '@/components/forms/server-errors';
+import { spacing } from '@/constants/theme';
+import { api } from '@/hooks/api';
+import { useDownloadSheetMutation, useEmailSheetMutation, useSheetStatusQuery } from '@/hooks/use-sheet';
+import { describeError } from '@/shared/errors';
+import type { SheetStatusDto } from '@/shared/schemas';
+import { canSaveFiles, saveFile } from './save-file';
+
+export interface SheetEmailValues {
+  to: string;
+  note: string;
+}
+
+export const sheetEmailSchema = yup.object({
+  to: yup.string().trim().required('Enter the buyer\u2019s e-mail address.').email('Enter a full e-mail address, like name@company.com.'),
+  note: yup.string().max(2000, 'Keep the note to 2,000 characters.'),
+});
+
+/** "Revision 3, issued 2026-12-02 by Ines Okafor" — or that none has been issued yet. */
+export function revisionText(status: SheetStatusDto | undefined): string {
+  if (!status) return 'Checking the sheet\u2019s revisions\u2026';
+  const last = status.revisions[0];
+  if (!last) return 'No sheet issued yet. Downloading or e-mailing it issues revision 1.';
+  const issued = `Last issued: revision ${last.number}, ${last.issuedAt.slice(0, 10)}, by ${last.issuedBy}.`;
+  return status.current.changedSinceLast ? `${issued} The project has changed since; the next sheet will be revision ${status.current.number}.` : issued;
+}
+
+export interface SheetActionsProps {
+  projectId: number;
+  /** Only changes the wording: anyone who can read the project may download and send its sheet. */
+  canEdit: boolean;
+}
+
+/**
+ * Download the specification sheet and e-mail it to a buyer, with the last issued revision.
+ * Self-contained: fetches its own status; the project screen only places it.
+ */
+export function SheetActions({ projectId, canEdit }: SheetActionsProps) {
+  const status = useSheetStatusQuery(projectId);
+  const download = useDownloadSheetMutation(projectId, saveFile);
+  const email = useEmailSheetMutation(projectId);
+
+  const onDownload = () => {
+    if (canSaveFiles) download.mutate(undefined);
+    else void Linking.openURL(api.sheets.pdfPath(projectId));
+  };
+
+  return (
+    <View style={styles.column} testID="sheet-actions">
+      <AppText variant="caps">Specification sheet</AppText>
+      <AppText testID="sheet-revision" tone="muted">
+        {status.isError ? describeError(status.error) : revisionText(status.data)}
+      </AppText>
+      <AppText variant="small" tone="muted">
+        {canEdit
+          ? 'A PDF for the safety officer to sign and the buyer to attach to a purchase request.'
+          : 'A PDF of this project as it stands; only the installer can change what is on it.'}
+      </AppText>
+      <Button label={download.isPending ? 'Preparing the sheet\u2026' : 'Download sheet'} testID="sheet-download" onPress={onDownload} busy={download.isPending} variant="secondary" />
+      {download.isError ? (
+        <Notice tone="stop" testID="sheet-download-error">
+          {describeError(download.error)}
+        </Notice>
+      ) : null}
+
+      <Formik<SheetEmailValues>
+        initialValues={{ to: '', note: '' }}
+        validationSchema={sheetEmailSchema}
+        onSubmit={async (values, helpers) => {
+          helpers.setStatus(undefined);
+          try {
+            const sent = await email.mutateAsync({ to: values.to.trim(), message: values.note.trim() || undefined });
+            helpers.resetForm();
+            helpers.setStatus({ done: `Sheet revision ${sent.revision.number} sent to ${sent.to}.` } satisfies FormStatus);
+          } catch (error) {
+            const mapped = serverErrorsFor<SheetEmailValues>(error, ['to', 'note'], values);
+            const fields = error && typeof error === 'object' && 'fields' in error ? (error.fields as Record<string, string>) : {};
+            // The server calls the note "message".
+            if (fields.message) mapped.fieldErrors.note = fields.message;
+            helpers.setErrors(mapped.fieldErrors);
+            helpers.setStatus(mapped.status);
+          }
+        }}
+      >
+        {(form) => {
+          const formStatus = form.status as FormStatus | undefined;
+          return (
+            <FormFrame label="E-mail the sheet" onSubmit={form.handleSubmit} testID="sheet-email-form">
+              <TextField
+                name="to"
+                label="Buyer's e-mail"
+                testID="sheet-email-to"
+                value={form.values.to}
+                onChangeText={form.handleChange('to')}
+                onBlur={form.handleBlur('to')}
+                error={fieldMessage(form, 'to')}
+                inputMode="email"
+                keyboardType="email-address"
+                autoCapitalize="none"
+                autoCorrect={false}
+                autoComplete="email"
+              />
+              <TextField
+                name="note"
+                label="Note (optional)"
+                testID="sheet-email-note"
+                value={form.values.note}
+                onChangeText={form.handleChange('note')}
+                onBlur={form.handleBlur('note')}
+                error={fieldMessage(form, 'note')}
+                multiline
+                numberOfLines={3}
+              />
+              {formStatus?.formError ? (
+                <Notice tone="stop" testID="sheet-email-error">
+                  {formStatus.formError}
+                </Notice>
+              ) : null}
+              {formStatus?.done ? (
+                <Notice tone="go" testID="sheet-email-sent">
+                  {formStatus.done}
+                </Notice>
+              ) : null}
+              <Button label={form.isSubmitting ? 'Sending\u2026' : 'E-mail sheet'} testID="sheet-email-submit" onPress={() => form.handleSubmit()} busy={form.isSubmitting} />
+            </FormFrame>
+          );
+        }}
+      </Formik>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  column: { gap: spacing.sm },
+});

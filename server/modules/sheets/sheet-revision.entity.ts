@@ -1,0 +1,31 @@
+import { defineEntity } from '@mikro-orm/core';
+import { Project } from '../projects/project.entity';
+import { User } from '../users/user.entity';
+
+/**
+ * One issued revision of a project's specification sheet. A new row is written only when the
+ * sheet's content hash differs from the latest one, so the number rises exactly when content changes.
+ * `issuedAt` is whole seconds: the PDF's metadata dates are derived from it, so it must round-trip.
+ */
+export class SheetRevision {
+  id!: number;
+  project!: Project;
+  number!: number;
+  contentHash!: string;
+  issuedAt!: Date;
+  issuedBy!: User;
+
+  static readonly schema = defineEntity({
+    class: SheetRevision,
+    tableName: 'sheet_revision',
+    uniques: [{ properties: ['project', 'number'] }],
+    properties: (p) => ({
+      id: p.integer().primary().autoincrement(),
+      project: p.manyToOne(Project.schema).deleteRule('cascade'),
+      number: p.integer(),
+      contentHash: p.string().length(64),
+      issuedAt: p.datetime(),
+      issuedBy: p.manyToOne(User.schema),
+    }),
+  });
+}

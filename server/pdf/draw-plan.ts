@@ -1,0 +1,210 @@
+/**
+ * The plan drawing: walls, racking, zones with their covered share, the seen floor of each mirror,
+ * viewers and mirrors, at a round scale that is stated on the sheet, with a scale bar.
+ */
+import type { UnitSystem } from '../../shared/schemas';
+import { M_PER_FT } from '../../shared/units';
+import { GLASS, INK, MUTED, RULE, STOP } from './layout';
+import type { SheetElevation, SheetPlan } from './sheet-model';
+
+/** Points per metre of paper: 72 pt per inch, 0.0254 m per inch. */
+export const PT_PER_M = 72 / 0.0254;
+/** Round scales an architect would print at. */
+export const PLAN_SCALES = [20, 25, 50, 100, 200, 250, 500, 1000, 1250, 2000, 2500, 5000, 10000] as const;
+
+export interface Box {
+  x: number;
+  y: number;
+  w: number;
+  h: number;
+}
+
+export interface PlanFit {
+  denominator: number;
+  ptPerM: number;
+  minX: number;
+  maxY: number;
+  offsetX: number;
+  offsetY: number;
+  /** Height of the drawn scene on paper, points. */
+  heightPt: number;
+}
+
+/** The largest round scale at which the scene (walls, zones, viewers, mirrors, plus a margin) fits the box. */
+export function fitPlan(plan: SheetPlan, box: Box, marginM = 1): PlanFit {
+  const xs: number[] = [];
+  const ys: number[] = [];
+  const add = (p: readonly number[]) => {
+    xs.push(p[0]);
+    ys.push(p[1]);
+  };
+  plan.walls.forEach((w) => (add(w.a), add(w.b)));
+  plan.zones.forEach((z) => z.ring.forEach(add));
+  plan.viewers.forEach((v) => add(v.at));
+  plan.mirrors.forEach((m) => add(m.at));
+  if (!xs.length) add([0, 0]);
+  const minX = Math.min(...xs) - marginM;
+  const maxX = Math.max(...xs) + marginM;
+  const minY = Math.min(...ys) - marginM;
+  const maxY = Math.max(...ys) + marginM;
+  const spanX = Math.max(maxX - minX, 1);
+  const spanY = Math.max(maxY - minY, 1);
+  const denominator = PLAN_SCALES.find((n) => (spanX * PT_PER_M) / n <= box.w && (spanY * PT_PER_M) / n <= box.h) ?? PLAN_SCALES[PLAN_SCALES.length - 1];
+  const ptPerM = PT_PER_M / denominator;
+  return { denominator, ptPerM, minX, maxY, offsetX: box.x + (box.w - spanX * ptPerM) / 2, offsetY: box.y + (box.h - spanY * ptPerM) / 2, heightPt: spanY * ptPerM };
+}
+
+function ringPath(doc: PDFKit.PDFDocument, ring: readonly (readonly number[])[], at: (p: readonly number[]) => [number, number]): void {
+  ring.forEach((p, i) => {
+    const [x, y] = at(p);
+    if (i === 0) doc.moveTo(x, y);
+    else doc.lineTo(x, y);
+  });
+  doc.closePath();
+}
+
+export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): PlanFit {
+  const fit = fitPlan(plan, box);
+  const at = (p: readonly number[]): [number, number] => [fit.offsetX + (p[0] - fit.minX) * fit.ptPerM, fit.offsetY + (fit.maxY - p[1]) * fit.ptPerM];
+
+  doc.save();
+  doc.rect(box.x, box.y, box.w, box.h).lineWidth(0.5).strokeColor(RULE).stroke();
+  doc.rect(box.x, box.y, box.w, box.h).clip();
+
+  // Seen floor first, so walls and labels sit on top of it.
+  for (const region of plan.coverage) {
+    if (!region.length) continue;
+    for (const poly of region) poly.forEach((ring) => ringPath(doc, ring, at));
+    doc.fillOpacity(0.2).fillColor(GLASS).fill('even-odd');
+    doc.fillOpacity(1);
+    for (const poly of region) poly.forEach((ring) => ringPath(doc, ring, at));
+    doc.lineWidth(0.4).strokeColor(GLASS).stroke();
+  }
+
+  for (const z of plan.zones) {
+    ringPath(doc, z.ring, at);
+    doc.lineWidth(1.1).dash(4, { space: 2.5 }).strokeColor(STOP).stroke();
+    doc.undash();
+  }
+
+  for (const w of plan.walls) {
+    const [ax, ay] = at(w.a);
+    const [bx, by] = at(w.b);
+    doc.moveTo(ax, ay).lineTo(bx, by);
+    if (w.kind === 'door') doc.lineWidth(1).dash(2, { space: 2 }).strokeColor(MUTED).stroke().undash();
+    else doc.lineWidth(w.kind === 'racking' ? 1 : 2).strokeColor(w.kind === 'racking' ? MUTED : INK).stroke();
+  }
+
+  for (const z of plan.zones) {
+    const cx = z.ring.reduce((s, p) => s + p[0], 0) / z.ring.length;
+    const cy = z.ring.reduce((s, p) => s + p[1], 0) / z.ring.length;
+    const [x, y] = at([cx, cy]);
+    const label = `${z.name}: ${z.covered} seen`;
+    doc.font('semibold').fontSize(7);
+    const w = doc.widthOfString(label) + 4;
+    doc.rect(x - w / 2, y - 5, w, 10).fillOpacity(0.85).fillColor('#ffffff').fill().fillOpacity(1);
+    doc.fillColor(STOP).text(label, x - w / 2 + 2, y - 3.5, { lineBreak: false });
+  }
+
+  for (const v of plan.viewers) {
+    const [x, y] = at(v.at);
+    doc.circle(x, y, 3.2).lineWidth(1).fillColor('#ffffff').strokeColor(INK).fillAndStroke();
+    doc.circle(x, y, 1.2).fillColor(INK).fill();
+    doc.font('regular').fontSize(6.8).fillColor(INK).text(v.name, x + 5, y - 3, { lineBreak: false });
+  }
+
+  for (const m of plan.mirrors) {
+    const [x, y] = at(m.at);
+    // Page y runs down, plan y runs up: the aim's page direction is (cos az, −sin az).
+    const dx = Math.cos(m.azimuthRad);
+    const dy = -Math.sin(m.azimuthRad);
+    doc.moveTo(x, y).lineTo(x + dx * 12, y + dy * 12).lineWidth(0.9).strokeColor(GLASS).stroke();
+    doc.rect(x - 3, y - 3, 6, 6).fillColor(GLASS).fill();
+    doc.font('bold').fontSize(7.2).fillColor(GLASS).text(m.label, x - dx * 6 + 4, y - dy * 6 - 11, { lineBreak: false });
+  }
+  doc.restore();
+  return fit;
+}
+
+export interface ScaleBar {
+  lengthM: number;
+  label: string;
+}
+
+/** A bar of a round length (metres or feet) that takes about a quarter of `maxPt` at the plan's scale. */
+export function scaleBarFor(fit: PlanFit, units: UnitSystem, maxPt: number): ScaleBar {
+  const steps = [0.5, 1, 2, 5, 10, 20, 50, 100, 200, 500, 1000];
+  const unitM = units === 'metric' ? 1 : M_PER_FT;
+  const name = units === 'metric' ? 'm' : 'ft';
+  const fits = steps.filter((s) => s * unitM * fit.ptPerM <= maxPt);
+  const n = fits.length ? fits[fits.length - 1] : steps[0];
+  return { lengthM: n * unitM, label: `${n} ${name}` };
+}
+
+export function drawScaleBar(doc: PDFKit.PDFDocument, fit: PlanFit, bar: ScaleBar, x: number, y: number): number {
+  const len = bar.lengthM * fit.ptPerM;
+  const parts = 4;
+  for (let i = 0; i < parts; i++) {
+    doc.rect(x + (i * len) / parts, y, len / parts, 4).lineWidth(0.5).strokeColor(INK);
+    if (i % 2 === 0) doc.fillColor(INK).fillAndStroke();
+    else doc.stroke();
+  }
+  doc.font('regular').fontSize(7).fillColor(INK);
+  doc.text('0', x - 2, y + 6, { lineBreak: false });
+  doc.text(bar.label, x + len - doc.widthOfString(bar.label) / 2, y + 6, { lineBreak: false });
+  return len;
+}
+
+/**
+ * Side view of one mirror, unfolded about the mirror: the viewer's eye on the left at its horizontal
+ * distance and height, what the mirror shows on the right, drawn at one scale in both directions.
+ */
+export function drawElevation(doc: PDFKit.PDFDocument, el: SheetElevation, box: Box, fmt: { dist: (m: number) => string }): void {
+  const rightM = Math.max(el.rangeM, ...el.rays.map((r) => r.reachM), 1);
+  const leftM = Math.max(el.eye.distanceM, 0.5);
+  const topM = Math.max(el.eye.heightM, el.mirrorHeightM, ...el.rays.map((r) => r.fromHeightM)) + 0.6;
+  const padX = 14;
+  const padTop = 12;
+  const padBottom = 24;
+  const s = Math.min((box.w - 2 * padX) / (leftM + rightM), (box.h - padTop - padBottom) / topM);
+  const x0 = box.x + padX + leftM * s;
+  const floorY = box.y + box.h - padBottom;
+  const X = (m: number) => x0 + m * s;
+  const Y = (m: number) => floorY - m * s;
+
+  doc.save();
+  doc.rect(box.x, box.y, box.w, box.h).lineWidth(0.5).strokeColor(RULE).stroke();
+  doc.moveTo(box.x + 4, floorY).lineTo(box.x + box.w - 4, floorY).lineWidth(1.2).strokeColor(INK).stroke();
+
+  // The floor the mirror shows, between the nearest and farthest traced rays.
+  const reaches = el.rays.filter((r) => r.endHeightM <= 0.001).map((r) => r.reachM);
+  if (reaches.length) {
+    const a = Math.min(...reaches);
+    const b = Math.min(Math.max(...reaches), el.rangeM);
+    if (b > a) doc.rect(X(a), floorY - 3, (b - a) * s, 3).fillOpacity(0.3).fillColor(GLASS).fill().fillOpacity(1);
+  }
+
+  // Sightline from the eye to the mirror.
+  doc.moveTo(X(-el.eye.distanceM), Y(el.eye.heightM)).lineTo(X(0), Y(el.mirrorHeightM)).lineWidth(0.9).dash(3, { space: 2 }).strokeColor(INK).stroke().undash();
+  for (const r of el.rays) {
+    doc.moveTo(X(0), Y(r.fromHeightM)).lineTo(X(r.reachM), Y(r.endHeightM)).lineWidth(0.9).strokeColor(GLASS).stroke();
+  }
+
+  // Mirror: a short thick mark at its height on a post line.
+  doc.moveTo(X(0), floorY).lineTo(X(0), Y(el.mirrorHeightM)).lineWidth(0.4).strokeColor(MUTED).stroke();
+  doc.moveTo(X(0), Y(el.mirrorHeightM) - 5).lineTo(X(0), Y(el.mirrorHeightM) + 5).lineWidth(3).strokeColor(GLASS).stroke();
+  // Eye.
+  doc.circle(X(-el.eye.distanceM), Y(el.eye.heightM), 3).fillColor(INK).fill();
+  doc.moveTo(X(-el.eye.distanceM), floorY).lineTo(X(-el.eye.distanceM), Y(el.eye.heightM)).lineWidth(0.4).strokeColor(MUTED).stroke();
+
+  // Range mark.
+  const rx = X(el.rangeM);
+  doc.moveTo(rx, floorY - 8).lineTo(rx, floorY + 4).lineWidth(1).strokeColor(STOP).stroke();
+
+  doc.font('regular').fontSize(7).fillColor(INK);
+  doc.text(`eye ${fmt.dist(el.eye.heightM)} high`, X(-el.eye.distanceM) + 5, Y(el.eye.heightM) - 10, { lineBreak: false });
+  doc.text(`mirror ${fmt.dist(el.mirrorHeightM)} high`, X(0) + 5, Y(el.mirrorHeightM) - 12, { lineBreak: false });
+  doc.fillColor(MUTED).text(`${fmt.dist(el.eye.distanceM)} across the floor`, X(-el.eye.distanceM), floorY + 5, { lineBreak: false });
+  doc.fillColor(STOP).text(el.rangeCapped ? `view drawn to ${fmt.dist(el.rangeM)}` : `adult recognisable to ${fmt.dist(el.rangeM)}`, Math.max(rx - 140, X(0) + 4), floorY + 13, { width: 140, align: 'right', lineBreak: false });
+  doc.restore();
+}

@@ -1,0 +1,164 @@
+/**
+ * A small flowing-layout helper over pdfkit: a cursor `y`, page breaks we decide ourselves (pdfkit's
+ * own would split a table row), headings, label/value grids and tables.
+ */
+import type { SheetFont } from './fonts';
+
+export const INK = '#14202b';
+export const MUTED = '#4b5763';
+export const RULE = '#b9b2a3';
+export const RULE_SOFT = '#dcd6ca';
+export const GLASS = '#1d5f8a';
+export const GLASS_SOFT = '#dcebf5';
+export const BEACON_SOFT = '#fdf0cf';
+export const STOP = '#a4231b';
+
+export interface Column {
+  title: string;
+  /** Fraction of the table width. */
+  width: number;
+  align?: 'left' | 'right';
+  font?: SheetFont;
+}
+
+export class Flow {
+  y: number;
+  constructor(
+    readonly doc: PDFKit.PDFDocument,
+    private readonly onNewPage: (flow: Flow) => void,
+  ) {
+    this.y = doc.page.margins.top;
+  }
+
+  get left(): number {
+    return this.doc.page.margins.left;
+  }
+  get width(): number {
+    return this.doc.page.width - this.doc.page.margins.left - this.doc.page.margins.right;
+  }
+  get bottom(): number {
+    return this.doc.page.height - this.doc.page.margins.bottom;
+  }
+  get room(): number {
+    return this.bottom - this.y;
+  }
+
+  newPage(): void {
+    this.doc.addPage();
+    this.y = this.doc.page.margins.top;
+    this.onNewPage(this);
+  }
+
+  /** Starts a new page unless `height` points still fit on this one. */
+  ensure(height: number): void {
+    if (this.y + height > this.bottom) this.newPage();
+  }
+
+  gap(points: number): void {
+    this.y += points;
+  }
+
+  style(font: SheetFont, size: number, color = INK): PDFKit.PDFDocument {
+    return this.doc.font(font).fontSize(size).fillColor(color);
+  }
+
+  textHeight(text: string, font: SheetFont, size: number, width: number): number {
+    this.doc.font(font).fontSize(size);
+    return this.doc.heightOfString(text, { width, lineGap: 1 });
+  }
+
+  /** Text at the cursor across `width` (default the full width); moves the cursor below it. */
+  paragraph(text: string, font: SheetFont = 'regular', size = 9.5, color = INK, opts: { x?: number; width?: number } = {}): void {
+    const width = opts.width ?? this.width;
+    const h = this.textHeight(text, font, size, width);
+    this.ensure(h);
+    this.style(font, size, color).text(text, opts.x ?? this.left, this.y, { width, lineGap: 1 });
+    this.y += h;
+  }
+
+  heading(text: string, keepWith = 60): void {
+    this.ensure(22 + keepWith);
+    this.gap(6);
+    this.style('semibold', 12.5, INK).text(text, this.left, this.y, { width: this.width, lineBreak: false });
+    this.y += 17;
+    this.doc.moveTo(this.left, this.y).lineTo(this.left + this.width, this.y).lineWidth(0.6).strokeColor(RULE).stroke();
+    this.y += 5;
+  }
+
+  /** Label/value rows in a block of `width` at `x`, starting at `y`; returns the height used. */
+  rowsAt(rows: readonly (readonly [string, string])[], x: number, y: number, width: number, labelShare = 0.42): number {
+    const lw = width * labelShare;
+    const vw = width - lw - 6;
+    let dy = 0;
+    for (const [label, value] of rows) {
+      const h = Math.max(this.textHeight(label, 'regular', 8.5, lw), this.textHeight(value, 'medium', 9.5, vw)) + 4;
+      this.style('regular', 8.5, MUTED).text(label, x, y + dy + 1, { width: lw, lineGap: 1 });
+      this.style('medium', 9.5, INK).text(value, x + lw + 6, y + dy, { width: vw, lineGap: 1 });
+      dy += h;
+      this.doc.moveTo(x, y + dy - 2).lineTo(x + width, y + dy - 2).lineWidth(0.3).strokeColor(RULE_SOFT).stroke();
+    }
+    return dy;
+  }
+
+  rowsHeight(rows: readonly (readonly [string, string])[], width: number, labelShare = 0.42): number {
+    const lw = width * labelShare;
+    const vw = width - lw - 6;
+    return rows.reduce((sum, [l, v]) => sum + Math.max(this.textHeight(l, 'regular', 8.5, lw), this.textHeight(v, 'medium', 9.5, vw)) + 4, 0);
+  }
+
+  /** Label/value rows across the full width. */
+  rows(rows: readonly (readonly [string, string])[], labelShare = 0.42): void {
+    this.ensure(this.rowsHeight(rows, this.width, labelShare));
+    this.y += this.rowsAt(rows, this.left, this.y, this.width, labelShare);
+  }
+
+  /** Two label/value blocks side by side, each with a small title. */
+  twoBlocks(a: { title: string; rows: readonly (readonly [string, string])[] }, b: { title: string; rows: readonly (readonly [string, string])[] }): void {
+    const colW = (this.width - 18) / 2;
+    const h = Math.max(this.rowsHeight(a.rows, colW), this.rowsHeight(b.rows, colW)) + 14;
+    this.ensure(h);
+    for (const [i, block] of [a, b].entries()) {
+      const x = this.left + i * (colW + 18);
+      this.style('semibold', 8, GLASS).text(block.title.toUpperCase(), x, this.y, { width: colW, characterSpacing: 0.6, lineBreak: false });
+      this.rowsAt(block.rows, x, this.y + 13, colW);
+    }
+    this.y += h;
+  }
+
+  /** A table with a header row; rows never split across pages and the header repeats after a break. */
+  table(columns: readonly Column[], rows: readonly (readonly string[])[], opts: { boldLast?: boolean } = {}): void {
+    const widths = columns.map((c) => c.width * this.width);
+    const pad = 3;
+    const cellH = (text: string, i: number, font: SheetFont) => this.textHeight(text, font, 8.8, widths[i] - 2 * pad);
+    const header = () => {
+      const h = Math.max(...columns.map((c, i) => cellH(c.title, i, 'semibold'))) + 2 * pad;
+      this.doc.rect(this.left, this.y, this.width, h).fillColor(GLASS_SOFT).fill();
+      let x = this.left;
+      columns.forEach((c, i) => {
+        this.style('semibold', 8.8, INK).text(c.title, x + pad, this.y + pad, { width: widths[i] - 2 * pad, align: c.align ?? 'left', lineGap: 1 });
+        x += widths[i];
+      });
+      this.y += h;
+    };
+    const headerH = Math.max(...columns.map((c, i) => cellH(c.title, i, 'semibold'))) + 2 * pad;
+    const firstRowH = rows.length ? Math.max(...rows[0].map((t, i) => cellH(t, i, columns[i].font ?? 'regular'))) + 2 * pad : 0;
+    this.ensure(headerH + firstRowH);
+    header();
+    rows.forEach((row, r) => {
+      const last = opts.boldLast && r === rows.length - 1;
+      const fontOf = (i: number): SheetFont => (last ? 'bold' : (columns[i].font ?? 'regular'));
+      const h = Math.max(...row.map((t, i) => cellH(t, i, fontOf(i)))) + 2 * pad;
+      if (this.y + h > this.bottom) {
+        this.newPage();
+        header();
+      }
+      let x = this.left;
+      row.forEach((text, i) => {
+        this.style(fontOf(i), 8.8, INK).text(text, x + pad, this.y + pad, { width: widths[i] - 2 * pad, align: columns[i].align ?? 'left', lineGap: 1 });
+        x += widths[i];
+      });
+      this.y += h;
+      this.doc.moveTo(this.left, this.y).lineTo(this.left + this.width, this.y).lineWidth(last ? 0.9 : 0.3).strokeColor(last ? INK : RULE_SOFT).stroke();
+    });
+  }
+}

@@ -1,0 +1,36 @@
+import { z } from 'zod';
+import { email } from './common';
+
+/** Paper the sheet is printed on; the default follows the project's units (imperial → US Letter). */
+export const sheetPapers = ['a4', 'letter'] as const;
+export type SheetPaper = (typeof sheetPapers)[number];
+export const sheetQuery = z.object({
+  paper: z.enum(sheetPapers, { message: 'Choose a4 or letter paper.' }).optional(),
+});
+
+/** One buyer address per sending: a purchase request goes to one desk. */
+export const sheetEmailBody = z
+  .object({
+    to: email,
+    message: z.string().trim().max(2000, 'Keep the note to 2,000 characters.').optional(),
+  })
+  .strict();
+export type SheetEmailBody = z.input<typeof sheetEmailBody>;
+
+export const sheetRevisionDto = z.object({
+  number: z.number(),
+  contentHash: z.string(),
+  issuedAt: z.string(),
+  issuedBy: z.string(),
+});
+export type SheetRevisionDto = z.infer<typeof sheetRevisionDto>;
+
+export const sheetStatusDto = z.object({
+  revisions: z.array(sheetRevisionDto),
+  current: z.object({ number: z.number(), contentHash: z.string(), changedSinceLast: z.boolean() }),
+  filename: z.string(),
+});
+export type SheetStatusDto = z.infer<typeof sheetStatusDto>;
+
+export const sheetEmailResponse = z.object({ revision: sheetRevisionDto, to: z.string(), filename: z.string() });
+export type SheetEmailResponse = z.infer<typeof sheetEmailResponse>;

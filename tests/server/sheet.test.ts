@@ -1,0 +1,240 @@
+/**
+ * The specification sheet, end to end: a real SQLite file, real pdfkit output read back with
+ * poppler (pdftotext, pdffonts, pdfinfo, pdftoppm), and the real fake SMTP server.
+ * Check values are the engine's own numbers (evaluateProject), formatted with the sheet's formatters.
+ */
+import { execFileSync } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import request from 'supertest';
+import { simpleParser } from 'mailparser';
+import { evaluateProject } from '../../shared/project-optics';
+import type { CatalogueItemDto, ProjectDto, SheetStatusDto } from '../../shared/schemas';
+import { resolveUnits } from '../../shared/units';
+import { createApp } from '../../server/app';
+import { createLogger } from '../../server/logger';
+import { createMailer } from '../../server/modules/mail/mailer';
+import { SHEET_CAUTIONS } from '../../server/pdf/cautions';
+import { sheetFormat } from '../../server/pdf/sheet-model';
+import { EMAIL, startHarness, type Harness } from './harness';
+
+type Agent = ReturnType<typeof request.agent>;
+let h: Harness;
+let installer: Agent;
+let projectId: number;
+const OTHER_INSTALLER = 'otto.other@sightfan-demo.example';
+const ARTIFACTS = path.resolve(__dirname, '..', 'e2e', 'artifacts', 'sheet');
+const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'sightfan-sheet-'));
+
+beforeAll(async () => {
+  h = await startHarness();
+  await h.addUser(OTHER_INSTALLER, 'installer');
+  installer = await h.signedIn(EMAIL.installer);
+  const list = await installer.get('/api/projects');
+  projectId = list.body.projects[0].id;
+});
+afterAll(async () => {
+  await h.close();
+  fs.rmSync(tmp, { recursive: true, force: true });
+});
+
+const binary = (res: request.Response, cb: (err: Error | null, body: Buffer) => void) => {
+  const chunks: Buffer[] = [];
+  res.on('data', (c: Buffer) => chunks.push(c));
+  res.on('end', () => cb(null, Buffer.concat(chunks)));
+};
+
+async function fetchSheet(agent: Agent, query = ''): Promise<{ pdf: Buffer; res: request.Response }> {
+  const res = await agent.get(`/api/projects/${projectId}/sheet.pdf${query}`).buffer(true).parse(binary);
+  return { pdf: res.body as Buffer, res };
+}
+
+let fileCount = 0;
+function tool(cmd: string, pdf: Buffer, args: string[] = []): string {
+  const file = path.join(tmp, `sheet-${++fileCount}.pdf`);
+  fs.writeFileSync(file, pdf);
+  return execFileSync(`/usr/bin/${cmd}`, [...args, file, ...(cmd === 'pdftotext' ? ['-'] : [])], { encoding: 'utf8' });
+}
+const flat = (s: string) => s.replace(/\s+/g, ' ');
+const textOf = (pdf: Buffer) => flat(tool('pdftotext', pdf));
+const pagesOf = (pdf: Buffer) => Number(/Pages:\s+(\d+)/.exec(tool('pdfinfo', pdf))?.[1]);
+
+async function engine() {
+  const project = (await installer.get(`/api/projects/${projectId}`)).body.project as ProjectDto;
+  const catalogue = (await installer.get('/api/catalog')).body.items as CatalogueItemDto[];
+  const me = (await installer.get('/api/auth/me')).body.user as { units: 'metric' | 'imperial' };
+  const evaluation = evaluateProject({ scene: project.scene, placements: project.placements, catalogue });
+  return { project, catalogue, evaluation, f: sheetFormat(resolveUnits(project.units, me.units)) };
+}
+
+describe('the specification sheet PDF', () => {
+  it("carries the engine's numbers for each placement, each zone's share and the purchase total", async () => {
+    const { pdf, res } = await fetchSheet(installer);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toBe('application/pdf');
+    const text = textOf(pdf);
+    const { project, catalogue, evaluation, f } = await engine();
+    expect(evaluation.placements.length).toBeGreaterThan(0);
+    evaluation.placements.forEach((ev, i) => {
+      const n = ev.numbers;
+      if (!n) throw new Error(`demo placement ${project.placements[i].label} has no numbers: ${ev.problem?.message}`);
+      const expected = [
+        project.placements[i].label,
+        f.size(n.radiusM),
+        f.size(n.focalLengthM),
+        `${f.angle(n.fieldOfView.horizontalRad)} × ${f.angle(n.fieldOfView.verticalRad)}`,
+        f.dist(n.eyeDistanceM),
+        f.dist(n.rangeM.adult),
+        f.dist(n.rangeM.child),
+        ...(n.rimSqueeze > 0 ? [f.percent(n.rimSqueeze)] : []),
+        ...n.references.flatMap((r) => [f.dist(r.objectDistanceM), f.magnification(r.magnification), f.dist(r.trueDistanceM), f.dist(r.sizeCueDistanceM), f.ratio(r.ratio)]),
+      ];
+      for (const value of expected) expect(text).toContain(value);
+    });
+    project.scene.zones.forEach((z, i) => expect(text).toContain(`${z.name}: ${f.percent(evaluation.zones[i].fraction)} seen`));
+    const used = project.placements.map((p) => catalogue.find((c) => c.id === p.catalogueItemId)!);
+    const totalMinor = used.reduce((sum, item) => sum + item.unitPriceMinor, 0);
+    expect(text).toContain(`Total ${f.money(totalMinor, used[0].currency)}`);
+  });
+
+  it('states the four cautions, the limits of what it promises and an approval block that is not yet reviewed', async () => {
+    const text = textOf((await fetchSheet(installer)).pdf);
+    expect(SHEET_CAUTIONS).toHaveLength(4);
+    for (const phrase of ['smaller and farther away than they are', 'replaces none of them', 'which take precedence', 'a person walking the zone']) {
+      expect(SHEET_CAUTIONS.some((c) => c.includes(phrase))).toBe(true);
+    }
+    for (const caution of SHEET_CAUTIONS) expect(text).toContain(caution);
+    expect(text).toContain('Not yet reviewed');
+    expect(text).toContain('not a certificate of compliance');
+    for (const field of ['Reviewer', 'Decision', 'Date', 'Signature']) expect(text).toContain(field);
+  });
+
+  it('embeds every font it uses, only the shipped families, as subsets', async () => {
+    const rows = tool('pdffonts', (await fetchSheet(installer)).pdf).trim().split('\n').slice(2);
+    expect(rows.length).toBeGreaterThan(0);
+    for (const row of rows) {
+      expect(row).toMatch(/^[A-Z]{6}\+(Barlow|JetBrainsMono)-\w+\s/);
+      const cols = row.trim().split(/\s+/);
+      // name, type…, encoding, emb, sub, uni, object, id
+      expect(cols.slice(-5, -2)).toEqual(['yes', 'yes', 'yes']);
+    }
+  });
+
+  it('says "Page x of y" on every page and is rendered to PNGs for a person to look at', async () => {
+    const { pdf } = await fetchSheet(installer);
+    const pages = pagesOf(pdf);
+    expect(pages).toBeGreaterThanOrEqual(3);
+    const text = textOf(pdf);
+    for (let i = 1; i <= pages; i++) expect(text).toContain(`Page ${i} of ${pages}`);
+    fs.mkdirSync(ARTIFACTS, { recursive: true });
+    for (const f of fs.readdirSync(ARTIFACTS)) if (f.endsWith('.png')) fs.rmSync(path.join(ARTIFACTS, f));
+    fs.writeFileSync(path.join(ARTIFACTS, 'demo-sheet.pdf'), pdf);
+    execFileSync('/usr/bin/pdftoppm', ['-png', '-r', '60', path.join(ARTIFACTS, 'demo-sheet.pdf'), path.join(ARTIFACTS, 'page')]);
+    expect(fs.readdirSync(ARTIFACTS).filter((f) => f.endsWith('.png'))).toHaveLength(pages);
+  });
+
+  it('prints on US Letter when asked, and refuses an unknown paper with 400', async () => {
+    const { pdf } = await fetchSheet(installer, '?paper=letter');
+    expect(tool('pdfinfo', pdf)).toMatch(/Page size:\s+612 x 792 pts \(letter\)/);
+    expect((await installer.get(`/api/projects/${projectId}/sheet.pdf?paper=a3`)).status).toBe(400);
+  });
+
+  it('gives byte-identical PDFs for unchanged content, named after the project and revision', async () => {
+    const a = await fetchSheet(installer);
+    const b = await fetchSheet(installer);
+    expect(a.res.headers['x-sheet-revision']).toBe(b.res.headers['x-sheet-revision']);
+    expect(Buffer.compare(a.pdf, b.pdf)).toBe(0);
+    expect(a.res.headers['content-disposition']).toBe(`attachment; filename="sightfan-cold-store-aisles-and-dock-demo-rev${a.res.headers['x-sheet-revision']}.pdf"`);
+  });
+
+  it('raises the revision when the content changes, and keeps a record of each issued revision', async () => {
+    const before = await fetchSheet(installer);
+    const revBefore = Number(before.res.headers['x-sheet-revision']);
+    const { project } = await engine();
+    const p = project.placements[0];
+    const patched = await installer.patch(`/api/projects/${projectId}/placements/${p.id}`).send({ version: p.version, heightM: p.heightM + 0.2 });
+    expect(patched.status).toBe(200);
+
+    const status = (await installer.get(`/api/projects/${projectId}/sheet`)).body as SheetStatusDto;
+    expect(status.current).toMatchObject({ number: revBefore + 1, changedSinceLast: true });
+
+    const after = await fetchSheet(installer);
+    expect(Number(after.res.headers['x-sheet-revision'])).toBe(revBefore + 1);
+    expect(Buffer.compare(before.pdf, after.pdf)).not.toBe(0);
+
+    const again = (await installer.get(`/api/projects/${projectId}/sheet`)).body as SheetStatusDto;
+    expect(again.current.changedSinceLast).toBe(false);
+    expect(again.revisions.map((r) => r.number)).toEqual([revBefore + 1, revBefore]);
+    expect(again.revisions[0].contentHash).toBe(status.current.contentHash);
+    expect(again.revisions[0].issuedBy).toContain('Ines Okafor');
+    expect(new Set(again.revisions.map((r) => r.contentHash)).size).toBe(2);
+    expect(textOf(after.pdf)).toContain(again.revisions[0].contentHash.slice(0, 12));
+  });
+});
+
+describe('e-mailing the sheet', () => {
+  it('delivers the sheet to the buyer through the fake SMTP server with a byte-identical attachment', async () => {
+    const to = 'buyer.desk@purchasing-demo.example';
+    const sent = await installer.post(`/api/projects/${projectId}/sheet/email`).send({ to, message: 'For the purchase request, please.' });
+    expect(sent.status).toBe(200);
+    const mail = await h.waitForMail(to);
+    const parsed = await simpleParser(mail.raw);
+    expect(parsed.text).toContain('For the purchase request, please.');
+    expect(parsed.attachments).toHaveLength(1);
+    const att = parsed.attachments[0];
+    expect(att.contentType).toBe('application/pdf');
+    expect(att.filename).toBe(sent.body.filename);
+    const { pdf } = await fetchSheet(installer);
+    expect(Buffer.compare(att.content, pdf)).toBe(0);
+  });
+
+  it('refuses an address that is not one with 400 and a sentence for the field', async () => {
+    const res = await installer.post(`/api/projects/${projectId}/sheet/email`).send({ to: 'buyer at purchasing' });
+    expect(res.status).toBe(400);
+    expect(res.body.fields.to).toMatch(/e-mail address/);
+  });
+
+  it("does not let another installer fetch, inspect or send someone else's sheet", async () => {
+    const other = await h.signedIn(OTHER_INSTALLER);
+    expect((await other.get(`/api/projects/${projectId}/sheet.pdf`)).status).toBe(404);
+    expect((await other.get(`/api/projects/${projectId}/sheet`)).status).toBe(404);
+    const sent = await other.post(`/api/projects/${projectId}/sheet/email`).send({ to: 'leak@elsewhere-demo.example' });
+    expect(sent.status).toBe(404);
+  });
+
+  it('lets a reviewer of the same organisation download the sheet', async () => {
+    const reviewer = await h.signedIn(EMAIL.reviewer);
+    const res = await reviewer.get(`/api/projects/${projectId}/sheet.pdf`).buffer(true).parse(binary);
+    expect(res.status).toBe(200);
+  });
+
+  it('answers a failed send with 502 and a sentence, keeps the revision, and sends when repeated', async () => {
+    // A real nodemailer transport toward a port where nothing listens.
+    const closedPort = await new Promise<number>((resolve) => {
+      const s = require('node:net').createServer() as import('node:net').Server;
+      s.listen(0, '127.0.0.1', () => {
+        const port = (s.address() as import('node:net').AddressInfo).port;
+        s.close(() => resolve(port));
+      });
+    });
+    const broken = createApp({ config: h.config, orm: h.orm, mailer: createMailer({ fakePort: closedPort, from: h.config.mailFrom }), log: createLogger(true), sessionSecret: 'another-secret-long-enough-for-the-config-check' });
+    try {
+      const agent = request.agent(broken.app);
+      expect((await agent.post('/api/auth/sign-in').send({ email: EMAIL.installer, password: 'demo-password-1' })).status).toBe(200);
+      const to = 'retry.buyer@purchasing-demo.example';
+      const failed = await agent.post(`/api/projects/${projectId}/sheet/email`).send({ to });
+      expect(failed.status).toBe(502);
+      expect(failed.body.error).toMatch(/not sent.*send it again/);
+      const status = (await agent.get(`/api/projects/${projectId}/sheet`)).body as SheetStatusDto;
+      expect(status.current.changedSinceLast).toBe(false);
+
+      const repeated = await installer.post(`/api/projects/${projectId}/sheet/email`).send({ to });
+      expect(repeated.status).toBe(200);
+      expect(repeated.body.revision.number).toBe(status.current.number);
+      expect((await h.waitForMail(to)).subject).toContain(`revision ${status.current.number}`);
+    } finally {
+      broken.close();
+    }
+  });
+});
