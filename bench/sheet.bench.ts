@@ -4,12 +4,11 @@
  * fonts, measured in the same run, so the cost of pdfkit itself is visible.
  */
 import PDFDocument from 'pdfkit';
-import path from 'node:path';
 import { Bench } from 'tinybench';
 import type { CatalogueItemDto } from '../shared/schemas';
 import { buildSheetContent, contentHash, type SheetInput } from '../server/pdf/sheet-model';
 import { renderSheet } from '../server/pdf/render-sheet';
-import { FONTS_DIR, SHEET_FONTS, registerSheetFonts } from '../server/pdf/fonts';
+import { NO_DEFAULT_FONT, registerSheetFonts } from '../server/pdf/fonts';
 import { DEMO_CATALOGUE } from '../server/seeders/demo-catalogue';
 import { DEMO_PROJECT } from '../server/seeders/demo-project';
 
@@ -17,7 +16,7 @@ const RENDER_BUDGET_MS = 300;
 const SIZE_BUDGET_BYTES = 500 * 1024;
 const DEG = Math.PI / 180;
 
-function tenPlacementInput(): SheetInput {
+export function tenPlacementInput(): SheetInput {
   const catalogue: CatalogueItemDto[] = DEMO_CATALOGUE.map((c, i) => ({
     id: i + 1,
     code: c.code,
@@ -63,7 +62,7 @@ function tenPlacementInput(): SheetInput {
 }
 
 function barePage(): Promise<Buffer> {
-  const doc = new PDFDocument({ size: 'A4', font: path.join(FONTS_DIR, SHEET_FONTS.regular), info: { CreationDate: new Date(0) } });
+  const doc = new PDFDocument({ size: 'A4', font: NO_DEFAULT_FONT, info: { CreationDate: new Date(0) } });
   registerSheetFonts(doc);
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));

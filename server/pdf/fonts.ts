@@ -33,8 +33,22 @@ export function sheetFontFiles(): Record<SheetFont, Buffer> {
   return cache;
 }
 
-/** Registers the sheet's fonts on a document under the names in SHEET_FONTS' keys. */
+/**
+ * The `font` option for `new PDFDocument`: none. Left unset, pdfkit would load Helvetica (and list it
+ * in the file); given a path, it loads that face under the path's name, and then every later
+ * `doc.font('regular')` parses the same TTF again, because pdfkit caches a registered name only when
+ * no face with the same PostScript name is open yet (measured: most of the render time went there).
+ * An empty string makes pdfkit open nothing; `registerSheetFonts` then selects the regular face.
+ */
+export const NO_DEFAULT_FONT = '';
+
+/**
+ * Registers the sheet's fonts on a document under the names in SHEET_FONTS' keys and selects
+ * 'regular'. Each face is parsed once per document, on its first use; a face never used is neither
+ * parsed nor embedded.
+ */
 export function registerSheetFonts(doc: PDFKit.PDFDocument): void {
   const files = sheetFontFiles();
   for (const name of Object.keys(files) as SheetFont[]) doc.registerFont(name, files[name]);
+  doc.font('regular');
 }

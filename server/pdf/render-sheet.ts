@@ -3,12 +3,11 @@
  * the metadata dates come from the revision's issue time (pdfkit would otherwise stamp "now"), and
  * pdfkit derives the trailer's file /ID from those metadata, so it is fixed too.
  */
-import path from 'node:path';
 import PDFDocument from 'pdfkit';
 import type { SheetPaper } from '../../shared/schemas';
 import { SHEET_LIMITS } from './cautions';
 import { drawElevation, drawPlan, drawScaleBar, fitPlan, scaleBarFor } from './draw-plan';
-import { FONTS_DIR, SHEET_FONTS, registerSheetFonts } from './fonts';
+import { NO_DEFAULT_FONT, registerSheetFonts } from './fonts';
 import { BEACON_SOFT, Flow, GLASS, INK, MUTED, RULE, STOP } from './layout';
 import { sheetFormat, type SheetContent, type SheetPlacement } from './sheet-model';
 
@@ -256,7 +255,7 @@ export async function renderSheet(content: SheetContent, rev: SheetRevisionInfo,
     bufferPages: true,
     autoFirstPage: true,
     pdfVersion: '1.7',
-    font: path.join(FONTS_DIR, SHEET_FONTS.regular),
+    font: NO_DEFAULT_FONT,
     info: {
       Title: `Specification sheet — ${content.project.name} — revision ${rev.number}`,
       Author: content.installer.name,

@@ -95,10 +95,12 @@ describe.each([
     const rangeBefore = await byTestId(page, 'numbers-range-adult').first().textContent();
     await byTestId(page, 'placement-height').fill('4.5 m');
     await byTestId(page, 'placement-height').press('Enter');
-    // Runs in the page: the fan's outline has been redrawn for the new height.
+    // Runs in the page (a function, not a string: the app's CSP forbids eval): the fan's outline
+    // has been redrawn for the new height.
+    type PageDoc = { document: { querySelector(sel: string): { getAttribute(name: string): string | null } | null } };
     await page.waitForFunction(
-      `document.querySelector('[data-testid="${fanId}"]')?.getAttribute('d') !== ${JSON.stringify(fanBefore)}`,
-      undefined,
+      ([id, before]) => (globalThis as unknown as PageDoc).document.querySelector(`[data-testid="${id}"]`)?.getAttribute('d') !== before,
+      [fanId, fanBefore] as const,
       { timeout: 15_000 },
     );
     expect(await byTestId(page, 'numbers-range-adult').first().textContent()).not.toBe(rangeBefore);
