@@ -8,7 +8,7 @@ import { palette } from '@/constants/theme';
 export function FanIllustration({ width = 360 }: { width?: number }) {
   const height = width * 0.75;
   return (
-    <Svg width={width} height={height} viewBox="0 0 400 300" accessibilityElementsHidden importantForAccessibility="no-hide-descendants">
+    <Svg width={width} height={height} viewBox="0 0 400 300" aria-hidden>
       <Defs>
         <LinearGradient id="fan" x1="0" y1="0" x2="1" y2="1">
           <Stop offset="0" stopColor={palette.beacon} stopOpacity={0.95} />

@@ -10,7 +10,7 @@ import { AppText } from './text';
 export function BrandMark({ size = 32, onDark = false }: { size?: number; onDark?: boolean }) {
   const mirror = onDark ? palette.onAsphalt : palette.asphalt;
   return (
-    <Svg width={size} height={size} viewBox="0 0 32 32" accessibilityElementsHidden importantForAccessibility="no-hide-descendants">
+    <Svg width={size} height={size} viewBox="0 0 32 32" aria-hidden>
       <Path d="M9 16 L30 4 A26 26 0 0 1 30 28 Z" fill={palette.beacon} />
       <Line x1={9} y1={16} x2={30} y2={10} stroke={palette.asphalt} strokeOpacity={0.35} strokeWidth={1.2} />
       <Line x1={9} y1={16} x2={31} y2={16} stroke={palette.asphalt} strokeOpacity={0.35} strokeWidth={1.2} />

@@ -5,7 +5,7 @@ import type { NavKey } from '@/constants/navigation';
 export function NavIcon({ name, color, size = 24 }: { name: NavKey; color: string; size?: number }) {
   const stroke = { stroke: color, strokeWidth: 2, fill: 'none', strokeLinecap: 'round' as const, strokeLinejoin: 'round' as const };
   return (
-    <Svg width={size} height={size} viewBox="0 0 24 24" accessibilityElementsHidden importantForAccessibility="no-hide-descendants">
+    <Svg width={size} height={size} viewBox="0 0 24 24" aria-hidden>
       {name === 'projects' ? (
         <>
           {/* A site plan with a corner mirror's fan. */}
