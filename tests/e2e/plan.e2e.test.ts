@@ -107,6 +107,31 @@ describe.each([
     await byTestId(page, 'placement-save-status').filter({ hasText: /All changes saved/ }).first().waitFor({ timeout: 15_000 });
     await shot(page, `${sizeName}-plan-height-changed`);
 
+    // On a wide screen, turn the mirror with its aim handle: the fan swings and the aim is saved.
+    let aimedAzimuth: number | null = null;
+    if (sizeName === 'wide') {
+      const before = await attr(page, fanId, 'd');
+      const handle = (await byTestId(page, 'aim-handle').first().boundingBox())!;
+      const hx = handle.x + handle.width / 2;
+      const hy = handle.y + handle.height / 2;
+      await page.mouse.move(hx, hy);
+      await page.mouse.down();
+      for (let i = 1; i <= 8; i++) await page.mouse.move(hx + i * 8, hy + i * 3);
+      await page.mouse.up();
+      await page.waitForFunction(
+        ([id, b]) => (globalThis as unknown as PageDoc).document.querySelector(`[data-testid="${id}"]`)?.getAttribute('d') !== b,
+        [fanId, before] as const,
+        { timeout: 15_000 },
+      );
+      const projectNow = page.url().match(/projects\/(\d+)/)![1];
+      const savedAzimuth = async () => (await (await page.request.get(`${product.server.url}/api/projects/${projectNow}`)).json()).project.placements[0].azimuthRad as number;
+      const until = Date.now() + 15_000;
+      while (Math.abs((await savedAzimuth()) - Math.PI / 2) < 1e-3 && Date.now() < until) await page.waitForTimeout(200);
+      aimedAzimuth = await savedAzimuth();
+      expect(Math.abs(aimedAzimuth - Math.PI / 2)).toBeGreaterThan(0.05);
+      await shot(page, 'wide-plan-aimed');
+    }
+
     await page.reload();
     await byTestId(page, 'plan-canvas').waitFor({ state: 'visible' });
     await byTestId(page, `zone-label-${zoneId}`).first().waitFor({ state: 'attached' });
@@ -119,6 +144,7 @@ describe.each([
     expect(saved.project.placements[0].heightM).toBeCloseTo(4.5, 9);
     expect(saved.project.scene.walls).toHaveLength(1);
     expect(saved.project.scene.walls[0].kind).toBe('racking');
+    if (aimedAzimuth !== null) expect(saved.project.placements[0].azimuthRad).toBeCloseTo(aimedAzimuth, 9);
     expect(await page.locator('[data-testid^="viewer-marker-"]').count()).toBe(1);
     expect(errors.filter((e) => !/Failed to load resource/.test(e))).toEqual([]);
     await page.context().close();
