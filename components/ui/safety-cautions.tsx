@@ -1,29 +1,9 @@
 import { StyleSheet, View } from 'react-native';
 import { palette, radii, spacing } from '@/constants/theme';
 import { AppText } from './text';
+import { SAFETY_CAUTIONS } from '@/shared/cautions';
 
-/**
- * The cautions every screen that shows coverage carries (PRODUCT.md, "Cautions the product always
- * carries"). Kept as data so the PDF sheet and tests can use the same words.
- */
-export const SAFETY_CAUTIONS = [
-  {
-    key: 'smaller-farther',
-    text: 'Objects in a convex mirror appear smaller and farther away than they are; judge speed and gaps with care.',
-  },
-  {
-    key: 'supplements',
-    text: 'A mirror supplements direct sight, procedures and other safety measures; it replaces none of them.',
-  },
-  {
-    key: 'codes',
-    text: 'Mounting height, clearances and required fields of view are set by local vehicle, road, building and workplace-safety codes, which take precedence; check with the authority or a licensed professional.',
-  },
-  {
-    key: 'verify',
-    text: 'Computed coverage assumes the dimensions entered; verify on site with a person walking the zone.',
-  },
-] as const;
+export { SAFETY_CAUTIONS } from '@/shared/cautions';
 
 export interface SafetyCautionsProps {
   /** A tighter block for beside a drawing: smaller type, same four sentences (never fewer). */

@@ -54,13 +54,92 @@ export function fitPlan(plan: SheetPlan, box: Box, marginM = 1): PlanFit {
   return { denominator, ptPerM, minX, maxY, offsetX: box.x + (box.w - spanX * ptPerM) / 2, offsetY: box.y + (box.h - spanY * ptPerM) / 2, heightPt: spanY * ptPerM };
 }
 
-function ringPath(doc: PDFKit.PDFDocument, ring: readonly (readonly number[])[], at: (p: readonly number[]) => [number, number]): void {
-  ring.forEach((p, i) => {
-    const [x, y] = at(p);
+/** Outline detail finer than this (0.2 mm on paper, in points) cannot be seen in print and is dropped before drawing. */
+export const OUTLINE_TOLERANCE_PT = (0.2 / 25.4) * 72;
+
+/**
+ * Douglas–Peucker simplification of a closed ring already in paper points: keeps the first point
+ * and every point that lies farther than `tolerance` from the simplified outline. A pure function of
+ * its input, so the same plan always draws the same path (and the PDF stays byte-identical).
+ */
+export function simplifyRing(ring: readonly (readonly [number, number])[], tolerance: number): [number, number][] {
+  const n = ring.length;
+  if (n <= 3) return ring.map(([x, y]) => [x, y]);
+  // Split the closed ring at the point farthest from the first, then simplify both open halves.
+  const [x0, y0] = ring[0];
+  let far = 1;
+  let farD = -1;
+  for (let i = 1; i < n; i++) {
+    const d = (ring[i][0] - x0) ** 2 + (ring[i][1] - y0) ** 2;
+    if (d > farD) {
+      farD = d;
+      far = i;
+    }
+  }
+  const keep = new Uint8Array(n + 1);
+  keep[0] = keep[far] = keep[n] = 1;
+  const point = (i: number) => ring[i % n];
+  const stack: [number, number][] = [
+    [0, far],
+    [far, n],
+  ];
+  while (stack.length) {
+    const [a, b] = stack.pop()!;
+    const [ax, ay] = point(a);
+    const [bx, by] = point(b);
+    const dx = bx - ax;
+    const dy = by - ay;
+    const len = Math.hypot(dx, dy);
+    let worst = -1;
+    let worstD = tolerance;
+    for (let i = a + 1; i < b; i++) {
+      const [px, py] = point(i);
+      const d = len > 0 ? Math.abs(dx * (py - ay) - dy * (px - ax)) / len : Math.hypot(px - ax, py - ay);
+      if (d > worstD) {
+        worstD = d;
+        worst = i;
+      }
+    }
+    if (worst >= 0) {
+      keep[worst] = 1;
+      stack.push([a, worst], [worst, b]);
+    }
+  }
+  const out: [number, number][] = [];
+  for (let i = 0; i < n; i++) if (keep[i]) out.push([ring[i][0], ring[i][1]]);
+  return out;
+}
+
+function ringPath(doc: PDFKit.PDFDocument, ring: readonly (readonly number[])[], at: (p: readonly number[]) => [number, number], tolerance = 0): void {
+  const onPaper = ring.map(at);
+  const drawn = tolerance > 0 ? simplifyRing(onPaper, tolerance) : onPaper;
+  drawn.forEach(([x, y], i) => {
     if (i === 0) doc.moveTo(x, y);
     else doc.lineTo(x, y);
   });
   doc.closePath();
+}
+
+/** Height of one line of a mirror's label on the plan (7.2 pt type), points. */
+export const LABEL_LINE_PT = 9;
+
+const overlaps = (a: Box, b: Box) => a.x < b.x + b.w && b.x < a.x + a.w && a.y < b.y + b.h && b.y < a.y + a.h;
+
+/**
+ * Where a label goes: where it was asked for if that is free, else pushed down a line at a time
+ * (up to six lines) until it touches no box already taken; if none of those is free, the first
+ * spot pushed up a line at a time instead; failing both, where it was asked for.
+ */
+export function labelSpot(wanted: Box, taken: readonly Box[], maxLines = 6): Box {
+  const free = (b: Box) => !taken.some((t) => overlaps(b, t));
+  if (free(wanted)) return wanted;
+  for (const direction of [1, -1]) {
+    for (let n = 1; n <= maxLines; n++) {
+      const moved = { ...wanted, y: wanted.y + direction * n * LABEL_LINE_PT };
+      if (free(moved)) return moved;
+    }
+  }
+  return wanted;
 }
 
 export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): PlanFit {
@@ -70,14 +149,16 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): Pl
   doc.save();
   doc.rect(box.x, box.y, box.w, box.h).lineWidth(0.5).strokeColor(RULE).stroke();
   doc.rect(box.x, box.y, box.w, box.h).clip();
+  /** Boxes already written on (labels, mirror marks): a mirror's label moves off them. */
+  const taken: Box[] = [];
 
   // Seen floor first, so walls and labels sit on top of it.
   for (const region of plan.coverage) {
     if (!region.length) continue;
-    for (const poly of region) poly.forEach((ring) => ringPath(doc, ring, at));
+    for (const poly of region) poly.forEach((ring) => ringPath(doc, ring, at, OUTLINE_TOLERANCE_PT));
     doc.fillOpacity(0.2).fillColor(GLASS).fill('even-odd');
     doc.fillOpacity(1);
-    for (const poly of region) poly.forEach((ring) => ringPath(doc, ring, at));
+    for (const poly of region) poly.forEach((ring) => ringPath(doc, ring, at, OUTLINE_TOLERANCE_PT));
     doc.lineWidth(0.4).strokeColor(GLASS).stroke();
   }
 
@@ -104,6 +185,7 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): Pl
     const w = doc.widthOfString(label) + 4;
     doc.rect(x - w / 2, y - 5, w, 10).fillOpacity(0.85).fillColor('#ffffff').fill().fillOpacity(1);
     doc.fillColor(STOP).text(label, x - w / 2 + 2, y - 3.5, { lineBreak: false });
+    taken.push({ x: x - w / 2, y: y - 5, w, h: 10 });
   }
 
   for (const v of plan.viewers) {
@@ -111,17 +193,33 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): Pl
     doc.circle(x, y, 3.2).lineWidth(1).fillColor('#ffffff').strokeColor(INK).fillAndStroke();
     doc.circle(x, y, 1.2).fillColor(INK).fill();
     doc.font('regular').fontSize(6.8).fillColor(INK).text(v.name, x + 5, y - 3, { lineBreak: false });
+    taken.push({ x: x - 3.2, y: y - 3.2, w: 8.2 + doc.widthOfString(v.name), h: 9 });
   }
 
-  for (const m of plan.mirrors) {
+  // Every mirror's square and aim tick first, so no mirror's label is written across another mirror.
+  const glyphs = plan.mirrors.map((m) => {
     const [x, y] = at(m.at);
     // Page y runs down, plan y runs up: the aim's page direction is (cos az, −sin az).
     const dx = Math.cos(m.azimuthRad);
     const dy = -Math.sin(m.azimuthRad);
     doc.moveTo(x, y).lineTo(x + dx * 12, y + dy * 12).lineWidth(0.9).strokeColor(GLASS).stroke();
     doc.rect(x - 3, y - 3, 6, 6).fillColor(GLASS).fill();
-    doc.font('bold').fontSize(7.2).fillColor(GLASS).text(m.label, x - dx * 6 + 4, y - dy * 6 - 11, { lineBreak: false });
-  }
+    const tipX = x + dx * 12;
+    const tipY = y + dy * 12;
+    const left = Math.min(x - 3, tipX);
+    const top = Math.min(y - 3, tipY);
+    taken.push({ x: left, y: top, w: Math.max(x + 3, tipX) - left, h: Math.max(y + 3, tipY) - top });
+    return { x, y, dx, dy };
+  });
+  doc.font('bold').fontSize(7.2);
+  plan.mirrors.forEach((m, i) => {
+    const { x, y, dx, dy } = glyphs[i];
+    const w = doc.widthOfString(m.label);
+    const spot = labelSpot({ x: x - dx * 6 + 4, y: y - dy * 6 - 11, w, h: LABEL_LINE_PT }, taken);
+    taken.push(spot);
+    doc.rect(spot.x - 1.5, spot.y - 1, spot.w + 3, spot.h).fillOpacity(0.85).fillColor('#ffffff').fill().fillOpacity(1);
+    doc.fillColor(GLASS).text(m.label, spot.x, spot.y, { lineBreak: false });
+  });
   doc.restore();
   return fit;
 }

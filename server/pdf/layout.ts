@@ -62,9 +62,17 @@ export class Flow {
     return this.doc.font(font).fontSize(size).fillColor(color);
   }
 
+  /** Heights already measured on this document, by font, size, width and text (tables measure each cell twice). */
+  private readonly heights = new Map<string, number>();
+
   textHeight(text: string, font: SheetFont, size: number, width: number): number {
+    const key = `${font}\u0000${size}\u0000${width}\u0000${text}`;
+    const known = this.heights.get(key);
+    if (known !== undefined) return known;
     this.doc.font(font).fontSize(size);
-    return this.doc.heightOfString(text, { width, lineGap: 1 });
+    const h = this.doc.heightOfString(text, { width, lineGap: 1 });
+    this.heights.set(key, h);
+    return h;
   }
 
   /** Text at the cursor across `width` (default the full width); moves the cursor below it. */

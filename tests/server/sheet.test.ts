@@ -16,6 +16,8 @@ import { createApp } from '../../server/app';
 import { createLogger } from '../../server/logger';
 import { createMailer } from '../../server/modules/mail/mailer';
 import { SHEET_CAUTIONS } from '../../server/pdf/cautions';
+import { SAFETY_CAUTIONS } from '../../shared/cautions';
+import { LABEL_LINE_PT, OUTLINE_TOLERANCE_PT, labelSpot, simplifyRing } from '../../server/pdf/draw-plan';
 import { sheetFormat } from '../../server/pdf/sheet-model';
 import { EMAIL, startHarness, type Harness } from './harness';
 
@@ -104,7 +106,9 @@ describe('the specification sheet PDF', () => {
     for (const phrase of ['smaller and farther away than they are', 'replaces none of them', 'which take precedence', 'a person walking the zone']) {
       expect(SHEET_CAUTIONS.some((c) => c.includes(phrase))).toBe(true);
     }
-    for (const caution of SHEET_CAUTIONS) expect(text).toContain(caution);
+    // The app's caution block and the sheet read one list: the sheet prints each of its sentences.
+    expect(SHEET_CAUTIONS).toEqual(SAFETY_CAUTIONS.map((c) => c.text));
+    for (const caution of SAFETY_CAUTIONS) expect(text).toContain(caution.text);
     expect(text).toContain('Not yet reviewed');
     expect(text).toContain('not a certificate of compliance');
     for (const field of ['Reviewer', 'Decision', 'Date', 'Signature']) expect(text).toContain(field);
@@ -236,5 +240,30 @@ describe('e-mailing the sheet', () => {
     } finally {
       broken.close();
     }
+  });
+});
+
+describe('drawing the plan', () => {
+  it('pushes a label down a line at a time until it no longer overlaps one already placed', () => {
+    const first = { x: 100, y: 200, w: 60, h: LABEL_LINE_PT };
+    const wanted = { x: 130, y: 203, w: 50, h: LABEL_LINE_PT };
+    const spot = labelSpot(wanted, [first]);
+    expect(spot.x).toBe(wanted.x);
+    expect(spot.y).toBeGreaterThanOrEqual(first.y + first.h);
+    expect(spot.y - wanted.y).toBeCloseTo(Math.ceil((first.y + first.h - wanted.y) / LABEL_LINE_PT) * LABEL_LINE_PT);
+    expect(labelSpot({ ...wanted, y: first.y + 40 }, [first]).y).toBe(first.y + 40);
+  });
+
+  it('drops outline points too fine to print and keeps every point of a coarse shape', () => {
+    // A circle of 300 points, 50 pt across: most points are closer than 0.2 mm to the chord between their neighbours.
+    const circle = Array.from({ length: 300 }, (_, i): [number, number] => [50 * Math.cos((2 * Math.PI * i) / 300), 50 * Math.sin((2 * Math.PI * i) / 300)]);
+    const simple = simplifyRing(circle, OUTLINE_TOLERANCE_PT);
+    expect(simple.length).toBeLessThan(circle.length / 3);
+    // No dropped point lies farther than the tolerance from the circle drawn through the kept ones (sagitta of the longest chord).
+    const longest = Math.max(...simple.map((p, i) => Math.hypot(p[0] - simple[(i + 1) % simple.length][0], p[1] - simple[(i + 1) % simple.length][1])));
+    expect(50 - Math.sqrt(50 ** 2 - (longest / 2) ** 2)).toBeLessThanOrEqual(OUTLINE_TOLERANCE_PT);
+    expect(simplifyRing(circle, OUTLINE_TOLERANCE_PT)).toEqual(simple);
+    const square: [number, number][] = [[0, 0], [40, 0], [40, 40], [0, 40]];
+    expect(simplifyRing(square, OUTLINE_TOLERANCE_PT)).toEqual(square);
   });
 });

@@ -1,0 +1,28 @@
+/**
+ * The four cautions the product always carries (PRODUCT.md, "Cautions the product always carries"),
+ * in the product brief's words. The one list: the app's caution block and the PDF sheet both read it.
+ * Plain data, no React, so the server can import it too.
+ */
+export const SAFETY_CAUTIONS = [
+  {
+    key: 'smaller-farther',
+    text: 'Objects in a convex mirror appear smaller and farther away than they are; judge speed and gaps with care.',
+  },
+  {
+    key: 'supplements',
+    text: 'A mirror supplements direct sight, procedures and other safety measures; it replaces none of them.',
+  },
+  {
+    key: 'codes',
+    text: 'Mounting height, clearances and required fields of view are set by local vehicle, road, building and workplace-safety codes, which take precedence; check with the authority or a licensed professional before relying on a sheet.',
+  },
+  {
+    key: 'verify',
+    text: 'Computed coverage assumes the dimensions entered; verify on site with a person walking the zone.',
+  },
+] as const;
+
+export type SafetyCaution = (typeof SAFETY_CAUTIONS)[number];
+
+/** The same four sentences as plain strings, in the same order. */
+export const CAUTION_SENTENCES: readonly string[] = SAFETY_CAUTIONS.map((c) => c.text);

@@ -1,0 +1,100 @@
+import '@testing-library/jest-dom';
+import { screen, waitFor } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { SheetActions } from '@/components/sheet';
+import { api } from '@/hooks/api';
+import { sheetKeys } from '@/hooks/use-sheet';
+import { ApiError } from '@/shared/api-client';
+import type { SheetEmailResponse, SheetRevisionDto, SheetStatusDto } from '@/shared/schemas';
+import { makeTestQueryClient, renderWithQuery } from './render';
+
+jest.mock('@/hooks/api', () => ({ api: { sheets: { status: jest.fn(), pdfPath: jest.fn(), download: jest.fn(), email: jest.fn() } } }));
+
+const PROJECT_ID = 7;
+
+function revision(number: number, overrides: Partial<SheetRevisionDto> = {}): SheetRevisionDto {
+  return { number, contentHash: `${number}`.repeat(64).slice(0, 64), issuedAt: `2026-12-0${number}T09:30:00.000Z`, issuedBy: 'Ines Okafor', ...overrides };
+}
+
+function status(revisions: SheetRevisionDto[], changedSinceLast: boolean): SheetStatusDto {
+  const last = revisions[0];
+  const next = last ? (changedSinceLast ? last.number + 1 : last.number) : 1;
+  return { revisions, current: { number: next, contentHash: 'f'.repeat(64), changedSinceLast }, filename: `sightfan-demo-rev${next}.pdf` };
+}
+
+/** A client already holding the sheet's status, so the component renders without asking the (mocked) API. */
+function renderWithStatus(s: SheetStatusDto) {
+  jest.mocked(api.sheets.status).mockResolvedValue(s);
+  const client = makeTestQueryClient();
+  client.setQueryData(sheetKeys.status(PROJECT_ID), s);
+  return renderWithQuery(<SheetActions projectId={PROJECT_ID} canEdit />, client);
+}
+
+beforeEach(() => jest.resetAllMocks());
+
+describe('SheetActions', () => {
+  it('shows the last issued revision and says the project has changed since, naming the next revision', () => {
+    const last = revision(3);
+    const s = status([last, revision(2)], true);
+    renderWithStatus(s);
+
+    const line = screen.getByTestId('sheet-revision');
+    expect(line).toHaveTextContent(`revision ${last.number}, ${last.issuedAt.slice(0, 10)}, by ${last.issuedBy}`);
+    expect(line).toHaveTextContent(`changed since; the next sheet will be revision ${s.current.number}`);
+  });
+
+  it('shows only the last issued revision when nothing has changed since', () => {
+    const last = revision(4, { issuedBy: 'Oskar Lindqvist' });
+    renderWithStatus(status([last], false));
+
+    const line = screen.getByTestId('sheet-revision');
+    expect(line).toHaveTextContent(`revision ${last.number}, ${last.issuedAt.slice(0, 10)}, by ${last.issuedBy}`);
+    expect(line).not.toHaveTextContent('changed since');
+  });
+
+  it('says that no sheet has been issued yet when there is no revision', () => {
+    renderWithStatus(status([], true));
+    expect(screen.getByTestId('sheet-revision')).toHaveTextContent('No sheet issued yet');
+  });
+
+  it('shows a message beside an address that is not one and sends nothing', async () => {
+    renderWithStatus(status([revision(1)], false));
+    const user = userEvent.setup();
+
+    await user.type(screen.getByTestId('sheet-email-to'), 'buyer at purchasing');
+    await user.click(screen.getByTestId('sheet-email-submit'));
+
+    expect(await screen.findByTestId('field-error-to')).toHaveTextContent('Enter a full e-mail address');
+    expect(api.sheets.email).not.toHaveBeenCalled();
+  });
+
+  it("shows the server's objection to the address beside the address field", async () => {
+    const objection = 'The mail server refused this address; check the spelling.';
+    jest.mocked(api.sheets.email).mockRejectedValue(new ApiError(400, 'Check the highlighted field.', { to: objection }));
+    renderWithStatus(status([revision(1)], false));
+    const user = userEvent.setup();
+
+    await user.type(screen.getByTestId('sheet-email-to'), 'buyer@purchasing-demo.example');
+    await user.click(screen.getByTestId('sheet-email-submit'));
+
+    expect(await screen.findByTestId('field-error-to')).toHaveTextContent(objection);
+    expect(screen.queryByTestId('sheet-email-sent')).not.toBeInTheDocument();
+  });
+
+  it('sends the address and note, then says which revision went to whom and clears the form', async () => {
+    const to = 'buyer.desk@purchasing-demo.example';
+    const note = 'For the purchase request, please.';
+    const sent: SheetEmailResponse = { revision: revision(5), to, filename: 'sightfan-demo-rev5.pdf' };
+    jest.mocked(api.sheets.email).mockResolvedValue(sent);
+    renderWithStatus(status([revision(4)], true));
+    const user = userEvent.setup();
+
+    await user.type(screen.getByTestId('sheet-email-to'), to);
+    await user.type(screen.getByTestId('sheet-email-note'), note);
+    await user.click(screen.getByTestId('sheet-email-submit'));
+
+    expect(await screen.findByTestId('sheet-email-sent')).toHaveTextContent(`Sheet revision ${sent.revision.number} sent to ${sent.to}.`);
+    await waitFor(() => expect(api.sheets.email).toHaveBeenCalledWith(PROJECT_ID, { to, message: note }));
+    expect(screen.getByTestId('sheet-email-to')).toHaveValue('');
+  });
+});
