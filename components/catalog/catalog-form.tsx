@@ -1,15 +1,14 @@
 import { Formik, type FormikHelpers } from 'formik';
 import { StyleSheet, View } from 'react-native';
 import * as yup from 'yup';
+import { FormFooter } from '@/components/forms/form-footer';
 import { FormFrame } from '@/components/forms/form-frame';
+import { FormikTextField } from '@/components/forms/formik-text-field';
 import { fieldMessage, serverErrorsFor, type FormStatus } from '@/components/forms/server-errors';
 import { SHAPE_LABELS, SHAPE_ORDER } from '@/components/placement/mirror-text';
-import { Button } from '@/components/ui/button';
-import { Notice } from '@/components/ui/notice';
 import { NumberField } from '@/components/ui/number-field';
 import { Segmented } from '@/components/ui/segmented';
 import { AppText } from '@/components/ui/text';
-import { TextField } from '@/components/ui/text-field';
 import { spacing } from '@/constants/theme';
 import { ApiError } from '@/shared/api-client';
 import type { CatalogueItemDto, CreateCatalogueItemBody, MirrorSpec } from '@/shared/schemas';
@@ -173,8 +172,7 @@ export function CatalogForm({ item, units, submitLabel, onSubmit }: CatalogFormP
   return (
     <Formik<CatalogFormValues> initialValues={valuesOf(item)} validationSchema={catalogSchema(units)} onSubmit={submit} enableReinitialize>
       {(form) => {
-        const { values, status, isSubmitting, handleChange, handleBlur, handleSubmit, setFieldValue, setFieldTouched } = form;
-        const formStatus = status as FormStatus | undefined;
+        const { values, handleSubmit, setFieldValue, setFieldTouched } = form;
         const size = (name: 'diameterM' | 'widthM' | 'heightM' | 'radiusM', label: string, testID: string) => (
           <NumberField
             name={name}
@@ -192,13 +190,13 @@ export function CatalogForm({ item, units, submitLabel, onSubmit }: CatalogFormP
           <FormFrame label={submitLabel} onSubmit={handleSubmit} testID="catalog-form">
             <View style={styles.pair}>
               <View style={styles.flex}>
-                <TextField name="code" label="Code" testID="catalog-form-code" value={values.code} onChangeText={handleChange('code')} onBlur={handleBlur('code')} error={fieldMessage(form, 'code')} autoCapitalize="characters" autoCorrect={false} />
+                <FormikTextField form={form} name="code" label="Code" testID="catalog-form-code" autoCapitalize="characters" autoCorrect={false} />
               </View>
               <View style={styles.flex}>
-                <TextField name="currency" label="Currency" testID="catalog-form-currency" value={values.currency} onChangeText={handleChange('currency')} onBlur={handleBlur('currency')} error={fieldMessage(form, 'currency')} autoCapitalize="characters" maxLength={3} />
+                <FormikTextField form={form} name="currency" label="Currency" testID="catalog-form-currency" autoCapitalize="characters" maxLength={3} />
               </View>
             </View>
-            <TextField name="name" label="Name" testID="catalog-form-name" value={values.name} onChangeText={handleChange('name')} onBlur={handleBlur('name')} error={fieldMessage(form, 'name')} />
+            <FormikTextField form={form} name="name" label="Name" testID="catalog-form-name" />
             <View style={styles.field}>
               <AppText variant="label">Shape</AppText>
               <Segmented<Shape>
@@ -242,21 +240,21 @@ export function CatalogForm({ item, units, submitLabel, onSubmit }: CatalogFormP
             )}
             <View style={styles.pair}>
               <View style={styles.flex}>
-                <TextField name="price" label={`Unit price (${values.currency.toUpperCase() || 'currency'})`} testID="catalog-form-price" value={values.price} onChangeText={handleChange('price')} onBlur={handleBlur('price')} error={fieldMessage(form, 'price')} inputMode="decimal" />
+                <FormikTextField form={form} name="price" label={`Unit price (${values.currency.toUpperCase() || 'currency'})`} testID="catalog-form-price" inputMode="decimal" />
               </View>
               <View style={styles.flex}>
-                <TextField name="massKg" label="Mass (kg)" testID="catalog-form-mass" value={values.massKg} onChangeText={handleChange('massKg')} onBlur={handleBlur('massKg')} error={fieldMessage(form, 'massKg')} inputMode="decimal" />
+                <FormikTextField form={form} name="massKg" label="Mass (kg)" testID="catalog-form-mass" inputMode="decimal" />
               </View>
             </View>
             <View style={styles.pair}>
               <View style={styles.flex}>
-                <TextField name="material" label="Material" testID="catalog-form-material" value={values.material} onChangeText={handleChange('material')} onBlur={handleBlur('material')} error={fieldMessage(form, 'material')} />
+                <FormikTextField form={form} name="material" label="Material" testID="catalog-form-material" />
               </View>
               <View style={styles.flex}>
-                <TextField name="reflectancePct" label="Reflectance (%)" testID="catalog-form-reflectance" value={values.reflectancePct} onChangeText={handleChange('reflectancePct')} onBlur={handleBlur('reflectancePct')} error={fieldMessage(form, 'reflectancePct')} inputMode="decimal" />
+                <FormikTextField form={form} name="reflectancePct" label="Reflectance (%)" testID="catalog-form-reflectance" inputMode="decimal" />
               </View>
             </View>
-            <TextField name="notes" label="Notes" testID="catalog-form-notes" value={values.notes} onChangeText={handleChange('notes')} onBlur={handleBlur('notes')} error={fieldMessage(form, 'notes')} multiline numberOfLines={3} />
+            <FormikTextField form={form} name="notes" label="Notes" testID="catalog-form-notes" multiline numberOfLines={3} />
             <View style={styles.field}>
               <AppText variant="label">Offered to installers</AppText>
               <Segmented<'yes' | 'no'>
@@ -269,12 +267,7 @@ export function CatalogForm({ item, units, submitLabel, onSubmit }: CatalogFormP
                 ]}
               />
             </View>
-            {formStatus?.formError ? (
-              <Notice tone="stop" testID="catalog-form-error">
-                {formStatus.formError}
-              </Notice>
-            ) : null}
-            <Button label={submitLabel} testID="catalog-form-submit" onPress={() => handleSubmit()} busy={isSubmitting} block />
+            <FormFooter status={form.status} errorTestID="catalog-form-error" submitLabel={submitLabel} submitTestID="catalog-form-submit" busy={form.isSubmitting} onSubmit={() => handleSubmit()} />
           </FormFrame>
         );
       }}

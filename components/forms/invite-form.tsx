@@ -2,12 +2,14 @@ import { Formik } from 'formik';
 import { useRef } from 'react';
 import { StyleSheet, View, type TextInput } from 'react-native';
 import * as yup from 'yup';
-import { Button, Notice, Segmented, TextField, AppText } from '@/components/ui';
+import { Notice, Segmented, AppText } from '@/components/ui';
 import { roleOptions, shortRoleLabels } from '@/constants/navigation';
 import { spacing } from '@/constants/theme';
 import type { Role } from '@/shared/schemas';
+import { FormFooter } from './form-footer';
 import { FormFrame } from './form-frame';
-import { fieldMessage, serverErrorsFor, type FormStatus } from './server-errors';
+import { FormikTextField } from './formik-text-field';
+import { fieldMessage, submitWithServerErrors, type FormStatus } from './server-errors';
 
 export interface InviteValues {
   email: string;
@@ -37,34 +39,25 @@ export function InviteForm({ onSubmit, sentNote }: InviteFormProps) {
       initialValues={{ email: '', name: '', role: '' }}
       validationSchema={inviteSchema}
       onSubmit={async (values, helpers) => {
-        helpers.setStatus(undefined);
         if (values.role === '') return; // the schema has already refused this
         const body = { email: values.email.trim(), name: values.name.trim(), role: values.role };
-        try {
-          await onSubmit(body);
+        if (await submitWithServerErrors(helpers, ['email', 'name', 'role'], values, () => onSubmit(body))) {
           helpers.resetForm();
           helpers.setStatus({ done: `Invitation sent to ${body.name} <${body.email}>.${sentNote ? ` ${sentNote}` : ''}` } satisfies FormStatus);
-        } catch (error) {
-          const { fieldErrors, status } = serverErrorsFor<InviteValues>(error, ['email', 'name', 'role'], values);
-          helpers.setErrors(fieldErrors);
-          helpers.setStatus(status);
         }
       }}
     >
       {(form) => {
-        const { values, status, isSubmitting, handleChange, handleBlur, handleSubmit, setFieldValue, setFieldTouched } = form;
-        const formStatus = status as FormStatus | undefined;
+        const { values, handleSubmit, setFieldValue, setFieldTouched } = form;
+        const formStatus = form.status as FormStatus | undefined;
         const roleError = fieldMessage(form, 'role');
         return (
           <FormFrame label="Invite someone" onSubmit={handleSubmit} testID="invite-form">
-            <TextField
+            <FormikTextField
+              form={form}
               name="email"
               label="Their e-mail"
               testID="invite-email"
-              value={values.email}
-              onChangeText={handleChange('email')}
-              onBlur={handleBlur('email')}
-              error={fieldMessage(form, 'email')}
               autoComplete="off"
               inputMode="email"
               keyboardType="email-address"
@@ -74,15 +67,12 @@ export function InviteForm({ onSubmit, sentNote }: InviteFormProps) {
               submitBehavior="submit"
               onSubmitEditing={() => nameRef.current?.focus()}
             />
-            <TextField
-              ref={nameRef}
+            <FormikTextField
+              form={form}
+              inputRef={nameRef}
               name="name"
               label="Their name"
               testID="invite-name"
-              value={values.name}
-              onChangeText={handleChange('name')}
-              onBlur={handleBlur('name')}
-              error={fieldMessage(form, 'name')}
               autoComplete="off"
               autoCapitalize="words"
               enterKeyHint="send"
@@ -109,17 +99,13 @@ export function InviteForm({ onSubmit, sentNote }: InviteFormProps) {
                 </AppText>
               ) : null}
             </View>
-            {formStatus?.formError ? (
-              <Notice tone="stop" testID="invite-error">
-                {formStatus.formError}
-              </Notice>
-            ) : null}
-            {formStatus?.done ? (
-              <Notice tone="go" testID="invite-sent">
-                {formStatus.done}
-              </Notice>
-            ) : null}
-            <Button label="Send invitation" testID="invite-submit" onPress={() => handleSubmit()} busy={isSubmitting} block />
+            <FormFooter status={formStatus} errorTestID="invite-error" submitLabel="Send invitation" submitTestID="invite-submit" busy={form.isSubmitting} onSubmit={() => handleSubmit()}>
+              {formStatus?.done ? (
+                <Notice tone="go" testID="invite-sent">
+                  {formStatus.done}
+                </Notice>
+              ) : null}
+            </FormFooter>
           </FormFrame>
         );
       }}

@@ -1,4 +1,4 @@
-import type { FormikErrors, FormikProps } from 'formik';
+import type { FormikErrors, FormikHelpers, FormikProps } from 'formik';
 import { ApiError } from '@/shared/api-client';
 import { describeError } from '@/shared/errors';
 
@@ -50,4 +50,27 @@ export function fieldMessage<Values extends object>(form: FormikProps<Values>, n
   const server = status?.serverFields?.[name];
   if (server && status?.serverValues?.[name] === form.values[name]) return server;
   return undefined;
+}
+
+/**
+ * The submit wiring every form here shares: clear the last attempt's messages, run the request, and
+ * on failure put the server's sentences beside the fields and above the button (serverErrorsFor).
+ * Resolves true when the action succeeded, so a form can reset or say "sent" only then.
+ */
+export async function submitWithServerErrors<Values extends object>(
+  helpers: FormikHelpers<Values>,
+  knownFields: readonly (keyof Values & string)[],
+  values: Values,
+  action: () => Promise<unknown>,
+): Promise<boolean> {
+  helpers.setStatus(undefined);
+  try {
+    await action();
+    return true;
+  } catch (error) {
+    const { fieldErrors, status } = serverErrorsFor<Values>(error, knownFields, values);
+    helpers.setErrors(fieldErrors);
+    helpers.setStatus(status);
+    return false;
+  }
 }

@@ -2,9 +2,11 @@ import { Formik } from 'formik';
 import { useRef } from 'react';
 import type { TextInput } from 'react-native';
 import * as yup from 'yup';
-import { Button, Notice, TextField } from '@/components/ui';
+import { TextField } from '@/components/ui';
+import { FormFooter } from './form-footer';
 import { FormFrame } from './form-frame';
-import { fieldMessage, serverErrorsFor, type FormStatus } from './server-errors';
+import { FormikTextField } from './formik-text-field';
+import { submitWithServerErrors } from './server-errors';
 
 export interface SetPasswordValues {
   password: string;
@@ -33,21 +35,14 @@ export function SetPasswordForm({ email, onSubmit }: SetPasswordFormProps) {
       initialValues={{ password: '', confirm: '' }}
       validationSchema={setPasswordSchema}
       onSubmit={async (values, helpers) => {
-        helpers.setStatus(undefined);
-        try {
-          await onSubmit(values);
-        } catch (error) {
-          const { fieldErrors, status } = serverErrorsFor<SetPasswordValues>(error, ['password', 'confirm'], values);
-          helpers.setErrors(fieldErrors);
-          helpers.setStatus(status);
-        }
+        await submitWithServerErrors(helpers, ['password', 'confirm'], values, () => onSubmit(values));
       }}
     >
       {(form) => {
-        const { values, status, isSubmitting, handleChange, handleBlur, handleSubmit } = form;
-        const formStatus = status as FormStatus | undefined;
+        const { handleSubmit } = form;
         return (
           <FormFrame label="Choose your password" onSubmit={handleSubmit} testID="set-password-form">
+            {/* Not a Formik field: the address is fixed, shown so password managers file the new password under it. */}
             <TextField
               name="username"
               label="E-mail"
@@ -58,15 +53,12 @@ export function SetPasswordForm({ email, onSubmit }: SetPasswordFormProps) {
               autoComplete="username"
               textContentType="username"
             />
-            <TextField
+            <FormikTextField
+              form={form}
               name="password"
               label="New password"
               hint="At least 10 characters. A short sentence is easy to remember and hard to guess."
               testID="set-password-password"
-              value={values.password}
-              onChangeText={handleChange('password')}
-              onBlur={handleBlur('password')}
-              error={fieldMessage(form, 'password')}
               secureTextEntry
               autoComplete="new-password"
               textContentType="newPassword"
@@ -76,15 +68,12 @@ export function SetPasswordForm({ email, onSubmit }: SetPasswordFormProps) {
               submitBehavior="submit"
               onSubmitEditing={() => confirmRef.current?.focus()}
             />
-            <TextField
-              ref={confirmRef}
+            <FormikTextField
+              form={form}
+              inputRef={confirmRef}
               name="confirm"
               label="Type it again"
               testID="set-password-confirm"
-              value={values.confirm}
-              onChangeText={handleChange('confirm')}
-              onBlur={handleBlur('confirm')}
-              error={fieldMessage(form, 'confirm')}
               secureTextEntry
               autoComplete="new-password"
               textContentType="newPassword"
@@ -93,12 +82,14 @@ export function SetPasswordForm({ email, onSubmit }: SetPasswordFormProps) {
               enterKeyHint="go"
               onSubmitEditing={() => handleSubmit()}
             />
-            {formStatus?.formError ? (
-              <Notice tone="stop" testID="set-password-error">
-                {formStatus.formError}
-              </Notice>
-            ) : null}
-            <Button label="Save password and sign in" testID="set-password-submit" onPress={() => handleSubmit()} busy={isSubmitting} block />
+            <FormFooter
+              status={form.status}
+              errorTestID="set-password-error"
+              submitLabel="Save password and sign in"
+              submitTestID="set-password-submit"
+              busy={form.isSubmitting}
+              onSubmit={() => handleSubmit()}
+            />
           </FormFrame>
         );
       }}

@@ -2,9 +2,10 @@ import { Formik } from 'formik';
 import { useRef } from 'react';
 import type { TextInput } from 'react-native';
 import * as yup from 'yup';
-import { Button, Notice, TextField } from '@/components/ui';
+import { FormFooter } from './form-footer';
 import { FormFrame } from './form-frame';
-import { fieldMessage, serverErrorsFor, type FormStatus } from './server-errors';
+import { FormikTextField } from './formik-text-field';
+import { submitWithServerErrors } from './server-errors';
 
 export interface SignInValues {
   email: string;
@@ -30,29 +31,18 @@ export function SignInForm({ onSubmit }: SignInFormProps) {
       initialValues={initialValues}
       validationSchema={signInSchema}
       onSubmit={async (values, helpers) => {
-        helpers.setStatus(undefined);
-        try {
-          await onSubmit({ email: values.email.trim(), password: values.password });
-        } catch (error) {
-          const { fieldErrors, status } = serverErrorsFor<SignInValues>(error, ['email', 'password'], values);
-          helpers.setErrors(fieldErrors);
-          helpers.setStatus(status);
-        }
+        await submitWithServerErrors(helpers, ['email', 'password'], values, () => onSubmit({ email: values.email.trim(), password: values.password }));
       }}
     >
       {(form) => {
-        const { values, status, isSubmitting, handleChange, handleBlur, handleSubmit } = form;
-        const formStatus = status as FormStatus | undefined;
+        const { values, handleSubmit } = form;
         return (
           <FormFrame label="Sign in" onSubmit={handleSubmit} testID="sign-in-form">
-            <TextField
+            <FormikTextField
+              form={form}
               name="email"
               label="E-mail"
               testID="sign-in-email"
-              value={values.email}
-              onChangeText={handleChange('email')}
-              onBlur={handleBlur('email')}
-              error={fieldMessage(form, 'email')}
               autoComplete="email"
               textContentType="username"
               inputMode="email"
@@ -67,15 +57,12 @@ export function SignInForm({ onSubmit }: SignInFormProps) {
               }}
               submitBehavior="submit"
             />
-            <TextField
-              ref={passwordRef}
+            <FormikTextField
+              form={form}
+              inputRef={passwordRef}
               name="password"
               label="Password"
               testID="sign-in-password"
-              value={values.password}
-              onChangeText={handleChange('password')}
-              onBlur={handleBlur('password')}
-              error={fieldMessage(form, 'password')}
               secureTextEntry
               autoComplete="current-password"
               textContentType="password"
@@ -84,12 +71,7 @@ export function SignInForm({ onSubmit }: SignInFormProps) {
               enterKeyHint="go"
               onSubmitEditing={() => handleSubmit()}
             />
-            {formStatus?.formError ? (
-              <Notice tone="stop" testID="sign-in-error">
-                {formStatus.formError}
-              </Notice>
-            ) : null}
-            <Button label="Sign in" testID="sign-in-submit" onPress={() => handleSubmit()} busy={isSubmitting} block />
+            <FormFooter status={form.status} errorTestID="sign-in-error" submitLabel="Sign in" submitTestID="sign-in-submit" busy={form.isSubmitting} onSubmit={() => handleSubmit()} />
           </FormFrame>
         );
       }}

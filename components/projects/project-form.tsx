@@ -2,13 +2,12 @@ import { Formik } from 'formik';
 import { useRef } from 'react';
 import { StyleSheet, View, type TextInput } from 'react-native';
 import * as yup from 'yup';
+import { FormFooter } from '@/components/forms/form-footer';
 import { FormFrame } from '@/components/forms/form-frame';
-import { fieldMessage, serverErrorsFor, type FormStatus } from '@/components/forms/server-errors';
-import { Button } from '@/components/ui/button';
-import { Notice } from '@/components/ui/notice';
+import { FormikTextField } from '@/components/forms/formik-text-field';
+import { submitWithServerErrors } from '@/components/forms/server-errors';
 import { Segmented } from '@/components/ui/segmented';
 import { AppText } from '@/components/ui/text';
-import { TextField } from '@/components/ui/text-field';
 import { spacing } from '@/constants/theme';
 import type { CreateProjectBody } from '@/shared/schemas';
 import type { UnitSystem } from '@/shared/units';
@@ -52,56 +51,39 @@ export function ProjectForm({ onSubmit, myUnits }: ProjectFormProps) {
       initialValues={{ name: '', customer: '', site: '', units: 'mine', notes: '' }}
       validationSchema={projectSchema}
       onSubmit={async (values, helpers) => {
-        helpers.setStatus(undefined);
-        try {
-          await onSubmit(toCreateBody(values));
-        } catch (error) {
-          const { fieldErrors, status } = serverErrorsFor<ProjectFormValues>(error, [...FIELDS], values);
-          helpers.setErrors(fieldErrors);
-          helpers.setStatus(status);
-        }
+        await submitWithServerErrors(helpers, FIELDS, values, () => onSubmit(toCreateBody(values)));
       }}
     >
       {(form) => {
-        const { values, status, isSubmitting, handleChange, handleBlur, handleSubmit, setFieldValue } = form;
-        const formStatus = status as FormStatus | undefined;
+        const { values, handleSubmit, setFieldValue } = form;
         return (
           <FormFrame label="New project" onSubmit={handleSubmit} testID="project-form">
-            <TextField
+            <FormikTextField
+              form={form}
               name="name"
               label="Project name"
               testID="project-form-name"
-              value={values.name}
-              onChangeText={handleChange('name')}
-              onBlur={handleBlur('name')}
-              error={fieldMessage(form, 'name')}
               placeholder="e.g. Dock 3 cross-aisle"
               enterKeyHint="next"
               submitBehavior="submit"
               onSubmitEditing={() => customerRef.current?.focus()}
             />
-            <TextField
-              ref={customerRef}
+            <FormikTextField
+              form={form}
+              inputRef={customerRef}
               name="customer"
               label="Customer"
               testID="project-form-customer"
-              value={values.customer}
-              onChangeText={handleChange('customer')}
-              onBlur={handleBlur('customer')}
-              error={fieldMessage(form, 'customer')}
               enterKeyHint="next"
               submitBehavior="submit"
               onSubmitEditing={() => siteRef.current?.focus()}
             />
-            <TextField
-              ref={siteRef}
+            <FormikTextField
+              form={form}
+              inputRef={siteRef}
               name="site"
               label="Site or vehicle"
               testID="project-form-site"
-              value={values.site}
-              onChangeText={handleChange('site')}
-              onBlur={handleBlur('site')}
-              error={fieldMessage(form, 'site')}
               placeholder="Address, building, or the vehicle's fleet number"
               enterKeyHint="done"
             />
@@ -122,23 +104,22 @@ export function ProjectForm({ onSubmit, myUnits }: ProjectFormProps) {
                 ]}
               />
             </View>
-            <TextField
+            <FormikTextField
+              form={form}
               name="notes"
               label="Notes"
               testID="project-form-notes"
-              value={values.notes}
-              onChangeText={handleChange('notes')}
-              onBlur={handleBlur('notes')}
-              error={fieldMessage(form, 'notes')}
               multiline
               numberOfLines={4}
             />
-            {formStatus?.formError ? (
-              <Notice tone="stop" testID="project-form-error">
-                {formStatus.formError}
-              </Notice>
-            ) : null}
-            <Button label="Create project" testID="project-form-submit" onPress={() => handleSubmit()} busy={isSubmitting} block />
+            <FormFooter
+              status={form.status}
+              errorTestID="project-form-error"
+              submitLabel="Create project"
+              submitTestID="project-form-submit"
+              busy={form.isSubmitting}
+              onSubmit={() => handleSubmit()}
+            />
           </FormFrame>
         );
       }}
