@@ -10,7 +10,7 @@ import { formatAngle, formatArea, formatLength, formatNumber, formatPercent, typ
 export interface PlacementNumbersPanelProps {
   evaluation: EvaluatedPlacement | null;
   /** Zone fractions from evaluateProject run with this placement's current (draft) values. */
-  zones: readonly (EvaluatedZone & { problem?: string | null })[];
+  zones: readonly EvaluatedZone[];
   scene: Scene;
   units: UnitSystem;
 }

@@ -10,7 +10,7 @@ import { TextField } from '@/components/ui/text-field';
 import { palette, spacing } from '@/constants/theme';
 import { useRemovePlacementMutation } from '@/hooks/use-projects';
 import { describeError } from '@/shared/errors';
-import { evaluatePlacement, evaluateProject, wallsOfScene, DEFAULT_MIN_ANGLE_RAD, type EvaluatedPlacement, type EvaluatedZone } from '@/shared/project-optics';
+import { ProjectEvaluator, type EvaluatedPlacement, type EvaluatedZone } from '@/shared/project-optics';
 import type { CatalogueItemDto, PlacementDto, ProjectDto } from '@/shared/schemas';
 import { formatAngle, formatLength, type UnitSystem } from '@/shared/units';
 import { ChoiceChips } from './choice-chips';
@@ -41,19 +41,15 @@ export function PlacementEditor(props: PlacementEditorProps) {
   return <PlacementEditorInner key={`${props.project.id}:${props.placementId}`} {...props} />;
 }
 
-/** Every placement as saved, with this one's draft in its place: the numbers follow typing. */
-export function evaluateDraft(project: ProjectDto, draft: PlacementDto, catalogue: readonly CatalogueItemDto[]): { evaluation: EvaluatedPlacement; zones: (EvaluatedZone & { problem?: string | null })[] } {
+/**
+ * Every placement as saved, with this one's draft in its place: the numbers follow typing. A zone
+ * whose share cannot be computed carries the evaluator's sentence instead of a number.
+ */
+export function evaluateDraft(project: ProjectDto, draft: PlacementDto, catalogue: readonly CatalogueItemDto[]): { evaluation: EvaluatedPlacement; zones: EvaluatedZone[] } {
   const placements = project.placements.map((p) => (p.id === draft.id ? draft : p));
-  try {
-    const all = evaluateProject({ scene: project.scene, placements, catalogue });
-    const evaluation = all.placements.find((e) => e.placementId === draft.id) ?? all.placements[0];
-    return { evaluation, zones: all.zones };
-  } catch {
-    // Zone clipping can fail on near-degenerate shapes: keep this mirror's own numbers, explain the zones.
-    const evaluation = evaluatePlacement({ placement: draft, scene: project.scene, catalogue, walls: wallsOfScene(project.scene), minAngleRad: DEFAULT_MIN_ANGLE_RAD });
-    const zones = project.scene.zones.map((z) => ({ zoneId: z.id, fraction: Number.NaN, coveredM2: 0, problem: 'Could not be computed for these positions.' }));
-    return { evaluation, zones };
-  }
+  const all = new ProjectEvaluator().evaluate({ scene: project.scene, placements, catalogue });
+  const evaluation = all.placements.find((e) => e.placementId === draft.id) ?? all.placements[0];
+  return { evaluation, zones: all.zones };
 }
 
 function PlacementEditorInner({ project, placementId, catalogue, units, canEdit, onClose }: PlacementEditorProps) {

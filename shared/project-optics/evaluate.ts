@@ -14,7 +14,6 @@ import {
   recognisableRange,
   rimSqueeze,
   sphereRadiusM,
-  zoneCoverage,
   type CoverageResult,
   type Mirror,
   type MultiPolygon,
@@ -56,8 +55,13 @@ export interface EvaluatedPlacement {
 
 export interface EvaluatedZone {
   zoneId: string;
+  /** Share of the zone seen, 0..1; NaN only together with `problem`. */
   fraction: number;
   coveredM2: number;
+  /** The union of every placement's region for this zone's target (what is seen), for drawing the gap. */
+  covered: MultiPolygon;
+  /** Why the share could not be computed (a boolean operation failed), as a sentence; else null. */
+  problem: string | null;
 }
 
 export interface ProjectEvaluation {
@@ -104,7 +108,7 @@ function problemOf(e: unknown): { field: string; message: string } {
   return { field: '_', message: 'These values cannot be computed; check the mirror, its position and its viewer.' };
 }
 
-interface PlacementInput {
+interface EvaluatePlacementInput {
   placement: Pick<PlacementDto, 'id' | 'catalogueItemId' | 'customMirror' | 'positionM' | 'heightM' | 'azimuthRad' | 'tiltDownRad' | 'viewerId'>;
   scene: Scene;
   catalogue: readonly CatalogueItemDto[];
@@ -114,7 +118,7 @@ interface PlacementInput {
   maxRangeM?: number;
 }
 
-export function evaluatePlacement(input: PlacementInput): EvaluatedPlacement {
+export function evaluatePlacement(input: EvaluatePlacementInput): EvaluatedPlacement {
   const { placement: p, scene } = input;
   const out: EvaluatedPlacement = { placementId: p.id, mirror: null, pose: null, eyeM: null, viewer: null, numbers: null, coverage: null, problem: null };
   out.mirror = mirrorOfPlacement(p, input.catalogue);
@@ -135,42 +139,4 @@ export function evaluatePlacement(input: PlacementInput): EvaluatedPlacement {
     out.coverage = null;
   }
   return out;
-}
-
-/**
- * Every placement's numbers and coverage, and each zone's covered fraction. A zone counts the
- * union of all placements' regions, each clipped at the recognisable range for that zone's target.
- */
-export function evaluateProject(input: {
-  scene: Scene;
-  placements: readonly PlacementInput['placement'][];
-  catalogue: readonly CatalogueItemDto[];
-  minAngleRad?: number;
-}): ProjectEvaluation {
-  const minAngleRad = input.minAngleRad ?? DEFAULT_MIN_ANGLE_RAD;
-  const walls = wallsOfScene(input.scene);
-  const base = { scene: input.scene, catalogue: input.catalogue, walls, minAngleRad };
-  const placements = input.placements.map((placement) => evaluatePlacement({ ...base, placement }));
-
-  const regionsFor = new Map<string, MultiPolygon[]>();
-  const regionsForTarget = (t: ZoneTarget): MultiPolygon[] => {
-    const key = t.kind === 'custom' ? `custom:${t.heightM}` : t.kind;
-    const hit = regionsFor.get(key);
-    if (hit) return hit;
-    const regions = placements.flatMap((ev, i) => {
-      if (!ev.numbers || !ev.coverage) return [];
-      if (t.kind === 'adult') return [ev.coverage.region];
-      const range = recognisableRange({ radiusM: ev.numbers.radiusM, eyeDistanceM: ev.numbers.eyeDistanceM, targetSizeM: targetHeightM(t), minAngleRad }).rangeM;
-      const again = evaluatePlacement({ ...base, placement: input.placements[i], maxRangeM: range });
-      return again.coverage ? [again.coverage.region] : [];
-    });
-    regionsFor.set(key, regions);
-    return regions;
-  };
-
-  const zones = input.scene.zones.map((z) => {
-    const { fraction, coveredM2 } = zoneCoverage({ zone: [z.polygonM], regions: regionsForTarget(z.target) });
-    return { zoneId: z.id, fraction, coveredM2 };
-  });
-  return { placements, zones };
 }

@@ -1,4 +1,4 @@
-import { PlanEvaluator, type PlanPlacement } from '@/hooks/use-plan-evaluation';
+import { ProjectEvaluator as PlanEvaluator, type PlacementInput as PlanPlacement } from '@/shared/project-optics';
 import { evaluateProject } from '@/shared/project-optics';
 import type { CatalogueItemDto, Scene } from '@/shared/schemas';
 import { DEMO_PROJECT } from '../../server/seeders/demo-project';

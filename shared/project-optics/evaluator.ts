@@ -1,0 +1,165 @@
+/**
+ * The cache-aware evaluation behind evaluateProject: each placement through the engine once per
+ * distinct input, and each zone's covered share from the union of the placements' regions,
+ * clipped at the recognisable range for that zone's target. The union of all mirrors but the one
+ * being moved is kept, so a drag costs one boolean operation a frame instead of thirty.
+ */
+import { recognisableRange, zoneCoverage, type MultiPolygon } from '../optics';
+import { robustUnion } from '../geometry/robust-boolean';
+import type { CatalogueItemDto, PlacementDto, Scene, ZoneTarget } from '../schemas';
+import { evaluatePlacement, wallsOfScene, type EvaluatedPlacement, type EvaluatedZone, type ProjectEvaluation } from './evaluate';
+import { DEFAULT_MIN_ANGLE_RAD, targetHeightM } from './targets';
+
+export type PlacementInput = Pick<PlacementDto, 'id' | 'catalogueItemId' | 'customMirror' | 'positionM' | 'heightM' | 'azimuthRad' | 'tiltDownRad' | 'viewerId'>;
+
+interface CacheEntry {
+  /** Walls are what make a placement's evaluation expensive; viewers are part of each key instead. */
+  walls: Scene['walls'];
+  /** The same walls arrive as a new array after every save; compare their content then. */
+  wallsJson: string;
+  catalogue: readonly CatalogueItemDto[];
+  minAngleRad: number;
+  byKey: Map<string, EvaluatedPlacement>;
+}
+
+function placementKey(p: PlacementInput, scene: Scene, maxRangeM?: number): string {
+  const viewer = scene.viewers.find((v) => v.id === p.viewerId) ?? null;
+  return JSON.stringify([p.id, p.catalogueItemId, p.customMirror, p.positionM, p.heightM, p.azimuthRad, p.tiltDownRad, p.viewerId, viewer, maxRangeM ?? null]);
+}
+
+function targetKey(t: ZoneTarget): string {
+  return t.kind === 'custom' ? `custom:${t.heightM}` : t.kind;
+}
+
+interface UnionCache {
+  parts: MultiPolygon[];
+  /** Index of the one region left out of `rest` (the mirror being dragged), or -1. */
+  restIdx: number;
+  rest: MultiPolygon;
+  merged: MultiPolygon;
+}
+
+function unionAll(regions: readonly MultiPolygon[]): MultiPolygon {
+  const nonEmpty = regions.filter((r) => r.length > 0);
+  if (nonEmpty.length === 0) return [];
+  if (nonEmpty.length === 1) return nonEmpty[0];
+  return robustUnion(nonEmpty[0], ...nonEmpty.slice(1));
+}
+
+/**
+ * Evaluates a project's placements and zones, keeping each placement's result keyed by its inputs
+ * so an evaluator reused between calls (the plan, while a mirror is dragged) recomputes only what
+ * changed. New walls, catalogue or angle empty the cache. A fresh evaluator is evaluateProject.
+ */
+export class ProjectEvaluator {
+  private cache: CacheEntry | null = null;
+  private unions = new Map<string, UnionCache>();
+
+  /**
+   * The union of all regions for one target. While a single mirror moves, the others' union is
+   * kept and only joined with the moving one: one boolean operation a frame instead of thirty.
+   */
+  private unionFor(key: string, regions: MultiPolygon[]): MultiPolygon {
+    const prev = this.unions.get(key);
+    if (prev && prev.parts.length === regions.length) {
+      const changed = regions.flatMap((r, i) => (r !== prev.parts[i] ? [i] : []));
+      if (changed.length === 0) return prev.merged;
+      if (changed.length === 1) {
+        const i = changed[0];
+        const rest = i === prev.restIdx ? prev.rest : unionAll(regions.filter((_, j) => j !== i));
+        const merged = unionAll([rest, regions[i]]);
+        this.unions.set(key, { parts: regions, restIdx: i, rest, merged });
+        return merged;
+      }
+    }
+    const merged = unionAll(regions);
+    this.unions.set(key, { parts: regions, restIdx: -1, rest: [], merged });
+    return merged;
+  }
+
+  /**
+   * Builds, ahead of a drag, the union of every region but placement `index`'s, so the drag's
+   * first frame costs no more than the others. Called when a mirror is selected.
+   */
+  prepareDrag(index: number): void {
+    for (const [key, u] of this.unions) {
+      if (u.restIdx === index || index < 0 || index >= u.parts.length) continue;
+      try {
+        this.unions.set(key, { ...u, restIdx: index, rest: unionAll(u.parts.filter((_, j) => j !== index)) });
+      } catch {
+        // The drag will simply build it on its first frame.
+      }
+    }
+  }
+
+  evaluate(input: { scene: Scene; placements: readonly PlacementInput[]; catalogue: readonly CatalogueItemDto[]; minAngleRad?: number }): ProjectEvaluation {
+    const minAngleRad = input.minAngleRad ?? DEFAULT_MIN_ANGLE_RAD;
+    if (this.cache && this.cache.walls !== input.scene.walls) {
+      const json = JSON.stringify(input.scene.walls);
+      if (json === this.cache.wallsJson) this.cache.walls = input.scene.walls;
+      else this.cache = null;
+    }
+    if (!this.cache || this.cache.catalogue !== input.catalogue || this.cache.minAngleRad !== minAngleRad) {
+      this.cache = { walls: input.scene.walls, wallsJson: JSON.stringify(input.scene.walls), catalogue: input.catalogue, minAngleRad, byKey: new Map() };
+    }
+    const cache = this.cache;
+    const walls = wallsOfScene(input.scene);
+    const base = { scene: input.scene, catalogue: input.catalogue, walls, minAngleRad };
+    const used = new Map<string, EvaluatedPlacement>();
+    const one = (placement: PlacementInput, maxRangeM?: number): EvaluatedPlacement => {
+      const key = placementKey(placement, input.scene, maxRangeM);
+      const hit = cache.byKey.get(key) ?? evaluatePlacement({ ...base, placement, maxRangeM });
+      used.set(key, hit);
+      return hit;
+    };
+
+    const placements = input.placements.map((p) => one(p));
+    // One region per placement, [] where it has none, so positions stay stable between frames.
+    const regionsFor = new Map<string, MultiPolygon[]>();
+    const regionsForTarget = (t: ZoneTarget): MultiPolygon[] => {
+      const key = targetKey(t);
+      const hit = regionsFor.get(key);
+      if (hit) return hit;
+      const regions = placements.map((ev, i): MultiPolygon => {
+        if (!ev.numbers || !ev.coverage) return [];
+        if (t.kind === 'adult') return ev.coverage.region;
+        const range = recognisableRange({ radiusM: ev.numbers.radiusM, eyeDistanceM: ev.numbers.eyeDistanceM, targetSizeM: targetHeightM(t), minAngleRad }).rangeM;
+        return one(input.placements[i], range).coverage?.region ?? [];
+      });
+      regionsFor.set(key, regions);
+      return regions;
+    };
+
+    const zones = input.scene.zones.map((z): EvaluatedZone => {
+      try {
+        const covered = this.unionFor(targetKey(z.target), regionsForTarget(z.target));
+        // zoneCoverage unions its regions itself; handing it the one union already made is the same set.
+        const { fraction, coveredM2 } = zoneCoverage({ zone: [z.polygonM], regions: [covered] });
+        return { zoneId: z.id, fraction, coveredM2, covered, problem: null };
+      } catch {
+        // polygon-clipping can fail on near-degenerate input; say so rather than stop the plan.
+        return { zoneId: z.id, fraction: Number.NaN, coveredM2: 0, covered: [], problem: 'The covered share of this zone could not be computed for these positions.' };
+      }
+    });
+    // Keep only what this evaluation used, so a long drag does not grow the cache without bound.
+    cache.byKey = used;
+    return { placements, zones };
+  }
+}
+
+/**
+ * Every placement's numbers and coverage, and each zone's covered fraction. A zone counts the
+ * union of all placements' regions, each clipped at the recognisable range for that zone's target.
+ * Throws when a zone's share cannot be computed (a sheet must never show a blank share).
+ */
+export function evaluateProject(input: {
+  scene: Scene;
+  placements: readonly PlacementInput[];
+  catalogue: readonly CatalogueItemDto[];
+  minAngleRad?: number;
+}): ProjectEvaluation {
+  const evaluation = new ProjectEvaluator().evaluate(input);
+  const failed = evaluation.zones.find((z) => z.problem);
+  if (failed) throw new Error(`Zone ${failed.zoneId}: ${failed.problem}`);
+  return evaluation;
+}
