@@ -1,7 +1,8 @@
 import type { ReactNode } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
-import { AppText, PageTitle, Wordmark } from '@/components/ui';
+import { AppText, Wordmark } from '@/components/ui';
+import { ScreenHeading } from '@/components/ui/screen-heading';
 import { layout, palette, spacing } from '@/constants/theme';
 import { useIsWide } from '@/hooks/use-breakpoint';
 import { FanIllustration } from './fan-illustration';
@@ -18,19 +19,7 @@ const TAGLINE = 'Size convex safety mirrors, show the zone each one covers, and 
 export function AuthFrame({ title, lead, children }: AuthFrameProps) {
   const wide = useIsWide();
   const insets = useSafeAreaInsets();
-  const heading = (
-    <View style={styles.heading}>
-      <PageTitle title={title} />
-      <AppText variant={wide ? 'display' : 'title'} role="heading" aria-level={1} testID="screen-title">
-        {title}
-      </AppText>
-      {lead ? (
-        <AppText variant="body" tone="muted">
-          {lead}
-        </AppText>
-      ) : null}
-    </View>
-  );
+  const heading = <ScreenHeading title={title} lead={lead} />;
 
   if (wide) {
     return (
@@ -82,7 +71,6 @@ const styles = StyleSheet.create({
   formSide: { flex: 1 },
   formSideContent: { flexGrow: 1, justifyContent: 'center', padding: spacing.xxxl },
   formColumn: { width: '100%', maxWidth: layout.formMaxWidth, alignSelf: 'center', gap: spacing.xl },
-  heading: { gap: spacing.sm },
   narrowRoot: { flex: 1, backgroundColor: palette.chalk },
   phoneBand: { backgroundColor: palette.asphalt, paddingHorizontal: spacing.lg, paddingBottom: spacing.xl, gap: spacing.md },
   phoneForm: { padding: spacing.lg, gap: spacing.xl },

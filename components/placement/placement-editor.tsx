@@ -12,6 +12,7 @@ import { useRemovePlacementMutation } from '@/hooks/use-projects';
 import { describeError } from '@/shared/errors';
 import { ProjectEvaluator, type EvaluatedPlacement, type EvaluatedZone } from '@/shared/project-optics';
 import type { CatalogueItemDto, PlacementDto, ProjectDto } from '@/shared/schemas';
+import { PLACEMENT_LIMITS } from '@/shared/schemas/limits';
 import { formatAngle, formatLength, type UnitSystem } from '@/shared/units';
 import { ChoiceChips } from './choice-chips';
 import { ElevationView } from './elevation-view';
@@ -134,8 +135,8 @@ function PlacementEditorInner({ project, placementId, catalogue, units, canEdit,
         onChangeValue={(v) => v !== null && set({ heightM: v })}
         editable={canEdit}
         step={heightStep}
-        min={0.2}
-        max={30}
+        min={PLACEMENT_LIMITS.heightM.min}
+        max={PLACEMENT_LIMITS.heightM.max}
         error={e.heightM}
       />
       <NumberField
@@ -148,8 +149,8 @@ function PlacementEditorInner({ project, placementId, catalogue, units, canEdit,
         onChangeValue={(v) => v !== null && set({ azimuthRad: v })}
         editable={canEdit}
         step={5 * DEG}
-        min={-4 * Math.PI}
-        max={4 * Math.PI}
+        min={PLACEMENT_LIMITS.azimuthRad.min}
+        max={PLACEMENT_LIMITS.azimuthRad.max}
         error={e.azimuthRad}
       />
       <NumberField
@@ -162,8 +163,8 @@ function PlacementEditorInner({ project, placementId, catalogue, units, canEdit,
         onChangeValue={(v) => v !== null && set({ tiltDownRad: v })}
         editable={canEdit}
         step={1 * DEG}
-        min={-90 * DEG}
-        max={90 * DEG}
+        min={PLACEMENT_LIMITS.tiltDownRad.min}
+        max={PLACEMENT_LIMITS.tiltDownRad.max}
         error={e.tiltDownRad}
       />
       <View style={styles.pair}>

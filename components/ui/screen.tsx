@@ -2,8 +2,7 @@ import type { ReactNode } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
 import { layout, palette, spacing } from '@/constants/theme';
 import { useIsWide } from '@/hooks/use-breakpoint';
-import { PageTitle } from './page-title';
-import { AppText } from './text';
+import { ScreenHeading } from './screen-heading';
 
 export interface ScreenProps {
   title: string;
@@ -25,19 +24,9 @@ export function Screen({ title, lead, children, footer, width = 'default' }: Scr
   const columnStyle = [styles.column, width === 'narrow' && styles.narrow, width === 'full' && styles.full];
   return (
     <View style={styles.root}>
-      <PageTitle title={title} />
       <ScrollView contentContainerStyle={[styles.scroll, wide && styles.scrollWide]} keyboardShouldPersistTaps="handled">
         <View style={columnStyle}>
-          <View style={styles.header}>
-            <AppText variant={wide ? 'display' : 'title'} role="heading" aria-level={1} testID="screen-title">
-              {title}
-            </AppText>
-            {lead ? (
-              <AppText variant="body" tone="muted">
-                {lead}
-              </AppText>
-            ) : null}
-          </View>
+          <ScreenHeading title={title} lead={lead} />
           {children}
           {footer && wide ? <View style={styles.footerInline}>{footer}</View> : null}
         </View>
@@ -54,7 +43,6 @@ const styles = StyleSheet.create({
   column: { width: '100%', maxWidth: layout.contentMaxWidth, alignSelf: 'center', gap: spacing.xl },
   narrow: { maxWidth: 640 },
   full: { maxWidth: 1280 },
-  header: { gap: spacing.sm },
   footerInline: { flexDirection: 'row', gap: spacing.md },
   footerPinned: {
     padding: spacing.lg,

@@ -3,3 +3,4 @@ export * from './auth';
 export * from './catalog';
 export * from './projects';
 export * from './sheets';
+export * from './limits';

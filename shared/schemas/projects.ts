@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { unitSystem } from './common';
 import { checkedMirrorSpec } from './catalog';
 import { isSimpleRing } from '../geometry/polygon';
+import { PLACEMENT_LIMITS } from './limits';
 
 const MAX_SITE_M = 2000;
 const coord = z.number({ message: 'Enter a position.' }).finite('Positions must be numbers.').min(-MAX_SITE_M, 'That point is more than 2 km from the origin.').max(MAX_SITE_M, 'That point is more than 2 km from the origin.');
@@ -105,9 +106,12 @@ const placementFields = {
   catalogueItemId: z.number().int().positive().nullable(),
   customMirror: checkedMirrorSpec.nullable(),
   positionM: pair,
-  heightM: z.number({ message: 'Enter the mounting height.' }).min(0.2, 'Mount the mirror at least 0.2 m above the floor.').max(30, 'A mounting height over 30 m is out of range.'),
-  azimuthRad: angle('aim direction', -4 * Math.PI, 4 * Math.PI),
-  tiltDownRad: angle('tilt', -Math.PI / 2, Math.PI / 2),
+  heightM: z
+    .number({ message: 'Enter the mounting height.' })
+    .min(PLACEMENT_LIMITS.heightM.min, 'Mount the mirror at least 0.2 m above the floor.')
+    .max(PLACEMENT_LIMITS.heightM.max, 'A mounting height over 30 m is out of range.'),
+  azimuthRad: angle('aim direction', PLACEMENT_LIMITS.azimuthRad.min, PLACEMENT_LIMITS.azimuthRad.max),
+  tiltDownRad: angle('tilt', PLACEMENT_LIMITS.tiltDownRad.min, PLACEMENT_LIMITS.tiltDownRad.max),
   viewerId: sceneId.nullable(),
   notes: z.string().max(2000, 'Keep the notes to 2,000 characters.'),
 };

@@ -5,32 +5,16 @@ import { api } from '@/hooks/api';
 import { projectKeys, useProjectQuery } from '@/hooks/use-projects';
 import { ApiError } from '@/shared/api-client';
 import { evaluateProject } from '@/shared/project-optics';
-import type { CatalogueItemDto, PlacementDto, ProjectDto } from '@/shared/schemas';
+import type { PlacementDto, ProjectDto } from '@/shared/schemas';
 import { formatLength } from '@/shared/units';
 import { makeTestQueryClient, renderWithQuery } from './render';
+import { TEST_CATALOGUE } from './fixtures';
 
 jest.mock('@/hooks/api', () => ({
   api: { projects: { get: jest.fn(), updatePlacement: jest.fn(), removePlacement: jest.fn(), list: jest.fn() } },
 }));
 
-const catalogue: CatalogueItemDto[] = [
-  {
-    id: 1,
-    code: 'T-600',
-    name: 'Test round 600 (demo)',
-    mirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 },
-    material: '',
-    reflectance: null,
-    massKg: null,
-    unitPriceMinor: 12900,
-    currency: 'EUR',
-    notes: '',
-    active: true,
-    demo: true,
-    version: 1,
-    updatedAt: '2025-01-01T00:00:00.000Z',
-  },
-];
+const catalogue = TEST_CATALOGUE;
 const placement: PlacementDto = {
   id: 7,
   projectId: 3,

@@ -2,28 +2,12 @@ import '@testing-library/jest-dom';
 import { render, screen } from '@testing-library/react';
 import { PlacementNumbersPanel, rimSqueezeText } from '@/components/placement/numbers-panel';
 import { evaluateProject } from '@/shared/project-optics';
-import type { CatalogueItemDto, PlacementDto, Scene } from '@/shared/schemas';
+import type { PlacementDto, Scene } from '@/shared/schemas';
 import { formatAngle, formatArea, formatLength, formatNumber, formatPercent, type UnitSystem } from '@/shared/units';
+import { TEST_CATALOGUE } from './fixtures';
 
 // An invented aisle: a viewer 6 m from a 600 mm round mirror on a 0.8 m sphere, mounted at 2.6 m.
-const catalogue: CatalogueItemDto[] = [
-  {
-    id: 1,
-    code: 'T-600',
-    name: 'Test round 600 (demo)',
-    mirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 },
-    material: '',
-    reflectance: null,
-    massKg: null,
-    unitPriceMinor: 12900,
-    currency: 'EUR',
-    notes: '',
-    active: true,
-    demo: true,
-    version: 1,
-    updatedAt: '2025-01-01T00:00:00.000Z',
-  },
-];
+const catalogue = TEST_CATALOGUE;
 const scene: Scene = {
   walls: [],
   zones: [{ id: 'z1', name: 'Crossing', polygonM: [[2, -3], [8, -3], [8, 3], [2, 3]], target: { kind: 'adult' } }],
