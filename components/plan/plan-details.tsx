@@ -169,10 +169,8 @@ function ProjectSummary(p: PlanDetailsProps) {
           </ListRow>
         ))}
       </Section>
-      <Section title="Specification sheet">
-        <SheetActions projectId={p.project.id} canEdit={p.project.canEdit} />
-      </Section>
       <SafetyCautions compact />
+      <SheetActions projectId={p.project.id} canEdit={p.project.canEdit} />
     </View>
   );
 }

@@ -69,6 +69,12 @@ export function PlanSheet(p: PlanSheetProps) {
             <AppText variant="small" tone="muted" numberOfLines={p.open ? 2 : 1} testID="sheet-numbers">
               {numbers}
             </AppText>
+            {p.open ? null : (
+              // The plan shows coverage, so the caution stays in view while the details are folded away.
+              <AppText variant="small" tone="stop" numberOfLines={2} testID="sheet-caution">
+                Mirrors show things smaller and farther away than they are. Read the cautions under Details.
+              </AppText>
+            )}
           </View>
           <AppText variant="label" tone="glass">
             {p.open ? 'Less ▾' : 'Details ▴'}
