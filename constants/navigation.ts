@@ -2,6 +2,7 @@
  * Which sections each role sees. The (app) layout draws its tabs or rail from this list and sends
  * anyone who types a section's URL that their role does not include back to their own home.
  */
+import type { Href } from 'expo-router';
 import type { Role } from '@/shared/schemas';
 
 export type NavKey = 'projects' | 'catalog' | 'reviews' | 'users' | 'outbox' | 'account';
@@ -9,8 +10,8 @@ export type NavKey = 'projects' | 'catalog' | 'reviews' | 'users' | 'outbox' | '
 export interface NavItem {
   key: NavKey;
   label: string;
-  /** The URL path, also what a pathname is matched against. */
-  href: '/projects' | '/catalog' | '/reviews' | '/users' | '/outbox' | '/account';
+  /** The URL path, checked against the app's routes (typed routes), also what a pathname is matched against. */
+  href: Extract<Href, string>;
   roles: readonly Role[];
 }
 
