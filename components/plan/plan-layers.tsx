@@ -9,12 +9,10 @@ import type { EvaluatedPlacement } from '@/shared/project-optics';
 import type { PlacementDto, SceneViewer, SceneWall, SceneZone } from '@/shared/schemas';
 import { formatPercent } from '@/shared/units';
 import { alongAzimuth, multiPolygonToPath, ringsToPath } from './plan-geometry';
-import { toScreen, type PairM, type PlanView } from './plan-view';
+import { AIM_HANDLE_PX, MARKER_RADIUS_PX, toScreen, type PairM, type PlanView } from './plan-view';
 import { bandColours, bandWords, zoneBand } from './zone-quality';
 
 export const GAP_HATCH_ID = 'plan-gap-hatch';
-export const AIM_HANDLE_PX = 64;
-export const MARKER_RADIUS_PX = 14;
 /** Pixels per metre from which viewer names are drawn. */
 export const NAME_MIN_SCALE = 14;
 

@@ -18,6 +18,11 @@ export interface Size {
   height: number;
 }
 
+/** Length of the aim handle drawn from the selected mirror, pixels. */
+export const AIM_HANDLE_PX = 64;
+/** Radius of a mirror's marker, pixels. */
+export const MARKER_RADIUS_PX = 14;
+
 export const MIN_SCALE = 2;
 export const MAX_SCALE = 400;
 

@@ -1,0 +1,59 @@
+/**
+ * What lies under a point on the plan, in screen pixels: the aim handle of the selected mirror
+ * first, then the nearest mirror or viewer marker, then a wall, then the topmost zone. Pure, so
+ * it is tested without a renderer.
+ */
+import type { PlacementDto, Scene } from '@/shared/schemas';
+import { alongAzimuth } from './plan-geometry';
+import { AIM_HANDLE_PX, MARKER_RADIUS_PX, distanceToSegment, insideRing, toPlan, toScreen, type PairM, type PlanView } from './plan-view';
+import type { PlanSelection } from './plan-types';
+
+/** Finger-sized pick radius (the 48 px target rule, halved). */
+export const PICK_PX = 24;
+/** How close to a wall's line a tap must be to pick the wall. */
+export const WALL_PICK_PX = 10;
+
+export interface HitContext {
+  scene: Scene;
+  placements: readonly PlacementDto[];
+  selection: PlanSelection;
+  canEdit: boolean;
+}
+
+export interface Hit {
+  hit: PlanSelection;
+  /** True when the point is on the selected mirror's aim handle. */
+  aim?: boolean;
+}
+
+export function hitTest(ctx: HitContext, view: PlanView, pt: PairM): Hit {
+  const sel = ctx.selection;
+  if (sel?.kind === 'placement' && ctx.canEdit) {
+    const pl = ctx.placements.find((x) => x.id === sel.id);
+    if (pl) {
+      const end = alongAzimuth(toScreen(view, pl.positionM), pl.azimuthRad, AIM_HANDLE_PX);
+      if (Math.hypot(end[0] - pt[0], end[1] - pt[1]) <= PICK_PX) return { hit: sel, aim: true };
+    }
+  }
+  let best: { d: number; hit: PlanSelection } | null = null;
+  for (const pl of ctx.placements) {
+    const s = toScreen(view, pl.positionM);
+    const d = Math.hypot(s[0] - pt[0], s[1] - pt[1]);
+    if (d <= Math.max(PICK_PX, MARKER_RADIUS_PX + 6) && (!best || d < best.d)) best = { d, hit: { kind: 'placement', id: pl.id } };
+  }
+  for (const vw of ctx.scene.viewers) {
+    const s = toScreen(view, vw.positionM);
+    const d = Math.hypot(s[0] - pt[0], s[1] - pt[1]);
+    if (d <= PICK_PX && (!best || d < best.d)) best = { d, hit: { kind: 'viewer', id: vw.id } };
+  }
+  if (best) return { hit: best.hit };
+  let wall: { d: number; id: string } | null = null;
+  for (const w of ctx.scene.walls) {
+    const d = distanceToSegment(pt, toScreen(view, w.aM), toScreen(view, w.bM));
+    if (d <= WALL_PICK_PX && (!wall || d < wall.d)) wall = { d, id: w.id };
+  }
+  if (wall) return { hit: { kind: 'wall', id: wall.id } };
+  const planPt = toPlan(view, pt[0], pt[1]);
+  const zone = [...ctx.scene.zones].reverse().find((z) => insideRing(planPt, z.polygonM));
+  return { hit: zone ? { kind: 'zone', id: zone.id } : null };
+}

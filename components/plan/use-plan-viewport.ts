@@ -1,0 +1,100 @@
+/**
+ * The plan's viewport on screen: its measured size, the current view (scale and offsets), fitting
+ * the plan on first layout, wheel zoom on the web, the zoom buttons, and publishing the transform
+ * on the canvas for browser tests. Once the person pans or zooms, a new size keeps their view.
+ */
+import { useCallback, useEffect, useLayoutEffect, useRef, useState, type RefObject } from 'react';
+import { useWindowDimensions, type LayoutChangeEvent, type View } from 'react-native';
+import { asDom } from './plan-dom';
+import { fitView, formatTransform, zoomAt, type Bounds, type PairM, type PlanView, type Size } from './plan-view';
+
+export interface PlanViewport {
+  size: Size;
+  view: PlanView | null;
+  /** The latest view, for gesture handlers that outlive a render. */
+  viewRef: RefObject<PlanView | null>;
+  /** Where the frame sits in the window (native only; the web measures the element). */
+  originRef: RefObject<PairM>;
+  onLayout: (e: LayoutChangeEvent) => void;
+  /** A view the person chose (pan, pinch, wheel): later size changes keep it. */
+  setViewByPerson: (view: PlanView) => void;
+  zoomBy: (k: number) => void;
+  fit: () => void;
+}
+
+export function usePlanViewport(frameRef: RefObject<View | null>, bounds: Bounds | null, reserveBottom: number): PlanViewport {
+  const windowSize = useWindowDimensions();
+  // Until the first layout arrives (and where none ever does, as in tests), guess the window's size.
+  const [size, setSize] = useState<Size>(() => ({ width: windowSize.width, height: Math.max(200, windowSize.height - 200) }));
+  const [view, setView] = useState<PlanView | null>(null);
+  const measured = useRef(false);
+  const touched = useRef(false);
+  const viewRef = useRef<PlanView | null>(null);
+  const originRef = useRef<PairM>([0, 0]);
+
+  useLayoutEffect(() => {
+    viewRef.current = view;
+  }, [view]);
+
+  const fit = useCallback(() => setView(fitView(bounds, size, 28, reserveBottom)), [bounds, size, reserveBottom]);
+
+  const onLayout = useCallback(
+    (e: LayoutChangeEvent) => {
+      const { width, height } = e.nativeEvent.layout;
+      setSize((old) => (old.width === width && old.height === height ? old : { width, height }));
+      if (!measured.current && !touched.current) {
+        measured.current = true;
+        setView(null);
+      }
+      frameRef.current?.measureInWindow((x, y) => {
+        originRef.current = [x, y];
+      });
+    },
+    [frameRef],
+  );
+
+  // The first layout fits the plan; later size changes keep the person's own pan and zoom.
+  const needsFit = view === null;
+  useEffect(() => {
+    if (needsFit) fit();
+  }, [needsFit, fit]);
+
+  const setViewByPerson = useCallback((next: PlanView) => {
+    touched.current = true;
+    setView(next);
+  }, []);
+
+  const zoomBy = useCallback(
+    (k: number) => {
+      const v = viewRef.current;
+      if (v) setViewByPerson(zoomAt(v, k, size.width / 2, (size.height - reserveBottom) / 2));
+    },
+    [setViewByPerson, size, reserveBottom],
+  );
+
+  // Publish the view on the web so browser tests can click at plan coordinates.
+  useLayoutEffect(() => {
+    const dom = asDom(frameRef.current);
+    if (!dom || !view) return;
+    const t = formatTransform(view);
+    dom.setAttribute('data-transform', t);
+    dom.querySelector('svg')?.setAttribute('data-transform', t);
+  }, [frameRef, view]);
+
+  // Mouse wheel zooms about the pointer (web only; pinch covers touch screens).
+  useEffect(() => {
+    const dom = asDom(frameRef.current);
+    if (!dom) return;
+    const onWheel = (e: WheelEvent) => {
+      e.preventDefault();
+      const v = viewRef.current;
+      if (!v) return;
+      const rect = dom.getBoundingClientRect();
+      setViewByPerson(zoomAt(v, Math.exp(-e.deltaY * 0.0015), e.clientX - rect.left, e.clientY - rect.top));
+    };
+    dom.addEventListener('wheel', onWheel, { passive: false });
+    return () => dom.removeEventListener('wheel', onWheel);
+  }, [frameRef, setViewByPerson]);
+
+  return { size, view, viewRef, originRef, onLayout, setViewByPerson, zoomBy, fit };
+}
