@@ -13,11 +13,14 @@ afterAll(async () => {
 const installer = DEMO_USERS.find((u) => u.role === 'installer')!;
 const reviewer = DEMO_USERS.find((u) => u.role === 'reviewer')!;
 
+type PageDoc = { document: { querySelector(sel: string): { getAttribute(name: string): string | null; innerHTML: string } | null } };
+
 /**
  * A drawing grid laid over the middle of whatever the plan shows: `at(x, y)` turns grid units
  * around the centre into plan metres, and `tap` clicks there using the transform the canvas
- * publishes (scale, offsets). The grid keeps clear of the toolbars that float over the plan's
- * edges, whatever the screen size.
+ * publishes (scale, offsets), then waits until the drawing has changed (a corner, a wall, a
+ * marker appeared). The grid keeps clear of the toolbars that float over the plan's edges,
+ * whatever the screen size.
  */
 async function planGrid(page: Page) {
   const svg = byTestId(page, 'plan-canvas');
@@ -29,15 +32,26 @@ async function planGrid(page: Page) {
   const cy = (offY - box.height * 0.45) / scale;
   const unitM = Math.round((unitPx / scale) * 10) / 10;
   const at = (x: number, y: number): [number, number] => [cx + x * unitM, cy + y * unitM];
+  const drawing = () => page.evaluate(() => (globalThis as unknown as PageDoc).document.querySelector('svg[data-testid="plan-canvas"]')?.innerHTML ?? '');
   const tap = async ([xM, yM]: [number, number]) => {
+    const before = await drawing();
     await page.mouse.click(box.x + offX + xM * scale, box.y + offY - yM * scale);
-    await page.waitForTimeout(150);
+    await page.waitForFunction((b) => (globalThis as unknown as PageDoc).document.querySelector('svg[data-testid="plan-canvas"]')?.innerHTML !== b, before, { timeout: 10_000 });
   };
   return { at, tap, unitM };
 }
 
 async function attr(page: Page, testId: string, name: string): Promise<string> {
   return (await byTestId(page, testId).first().getAttribute(name)) ?? '';
+}
+
+/** Waits until the outline of a fan differs from `before` (a function, not a string: the app's CSP forbids eval). */
+async function fanChanged(page: Page, fanId: string, before: string): Promise<void> {
+  await page.waitForFunction(
+    ([id, b]) => (globalThis as unknown as PageDoc).document.querySelector(`[data-testid="${id}"]`)?.getAttribute('d') !== b,
+    [fanId, before] as const,
+    { timeout: 15_000 },
+  );
 }
 
 async function onlyPlacementId(page: Page): Promise<string> {
@@ -50,95 +64,106 @@ async function onlyPlacementId(page: Page): Promise<string> {
 describe.each([
   ['phone', PHONE],
   ['wide', WIDE],
-] as const)('an installer on a %s screen', (sizeName, size) => {
-  it('sets up a site from nothing, sees the fan and the zone percentage, and finds it all saved after a reload', async () => {
-    const { page, errors } = await openPage(product, size);
+] as const)('an installer on a %s screen sets up a site from nothing', (sizeName, size) => {
+  // The steps share one page, in order; a failing step names what broke.
+  let page: Page;
+  let errors: string[];
+  let grid: Awaited<ReturnType<typeof planGrid>>;
+  let zoneId = '';
+  let placementId = '';
+  let fanId = '';
+  let projectId = '';
+  let aimedAzimuth: number | null = null;
+
+  beforeAll(async () => {
+    ({ page, errors } = await openPage(product, size));
+  });
+  afterAll(async () => {
+    await page?.context().close();
+  });
+
+  it('creates a project and lands on its empty plan', async () => {
     await signIn(page, product.server.url, installer.email, DEMO_PASSWORD);
     await byTestId(page, 'projects-new').click();
     await byTestId(page, 'project-form-name').fill(`Aisle crossing ${sizeName}`);
     await byTestId(page, 'project-form-customer').fill('Northgate Foods (demo)');
     await byTestId(page, 'project-form-submit').click();
     await page.waitForURL(/\/projects\/\d+$/);
+    projectId = page.url().match(/projects\/(\d+)/)![1];
     await byTestId(page, 'plan-canvas').waitFor({ state: 'visible' });
+    grid = await planGrid(page);
+  });
 
-    const grid = await planGrid(page);
-    // A racking run along the south side of the crossing.
+  it('draws a racking run along the south side of the crossing', async () => {
     await byTestId(page, 'plan-tool-wall').click();
     await byTestId(page, 'plan-wall-kind-racking').click();
     await grid.tap(grid.at(-6, -2));
     await grid.tap(grid.at(6, -2));
+  });
 
-    // The zone that must be seen.
+  it('draws and names the zone that must be seen', async () => {
     await byTestId(page, 'plan-tool-zone').click();
     for (const [x, y] of [[-4, -1.4], [4, -1.4], [4, 1.5], [-4, 1.5]]) await grid.tap(grid.at(x, y));
     await byTestId(page, 'plan-zone-finish').click();
     await byTestId(page, 'plan-zone-name').fill('Crossing');
     await byTestId(page, 'plan-zone-save').click();
-    const zoneId = (await page.locator('[data-testid^="zone-pct-"]').first().getAttribute('data-testid'))!.replace('zone-pct-', '');
+    await page.locator('[data-testid^="zone-pct-"]').first().waitFor({ state: 'attached' });
+    zoneId = (await page.locator('[data-testid^="zone-pct-"]').first().getAttribute('data-testid'))!.replace('zone-pct-', '');
+  });
 
-    // The driver, then a mirror across the crossing from them.
+  it('places the driver and a mirror across the crossing, and sees the fan and the zone percentage', async () => {
     await byTestId(page, 'plan-tool-viewer').click();
     await grid.tap(grid.at(0, 5));
     await byTestId(page, 'plan-tool-mirror').click();
     await grid.tap(grid.at(0, -1.7));
-    const placementId = await onlyPlacementId(page);
-    const fanId = `placement-fan-${placementId}`;
+    placementId = await onlyPlacementId(page);
+    fanId = `placement-fan-${placementId}`;
     await byTestId(page, fanId).waitFor({ state: 'attached' });
-    const fanBefore = await attr(page, fanId, 'd');
-    expect(fanBefore.length).toBeGreaterThan(20);
-    const pctBefore = await byTestId(page, `zone-pct-${zoneId}`).first().textContent();
-    expect(pctBefore).toMatch(/\d+\s?%/);
+    expect((await attr(page, fanId, 'd')).length).toBeGreaterThan(20);
+    expect(await byTestId(page, `zone-pct-${zoneId}`).first().textContent()).toMatch(/\d+\s?%/);
     await shot(page, `${sizeName}-plan-new-project`);
+  });
 
-    // Change the height; the numbers and the fan follow.
+  it('changes the mounting height, and the fan, the numbers and the saved state follow', async () => {
     await byTestId(page, 'placement-editor').waitFor({ state: 'visible' });
+    const fanBefore = await attr(page, fanId, 'd');
     const rangeBefore = await byTestId(page, 'numbers-range-adult').first().textContent();
     await byTestId(page, 'placement-height').fill('4.5 m');
     await byTestId(page, 'placement-height').press('Enter');
-    // Runs in the page (a function, not a string: the app's CSP forbids eval): the fan's outline
-    // has been redrawn for the new height.
-    type PageDoc = { document: { querySelector(sel: string): { getAttribute(name: string): string | null } | null } };
-    await page.waitForFunction(
-      ([id, before]) => (globalThis as unknown as PageDoc).document.querySelector(`[data-testid="${id}"]`)?.getAttribute('d') !== before,
-      [fanId, fanBefore] as const,
-      { timeout: 15_000 },
-    );
+    await fanChanged(page, fanId, fanBefore);
     expect(await byTestId(page, 'numbers-range-adult').first().textContent()).not.toBe(rangeBefore);
     await byTestId(page, 'placement-save-status').filter({ hasText: /All changes saved/ }).first().waitFor({ timeout: 15_000 });
     await shot(page, `${sizeName}-plan-height-changed`);
+  });
 
-    // On a wide screen, turn the mirror with its aim handle: the fan swings and the aim is saved.
-    let aimedAzimuth: number | null = null;
-    if (sizeName === 'wide') {
+  if (sizeName === 'wide') {
+    it('turns the mirror with its aim handle: the fan swings and the new aim is saved', async () => {
       const before = await attr(page, fanId, 'd');
       const handle = (await byTestId(page, 'aim-handle').first().boundingBox())!;
       const hx = handle.x + handle.width / 2;
       const hy = handle.y + handle.height / 2;
+      const saved = page.waitForResponse(
+        (r) => r.request().method() === 'PATCH' && r.url().includes(`/placements/${placementId}`) && r.ok() && (r.request().postData() ?? '').includes('azimuthRad'),
+        { timeout: 15_000 },
+      );
       await page.mouse.move(hx, hy);
       await page.mouse.down();
       for (let i = 1; i <= 8; i++) await page.mouse.move(hx + i * 8, hy + i * 3);
       await page.mouse.up();
-      await page.waitForFunction(
-        ([id, b]) => (globalThis as unknown as PageDoc).document.querySelector(`[data-testid="${id}"]`)?.getAttribute('d') !== b,
-        [fanId, before] as const,
-        { timeout: 15_000 },
-      );
-      const projectNow = page.url().match(/projects\/(\d+)/)![1];
-      const savedAzimuth = async () => (await (await page.request.get(`${product.server.url}/api/projects/${projectNow}`)).json()).project.placements[0].azimuthRad as number;
-      const until = Date.now() + 15_000;
-      while (Math.abs((await savedAzimuth()) - Math.PI / 2) < 1e-3 && Date.now() < until) await page.waitForTimeout(200);
-      aimedAzimuth = await savedAzimuth();
+      await fanChanged(page, fanId, before);
+      aimedAzimuth = ((await (await saved).json()) as { placement: { azimuthRad: number } }).placement.azimuthRad;
       expect(Math.abs(aimedAzimuth - Math.PI / 2)).toBeGreaterThan(0.05);
       await shot(page, 'wide-plan-aimed');
-    }
+    });
+  }
 
+  it('finds the zone, the wall, the viewer and the mirror as left after a reload', async () => {
     await page.reload();
     await byTestId(page, 'plan-canvas').waitFor({ state: 'visible' });
     await byTestId(page, `zone-label-${zoneId}`).first().waitFor({ state: 'attached' });
     expect(await byTestId(page, `zone-label-${zoneId}`).first().textContent()).toContain('Crossing');
     await byTestId(page, fanId).waitFor({ state: 'attached' });
     expect((await attr(page, fanId, 'd')).length).toBeGreaterThan(20);
-    const projectId = page.url().match(/projects\/(\d+)/)![1];
     const saved = await (await page.request.get(`${product.server.url}/api/projects/${projectId}`)).json();
     expect(saved.project.placements).toHaveLength(1);
     expect(saved.project.placements[0].heightM).toBeCloseTo(4.5, 9);
@@ -146,8 +171,10 @@ describe.each([
     expect(saved.project.scene.walls[0].kind).toBe('racking');
     if (aimedAzimuth !== null) expect(saved.project.placements[0].azimuthRad).toBeCloseTo(aimedAzimuth, 9);
     expect(await page.locator('[data-testid^="viewer-marker-"]').count()).toBe(1);
+  });
+
+  it('logged no errors in the browser along the way', () => {
     expect(errors.filter((e) => !/Failed to load resource/.test(e))).toEqual([]);
-    await page.context().close();
   });
 });
 
