@@ -7,5 +7,3 @@ export type PlanSelection =
   | null;
 
 export type PlanTool = 'select' | 'mirror' | 'viewer' | 'zone' | 'wall';
-
-export const sameSelection = (a: PlanSelection, b: PlanSelection): boolean => (a === null || b === null ? a === b : a.kind === b.kind && a.id === b.id);
