@@ -1,4 +1,8 @@
-import type { CatalogueItemDto } from '@/shared/schemas';
+import type { CatalogueItemDto, PlacementDto } from '@/shared/schemas';
+import { DEMO_CATALOGUE } from '../../server/seeders/demo-catalogue';
+import { DEMO_PROJECT } from '../../server/seeders/demo-project';
+
+const STAMP = '2026-01-01T00:00:00.000Z';
 
 /** An invented one-item catalogue: a 600 mm round mirror cut from a 0.8 m sphere. */
 export const TEST_CATALOGUE: CatalogueItemDto[] = [
@@ -19,3 +23,50 @@ export const TEST_CATALOGUE: CatalogueItemDto[] = [
     updatedAt: '2025-01-01T00:00:00.000Z',
   },
 ];
+
+/** The seeded demo catalogue as the API lists it (ids in seed order). */
+export function demoCatalogueDtos(): CatalogueItemDto[] {
+  return DEMO_CATALOGUE.map((d, i) => ({
+    id: i + 1,
+    code: d.code,
+    name: d.name,
+    mirror: d.mirror,
+    material: d.material,
+    reflectance: d.reflectance,
+    massKg: d.massKg,
+    unitPriceMinor: d.unitPriceMinor,
+    currency: 'EUR',
+    notes: '',
+    active: true,
+    demo: true,
+    version: 1,
+    updatedAt: STAMP,
+  }));
+}
+
+/**
+ * The seeded demo project's placements with the catalogue ids of `demoCatalogueDtos`; a code the
+ * catalogue does not hold fails here rather than quietly testing another mirror.
+ */
+export function demoPlacementDtos(projectId: number): PlacementDto[] {
+  const catalogue = demoCatalogueDtos();
+  return DEMO_PROJECT.placements.map((p, i) => {
+    const item = catalogue.find((c) => c.code === p.code);
+    if (!item) throw new Error(`The demo project uses ${p.code}, which the demo catalogue does not hold.`);
+    return {
+      id: i + 1,
+      projectId,
+      label: p.label,
+      catalogueItemId: item.id,
+      customMirror: null,
+      positionM: p.positionM,
+      heightM: p.heightM,
+      azimuthRad: (p.azimuthDeg * Math.PI) / 180,
+      tiltDownRad: (p.tiltDownDeg * Math.PI) / 180,
+      viewerId: p.viewerId,
+      notes: '',
+      version: 1,
+      updatedAt: STAMP,
+    };
+  });
+}

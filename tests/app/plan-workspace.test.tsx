@@ -5,9 +5,10 @@ import { catalogKeys, useCatalogQuery } from '@/hooks/use-catalog';
 import { projectKeys, useProjectQuery } from '@/hooks/use-projects';
 import { sessionKeys } from '@/hooks/use-session';
 import { evaluateProject } from '@/shared/project-optics';
-import type { CatalogueItemDto, PlacementDto, ProjectDto, UserDto } from '@/shared/schemas';
+import type { ProjectDto, UserDto } from '@/shared/schemas';
 import { formatPercent } from '@/shared/units';
 import { DEMO_PROJECT } from '../../server/seeders/demo-project';
+import { demoCatalogueDtos, demoPlacementDtos } from './fixtures';
 import { makeTestQueryClient, renderWithQuery } from './render';
 
 jest.mock('@/hooks/api', () => ({ api: {} }));
@@ -17,44 +18,11 @@ jest.mock('@/components/ui/text-link', () => ({ TextLink: ({ label }: { label: s
 
 const STAMP = '2026-01-01T00:00:00.000Z';
 
-function item(id: number, diameterM: number, radiusM: number): CatalogueItemDto {
-  return {
-    id,
-    code: `DEMO-R${diameterM * 1000}`,
-    name: `Round ${diameterM * 1000} mm (demo)`,
-    mirror: { shape: 'round', diameterM, radiusM },
-    material: 'acrylic',
-    reflectance: null,
-    massKg: null,
-    unitPriceMinor: 10000,
-    currency: 'EUR',
-    notes: '',
-    active: true,
-    demo: true,
-    version: 1,
-    updatedAt: STAMP,
-  };
-}
-
-/** The demo catalogue's two round mirrors, as the seeded placements use them. */
-const catalogue = [item(1, 0.8, 1.6), item(2, 0.6, 1.2)];
+/** The seeded demo catalogue, which the seeded placements name by code. */
+const catalogue = demoCatalogueDtos();
 
 function demoProject(canEdit: boolean): ProjectDto {
-  const placements: PlacementDto[] = DEMO_PROJECT.placements.map((p, i) => ({
-    id: i + 1,
-    projectId: 7,
-    label: p.label,
-    catalogueItemId: p.code === 'DEMO-R800' ? 1 : 2,
-    customMirror: null,
-    positionM: p.positionM,
-    heightM: p.heightM,
-    azimuthRad: (p.azimuthDeg * Math.PI) / 180,
-    tiltDownRad: (p.tiltDownDeg * Math.PI) / 180,
-    viewerId: p.viewerId,
-    notes: '',
-    version: 1,
-    updatedAt: STAMP,
-  }));
+  const placements = demoPlacementDtos(7);
   return {
     id: 7,
     name: DEMO_PROJECT.name,
