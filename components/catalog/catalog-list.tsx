@@ -1,7 +1,7 @@
 import { router } from 'expo-router';
 import { useState } from 'react';
 import { ActivityIndicator, Pressable, StyleSheet, View } from 'react-native';
-import { mirrorSizeText, priceText, SHAPE_LABELS, SHAPE_ORDER } from '@/components/placement/mirror-text';
+import { compareMirrorsBySize, mirrorSizeText, priceText, SHAPE_LABELS, SHAPE_ORDER } from '@/components/placement/mirror-text';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -32,7 +32,7 @@ export function CatalogList({ units, isAdmin }: { units: UnitSystem; isAdmin: bo
   const [shape, setShape] = useState<ShapeFilter>('all');
   const catalog = useCatalogQuery();
   const items = (catalog.data ?? []).filter((c) => shape === 'all' || c.mirror.shape === shape);
-  const sorted = [...items].sort((a, b) => SHAPE_ORDER.indexOf(a.mirror.shape) - SHAPE_ORDER.indexOf(b.mirror.shape) || a.code.localeCompare(b.code, undefined, { numeric: true }));
+  const sorted = [...items].sort(compareMirrorsBySize);
 
   return (
     <View style={styles.column}>

@@ -9,7 +9,7 @@ import { focusRing, layout, palette, radii, spacing } from '@/constants/theme';
 import { useFocusVisible } from '@/hooks/use-focus-visible';
 import type { CatalogueItemDto, MirrorSpec } from '@/shared/schemas';
 import type { UnitSystem } from '@/shared/units';
-import { catalogueLine, SHAPE_LABELS, SHAPE_ORDER } from './mirror-text';
+import { catalogueLine, compareMirrorsBySize, SHAPE_LABELS, SHAPE_ORDER } from './mirror-text';
 
 export type MirrorChoice = { catalogueItemId: number; customMirror: null } | { catalogueItemId: null; customMirror: MirrorSpec };
 
@@ -42,7 +42,7 @@ function matches(item: CatalogueItemDto, q: string): boolean {
 export function MirrorPicker({ catalogue, value, onChange, units, errors = {} }: MirrorPickerProps) {
   const [mode, setMode] = useState<'catalogue' | 'custom'>(value.customMirror ? 'custom' : 'catalogue');
   const [q, setQ] = useState('');
-  const active = useMemo(() => catalogue.filter((c) => c.active || c.id === value.catalogueItemId), [catalogue, value.catalogueItemId]);
+  const active = useMemo(() => catalogue.filter((c) => c.active || c.id === value.catalogueItemId).sort(compareMirrorsBySize), [catalogue, value.catalogueItemId]);
   const groups = SHAPE_ORDER.map((shape) => ({ shape, items: active.filter((c) => c.mirror.shape === shape && matches(c, q.trim())) })).filter((g) => g.items.length > 0);
   const custom = value.customMirror;
 

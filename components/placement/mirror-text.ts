@@ -28,6 +28,25 @@ export function priceText(item: Pick<CatalogueItemDto, 'unitPriceMinor' | 'curre
   return formatMoney(item.unitPriceMinor, item.currency);
 }
 
+const PORTION_ORDER = { full: 0, half: 1, quarter: 2 } as const;
+
+/**
+ * Catalogue order for people: by shape, domes by portion, then by size as a number (300 mm before
+ * 1000 mm, which sorting codes as text gets wrong), then radius, then name.
+ */
+export function compareMirrorsBySize(a: CatalogueItemDto, b: CatalogueItemDto): number {
+  const key = (m: MirrorSpec): number[] => {
+    const shape = SHAPE_ORDER.indexOf(m.shape);
+    if (m.shape === 'round') return [shape, 0, m.diameterM, m.radiusM];
+    if (m.shape === 'rect') return [shape, 0, m.widthM * m.heightM, m.radiusM];
+    return [shape, PORTION_ORDER[m.portion], m.diameterM, 0];
+  };
+  const ka = key(a.mirror);
+  const kb = key(b.mirror);
+  for (let i = 0; i < ka.length; i++) if (ka[i] !== kb[i]) return ka[i] - kb[i];
+  return a.name.localeCompare(b.name);
+}
+
 /** One line for a catalogue item in a list or picker. */
 export function catalogueLine(item: CatalogueItemDto, units: UnitSystem): string {
   return `${mirrorSizeText(item.mirror, units)} · ${radiusText(item.mirror, units)} · ${priceText(item)}`;

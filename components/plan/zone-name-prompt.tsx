@@ -20,6 +20,7 @@ export function ZoneNamePrompt({ defaultName, error, onSave, onCancel }: { defau
         value={name}
         onChangeText={setName}
         autoFocus
+        selectTextOnFocus
         error={error ?? (trimmed ? undefined : 'Give the zone a name.')}
         onSubmitEditing={() => trimmed && onSave(trimmed, target)}
       />

@@ -105,7 +105,14 @@ describe.each([
     await byTestId(page, 'plan-tool-zone').click();
     for (const [x, y] of [[-4, -1.4], [4, -1.4], [4, 1.5], [-4, 1.5]]) await grid.tap(grid.at(x, y));
     await byTestId(page, 'plan-zone-finish').click();
-    await byTestId(page, 'plan-zone-name').fill('Crossing');
+    // The prompt opens with its default name selected, so typing replaces it.
+    const nameField = byTestId(page, 'plan-zone-name');
+    await page.waitForFunction(() => {
+      const el = (globalThis as unknown as { document: { activeElement: { value?: string; selectionStart?: number; selectionEnd?: number } | null } }).document.activeElement;
+      return !!el?.value && el.selectionStart === 0 && el.selectionEnd === el.value.length;
+    });
+    await page.keyboard.type('Crossing');
+    expect(await nameField.inputValue()).toBe('Crossing');
     await byTestId(page, 'plan-zone-save').click();
     await page.locator('[data-testid^="zone-pct-"]').first().waitFor({ state: 'attached' });
     zoneId = (await page.locator('[data-testid^="zone-pct-"]').first().getAttribute('data-testid'))!.replace('zone-pct-', '');
