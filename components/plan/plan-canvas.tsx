@@ -72,11 +72,7 @@ export function PlanCanvas(props: PlanCanvasProps) {
         role="img"
         aria-label="Site plan: walls, zones, viewers and mirrors with their coverage"
       >
-        {view ? (
-          <PlanDrawing {...{ scene, placements, evaluation, units, canEdit, selection, draftPoints, draftClosed, view, size, tool }} />
-        ) : (
-          <View testID="plan-canvas" style={styles.fill} />
-        )}
+        <PlanDrawing {...{ scene, placements, evaluation, units, canEdit, selection, draftPoints, draftClosed, view, size, tool }} />
       </View>
       <ZoomControls onZoomIn={() => viewport.zoomBy(1.4)} onZoomOut={() => viewport.zoomBy(1 / 1.4)} onFit={viewport.fit} />
     </View>
@@ -86,5 +82,4 @@ export function PlanCanvas(props: PlanCanvasProps) {
 const styles = StyleSheet.create({
   outer: { flex: 1 },
   frame: { flex: 1, overflow: 'hidden', backgroundColor: palette.sheet, userSelect: 'none', touchAction: 'none' } as object,
-  fill: { flex: 1 },
 });

@@ -32,7 +32,7 @@ export interface ResponderHandlers {
 export function usePlanGestures(
   frameRef: RefObject<View | null>,
   originRef: RefObject<PairM>,
-  viewRef: RefObject<PlanView | null>,
+  viewRef: RefObject<PlanView>,
   setViewByPerson: (view: PlanView) => void,
   targets: GestureTargets,
 ): ResponderHandlers {
@@ -87,7 +87,6 @@ export function usePlanGestures(
 
   const onGrant = (e: GestureResponderEvent) => {
     const view = viewRef.current;
-    if (!view) return;
     const step = startGesture(contextWith(view), pointsOf(e));
     gesture.current = step.gesture;
     apply(step.effects);
@@ -95,7 +94,7 @@ export function usePlanGestures(
   const onMove = (e: GestureResponderEvent) => {
     const g = gesture.current;
     const view = viewRef.current;
-    if (!g || !view) return;
+    if (!g) return;
     const step = moveGesture(contextWith(view), g, pointsOf(e));
     gesture.current = step.gesture;
     schedule(step.effects);
@@ -104,7 +103,7 @@ export function usePlanGestures(
     const g = gesture.current;
     gesture.current = null;
     const view = viewRef.current;
-    if (!g || !view) return;
+    if (!g) return;
     const effects = endGesture(contextWith(view), g, pointsOf(e)[0]);
     if (effects.length > 0) cancelScheduled();
     apply(effects);

@@ -10,9 +10,9 @@ import { fitView, formatTransform, zoomAt, type Bounds, type PairM, type PlanVie
 
 export interface PlanViewport {
   size: Size;
-  view: PlanView | null;
+  view: PlanView;
   /** The latest view, for gesture handlers that outlive a render. */
-  viewRef: RefObject<PlanView | null>;
+  viewRef: RefObject<PlanView>;
   /** Where the frame sits in the window (native only; the web measures the element). */
   originRef: RefObject<PairM>;
   onLayout: (e: LayoutChangeEvent) => void;
@@ -22,29 +22,34 @@ export interface PlanViewport {
   fit: () => void;
 }
 
+const FIT_MARGIN_PX = 28;
+
 export function usePlanViewport(frameRef: RefObject<View | null>, bounds: Bounds | null, reserveBottom: number): PlanViewport {
   const windowSize = useWindowDimensions();
   // Until the first layout arrives (and where none ever does, as in tests), guess the window's size.
   const [size, setSize] = useState<Size>(() => ({ width: windowSize.width, height: Math.max(200, windowSize.height - 200) }));
-  const [view, setView] = useState<PlanView | null>(null);
+  const [view, setView] = useState<PlanView>(() => fitView(bounds, size, FIT_MARGIN_PX, reserveBottom));
   const measured = useRef(false);
   const touched = useRef(false);
-  const viewRef = useRef<PlanView | null>(null);
+  const viewRef = useRef<PlanView>(view);
   const originRef = useRef<PairM>([0, 0]);
+  const fitInputs = useRef({ bounds, reserveBottom });
 
   useLayoutEffect(() => {
     viewRef.current = view;
-  }, [view]);
+    fitInputs.current = { bounds, reserveBottom };
+  });
 
-  const fit = useCallback(() => setView(fitView(bounds, size, 28, reserveBottom)), [bounds, size, reserveBottom]);
+  const fit = useCallback(() => setView(fitView(bounds, size, FIT_MARGIN_PX, reserveBottom)), [bounds, size, reserveBottom]);
 
   const onLayout = useCallback(
     (e: LayoutChangeEvent) => {
       const { width, height } = e.nativeEvent.layout;
       setSize((old) => (old.width === width && old.height === height ? old : { width, height }));
+      // The first real size refits the plan unless the person has already moved it.
       if (!measured.current && !touched.current) {
         measured.current = true;
-        setView(null);
+        setView(fitView(fitInputs.current.bounds, { width, height }, FIT_MARGIN_PX, fitInputs.current.reserveBottom));
       }
       frameRef.current?.measureInWindow((x, y) => {
         originRef.current = [x, y];
@@ -53,29 +58,20 @@ export function usePlanViewport(frameRef: RefObject<View | null>, bounds: Bounds
     [frameRef],
   );
 
-  // The first layout fits the plan; later size changes keep the person's own pan and zoom.
-  const needsFit = view === null;
-  useEffect(() => {
-    if (needsFit) fit();
-  }, [needsFit, fit]);
-
   const setViewByPerson = useCallback((next: PlanView) => {
     touched.current = true;
     setView(next);
   }, []);
 
   const zoomBy = useCallback(
-    (k: number) => {
-      const v = viewRef.current;
-      if (v) setViewByPerson(zoomAt(v, k, size.width / 2, (size.height - reserveBottom) / 2));
-    },
+    (k: number) => setViewByPerson(zoomAt(viewRef.current, k, size.width / 2, (size.height - reserveBottom) / 2)),
     [setViewByPerson, size, reserveBottom],
   );
 
   // Publish the view on the web so browser tests can click at plan coordinates.
   useLayoutEffect(() => {
     const dom = asDom(frameRef.current);
-    if (!dom || !view) return;
+    if (!dom) return;
     const t = formatTransform(view);
     dom.setAttribute('data-transform', t);
     dom.querySelector('svg')?.setAttribute('data-transform', t);
@@ -87,10 +83,8 @@ export function usePlanViewport(frameRef: RefObject<View | null>, bounds: Bounds
     if (!dom) return;
     const onWheel = (e: WheelEvent) => {
       e.preventDefault();
-      const v = viewRef.current;
-      if (!v) return;
       const rect = dom.getBoundingClientRect();
-      setViewByPerson(zoomAt(v, Math.exp(-e.deltaY * 0.0015), e.clientX - rect.left, e.clientY - rect.top));
+      setViewByPerson(zoomAt(viewRef.current, Math.exp(-e.deltaY * 0.0015), e.clientX - rect.left, e.clientY - rect.top));
     };
     dom.addEventListener('wheel', onWheel, { passive: false });
     return () => dom.removeEventListener('wheel', onWheel);
