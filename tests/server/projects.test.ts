@@ -241,6 +241,21 @@ describe('stale versions and bad bodies', () => {
     expect(Object.keys(res.body.fields)).toContain(field);
   });
 
+  it('refuses a mirror whose body the rack passes through, naming the rack, and accepts it on the face', async () => {
+    const a = await as('installerA');
+    const p = (await a.post('/api/projects').send(newProject('Mirror in the rack'))).body.project;
+    const base = newPlacement(await firstCatalogueId());
+    const inside = await a.post(`/api/projects/${p.id}/placements`).send({ ...base, positionM: [2.5, 0.01], tiltDownRad: 0 });
+    expect(inside.status).toBe(400);
+    expect(inside.body.fields.positionM).toMatch(/^“M1” reaches .* into rack “w1”; a mirror cannot hang inside a wall or rack\. Move it .*, to x 2\.50 m, y 0\.\d\d m, where it sits on the face\.$/);
+    const y = Number(/y (0\.\d\d) m/.exec(inside.body.fields.positionM)![1]);
+    const onFace = await a.post(`/api/projects/${p.id}/placements`).send({ ...base, positionM: [2.5, y], tiltDownRad: 0 });
+    expect(onFace.status).toBe(201);
+    const pushed = await a.patch(`/api/projects/${p.id}/placements/${onFace.body.placement.id}`).send({ version: 1, positionM: [2.5, 0.01] });
+    expect(pushed.status).toBe(400);
+    expect(pushed.body.fields.positionM).toMatch(/into rack “w1”/);
+  });
+
   it('rejects a placement for a viewer that is not in the plan, or a catalogue item that does not exist', async () => {
     const a = await as('installerA');
     const p = (await a.post('/api/projects').send(newProject('Bad references'))).body.project;
