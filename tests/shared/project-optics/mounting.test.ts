@@ -19,6 +19,8 @@ const catalogue: CatalogueItemDto[] = DEMO_CATALOGUE.map((c, i) => ({
   notes: '',
   active: true,
   demo: true,
+  version: 1,
+  updatedAt: '2026-01-01T00:00:00.000Z',
 }));
 const itemOf = (code: string) => catalogue.find((c) => c.code === code) as CatalogueItemDto;
 const demoPlacements = DEMO_PROJECT.placements.map((p, i) => ({
