@@ -77,7 +77,7 @@ describe('ranking against a brute-force search with walls', () => {
     { id: 'north', vertexM: [4, 12, 3] as Vec3 },
   ];
   const catalogue: CatalogueItem[] = [0.4, 0.5, 0.6, 0.7, 0.8].map((d) => ({ id: `r${Math.round(d * 1000)}`, mirror: { shape: 'round', diameterM: d, radiusM: 2 * d }, cost: 200 * d }));
-  // Target: a person, 1.7 m, at 5′ (common practice, see docs/sources.md).
+  // Target: a person, 1.7 m, at 5′ (common practice).
   const target = { sizeM: 1.7, minAngleRad: 5 * ARCMIN_RAD };
   const maxRangeM = 8;
   const step = 0.01;
