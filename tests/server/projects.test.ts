@@ -38,7 +38,7 @@ const newProject = (name = 'Aisle 7 crossing') => ({
 const newPlacement = (catalogueItemId: number) => ({
   label: 'M1',
   catalogueItemId,
-  positionM: [2.5, 0.2],
+  positionM: [2.5, 0.4],
   heightM: 3,
   azimuthRad: Math.PI / 2,
   tiltDownRad: 0.3,
@@ -67,7 +67,7 @@ describe('projects: create, read, change, delete', () => {
 
     const placement = await a.post(`/api/projects/${p.id}/placements`).send(newPlacement(await firstCatalogueId()));
     expect(placement.status).toBe(201);
-    expect(placement.body.placement).toMatchObject({ label: 'M1', positionM: [2.5, 0.2], heightM: 3, version: 1 });
+    expect(placement.body.placement).toMatchObject({ label: 'M1', positionM: [2.5, 0.4], heightM: 3, version: 1 });
     const moved = await a.patch(`/api/projects/${p.id}/placements/${placement.body.placement.id}`).send({ version: 1, heightM: 3.5 });
     expect(moved.body.placement).toMatchObject({ heightM: 3.5, version: 2 });
 
