@@ -6,6 +6,8 @@ import { runSheetBench } from './sheet.bench';
 const runners: Array<() => Promise<void>> = [runOpticsBench, runSheetBench, runPlanBench];
 
 async function main(): Promise<void> {
+  // BENCH_ONLY=walls: the optics engine's wall growth table alone.
+  if (process.env.BENCH_ONLY === 'walls') return runOpticsBench();
   for (const run of runners) await run();
 }
 

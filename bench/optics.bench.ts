@@ -1,7 +1,10 @@
 /**
- * Speed of the optics engine. Budgets (from the engine's issue): one round placement with 256
- * rim rays ≤ 0.5 ms; the same with 200 wall segments ≤ 2 ms; 30 placements plus the zone union
- * ≤ 40 ms; rankOptions over 20 items × 8 mount points × 36 aims ≤ 1 s. Prints medians.
+ * Speed of the optics engine. Budgets (from the engine's issues): one round placement with 256
+ * rim rays ≤ 0.5 ms; the same with 200 wall segments ≤ 2 ms and with 1,000 ≤ 10 ms; 30
+ * placements plus the zone union ≤ 40 ms; rankOptions over 20 items × 8 mount points × 36 aims
+ * ≤ 1 s. Prints medians, and how one placement's time grows with 0, 50, 200 and 1,000 walls,
+ * sparse (scattered over a 40 m × 40 m hall) and dense (packed within 8 m of the mirror).
+ * `BENCH_ONLY=walls npm run bench` runs the wall growth table alone.
  */
 import { Bench } from 'tinybench';
 import {
@@ -32,20 +35,56 @@ const mirror: Mirror = { shape: 'round', diameterM: 0.8, radiusM: 1.6 };
 const pose = poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0.3, tiltDownRad: 0.35 });
 const eyeM: Vec3 = [5, 3, 1.6];
 
-/** 200 rack and wall segments scattered over a 40 m × 40 m demo warehouse. */
-function demoWalls(): Wall[] {
-  const r = rng(111);
+/**
+ * `n` rack and wall segments (0.5–3 m long, 1–3 m high) scattered over a square of half-side
+ * `halfM` about the mirror, none within 1.5 m of the mirror or the eye.
+ */
+function scatteredWalls(n: number, halfM: number, seed = 111): Wall[] {
+  const r = rng(seed);
   const walls: Wall[] = [];
-  for (let i = 0; i < 200; i++) {
-    const x = -20 + 40 * r();
-    const y = -20 + 40 * r();
+  while (walls.length < n) {
+    const x = -halfM + 2 * halfM * r();
+    const y = -halfM + 2 * halfM * r();
     const a = r() * Math.PI;
     const len = 0.5 + 2.5 * r();
+    const h = 1 + 2 * r();
     if (Math.hypot(x, y) < 1.5 || Math.hypot(x - eyeM[0], y - eyeM[1]) < 1.5) continue;
-    walls.push({ aM: [x, y], bM: [x + len * Math.cos(a), y + len * Math.sin(a)], heightM: 1 + 2 * r() });
+    walls.push({ aM: [x, y], bM: [x + len * Math.cos(a), y + len * Math.sin(a)], heightM: h });
   }
-  while (walls.length < 200) walls.push({ aM: [18, -18 + walls.length * 0.1], bM: [19, -18 + walls.length * 0.1], heightM: 2 });
   return walls;
+}
+
+/** 200 rack and wall segments scattered over a 40 m × 40 m demo warehouse. */
+const demoWalls = (): Wall[] => scatteredWalls(200, 20);
+
+/** Budget (ms) for one placement with n walls, from the issue: 200 walls 2 ms, 1,000 walls 10 ms. */
+const WALL_BUDGET_MS: Record<number, number | undefined> = { 200: 2, 1000: 10 };
+
+/** How one placement's coverage time grows with the number of walls; returns false if a budget is missed. */
+async function runWallGrowth(): Promise<boolean> {
+  console.log('coverage of one placement (800 mm round, 15 m range) as walls grow — median');
+  let sink = 0;
+  let allMet = true;
+  for (const [label, halfM] of [['sparse, 40 m × 40 m', 20], ['dense, 16 m × 16 m', 8]] as const) {
+    const row: string[] = [];
+    for (const n of [0, 50, 200, 1000]) {
+      const walls = scatteredWalls(n, halfM);
+      const bench = new Bench({ name: `walls ${n}`, time: 600, warmupTime: 150 });
+      bench.add(`${n}`, () => {
+        sink += coverage({ mirror, pose, eyeM, maxRangeM: 15, walls }).areaM2;
+      });
+      await bench.run();
+      const res = bench.tasks[0].result;
+      const median = res && 'latency' in res ? res.latency.p50 : NaN;
+      const budget = WALL_BUDGET_MS[n];
+      const met = budget === undefined || median <= budget;
+      allMet &&= met;
+      row.push(`${n} walls ${fmt(median)}${budget === undefined ? '' : ` (budget ${fmt(budget)}${met ? '' : ', MISSES'})`}`);
+    }
+    console.log(`  ${label}: ${row.join(' · ')}`);
+  }
+  if (sink < 0) console.log(sink);
+  return allMet;
 }
 
 function demoCatalogue(): CatalogueItem[] {
@@ -64,6 +103,9 @@ function fmt(ms: number): string {
 }
 
 export async function runOpticsBench(): Promise<void> {
+  const growthMet = await runWallGrowth();
+  if (!growthMet) process.exitCode = 1;
+  if (process.env.BENCH_ONLY === 'walls') return;
   const walls = demoWalls();
   const r = rng(7);
   const placements = Array.from({ length: 30 }, (_, i) => {

@@ -4,7 +4,9 @@ import type { Scene, SceneWall } from '../../shared/schemas';
  * DEMO DATA — an invented cold store ("Harbourline Cold Storage, Dock Road", fictional). A side
  * aisle between two racking blocks meets the main aisle at a blind T-junction, where forklifts cross;
  * at the loading-dock corner, trucks leaving the main aisle turn blind around a racking end.
- * M1 is a half dome on a building column's north face, facing up the side aisle.
+ * M1 is a half dome on a building column's north face, facing up the side aisle; M2 is a round
+ * mirror on the east end face of the south-west racking block. Each sits on its face: no wall
+ * or rack passes through a mirror's body (the placement rule in shared/project-optics/mounting.ts).
  * Coordinates in metres from the building's south-west corner; x east, y north.
  */
 const RACK_M = 6;
@@ -18,6 +20,14 @@ function box(id: string, x0: number, y0: number, x1: number, y1: number, heightM
     { id: `${id}-w`, kind, aM: [x0, y1], bM: [x0, y0], heightM },
   ];
 }
+
+/**
+ * M1's flat back lies on the column's north face (y = 10): a half dome at its mounting tilt of
+ * 45° has its sphere centre on that face, R·sin 45° behind the vertex (R = 0.305 m).
+ */
+const M1_Y = 10 + 0.305 * Math.SQRT1_2;
+/** M2's rim clears the rack's east face (x = 16) by about 8 mm when aimed 25° south of east. */
+const M2_X = 16.21;
 
 export const DEMO_PROJECT = {
   name: 'Cold store aisles and dock (demo)',
@@ -42,7 +52,7 @@ export const DEMO_PROJECT = {
     ],
   } satisfies Scene,
   placements: [
-    { label: 'M1 junction', code: 'DEMO-DH610', positionM: [19.75, 10.05] as [number, number], heightM: 2.9, azimuthDeg: 90, tiltDownDeg: 45, viewerId: 'v-aisle' },
-    { label: 'M2 dock corner', code: 'DEMO-R600', positionM: [16.05, 10.05] as [number, number], heightM: 3.0, azimuthDeg: -25, tiltDownDeg: 25, viewerId: 'v-dock' },
+    { label: 'M1 junction', code: 'DEMO-DH610', positionM: [19.75, M1_Y] as [number, number], heightM: 2.9, azimuthDeg: 90, tiltDownDeg: 45, viewerId: 'v-aisle' },
+    { label: 'M2 dock corner', code: 'DEMO-R600', positionM: [M2_X, 10.05] as [number, number], heightM: 3.0, azimuthDeg: -25, tiltDownDeg: 25, viewerId: 'v-dock' },
   ],
 };

@@ -1,7 +1,7 @@
 import { bbox, multiPolygonArea, pointInMultiPolygon, polygonArea, ringLength, segmentsIntersect, windingNumber, type MultiPolygon, type Ring } from '../geometry/polygon';
 import { clipCurveToDisc } from '../geometry/clip-disc';
-import { simplifyMultiPolygon } from '../geometry/simplify';
-import { robustDifference } from '../geometry/robust-boolean';
+import { simplifyMultiPolygon, simplifyRing } from '../geometry/simplify';
+import { gridDifference } from '../geometry/grid-difference';
 import type { Vec3 } from '../geometry/vec3';
 import type { Pair } from '../geometry/polygon';
 import { OpticsInputError, requireNonNegative, requirePoint, requirePositive } from './errors';
@@ -10,6 +10,7 @@ import type { Pose } from './pose';
 import { traceOutline, visibleOutline, type TracedFan } from './trace';
 import { checkWalls, wallShadowRing, type Wall } from './walls';
 import { eyeSideShadows } from './eye-side';
+import { wallsInBox } from './wall-index';
 
 export type CoverageInput = {
   mirror: Mirror;
@@ -125,41 +126,82 @@ export function coverage(input: CoverageInput): CoverageResult {
   return { region, areaM2: multiPolygonArea(region) };
 }
 
+/** Walls traced per boolean step; after each step the region is smaller and more walls drop out. */
+const WALL_BATCH = 12;
+
 /**
- * Removes wall shadows from a region with one boolean difference (polygon-clipping). Before
- * the exact (Alhazen) shadow of a wall is traced, two conservative tests skip walls that cannot
- * matter: walls wholly beyond the range circle, and walls whose bounding wedge
- * ({@link shadowBound}) does not meet the region. Exact shadows that miss the region are
- * skipped too, and the rest are cut to the region's box, which leaves the result unchanged.
+ * Removes wall shadows from a region. Only walls that can touch the fan are traced:
+ * - an R-tree over the walls' plan boxes ({@link wallsInBox}) keeps the walls that meet the box
+ *   around the region and the mirror (a wall can hide a floor point only if it stands between
+ *   the point and the reflection point, which lies within `reach` of the vertex); for the eye →
+ *   mirror leg, the box around the eye and the mirror;
+ * - walls beyond the range circle, and walls whose bounding wedge ({@link shadowBound}) misses
+ *   the region, are skipped before the exact (Alhazen) shadow is traced;
+ * - walls are taken nearest first, in batches: each batch's shadows that still meet the region
+ *   are cut to its box, simplified within `tolM`/5, and removed with one boolean difference, so
+ *   later walls are tested against what is left (behind dense racking little is).
+ * Every skip is exact (it cannot change the result); the simplification moves a shadow's edge by
+ * at most tolM/5.
  */
 export function subtractWalls(p: PreparedCoverage, region: MultiPolygon, walls: readonly Wall[], tolM: number): MultiPolygon {
   const v = p.pm.pose.vertexM;
-  const [minX, minY, maxX, maxY] = bbox(region);
   // Every reflection point lies within `reach` of the vertex (the outline bounds the mirror).
   let reach = 0;
   for (let j = 0; j < p.fan.count; j++) {
     reach = Math.max(reach, Math.hypot(p.fan.point[3 * j] - v[0], p.fan.point[3 * j + 1] - v[1], p.fan.point[3 * j + 2] - v[2]));
   }
-  const shadows: Ring[][] = [];
-  for (const w of walls) {
-    if (w.heightM <= p.h0) continue;
-    if (segmentDistance(v[0], v[1], w) >= p.maxRangeM) continue;
-    const bound = shadowBound(w, v, reach, p.farM);
-    if (bound) {
-      const cut = clipToBox(bound, minX, minY, maxX, maxY);
-      if (cut.length < 4 || !overlaps(region, cut)) continue;
-    }
-    const ring = wallShadowRing(p.pm, p.eyeM, w, p.h0, p.farM, tolM);
-    if (!ring || !overlaps(region, ring)) continue;
-    shadows.push([clipToBox(ring, minX - 0.01, minY - 0.01, maxX + 0.01, maxY + 0.01)]);
+  const keepArea = (mp: MultiPolygon): MultiPolygon => mp.filter((poly) => polygonArea(poly) > 1e-6);
+
+  // Eye → mirror leg first: a wall in front of the mirror can hide much of the fan at once.
+  let ex0 = p.eyeM[0];
+  let ey0 = p.eyeM[1];
+  let ex1 = ex0;
+  let ey1 = ey0;
+  for (let j = 0; j < p.fan.count; j++) {
+    ex0 = Math.min(ex0, p.fan.point[3 * j]);
+    ey0 = Math.min(ey0, p.fan.point[3 * j + 1]);
+    ex1 = Math.max(ex1, p.fan.point[3 * j]);
+    ey1 = Math.max(ey1, p.fan.point[3 * j + 1]);
   }
-  for (const ring of eyeSideShadows(p.pm, p.eyeM, p.fan, walls, p.h0, p.farM)) {
-    if (overlaps(region, ring)) shadows.push([ring]);
-  }
-  if (shadows.length === 0) return region;
+  const eyeWalls = wallsInBox(walls, ex0, ey0, ex1, ey1).map((i) => walls[i]);
+  const eyeShadows: Ring[][] = [];
+  for (const ring of eyeSideShadows(p.pm, p.eyeM, p.fan, eyeWalls, p.h0, p.farM)) eyeShadows.push([ring]);
   // Slivers left where a shadow's traced edge runs along the region's own edge enclose no
   // meaningful area (below one square millimetre); drop them.
-  return robustDifference(region, ...shadows).filter((poly) => polygonArea(poly) > 1e-6);
+  if (eyeShadows.length > 0) region = keepArea(gridDifference(region, eyeShadows.map((r) => r[0])));
+  if (region.length === 0) return region;
+
+  // Mirror → floor leg.
+  let [minX, minY, maxX, maxY] = bbox(region);
+  const candidates = wallsInBox(walls, Math.min(minX, v[0] - reach), Math.min(minY, v[1] - reach), Math.max(maxX, v[0] + reach), Math.max(maxY, v[1] + reach))
+    .map((i) => ({ w: walls[i], d: segmentDistance(v[0], v[1], walls[i]) }))
+    .filter((c) => c.w.heightM > p.h0 && c.d < p.maxRangeM)
+    .sort((a, b) => a.d - b.d);
+  for (let k = 0; k < candidates.length && region.length > 0; k += WALL_BATCH) {
+    const shadows: Ring[][] = [];
+    for (const { w } of candidates.slice(k, k + WALL_BATCH)) {
+      // Still able to stand between the mirror and what is left of the region?
+      const bx0 = Math.min(minX, v[0] - reach);
+      const by0 = Math.min(minY, v[1] - reach);
+      const bx1 = Math.max(maxX, v[0] + reach);
+      const by1 = Math.max(maxY, v[1] + reach);
+      if (Math.max(w.aM[0], w.bM[0]) < bx0 || Math.min(w.aM[0], w.bM[0]) > bx1 || Math.max(w.aM[1], w.bM[1]) < by0 || Math.min(w.aM[1], w.bM[1]) > by1) continue;
+      const bound = shadowBound(w, v, reach, p.farM);
+      if (bound) {
+        const cut = clipToBox(bound, minX, minY, maxX, maxY);
+        if (cut.length < 4 || !overlaps(region, cut)) continue;
+      }
+      const ring = wallShadowRing(p.pm, p.eyeM, w, p.h0, p.farM, tolM);
+      if (!ring) continue;
+      // Cut to the region's box; a shadow that misses the region costs the grid sweep little.
+      const cut = clipToBox(ring, minX - 0.01, minY - 0.01, maxX + 0.01, maxY + 0.01);
+      if (cut.length >= 4) shadows.push([simplifyRing(cut, tolM / 5)]);
+    }
+    if (shadows.length === 0) continue;
+    region = keepArea(gridDifference(region, shadows.map((r) => r[0])));
+    if (region.length > 0) [minX, minY, maxX, maxY] = bbox(region);
+  }
+  return region;
 }
 
 /**

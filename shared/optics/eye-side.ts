@@ -1,4 +1,3 @@
-import { robustIntersection } from '../geometry/robust-boolean';
 import type { Pair, Ring } from '../geometry/polygon';
 import { cross, dot, norm, type Vec3 } from '../geometry/vec3';
 import { onPortion, type PlacedMirror } from './mirror';
@@ -105,10 +104,12 @@ export function eyeSideShadows(pm: PlacedMirror, eyeM: Vec3, fan: TracedFan, wal
       iy1 = Math.max(iy1, q[1]);
     }
     if (ix0 > maxX || ix1 < minX || iy0 > maxY || iy1 < minY) continue;
-    img.push([img[0][0], img[0][1]]);
-    const hidden = robustIntersection([outline], [img]);
-    for (const poly of hidden) {
-      for (const ring of poly) {
+    // The wall's image is convex (a planar quadrilateral cut by two parallel planes, seen from
+    // a point), so the part of the outline behind it is a Sutherland–Hodgman clip; where the
+    // outline is not convex the clip may hold zero-width bridges, which enclose no floor.
+    const hidden = clipToConvex(outline, img);
+    if (hidden.length >= 4) {
+      for (const ring of [hidden]) {
         const floor: Ring = [];
         for (let k = 0; k + 1 < ring.length; k++) {
           const [x0, y0] = ring[k];
@@ -127,6 +128,45 @@ export function eyeSideShadows(pm: PlacedMirror, eyeM: Vec3, fan: TracedFan, wal
     }
   }
   return out;
+}
+
+/**
+ * Sutherland–Hodgman clip of a ring (closed or not) to a convex polygon given in either
+ * orientation (I. Sutherland, G. Hodgman, "Reentrant polygon clipping", CACM 17(1), 1974).
+ * Returns a closed ring, or [] when nothing is left.
+ */
+function clipToConvex(ring: Ring, convex: Ring): Ring {
+  let area = 0;
+  for (let i = 0; i < convex.length; i++) {
+    const a = convex[i];
+    const b = convex[(i + 1) % convex.length];
+    area += a[0] * b[1] - b[0] * a[1];
+  }
+  const sign = area >= 0 ? 1 : -1;
+  const closed = ring.length > 1 && ring[0][0] === ring[ring.length - 1][0] && ring[0][1] === ring[ring.length - 1][1];
+  let pts: Pair[] = closed ? ring.slice(0, -1) : ring.slice();
+  for (let e = 0; e < convex.length && pts.length > 0; e++) {
+    const a = convex[e];
+    const b = convex[(e + 1) % convex.length];
+    const ex = b[0] - a[0];
+    const ey = b[1] - a[1];
+    const side = (p: Pair) => sign * (ex * (p[1] - a[1]) - ey * (p[0] - a[0]));
+    const next: Pair[] = [];
+    for (let i = 0; i < pts.length; i++) {
+      const p = pts[i];
+      const q = pts[(i + 1) % pts.length];
+      const sp = side(p);
+      const sq = side(q);
+      if (sp >= 0) next.push(p);
+      if ((sp >= 0) !== (sq >= 0)) {
+        const t = sp / (sp - sq);
+        next.push([p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1])]);
+      }
+    }
+    pts = next;
+  }
+  if (pts.length < 3) return [];
+  return [...pts, [pts[0][0], pts[0][1]]];
 }
 
 /** Sutherland–Hodgman clip of a 3-D polygon to lo ≤ f(p) ≤ hi for an affine f. */

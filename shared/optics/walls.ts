@@ -11,11 +11,14 @@ import type { PlacedMirror } from './mirror';
  */
 export type Wall = { aM: Pair; bM: Pair; heightM: number };
 
-/** Validates walls; a wall needs two distinct finite ends and a positive finite height. */
-export function checkWalls(walls: readonly Wall[] | undefined, field = 'walls'): Wall[] {
+/**
+ * Validates walls; a wall needs two distinct finite ends and a positive finite height. Returns
+ * the same array (not a copy), so that the spatial index cached for it is found again.
+ */
+export function checkWalls(walls: readonly Wall[] | undefined, field = 'walls'): readonly Wall[] {
   if (walls === undefined) return [];
   if (!Array.isArray(walls)) throw new OpticsInputError(field, 'Walls must be a list.');
-  return walls.map((w, i) => {
+  walls.forEach((w, i) => {
     const f = `${field}[${i}]`;
     const okPair = (p: unknown): p is Pair =>
       Array.isArray(p) && p.length === 2 && p.every((c) => typeof c === 'number' && Number.isFinite(c));
@@ -28,8 +31,8 @@ export function checkWalls(walls: readonly Wall[] | undefined, field = 'walls'):
     if (typeof w.heightM !== 'number' || !Number.isFinite(w.heightM) || w.heightM <= 0) {
       throw new OpticsInputError(`${f}.heightM`, `Wall ${i + 1} needs a height greater than zero.`);
     }
-    return w;
   });
+  return walls;
 }
 
 /**

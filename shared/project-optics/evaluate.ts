@@ -23,6 +23,7 @@ import {
 } from '../optics';
 import type { CatalogueItemDto, MirrorSpec, PlacementDto, Scene, SceneViewer, ZoneTarget } from '../schemas';
 import { DEFAULT_MIN_ANGLE_RAD, targetHeightM } from './targets';
+import { mountProblem } from './mounting';
 
 /** Reference object distances (m) at which the sheet and editor compare true and apparent distance. */
 export const REFERENCE_DISTANCES_M = [3, 10, 20] as const;
@@ -49,8 +50,8 @@ export interface EvaluatedPlacement {
   numbers: PlacementNumbers | null;
   /** Coverage on the floor, clipped by walls and by the adult recognisable range. */
   coverage: CoverageResult | null;
-  /** Why there are no numbers, as a sentence (no viewer, impossible optics…). */
-  problem: { field: string; message: string } | null;
+  /** Why there are no numbers, as a sentence (no viewer, impossible optics, a wall through the mirror…). */
+  problem: { field: string; message: string; snapM?: [number, number] | null } | null;
 }
 
 export interface EvaluatedZone {
@@ -127,6 +128,9 @@ export function evaluatePlacement(input: EvaluatePlacementInput): EvaluatedPlace
   out.viewer = viewer;
   try {
     out.pose = poseFromAim({ vertexM: [p.positionM[0], p.positionM[1], p.heightM], azimuthRad: p.azimuthRad, tiltDownRad: p.tiltDownRad });
+    // A wall through the mirror's body makes every figure meaningless; say what to change instead.
+    const mount = mountProblem({ mirror: out.mirror, placement: p, scene });
+    if (mount) return { ...out, problem: mount };
     if (!viewer) return { ...out, problem: { field: 'viewerId', message: 'Choose the viewer this mirror serves to see its numbers and coverage.' } };
     out.eyeM = [viewer.positionM[0], viewer.positionM[1], viewer.eyeHeightM];
     const v = out.pose.vertexM;

@@ -1,3 +1,4 @@
 export * from './evaluate';
 export * from './evaluator';
 export * from './targets';
+export * from './mounting';

@@ -38,7 +38,7 @@ const newProject = (name = 'Aisle 7 crossing') => ({
 const newPlacement = (catalogueItemId: number) => ({
   label: 'M1',
   catalogueItemId,
-  positionM: [2.5, 0.2],
+  positionM: [2.5, 0.4],
   heightM: 3,
   azimuthRad: Math.PI / 2,
   tiltDownRad: 0.3,
@@ -67,7 +67,7 @@ describe('projects: create, read, change, delete', () => {
 
     const placement = await a.post(`/api/projects/${p.id}/placements`).send(newPlacement(await firstCatalogueId()));
     expect(placement.status).toBe(201);
-    expect(placement.body.placement).toMatchObject({ label: 'M1', positionM: [2.5, 0.2], heightM: 3, version: 1 });
+    expect(placement.body.placement).toMatchObject({ label: 'M1', positionM: [2.5, 0.4], heightM: 3, version: 1 });
     const moved = await a.patch(`/api/projects/${p.id}/placements/${placement.body.placement.id}`).send({ version: 1, heightM: 3.5 });
     expect(moved.body.placement).toMatchObject({ heightM: 3.5, version: 2 });
 
@@ -239,6 +239,21 @@ describe('stale versions and bad bodies', () => {
     const res = await a.post(`/api/projects/${p.id}/placements`).send(body);
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.fields)).toContain(field);
+  });
+
+  it('refuses a mirror whose body the rack passes through, naming the rack, and accepts it on the face', async () => {
+    const a = await as('installerA');
+    const p = (await a.post('/api/projects').send(newProject('Mirror in the rack'))).body.project;
+    const base = newPlacement(await firstCatalogueId());
+    const inside = await a.post(`/api/projects/${p.id}/placements`).send({ ...base, positionM: [2.5, 0.01], tiltDownRad: 0 });
+    expect(inside.status).toBe(400);
+    expect(inside.body.fields.positionM).toMatch(/^“M1” reaches .* into rack “w1”; a mirror cannot hang inside a wall or rack\. Move it .*, to x 2\.50 m, y 0\.\d\d m, where it sits on the face\.$/);
+    const y = Number(/y (0\.\d\d) m/.exec(inside.body.fields.positionM)![1]);
+    const onFace = await a.post(`/api/projects/${p.id}/placements`).send({ ...base, positionM: [2.5, y], tiltDownRad: 0 });
+    expect(onFace.status).toBe(201);
+    const pushed = await a.patch(`/api/projects/${p.id}/placements/${onFace.body.placement.id}`).send({ version: 1, positionM: [2.5, 0.01] });
+    expect(pushed.status).toBe(400);
+    expect(pushed.body.fields.positionM).toMatch(/into rack “w1”/);
   });
 
   it('rejects a placement for a viewer that is not in the plan, or a catalogue item that does not exist', async () => {

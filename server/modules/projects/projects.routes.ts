@@ -6,8 +6,12 @@ import {
   idParam,
   patchPlacementBody,
   patchProjectBody,
+  type MirrorSpec,
   type Scene,
 } from '../../../shared/schemas';
+import { mirrorOfSpec, mountProblem } from '../../../shared/project-optics';
+import { resolveUnits } from '../../../shared/units';
+import { mirrorOfModel } from '../catalog/catalog.dto';
 import { z } from 'zod';
 import type { Orm } from '../../db';
 import { HttpError, notFound } from '../../http-error';
@@ -46,6 +50,26 @@ async function checkReferences(em: EntityManager, scene: Scene, body: { catalogu
     fields.viewerId = 'That viewer is not in this plan; add the viewer first or pick another.';
   }
   if (Object.keys(fields).length) throw new HttpError(400, Object.values(fields)[0], fields);
+}
+
+/**
+ * A mirror may not hang inside a wall or rack of the plan (the shared rule in
+ * shared/project-optics/mounting.ts): refused with the sentence the editor also shows.
+ */
+async function checkMount(
+  em: EntityManager,
+  user: User,
+  project: Project,
+  p: { label: string; catalogueItemId: number | null; customMirror: MirrorSpec | null; positionM: [number, number]; heightM: number; azimuthRad: number; tiltDownRad: number; viewerId: string | null },
+) {
+  let spec = p.customMirror;
+  if (!spec && p.catalogueItemId != null) {
+    const model = await em.findOne(MirrorModel, { id: p.catalogueItemId });
+    spec = model ? mirrorOfModel(model) : null;
+  }
+  if (!spec) return;
+  const problem = mountProblem({ label: p.label, mirror: mirrorOfSpec(spec), placement: p, scene: project.scene, units: resolveUnits(project.units, user.units) });
+  if (problem) throw new HttpError(400, problem.message, { positionM: problem.message });
 }
 
 const staleProject = (current: unknown) =>
@@ -126,6 +150,7 @@ export function projectsRoutes(orm: Orm): Router {
     assertCanEdit(req.user!, project);
     const body = parseOr400(createPlacementBody, req.body, 'The mirror');
     await checkReferences(em, project.scene, body);
+    await checkMount(em, req.user!, project, body);
     const { positionM, catalogueItemId, ...rest } = body;
     const placement = em.create(Placement, {
       ...rest,
@@ -149,6 +174,17 @@ export function projectsRoutes(orm: Orm): Router {
     const body = parseOr400(patchPlacementBody, req.body, 'The mirror');
     if (body.version !== placement.version) throw stalePlacement(toPlacementDto(placement));
     await checkReferences(em, project.scene, body);
+    const merged = {
+      label: body.label ?? placement.label,
+      catalogueItemId: body.catalogueItemId !== undefined ? body.catalogueItemId : body.customMirror != null ? null : (placement.catalogueItem?.id ?? null),
+      customMirror: body.customMirror !== undefined ? body.customMirror : body.catalogueItemId != null ? null : placement.customMirror,
+      positionM: body.positionM ?? ([placement.xM, placement.yM] as [number, number]),
+      heightM: body.heightM ?? placement.heightM,
+      azimuthRad: body.azimuthRad ?? placement.azimuthRad,
+      tiltDownRad: body.tiltDownRad ?? placement.tiltDownRad,
+      viewerId: body.viewerId !== undefined ? body.viewerId : placement.viewerId,
+    };
+    await checkMount(em, req.user!, project, merged);
     const { version: _v, positionM, catalogueItemId, ...rest } = body;
     em.assign(placement, rest);
     if (positionM) {

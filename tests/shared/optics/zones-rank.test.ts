@@ -1,4 +1,4 @@
-import { coverage, OpticsInputError, poseFromAim, rankOptions, zoneCoverage, ARCMIN_RAD, type CatalogueItem, type Polygon, type Vec3 } from '../../../shared/optics';
+import { coverage, defaultAims, OpticsInputError, poseFromAim, rankOptions, recognisableRange, sphereRadiusM, zoneCoverage, ARCMIN_RAD, type CatalogueItem, type Polygon, type Vec3, type Wall } from '../../../shared/optics';
 import { circleRing } from '../../../shared/geometry/polygon';
 
 describe('zone coverage', () => {
@@ -62,5 +62,70 @@ describe('ranking mirror options for a zone', () => {
 
   it('refuses an empty catalogue with a sentence', () => {
     expect(() => rankOptions({ catalogue: [], mountPoints, eyeM, zone, target })).toThrow(OpticsInputError);
+  });
+});
+
+describe('ranking against a brute-force search with walls', () => {
+  // A 6 m × 8 m zone with a 5 m rack along its south side. The mount south of the rack sees the
+  // whole zone when walls are ignored, but the rack hides the mirror from the driver and the
+  // zone from the mirror; the mount 6 m north of the zone sees its north part only (range 8 m).
+  const zone: Polygon = [[[0, 0], [8, 0], [8, 6], [0, 6]]];
+  const eyeM: Vec3 = [4, 10, 1.6];
+  const walls: Wall[] = [{ aM: [-2, -0.5], bM: [10, -0.5], heightM: 5 }];
+  const mountPoints = [
+    { id: 'behind-rack', vertexM: [4, -1, 3] as Vec3 },
+    { id: 'north', vertexM: [4, 12, 3] as Vec3 },
+  ];
+  const catalogue: CatalogueItem[] = [0.4, 0.5, 0.6, 0.7, 0.8].map((d) => ({ id: `r${Math.round(d * 1000)}`, mirror: { shape: 'round', diameterM: d, radiusM: 2 * d }, cost: 200 * d }));
+  // Target: a person, 1.7 m, at 5′ (common practice).
+  const target = { sizeM: 1.7, minAngleRad: 5 * ARCMIN_RAD };
+  const maxRangeM = 8;
+  const step = 0.01;
+
+  /** Every option traced exactly with walls, ranked by the documented key. */
+  function bruteForce(): { item: string; mount: string; fraction: number; rangeM: number; cost: number }[] {
+    const all: { item: string; mount: string; fraction: number; rangeM: number; cost: number }[] = [];
+    for (const item of catalogue) {
+      for (const mount of mountPoints) {
+        const D = Math.hypot(eyeM[0] - mount.vertexM[0], eyeM[1] - mount.vertexM[1], eyeM[2] - mount.vertexM[2]);
+        const rangeM = recognisableRange({ radiusM: sphereRadiusM(item.mirror), eyeDistanceM: D, targetSizeM: target.sizeM, minAngleRad: target.minAngleRad }).rangeM;
+        for (const aim of defaultAims(mount.vertexM, zone)) {
+          const pose = poseFromAim({ vertexM: mount.vertexM, ...aim });
+          let region;
+          try {
+            region = coverage({ mirror: item.mirror, pose, eyeM, maxRangeM: Math.min(maxRangeM, rangeM), walls }).region;
+          } catch (e) {
+            if (e instanceof OpticsInputError) continue; // eye behind the mirror: not an option
+            throw e;
+          }
+          all.push({ item: item.id, mount: mount.id, fraction: zoneCoverage({ zone, regions: [region] }).fraction, rangeM, cost: item.cost });
+        }
+      }
+    }
+    const key = (o: { fraction: number; rangeM: number; cost: number }) => [Math.floor(o.fraction / step + 1e-9), o.rangeM, -o.cost, o.fraction];
+    return all.sort((a, b) => {
+      const ka = key(a);
+      const kb = key(b);
+      for (let i = 0; i < ka.length; i++) if (ka[i] !== kb[i]) return kb[i] - ka[i];
+      return 0;
+    });
+  }
+
+  let brute: ReturnType<typeof bruteForce> = [];
+  beforeAll(() => {
+    brute = bruteForce();
+  });
+
+  it('puts the best option with walls first, not one the rack hides completely', () => {
+    const ranked = rankOptions({ catalogue, mountPoints, eyeM, zone, target, walls, maxRangeM, limit: 3 });
+    expect(brute[0].fraction).toBeGreaterThan(0.25);
+    expect(ranked[0].fraction).toBeGreaterThan(0.25);
+    expect(ranked[0].mountPoint.id).toBe('north');
+    expect(ranked.map((o) => o.fraction)).toEqual(brute.slice(0, 3).map((o) => o.fraction));
+  });
+
+  it('returns the same top options as the brute-force search, in the same order', () => {
+    const ranked = rankOptions({ catalogue, mountPoints, eyeM, zone, target, walls, maxRangeM, limit: 8 });
+    expect(ranked.map((o) => [o.item.id, o.mountPoint.id, o.fraction])).toEqual(brute.slice(0, 8).map((o) => [o.item, o.mount, o.fraction]));
   });
 });
