@@ -1,13 +1,15 @@
 import { bbox, multiPolygonArea, pointInMultiPolygon, polygonArea, ringLength, segmentsIntersect, windingNumber, type MultiPolygon, type Ring } from '../geometry/polygon';
-import { clipCurveToDisc } from '../geometry/clip-disc';
+import { clipOrientedCurvesToDisc } from '../geometry/clip-disc';
 import { simplifyMultiPolygon } from '../geometry/simplify';
 import { robustDifference } from '../geometry/robust-boolean';
 import type { Vec3 } from '../geometry/vec3';
 import type { Pair } from '../geometry/polygon';
 import { OpticsInputError, requireNonNegative, requirePoint, requirePositive } from './errors';
-import { placeMirror, type Mirror, type PlacedMirror } from './mirror';
+import { onPortion, placeMirror, type Mirror, type PlacedMirror } from './mirror';
+import { sphereReflectionPoint } from './alhazen';
+import { fanBoundary } from './fan-boundary';
 import type { Pose } from './pose';
-import { traceOutline, visibleOutline, type TracedFan } from './trace';
+import { traceOutline, visibleOutline, type Outline, type TracedFan } from './trace';
 import { checkWalls, wallShadowRing, type Wall } from './walls';
 import { eyeSideShadows } from './eye-side';
 
@@ -54,6 +56,7 @@ export type PreparedCoverage = {
   h0: number;
   maxRangeM: number;
   farM: number;
+  outline: Outline;
   fan: TracedFan;
 };
 
@@ -70,13 +73,26 @@ export function prepareCoverage(input: CoverageInput): PreparedCoverage {
   const farM = farDistanceM(pm, maxRangeM);
   const outline = visibleOutline(pm, eyeM, samples);
   const fan = traceOutline(pm, eyeM, outline, h0, farM);
-  if (!(fan.minZ > h0)) {
+  if (!(lowestSeenPointZ(pm, eyeM, fan.minZ) > h0)) {
     throw new OpticsInputError(
       'planeHeightM',
       'The mirror reaches down to the plane being measured; mount it higher or measure a lower plane.',
     );
   }
-  return { pm, eyeM, h0, maxRangeM, farM, fan };
+  return { pm, eyeM, h0, maxRangeM, farM, outline, fan };
+}
+
+/**
+ * Height of the lowest point of the part of the mirror the eye sees. Height restricted to a
+ * sphere has its only minimum at the bottom point C − R·ẑ, so the lowest point is that one
+ * when the eye sees it on the mirror, and otherwise lies on the outline (`outlineMinZ`).
+ */
+function lowestSeenPointZ(pm: PlacedMirror, eyeM: Vec3, outlineMinZ: number): number {
+  const down: Vec3 = [0, 0, -1];
+  const ez = eyeM[2] - pm.C[2];
+  const ed = Math.hypot(eyeM[0] - pm.C[0], eyeM[1] - pm.C[1], ez);
+  if (onPortion(pm, down) && -ez / ed >= pm.R / ed) return Math.min(outlineMinZ, pm.C[2] - pm.R);
+  return outlineMinZ;
 }
 
 /**
@@ -88,10 +104,23 @@ export function defaultArcStepRad(maxRangeM: number): number {
   return Math.min((2 * Math.PI) / 64, 2 * Math.acos(Math.max(-1, 1 - 0.005 / maxRangeM)));
 }
 
-/** The traced fan clipped to the range circle, before walls. */
+/** Largest distance, metres, between a traced fan edge and the true edge near the range disc. */
+export const FAN_EDGE_TOLERANCE_M = 0.003;
+
+/**
+ * The traced fan clipped to the range circle, before walls: the boundary pieces from
+ * {@link fanBoundary} (oriented, so a region that lies outside the outline's image is not
+ * mistaken for one inside it) walked with the range circle. When no piece enters the disc the
+ * whole disc is in or out, decided by the exact point test at its centre.
+ */
 export function fanRegion(p: PreparedCoverage, arcStepRad = defaultArcStepRad(p.maxRangeM)): MultiPolygon {
   const v = p.pm.pose.vertexM;
-  return clipCurveToDisc(p.fan.gx, p.fan.gy, p.fan.count, v[0], v[1], p.maxRangeM, arcStepRad);
+  const disc = { cx: v[0], cy: v[1], r: p.maxRangeM };
+  const { curves } = fanBoundary(p.pm, p.eyeM, p.outline, p.fan, p.h0, p.farM, disc, FAN_EDGE_TOLERANCE_M);
+  return clipOrientedCurvesToDisc(curves, disc.cx, disc.cy, disc.r, arcStepRad, () => {
+    const m = sphereReflectionPoint(p.pm.C, p.pm.R, p.eyeM, [v[0], v[1], p.h0]);
+    return m !== null && onPortion(p.pm, m);
+  });
 }
 
 /**

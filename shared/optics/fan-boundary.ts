@@ -1,0 +1,248 @@
+import type { Vec3 } from '../geometry/vec3';
+import type { OrientedCurve } from '../geometry/clip-disc';
+import type { PlacedMirror } from './mirror';
+import { outlinePoint, traceToPlane, type Outline, type TracedFan } from './trace';
+
+/**
+ * The boundary of the seen part of a plane, inside a range disc, as curves oriented with the
+ * seen part on their left.
+ *
+ * Why this is enough: let D be the part of the mirror the eye sees and S ⊂ D the part whose
+ * reflected rays meet the plane within `farM` horizontally. A convex mirror maps its surface
+ * one-to-one onto reflected rays, so the map G (mirror point → plane point) is one-to-one on S
+ * and the seen region G(S) is bounded by the images of S's boundary: (a) the pieces of D's
+ * outline that lie in S and (b) the curve inside D where rays meet the plane exactly `farM`
+ * away. Every point of (b) lies `farM` from its reflection point, so far outside the range
+ * disc (farM exceeds the range by more than the mirror's size). Inside the disc, then, the
+ * boundary is the image of the outline pieces that hit, and the region is recovered by walking
+ * those pieces and the range circle (`clipOrientedCurvesToDisc`) once their orientation is
+ * known. The orientation comes from G itself at one outline point (the image of the step
+ * along the outline and of the step into the mirror), not from the curve's shoelace sum, which
+ * is wrong when the outline encloses a part that reflects upward (then the region lies outside
+ * the outline's image: a hole in the floor, not an island).
+ *
+ * Each piece of the outline that hits is extended at both ends to a point at least farM/2 away
+ * (bisection on the outline), so every open piece starts and ends outside the disc. Chords
+ * whose traced midpoint strays more than `tolM` from them are subdivided near the disc.
+ */
+export type FanBoundary = {
+  /** Oriented curves, seen part on the left; open curves start and end outside the disc. */
+  curves: OrientedCurve[];
+  /** False when no traced outline ray meets the plane (then there is no boundary in the disc). */
+  anyHit: boolean;
+};
+
+/** Largest number of halvings of one outline step when refining a chord. */
+const MAX_DEPTH = 14;
+/** Cap on extra traces per region, so a pathological case stays bounded in time. */
+const MAX_EXTRA_TRACES = 40_000;
+
+export function fanBoundary(
+  pm: PlacedMirror,
+  eyeM: Vec3,
+  outline: Outline,
+  fan: TracedFan,
+  h0: number,
+  farM: number,
+  disc: { cx: number; cy: number; r: number },
+  tolM: number,
+): FanBoundary {
+  const n = outline.count;
+  const par = outline.param;
+  const bAt = (idx: number): number => outline.b[idx % n] + 2 * Math.PI * Math.floor(idx / n);
+  let firstMiss = -1;
+  let anyHit = false;
+  for (let j = 0; j < n; j++) {
+    if (fan.hits[j]) anyHit = true;
+    else if (firstMiss < 0) firstMiss = j;
+  }
+  if (!anyHit) return { curves: [], anyHit: false };
+
+  const tmp = new Float64Array(3);
+  let traces = 0;
+  const trace = (b: number): boolean => {
+    traces++;
+    return traceToPlane(pm, eyeM, outlinePoint(par, b), h0, farM, tmp);
+  };
+
+  const curves: OrientedCurve[] = [];
+  let cur: { xs: number[]; ys: number[] } | null = null;
+  const emit = (x: number, y: number): void => {
+    if (!cur) {
+      cur = { xs: [], ys: [] };
+    }
+    cur.xs.push(x);
+    cur.ys.push(y);
+  };
+  const endCurve = (): void => {
+    if (cur && cur.xs.length >= 2) curves.push({ xs: cur.xs, ys: cur.ys, closed: false });
+    cur = null;
+  };
+
+  /** A point on the outline between a hit (bHit) and a miss (bMiss) that hits at least farM/2 away. */
+  const crossing = (bHit: number, bMiss: number): [number, number, number] => {
+    let hx = NaN;
+    let hy = NaN;
+    let hb = bHit;
+    for (let it = 0; it < 60; it++) {
+      const bm = 0.5 * (bHit + bMiss);
+      if (trace(bm)) {
+        bHit = bm;
+        hb = bm;
+        hx = tmp[0];
+        hy = tmp[1];
+        if (tmp[2] >= farM / 2) break;
+      } else {
+        bMiss = bm;
+      }
+    }
+    if (Number.isNaN(hx)) {
+      trace(hb);
+      hx = tmp[0];
+      hy = tmp[1];
+    }
+    return [hb, hx, hy];
+  };
+
+  const { cx, cy, r } = disc;
+  const tol2 = tolM * tolM;
+  /** Emits the points strictly between two hitting outline points A and B, refining near the disc. */
+  const segment = (bA: number, xA: number, yA: number, bB: number, xB: number, yB: number, depth: number): void => {
+    if (depth >= MAX_DEPTH || traces > MAX_EXTRA_TRACES) return;
+    const dx = xB - xA;
+    const dy = yB - yA;
+    const len = Math.hypot(dx, dy);
+    const dA = Math.hypot(xA - cx, yA - cy);
+    const dB = Math.hypot(xB - cx, yB - cy);
+    // Far from the disc a chord cannot matter: the traced curve between A and B stays near it.
+    if (Math.min(dA, dB) > r + len) return;
+    const bM = 0.5 * (bA + bB);
+    if (!trace(bM)) {
+      // A part of the outline that misses the plane hides between the two samples.
+      const [b1, x1, y1] = crossing(bA, bM);
+      segment(bA, xA, yA, b1, x1, y1, depth + 1);
+      emit(x1, y1);
+      endCurve();
+      const [b2, x2, y2] = crossing(bB, bM);
+      emit(x2, y2);
+      segment(b2, x2, y2, bB, xB, yB, depth + 1);
+      return;
+    }
+    const xM = tmp[0];
+    const yM = tmp[1];
+    // Squared distance of the traced midpoint from the chord.
+    let dev2: number;
+    if (len > 0) {
+      const c = ((xM - xA) * dy - (yM - yA) * dx) / len;
+      dev2 = c * c;
+    } else {
+      dev2 = (xM - xA) ** 2 + (yM - yA) ** 2;
+    }
+    if (dev2 > tol2) {
+      segment(bA, xA, yA, bM, xM, yM, depth + 1);
+      emit(xM, yM);
+      segment(bM, xM, yM, bB, xB, yB, depth + 1);
+    }
+  };
+
+  /**
+   * Whether the chord from sample j to the next could stray from the traced curve by more than
+   * the tolerance: a smooth curve sampled at even steps strays from its chord by about an
+   * eighth of its second difference, checked at both ends (uneven steps and corners only make
+   * the estimate larger, so they get traced).
+   */
+  const secondDiff = (j: number): number => {
+    const a = (j + n - 1) % n;
+    const c = (j + 1) % n;
+    if (!fan.hits[a] || !fan.hits[j] || !fan.hits[c]) return Infinity;
+    return Math.hypot(fan.gx[a] - 2 * fan.gx[j] + fan.gx[c], fan.gy[a] - 2 * fan.gy[j] + fan.gy[c]);
+  };
+  const smooth = (j: number): boolean => Math.max(secondDiff(j), secondDiff((j + 1) % n)) < 4 * tolM;
+  const step = (idx: number): void => {
+    const j = idx % n;
+    const k = (idx + 1) % n;
+    if (!smooth(j)) segment(bAt(idx), fan.gx[j], fan.gy[j], bAt(idx + 1), fan.gx[k], fan.gy[k], 0);
+  };
+
+  if (firstMiss < 0) {
+    // The whole outline hits: one closed curve, unless refinement finds a gap.
+    for (let idx = 0; idx < n; idx++) {
+      emit(fan.gx[idx], fan.gy[idx]);
+      step(idx);
+    }
+    if (curves.length === 0 && cur) {
+      const c = cur as { xs: number[]; ys: number[] };
+      curves.push({ xs: c.xs, ys: c.ys, closed: true });
+    } else if (cur) {
+      // A gap was found: the last open piece runs on into the first one.
+      const c = cur as { xs: number[]; ys: number[] };
+      const first = curves[0];
+      curves[0] = { xs: [...c.xs, ...first.xs], ys: [...c.ys, ...first.ys], closed: false };
+    }
+  } else {
+    for (let idx = firstMiss; idx < firstMiss + n; idx++) {
+      const j = idx % n;
+      const k = (idx + 1) % n;
+      const hj = fan.hits[j] === 1;
+      const hk = fan.hits[k] === 1;
+      if (hj && hk) {
+        step(idx);
+        emit(fan.gx[k], fan.gy[k]);
+      } else if (hj) {
+        const [b1, x1, y1] = crossing(bAt(idx), bAt(idx + 1));
+        segment(bAt(idx), fan.gx[j], fan.gy[j], b1, x1, y1, 0);
+        emit(x1, y1);
+        endCurve();
+      } else if (hk) {
+        const [b2, x2, y2] = crossing(bAt(idx + 1), bAt(idx));
+        endCurve();
+        emit(x2, y2);
+        segment(b2, x2, y2, bAt(idx + 1), fan.gx[k], fan.gy[k], 0);
+        emit(fan.gx[k], fan.gy[k]);
+      }
+    }
+    endCurve();
+  }
+
+  if (!isInsideLeft(pm, eyeM, outline, fan, h0, farM)) {
+    for (const c of curves) {
+      c.xs.reverse();
+      c.ys.reverse();
+    }
+  }
+  return { curves, anyHit: true };
+}
+
+/**
+ * Orientation of the map from the mirror to the plane, measured at the outline point whose ray
+ * meets the plane nearest: true when the traced image of a small step into the mirror lies to
+ * the left of the image of a small step along the outline (increasing b), i.e. the seen part
+ * is on the left of the traced outline.
+ */
+function isInsideLeft(pm: PlacedMirror, eyeM: Vec3, outline: Outline, fan: TracedFan, h0: number, farM: number): boolean {
+  const n = outline.count;
+  // The nearest hit first (its neighbourhood surely hits too), then any other hit.
+  const run = (j: number): number => Math.hypot(fan.gx[j] - fan.point[3 * j], fan.gy[j] - fan.point[3 * j + 1]);
+  let nearest = -1;
+  for (let j = 0; j < n; j++) if (fan.hits[j] && (nearest < 0 || run(j) < run(nearest))) nearest = j;
+  const order = [nearest];
+  for (let j = 0; j < n; j++) if (fan.hits[j] && j !== nearest) order.push(j);
+  const t = new Float64Array(3);
+  for (const j of order) {
+    const b = outline.b[j];
+    const ax = fan.gx[j];
+    const ay = fan.gy[j];
+    for (const step of [1e-6, 1e-4, 1e-3]) {
+      if (!traceToPlane(pm, eyeM, outlinePoint(outline.param, b + step, 1), h0, farM, t)) continue;
+      const ux = t[0] - ax;
+      const uy = t[1] - ay;
+      if (!traceToPlane(pm, eyeM, outlinePoint(outline.param, b, 1 - step), h0, farM, t)) continue;
+      const vx = t[0] - ax;
+      const vy = t[1] - ay;
+      const cr = ux * vy - uy * vx;
+      if (cr !== 0 && Number.isFinite(cr)) return cr > 0;
+    }
+  }
+  // No usable outline point (every hit is degenerate): fall back to counter-clockwise.
+  return true;
+}
