@@ -182,8 +182,8 @@ export function subtractWalls(p: PreparedCoverage, region: MultiPolygon, walls: 
     if (!ring || !overlaps(region, ring)) continue;
     shadows.push([clipToBox(ring, minX - 0.01, minY - 0.01, maxX + 0.01, maxY + 0.01)]);
   }
-  for (const ring of eyeSideShadows(p.pm, p.eyeM, p.fan, walls, p.h0, p.farM)) {
-    if (overlaps(region, ring)) shadows.push([ring]);
+  for (const poly of eyeSideShadows(p.pm, p.eyeM, p.fan, walls, p.h0, p.farM, p.maxRangeM)) {
+    if (overlaps(region, poly[0])) shadows.push(poly);
   }
   if (shadows.length === 0) return region;
   // Slivers left where a shadow's traced edge runs along the region's own edge enclose no

@@ -37,6 +37,27 @@ const MAX_DEPTH = 14;
 /** Cap on extra traces per region, so a pathological case stays bounded in time. */
 const MAX_EXTRA_TRACES = 40_000;
 
+/**
+ * A closed loop on the mirror sphere bounding a part of the mirror: samples at increasing
+ * parameters t (the loop closes after `period`), with their traces already done.
+ */
+export type SphereLoop = {
+  count: number;
+  t: ArrayLike<number>;
+  period: number;
+  /** Unit direction from the sphere's centre of the loop point at parameter t. */
+  at(t: number): Vec3;
+  /** A point of the enclosed part a small step `eps` (parameter units) in from the loop at t. */
+  inside(t: number, eps: number): Vec3;
+  /** Per sample: 1 when its ray meets the plane within farM, and where. */
+  hits: Uint8Array;
+  gx: ArrayLike<number>;
+  gy: ArrayLike<number>;
+  /** Per sample: horizontal run from its reflection point to the plane (hits only). */
+  run: ArrayLike<number>;
+};
+
+/** {@link loopBoundary} for the whole visible outline of the mirror (the coverage fan). */
 export function fanBoundary(
   pm: PlacedMirror,
   eyeM: Vec3,
@@ -48,8 +69,36 @@ export function fanBoundary(
   tolM: number,
 ): FanBoundary {
   const n = outline.count;
+  const run = new Float64Array(n);
+  for (let j = 0; j < n; j++) run[j] = Math.hypot(fan.gx[j] - fan.point[3 * j], fan.gy[j] - fan.point[3 * j + 1]);
   const par = outline.param;
-  const bAt = (idx: number): number => outline.b[idx % n] + 2 * Math.PI * Math.floor(idx / n);
+  const loop: SphereLoop = {
+    count: n,
+    t: outline.b,
+    period: 2 * Math.PI,
+    at: (b) => outlinePoint(par, b),
+    inside: (b, eps) => outlinePoint(par, b, 1 - eps),
+    hits: fan.hits,
+    gx: fan.gx,
+    gy: fan.gy,
+    run,
+  };
+  return loopBoundary(pm, eyeM, loop, h0, farM, disc, tolM);
+}
+
+/** The boundary, inside a disc, of the part of the plane seen in the part of the mirror a loop encloses. */
+export function loopBoundary(
+  pm: PlacedMirror,
+  eyeM: Vec3,
+  loop: SphereLoop,
+  h0: number,
+  farM: number,
+  disc: { cx: number; cy: number; r: number },
+  tolM: number,
+): FanBoundary {
+  const n = loop.count;
+  const fan = loop;
+  const bAt = (idx: number): number => loop.t[idx % n] + loop.period * Math.floor(idx / n);
   let firstMiss = -1;
   let anyHit = false;
   for (let j = 0; j < n; j++) {
@@ -62,7 +111,7 @@ export function fanBoundary(
   let traces = 0;
   const trace = (b: number): boolean => {
     traces++;
-    return traceToPlane(pm, eyeM, outlinePoint(par, b), h0, farM, tmp);
+    return traceToPlane(pm, eyeM, loop.at(b), h0, farM, tmp);
   };
 
   const curves: OrientedCurve[] = [];
@@ -204,7 +253,7 @@ export function fanBoundary(
     endCurve();
   }
 
-  if (!isInsideLeft(pm, eyeM, outline, fan, h0, farM)) {
+  if (!isInsideLeft(pm, eyeM, loop, h0, farM)) {
     for (const c of curves) {
       c.xs.reverse();
       c.ys.reverse();
@@ -219,30 +268,29 @@ export function fanBoundary(
  * the left of the image of a small step along the outline (increasing b), i.e. the seen part
  * is on the left of the traced outline.
  */
-function isInsideLeft(pm: PlacedMirror, eyeM: Vec3, outline: Outline, fan: TracedFan, h0: number, farM: number): boolean {
-  const n = outline.count;
+function isInsideLeft(pm: PlacedMirror, eyeM: Vec3, loop: SphereLoop, h0: number, farM: number): boolean {
+  const n = loop.count;
   // The nearest hit first (its neighbourhood surely hits too), then any other hit.
-  const run = (j: number): number => Math.hypot(fan.gx[j] - fan.point[3 * j], fan.gy[j] - fan.point[3 * j + 1]);
   let nearest = -1;
-  for (let j = 0; j < n; j++) if (fan.hits[j] && (nearest < 0 || run(j) < run(nearest))) nearest = j;
+  for (let j = 0; j < n; j++) if (loop.hits[j] && (nearest < 0 || loop.run[j] < loop.run[nearest])) nearest = j;
   const order = [nearest];
-  for (let j = 0; j < n; j++) if (fan.hits[j] && j !== nearest) order.push(j);
+  for (let j = 0; j < n; j++) if (loop.hits[j] && j !== nearest) order.push(j);
   const t = new Float64Array(3);
   for (const j of order) {
-    const b = outline.b[j];
-    const ax = fan.gx[j];
-    const ay = fan.gy[j];
+    const b = loop.t[j];
+    const ax = loop.gx[j];
+    const ay = loop.gy[j];
     for (const step of [1e-6, 1e-4, 1e-3]) {
-      if (!traceToPlane(pm, eyeM, outlinePoint(outline.param, b + step, 1), h0, farM, t)) continue;
+      if (!traceToPlane(pm, eyeM, loop.at(b + step), h0, farM, t)) continue;
       const ux = t[0] - ax;
       const uy = t[1] - ay;
-      if (!traceToPlane(pm, eyeM, outlinePoint(outline.param, b, 1 - step), h0, farM, t)) continue;
+      if (!traceToPlane(pm, eyeM, loop.inside(b, step), h0, farM, t)) continue;
       const vx = t[0] - ax;
       const vy = t[1] - ay;
       const cr = ux * vy - uy * vx;
       if (cr !== 0 && Number.isFinite(cr)) return cr > 0;
     }
   }
-  // No usable outline point (every hit is degenerate): fall back to counter-clockwise.
+  // No usable point (every hit is degenerate): fall back to counter-clockwise.
   return true;
 }

@@ -65,6 +65,25 @@ describe('coverage region where sightlines reflect past straight up', () => {
     expect(a.disagreements).toEqual([]);
   });
 
+  it.each([
+    ['part of it', 2.4],
+    ['all of it, including the part that reflects upward', 3.395],
+  ])('removes the floor a wall between the eye and a half dome hides when it hides %s', (_label, heightM) => {
+    // The wall stands 0.9–1.9 m in front of the dome, between it and the eye; the dome's upper
+    // part reflects the eye's sightlines upward.
+    const c: Case = {
+      mirror: { shape: 'dome', portion: 'half', diameterM: 1.24 },
+      pose: { vertexM: [0, 0, 3.785], axis: [0.9631, 0, -0.2691] },
+      eyeM: [3.146, -1.111, 1.03],
+      maxRangeM: 12,
+    };
+    const walls = [{ aM: [1.775, -0.872] as [number, number], bM: [0.929, -0.083] as [number, number], heightM }];
+    expect(coverage(c).areaM2).toBeGreaterThan(100);
+    const { region } = coverage({ ...c, walls });
+    const a = regionAgreement({ region, ...c, walls, n: 2500, marginM: 0.02, seed: 1 });
+    expect(a.disagreements).toEqual([]);
+  });
+
   it('keeps the floor around a ball-shaped dome whose middle reflects upward', () => {
     const c = cases[7][1];
     const { areaM2 } = coverage(c);

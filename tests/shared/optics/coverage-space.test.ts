@@ -49,9 +49,12 @@ const placementArb = fc.record({
   seed: fc.integer({ min: 1, max: 1_000_000 }),
 });
 
-/** 1–5 walls or racks crossing the range disc anywhere (through the fan, beside the eye), 0.1–6 m high. */
+/**
+ * 1–5 walls or racks, 0.1–6 m high: crossing the range disc anywhere (through the fan), or
+ * standing between the eye and the mirror (hiding part of it from the eye).
+ */
 const wallsArb = fc.array(
-  fc.record({ rU: unit, angleRad: fc.double({ min: -Math.PI, max: Math.PI, noNaN: true }), dirRad: fc.double({ min: 0, max: Math.PI, noNaN: true }), lenU: unit, heightM: fc.double({ min: 0.1, max: 6, noNaN: true }) }),
+  fc.record({ between: fc.boolean(), hU: unit, rU: unit, angleRad: fc.double({ min: -Math.PI, max: Math.PI, noNaN: true }), dirRad: fc.double({ min: 0, max: Math.PI, noNaN: true }), lenU: unit, heightM: fc.double({ min: 0.1, max: 6, noNaN: true }) }),
   { minLength: 1, maxLength: 5 },
 );
 
@@ -66,17 +69,21 @@ function extentM(m: Mirror): number {
  * Walls from the random draws, kept out of the mirror's own body: a wall through the mirror is
  * geometry that cannot exist (refused elsewhere), not a question for the region.
  */
-function wallsFor(draws: { rU: number; angleRad: number; dirRad: number; lenU: number; heightM: number }[], mirror: Mirror, maxRangeM: number): Wall[] {
+function wallsFor(draws: { between: boolean; hU: number; rU: number; angleRad: number; dirRad: number; lenU: number; heightM: number }[], mirror: Mirror, maxRangeM: number, eyeM: Vec3, vertexZ: number): Wall[] {
   const keepOut = extentM(mirror) + 0.05;
   const out: Wall[] = [];
   for (const d of draws) {
     const rad = 1.1 * maxRangeM * Math.sqrt(d.rU);
-    const cx = rad * Math.cos(d.angleRad);
-    const cy = rad * Math.sin(d.angleRad);
+    const cx = d.between ? d.rU * eyeM[0] : rad * Math.cos(d.angleRad);
+    const cy = d.between ? d.rU * eyeM[1] : rad * Math.sin(d.angleRad);
     const half = 0.5 * (0.2 + Math.min(10, 1.5 * maxRangeM) * d.lenU);
     const ux = Math.cos(d.dirRad);
     const uy = Math.sin(d.dirRad);
-    const w: Wall = { aM: [cx - half * ux, cy - half * uy], bM: [cx + half * ux, cy + half * uy], heightM: d.heightM };
+    // A wall between the eye and the mirror gets its top near the eye → mirror sightline, so
+    // that it hides part of the mirror.
+    const sightZ = eyeM[2] + (1 - d.rU) * (vertexZ - eyeM[2]);
+    const heightM = d.between ? Math.max(0.1, sightZ + (d.hU - 0.5) * 2 * extentM(mirror)) : d.heightM;
+    const w: Wall = { aM: [cx - half * ux, cy - half * uy], bM: [cx + half * ux, cy + half * uy], heightM };
     // Plan distance from the vertex (origin) to the wall's segment.
     const t = Math.max(-half, Math.min(half, -(cx * ux + cy * uy)));
     if (Math.hypot(cx + t * ux, cy + t * uy) > keepOut) out.push(w);
@@ -124,7 +131,7 @@ describe('coverage region over the whole accepted input space', () => {
     fc.assert(
       fc.property(placementArb, wallsArb, (p, draws) => {
         const input = setUp(p);
-        const walls = wallsFor(draws, p.mirror, p.maxRangeM);
+        const walls = wallsFor(draws, p.mirror, p.maxRangeM, input.eyeM, p.heightM);
         const res = tryCoverage({ ...input, walls });
         fc.pre(res !== null);
         if (!res) return;
