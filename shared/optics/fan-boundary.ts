@@ -70,7 +70,11 @@ export function fanBoundary(
 ): FanBoundary {
   const n = outline.count;
   const run = new Float64Array(n);
-  for (let j = 0; j < n; j++) run[j] = Math.hypot(fan.gx[j] - fan.point[3 * j], fan.gy[j] - fan.point[3 * j + 1]);
+  for (let j = 0; j < n; j++) {
+    const dx = fan.gx[j] - fan.point[3 * j];
+    const dy = fan.gy[j] - fan.point[3 * j + 1];
+    run[j] = Math.sqrt(dx * dx + dy * dy);
+  }
   const par = outline.param;
   const loop: SphereLoop = {
     count: n,
@@ -160,9 +164,9 @@ export function loopBoundary(
     if (depth >= MAX_DEPTH || traces > MAX_EXTRA_TRACES) return;
     const dx = xB - xA;
     const dy = yB - yA;
-    const len = Math.hypot(dx, dy);
-    const dA = Math.hypot(xA - cx, yA - cy);
-    const dB = Math.hypot(xB - cx, yB - cy);
+    const len = Math.sqrt(dx * dx + dy * dy);
+    const dA = Math.sqrt((xA - cx) ** 2 + (yA - cy) ** 2);
+    const dB = Math.sqrt((xB - cx) ** 2 + (yB - cy) ** 2);
     // Far from the disc a chord cannot matter: the traced curve between A and B stays near it.
     if (Math.min(dA, dB) > r + len) return;
     const bM = 0.5 * (bA + bB);
@@ -200,13 +204,19 @@ export function loopBoundary(
    * eighth of its second difference, checked at both ends (uneven steps and corners only make
    * the estimate larger, so they get traced).
    */
-  const secondDiff = (j: number): number => {
-    const a = (j + n - 1) % n;
-    const c = (j + 1) % n;
-    if (!fan.hits[a] || !fan.hits[j] || !fan.hits[c]) return Infinity;
-    return Math.hypot(fan.gx[a] - 2 * fan.gx[j] + fan.gx[c], fan.gy[a] - 2 * fan.gy[j] + fan.gy[c]);
-  };
-  const smooth = (j: number): boolean => Math.max(secondDiff(j), secondDiff((j + 1) % n)) < 4 * tolM;
+  const sd = new Float64Array(n);
+  for (let j = 0; j < n; j++) {
+    const a = j === 0 ? n - 1 : j - 1;
+    const c = j + 1 === n ? 0 : j + 1;
+    if (!fan.hits[a] || !fan.hits[j] || !fan.hits[c]) {
+      sd[j] = Infinity;
+      continue;
+    }
+    const ddx = fan.gx[a] - 2 * fan.gx[j] + fan.gx[c];
+    const ddy = fan.gy[a] - 2 * fan.gy[j] + fan.gy[c];
+    sd[j] = Math.sqrt(ddx * ddx + ddy * ddy);
+  }
+  const smooth = (j: number): boolean => Math.max(sd[j], sd[j + 1 === n ? 0 : j + 1]) < 4 * tolM;
   const step = (idx: number): void => {
     const j = idx % n;
     const k = (idx + 1) % n;

@@ -87,12 +87,13 @@ export function outlineRho(par: OutlineParam, b: number): number {
   const cb = Math.cos(b);
   const sb = Math.sin(b);
   let rho = Math.PI;
-  for (let i = 0; i < par.kn.length; i++) {
-    const an = par.kn[i];
-    const ag = cb * par.k1[i] + sb * par.k2[i];
-    const A = Math.hypot(an, ag);
+  const { kn, k1, k2, c } = par;
+  for (let i = 0; i < kn.length; i++) {
+    const an = kn[i];
+    const ag = cb * k1[i] + sb * k2[i];
+    const A = Math.sqrt(an * an + ag * ag);
     if (A === 0) continue;
-    const ratio = par.c[i] / A;
+    const ratio = c[i] / A;
     if (ratio <= -1) continue;
     const r = Math.atan2(ag, an) + Math.acos(Math.min(1, ratio));
     if (r > 0 && r < rho) rho = r;
@@ -137,10 +138,15 @@ export function visibleOutline(pm: PlacedMirror, eyeM: Vec3, samples: number): O
   for (const b of angles) {
     if (b === last) continue;
     last = b;
-    const m = outlinePoint(param, b);
-    out[3 * count] = m[0];
-    out[3 * count + 1] = m[1];
-    out[3 * count + 2] = m[2];
+    const rho = outlineRho(param, b);
+    const cb = Math.cos(b);
+    const sb = Math.sin(b);
+    const cr = Math.cos(rho);
+    const sr = Math.sin(rho);
+    const { m0 } = param;
+    out[3 * count] = cr * m0[0] + sr * (cb * e1[0] + sb * e2[0]);
+    out[3 * count + 1] = cr * m0[1] + sr * (cb * e1[1] + sb * e2[1]);
+    out[3 * count + 2] = cr * m0[2] + sr * (cb * e1[2] + sb * e2[2]);
     bs[count] = b;
     count++;
   }
