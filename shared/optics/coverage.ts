@@ -127,15 +127,18 @@ export function fanRegion(p: PreparedCoverage, arcStepRad = defaultArcStepRad(p.
  * The part of a plane (z = planeHeightM) that the eye sees in the mirror, by exact 3-D ray
  * tracing: rays from the eye to the outline of the mirror's visible part reflect about the
  * local normal (r = i − 2(i·n)n) and meet the plane; a convex mirror maps its surface
- * one-to-one onto the reflected rays, so the traced outline bounds the region. The region is
- * clipped to `maxRangeM` around the point under the vertex, then the floor hidden by each
+ * one-to-one onto the reflected rays, so inside the range disc (`maxRangeM` around the point
+ * under the vertex) the region is bounded by the images of the outline pieces whose rays meet
+ * the plane, oriented by the map itself (see `fanBoundary`: sightlines reflected upward, even
+ * in the middle of the mirror, are handled). Then the floor hidden by each
  * wall is removed: on the mirror → floor leg (see `wallShadowRing`) and on the eye → mirror
  * leg (see `eyeSideShadows`); each states its approximation.
  *
  * Accuracy: the outline is a polygon through exact traced points, `rimSamples` of them plus
- * exact corners; the range circle is a polygon with chords of `arcStepRad`; the result is then
- * simplified within `simplifyM` (1 mm). Tests bound the distance from the polygon's edge of any
- * point where it and the exact point test disagree (under 2 cm at 256 rays and 14 m range).
+ * exact corners, with chords refined near the range disc until their traced midpoints lie
+ * within 3 mm; the range circle is a polygon with chords of `arcStepRad`; the result is then
+ * simplified within `simplifyM` (1 mm). Property tests over every accepted input find no
+ * point farther than 2 cm from the polygon's edge where it and the exact point test disagree.
  */
 export function coverage(input: CoverageInput): CoverageResult {
   const p = prepareCoverage(input);
