@@ -82,7 +82,8 @@ export function eyeSideShadows(pm: PlacedMirror, eyeM: Vec3, fan: TracedFan, wal
   }
   const V2 = pm.pose.vertexM;
   const disc = { cx: V2[0], cy: V2[1], r: maxRangeM + 0.1 };
-  const arcStep = Math.min((2 * Math.PI) / 64, 2 * Math.acos(Math.max(-1, 1 - 0.002 / disc.r)));
+  // Chords of the shadow's circle stay within 5 cm of it, so outside the region's own circle.
+  const arcStep = Math.min(Math.PI / 8, 2 * Math.acos(Math.max(-1, 1 - 0.05 / disc.r)));
   const sphereDir = (x: number, y: number): Vec3 => sphereDirection(pm, E, d0, e1, e2, x, y);
   const out: Polygon[] = [];
   for (const w of walls) {
