@@ -158,17 +158,27 @@ export function loopBoundary(
   };
 
   const { cx, cy, r } = disc;
-  const tol2 = tolM * tolM;
+  /** Emits the points strictly between two hitting outline points A and B, refining near the disc. */
+  /** Distance from the disc's centre to the segment A–B. */
+  const segDist = (xA: number, yA: number, xB: number, yB: number): number => {
+    const dx = xB - xA;
+    const dy = yB - yA;
+    const l2 = dx * dx + dy * dy;
+    let t = l2 > 0 ? ((cx - xA) * dx + (cy - yA) * dy) / l2 : 0;
+    t = t < 0 ? 0 : t > 1 ? 1 : t;
+    const ex = xA + t * dx - cx;
+    const ey = yA + t * dy - cy;
+    return Math.sqrt(ex * ex + ey * ey);
+  };
   /** Emits the points strictly between two hitting outline points A and B, refining near the disc. */
   const segment = (bA: number, xA: number, yA: number, bB: number, xB: number, yB: number, depth: number): void => {
     if (depth >= MAX_DEPTH || traces > MAX_EXTRA_TRACES) return;
     const dx = xB - xA;
     const dy = yB - yA;
     const len = Math.sqrt(dx * dx + dy * dy);
-    const dA = Math.sqrt((xA - cx) ** 2 + (yA - cy) ** 2);
-    const dB = Math.sqrt((xB - cx) ** 2 + (yB - cy) ** 2);
+    const dChord = segDist(xA, yA, xB, yB);
     // Far from the disc a chord cannot matter: the traced curve between A and B stays near it.
-    if (Math.min(dA, dB) > r + len) return;
+    if (dChord > r + len) return;
     const bM = 0.5 * (bA + bB);
     if (!trace(bM)) {
       // A part of the outline that misses the plane hides between the two samples.
@@ -183,15 +193,11 @@ export function loopBoundary(
     }
     const xM = tmp[0];
     const yM = tmp[1];
-    // Squared distance of the traced midpoint from the chord.
-    let dev2: number;
-    if (len > 0) {
-      const c = ((xM - xA) * dy - (yM - yA) * dx) / len;
-      dev2 = c * c;
-    } else {
-      dev2 = (xM - xA) ** 2 + (yM - yA) ** 2;
-    }
-    if (dev2 > tol2) {
+    // Distance of the traced midpoint from the chord.
+    const dev = len > 0 ? Math.abs((xM - xA) * dy - (yM - yA) * dx) / len : Math.sqrt((xM - xA) ** 2 + (yM - yA) ** 2);
+    // Refine only where the curve (within about twice the midpoint's deviation of the chord)
+    // can reach the disc.
+    if (dev > tolM && dChord < r + 2 * dev + tolM) {
       segment(bA, xA, yA, bM, xM, yM, depth + 1);
       emit(xM, yM);
       segment(bM, xM, yM, bB, xB, yB, depth + 1);
