@@ -22,7 +22,9 @@ import { outlinePoint, traceToPlane, type Outline, type TracedFan } from './trac
  * the outline's image: a hole in the floor, not an island).
  *
  * Each piece of the outline that hits is extended at both ends to a point at least farM/2 away
- * (bisection on the outline), so every open piece starts and ends outside the disc. Chords
+ * (bisection on the outline), so every open piece starts and ends outside the disc: farM/2 =
+ * 1.5·range + 2R + 5 m (`farDistanceM`) and no point of the sphere is more than 2R from the
+ * vertex, so such a point is more than 1.5·range + 5 m from the disc's centre. Chords
  * whose traced midpoint strays more than `tolM` from them are subdivided near the disc.
  */
 export type FanBoundary = {
