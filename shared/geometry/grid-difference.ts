@@ -28,25 +28,24 @@ function toRing(path: IntPoint[]): Ring {
 }
 
 /**
- * `subject` minus the union of `holes`. The subject keeps its own rings' meaning (outer rings
- * and holes, non-zero winding); each hole ring counts as the area it encloses whatever its
- * orientation. Returns polygon-clipping's MultiPolygon layout: outer ring first, then holes.
+ * `subject` minus the union of the `clip` polygons. Both keep their rings' meaning (outer ring
+ * first, then holes; non-zero winding), whatever orientation the rings were given in. Returns
+ * polygon-clipping's MultiPolygon layout: outer ring first, then holes.
  */
-export function gridDifference(subject: MultiPolygon, holes: readonly Ring[]): MultiPolygon {
+export function gridDifference(subject: MultiPolygon, clip: readonly Polygon[]): MultiPolygon {
   const c = new Clipper();
-  for (const poly of subject) {
-    poly.forEach((ring, i) => {
-      const path = toPath(ring);
-      // Outer rings counter-clockwise, holes clockwise, so non-zero winding reads them as meant.
-      if (Clipper.Orientation(path) !== (i === 0)) path.reverse();
-      c.AddPath(path, PolyType.ptSubject, true);
-    });
-  }
-  for (const ring of holes) {
-    const path = toPath(ring);
-    if (!Clipper.Orientation(path)) path.reverse();
-    c.AddPath(path, PolyType.ptClip, true);
-  }
+  const add = (polys: readonly Polygon[], type: PolyType): void => {
+    for (const poly of polys) {
+      poly.forEach((ring, i) => {
+        const path = toPath(ring);
+        // Outer rings counter-clockwise, holes clockwise, so non-zero winding reads them as meant.
+        if (Clipper.Orientation(path) !== (i === 0)) path.reverse();
+        c.AddPath(path, type, true);
+      });
+    }
+  };
+  add(subject, PolyType.ptSubject);
+  add(clip, PolyType.ptClip);
   const tree = new PolyTree();
   c.Execute(ClipType.ctDifference, tree, PolyFillType.pftNonZero, PolyFillType.pftNonZero);
   const out: MultiPolygon = [];

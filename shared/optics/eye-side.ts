@@ -1,7 +1,11 @@
-import type { Pair, Ring } from '../geometry/polygon';
+import { robustIntersection } from '../geometry/robust-boolean';
+import { clipOrientedCurvesToDisc } from '../geometry/clip-disc';
+import { signedRingArea, windingNumber, type Pair, type Polygon, type Ring } from '../geometry/polygon';
 import { cross, dot, norm, type Vec3 } from '../geometry/vec3';
+import { sphereReflectionPoint } from './alhazen';
+import { loopBoundary, type SphereLoop } from './fan-boundary';
 import { onPortion, type PlacedMirror } from './mirror';
-import type { TracedFan } from './trace';
+import { traceToPlane, type TracedFan } from './trace';
 import type { Wall } from './walls';
 
 /**
@@ -10,13 +14,16 @@ import type { Wall } from './walls';
  * Method: in the eye's gnomonic image plane (central projection about the eye → vertex
  * direction), where straight 3-D edges stay straight, the wall's rectangle is intersected with
  * the outline of the visible mirror. Each point of that intersection is a direction from the
- * eye; it is traced exactly (ray–sphere, reflect, plane) to the plane, giving the floor that
- * the wall hides. Only the part of the wall nearer to the eye than the nearest point of the
+ * eye; its outline is traced exactly (ray–sphere, reflect, plane) and the floor that the wall
+ * hides is built inside the range disc (`maxRangeM` around the vertex, plus 0.1 m so the
+ * shadow covers the region's own circle chords) from the outline pieces that meet the plane,
+ * exactly as the coverage fan is (see `loopBoundary`): parts of the hidden patch that reflect
+ * upward are handled, not parked. Only the part of the wall nearer to the eye than the nearest point of the
  * mirror is used: a wall behind the mirror (for instance the wall it is mounted on) never hides
  * it. Approximation: a wall that reaches into the mirror's own depth band (within the mirror's
  * few centimetres of depth as seen by the eye) is treated as not hiding that part.
  */
-export function eyeSideShadows(pm: PlacedMirror, eyeM: Vec3, fan: TracedFan, walls: readonly Wall[], h0: number, farM: number): Ring[] {
+export function eyeSideShadows(pm: PlacedMirror, eyeM: Vec3, fan: TracedFan, walls: readonly Wall[], h0: number, farM: number, maxRangeM: number): Polygon[] {
   if (walls.length === 0) return [];
   const E = eyeM;
   const V = pm.pose.vertexM;
@@ -73,7 +80,12 @@ export function eyeSideShadows(pm: PlacedMirror, eyeM: Vec3, fan: TracedFan, wal
     bx1 = Math.max(bx1, fan.point[3 * j]);
     by1 = Math.max(by1, fan.point[3 * j + 1]);
   }
-  const out: Ring[] = [];
+  const V2 = pm.pose.vertexM;
+  const disc = { cx: V2[0], cy: V2[1], r: maxRangeM + 0.1 };
+  // Chords of the shadow's circle stay within 5 cm of it, so outside the region's own circle.
+  const arcStep = Math.min(Math.PI / 8, 2 * Math.acos(Math.max(-1, 1 - 0.05 / disc.r)));
+  const sphereDir = (x: number, y: number): Vec3 => sphereDirection(pm, E, d0, e1, e2, x, y);
+  const out: Polygon[] = [];
   for (const w of walls) {
     if (Math.max(w.aM[0], w.bM[0]) < bx0 || Math.min(w.aM[0], w.bM[0]) > bx1 || Math.max(w.aM[1], w.bM[1]) < by0 || Math.min(w.aM[1], w.bM[1]) > by1) {
       continue;
@@ -104,26 +116,24 @@ export function eyeSideShadows(pm: PlacedMirror, eyeM: Vec3, fan: TracedFan, wal
       iy1 = Math.max(iy1, q[1]);
     }
     if (ix0 > maxX || ix1 < minX || iy0 > maxY || iy1 < minY) continue;
-    // The wall's image is convex (a planar quadrilateral cut by two parallel planes, seen from
-    // a point), so the part of the outline behind it is a Sutherland–Hodgman clip; where the
-    // outline is not convex the clip may hold zero-width bridges, which enclose no floor.
-    const hidden = clipToConvex(outline, img);
-    if (hidden.length >= 4) {
-      for (const ring of [hidden]) {
-        const floor: Ring = [];
-        for (let k = 0; k + 1 < ring.length; k++) {
-          const [x0, y0] = ring[k];
-          const [x1, y1] = ring[k + 1];
-          const n = Math.max(1, Math.ceil(Math.hypot(x1 - x0, y1 - y0) / step));
-          for (let s = 0; s < n; s++) {
-            const f = s / n;
-            floor.push(traceDirection(pm, E, d0, e1, e2, x0 + f * (x1 - x0), y0 + f * (y1 - y0), h0, farM));
-          }
-        }
-        if (floor.length >= 3) {
-          floor.push([floor[0][0], floor[0][1]]);
-          out.push(floor);
-        }
+    img.push([img[0][0], img[0][1]]);
+    const hidden = robustIntersection([outline], [img]);
+    for (const poly of hidden) {
+      for (const ring of poly) {
+        const loop = imageLoop(ring, step, sphereDir, pm, E, h0, farM);
+        if (!loop) continue;
+        const { curves } = loopBoundary(pm, E, loop, h0, farM, disc, 0.003);
+        const hiddenCentre = (): boolean => {
+          const m = sphereReflectionPoint(pm.C, pm.R, E, [V2[0], V2[1], h0]);
+          if (!m || !onPortion(pm, m)) return false;
+          const px = pm.C[0] + pm.R * m[0] - E[0];
+          const py = pm.C[1] + pm.R * m[1] - E[1];
+          const pz = pm.C[2] + pm.R * m[2] - E[2];
+          const z = px * d0[0] + py * d0[1] + pz * d0[2];
+          const g: Pair = [(px * e1[0] + py * e1[1] + pz * e1[2]) / z, (px * e2[0] + py * e2[1] + pz * e2[2]) / z];
+          return windingNumber(ring, g) !== 0;
+        };
+        for (const shadow of clipOrientedCurvesToDisc(curves, disc.cx, disc.cy, disc.r, arcStep, hiddenCentre)) out.push(shadow);
       }
     }
   }
@@ -131,42 +141,77 @@ export function eyeSideShadows(pm: PlacedMirror, eyeM: Vec3, fan: TracedFan, wal
 }
 
 /**
- * Sutherland–Hodgman clip of a ring (closed or not) to a convex polygon given in either
- * orientation (I. Sutherland, G. Hodgman, "Reentrant polygon clipping", CACM 17(1), 1974).
- * Returns a closed ring, or [] when nothing is left.
+ * The outline of a hidden patch (a ring in the eye's image plane) as a loop on the mirror:
+ * parameter t runs along the ring's edges (edge k for k ≤ t < k + 1), sampled every `step`
+ * of image-plane length; "inside" steps toward the ring's interior.
  */
-function clipToConvex(ring: Ring, convex: Ring): Ring {
-  let area = 0;
-  for (let i = 0; i < convex.length; i++) {
-    const a = convex[i];
-    const b = convex[(i + 1) % convex.length];
-    area += a[0] * b[1] - b[0] * a[1];
+function imageLoop(
+  ringIn: Ring,
+  step: number,
+  sphereDir: (x: number, y: number) => Vec3,
+  pm: PlacedMirror,
+  E: Vec3,
+  h0: number,
+  farM: number,
+): SphereLoop | null {
+  const ring = ringIn.slice();
+  const last = ring[ring.length - 1];
+  if (ring.length > 1 && last[0] === ring[0][0] && last[1] === ring[0][1]) ring.pop();
+  const N = ring.length;
+  if (N < 3) return null;
+  const ccw = signedRingArea(ring) >= 0 ? 1 : -1;
+  const point = (t: number): Pair => {
+    const tt = ((t % N) + N) % N;
+    const k = Math.min(N - 1, Math.floor(tt));
+    const f = tt - k;
+    const a = ring[k];
+    const b = ring[(k + 1) % N];
+    return [a[0] + f * (b[0] - a[0]), a[1] + f * (b[1] - a[1])];
+  };
+  const ts: number[] = [];
+  for (let k = 0; k < N; k++) {
+    const a = ring[k];
+    const b = ring[(k + 1) % N];
+    const n = Math.max(1, Math.ceil(Math.hypot(b[0] - a[0], b[1] - a[1]) / step));
+    for (let s = 0; s < n; s++) ts.push(k + s / n);
   }
-  const sign = area >= 0 ? 1 : -1;
-  const closed = ring.length > 1 && ring[0][0] === ring[ring.length - 1][0] && ring[0][1] === ring[ring.length - 1][1];
-  let pts: Pair[] = closed ? ring.slice(0, -1) : ring.slice();
-  for (let e = 0; e < convex.length && pts.length > 0; e++) {
-    const a = convex[e];
-    const b = convex[(e + 1) % convex.length];
-    const ex = b[0] - a[0];
-    const ey = b[1] - a[1];
-    const side = (p: Pair) => sign * (ex * (p[1] - a[1]) - ey * (p[0] - a[0]));
-    const next: Pair[] = [];
-    for (let i = 0; i < pts.length; i++) {
-      const p = pts[i];
-      const q = pts[(i + 1) % pts.length];
-      const sp = side(p);
-      const sq = side(q);
-      if (sp >= 0) next.push(p);
-      if ((sp >= 0) !== (sq >= 0)) {
-        const t = sp / (sp - sq);
-        next.push([p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1])]);
-      }
+  const count = ts.length;
+  const hits = new Uint8Array(count);
+  const gx = new Float64Array(count);
+  const gy = new Float64Array(count);
+  const run = new Float64Array(count);
+  const tmp = new Float64Array(3);
+  for (let j = 0; j < count; j++) {
+    const q = point(ts[j]);
+    if (traceToPlane(pm, E, sphereDir(q[0], q[1]), h0, farM, tmp)) {
+      hits[j] = 1;
+      gx[j] = tmp[0];
+      gy[j] = tmp[1];
+      run[j] = tmp[2];
     }
-    pts = next;
   }
-  if (pts.length < 3) return [];
-  return [...pts, [pts[0][0], pts[0][1]]];
+  return {
+    count,
+    t: ts,
+    period: N,
+    at: (t) => {
+      const q = point(t);
+      return sphereDir(q[0], q[1]);
+    },
+    inside: (t, eps) => {
+      const tt = ((t % N) + N) % N;
+      const k = Math.min(N - 1, Math.floor(tt));
+      const a = ring[k];
+      const b = ring[(k + 1) % N];
+      const q = point(t);
+      // Left normal of the edge (interior side of a counter-clockwise ring), edge-length scaled.
+      return sphereDir(q[0] - ccw * eps * (b[1] - a[1]), q[1] + ccw * eps * (b[0] - a[0]));
+    },
+    hits,
+    gx,
+    gy,
+    run,
+  };
 }
 
 /** Sutherland–Hodgman clip of a 3-D polygon to lo ≤ f(p) ≤ hi for an affine f. */
@@ -189,8 +234,8 @@ function clipSlab(poly: Vec3[], f: (p: Vec3) => number, lo: number, hi: number):
   return half(half(poly, (p) => f(p) - lo), (p) => hi - f(p));
 }
 
-/** Traces the eye ray of image-plane point (x, y) to the sphere, reflects it, and meets the plane (parked at farM if not). */
-function traceDirection(pm: PlacedMirror, E: Vec3, d0: Vec3, e1: Vec3, e2: Vec3, x: number, y: number, h0: number, farM: number): Pair {
+/** Unit direction from the sphere's centre of the point where the eye ray of image-plane point (x, y) meets the sphere (the tangent point for a ray that just misses it). */
+function sphereDirection(pm: PlacedMirror, E: Vec3, d0: Vec3, e1: Vec3, e2: Vec3, x: number, y: number): Vec3 {
   let dx = d0[0] + x * e1[0] + y * e2[0];
   let dy = d0[1] + x * e1[1] + y * e2[1];
   let dz = d0[2] + x * e1[2] + y * e2[2];
@@ -205,21 +250,9 @@ function traceDirection(pm: PlacedMirror, E: Vec3, d0: Vec3, e1: Vec3, e2: Vec3,
   const c = ox * ox + oy * oy + oz * oz - pm.R * pm.R;
   const disc = Math.max(0, b * b - c);
   const t = -b - Math.sqrt(disc);
-  const px = E[0] + t * dx;
-  const py = E[1] + t * dy;
-  const pz = E[2] + t * dz;
-  const mx = (px - pm.C[0]) / pm.R;
-  const my = (py - pm.C[1]) / pm.R;
-  const mz = (pz - pm.C[2]) / pm.R;
-  const k = 2 * (dx * mx + dy * my + dz * mz);
-  const rx = dx - k * mx;
-  const ry = dy - k * my;
-  const rz = dz - k * mz;
-  const h = Math.hypot(rx, ry);
-  const dzp = h0 - pz;
-  if (rz < 0 && dzp < 0 && (dzp / rz) * h <= farM) {
-    const s = dzp / rz;
-    return [px + s * rx, py + s * ry];
-  }
-  return h > 0 ? [px + (rx / h) * farM, py + (ry / h) * farM] : [px, py];
+  const mx = (E[0] + t * dx - pm.C[0]) / pm.R;
+  const my = (E[1] + t * dy - pm.C[1]) / pm.R;
+  const mz = (E[2] + t * dz - pm.C[2]) / pm.R;
+  const ml = Math.sqrt(mx * mx + my * my + mz * mz);
+  return [mx / ml, my / ml, mz / ml];
 }

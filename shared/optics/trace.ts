@@ -20,6 +20,28 @@ export type Outline = {
   /** Unit directions m from the centre, 3 per point. */
   m: Float64Array;
   count: number;
+  /** Polar angle of each point about the interior point (radians, increasing), see {@link OutlineParam}. */
+  b: Float64Array;
+  /** The outline's parametrisation, to place more points on it or inside it. */
+  param: OutlineParam;
+};
+
+/**
+ * Polar parametrisation of the visible part about its interior point m₀: the point at angle b
+ * and fraction s ∈ [0, 1] is cos(s·ρ(b))·m₀ + sin(s·ρ(b))·(cos b·e₁ + sin b·e₂), where ρ(b) is
+ * the outline's arc distance from m₀ in direction b (closed form, {@link outlineRho}).
+ * (e₁, e₂, m₀) is right-handed, so b increases counter-clockwise seen from outside the sphere
+ * and the visible part lies to the left of the outline traversed with increasing b.
+ */
+export type OutlineParam = {
+  m0: Vec3;
+  e1: Vec3;
+  e2: Vec3;
+  /** Per constraint: k·m₀, k·e₁, k·e₂ and c. */
+  kn: Float64Array;
+  k1: Float64Array;
+  k2: Float64Array;
+  c: Float64Array;
 };
 
 function constraintsWithEye(pm: PlacedMirror, eyeM: Vec3): Constraint[] {
@@ -28,11 +50,8 @@ function constraintsWithEye(pm: PlacedMirror, eyeM: Vec3): Constraint[] {
   return [...pm.portion, { k: [e[0] / d, e[1] / d, e[2] / d], c: pm.R / d }];
 }
 
-/**
- * Outline of the part of the mirror that the eye sees, as unit directions from the sphere's
- * centre, ordered around the interior point; `samples` evenly spaced directions plus corners.
- */
-export function visibleOutline(pm: PlacedMirror, eyeM: Vec3, samples: number): Outline {
+/** Builds the polar parametrisation of the part of the mirror the eye sees (validates the eye). */
+export function outlineParam(pm: PlacedMirror, eyeM: Vec3): { param: OutlineParam; cons: Constraint[] } {
   const m0 = checkEye(pm, eyeM);
   const cons = constraintsWithEye(pm, eyeM);
   // Tangent basis at m0: the panel's own (u, v) so rectangle corners sit at atan2(h, w).
@@ -49,7 +68,61 @@ export function visibleOutline(pm: PlacedMirror, eyeM: Vec3, samples: number): O
     e1 = [x[0] / xn, x[1] / xn, x[2] / xn];
     e2 = [m0[1] * e1[2] - m0[2] * e1[1], m0[2] * e1[0] - m0[0] * e1[2], m0[0] * e1[1] - m0[1] * e1[0]];
   }
+  const nk = cons.length;
+  const param: OutlineParam = { m0, e1, e2, kn: new Float64Array(nk), k1: new Float64Array(nk), k2: new Float64Array(nk), c: new Float64Array(nk) };
+  for (let i = 0; i < nk; i++) {
+    param.kn[i] = dot(cons[i].k, m0);
+    param.k1[i] = dot(cons[i].k, e1);
+    param.k2[i] = dot(cons[i].k, e2);
+    param.c[i] = cons[i].c;
+  }
+  return { param, cons };
+}
 
+/**
+ * Arc distance ρ(b) from m₀ to the outline in direction b: along the great circle the value of
+ * constraint k·m ≥ c is A·cos(ρ − δ), which first reaches c at ρ = δ + acos(c/A).
+ */
+export function outlineRho(par: OutlineParam, b: number): number {
+  const cb = Math.cos(b);
+  const sb = Math.sin(b);
+  let rho = Math.PI;
+  const { kn, k1, k2, c } = par;
+  for (let i = 0; i < kn.length; i++) {
+    const an = kn[i];
+    const ag = cb * k1[i] + sb * k2[i];
+    const A = Math.sqrt(an * an + ag * ag);
+    if (A === 0) continue;
+    const ratio = c[i] / A;
+    if (ratio <= -1) continue;
+    const r = Math.atan2(ag, an) + Math.acos(Math.min(1, ratio));
+    if (r > 0 && r < rho) rho = r;
+  }
+  return rho;
+}
+
+/** Unit direction of the point at angle b and fraction s of the way from m₀ to the outline. */
+export function outlinePoint(par: OutlineParam, b: number, s = 1): Vec3 {
+  const rho = s * outlineRho(par, b);
+  const cb = Math.cos(b);
+  const sb = Math.sin(b);
+  const cr = Math.cos(rho);
+  const sr = Math.sin(rho);
+  const { m0, e1, e2 } = par;
+  return [
+    cr * m0[0] + sr * (cb * e1[0] + sb * e2[0]),
+    cr * m0[1] + sr * (cb * e1[1] + sb * e2[1]),
+    cr * m0[2] + sr * (cb * e1[2] + sb * e2[2]),
+  ];
+}
+
+/**
+ * Outline of the part of the mirror that the eye sees, as unit directions from the sphere's
+ * centre, ordered around the interior point; `samples` evenly spaced directions plus corners.
+ */
+export function visibleOutline(pm: PlacedMirror, eyeM: Vec3, samples: number): Outline {
+  const { param, cons } = outlineParam(pm, eyeM);
+  const { e1, e2 } = param;
   const angles: number[] = [];
   for (let j = 0; j < samples; j++) angles.push(-Math.PI + (2 * Math.PI * j) / samples);
   for (const corner of corners(cons)) {
@@ -58,45 +131,26 @@ export function visibleOutline(pm: PlacedMirror, eyeM: Vec3, samples: number): O
   }
   angles.sort((p, q) => p - q);
 
-  const nk = cons.length;
-  const kn = new Float64Array(nk);
-  const k1 = new Float64Array(nk);
-  const k2 = new Float64Array(nk);
-  for (let i = 0; i < nk; i++) {
-    kn[i] = dot(cons[i].k, m0);
-    k1[i] = dot(cons[i].k, e1);
-    k2[i] = dot(cons[i].k, e2);
-  }
   const out = new Float64Array(3 * angles.length);
+  const bs = new Float64Array(angles.length);
   let count = 0;
   let last = NaN;
   for (const b of angles) {
     if (b === last) continue;
     last = b;
+    const rho = outlineRho(param, b);
     const cb = Math.cos(b);
     const sb = Math.sin(b);
-    let rho = Math.PI;
-    for (let i = 0; i < nk; i++) {
-      const an = kn[i];
-      const ag = cb * k1[i] + sb * k2[i];
-      const A = Math.hypot(an, ag);
-      if (A === 0) continue;
-      const ratio = cons[i].c / A;
-      if (ratio <= -1) continue;
-      const r = Math.atan2(ag, an) + Math.acos(Math.min(1, ratio));
-      if (r > 0 && r < rho) rho = r;
-    }
     const cr = Math.cos(rho);
     const sr = Math.sin(rho);
-    const gx = cb * e1[0] + sb * e2[0];
-    const gy = cb * e1[1] + sb * e2[1];
-    const gz = cb * e1[2] + sb * e2[2];
-    out[3 * count] = cr * m0[0] + sr * gx;
-    out[3 * count + 1] = cr * m0[1] + sr * gy;
-    out[3 * count + 2] = cr * m0[2] + sr * gz;
+    const { m0 } = param;
+    out[3 * count] = cr * m0[0] + sr * (cb * e1[0] + sb * e2[0]);
+    out[3 * count + 1] = cr * m0[1] + sr * (cb * e1[1] + sb * e2[1]);
+    out[3 * count + 2] = cr * m0[2] + sr * (cb * e1[2] + sb * e2[2]);
+    bs[count] = b;
     count++;
   }
-  return { m: out, count };
+  return { m: out, count, b: bs.subarray(0, count), param };
 }
 
 /** Points where two constraint circles meet and every other constraint holds. */
@@ -139,7 +193,11 @@ export type TracedFan = {
   point: Float64Array;
   /** Unit reflected directions, 3 per ray. */
   dir: Float64Array;
-  /** Where each reflected ray meets the plane, or is pushed out to `farM` horizontally. */
+  /**
+   * Where each reflected ray meets the plane when `hits` is 1; otherwise a point `farM` out
+   * along the ray's horizontal direction, for drawing only (that direction is meaningless for
+   * a ray near vertical, so the region is never built from these points).
+   */
   gx: Float64Array;
   gy: Float64Array;
   /** 1 when the ray really meets the plane within `farM` of its reflection point. */
@@ -152,8 +210,7 @@ export type TracedFan = {
  * Traces eye → outline point → reflected ray → plane z = planeHeightM for every outline point.
  * Reflection uses the local normal n = m (unit, outward): r = i − 2(i·n)n with i the unit
  * incident direction. A ray that rises, runs level, or meets the plane farther than `farM`
- * (horizontally) is pushed to `farM` along its horizontal direction, which keeps the outline
- * a continuous closed curve for the range clip that follows.
+ * (horizontally) is marked as a miss (see {@link TracedFan}).
  */
 export function traceOutline(pm: PlacedMirror, eyeM: Vec3, outline: Outline, planeHeightM: number, farM: number): TracedFan {
   const n = outline.count;
@@ -221,4 +278,37 @@ export function traceOutline(pm: PlacedMirror, eyeM: Vec3, outline: Outline, pla
     }
   }
   return { count: n, point, dir, gx, gy, hits, minZ };
+}
+
+/**
+ * Traces the eye's ray to the sphere point C + R·m, reflects it (r = i − 2(i·n)n, n = m) and
+ * meets the plane z = h0. Writes the meeting point's x, y and the horizontal run from the
+ * reflection point into `out` and returns true when the ray meets the plane within `farM`
+ * horizontally (the same test as {@link traceOutline}).
+ */
+export function traceToPlane(pm: PlacedMirror, eyeM: Vec3, m: Vec3, h0: number, farM: number, out: Float64Array): boolean {
+  const px = pm.C[0] + pm.R * m[0];
+  const py = pm.C[1] + pm.R * m[1];
+  const pz = pm.C[2] + pm.R * m[2];
+  let ix = px - eyeM[0];
+  let iy = py - eyeM[1];
+  let iz = pz - eyeM[2];
+  const il = Math.sqrt(ix * ix + iy * iy + iz * iz);
+  ix /= il;
+  iy /= il;
+  iz /= il;
+  const k = 2 * (ix * m[0] + iy * m[1] + iz * m[2]);
+  const rx = ix - k * m[0];
+  const ry = iy - k * m[1];
+  const rz = iz - k * m[2];
+  const h = Math.sqrt(rx * rx + ry * ry);
+  const dz = h0 - pz;
+  if (rz < 0 && dz < 0 && (dz / rz) * h <= farM) {
+    const t = dz / rz;
+    out[0] = px + t * rx;
+    out[1] = py + t * ry;
+    out[2] = t * h;
+    return true;
+  }
+  return false;
 }

@@ -1,6 +1,18 @@
 import { coverage, domeMountTiltRad, fanRays, poseFromAim, type Mirror, type Vec3, type Wall } from '../../../shared/optics';
-import { multiPolygonArea } from '../../../shared/geometry/polygon';
+import { multiPolygonArea, ringLength, type MultiPolygon } from '../../../shared/geometry/polygon';
+import { robustIntersection } from '../../../shared/geometry/robust-boolean';
 import { agreement } from './helpers';
+
+function perimeterM(mp: MultiPolygon): number {
+  let sum = 0;
+  for (const poly of mp) {
+    for (const ring of poly) {
+      const n = ringLength(ring);
+      for (let i = 0; i < n; i++) sum += Math.hypot(ring[(i + 1) % n][0] - ring[i][0], ring[(i + 1) % n][1] - ring[i][1]);
+    }
+  }
+  return sum;
+}
 
 const round: Mirror = { shape: 'round', diameterM: 0.8, radiusM: 1.6 };
 const rect: Mirror = { shape: 'rect', widthM: 0.6, heightM: 0.4, radiusM: 1.0 };
@@ -79,9 +91,25 @@ describe('coverage region shape', () => {
     const pose = poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0, tiltDownRad: 0.3 });
     const { region } = coverage({ mirror: rect, pose, eyeM: [4, 0, 1.6], maxRangeM: 10 });
     const mirrored = region.map((poly) => poly.map((ring) => ring.map(([x, y]) => [x, -y] as [number, number]).reverse()));
-    expect(multiPolygonArea(mirrored)).toBeCloseTo(multiPolygonArea(region), 9);
+    // The region and its mirror image cover the same floor: their symmetric difference is no
+    // more than the polygon's own error band (3 mm tracing + 1 mm simplification) along its edge.
+    const both = multiPolygonArea(robustIntersection(region, mirrored));
+    const xorM2 = multiPolygonArea(region) + multiPolygonArea(mirrored) - 2 * both;
+    expect(multiPolygonArea(region)).toBeGreaterThan(5);
+    expect(xorM2).toBeLessThan(perimeterM(region) * 0.008);
     const a = agreement({ region: mirrored, mirror: rect, pose, eyeM: [4, 0, 1.6], maxRangeM: 10, halfBoxM: 11, n: 2000, marginM: 0.01, seed: 5 });
     expect(a.disagree).toBe(0);
+  });
+
+  it('gives mirror-image regions for mirror-image placements (eye and aim reflected about a vertical plane)', () => {
+    const eyeM: Vec3 = [4, 1.2, 1.6];
+    const a = coverage({ mirror: rect, pose: poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0.4, tiltDownRad: 0.3 }), eyeM, maxRangeM: 10 }).region;
+    const b = coverage({ mirror: rect, pose: poseFromAim({ vertexM: [0, 0, 3], azimuthRad: -0.4, tiltDownRad: 0.3 }), eyeM: [4, -1.2, 1.6], maxRangeM: 10 }).region;
+    const aMirrored = a.map((poly) => poly.map((ring) => ring.map(([x, y]) => [x, -y] as [number, number]).reverse()));
+    const both = multiPolygonArea(robustIntersection(aMirrored, b));
+    const xorM2 = multiPolygonArea(aMirrored) + multiPolygonArea(b) - 2 * both;
+    expect(multiPolygonArea(b)).toBeGreaterThan(5);
+    expect(xorM2).toBeLessThan(perimeterM(b) * 0.008);
   });
 
   it('exposes the fan rays it traced, starting on the mirror and ending on the plane or at the range', () => {
