@@ -8,7 +8,7 @@
  * the rules as (x, u): x forward from the ground point under the midpoint of the ocular points,
  * u ≥ 0 outboard from a side line (the vehicle's outer side or the cab's side).
  */
-import { circleRing, type Pair, type Polygon, type Ring } from '../geometry/polygon';
+import type { Pair, Polygon, Ring } from '../geometry/polygon';
 import type { Vehicle, VehicleKind } from '../schemas/vehicle';
 import { otherSide, sideSign, vehicleGeometry, type Side, type VehicleGeometry } from './geometry';
 
@@ -219,9 +219,23 @@ export function fieldPolygon(code: Exclude<FieldCode, 'user'>, g: VehicleGeometr
     case 'iso-circle-12m': {
       // Centred under the seat index point, 20 mm behind the eye point for the ISO 5006 offset.
       const c: Pair = [g.eyeMidM[0] - g.seatForwardOffsetM, g.eyeMidM[1]];
-      return [circleRing(c, 12 + ISO_CIRCLE_BAND_M / 2, 180), circleRing(c, 12 - ISO_CIRCLE_BAND_M / 2, 180)];
+      return [symmetricCircle(c, 12 + ISO_CIRCLE_BAND_M / 2, 180), symmetricCircle(c, 12 - ISO_CIRCLE_BAND_M / 2, 180)];
     }
   }
+}
+
+/**
+ * An inscribed regular polygon for a circle (`segments` even) whose corners come in pairs
+ * mirrored exactly across y = centre y, so left- and right-hand drive give mirror-image fields.
+ */
+function symmetricCircle(c: Pair, r: number, segments: number): Ring {
+  const upper: Pair[] = [];
+  for (let k = 0; k <= segments / 2; k++) {
+    const a = (2 * Math.PI * k) / segments;
+    upper.push([r * Math.cos(a), k === 0 || 2 * k === segments ? 0 : r * Math.sin(a)]);
+  }
+  const lower: Pair[] = upper.slice(1, -1).reverse().map(([dx, dy]) => [dx, -dy]);
+  return [...upper, ...lower].map(([dx, dy]) => [c[0] + dx, c[1] + dy] as Pair);
 }
 
 export type FieldChoice = { code: Exclude<FieldCode, 'user'>; side: Side; requiredShare: number | null; requiredShareBasis: string };
