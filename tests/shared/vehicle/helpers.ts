@@ -39,7 +39,11 @@ export function shoelaceArea(mp: polygonClipping.MultiPolygon): number {
   for (const poly of mp) {
     poly.forEach((ring, i) => {
       let s = 0;
-      for (let k = 0; k < ring.length - 1; k++) s += ring[k][0] * ring[k + 1][1] - ring[k + 1][0] * ring[k][1];
+      // Every edge including the closing one (a repeated first point adds nothing).
+      for (let k = 0; k < ring.length; k++) {
+        const q = ring[(k + 1) % ring.length];
+        s += ring[k][0] * q[1] - q[0] * ring[k][1];
+      }
       a += (i === 0 ? 1 : -1) * Math.abs(s / 2);
     });
   }
