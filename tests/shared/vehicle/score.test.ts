@@ -1,7 +1,8 @@
+import fc from 'fast-check';
 import polygonClipping from 'polygon-clipping';
 import { distanceToBoundary, pointInMultiPolygon, polygonArea, type Pair, type Polygon } from '../../../shared/geometry/polygon';
 import type { Vec3 } from '../../../shared/geometry/vec3';
-import type { Vehicle } from '../../../shared/schemas/vehicle';
+import { vehicle, type Vehicle } from '../../../shared/schemas/vehicle';
 import {
   eyesFor,
   mirrorPoseAcross,
@@ -186,5 +187,54 @@ describe('scoring a vehicle’s mirrors against its fields', () => {
     expect(expected).toBeGreaterThan(0.1);
     expect(expected).toBeLessThan(0.95);
     expect(s.share).toBeCloseTo(expected, 3);
+  });
+});
+
+describe('scoring over the accepted vehicle space', () => {
+  it('keeps every share between 0 and 1, the union at least each eye’s share, the gaps the unseen rest, and left/right drive alike', () => {
+    fc.assert(
+      fc.property(
+        fc.record({
+          side: fc.constantFrom('left' as const, 'right' as const),
+          lengthM: fc.double({ min: 5, max: 18, noNaN: true }),
+          widthM: fc.double({ min: 2, max: 2.6, noNaN: true }),
+          cabShare: fc.double({ min: 0.85, max: 1, noNaN: true }),
+          seatBehindM: fc.double({ min: 0.8, max: 1.6, noNaN: true }),
+          seatAcrossM: fc.double({ min: 0.3, max: 0.75, noNaN: true }),
+          seatHeightM: fc.double({ min: 0.9, max: 2.0, noNaN: true }),
+          windowFrac: fc.double({ min: 0.6, max: 0.99, noNaN: true }),
+          bodyHeightM: fc.double({ min: 2.5, max: 4.2, noNaN: true }),
+        }),
+        (r) => {
+          const eyeH = r.seatHeightM + 0.635;
+          const v = vehicle.parse({
+            kind: 'rigid-truck',
+            driverSide: r.side,
+            lengthM: r.lengthM,
+            widthM: r.widthM,
+            cabWidthM: r.widthM * r.cabShare,
+            cabFrontBehindM: 0.1,
+            eye: { method: 'seat', rule: 'un-r46', seatBehindFrontM: r.seatBehindM, seatFromCentreM: r.seatAcrossM, seatHeightM: r.seatHeightM },
+            bodyBoxes: [
+              { id: 'cab', name: 'Cab', frontBehindM: 0.1, rearBehindM: 2.4, widthM: r.widthM * r.cabShare, heightM: eyeH + 0.5, windowLineM: eyeH * r.windowFrac },
+              { id: 'body', name: 'Body', frontBehindM: 2.6, rearBehindM: r.lengthM, widthM: r.widthM, heightM: r.bodyHeightM },
+            ],
+          });
+          const mirrors = sixMirrors(v);
+          const s = scoreVehicle({ vehicle: v, mirrors });
+          const m = scoreVehicle({ vehicle: mirrorVehicleAcross(v), mirrors: mirrors.map((x) => ({ ...x, pose: mirrorPoseAcross(x.pose) })) });
+          s.fields.forEach((f, i) => {
+            expect(f.share).toBeGreaterThanOrEqual(0);
+            expect(f.share).toBeLessThanOrEqual(1);
+            for (const e of f.shareByEye) expect(f.share).toBeGreaterThanOrEqual(e - 1e-9);
+            const gaps = f.gapsM.reduce((a, p) => a + polygonArea(p), 0);
+            expect(Math.abs(gaps - (f.areaM2 - f.seenM2))).toBeLessThan(1e-6 * f.areaM2 + 1e-5);
+            // Mirror images agree to the boolean step's rounding (it may snap to a 1 µm grid).
+            expect(m.fields[i].share).toBeCloseTo(f.share, 6);
+          });
+        },
+      ),
+      { numRuns: 5, endOnFailure: true },
+    );
   });
 });
