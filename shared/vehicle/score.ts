@@ -16,6 +16,7 @@ import { coverage, OpticsInputError, zoneCoverage, type Mirror, type Pose } from
 import type { Vehicle } from '../schemas/vehicle';
 import { defaultRuleSet, vehicleFields, type FieldOptions, type RuleSetId, type VehicleField } from './fields';
 import { boxAt, vehicleGeometry, type VehicleGeometry } from './geometry';
+import { fieldCriteria, type FieldCriteria } from './criteria';
 import { mountingNotes, type MirrorClass, type MountingNote } from './mounting';
 import { targetView, type TargetView } from './targets';
 
@@ -42,6 +43,13 @@ export type ScoreInput = {
   /** Person-sized criteria for the test cylinders, radians (the project's detect / recognise angles). */
   detectAngleRad?: number;
   recogniseAngleRad?: number;
+  /**
+   * With both angles given: each field also reports where a person of this height (metres) would
+   * be detected and recognised (a sampled estimate, see criteria.ts).
+   */
+  fieldTargetHeightM?: number;
+  /** Grid points per field for that estimate (default 100). */
+  criteriaSamples?: number;
 };
 
 export type TraceAccuracy = { rimSamples: number; wallToleranceM: number; simplifyM: number };
@@ -70,6 +78,8 @@ export type FieldScore = {
   gapsM: MultiPolygon;
   verdict: Verdict;
   mirrorIds: string[];
+  /** Detect / recognise shares when the criteria were asked for. */
+  criteria: FieldCriteria | null;
 };
 
 export type VehicleScore = {
@@ -173,6 +183,19 @@ export function scoreVehicle(input: ScoreInput): VehicleScore {
       gapsM,
       verdict: verdictFor(fraction, field.requiredShare),
       mirrorIds: mirrors.map((m) => m.id),
+      criteria:
+        input.fieldTargetHeightM !== undefined && input.detectAngleRad !== undefined && input.recogniseAngleRad !== undefined
+          ? fieldCriteria({
+              field,
+              mirrors,
+              eyes,
+              walls: g.walls,
+              targetHeightM: input.fieldTargetHeightM,
+              detectAngleRad: input.detectAngleRad,
+              recogniseAngleRad: input.recogniseAngleRad,
+              samples: input.criteriaSamples,
+            })
+          : null,
     };
   });
 
