@@ -317,6 +317,8 @@ export function ruleSetChoices(ruleSet: RuleSetId, v: Pick<Vehicle, 'kind' | 'dr
       if (v.kind === 'car-van') return [r46('un-iii', d), r46('un-iii', p)];
       return [r46('un-ii', d), r46('un-ii', p)];
     case 'fmvss-111':
+      // The strip is the passenger-car rule; school buses are judged by the installer's test cylinders.
+      if (v.kind !== 'car-van') return [];
       return [
         {
           code: 'us-driver-strip',

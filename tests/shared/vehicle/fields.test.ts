@@ -66,6 +66,11 @@ describe('the ground-field library', () => {
     expect(choices.find((c) => c.code === 'un-iv' && c.side === 'left')?.requiredShare).toBe(0.9);
   });
 
+  it('asks the US passenger-car strip of cars only, leaving school buses to the installer’s test cylinders', () => {
+    expect(vehicleFields(vehiclePreset('car-van', 'left'), 'fmvss-111').map((f) => f.id)).toEqual(['us-driver-strip-left']);
+    expect(vehicleFields(vehiclePreset('school-bus', 'left'), 'fmvss-111')).toEqual([]);
+  });
+
   it('gives no verdict for the machinery fields, whose pass tables are not public', () => {
     const machine = vehiclePreset('site-machine', 'left');
     const fields = vehicleFields(machine);
