@@ -10,7 +10,7 @@
  * share reaches the rule's pass mark.
  */
 import { robustDifference, robustIntersection, robustUnion } from '../geometry/robust-boolean';
-import { bbox, polygonArea, type MultiPolygon } from '../geometry/polygon';
+import { bbox, multiPolygonArea, polygonArea, type MultiPolygon } from '../geometry/polygon';
 import type { Vec3 } from '../geometry/vec3';
 import { coverage, OpticsInputError, zoneCoverage, type Mirror, type Pose } from '../optics';
 import type { Vehicle } from '../schemas/vehicle';
@@ -170,7 +170,8 @@ export function scoreVehicle(input: ScoreInput): VehicleScore {
         .filter((r) => r.length > 0);
       return pieces.length <= 1 ? (pieces[0] ?? []) : robustUnion(pieces[0], ...pieces.slice(1));
     });
-    const shareByEye = eyeUnions.map((u) => zoneCoverage({ zone: field.polygonM, regions: [u] }).fraction);
+    // Each eye's union already lies inside the field: its area over the field's is that eye's share.
+    const shareByEye = eyeUnions.map((u) => Math.min(1, multiPolygonArea(u) / areaM2));
     const { fraction, coveredM2 } = zoneCoverage({ zone: field.polygonM, regions: eyeUnions });
     const seen = eyeUnions.filter((u) => u.length > 0);
     const gapsM = seen.length === 0 ? [field.polygonM] : robustDifference(field.polygonM, ...seen).filter((p) => polygonArea(p) > 1e-6);
@@ -218,7 +219,10 @@ export function scoreVehicle(input: ScoreInput): VehicleScore {
  */
 export function mirrorFootprint(m: VehicleMirror, eyeM: Vec3, maxRangeM: number, g: VehicleGeometry, accuracy: TraceAccuracy = VEHICLE_ACCURACY): MultiPolygon {
   try {
-    return coverage({ mirror: m.mirror, pose: m.pose, eyeM, maxRangeM, walls: g.walls, ...accuracy }).region;
+    // The range circle only bounds the trace: it lies 1 m beyond every field's farthest corner,
+    // so its chords may cut up to 50 mm inside it without touching a field.
+    const arcStepRad = Math.min(Math.PI / 32, 2 * Math.acos(1 - 0.05 / maxRangeM));
+    return coverage({ mirror: m.mirror, pose: m.pose, eyeM, maxRangeM, walls: g.walls, arcStepRad, ...accuracy }).region;
   } catch (e) {
     if (e instanceof OpticsInputError && e.field === 'eyeM') return [];
     throw e;
