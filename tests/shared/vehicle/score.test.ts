@@ -110,6 +110,24 @@ describe('scoring a vehicle’s mirrors against its fields', () => {
     expect(Math.abs(s.share - frac)).toBeLessThan(4 * Math.sqrt((frac * (1 - frac)) / pts.length) + 0.005);
   });
 
+  it('finds a close-proximity mirror aimed too far back short of the 85 % rule, and passing once aimed at the field', () => {
+    // The installer's fix on a right-hand-drive truck: same mirror (200 × 160 mm, radius 400 mm, trade practice [M?]), new aim.
+    const v = demoTruck();
+    const g = vehicleGeometry(v);
+    const e = g.eyeMidM;
+    const base = sixMirrors(v).find((m) => m.id === 'v-p')!;
+    const mirror = { shape: 'rect' as const, widthM: 0.2, heightM: 0.16, radiusM: 0.4 };
+    const f = field(v, 'un-v-left');
+    const at = (dx: number) => scoreVehicle({ vehicle: v, mirrors: [{ ...base, mirror, pose: aimBetween(base.pose.vertexM, e, [e[0] + dx, 2.2, 0]) }], fields: [f] }).fields[0];
+    const back = at(-1.5);
+    const fixed = at(0);
+    expect(f.requiredShare).toBe(0.85);
+    expect(back.verdict).toBe('short');
+    expect(back.gapsM.length).toBeGreaterThan(0);
+    expect(fixed.verdict).toBe('pass');
+    expect(fixed.share).toBeGreaterThan(back.share);
+  });
+
   it('counts what either eye sees: the union is at least each eye’s share', () => {
     for (const wl of [1.85, 2.1, 2.2]) {
       const v = truckWithHighDoor(wl);
