@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { email } from './common';
+import { email, multiLine } from './common';
 
 /** Paper the sheet is printed on; the default follows the project's units (imperial → US Letter). */
 export const sheetPapers = ['a4', 'letter'] as const;
@@ -12,7 +12,7 @@ export const sheetQuery = z.object({
 export const sheetEmailBody = z
   .object({
     to: email,
-    message: z.string().trim().max(2000, 'Keep the note to 2,000 characters.').optional(),
+    message: multiLine(z.string().trim().max(2000, 'Keep the note to 2,000 characters.')).optional(),
   })
   .strict();
 export type SheetEmailBody = z.input<typeof sheetEmailBody>;

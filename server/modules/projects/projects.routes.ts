@@ -4,6 +4,7 @@ import {
   createPlacementBody,
   createProjectBody,
   idParam,
+  singleLine,
   patchPlacementBody,
   patchProjectBody,
   type Scene,
@@ -21,7 +22,7 @@ import { assertCanEdit, canEdit, visibleProjects } from './project-access';
 import { toPlacementDto, toProjectDto, toProjectSummaryDto } from './project.dto';
 
 const listQuery = z.object({
-  q: z.string().trim().max(100, 'Keep the search to 100 characters.').optional(),
+  q: singleLine(z.string().trim().max(100, 'Keep the search to 100 characters.')).optional(),
   sort: z.enum(['updated', 'name', 'customer'], { message: 'Sort by updated, name or customer.' }).default('updated'),
 });
 
