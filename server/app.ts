@@ -46,6 +46,8 @@ export function createApp(deps: AppDeps): SightfanApp {
   const { config, orm, log } = deps;
   const app = express();
   app.disable('x-powered-by');
+  // A hop count, never `true`: with `true` Express takes the left-most X-Forwarded-For entry, which
+  // the client writes itself.
   app.set('trust proxy', config.trustProxy);
 
   app.use(
@@ -84,7 +86,7 @@ export function createApp(deps: AppDeps): SightfanApp {
       resave: false,
       saveUninitialized: false,
       rolling: true,
-      proxy: config.trustProxy !== false,
+      proxy: config.trustProxy > 0,
       cookie: {
         httpOnly: true,
         sameSite: 'lax',

@@ -23,20 +23,22 @@ export function authRoutes(orm: Orm, limiter: SignInLimiter): Router {
 
   r.post('/sign-in', async (req, res) => {
     const body = parseOr400(signInBody, req.body, 'Sign-in');
-    const address = req.ip ?? 'unknown';
-    const wait = await limiter.waitSeconds(body.email, address);
-    if (wait > 0) {
-      throw new HttpError(429, 'Too many sign-in attempts for now.', undefined, { 'Retry-After': String(wait) });
+    // req.ip honours X-Forwarded-For only for the configured number of trusted proxy hops.
+    const address = req.ip ?? req.socket.remoteAddress ?? 'unknown';
+    const admission = await limiter.admit(body.email, address);
+    if (!admission.ok) {
+      throw new HttpError(429, 'Too many sign-in attempts for now.', undefined, { 'Retry-After': String(admission.retryAfterS) });
     }
     const em = orm.em.fork();
     const user = await em.findOne(User, { email: body.email }, { populate: ['organization', 'passwordHash'] });
     const ok = await verifyPassword(body.password, user?.passwordHash);
-    if (!user || !ok) {
-      await limiter.recordFailure(body.email, address);
+    // A turned-off account answers exactly as a wrong password does, right password or not, so a
+    // guesser cannot use it to confirm a password.
+    if (!user || !ok || user.disabled) {
+      await admission.release(false);
       throw new HttpError(401, WRONG);
     }
-    await limiter.recordSuccess(body.email);
-    if (user.disabled) throw new HttpError(403, 'This account has been turned off. Ask your administrator to turn it back on.');
+    await admission.release(true);
     await startSession(req, user.id);
     res.json({ user: toUserDto(user) });
   });
