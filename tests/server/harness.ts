@@ -36,7 +36,7 @@ export interface Harness {
   restart(): Promise<void>;
   signedIn(email: string, password?: string): Promise<ReturnType<typeof request.agent>>;
   waitForMail(to: string, timeoutMs?: number): Promise<MailMessage>;
-  /** Adds a user straight to the database (same organisation as the demo), with the demo password. */
+  /** Adds a user straight to the database (the demo organisation, or the one named, made on first use), with the demo password. */
   addUser(email: string, role: 'installer' | 'reviewer' | 'admin', organizationName?: string): Promise<number>;
   close(): Promise<void>;
 }
@@ -89,7 +89,7 @@ export async function startHarness(opts: { signInLimits?: SignInLimits; env?: Re
     async addUser(email, role, organizationName) {
       const em = h.orm.em.fork();
       const org = organizationName
-        ? em.create(Organization, { name: organizationName })
+        ? ((await em.findOne(Organization, { name: organizationName })) ?? em.create(Organization, { name: organizationName }))
         : await em.findOneOrFail(Organization, { demo: true });
       const user = em.create(User, { email, name: email.split('@')[0], role, organization: org, passwordHash: await hashPassword(PASSWORD, 12) });
       await em.flush();
