@@ -18,6 +18,7 @@ import { authRoutes } from './modules/auth/auth.routes';
 import { SignInLimiter, type SignInLimits, DEFAULT_SIGN_IN_LIMITS } from './modules/auth/sign-in-limiter';
 import type { Mailer } from './modules/mail/mailer';
 import { outboxRoutes } from './modules/mail/outbox.routes';
+import { DEFAULT_OUTBOX_OPTIONS, MailDispatcher, type OutboxOptions } from './modules/mail/outbox';
 import { OrmSessionStore } from './modules/sessions/orm-session-store';
 import { invitationsRoutes } from './modules/users/invitations.routes';
 import { usersRoutes } from './modules/users/users.routes';
@@ -32,10 +33,14 @@ export interface AppDeps {
   log: Logger;
   sessionSecret: string;
   signInLimits?: SignInLimits;
+  /** Outbox timing (tests shorten the retry delays). */
+  outbox?: Partial<OutboxOptions>;
 }
 
 export interface SightfanApp {
   app: Express;
+  /** Delivers queued e-mail from the database; started with the app, stopped by close(). */
+  outbox: MailDispatcher;
   close(): void;
 }
 
@@ -72,6 +77,8 @@ export function createApp(deps: AppDeps): SightfanApp {
   );
 
   const store = new OrmSessionStore(orm);
+  const outbox = new MailDispatcher(orm, deps.mailer, log, { ...DEFAULT_OUTBOX_OPTIONS, ...deps.outbox });
+  outbox.start();
   const api = express.Router();
   if (config.devOrigins.length) {
     api.use(cors({ origin: config.devOrigins, credentials: true }));
@@ -108,11 +115,11 @@ export function createApp(deps: AppDeps): SightfanApp {
   });
   api.use('/auth', authRoutes(orm, new SignInLimiter(deps.signInLimits ?? DEFAULT_SIGN_IN_LIMITS)));
   api.use('/invitations', invitationsRoutes(orm, config.bcryptCost));
-  api.use('/users', usersRoutes({ orm, mailer: deps.mailer, store, publicUrl }));
-  api.use('/outbox', outboxRoutes(orm, config.demoMode));
+  api.use('/users', usersRoutes({ orm, outbox, store, publicUrl }));
+  api.use('/outbox', outboxRoutes(orm, config.demoMode, config.mailFrom));
   api.use('/catalog', catalogRoutes(orm));
   api.use('/projects', projectsRoutes(orm));
-  api.use('/projects', sheetsRoutes({ orm, mailer: deps.mailer }));
+  api.use('/projects', sheetsRoutes({ orm, outbox }));
   api.use(apiNotFound);
   app.use('/api', api);
 
@@ -138,5 +145,12 @@ export function createApp(deps: AppDeps): SightfanApp {
   });
   app.use(errorHandler(log));
 
-  return { app, close: () => store.close() };
+  return {
+    app,
+    outbox,
+    close: () => {
+      outbox.stop();
+      store.close();
+    },
+  };
 }

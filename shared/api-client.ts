@@ -130,6 +130,8 @@ export function createApiClient(options: ApiClientOptions = {}) {
       list: () => request<UsersResponse>('GET', '/users'),
       invite: (body: InviteBody) => request<UserResponse>('POST', '/users', body),
       update: (id: number, body: PatchUserBody) => request<UserResponse>('PATCH', `/users/${id}`, body),
+      /** A new invitation link for someone who has not chosen a password; earlier links stop working. */
+      reinvite: (id: number) => request<UserResponse>('POST', `/users/${id}/invitation`),
     },
     outbox: {
       list: () => request<OutboxResponse>('GET', '/outbox'),

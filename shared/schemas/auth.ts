@@ -66,6 +66,10 @@ export const outboxMessageDto = z.object({
   text: z.string(),
   attachments: z.array(z.object({ filename: z.string(), contentType: z.string(), size: z.number() })),
   receivedAt: z.string(),
+  /** Delivery: queued (waiting or retrying), sending, sent, or failed after every retry. */
+  status: z.enum(['queued', 'sending', 'sent', 'failed']).optional(),
+  attempts: z.number().optional(),
+  sentAt: z.string().nullable().optional(),
 });
 export type OutboxMessageDto = z.infer<typeof outboxMessageDto>;
 export const outboxResponse = z.object({ messages: z.array(outboxMessageDto), demo: z.boolean() });

@@ -32,5 +32,6 @@ export const sheetStatusDto = z.object({
 });
 export type SheetStatusDto = z.infer<typeof sheetStatusDto>;
 
-export const sheetEmailResponse = z.object({ revision: sheetRevisionDto, to: z.string(), filename: z.string() });
+/** `sent`: the mail server accepted it; `queued`: stored and retried until the server takes it. */
+export const sheetEmailResponse = z.object({ revision: sheetRevisionDto, to: z.string(), filename: z.string(), delivery: z.enum(['sent', 'queued']) });
 export type SheetEmailResponse = z.infer<typeof sheetEmailResponse>;

@@ -9,6 +9,7 @@ import path from 'node:path';
 import request from 'supertest';
 import type { Express } from 'express';
 import { createApp } from '../../server/app';
+import type { MailDispatcher, OutboxOptions } from '../../server/modules/mail/outbox';
 import { parseConfig, type AppConfig } from '../../server/config';
 import { initORM, type Orm } from '../../server/db';
 import { createLogger } from '../../server/logger';
@@ -30,6 +31,8 @@ export const EMAIL = {
 
 export interface Harness {
   app: Express;
+  /** The app's outbox worker (delivers queued e-mail through the fake SMTP server). */
+  outbox: MailDispatcher;
   orm: Orm;
   config: AppConfig;
   dir: string;
@@ -43,7 +46,7 @@ export interface Harness {
 
 const SECRET = 'test-secret-that-is-long-enough-for-the-config-check';
 
-export async function startHarness(opts: { signInLimits?: SignInLimits; env?: Record<string, string> } = {}): Promise<Harness> {
+export async function startHarness(opts: { signInLimits?: SignInLimits; env?: Record<string, string>; outbox?: Partial<OutboxOptions> } = {}): Promise<Harness> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'sightfan-test-'));
   const config = parseConfig({ NODE_ENV: 'test', DATABASE_PATH: path.join(dir, 'test.sqlite'), PUBLIC_URL: 'http://sightfan.test', ...opts.env });
   const log = createLogger(true);
@@ -51,10 +54,11 @@ export async function startHarness(opts: { signInLimits?: SignInLimits; env?: Re
   await seedDemo(orm, config.bcryptCost);
   let fake: FakeSmtp = await startFakeSmtp(orm, log, 0);
   let mailer: Mailer = createMailer({ fakePort: fake.port, from: config.mailFrom });
-  let built = createApp({ config, orm, mailer, log, sessionSecret: SECRET, signInLimits: opts.signInLimits });
+  let built = createApp({ config, orm, mailer, log, sessionSecret: SECRET, signInLimits: opts.signInLimits, outbox: opts.outbox });
 
   const h: Harness = {
     app: built.app,
+    outbox: built.outbox,
     orm,
     config,
     dir,
@@ -66,8 +70,9 @@ export async function startHarness(opts: { signInLimits?: SignInLimits; env?: Re
       orm = await initORM(config.databasePath);
       fake = await startFakeSmtp(orm, log, 0);
       mailer = createMailer({ fakePort: fake.port, from: config.mailFrom });
-      built = createApp({ config, orm, mailer, log, sessionSecret: SECRET, signInLimits: opts.signInLimits });
+      built = createApp({ config, orm, mailer, log, sessionSecret: SECRET, signInLimits: opts.signInLimits, outbox: opts.outbox });
       h.app = built.app;
+      h.outbox = built.outbox;
       h.orm = orm;
     },
     async signedIn(email, password = PASSWORD) {

@@ -7,7 +7,7 @@ import { requireRole, requireUser } from '../../middleware/auth';
 import { parseOr400 } from '../../middleware/validate';
 import { assignMirror, toCatalogueItemDto } from './catalog.dto';
 import { MirrorModel } from './mirror-model.entity';
-import { ownCatalogue, visibleCatalogue } from '../projects/project-access';
+import { visibleCatalogue } from '../projects/project-access';
 
 const duplicateCode = () => new HttpError(409, 'Another catalogue item already uses this code.', { code: 'This code is already in use.' });
 
@@ -49,7 +49,7 @@ export function catalogRoutes(orm: Orm): Router {
       throw new HttpError(409, 'Someone changed this catalogue item since you opened it. Review the current values and make your change again.', undefined, undefined, { current: toCatalogueItemDto(item) });
     }
     const { mirror, version: _v, ...rest } = body;
-    if (rest.code && rest.code !== item.code && (await em.count(MirrorModel, { ...ownCatalogue(req.user!.organization.id), code: rest.code }))) throw duplicateCode();
+    if (rest.code && rest.code !== item.code && (await em.count(MirrorModel, { organization: req.user!.organization.id, code: rest.code }))) throw duplicateCode();
     em.assign(item, rest);
     if (mirror) assignMirror(item, mirror);
     item.version += 1;

@@ -44,6 +44,3 @@ export const canEdit = (user: User, project: Project) =>
 export function visibleCatalogue(organizationId: number): FilterQuery<MirrorModel> {
   return { $or: [{ organization: organizationId }, { organization: null }] };
 }
-
-/** Catalogue items an organisation's admin may change: its own only. */
-export const ownCatalogue = (organizationId: number): FilterQuery<MirrorModel> => ({ organization: organizationId });
