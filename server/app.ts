@@ -113,8 +113,9 @@ export function createApp(deps: AppDeps): SightfanApp {
   api.get('/health', (_req, res) => {
     res.json({ ok: true });
   });
-  api.use('/auth', authRoutes(orm, new SignInLimiter(deps.signInLimits ?? DEFAULT_SIGN_IN_LIMITS)));
-  api.use('/invitations', invitationsRoutes(orm, config.bcryptCost));
+  const limiter = new SignInLimiter(deps.signInLimits ?? DEFAULT_SIGN_IN_LIMITS);
+  api.use('/auth', authRoutes({ orm, limiter, store, outbox, bcryptCost: config.bcryptCost, publicUrl }));
+  api.use('/invitations', invitationsRoutes(orm, config.bcryptCost, store));
   api.use('/users', usersRoutes({ orm, outbox, store, publicUrl }));
   api.use('/outbox', outboxRoutes(orm, config.demoMode, config.mailFrom));
   api.use('/catalog', catalogRoutes(orm));

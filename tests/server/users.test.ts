@@ -112,7 +112,7 @@ describe('invitations', () => {
 
     const info = await request(h.app).get(`/api/invitations/${token}`);
     expect(info.status).toBe(200);
-    expect(info.body.invitation).toEqual({ email, name: 'Noor Newhire', organizationName: 'Harbourline Cold Storage (demo)' });
+    expect(info.body.invitation).toEqual({ email, name: 'Noor Newhire', organizationName: 'Harbourline Cold Storage (demo)', purpose: 'invite' });
 
     const mismatch = await request(h.app).post('/api/invitations/accept').send({ token, password: 'a-good-long-password', confirm: 'different' });
     expect(mismatch.status).toBe(400);
