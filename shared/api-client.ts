@@ -14,6 +14,9 @@ import type {
   ProjectDto,
   ProjectSummaryDto,
   AcceptInvitationBody,
+  ChangePasswordBody,
+  ForgotPasswordBody,
+  ForgotPasswordResponse,
   ApiErrorBody,
   InvitationDto,
   InviteBody,
@@ -121,6 +124,10 @@ export function createApiClient(options: ApiClientOptions = {}) {
       signOut: () => request<void>('POST', '/auth/sign-out'),
       me: () => request<UserResponse>('GET', '/auth/me'),
       updateMe: (body: UpdateMeBody) => request<UserResponse>('PATCH', '/auth/me', body),
+      /** Needs the current password; the server ends this person's other sessions. */
+      changePassword: (body: ChangePasswordBody) => request<UserResponse>('POST', '/auth/password', body),
+      /** Always the same answer, whether or not the address has an account. */
+      forgotPassword: (body: ForgotPasswordBody) => request<ForgotPasswordResponse>('POST', '/auth/password-reset', body),
     },
     invitations: {
       get: (token: string) => request<{ invitation: InvitationDto }>('GET', `/invitations/${encodeURIComponent(token)}`),
