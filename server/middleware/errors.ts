@@ -71,9 +71,11 @@ export function describeForLog(err: unknown): string {
     const code = (err as { code?: string }).code;
     return `${err.name}${code ? ` (${code})` : ''}: database error, statement withheld`;
   }
-  if (err instanceof Error) {
-    const frames = (err.stack ?? '').split('\n').filter((l) => /^\s+at /.test(l)).slice(0, 8);
-    return [`${err.name}: ${redact(err.message)}`, ...frames].join('\n');
+  // Duck-typed: errors from Node internals can come from another realm (e.g. under Jest).
+  const e = err as { name?: unknown; message?: unknown; stack?: unknown } | null;
+  if (e && typeof e === 'object' && typeof e.message === 'string') {
+    const frames = (typeof e.stack === 'string' ? e.stack : '').split('\n').filter((l) => /^\s+at /.test(l)).slice(0, 8);
+    return [`${typeof e.name === 'string' ? e.name : 'Error'}: ${redact(e.message)}`, ...frames].join('\n');
   }
   return `non-error value thrown (${typeof err})`;
 }

@@ -4,6 +4,7 @@
  */
 import zlib from 'node:zlib';
 import express from 'express';
+import fc from 'fast-check';
 import { DriverException } from '@mikro-orm/core';
 import { errorHandler } from '../../server/middleware/errors';
 import request from 'supertest';
@@ -141,5 +142,28 @@ describe('the log of an unexpected failure', () => {
     const logged = lines.join('\n');
     expect(logged).toContain('reset token');
     expect(logged).not.toMatch(/Zq9Zq9|\$2b\$/);
+  });
+});
+
+describe('any text at all in stored and searched fields', () => {
+  // Whole code-point space, controls and lone surrogates included ("binary" units), up to 300 units.
+  const anyText = fc.string({ unit: 'binary', maxLength: 300 });
+  const fields: [string, (t: string) => Promise<request.Response>][] = [
+    ['a project name', (t) => installer.post('/api/projects').send({ name: t })],
+    ['project notes', (t) => installer.post('/api/projects').send({ name: 'Fuzzed notes (demo)', notes: t })],
+    ['a project search', (t) => installer.get('/api/projects').query({ q: t })],
+    ['my own name', (t) => installer.patch('/api/auth/me').send({ name: t })],
+    ['a sign-in address', (t) => request(h.app).post('/api/auth/sign-in').send({ email: t, password: 'x' })],
+    ['a catalogue name', (t) => admin.post('/api/catalog').send({ code: 'FUZZ', name: t, mirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 }, unitPriceMinor: 1, currency: 'EUR' })],
+  ];
+
+  it.each(fields)('never answers 5xx for %s', async (_what, send) => {
+    await fc.assert(
+      fc.asyncProperty(anyText, async (t) => {
+        const res = await send(t);
+        expect(res.status).toBeLessThan(500);
+      }),
+      { numRuns: 40 },
+    );
   });
 });
