@@ -65,6 +65,18 @@ describe('no lock-out of the real user', () => {
     expect((await signIn(EMAIL.installer, PASSWORD, '198.51.100.4')).status).toBe(200);
   });
 
+  it('admits the owner from a usual address at once while the account gate is closed to others', async () => {
+    const l = new SignInLimiter(limits({ accountFreeAttempts: 1, knownAddressDays: 30 }));
+    const home = await l.admit('owner@x.example', '203.0.113.1');
+    expect(home.ok).toBe(true);
+    if (home.ok) await home.release(true);
+    const others = [];
+    for (let i = 0; i < 5; i++) others.push(await l.admit('owner@x.example', `198.51.100.${i}`));
+    expect(others.map((a) => a.ok)).toEqual([true, true, false, false, false]);
+    expect((await l.admit('owner@x.example', '203.0.113.1')).ok).toBe(true);
+    expect((await l.admit('owner@x.example', '198.51.100.99')).ok).toBe(false);
+  });
+
   it('doubles the delay per attempt past the free ones, up to the cap (common practice: exponential back-off)', () => {
     const l = new SignInLimiter(limits({ accountFreeAttempts: 10, accountMaxDelayS: 300 }));
     expect([10, 11, 12, 13, 18, 19, 1000].map((n) => l.delayS(n))).toEqual([0, 2, 4, 8, 256, 300, 300]);

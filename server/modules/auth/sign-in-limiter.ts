@@ -44,7 +44,8 @@ export class SignInLimiter {
   private readonly byAddress: RateLimiterMemory;
   private readonly accountAttempts: RateLimiterMemory;
   private readonly accountGate: RateLimiterMemory;
-  private readonly knownPairs: RateLimiterMemory;
+  /** account|address → when it stops being "usual". A Map: the memory limiter's timers overflow past 24.8 days. */
+  private readonly knownPairs = new Map<string, number>();
 
   constructor(readonly limits: SignInLimits = DEFAULT_SIGN_IN_LIMITS) {
     this.byPair = new RateLimiterMemory({ keyPrefix: 'pair', points: limits.perPair, duration: limits.windowS });
@@ -52,7 +53,16 @@ export class SignInLimiter {
     // Counts attempts; never refuses by itself (the gate below does the slowing).
     this.accountAttempts = new RateLimiterMemory({ keyPrefix: 'acct', points: Number.MAX_SAFE_INTEGER, duration: limits.windowS });
     this.accountGate = new RateLimiterMemory({ keyPrefix: 'gate', points: 1, duration: 1 });
-    this.knownPairs = new RateLimiterMemory({ keyPrefix: 'known', points: 1, duration: limits.knownAddressDays * 24 * 60 * 60 });
+  }
+
+  /** Marks an address as usual for an account; the oldest entries go first past 100,000 pairs. */
+  private remember(pairKey: string): void {
+    this.knownPairs.delete(pairKey);
+    this.knownPairs.set(pairKey, Date.now() + this.limits.knownAddressDays * 24 * 60 * 60 * 1000);
+    if (this.knownPairs.size > 100_000) {
+      const oldest = this.knownPairs.keys().next().value;
+      if (oldest !== undefined) this.knownPairs.delete(oldest);
+    }
   }
 
   /** The delay before the next attempt on an account that has had `attempts` from unusual addresses. */
@@ -68,7 +78,8 @@ export class SignInLimiter {
    */
   async admit(email: string, address: string): Promise<Admission> {
     const pairKey = `${email}|${address}`;
-    const known = (await this.knownPairs.get(pairKey)) !== null;
+    const knownUntil = this.knownPairs.get(pairKey);
+    const known = knownUntil !== undefined && knownUntil > Date.now();
     const consumed: Array<[RateLimiterMemory, string]> = [];
     const refuse = async (res: RateLimiterRes): Promise<Admission> => {
       // Attempts that were never checked do not count against the other limits.
@@ -95,7 +106,7 @@ export class SignInLimiter {
       release: async (success) => {
         if (!success) return;
         await Promise.all([this.byPair.delete(pairKey), this.byAddress.reward(address, 1), this.accountAttempts.delete(email), this.accountGate.delete(email)]);
-        await this.knownPairs.set(pairKey, 1, this.limits.knownAddressDays * 24 * 60 * 60);
+        this.remember(pairKey);
       },
     };
   }
