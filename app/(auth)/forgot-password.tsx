@@ -2,7 +2,7 @@ import { Link } from 'expo-router';
 import { StyleSheet } from 'react-native';
 import { AuthFrame } from '@/components/auth/auth-frame';
 import { ForgotPasswordForm } from '@/components/forms/forgot-password-form';
-import { palette, spacing } from '@/constants/theme';
+import { palette, spacing, type as typeScale } from '@/constants/theme';
 import { useForgotPasswordMutation } from '@/hooks/use-session';
 
 /** Signed out: ask for a one-time link to choose a new password. */
@@ -19,5 +19,5 @@ export default function ForgotPasswordScreen() {
 }
 
 const styles = StyleSheet.create({
-  back: { color: palette.glass, textDecorationLine: 'underline', marginTop: spacing.md, alignSelf: 'center' },
+  back: { color: palette.glass, textDecorationLine: 'underline', fontFamily: typeScale.bodyStrong.fontFamily, marginTop: spacing.md, alignSelf: 'center' },
 });

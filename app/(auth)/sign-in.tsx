@@ -1,7 +1,7 @@
 import { Link } from 'expo-router';
 import { StyleSheet } from 'react-native';
 import { AuthFrame } from '@/components/auth/auth-frame';
-import { palette, spacing } from '@/constants/theme';
+import { palette, spacing, type as typeScale } from '@/constants/theme';
 import { SignInForm } from '@/components/forms/sign-in-form';
 import { useSignInMutation } from '@/hooks/use-session';
 
@@ -19,5 +19,5 @@ export default function SignInScreen() {
 }
 
 const styles = StyleSheet.create({
-  forgot: { color: palette.glass, textDecorationLine: 'underline', marginTop: spacing.md, alignSelf: 'center' },
+  forgot: { color: palette.glass, textDecorationLine: 'underline', fontFamily: typeScale.bodyStrong.fontFamily, marginTop: spacing.md, alignSelf: 'center' },
 });
