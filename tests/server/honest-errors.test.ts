@@ -54,6 +54,10 @@ const corpus = (): Case[] => [
   { name: 'NUL in an invited name', run: () => admin.post('/api/users').send({ email: 'nul@sightfan-demo.example', name: `N${nul}`, role: 'installer' }) },
   { name: 'NUL in a catalogue name', run: () => admin.post('/api/catalog').send({ code: 'NUL-1', name: `Dome${nul}`, mirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 }, unitPriceMinor: 100, currency: 'EUR' }) },
   { name: 'NUL in a sheet e-mail note', run: () => installer.post(`/api/projects/${projectId}/sheet/email`).send({ to: 'buyer@example.com', message: `hi${nul}` }) },
+  { name: 'a session cookie with a broken percent-escape', run: () => request(h.app).get('/api/auth/me').set('Cookie', 'sightfan.sid=s%3A%ZZ%E0') },
+  { name: 'a broken percent-escape in a query string', run: () => installer.get('/api/projects?q=%E0%A4%A&sort=%ZZ') },
+  { name: 'a JSON body nested ten thousand deep', run: () => installer.post('/api/projects').set('Content-Type', 'application/json').send(`{"name":${'['.repeat(10000)}${']'.repeat(10000)}}`) },
+  { name: 'a scene id with NUL', run: () => installer.patch(`/api/projects/${projectId}`).send({ version: 1, scene: { walls: [], zones: [], viewers: [{ id: `v${nul}`, name: 'V', positionM: [0, 0], eyeHeightM: 1.6 }] } }) },
   { name: 'a line break in a project name', run: () => installer.post('/api/projects').send({ name: 'Cold\nstore' }) },
   { name: 'a bell character in a mirror label', run: () => installer.post(`/api/projects/${projectId}/placements`).send({ label: 'M\u0007', customMirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 }, positionM: [0, 0], heightM: 2.5, azimuthRad: 0, tiltDownRad: 0.2, viewerId: null, notes: '' }) },
 ];
