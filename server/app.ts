@@ -77,7 +77,7 @@ export function createApp(deps: AppDeps): SightfanApp {
   );
 
   const store = new OrmSessionStore(orm);
-  const outbox = new MailDispatcher(orm, deps.mailer, log, { ...DEFAULT_OUTBOX_OPTIONS, ...deps.outbox });
+  const outbox = new MailDispatcher(orm, deps.mailer, log, { ...DEFAULT_OUTBOX_OPTIONS, scrubAfterSend: !config.demoMode, ...deps.outbox });
   outbox.start();
   const api = express.Router();
   if (config.devOrigins.length) {

@@ -33,6 +33,8 @@ export interface Harness {
   app: Express;
   /** The app's outbox worker (delivers queued e-mail through the fake SMTP server). */
   outbox: MailDispatcher;
+  /** The app's mailer toward the fake SMTP server. */
+  mailer: Mailer;
   orm: Orm;
   config: AppConfig;
   dir: string;
@@ -59,6 +61,7 @@ export async function startHarness(opts: { signInLimits?: SignInLimits; env?: Re
   const h: Harness = {
     app: built.app,
     outbox: built.outbox,
+    mailer,
     orm,
     config,
     dir,
@@ -73,6 +76,7 @@ export async function startHarness(opts: { signInLimits?: SignInLimits; env?: Re
       built = createApp({ config, orm, mailer, log, sessionSecret: SECRET, signInLimits: opts.signInLimits, outbox: opts.outbox });
       h.app = built.app;
       h.outbox = built.outbox;
+      h.mailer = mailer;
       h.orm = orm;
     },
     async signedIn(email, password = PASSWORD) {

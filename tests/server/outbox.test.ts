@@ -126,6 +126,21 @@ describe('retries', () => {
   });
 });
 
+describe('what stays in the database', () => {
+  it('blanks a delivered message outside demo mode, so no working link is stored in clear', async () => {
+    const to = 'scrubbed.link@sightfan-demo.example';
+    const em = h.orm.em.fork();
+    const org = (await (await h.signedIn(EMAIL.admin)).get('/api/auth/me')).body.user.organizationId as number;
+    const row = em.create(OutgoingMail, { organization: org, kind: 'password-reset', toAddress: to, subject: 's', text: 'http://sightfan.test/set-password?token=secret-token-value', nextAttemptAt: new Date(0) });
+    await em.flush();
+    const worker = new MailDispatcher(h.orm, h.mailer, createLogger(true), { ...DEFAULT_OUTBOX_OPTIONS, scrubAfterSend: true });
+    expect(await worker.deliver(row.id)).toBe('sent');
+    expect((await h.waitForMail(to)).text).toContain('secret-token-value');
+    const stored = await h.orm.em.fork().findOneOrFail(OutgoingMail, { id: row.id });
+    expect(stored.text).not.toContain('secret-token-value');
+  });
+});
+
 describe('a mail server that accepts the connection and then says nothing', () => {
   it('fails the send within the bounded greeting time instead of holding on', async () => {
     const sockets: net.Socket[] = [];

@@ -46,9 +46,16 @@ export interface OutboxOptions {
   maxAttempts: number;
   /** How long a claimed row is reserved for its sender. */
   leaseMs: number;
+  /**
+   * Blank a message's text and attachments once sent. One-time links are stored only as hashes;
+   * a delivered e-mail kept whole would leave working links in the database. Off in demo mode,
+   * where the admin reads the mail in the Outbox.
+   */
+  scrubAfterSend: boolean;
 }
 
-export const DEFAULT_OUTBOX_OPTIONS: OutboxOptions = { pollMs: 5000, firstRetryMs: 30_000, maxDelayMs: 60 * 60_000, maxAttempts: 10, leaseMs: 2 * 60_000 };
+export const DEFAULT_OUTBOX_OPTIONS: OutboxOptions = { pollMs: 5000, firstRetryMs: 30_000, maxDelayMs: 60 * 60_000, maxAttempts: 10, leaseMs: 2 * 60_000, scrubAfterSend: true };
+export const SCRUBBED_TEXT = 'Delivered. The content was removed after sending, as it may hold a one-time link.';
 
 export type Delivery = 'sent' | 'queued' | 'failed';
 
@@ -142,7 +149,8 @@ export class MailDispatcher {
         text: row.text,
         attachments: row.attachments.map((a) => ({ filename: a.filename, contentType: a.contentType, content: Buffer.from(a.content, 'base64') })),
       });
-      await em.nativeUpdate(OutgoingMail, { id }, { status: 'sent', sentAt: new Date(), attempts: row.attempts + 1, lastError: null });
+      const scrub = this.options.scrubAfterSend ? { text: SCRUBBED_TEXT, attachments: [] } : {};
+      await em.nativeUpdate(OutgoingMail, { id }, { status: 'sent', sentAt: new Date(), attempts: row.attempts + 1, lastError: null, ...scrub });
       return 'sent';
     } catch (e) {
       const attempts = row.attempts + 1;
