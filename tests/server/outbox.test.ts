@@ -93,6 +93,15 @@ describe('sending an invitation again', () => {
     expect((await request(h.app).get(`/api/invitations/${second}`)).status).toBe(200);
   });
 
+  it('points an admin who invites a pending person again to "Invite again"', async () => {
+    const admin = await h.signedIn(EMAIL.admin);
+    const to = 'pending.twice@sightfan-demo.example';
+    expect((await admin.post('/api/users').send({ email: to, name: 'Pending Twice (demo)', role: 'installer' })).status).toBe(201);
+    const again = await admin.post('/api/users').send({ email: to, name: 'Pending Twice (demo)', role: 'installer' });
+    expect(again.status).toBe(409);
+    expect(again.body.fields.email).toMatch(/Invite again/);
+  });
+
   it('refuses to invite someone who already chose a password', async () => {
     const admin = await h.signedIn(EMAIL.admin);
     const me = await (await h.signedIn(EMAIL.installer)).get('/api/auth/me');

@@ -39,7 +39,13 @@ export function usersRoutes(deps: { orm: Orm; outbox: MailDispatcher; store: Orm
   r.post('/', async (req, res) => {
     const body = parseOr400(inviteBody, req.body, 'The invitation');
     const em = orm.em.fork();
-    if (await em.count(User, { email: body.email })) {
+    const existing = await em.findOne(User, { email: body.email }, { populate: ['passwordHash'] });
+    if (existing && existing.organization.id === req.user!.organization.id && !existing.passwordHash && !existing.disabled) {
+      throw new HttpError(409, `${existing.name} is already invited and has not chosen a password yet. Use "Invite again" in the list to send a new link.`, {
+        email: 'Already invited: use "Invite again" in the list.',
+      });
+    }
+    if (existing) {
       throw new HttpError(409, 'Someone already has an account with this e-mail address.', { email: 'This e-mail address already has an account.' });
     }
     const user = em.create(User, {
