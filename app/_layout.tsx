@@ -58,6 +58,7 @@ function RootNavigator() {
     <Stack screenOptions={{ headerShown: false, contentStyle: { backgroundColor: palette.chalk } }}>
       <Stack.Protected guard={!signedIn}>
         <Stack.Screen name="(auth)/sign-in" />
+        <Stack.Screen name="(auth)/forgot-password" />
       </Stack.Protected>
       <Stack.Protected guard={signedIn}>
         <Stack.Screen name="(app)" />

@@ -4,7 +4,7 @@
  */
 import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { ApiError } from '@/shared/api-client';
-import type { AcceptInvitationBody, SignInBody, UpdateMeBody, UserDto } from '@/shared/schemas';
+import type { AcceptInvitationBody, ChangePasswordBody, ForgotPasswordBody, SignInBody, UpdateMeBody, UserDto } from '@/shared/schemas';
 import { api } from './api';
 
 /** The session changes only when this person acts, so a minute is plenty; focus refetch catches expiry. */
@@ -84,4 +84,16 @@ export function useAcceptInvitationMutation() {
     mutationFn: (body: AcceptInvitationBody) => api.invitations.accept(body),
     onSuccess: ({ user }) => becomeSignedIn(queryClient, user),
   });
+}
+
+export function useChangePasswordMutation() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (body: ChangePasswordBody) => api.auth.changePassword(body),
+    onSuccess: ({ user }) => queryClient.setQueryData(sessionKeys.me(), user),
+  });
+}
+
+export function useForgotPasswordMutation() {
+  return useMutation({ mutationFn: (body: ForgotPasswordBody) => api.auth.forgotPassword(body) });
 }

@@ -47,3 +47,12 @@ export function useUpdateUserMutation() {
     },
   });
 }
+
+export function useReinviteUserMutation() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (id: number) => api.users.reinvite(id),
+    // The new invitation e-mail lands in the outbox.
+    onSuccess: () => void queryClient.invalidateQueries({ queryKey: outboxKeys.all }),
+  });
+}

@@ -18,6 +18,7 @@ import { authRoutes } from './modules/auth/auth.routes';
 import { SignInLimiter, type SignInLimits, DEFAULT_SIGN_IN_LIMITS } from './modules/auth/sign-in-limiter';
 import type { Mailer } from './modules/mail/mailer';
 import { outboxRoutes } from './modules/mail/outbox.routes';
+import { DEFAULT_OUTBOX_OPTIONS, MailDispatcher, type OutboxOptions } from './modules/mail/outbox';
 import { OrmSessionStore } from './modules/sessions/orm-session-store';
 import { invitationsRoutes } from './modules/users/invitations.routes';
 import { usersRoutes } from './modules/users/users.routes';
@@ -32,10 +33,14 @@ export interface AppDeps {
   log: Logger;
   sessionSecret: string;
   signInLimits?: SignInLimits;
+  /** Outbox timing (tests shorten the retry delays). */
+  outbox?: Partial<OutboxOptions>;
 }
 
 export interface SightfanApp {
   app: Express;
+  /** Delivers queued e-mail from the database; started with the app, stopped by close(). */
+  outbox: MailDispatcher;
   close(): void;
 }
 
@@ -46,6 +51,8 @@ export function createApp(deps: AppDeps): SightfanApp {
   const { config, orm, log } = deps;
   const app = express();
   app.disable('x-powered-by');
+  // A hop count, never `true`: with `true` Express takes the left-most X-Forwarded-For entry, which
+  // the client writes itself.
   app.set('trust proxy', config.trustProxy);
 
   app.use(
@@ -70,6 +77,8 @@ export function createApp(deps: AppDeps): SightfanApp {
   );
 
   const store = new OrmSessionStore(orm);
+  const outbox = new MailDispatcher(orm, deps.mailer, log, { ...DEFAULT_OUTBOX_OPTIONS, scrubAfterSend: !config.demoMode, ...deps.outbox });
+  outbox.start();
   const api = express.Router();
   if (config.devOrigins.length) {
     api.use(cors({ origin: config.devOrigins, credentials: true }));
@@ -84,7 +93,7 @@ export function createApp(deps: AppDeps): SightfanApp {
       resave: false,
       saveUninitialized: false,
       rolling: true,
-      proxy: config.trustProxy !== false,
+      proxy: config.trustProxy > 0,
       cookie: {
         httpOnly: true,
         sameSite: 'lax',
@@ -104,13 +113,14 @@ export function createApp(deps: AppDeps): SightfanApp {
   api.get('/health', (_req, res) => {
     res.json({ ok: true });
   });
-  api.use('/auth', authRoutes(orm, new SignInLimiter(deps.signInLimits ?? DEFAULT_SIGN_IN_LIMITS)));
-  api.use('/invitations', invitationsRoutes(orm, config.bcryptCost));
-  api.use('/users', usersRoutes({ orm, mailer: deps.mailer, store, publicUrl }));
-  api.use('/outbox', outboxRoutes(orm, config.demoMode));
+  const limiter = new SignInLimiter(deps.signInLimits ?? DEFAULT_SIGN_IN_LIMITS);
+  api.use('/auth', authRoutes({ orm, limiter, store, outbox, bcryptCost: config.bcryptCost, publicUrl }));
+  api.use('/invitations', invitationsRoutes(orm, config.bcryptCost, store));
+  api.use('/users', usersRoutes({ orm, outbox, store, publicUrl }));
+  api.use('/outbox', outboxRoutes(orm, config.demoMode, config.mailFrom));
   api.use('/catalog', catalogRoutes(orm));
   api.use('/projects', projectsRoutes(orm));
-  api.use('/projects', sheetsRoutes({ orm, mailer: deps.mailer }));
+  api.use('/projects', sheetsRoutes({ orm, outbox }));
   api.use(apiNotFound);
   app.use('/api', api);
 
@@ -136,5 +146,12 @@ export function createApp(deps: AppDeps): SightfanApp {
   });
   app.use(errorHandler(log));
 
-  return { app, close: () => store.close() };
+  return {
+    app,
+    outbox,
+    close: () => {
+      outbox.stop();
+      store.close();
+    },
+  };
 }

@@ -14,6 +14,9 @@ import type {
   ProjectDto,
   ProjectSummaryDto,
   AcceptInvitationBody,
+  ChangePasswordBody,
+  ForgotPasswordBody,
+  ForgotPasswordResponse,
   ApiErrorBody,
   InvitationDto,
   InviteBody,
@@ -121,6 +124,10 @@ export function createApiClient(options: ApiClientOptions = {}) {
       signOut: () => request<void>('POST', '/auth/sign-out'),
       me: () => request<UserResponse>('GET', '/auth/me'),
       updateMe: (body: UpdateMeBody) => request<UserResponse>('PATCH', '/auth/me', body),
+      /** Needs the current password; the server ends this person's other sessions. */
+      changePassword: (body: ChangePasswordBody) => request<UserResponse>('POST', '/auth/password', body),
+      /** Always the same answer, whether or not the address has an account. */
+      forgotPassword: (body: ForgotPasswordBody) => request<ForgotPasswordResponse>('POST', '/auth/password-reset', body),
     },
     invitations: {
       get: (token: string) => request<{ invitation: InvitationDto }>('GET', `/invitations/${encodeURIComponent(token)}`),
@@ -130,6 +137,8 @@ export function createApiClient(options: ApiClientOptions = {}) {
       list: () => request<UsersResponse>('GET', '/users'),
       invite: (body: InviteBody) => request<UserResponse>('POST', '/users', body),
       update: (id: number, body: PatchUserBody) => request<UserResponse>('PATCH', `/users/${id}`, body),
+      /** A new invitation link for someone who has not chosen a password; earlier links stop working. */
+      reinvite: (id: number) => request<UserResponse>('POST', `/users/${id}/invitation`),
     },
     outbox: {
       list: () => request<OutboxResponse>('GET', '/outbox'),

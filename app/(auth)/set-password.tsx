@@ -16,7 +16,16 @@ export default function SetPasswordScreen() {
   if (accept.isSuccess && user) return <Redirect href="/" />;
 
   return (
-    <AuthFrame title="Choose your password" lead={invitation.data ? `Welcome, ${invitation.data.name}. You are joining ${invitation.data.organizationName} on Sightfan.` : undefined}>
+    <AuthFrame
+      title={invitation.data?.purpose === 'reset' ? 'Choose a new password' : 'Choose your password'}
+      lead={
+        invitation.data
+          ? invitation.data.purpose === 'reset'
+            ? `${invitation.data.name}, choose a new password for ${invitation.data.organizationName}. Anywhere you were signed in will be signed out.`
+            : `Welcome, ${invitation.data.name}. You are joining ${invitation.data.organizationName} on Sightfan.`
+          : undefined
+      }
+    >
       <InvitationState token={token} query={invitation} signedInAs={user?.email}>
         {(found) => (
           <SetPasswordForm

@@ -1,4 +1,7 @@
+import { Link } from 'expo-router';
+import { StyleSheet } from 'react-native';
 import { AuthFrame } from '@/components/auth/auth-frame';
+import { palette, spacing, type as typeScale } from '@/constants/theme';
 import { SignInForm } from '@/components/forms/sign-in-form';
 import { useSignInMutation } from '@/hooks/use-session';
 
@@ -8,6 +11,13 @@ export default function SignInScreen() {
   return (
     <AuthFrame title="Sign in" lead="Use the e-mail address your administrator invited.">
       <SignInForm onSubmit={(values) => signIn.mutateAsync(values)} />
+      <Link href="/forgot-password" style={styles.forgot} testID="sign-in-forgot">
+        Forgot your password?
+      </Link>
     </AuthFrame>
   );
 }
+
+const styles = StyleSheet.create({
+  forgot: { color: palette.glass, textDecorationLine: 'underline', fontFamily: typeScale.bodyStrong.fontFamily, marginTop: spacing.md, alignSelf: 'center' },
+});

@@ -43,7 +43,7 @@ export function InviteForm({ onSubmit, sentNote }: InviteFormProps) {
         const body = { email: values.email.trim(), name: values.name.trim(), role: values.role };
         if (await submitWithServerErrors(helpers, ['email', 'name', 'role'], values, () => onSubmit(body))) {
           helpers.resetForm();
-          helpers.setStatus({ done: `Invitation sent to ${body.name} <${body.email}>.${sentNote ? ` ${sentNote}` : ''}` } satisfies FormStatus);
+          helpers.setStatus({ done: `Invitation for ${body.name} <${body.email}> is queued and goes out at once when the mail server answers.${sentNote ? ` ${sentNote}` : ''}` } satisfies FormStatus);
         }
       }}
     >

@@ -7,6 +7,14 @@ import { splitLinks } from './link-text';
 
 const timeFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 
+/** Where the message stands: the outbox keeps retrying until the mail server takes it. */
+export function deliveryText(m: OutboxMessageDto): string {
+  if (m.status === 'sent') return 'Sent';
+  if (m.status === 'failed') return `Not delivered after ${m.attempts ?? 0} attempts; check the mail settings`;
+  if (m.status === 'sending') return 'Sending now';
+  return m.attempts ? `Waiting to retry (${m.attempts} attempt${m.attempts === 1 ? '' : 's'} so far)` : 'Queued';
+}
+
 export function OutboxMessage({ message }: { message: OutboxMessageDto }) {
   return (
     <Card testID={`outbox-message-${message.id}`}>
@@ -21,6 +29,7 @@ export function OutboxMessage({ message }: { message: OutboxMessageDto }) {
       <View style={styles.meta}>
         <MetaLine label="To" value={message.to.join(', ')} />
         <MetaLine label="From" value={message.from} />
+        {message.status ? <MetaLine label="Delivery" value={deliveryText(message)} /> : null}
       </View>
       <AppText style={styles.body} selectable testID={`outbox-text-${message.id}`}>
         {splitLinks(message.text).map((part, i) =>

@@ -76,7 +76,12 @@ export function SheetActions({ projectId, canEdit }: SheetActionsProps) {
           try {
             const sent = await email.mutateAsync({ to: values.to.trim(), message: values.note.trim() || undefined });
             helpers.resetForm();
-            helpers.setStatus({ done: `Sheet revision ${sent.revision.number} sent to ${sent.to}.` } satisfies FormStatus);
+            helpers.setStatus({
+              done:
+                sent.delivery === 'sent'
+                  ? `Sheet revision ${sent.revision.number} sent to ${sent.to}.`
+                  : `Sheet revision ${sent.revision.number} is queued for ${sent.to}: the mail server did not take it yet, and Sightfan keeps retrying.`,
+            } satisfies FormStatus);
           } catch (error) {
             const mapped = serverErrorsFor<SheetEmailValues>(error, ['to', 'note'], values);
             const fields = error && typeof error === 'object' && 'fields' in error ? (error.fields as Record<string, string>) : {};

@@ -2,7 +2,7 @@ import { StyleSheet, View } from 'react-native';
 import { AppText, Button, Segmented } from '@/components/ui';
 import { roleOptions, shortRoleLabels } from '@/constants/navigation';
 import { spacing } from '@/constants/theme';
-import { useUpdateUserMutation } from '@/hooks/use-users';
+import { useReinviteUserMutation, useUpdateUserMutation } from '@/hooks/use-users';
 import { describeError } from '@/shared/errors';
 import type { Role, UserDto } from '@/shared/schemas';
 
@@ -46,6 +46,35 @@ export function UserDisableButton({ user, isSelf, mutation }: UserActionsProps &
       disabled={mutation.isPending}
       onPress={() => mutation.mutate({ id: user.id, body: { disabled: !user.disabled } })}
     />
+  );
+}
+
+/** For someone invited who has not chosen a password yet: a fresh link, the old one retired. */
+export function UserReinviteButton({ user }: { user: UserDto }) {
+  const mutation = useReinviteUserMutation();
+  if (user.hasPassword || user.disabled) return null;
+  return (
+    <View>
+      <Button
+        label="Invite again"
+        variant="secondary"
+        testID={`user-reinvite-${user.id}`}
+        accessibilityLabel={`Send ${user.name} a new invitation`}
+        busy={mutation.isPending}
+        disabled={mutation.isPending}
+        onPress={() => mutation.mutate(user.id)}
+      />
+      {mutation.isSuccess ? (
+        <AppText variant="small" tone="muted" testID={`user-reinvite-done-${user.id}`} aria-live="polite">
+          New link queued; the old one no longer works.
+        </AppText>
+      ) : null}
+      {mutation.isError ? (
+        <AppText variant="small" tone="stop" aria-live="polite">
+          {describeError(mutation.error)}
+        </AppText>
+      ) : null}
+    </View>
   );
 }
 

@@ -4,7 +4,7 @@ import { palette, radii, shadow, spacing } from '@/constants/theme';
 import { useUpdateUserMutation } from '@/hooks/use-users';
 import type { UserDto } from '@/shared/schemas';
 import type { UsersViewProps } from './users-table';
-import { UserActionError, UserDisableButton, UserRoleControl } from './user-actions';
+import { UserActionError, UserDisableButton, UserReinviteButton, UserRoleControl } from './user-actions';
 import { UserStatus } from './user-status';
 
 /** Phones: one block per person, controls stacked at full width for the thumb. */
@@ -33,6 +33,7 @@ function ListItem({ user, isSelf }: { user: UserDto; isSelf: boolean }) {
       </View>
       <UserRoleControl user={user} isSelf={isSelf} mutation={mutation} stretch />
       <UserDisableButton user={user} isSelf={isSelf} mutation={mutation} />
+      <UserReinviteButton user={user} />
       <UserActionError user={user} mutation={mutation} />
     </View>
   );

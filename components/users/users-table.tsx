@@ -3,7 +3,7 @@ import { AppText } from '@/components/ui';
 import { palette, radii, shadow, spacing } from '@/constants/theme';
 import { useUpdateUserMutation } from '@/hooks/use-users';
 import type { UserDto } from '@/shared/schemas';
-import { UserActionError, UserDisableButton, UserRoleControl } from './user-actions';
+import { UserActionError, UserDisableButton, UserReinviteButton, UserRoleControl } from './user-actions';
 import { UserStatus } from './user-status';
 
 export interface UsersViewProps {
@@ -59,6 +59,7 @@ function TableRow({ user, isSelf }: { user: UserDto; isSelf: boolean }) {
       </View>
       <View role="cell" style={styles.actionCol}>
         <UserDisableButton user={user} isSelf={isSelf} mutation={mutation} />
+        <UserReinviteButton user={user} />
       </View>
     </View>
   );
@@ -73,5 +74,5 @@ const styles = StyleSheet.create({
   personCol: { flex: 1, minWidth: 180 },
   roleCol: { width: 300 },
   statusCol: { width: 96 },
-  actionCol: { width: 112, alignItems: 'flex-start' },
+  actionCol: { width: 136, alignItems: 'flex-start', gap: spacing.xs },
 });

@@ -1,10 +1,84 @@
-import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { ErrorRequestHandler, Request, RequestHandler } from 'express';
+import { DriverException } from '@mikro-orm/core';
 import { HttpError } from '../http-error';
 import type { Logger } from '../logger';
 
 export const apiNotFound: RequestHandler = (req, _res, next) => {
-  next(new HttpError(404, `There is no API route ${req.method} ${req.originalUrl.split('?')[0]}.`));
+  next(new HttpError(404, `There is no API route ${req.method} ${safePath(req)}.`));
 };
+
+/**
+ * Errors raised below the routes (body-parser, the router's path decoding) carry a `type` or a
+ * 4xx `status`; each becomes a sentence a person can act on, keeping its status.
+ */
+const BY_TYPE: Record<string, [number, string]> = {
+  'entity.parse.failed': [400, 'The request body is not valid JSON.'],
+  'entity.too.large': [413, 'The request is too large.'],
+  'charset.unsupported': [415, 'Send the request body as UTF-8 (charset=utf-8); other character sets are not accepted.'],
+  'encoding.unsupported': [415, 'The request body uses a content encoding the server does not accept; send it uncompressed, or compressed with gzip or deflate.'],
+  'request.aborted': [400, 'The request was cut off before its body arrived. Try again.'],
+  'request.size.invalid': [400, 'The request body is shorter or longer than its Content-Length says.'],
+};
+
+const BY_STATUS: Record<number, string> = {
+  400: 'The request is not valid.',
+  401: 'You are signed out. Sign in to continue.',
+  403: 'This request is not allowed.',
+  404: 'That page was not found.',
+  405: 'That method is not allowed here.',
+  413: 'The request is too large.',
+  415: 'The request body is in a format the server does not accept; send JSON in UTF-8.',
+};
+
+function knownClientError(err: unknown): [number, string] | undefined {
+  const e = err as { type?: string; status?: number; statusCode?: number } | null;
+  if (!e || typeof e !== 'object') return undefined;
+  if (e.type && BY_TYPE[e.type]) return BY_TYPE[e.type];
+  const status = e.status ?? e.statusCode;
+  if (err instanceof URIError && status === 400) {
+    return [400, 'The address contains a broken percent-escape (such as "%E0" without the rest of its character). Check the link and try again.'];
+  }
+  // Body errors from zlib ("incorrect header check") and the like carry 400 from body-parser.
+  if (typeof status === 'number' && status >= 400 && status < 500) return [status, BY_STATUS[status] ?? 'The request is not valid.'];
+  return undefined;
+}
+
+/**
+ * The path for messages and logs: the route's pattern when one matched (so ids and tokens in the
+ * path are not copied), otherwise the path with anything token-like masked.
+ */
+export function safePath(req: Request): string {
+  const pattern = req.route?.path;
+  if (typeof pattern === 'string') return `${req.baseUrl}${pattern}`;
+  const raw = (req.originalUrl ?? req.url ?? '').split('?')[0];
+  return redact(raw).slice(0, 200);
+}
+
+const TOKEN_LIKE = /[A-Za-z0-9_%+/=-]{24,}/g;
+const BCRYPT = /\$2[aby]\$\d\d\$[./A-Za-z0-9]{53}/g;
+const SQL = /\b(select|insert|update|delete|pragma|create|alter|drop)\b[\s\S]*\b(from|into|set|table|where|values)\b/i;
+
+/** Masks secrets a message may carry: bcrypt hashes, session ids and tokens, and whole SQL statements. */
+export function redact(text: string): string {
+  if (SQL.test(text)) return '[SQL statement withheld]';
+  return text.replace(BCRYPT, '[hash]').replace(TOKEN_LIKE, '[redacted]');
+}
+
+/** What the log may keep of an unexpected error: its kind and where it happened, never data. */
+export function describeForLog(err: unknown): string {
+  if (err instanceof DriverException) {
+    // MikroORM puts the statement with its parameters into the message: keep only the kind.
+    const code = (err as { code?: string }).code;
+    return `${err.name}${code ? ` (${code})` : ''}: database error, statement withheld`;
+  }
+  // Duck-typed: errors from Node internals can come from another realm (e.g. under Jest).
+  const e = err as { name?: unknown; message?: unknown; stack?: unknown } | null;
+  if (e && typeof e === 'object' && typeof e.message === 'string') {
+    const frames = (typeof e.stack === 'string' ? e.stack : '').split('\n').filter((l) => /^\s+at /.test(l)).slice(0, 8);
+    return [`${typeof e.name === 'string' ? e.name : 'Error'}: ${redact(e.message)}`, ...frames].join('\n');
+  }
+  return `non-error value thrown (${typeof err})`;
+}
 
 /** The one error middleware: every failure leaves as `{error, fields?}` with a fitting status. */
 export function errorHandler(log: Logger): ErrorRequestHandler {
@@ -14,16 +88,13 @@ export function errorHandler(log: Logger): ErrorRequestHandler {
       res.status(err.status).json({ error: err.message, ...(err.fields ? { fields: err.fields } : {}), ...(err.extra ?? {}) });
       return;
     }
-    const e = err as { type?: string; status?: number };
-    if (e?.type === 'entity.parse.failed') {
-      res.status(400).json({ error: 'The request body is not valid JSON.' });
+    const known = knownClientError(err);
+    if (known) {
+      res.status(known[0]).json({ error: known[1] });
       return;
     }
-    if (e?.type === 'entity.too.large') {
-      res.status(413).json({ error: 'The request is too large.' });
-      return;
-    }
-    log.error(`${req.method} ${req.originalUrl} failed`, err);
+    log.error(`${req.method} ${safePath(req)} failed`, describeForLog(err));
+    if (res.headersSent) return;
     res.status(500).json({ error: 'Sightfan hit an unexpected problem and saved nothing from this request. Try again; if it repeats, tell your administrator.' });
   };
 }

@@ -6,9 +6,15 @@ import type { MigrationObject } from '@mikro-orm/core';
 import { Migration20261202022227 } from './Migration20261202022227';
 import { Migration20261202030218 } from './Migration20261202030218';
 import { Migration20261202032324 } from './Migration20261202032324';
+import { Migration20261202133000 } from './Migration20261202133000';
+import { Migration20261202134000 } from './Migration20261202134000';
+import { Migration20261202135000 } from './Migration20261202135000';
 
 export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261202022227', class: Migration20261202022227 },
   { name: 'Migration20261202030218', class: Migration20261202030218 },
   { name: 'Migration20261202032324', class: Migration20261202032324 },
+  { name: 'Migration20261202133000', class: Migration20261202133000 },
+  { name: 'Migration20261202134000', class: Migration20261202134000 },
+  { name: 'Migration20261202135000', class: Migration20261202135000 },
 ];

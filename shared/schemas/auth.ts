@@ -49,7 +49,13 @@ export const invitationToken = z
   .string({ message: 'This link is missing its code.' })
   .regex(/^[A-Za-z0-9_-]{32,128}$/, 'This link is not complete. Open it again from the e-mail.');
 
-export const invitationDto = z.object({ email: z.string(), name: z.string(), organizationName: z.string() });
+export const invitationDto = z.object({
+  email: z.string(),
+  name: z.string(),
+  organizationName: z.string(),
+  /** invite: a first password; reset: a new one after "forgot password". */
+  purpose: z.enum(['invite', 'reset']).optional(),
+});
 export type InvitationDto = z.infer<typeof invitationDto>;
 
 export const acceptInvitationBody = z
@@ -66,7 +72,32 @@ export const outboxMessageDto = z.object({
   text: z.string(),
   attachments: z.array(z.object({ filename: z.string(), contentType: z.string(), size: z.number() })),
   receivedAt: z.string(),
+  /** Delivery: queued (waiting or retrying), sending, sent, or failed after every retry. */
+  status: z.enum(['queued', 'sending', 'sent', 'failed']).optional(),
+  attempts: z.number().optional(),
+  sentAt: z.string().nullable().optional(),
 });
 export type OutboxMessageDto = z.infer<typeof outboxMessageDto>;
 export const outboxResponse = z.object({ messages: z.array(outboxMessageDto), demo: z.boolean() });
 export type OutboxResponse = z.infer<typeof outboxResponse>;
+
+/** Signed in: a new password, with the current one as proof. */
+export const changePasswordBody = z
+  .object({
+    currentPassword: z.string({ message: 'Enter your current password.' }).min(1, 'Enter your current password.').max(200, 'That password is too long.'),
+    password: newPassword,
+    confirm: z.string({ message: 'Type the new password again.' }),
+  })
+  .strict()
+  .refine((b) => b.password === b.confirm, { message: 'The two passwords are not the same.', path: ['confirm'] })
+  .refine((b) => b.password !== b.currentPassword, { message: 'Choose a password different from the current one.', path: ['password'] });
+export type ChangePasswordBody = z.infer<typeof changePasswordBody>;
+
+/** Signed out: ask for a one-time link to choose a new password. */
+export const forgotPasswordBody = z.object({ email }).strict();
+export type ForgotPasswordBody = z.infer<typeof forgotPasswordBody>;
+
+/** The same answer whether or not the address has an account. */
+export const FORGOT_PASSWORD_ANSWER = 'If an account uses that address, a link to choose a new password is on its way. It works once and for 1 hour.';
+export const forgotPasswordResponse = z.object({ message: z.string() });
+export type ForgotPasswordResponse = z.infer<typeof forgotPasswordResponse>;

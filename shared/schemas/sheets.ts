@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { email } from './common';
+import { email, multiLine } from './common';
 
 /** Paper the sheet is printed on; the default follows the project's units (imperial → US Letter). */
 export const sheetPapers = ['a4', 'letter'] as const;
@@ -12,7 +12,7 @@ export const sheetQuery = z.object({
 export const sheetEmailBody = z
   .object({
     to: email,
-    message: z.string().trim().max(2000, 'Keep the note to 2,000 characters.').optional(),
+    message: multiLine(z.string().trim().max(2000, 'Keep the note to 2,000 characters.')).optional(),
   })
   .strict();
 export type SheetEmailBody = z.input<typeof sheetEmailBody>;
@@ -32,5 +32,6 @@ export const sheetStatusDto = z.object({
 });
 export type SheetStatusDto = z.infer<typeof sheetStatusDto>;
 
-export const sheetEmailResponse = z.object({ revision: sheetRevisionDto, to: z.string(), filename: z.string() });
+/** `sent`: the mail server accepted it; `queued`: stored and retried until the server takes it. */
+export const sheetEmailResponse = z.object({ revision: sheetRevisionDto, to: z.string(), filename: z.string(), delivery: z.enum(['sent', 'queued']) });
 export type SheetEmailResponse = z.infer<typeof sheetEmailResponse>;

@@ -29,7 +29,7 @@ describe('InviteForm', () => {
     await user.click(screen.getByTestId('invite-submit'));
 
     await waitFor(() => expect(onSubmit).toHaveBeenCalledWith({ email: 'new.person@sightfan-demo.example', name: 'New Person', role: 'reviewer' }));
-    expect(await screen.findByTestId('invite-sent')).toHaveTextContent('Invitation sent to New Person <new.person@sightfan-demo.example>.');
+    expect(await screen.findByTestId('invite-sent')).toHaveTextContent('Invitation for New Person <new.person@sightfan-demo.example> is queued and goes out at once when the mail server answers.');
     expect(screen.getByTestId('invite-email')).toHaveValue('');
   });
 

@@ -84,7 +84,7 @@ describe('SheetActions', () => {
   it('sends the address and note, then says which revision went to whom and clears the form', async () => {
     const to = 'buyer.desk@purchasing-demo.example';
     const note = 'For the purchase request, please.';
-    const sent: SheetEmailResponse = { revision: revision(5), to, filename: 'sightfan-demo-rev5.pdf' };
+    const sent: SheetEmailResponse = { revision: revision(5), to, filename: 'sightfan-demo-rev5.pdf', delivery: 'sent' };
     jest.mocked(api.sheets.email).mockResolvedValue(sent);
     renderWithStatus(status([revision(4)], true));
     const user = userEvent.setup();

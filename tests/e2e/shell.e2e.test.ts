@@ -97,3 +97,44 @@ describe('the admin on a wide screen', () => {
     await newcomer.context().close();
   });
 });
+
+describe('a forgotten password on a phone', () => {
+  it('mails a reset link from the sign-in page, sets a new password through it, and changes it back on the account page', async () => {
+    const reviewer = DEMO_USERS.find((u) => u.role === 'reviewer')!;
+    const { page } = await openPage(product, PHONE);
+    await page.goto(`${product.server.url}/sign-in`);
+    await byTestId(page, 'sign-in-forgot').click();
+    await page.waitForURL(/\/forgot-password/);
+    await byTestId(page, 'forgot-password-email').fill(reviewer.email);
+    await byTestId(page, 'forgot-password-submit').click();
+    await byTestId(page, 'forgot-password-done').waitFor({ state: 'visible' });
+    await shot(page, 'phone-forgot-password-done');
+    await page.context().close();
+
+    // The demo admin reads the reset e-mail in the outbox (demo mode).
+    const { page: admin } = await openPage(product, WIDE);
+    await signIn(admin, product.server.url, DEMO_USERS.find((u) => u.role === 'admin')!.email, DEMO_PASSWORD);
+    await byTestId(admin, 'nav-outbox').first().click();
+    await admin.getByText('Choose a new Sightfan password').first().waitFor({ state: 'visible' });
+    const text = (await admin.getByText(/set-password\?token=/).first().textContent()) ?? '';
+    const token = text.match(/token=([A-Za-z0-9_-]+)/)![1];
+    await admin.context().close();
+
+    const { page: again } = await openPage(product, PHONE);
+    await again.goto(`${product.server.url}/set-password?token=${token}`);
+    await again.getByText('Choose a new password').first().waitFor({ state: 'visible' });
+    await byTestId(again, 'set-password-password').fill('rafael-picked-a-new-one');
+    await byTestId(again, 'set-password-confirm').fill('rafael-picked-a-new-one');
+    await byTestId(again, 'set-password-submit').click();
+    await byTestId(again, 'nav-account').first().waitFor({ state: 'visible' });
+
+    await byTestId(again, 'nav-account').first().click();
+    await byTestId(again, 'change-password-current').fill('rafael-picked-a-new-one');
+    await byTestId(again, 'change-password-new').fill(DEMO_PASSWORD + '-x');
+    await byTestId(again, 'change-password-confirm').fill(DEMO_PASSWORD + '-x');
+    await byTestId(again, 'change-password-submit').click();
+    await byTestId(again, 'change-password-done').waitFor({ state: 'visible' });
+    await shot(again, 'phone-account-password-changed');
+    await again.context().close();
+  });
+});

@@ -143,39 +143,3 @@ describe('protection', () => {
     expect(res.body.error).toBe('There is no API route GET /api/nothing-here.');
   });
 });
-
-describe('rate limiting', () => {
-  it('answers 429 with Retry-After once an account has too many failures, even with the right password', async () => {
-    const fresh = await startHarness({ signInLimits: { perAccount: 3, perAddress: 100, windowS: 60 } });
-    try {
-      const email = EMAIL.reviewer;
-      for (let i = 0; i < 3; i++) {
-        const r = await request(fresh.app).post('/api/auth/sign-in').send({ email, password: `wrong-${i}` });
-        expect(r.status).toBe(401);
-      }
-      const blocked = await request(fresh.app).post('/api/auth/sign-in').send({ email, password: PASSWORD });
-      expect(blocked.status).toBe(429);
-      expect(Number(blocked.headers['retry-after'])).toBeGreaterThan(0);
-      expect(Number(blocked.headers['retry-after'])).toBeLessThanOrEqual(60);
-      expect(blocked.body.error).toBe('Too many sign-in attempts for now.');
-      // Another account from the same address is not affected by this account's lock.
-      expect((await request(fresh.app).post('/api/auth/sign-in').send({ email: EMAIL.installer, password: PASSWORD })).status).toBe(200);
-    } finally {
-      await fresh.close();
-    }
-  });
-
-  it('limits one client address that sprays many accounts', async () => {
-    const fresh = await startHarness({ signInLimits: { perAccount: 100, perAddress: 4, windowS: 60 } });
-    try {
-      for (let i = 0; i < 4; i++) {
-        const r = await request(fresh.app).post('/api/auth/sign-in').send({ email: `guess${i}@sightfan-demo.example`, password: 'x' });
-        expect(r.status).toBe(401);
-      }
-      const blocked = await request(fresh.app).post('/api/auth/sign-in').send({ email: EMAIL.installer, password: PASSWORD });
-      expect(blocked.status).toBe(429);
-    } finally {
-      await fresh.close();
-    }
-  });
-});

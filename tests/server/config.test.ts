@@ -19,7 +19,16 @@ describe('the environment', () => {
 
   it('makes cookies Secure when a TLS proxy is declared', () => {
     expect(parseConfig({ TRUST_PROXY: '1' }).secureCookies).toBe(true);
-    expect(parseConfig({ TRUST_PROXY: 'true' }).trustProxy).toBe(true);
+  });
+
+  it('reads TRUST_PROXY as a hop count, with true meaning one proxy', () => {
+    expect(parseConfig({ TRUST_PROXY: 'true' }).trustProxy).toBe(1);
+    expect(parseConfig({ TRUST_PROXY: '2' }).trustProxy).toBe(2);
+    expect(parseConfig({}).trustProxy).toBe(0);
+  });
+
+  it('refuses a TRUST_PROXY that is not a hop count', () => {
+    expect(() => parseConfig({ TRUST_PROXY: 'loopback' })).toThrow(/number of proxies/);
   });
 
   it('turns demo mode off in production unless asked', () => {

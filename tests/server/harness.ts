@@ -9,6 +9,7 @@ import path from 'node:path';
 import request from 'supertest';
 import type { Express } from 'express';
 import { createApp } from '../../server/app';
+import type { MailDispatcher, OutboxOptions } from '../../server/modules/mail/outbox';
 import { parseConfig, type AppConfig } from '../../server/config';
 import { initORM, type Orm } from '../../server/db';
 import { createLogger } from '../../server/logger';
@@ -30,20 +31,24 @@ export const EMAIL = {
 
 export interface Harness {
   app: Express;
+  /** The app's outbox worker (delivers queued e-mail through the fake SMTP server). */
+  outbox: MailDispatcher;
+  /** The app's mailer toward the fake SMTP server. */
+  mailer: Mailer;
   orm: Orm;
   config: AppConfig;
   dir: string;
   restart(): Promise<void>;
   signedIn(email: string, password?: string): Promise<ReturnType<typeof request.agent>>;
   waitForMail(to: string, timeoutMs?: number): Promise<MailMessage>;
-  /** Adds a user straight to the database (same organisation as the demo), with the demo password. */
+  /** Adds a user straight to the database (the demo organisation, or the one named, made on first use), with the demo password. */
   addUser(email: string, role: 'installer' | 'reviewer' | 'admin', organizationName?: string): Promise<number>;
   close(): Promise<void>;
 }
 
 const SECRET = 'test-secret-that-is-long-enough-for-the-config-check';
 
-export async function startHarness(opts: { signInLimits?: SignInLimits; env?: Record<string, string> } = {}): Promise<Harness> {
+export async function startHarness(opts: { signInLimits?: SignInLimits; env?: Record<string, string>; outbox?: Partial<OutboxOptions> } = {}): Promise<Harness> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'sightfan-test-'));
   const config = parseConfig({ NODE_ENV: 'test', DATABASE_PATH: path.join(dir, 'test.sqlite'), PUBLIC_URL: 'http://sightfan.test', ...opts.env });
   const log = createLogger(true);
@@ -51,10 +56,12 @@ export async function startHarness(opts: { signInLimits?: SignInLimits; env?: Re
   await seedDemo(orm, config.bcryptCost);
   let fake: FakeSmtp = await startFakeSmtp(orm, log, 0);
   let mailer: Mailer = createMailer({ fakePort: fake.port, from: config.mailFrom });
-  let built = createApp({ config, orm, mailer, log, sessionSecret: SECRET, signInLimits: opts.signInLimits });
+  let built = createApp({ config, orm, mailer, log, sessionSecret: SECRET, signInLimits: opts.signInLimits, outbox: opts.outbox });
 
   const h: Harness = {
     app: built.app,
+    outbox: built.outbox,
+    mailer,
     orm,
     config,
     dir,
@@ -66,8 +73,10 @@ export async function startHarness(opts: { signInLimits?: SignInLimits; env?: Re
       orm = await initORM(config.databasePath);
       fake = await startFakeSmtp(orm, log, 0);
       mailer = createMailer({ fakePort: fake.port, from: config.mailFrom });
-      built = createApp({ config, orm, mailer, log, sessionSecret: SECRET, signInLimits: opts.signInLimits });
+      built = createApp({ config, orm, mailer, log, sessionSecret: SECRET, signInLimits: opts.signInLimits, outbox: opts.outbox });
       h.app = built.app;
+      h.outbox = built.outbox;
+      h.mailer = mailer;
       h.orm = orm;
     },
     async signedIn(email, password = PASSWORD) {
@@ -89,7 +98,7 @@ export async function startHarness(opts: { signInLimits?: SignInLimits; env?: Re
     async addUser(email, role, organizationName) {
       const em = h.orm.em.fork();
       const org = organizationName
-        ? em.create(Organization, { name: organizationName })
+        ? ((await em.findOne(Organization, { name: organizationName })) ?? em.create(Organization, { name: organizationName }))
         : await em.findOneOrFail(Organization, { demo: true });
       const user = em.create(User, { email, name: email.split('@')[0], role, organization: org, passwordHash: await hashPassword(PASSWORD, 12) });
       await em.flush();

@@ -15,6 +15,7 @@ import { resolveUnits } from '../../shared/units';
 import { createApp } from '../../server/app';
 import { createLogger } from '../../server/logger';
 import { createMailer } from '../../server/modules/mail/mailer';
+import { OutgoingMail } from '../../server/modules/mail/outgoing-mail.entity';
 import { SHEET_CAUTIONS } from '../../server/pdf/cautions';
 import { SAFETY_CAUTIONS } from '../../shared/cautions';
 import { LABEL_LINE_PT, OUTLINE_TOLERANCE_PT, labelSpot, simplifyRing } from '../../server/pdf/draw-plan';
@@ -213,7 +214,7 @@ describe('e-mailing the sheet', () => {
     expect(res.status).toBe(200);
   });
 
-  it('answers a failed send with 502 and a sentence, keeps the revision, and sends when repeated', async () => {
+  it('reports a send the mail server refused as queued, keeps the revision, and delivers it from the outbox later', async () => {
     // A real nodemailer transport toward a port where nothing listens.
     const closedPort = await new Promise<number>((resolve) => {
       const s = require('node:net').createServer() as import('node:net').Server;
@@ -223,23 +224,31 @@ describe('e-mailing the sheet', () => {
       });
     });
     const broken = createApp({ config: h.config, orm: h.orm, mailer: createMailer({ fakePort: closedPort, from: h.config.mailFrom }), log: createLogger(true), sessionSecret: 'another-secret-long-enough-for-the-config-check' });
+    broken.outbox.stop();
     try {
       const agent = request.agent(broken.app);
       expect((await agent.post('/api/auth/sign-in').send({ email: EMAIL.installer, password: 'demo-password-1' })).status).toBe(200);
       const to = 'retry.buyer@purchasing-demo.example';
-      const failed = await agent.post(`/api/projects/${projectId}/sheet/email`).send({ to });
-      expect(failed.status).toBe(502);
-      expect(failed.body.error).toMatch(/not sent.*send it again/);
+      const queued = await agent.post(`/api/projects/${projectId}/sheet/email`).send({ to });
+      expect(queued.status).toBe(200);
+      expect(queued.body.delivery).toBe('queued');
       const status = (await agent.get(`/api/projects/${projectId}/sheet`)).body as SheetStatusDto;
       expect(status.current.changedSinceLast).toBe(false);
 
-      const repeated = await installer.post(`/api/projects/${projectId}/sheet/email`).send({ to });
-      expect(repeated.status).toBe(200);
-      expect(repeated.body.revision.number).toBe(status.current.number);
-      expect((await h.waitForMail(to)).subject).toContain(`revision ${status.current.number}`);
+      // The working app's outbox picks the row up once its retry is due.
+      await h.orm.em.fork().nativeUpdate(OutgoingMail, { toAddress: to }, { nextAttemptAt: new Date(0) });
+      await h.outbox.runOnce();
+      const mail = await h.waitForMail(to);
+      expect(mail.subject).toContain(`revision ${status.current.number}`);
+      expect(mail.attachments.map((a) => a.contentType)).toEqual(['application/pdf']);
     } finally {
       broken.close();
     }
+  });
+
+  it('reports a send the mail server accepted as sent', async () => {
+    const res = await installer.post(`/api/projects/${projectId}/sheet/email`).send({ to: 'quick.buyer@purchasing-demo.example' });
+    expect(res.body.delivery).toBe('sent');
   });
 });
 

@@ -9,7 +9,7 @@ import { useCatalogQuery, useUpdateCatalogItemMutation } from '@/hooks/use-catal
 import { useSession } from '@/hooks/use-session';
 import { describeError } from '@/shared/errors';
 
-/** Everyone reads one mirror's details; the admin also edits it here. */
+/** Everyone reads one mirror's details; the admin also edits their organisation's items here (the demo set is read-only). */
 export default function CatalogItemScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();
   const { user } = useSession();
@@ -30,9 +30,13 @@ export default function CatalogItemScreen() {
     );
   }
   return (
-    <Screen title={item.name} lead={item.demo ? 'A demo item: invented for trying Sightfan, not a real product.' : undefined} width="narrow">
+    <Screen
+      title={item.name}
+      lead={item.demo ? 'A demo item: invented for trying Sightfan, not a real product. The demo set is shared and read-only; add your own mirrors with “New mirror”.' : undefined}
+      width="narrow"
+    >
       <CatalogDetails item={item} units={units} />
-      {user.role === 'admin' ? (
+      {user.role === 'admin' && !item.demo ? (
         <CatalogForm
           item={item}
           units={units}

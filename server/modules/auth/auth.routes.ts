@@ -1,12 +1,17 @@
 import { Router, type Request } from 'express';
-import { signInBody, updateMeBody } from '../../../shared/schemas';
+import { RateLimiterMemory } from 'rate-limiter-flexible';
+import { changePasswordBody, FORGOT_PASSWORD_ANSWER, forgotPasswordBody, signInBody, updateMeBody, type ForgotPasswordResponse } from '../../../shared/schemas';
 import type { Orm } from '../../db';
 import { HttpError } from '../../http-error';
 import { requireUser } from '../../middleware/auth';
 import { parseOr400 } from '../../middleware/validate';
 import { User } from '../users/user.entity';
 import { toUserDto } from '../users/user.dto';
-import { verifyPassword } from './passwords';
+import { hashPassword, verifyPassword } from './passwords';
+import { queueMail, type MailDispatcher } from '../mail/outbox';
+import type { OrmSessionStore } from '../sessions/orm-session-store';
+import { Invitation } from '../users/invitation.entity';
+import { createInvitation, passwordChangedEmail, resetEmail } from '../users/invitations';
 import type { SignInLimiter } from './sign-in-limiter';
 
 const WRONG = 'That e-mail address and password do not match an account. Check both and try again.';
@@ -18,25 +23,40 @@ export async function startSession(req: Request, userId: number): Promise<void> 
   await new Promise<void>((resolve, reject) => req.session.save((err) => (err ? reject(err) : resolve())));
 }
 
-export function authRoutes(orm: Orm, limiter: SignInLimiter): Router {
+export interface AuthDeps {
+  orm: Orm;
+  limiter: SignInLimiter;
+  store: OrmSessionStore;
+  outbox: MailDispatcher;
+  bcryptCost: number;
+  publicUrl: (host: string) => string;
+}
+
+export function authRoutes(deps: AuthDeps): Router {
+  const { orm, limiter } = deps;
   const r = Router();
+  // "Forgot password" mail per address and per client: enough for a person, too few to mail-bomb anyone.
+  const resetsPerEmail = new RateLimiterMemory({ keyPrefix: 'reset-mail', points: 3, duration: 60 * 60 });
+  const resetsPerAddress = new RateLimiterMemory({ keyPrefix: 'reset-addr', points: 20, duration: 60 * 60 });
 
   r.post('/sign-in', async (req, res) => {
     const body = parseOr400(signInBody, req.body, 'Sign-in');
-    const address = req.ip ?? 'unknown';
-    const wait = await limiter.waitSeconds(body.email, address);
-    if (wait > 0) {
-      throw new HttpError(429, 'Too many sign-in attempts for now.', undefined, { 'Retry-After': String(wait) });
+    // req.ip honours X-Forwarded-For only for the configured number of trusted proxy hops.
+    const address = req.ip ?? req.socket.remoteAddress ?? 'unknown';
+    const admission = await limiter.admit(body.email, address);
+    if (!admission.ok) {
+      throw new HttpError(429, 'Too many sign-in attempts for now.', undefined, { 'Retry-After': String(admission.retryAfterS) });
     }
     const em = orm.em.fork();
     const user = await em.findOne(User, { email: body.email }, { populate: ['organization', 'passwordHash'] });
     const ok = await verifyPassword(body.password, user?.passwordHash);
-    if (!user || !ok) {
-      await limiter.recordFailure(body.email, address);
+    // A turned-off account answers exactly as a wrong password does, right password or not, so a
+    // guesser cannot use it to confirm a password.
+    if (!user || !ok || user.disabled) {
+      await admission.release(false);
       throw new HttpError(401, WRONG);
     }
-    await limiter.recordSuccess(body.email);
-    if (user.disabled) throw new HttpError(403, 'This account has been turned off. Ask your administrator to turn it back on.');
+    await admission.release(true);
     await startSession(req, user.id);
     res.json({ user: toUserDto(user) });
   });
@@ -59,6 +79,52 @@ export function authRoutes(orm: Orm, limiter: SignInLimiter): Router {
     if (body.name) user.name = body.name;
     await em.flush();
     res.json({ user: toUserDto(user) });
+  });
+
+  /** Change my password: the current one is required; my other sessions end, this one stays. */
+  r.post('/password', requireUser, async (req, res) => {
+    const body = parseOr400(changePasswordBody, req.body, 'The new password');
+    const me = req.user!;
+    const admission = await limiter.admit(me.email, req.ip ?? 'unknown');
+    if (!admission.ok) throw new HttpError(429, 'Too many password attempts for now.', undefined, { 'Retry-After': String(admission.retryAfterS) });
+    const em = orm.em.fork();
+    const user = await em.findOneOrFail(User, { id: me.id }, { populate: ['organization', 'passwordHash'] });
+    if (!(await verifyPassword(body.currentPassword, user.passwordHash))) {
+      await admission.release(false);
+      throw new HttpError(400, 'Your current password is not right; nothing was changed.', { currentPassword: 'This is not your current password.' });
+    }
+    await admission.release(true);
+    user.passwordHash = await hashPassword(body.password, deps.bcryptCost);
+    queueMail(em, { organizationId: user.organization.id, kind: 'password-changed', to: user.email, ...passwordChangedEmail({ name: user.name }) });
+    await em.flush();
+    await deps.store.destroyForUser(user.id, req.sessionID);
+    deps.outbox.kick();
+    res.json({ user: toUserDto(user) });
+  });
+
+  /**
+   * Forgot password: e-mails a one-time link when the address has an active account. The answer
+   * is the same either way, so it tells nobody which addresses have accounts.
+   */
+  r.post('/password-reset', async (req, res) => {
+    const body = parseOr400(forgotPasswordBody, req.body, 'The request');
+    const answer: ForgotPasswordResponse = { message: FORGOT_PASSWORD_ANSWER };
+    const allowed = await Promise.all([resetsPerEmail.consume(body.email), resetsPerAddress.consume(req.ip ?? 'unknown')]).then(
+      () => true,
+      () => false,
+    );
+    const em = orm.em.fork();
+    const user = allowed ? await em.findOne(User, { email: body.email, disabled: false }, { populate: ['organization'] }) : null;
+    if (user) {
+      // Earlier reset links stop working; only the newest one counts.
+      await em.nativeUpdate(Invitation, { user: user.id, purpose: 'reset', usedAt: null }, { usedAt: new Date() });
+      const { token } = createInvitation(em, user, new Date(), 'reset');
+      const link = `${deps.publicUrl(req.get('host') ?? 'localhost')}/set-password?token=${token}`;
+      queueMail(em, { organizationId: user.organization.id, kind: 'password-reset', to: user.email, ...resetEmail({ name: user.name, link }) });
+      await em.flush();
+      deps.outbox.kick();
+    }
+    res.status(202).json(answer);
   });
 
   return r;

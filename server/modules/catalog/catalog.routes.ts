@@ -7,23 +7,25 @@ import { requireRole, requireUser } from '../../middleware/auth';
 import { parseOr400 } from '../../middleware/validate';
 import { assignMirror, toCatalogueItemDto } from './catalog.dto';
 import { MirrorModel } from './mirror-model.entity';
+import { visibleCatalogue } from '../projects/project-access';
 
 const duplicateCode = () => new HttpError(409, 'Another catalogue item already uses this code.', { code: 'This code is already in use.' });
 
 export function catalogRoutes(orm: Orm): Router {
   const r = Router();
 
-  r.get('/', requireUser, async (_req, res) => {
-    const items = await orm.em.fork().find(MirrorModel, {}, { orderBy: { shape: 'asc', code: 'asc' } });
+  r.get('/', requireUser, async (req, res) => {
+    const items = await orm.em.fork().find(MirrorModel, visibleCatalogue(req.user!.organization.id), { orderBy: { shape: 'asc', code: 'asc' } });
     res.json({ items: items.map(toCatalogueItemDto) });
   });
 
   r.post('/', requireRole('admin'), async (req, res) => {
     const body = parseOr400(createCatalogueItemBody, req.body, 'The catalogue item');
     const em = orm.em.fork();
-    if (await em.count(MirrorModel, { code: body.code })) throw duplicateCode();
+    const organization = req.user!.organization.id;
+    if (await em.count(MirrorModel, { organization, code: body.code })) throw duplicateCode();
     const { mirror, ...rest } = body;
-    const item = em.create(MirrorModel, { ...rest, shape: mirror.shape });
+    const item = em.create(MirrorModel, { ...rest, organization, shape: mirror.shape });
     assignMirror(item, mirror);
     try {
       await em.flush();
@@ -38,13 +40,16 @@ export function catalogRoutes(orm: Orm): Router {
     const id = parseOr400(idParam, req.params.id, 'The address');
     const body = parseOr400(patchCatalogueItemBody, req.body, 'The catalogue item');
     const em = orm.em.fork();
-    const item = await em.findOne(MirrorModel, { id });
+    const item = await em.findOne(MirrorModel, { $and: [{ id }, visibleCatalogue(req.user!.organization.id)] });
     if (!item) throw notFound('That catalogue item');
+    if (!item.organization) {
+      throw new HttpError(403, 'The demo catalogue is shared and read-only. Add the mirror to your own catalogue under a new code to change it.');
+    }
     if (body.version !== item.version) {
       throw new HttpError(409, 'Someone changed this catalogue item since you opened it. Review the current values and make your change again.', undefined, undefined, { current: toCatalogueItemDto(item) });
     }
     const { mirror, version: _v, ...rest } = body;
-    if (rest.code && rest.code !== item.code && (await em.count(MirrorModel, { code: rest.code }))) throw duplicateCode();
+    if (rest.code && rest.code !== item.code && (await em.count(MirrorModel, { organization: req.user!.organization.id, code: rest.code }))) throw duplicateCode();
     em.assign(item, rest);
     if (mirror) assignMirror(item, mirror);
     item.version += 1;

@@ -1,9 +1,15 @@
 import { defineEntity, type Opt } from '@mikro-orm/core';
 import { domePortions, mirrorShapes, type MirrorSpec } from '../../../shared/schemas';
 import { BaseRecord, baseProperties } from '../base';
+import { Organization } from '../users/organization.entity';
 
-/** A catalogue mirror. Sizes in metres; price in the currency's minor unit (cents). */
+/**
+ * A catalogue mirror. Sizes in metres; price in the currency's minor unit (cents).
+ * Each organisation owns its items; items with no organisation are the shared demo set, which
+ * everyone reads and nobody edits. Codes are unique within an owner.
+ */
 export class MirrorModel extends BaseRecord {
+  organization: Opt<Organization> | null = null;
   code!: string;
   name!: string;
   shape!: MirrorSpec['shape'];
@@ -25,9 +31,11 @@ export class MirrorModel extends BaseRecord {
   static readonly schema = defineEntity({
     class: MirrorModel,
     tableName: 'mirror_model',
+    uniques: [{ properties: ['organization', 'code'] }],
     properties: (p) => ({
       ...baseProperties(),
-      code: p.string().length(40).unique(),
+      organization: p.manyToOne(Organization.schema).nullable().deleteRule('cascade'),
+      code: p.string().length(40),
       name: p.string().length(160),
       shape: p.enum([...mirrorShapes]),
       domePortion: p.enum([...domePortions]).nullable(),

@@ -2,25 +2,34 @@ import { Router } from 'express';
 import type { Orm } from '../../db';
 import { HttpError } from '../../http-error';
 import { requireRole } from '../../middleware/auth';
-import { MailMessage } from './mail-message.entity';
+import { OutgoingMail } from './outgoing-mail.entity';
 
-/** Admin, demo mode only: what the local fake mail server has received, newest first. */
-export function outboxRoutes(orm: Orm, demoMode: boolean): Router {
+/**
+ * Admin, demo mode only: the e-mail Sightfan owes or has sent for the admin's own organisation,
+ * newest first, with its delivery status. Other organisations' mail (with live invitation links)
+ * never shows here.
+ */
+export function outboxRoutes(orm: Orm, demoMode: boolean, from: string): Router {
   const r = Router();
   r.use(requireRole('admin'));
-  r.get('/', async (_req, res) => {
+  r.get('/', async (req, res) => {
     if (!demoMode) throw new HttpError(404, 'The outbox exists only in demo mode; real mail goes to your mail server.');
-    const rows = await orm.em.fork().find(MailMessage, {}, { orderBy: { id: 'desc' }, limit: 200 });
+    const rows = await orm.em
+      .fork()
+      .find(OutgoingMail, { organization: req.user!.organization.id }, { orderBy: { id: 'desc' }, limit: 200, populate: ['attachments'] });
     res.json({
       demo: true,
       messages: rows.map((m) => ({
         id: m.id,
-        from: m.fromAddress,
-        to: m.toAddresses,
+        from,
+        to: [m.toAddress],
         subject: m.subject,
         text: m.text,
-        attachments: m.attachments,
-        receivedAt: m.receivedAt.toISOString(),
+        attachments: m.attachments.map((a) => ({ filename: a.filename, contentType: a.contentType, size: Math.floor((a.content.length * 3) / 4) })),
+        receivedAt: m.createdAt.toISOString(),
+        status: m.status,
+        attempts: m.attempts,
+        sentAt: m.sentAt ? m.sentAt.toISOString() : null,
       })),
     });
   });

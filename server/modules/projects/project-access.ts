@@ -1,23 +1,46 @@
-import type { FilterQuery } from '@mikro-orm/core';
-import type { User } from '../users/user.entity';
-import { HttpError } from '../../http-error';
-import type { Project } from './project.entity';
-
 /**
- * Who sees which projects: an installer their own; a reviewer their organisation's; an admin all.
- * Only the owning installer changes a project. A project you cannot see is "not found", so ids
- * of other people's work are not confirmed to exist.
+ * The one place that decides which records a signed-in person may reach. Organisations are walls:
+ * every query for projects, sheets and catalogue items goes through these filters.
+ *
+ * Projects: an installer sees their own; a reviewer and an admin see their organisation's. Only the
+ * owning installer changes a project. A project you cannot see is "not found", so ids of other
+ * people's work are not confirmed to exist.
+ *
+ * Catalogue: an organisation's own items plus the shared demo set (no organisation), which is
+ * read-only for everyone.
  */
+import type { FilterQuery } from '@mikro-orm/core';
+import type { EntityManager } from '@mikro-orm/sqlite';
+import { idParam } from '../../../shared/schemas';
+import { HttpError, notFound } from '../../http-error';
+import { parseOr400 } from '../../middleware/validate';
+import type { User } from '../users/user.entity';
+import type { MirrorModel } from '../catalog/mirror-model.entity';
+import { Project } from './project.entity';
+
 export function visibleProjects(user: User): FilterQuery<Project> {
-  if (user.role === 'admin') return {};
-  if (user.role === 'reviewer') return { organization: user.organization.id };
-  return { owner: user.id };
+  if (user.role === 'installer') return { owner: user.id, organization: user.organization.id };
+  return { organization: user.organization.id };
+}
+
+/** The project with the id in the path, if this person may read it; otherwise 404 (400 for a malformed id). */
+export async function findVisibleProject(em: EntityManager, user: User, rawId: unknown): Promise<Project> {
+  const id = parseOr400(idParam, rawId, 'The address');
+  const project = await em.findOne(Project, { $and: [{ id }, visibleProjects(user)] }, { populate: ['owner', 'organization'] });
+  if (!project) throw notFound('That project');
+  return project;
 }
 
 export function assertCanEdit(user: User, project: Project): void {
-  if (project.owner.id !== user.id || user.role !== 'installer') {
+  if (!canEdit(user, project)) {
     throw new HttpError(403, 'You can read this project but not change it; only the installer who owns it can.');
   }
 }
 
-export const canEdit = (user: User, project: Project) => user.role === 'installer' && project.owner.id === user.id;
+export const canEdit = (user: User, project: Project) =>
+  user.role === 'installer' && project.owner.id === user.id && project.organization.id === user.organization.id;
+
+/** Catalogue items an organisation may read (and reference from a placement): its own and the shared demo set. */
+export function visibleCatalogue(organizationId: number): FilterQuery<MirrorModel> {
+  return { $or: [{ organization: organizationId }, { organization: null }] };
+}

@@ -4,10 +4,10 @@ import {
   createPlacementBody,
   createProjectBody,
   idParam,
+  singleLine,
   patchPlacementBody,
   patchProjectBody,
   type MirrorSpec,
-  type Scene,
 } from '../../../shared/schemas';
 import { mirrorOfSpec, mountProblem } from '../../../shared/project-optics';
 import { resolveUnits } from '../../../shared/units';
@@ -21,32 +21,27 @@ import type { User } from '../users/user.entity';
 import { MirrorModel } from '../catalog/mirror-model.entity';
 import { Placement } from './placement.entity';
 import { Project } from './project.entity';
-import { assertCanEdit, canEdit, visibleProjects } from './project-access';
+import { assertCanEdit, canEdit, findVisibleProject, visibleCatalogue, visibleProjects } from './project-access';
 import { toPlacementDto, toProjectDto, toProjectSummaryDto } from './project.dto';
 
 const listQuery = z.object({
-  q: z.string().trim().max(100, 'Keep the search to 100 characters.').optional(),
+  q: singleLine(z.string().trim().max(100, 'Keep the search to 100 characters.')).optional(),
   sort: z.enum(['updated', 'name', 'customer'], { message: 'Sort by updated, name or customer.' }).default('updated'),
 });
 
-async function loadVisible(em: EntityManager, user: User, rawId: unknown): Promise<Project> {
-  const id = parseOr400(idParam, rawId, 'The address');
-  const project = await em.findOne(Project, { $and: [{ id }, visibleProjects(user)] }, { populate: ['owner', 'organization'] });
-  if (!project) throw notFound('That project');
-  return project;
-}
+const loadVisible = findVisibleProject;
 
 async function placementsOf(em: EntityManager, project: Project): Promise<Placement[]> {
   return em.find(Placement, { project: project.id }, { orderBy: { id: 'asc' } });
 }
 
 /** Placement references must point at things that exist: a catalogue item, a viewer in the plan. */
-async function checkReferences(em: EntityManager, scene: Scene, body: { catalogueItemId?: number | null; viewerId?: string | null }) {
+async function checkReferences(em: EntityManager, project: Project, body: { catalogueItemId?: number | null; viewerId?: string | null }) {
   const fields: Record<string, string> = {};
-  if (body.catalogueItemId != null && !(await em.count(MirrorModel, { id: body.catalogueItemId }))) {
+  if (body.catalogueItemId != null && !(await em.count(MirrorModel, { $and: [{ id: body.catalogueItemId }, visibleCatalogue(project.organization.id)] }))) {
     fields.catalogueItemId = 'That catalogue mirror does not exist; pick one from the catalogue.';
   }
-  if (body.viewerId != null && !scene.viewers.some((v) => v.id === body.viewerId)) {
+  if (body.viewerId != null && !project.scene.viewers.some((v) => v.id === body.viewerId)) {
     fields.viewerId = 'That viewer is not in this plan; add the viewer first or pick another.';
   }
   if (Object.keys(fields).length) throw new HttpError(400, Object.values(fields)[0], fields);
@@ -149,7 +144,7 @@ export function projectsRoutes(orm: Orm): Router {
     const project = await loadVisible(em, req.user!, req.params.id);
     assertCanEdit(req.user!, project);
     const body = parseOr400(createPlacementBody, req.body, 'The mirror');
-    await checkReferences(em, project.scene, body);
+    await checkReferences(em, project, body);
     await checkMount(em, req.user!, project, body);
     const { positionM, catalogueItemId, ...rest } = body;
     const placement = em.create(Placement, {
@@ -173,7 +168,7 @@ export function projectsRoutes(orm: Orm): Router {
     if (!placement) throw notFound('That mirror');
     const body = parseOr400(patchPlacementBody, req.body, 'The mirror');
     if (body.version !== placement.version) throw stalePlacement(toPlacementDto(placement));
-    await checkReferences(em, project.scene, body);
+    await checkReferences(em, project, body);
     const merged = {
       label: body.label ?? placement.label,
       catalogueItemId: body.catalogueItemId !== undefined ? body.catalogueItemId : body.customMirror != null ? null : (placement.catalogueItem?.id ?? null),

@@ -57,9 +57,9 @@ export class OrmSessionStore extends session.Store {
       .catch((err) => cb?.(err));
   }
 
-  /** Ends every session of one user, e.g. when an admin disables them. */
-  async destroyForUser(userId: number): Promise<void> {
-    await this.orm.em.fork().nativeDelete(SessionRecord, { userId });
+  /** Ends every session of one user (an admin disabled them), or all but `keepSid` (they changed their password). */
+  async destroyForUser(userId: number, keepSid?: string): Promise<void> {
+    await this.orm.em.fork().nativeDelete(SessionRecord, keepSid ? { userId, sid: { $ne: keepSid } } : { userId });
   }
 
   async prune(): Promise<number> {

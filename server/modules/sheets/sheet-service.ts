@@ -4,16 +4,15 @@
  */
 import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/sqlite';
-import { idParam, type SheetPaper, type SheetRevisionDto } from '../../../shared/schemas';
-import { HttpError, notFound } from '../../http-error';
-import { parseOr400 } from '../../middleware/validate';
+import type { SheetPaper, SheetRevisionDto } from '../../../shared/schemas';
+import { HttpError } from '../../http-error';
 import { buildSheetContent, contentHash, sheetFilename, type BuiltSheet } from '../../pdf/sheet-model';
 import { defaultPaper, renderSheet } from '../../pdf/render-sheet';
 import { toCatalogueItemDto } from '../catalog/catalog.dto';
 import { MirrorModel } from '../catalog/mirror-model.entity';
 import { Placement } from '../projects/placement.entity';
 import { Project } from '../projects/project.entity';
-import { visibleProjects } from '../projects/project-access';
+import { findVisibleProject, visibleCatalogue } from '../projects/project-access';
 import { toPlacementDto } from '../projects/project.dto';
 import { User } from '../users/user.entity';
 import { SheetRevision } from './sheet-revision.entity';
@@ -25,11 +24,9 @@ export interface CurrentSheet {
 }
 
 export async function loadCurrentSheet(em: EntityManager, user: User, rawId: unknown): Promise<CurrentSheet> {
-  const id = parseOr400(idParam, rawId, 'The address');
-  const project = await em.findOne(Project, { $and: [{ id }, visibleProjects(user)] }, { populate: ['owner', 'organization'] });
-  if (!project) throw notFound('That project');
+  const project = await findVisibleProject(em, user, rawId);
   const placements = await em.find(Placement, { project: project.id }, { orderBy: { id: 'asc' } });
-  const catalogue = (await em.find(MirrorModel, {}, { orderBy: { id: 'asc' } })).map(toCatalogueItemDto);
+  const catalogue = (await em.find(MirrorModel, visibleCatalogue(project.organization.id), { orderBy: { id: 'asc' } })).map(toCatalogueItemDto);
   const built = buildSheetContent({
     project: { id: project.id, name: project.name, customer: project.customer, site: project.site, kind: project.kind, notes: project.notes, units: project.units, scene: project.scene },
     owner: { name: project.owner.name, email: project.owner.email, units: project.owner.units },

@@ -1,11 +1,10 @@
 import { Router, type Response } from 'express';
 import { sheetEmailBody, sheetQuery, type SheetEmailResponse, type SheetStatusDto } from '../../../shared/schemas';
 import type { Orm } from '../../db';
-import { HttpError } from '../../http-error';
 import { requireUser } from '../../middleware/auth';
 import { parseOr400 } from '../../middleware/validate';
 import { sheetFilename } from '../../pdf/sheet-model';
-import type { Mailer } from '../mail/mailer';
+import { queueMail, type MailDispatcher } from '../mail/outbox';
 import { SheetRevision } from './sheet-revision.entity';
 import { issueAndRender, loadCurrentSheet, toRevisionDto } from './sheet-service';
 
@@ -24,8 +23,8 @@ function sendPdf(res: Response, pdf: Buffer, filename: string, revision: number)
  * The specification sheet of a project. Anyone who can read the project (its installer, a reviewer
  * of its organisation, an admin) can download it or e-mail it to a buyer; others get 404.
  */
-export function sheetsRoutes(deps: { orm: Orm; mailer: Mailer }): Router {
-  const { orm, mailer } = deps;
+export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher }): Router {
+  const { orm, outbox } = deps;
   const r = Router();
   r.use(requireUser);
 
@@ -62,17 +61,19 @@ export function sheetsRoutes(deps: { orm: Orm; mailer: Mailer }): Router {
     const tail =
       '\n\nThe sheet lists what to buy (purchase lines), where each mirror goes, what it shows by calculation, and the cautions that apply. ' +
       'It is not a certificate of compliance; local codes and a licensed professional take precedence.';
-    try {
-      await mailer.send({
-        to: body.to,
-        subject: `Mirror specification sheet, revision ${sheet.revision.number}`,
-        text: content + note + tail,
-        attachments: [{ filename: sheet.filename, content: sheet.pdf, contentType: 'application/pdf' }],
-      });
-    } catch {
-      throw new HttpError(502, 'The mail server did not accept the sheet, so it was not sent. Nothing is lost: the revision is kept and you can send it again.');
-    }
-    const out: SheetEmailResponse = { revision: toRevisionDto(sheet.revision), to: body.to, filename: sheet.filename };
+    // Stored with the revision's e-mail in the outbox, then tried at once: the answer says truthfully
+    // whether it left ("sent") or waits for a retry ("queued").
+    const mail = queueMail(em, {
+      organizationId: req.user!.organization.id,
+      kind: 'sheet',
+      to: body.to,
+      subject: `Mirror specification sheet, revision ${sheet.revision.number}`,
+      text: content + note + tail,
+      attachments: [{ filename: sheet.filename, content: sheet.pdf, contentType: 'application/pdf' }],
+    });
+    await em.flush();
+    const delivery = await outbox.deliver(mail.id);
+    const out: SheetEmailResponse = { revision: toRevisionDto(sheet.revision), to: body.to, filename: sheet.filename, delivery: delivery === 'sent' ? 'sent' : 'queued' };
     res.json(out);
   });
 

@@ -1,18 +1,29 @@
 import { Router } from 'express';
 import { UniqueConstraintViolationException } from '@mikro-orm/core';
+import type { EntityManager } from '@mikro-orm/sqlite';
 import { idParam, inviteBody, patchUserBody } from '../../../shared/schemas';
 import type { Orm } from '../../db';
 import { HttpError, notFound } from '../../http-error';
 import { requireRole } from '../../middleware/auth';
 import { parseOr400 } from '../../middleware/validate';
-import type { Mailer } from '../mail/mailer';
+import type { MailDispatcher } from '../mail/outbox';
+import { queueMail } from '../mail/outbox';
 import type { OrmSessionStore } from '../sessions/orm-session-store';
 import { createInvitation, invitationEmail } from './invitations';
+import { Invitation } from './invitation.entity';
 import { User } from './user.entity';
 import { toUserDto } from './user.dto';
 
-export function usersRoutes(deps: { orm: Orm; mailer: Mailer; store: OrmSessionStore; publicUrl: (host: string) => string }): Router {
-  const { orm, mailer, store } = deps;
+/** Adds an invitation and the e-mail carrying its link to `em`'s unit of work. */
+function queueInvitation(em: EntityManager, user: User, inviter: User, baseUrl: string): void {
+  const { token } = createInvitation(em, user);
+  const link = `${baseUrl}/set-password?token=${token}`;
+  const mail = invitationEmail({ name: user.name, inviter: inviter.name, organization: inviter.organization.name, link });
+  queueMail(em, { organizationId: inviter.organization.id, kind: 'invitation', to: user.email, ...mail });
+}
+
+export function usersRoutes(deps: { orm: Orm; outbox: MailDispatcher; store: OrmSessionStore; publicUrl: (host: string) => string }): Router {
+  const { orm, outbox, store } = deps;
   const r = Router();
   r.use(requireRole('admin'));
 
@@ -28,7 +39,13 @@ export function usersRoutes(deps: { orm: Orm; mailer: Mailer; store: OrmSessionS
   r.post('/', async (req, res) => {
     const body = parseOr400(inviteBody, req.body, 'The invitation');
     const em = orm.em.fork();
-    if (await em.count(User, { email: body.email })) {
+    const existing = await em.findOne(User, { email: body.email }, { populate: ['passwordHash'] });
+    if (existing && existing.organization.id === req.user!.organization.id && !existing.passwordHash && !existing.disabled) {
+      throw new HttpError(409, `${existing.name} is already invited and has not chosen a password yet. Use "Invite again" in the list to send a new link.`, {
+        email: 'Already invited: use "Invite again" in the list.',
+      });
+    }
+    if (existing) {
       throw new HttpError(409, 'Someone already has an account with this e-mail address.', { email: 'This e-mail address already has an account.' });
     }
     const user = em.create(User, {
@@ -40,8 +57,10 @@ export function usersRoutes(deps: { orm: Orm; mailer: Mailer; store: OrmSessionS
       disabled: false,
       units: 'metric',
     });
-    const { token } = createInvitation(em, user);
+    const inviter = req.user!;
+    queueInvitation(em, user, inviter, deps.publicUrl(req.get('host') ?? 'localhost'));
     try {
+      // One transaction: the account, its invitation and the e-mail carrying the link.
       await em.flush();
     } catch (e) {
       if (e instanceof UniqueConstraintViolationException) {
@@ -49,15 +68,24 @@ export function usersRoutes(deps: { orm: Orm; mailer: Mailer; store: OrmSessionS
       }
       throw e;
     }
-    await em.populate(user, ['organization']);
-    const link = `${deps.publicUrl(req.get('host') ?? 'localhost')}/set-password?token=${token}`;
-    const mail = invitationEmail({ name: user.name, inviter: req.user!.name, organization: user.organization.name, link });
-    try {
-      await mailer.send({ to: user.email, ...mail });
-    } catch {
-      // The account exists; the admin can see it and invite again, so nothing is lost.
-      throw new HttpError(502, `The account for ${user.email} was created, but the invitation e-mail could not be sent. Check the mail settings, then invite again.`);
+    outbox.kick();
+    res.status(201).json({ user: toUserDto(user) });
+  });
+
+  /** A new invitation for someone who has not set a password yet; earlier links stop working. */
+  r.post('/:id/invitation', async (req, res) => {
+    const id = parseOr400(idParam, req.params.id, 'The address');
+    const em = orm.em.fork();
+    const user = await em.findOne(User, { id, organization: req.user!.organization.id }, { populate: ['organization', 'passwordHash'] });
+    if (!user) throw notFound('That user');
+    if (user.passwordHash) {
+      throw new HttpError(409, `${user.name} has already chosen a password. If they forgot it, they can ask for a reset link on the sign-in page.`);
     }
+    if (user.disabled) throw new HttpError(409, `${user.name}'s account is turned off; turn it on before inviting them again.`);
+    await em.nativeUpdate(Invitation, { user: user.id, usedAt: null }, { usedAt: new Date() });
+    queueInvitation(em, user, req.user!, deps.publicUrl(req.get('host') ?? 'localhost'));
+    await em.flush();
+    outbox.kick();
     res.status(201).json({ user: toUserDto(user) });
   });
 

@@ -1,0 +1,73 @@
+import { Formik } from 'formik';
+import * as yup from 'yup';
+import { Notice } from '@/components/ui/notice';
+import { FormFooter } from './form-footer';
+import { FormFrame } from './form-frame';
+import { FormikTextField } from './formik-text-field';
+import { submitWithServerErrors, type FormStatus } from './server-errors';
+
+export interface ForgotPasswordValues {
+  email: string;
+}
+
+export const forgotPasswordSchema = yup.object({
+  email: yup.string().trim().required('Enter your e-mail address.').email('Enter a full e-mail address, like name@company.com.'),
+});
+
+export interface ForgotPasswordFormProps {
+  /** Resolves with the server's sentence, which is the same whether or not the address has an account. */
+  onSubmit: (values: ForgotPasswordValues) => Promise<{ message: string }>;
+}
+
+export function ForgotPasswordForm({ onSubmit }: ForgotPasswordFormProps) {
+  return (
+    <Formik<ForgotPasswordValues>
+      initialValues={{ email: '' }}
+      validationSchema={forgotPasswordSchema}
+      onSubmit={async (values, helpers) => {
+        let message = '';
+        const ok = await submitWithServerErrors(helpers, ['email'], values, async () => {
+          message = (await onSubmit({ email: values.email.trim() })).message;
+        });
+        if (ok) helpers.setStatus({ done: message } satisfies FormStatus);
+      }}
+    >
+      {(form) => {
+        const { handleSubmit } = form;
+        const status = form.status as FormStatus | undefined;
+        return (
+          <FormFrame label="Ask for a new password" onSubmit={handleSubmit} testID="forgot-password-form">
+            <FormikTextField
+              form={form}
+              name="email"
+              label="E-mail"
+              testID="forgot-password-email"
+              autoComplete="email"
+              textContentType="username"
+              inputMode="email"
+              keyboardType="email-address"
+              autoCapitalize="none"
+              autoCorrect={false}
+              enterKeyHint="send"
+              onSubmitEditing={() => handleSubmit()}
+            />
+            <FormFooter
+              status={status}
+              errorTestID="forgot-password-error"
+              submitLabel="E-mail me a link"
+              submitTestID="forgot-password-submit"
+              busy={form.isSubmitting}
+              onSubmit={() => handleSubmit()}
+            >
+              {status?.done ? (
+                <Notice tone="go" testID="forgot-password-done">
+                  {status.done}
+                </Notice>
+              ) : null}
+            </FormFooter>
+          </FormFrame>
+        );
+      }}
+    </Formik>
+  );
+}
