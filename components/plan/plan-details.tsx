@@ -9,7 +9,7 @@ import { SafetyCautions } from '@/components/ui/safety-cautions';
 import { SheetActions } from '@/components/sheet';
 import { palette, radii, spacing } from '@/constants/theme';
 import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
-import { targetLabel } from '@/shared/project-optics';
+import { adultRangesText, targetLabel } from '@/shared/project-optics';
 import type { CatalogueItemDto, PlacementDto, ProjectDto, Scene, SceneViewer } from '@/shared/schemas';
 import { formatLength, formatPercent, type UnitSystem } from '@/shared/units';
 import { PlacementEditorSlot } from './placement-editor-slot';
@@ -151,7 +151,7 @@ function ProjectSummary(p: PlanDetailsProps) {
                     {ev.problem.message}
                   </AppText>
                 ) : ev?.numbers ? (
-                  <AppText variant="small" tone="muted">{`Adult recognisable to ${formatLength(ev.numbers.rangeM.adult, p.units)}`}</AppText>
+                  <AppText variant="small" tone="muted">{adultRangesText(ev.numbers, (m) => formatLength(m, p.units))}</AppText>
                 ) : null}
               </View>
             </ListRow>

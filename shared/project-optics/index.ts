@@ -1,3 +1,5 @@
 export * from './evaluate';
 export * from './evaluator';
 export * from './targets';
+export * from './criteria';
+export * from './figures';

@@ -47,9 +47,13 @@ describe('PlacementNumbersPanel', () => {
     expect(screen.getByTestId('numbers-focal-length')).toHaveTextContent(size(n.focalLengthM));
     expect(screen.getByTestId('numbers-radius')).toHaveTextContent(size(n.radiusM));
     expect(screen.getByTestId('numbers-eye-distance')).toHaveTextContent(dist(n.eyeDistanceM));
-    expect(screen.getByTestId('numbers-field-of-view')).toHaveTextContent(`${formatAngle(n.fieldOfView.horizontalRad)} × ${formatAngle(n.fieldOfView.verticalRad)}`);
-    expect(screen.getByTestId('numbers-range-adult')).toHaveTextContent(dist(n.rangeM.adult));
-    expect(screen.getByTestId('numbers-range-child')).toHaveTextContent(dist(n.rangeM.child));
+    expect(screen.getByTestId('numbers-field-of-view')).toHaveTextContent(`${formatAngle(n.onAxisFieldOfView.horizontalRad)} × ${formatAngle(n.onAxisFieldOfView.verticalRad)}`);
+    expect(screen.getByTestId('numbers-range-adult-detect')).toHaveTextContent(dist(n.rangesM.detect.adult));
+    expect(screen.getByTestId('numbers-range-adult-recognise')).toHaveTextContent(dist(n.rangesM.recognise.adult));
+    expect(screen.getByTestId('numbers-range-child-detect')).toHaveTextContent(dist(n.rangesM.detect.child));
+    expect(screen.getByTestId('numbers-range-child-recognise')).toHaveTextContent(dist(n.rangesM.recognise.child));
+    expect(screen.getByTestId('numbers-eye-off-axis')).toHaveTextContent(formatAngle(n.eyeOffAxisRad));
+    expect(screen.getByTestId('numbers-floor-spread')).toHaveTextContent(formatAngle(n.floorSeen!.spreadRad));
     expect(screen.getByTestId('numbers-area')).toHaveTextContent(formatArea(evaluation.coverage!.areaM2, units));
     expect(screen.getByTestId('numbers-rim-squeeze')).toHaveTextContent(rimSqueezeText(n.rimSqueeze));
     for (const r of n.references) {
@@ -64,7 +68,7 @@ describe('PlacementNumbersPanel', () => {
 
   it('writes imperial lengths in feet and inches, not metres', () => {
     render(<PlacementNumbersPanel evaluation={evaluation} zones={project.zones} scene={scene} units="imperial" />);
-    expect(screen.getByTestId('numbers-range-adult').textContent).toMatch(/ft/);
+    expect(screen.getByTestId('numbers-range-adult-recognise').textContent).toMatch(/ft/);
     expect(screen.getByTestId('numbers-focal-length').textContent).toMatch(/in$/);
     expect(screen.getByTestId('numbers-panel').textContent).not.toMatch(/\d m\b/);
   });
