@@ -3,7 +3,7 @@ import { StyleSheet, View } from 'react-native';
 import { AppText } from '@/components/ui/text';
 import { Notice } from '@/components/ui/notice';
 import { palette, radii, spacing } from '@/constants/theme';
-import { criteriaBasisText, targetLabel, zoneCriterion, type EvaluatedPlacement, type EvaluatedZone } from '@/shared/project-optics';
+import { criteriaSentence, targetLabel, zoneCriterion, type EvaluatedPlacement, type EvaluatedZone } from '@/shared/project-optics';
 import type { Scene } from '@/shared/schemas';
 import { formatAngle, formatArea, formatLength, formatNumber, formatPercent, type UnitSystem } from '@/shared/units';
 
@@ -67,7 +67,7 @@ export function PlacementNumbersPanel({ evaluation, zones, scene, units }: Place
             <Row label="Child detected up to" value={dist(n.rangesM.detect.child, units)} testID="numbers-range-child-detect" />
             <Row label="Child recognised up to" value={dist(n.rangesM.recognise.child, units)} testID="numbers-range-child-recognise" />
             <AppText variant="small" tone="muted" testID="numbers-criteria-basis">
-              {criteriaBasisText(n.criteria)}
+              {criteriaSentence(n.criteria)}
             </AppText>
           </Group>
 

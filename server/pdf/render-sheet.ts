@@ -147,7 +147,7 @@ function zonesBlock(flow: Flow, content: SheetContent): void {
   );
   flow.gap(3);
   flow.paragraph(
-    `Share seen: the part of the zone\u2019s floor that some mirror shows within the distance at which that person still meets the zone\u2019s criterion, walls and racking included. ${content.criteria.basis}`,
+    `Share seen: the zone\u2019s floor that some mirror shows, walls and racking included, out to where that person still meets the zone\u2019s criterion \u2014 detect: ${content.criteria.detect}; recognise: ${content.criteria.recognise} (${content.criteria.basis}).`,
     'regular',
     8,
     MUTED,
@@ -158,12 +158,12 @@ function summaryBlock(flow: Flow, content: SheetContent): void {
   flow.heading('Mirrors at a glance');
   flow.table(
     [
-      { title: 'Mirror', width: 0.15 },
-      { title: 'Product', width: 0.27 },
-      { title: 'Height', width: 0.1, align: 'right' },
-      { title: 'Floor seen, spread', width: 0.14, align: 'right' },
-      { title: 'Adult detected to', width: 0.17, align: 'right' },
-      { title: 'Adult recognised to', width: 0.17, align: 'right' },
+      { title: 'Mirror', width: 0.14 },
+      { title: 'Product', width: 0.3 },
+      { title: 'Height', width: 0.09, align: 'right' },
+      { title: 'Floor seen', width: 0.15, align: 'right' },
+      { title: 'Adult detected to', width: 0.16, align: 'right' },
+      { title: 'Adult recognised to', width: 0.16, align: 'right' },
     ],
     content.placements.map((p) => [
       p.label,

@@ -35,14 +35,19 @@ export function criterionText(criteria: CriteriaSettings, kind: CriterionKind): 
   return `${formatArcmin(criterionAngleRad(criteria, kind))} of the person's height`;
 }
 
-/** One sentence stating both angles and their basis, for the panel and the sheet. */
+/** Whether a project's angles are the defaults (the sheet says which). */
+export function isDefaultCriteria(criteria: CriteriaSettings): boolean {
+  return criteria.detectRad === DEFAULT_CRITERIA_RAD.detectRad && criteria.recogniseRad === DEFAULT_CRITERIA_RAD.recogniseRad;
+}
+
+/** The basis of the angles in a few words: engineering judgement, or the project's own choice. */
 export function criteriaBasisText(criteria: CriteriaSettings): string {
-  const defaults = criteria.detectRad === DEFAULT_CRITERIA_RAD.detectRad && criteria.recogniseRad === DEFAULT_CRITERIA_RAD.recogniseRad;
-  return (
-    `Detect: the person's height spans at least ${formatArcmin(criteria.detectRad)} of arc at the eye, through the mirror; ` +
-    `recognise: at least ${formatArcmin(criteria.recogniseRad)}. ` +
-    (defaults
-      ? 'Engineering judgement (detection and recognition rules of thumb applied to normal eyesight), not a published rule.'
-      : 'Angles set for this project; the defaults (6′ and 20′) are engineering judgement, not a published rule.')
-  );
+  return isDefaultCriteria(criteria)
+    ? 'engineering judgement from detection and recognition rules of thumb at normal eyesight, not a published rule'
+    : `set for this project (the defaults, ${formatArcmin(DEFAULT_CRITERIA_RAD.detectRad)} and ${formatArcmin(DEFAULT_CRITERIA_RAD.recogniseRad)}, are engineering judgement, not a published rule)`;
+}
+
+/** One sentence stating both angles and their basis, for the panel and the sheet. */
+export function criteriaSentence(criteria: CriteriaSettings): string {
+  return `Detect: the person's height spans at least ${formatArcmin(criteria.detectRad)} at the eye through the mirror; recognise: at least ${formatArcmin(criteria.recogniseRad)}; ${criteriaBasisText(criteria)}.`;
 }
