@@ -147,7 +147,7 @@ function zonesBlock(flow: Flow, content: SheetContent): void {
   );
   flow.gap(3);
   flow.paragraph(
-    `Share seen: the zone\u2019s floor that some mirror shows, walls and racking included, out to where that person still meets the zone\u2019s criterion \u2014 detect: ${content.criteria.detect}; recognise: ${content.criteria.recognise} (${content.criteria.basis}).`,
+    `Share seen: floor some mirror shows, walls included, out to where that person meets the zone\u2019s criterion. Detect: ${content.criteria.detect}; recognise: ${content.criteria.recognise} (${content.criteria.basis}).`,
     'regular',
     8,
     MUTED,
@@ -162,8 +162,8 @@ function summaryBlock(flow: Flow, content: SheetContent): void {
       { title: 'Product', width: 0.3 },
       { title: 'Height', width: 0.09, align: 'right' },
       { title: 'Floor seen', width: 0.15, align: 'right' },
-      { title: 'Adult detected to', width: 0.16, align: 'right' },
-      { title: 'Adult recognised to', width: 0.16, align: 'right' },
+      { title: 'Adult detected', width: 0.16, align: 'right' },
+      { title: 'Adult recognised', width: 0.16, align: 'right' },
     ],
     content.placements.map((p) => [
       p.label,

@@ -43,7 +43,7 @@ export function isDefaultCriteria(criteria: CriteriaSettings): boolean {
 /** The basis of the angles in a few words: engineering judgement, or the project's own choice. */
 export function criteriaBasisText(criteria: CriteriaSettings): string {
   return isDefaultCriteria(criteria)
-    ? 'engineering judgement from detection and recognition rules of thumb at normal eyesight, not a published rule'
+    ? 'engineering judgement, not a published rule'
     : `set for this project (the defaults, ${formatArcmin(DEFAULT_CRITERIA_RAD.detectRad)} and ${formatArcmin(DEFAULT_CRITERIA_RAD.recogniseRad)}, are engineering judgement, not a published rule)`;
 }
 
