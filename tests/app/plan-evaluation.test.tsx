@@ -28,14 +28,11 @@ function expectSameFractions(a: { zoneId: string; fraction: number }[], b: { zon
   a.forEach((z, i) => expect(z.fraction).toBeCloseTo(b[i].fraction, 9));
 }
 
+// evaluateProject is a fresh evaluator; comparing a fresh one with it would prove nothing. What can
+// go wrong is the cache: an evaluator that has already seen other positions must answer as a fresh
+// one does. (The zone shares themselves are checked against the exact point test in
+// tests/shared/project-optics/criteria.test.ts.)
 describe('the plan’s cached evaluation', () => {
-  it('gives the same zone fractions and coverage areas as evaluateProject', () => {
-    const cached = new PlanEvaluator().evaluate({ scene, placements, catalogue });
-    const direct = evaluateProject({ scene, placements, catalogue });
-    expectSameFractions(cached.zones, direct.zones);
-    expect(cached.placements.map((p) => p.coverage?.areaM2)).toEqual(direct.placements.map((p) => p.coverage?.areaM2));
-  });
-
   it('still agrees after one mirror moves, reusing the others', () => {
     const evaluator = new PlanEvaluator();
     const first = evaluator.evaluate({ scene, placements, catalogue });
