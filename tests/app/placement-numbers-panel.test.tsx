@@ -66,6 +66,15 @@ describe('PlacementNumbersPanel', () => {
     expect(screen.getByTestId('numbers-zone-z1')).toHaveTextContent(`${formatPercent(zone.fraction)} (${formatArea(zone.coveredM2, units)})`);
   });
 
+  it('labels the field of view "on axis" and states the angles behind both ranges', () => {
+    render(<PlacementNumbersPanel evaluation={evaluation} zones={project.zones} scene={scene} units="metric" />);
+    expect(screen.getByText(/Field of view on axis/)).toBeInTheDocument();
+    expect(screen.getByTestId('numbers-criteria-basis')).toHaveTextContent('at least 6′');
+    expect(screen.getByTestId('numbers-criteria-basis')).toHaveTextContent('at least 20′');
+    // The zone's row says which criterion it is scored by (a zone saved without one means recognise).
+    expect(screen.getByText('Crossing, standing adult, recognise')).toBeInTheDocument();
+  });
+
   it('writes imperial lengths in feet and inches, not metres', () => {
     render(<PlacementNumbersPanel evaluation={evaluation} zones={project.zones} scene={scene} units="imperial" />);
     expect(screen.getByTestId('numbers-range-adult-recognise').textContent).toMatch(/ft/);

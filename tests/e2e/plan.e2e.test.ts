@@ -92,7 +92,7 @@ describe.each([
 
     // Change the height; the numbers and the fan follow.
     await byTestId(page, 'placement-editor').waitFor({ state: 'visible' });
-    const rangeBefore = await byTestId(page, 'numbers-range-adult').first().textContent();
+    const rangeBefore = await byTestId(page, 'numbers-range-adult-recognise').first().textContent();
     await byTestId(page, 'placement-height').fill('4.5 m');
     await byTestId(page, 'placement-height').press('Enter');
     // Runs in the page (a function, not a string: the app's CSP forbids eval): the fan's outline
@@ -103,7 +103,7 @@ describe.each([
       [fanId, fanBefore] as const,
       { timeout: 15_000 },
     );
-    expect(await byTestId(page, 'numbers-range-adult').first().textContent()).not.toBe(rangeBefore);
+    expect(await byTestId(page, 'numbers-range-adult-recognise').first().textContent()).not.toBe(rangeBefore);
     await byTestId(page, 'placement-save-status').filter({ hasText: /All changes saved/ }).first().waitFor({ timeout: 15_000 });
     await shot(page, `${sizeName}-plan-height-changed`);
 

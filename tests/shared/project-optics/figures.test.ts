@@ -3,6 +3,7 @@
  * segment subtends from a point, distances to a square's sides), worked out by hand here.
  */
 import { eyeOffAxisRad, floorSeenFigures } from '../../../shared/project-optics';
+import fc from 'fast-check';
 import { poseFromAim, type MultiPolygon, type Pair } from '../../../shared/optics';
 
 const deg = (d: number) => (d * Math.PI) / 180;
@@ -70,5 +71,91 @@ describe('how far the eye is off the mirror’s axis', () => {
   it('counts the mirror’s tilt: a mirror tilted 30° down and an eye level with it are 30° apart', () => {
     const pose = poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0, tiltDownRad: deg(30) });
     expect(eyeOffAxisRad(pose, [4, 0, 3])).toBeCloseTo(deg(30), 12);
+  });
+});
+
+describe('the floor-seen figures over any region', () => {
+  /** A convex polygon: k points on a circle of radius r about c, at sorted angles. */
+  const convex = fc
+    .record({
+      cx: fc.double({ min: -1500, max: 1500, noNaN: true }),
+      cy: fc.double({ min: -1500, max: 1500, noNaN: true }),
+      r: fc.double({ min: 0.05, max: 200, noNaN: true }),
+      angles: fc.uniqueArray(fc.double({ min: 0, max: 2 * Math.PI - 1e-6, noNaN: true }), { minLength: 3, maxLength: 24, comparator: (a, b) => Math.abs(a - b) < 1e-3 }),
+    })
+    .map(({ cx, cy, r, angles }) => {
+      const ring: Pair[] = [...angles].sort((a, b) => a - b).map((t) => [cx + r * Math.cos(t), cy + r * Math.sin(t)]);
+      return { cx, cy, r, ring: [...ring, ring[0]] };
+    });
+  const foot = fc.tuple(fc.double({ min: -1500, max: 1500, noNaN: true }), fc.double({ min: -1500, max: 1500, noNaN: true }));
+
+  it('spans, for a convex region the mirror is outside, the widest angle between two of its corners', () => {
+    fc.assert(
+      fc.property(convex, foot, ({ cx, cy, r, ring }, [fx, fy]) => {
+        fc.pre(Math.hypot(cx - fx, cy - fy) > r * 1.01 + 1e-3);
+        const f = floorSeenFigures([[ring]], [fx, fy])!;
+        // Widest angle between two corner directions, by dot products (no atan2, no arcs).
+        let widest = 0;
+        for (const a of ring) {
+          for (const b of ring) {
+            const u = [a[0] - fx, a[1] - fy];
+            const v = [b[0] - fx, b[1] - fy];
+            const c = (u[0] * v[0] + u[1] * v[1]) / (Math.hypot(u[0], u[1]) * Math.hypot(v[0], v[1]));
+            widest = Math.max(widest, Math.acos(Math.max(-1, Math.min(1, c))));
+          }
+        }
+        expect(f.spreadRad).toBeCloseTo(widest, 6);
+        const dists = ring.map((p) => Math.hypot(p[0] - fx, p[1] - fy));
+        expect(f.farthestM).toBeCloseTo(Math.max(...dists), 6);
+        expect(f.nearestM).toBeLessThanOrEqual(Math.min(...dists) + 1e-9);
+        expect(f.nearestM).toBeGreaterThan(0);
+      }),
+      { numRuns: 300 },
+    );
+  });
+
+  it('is a full turn at 0 m whenever the point under the mirror lies inside the floor seen', () => {
+    // Corners spread round the whole circle: k corners, each within 0.4 of a k-th of a turn past
+    // its even place, so no gap between corners reaches half a turn and the inscribed circle has
+    // radius r·cos(largest gap / 2) > 0.
+    const spread = fc
+      .record({
+        cx: fc.double({ min: -1500, max: 1500, noNaN: true }),
+        cy: fc.double({ min: -1500, max: 1500, noNaN: true }),
+        r: fc.double({ min: 0.05, max: 200, noNaN: true }),
+        jitter: fc.array(fc.double({ min: 0, max: 0.4, noNaN: true }), { minLength: 3, maxLength: 24 }),
+      })
+      .map(({ cx, cy, r, jitter }) => {
+        const k = jitter.length;
+        const angles = jitter.map((j, i) => ((i + j) * 2 * Math.PI) / k);
+        const gaps = angles.map((a, i) => (i + 1 < k ? angles[i + 1] - a : 2 * Math.PI - a + angles[0]));
+        const ring: Pair[] = angles.map((t) => [cx + r * Math.cos(t), cy + r * Math.sin(t)]);
+        return { cx, cy, inradius: r * Math.cos(Math.max(...gaps) / 2), ring: [...ring, ring[0]] };
+      });
+    fc.assert(
+      fc.property(spread, fc.double({ min: 0, max: 0.9, noNaN: true }), fc.double({ min: 0, max: 2 * Math.PI, noNaN: true }), ({ cx, cy, inradius, ring }, s, t) => {
+        const p: Pair = [cx + s * inradius * Math.cos(t), cy + s * inradius * Math.sin(t)];
+        const f = floorSeenFigures([[ring]], p)!;
+        expect(f.spreadRad).toBeCloseTo(2 * Math.PI, 12);
+        expect(f.nearestM).toBe(0);
+      }),
+      { numRuns: 200 },
+    );
+  });
+
+  it('does not change when the plan is turned about the point under the mirror', () => {
+    fc.assert(
+      fc.property(convex, foot, fc.double({ min: -Math.PI, max: Math.PI, noNaN: true }), ({ ring }, [fx, fy], turn) => {
+        const c = Math.cos(turn);
+        const s = Math.sin(turn);
+        const turned = ring.map(([x, y]): Pair => [fx + c * (x - fx) - s * (y - fy), fy + s * (x - fx) + c * (y - fy)]);
+        const a = floorSeenFigures([[ring]], [fx, fy])!;
+        const b = floorSeenFigures([[turned]], [fx, fy])!;
+        expect(b.spreadRad).toBeCloseTo(a.spreadRad, 6);
+        expect(b.nearestM).toBeCloseTo(a.nearestM, 6);
+        expect(b.farthestM).toBeCloseTo(a.farthestM, 6);
+      }),
+      { numRuns: 200 },
+    );
   });
 });
