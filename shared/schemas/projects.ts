@@ -22,7 +22,7 @@ export const wall = z
   })
   .refine((w) => Math.hypot(w.bM[0] - w.aM[0], w.bM[1] - w.aM[1]) >= 0.01, { message: 'A wall needs two different ends (at least 10 mm apart).', path: ['bM'] });
 
-/** Who must be recognisable in a zone: a standing adult, a child, or a custom height. */
+/** Who must be seen in a zone: a standing adult, a child, or a custom height. */
 export const targetKinds = ['adult', 'child', 'custom'] as const;
 export const zoneTarget = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('adult') }),
