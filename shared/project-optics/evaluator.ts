@@ -1,8 +1,9 @@
 /**
  * The cache-aware evaluation behind evaluateProject: each placement through the engine once per
  * distinct input, and each zone's covered share from the union of the placements' regions,
- * clipped at the range where that zone's target meets the zone's criterion (detect or recognise). The union of all mirrors but the one
- * being moved is kept, so a drag costs one boolean operation a frame instead of thirty.
+ * clipped at the range where that zone's target meets the zone's criterion (detect or
+ * recognise). The union of all mirrors but the one being moved is kept, so a drag costs one
+ * boolean operation a frame instead of thirty.
  */
 import { zoneCoverage, type MultiPolygon } from '../optics';
 import { robustUnion } from '../geometry/robust-boolean';
@@ -52,7 +53,8 @@ function unionAll(regions: readonly MultiPolygon[]): MultiPolygon {
 /**
  * Evaluates a project's placements and zones, keeping each placement's result keyed by its inputs
  * so an evaluator reused between calls (the plan, while a mirror is dragged) recomputes only what
- * changed. New walls, catalogue or criteria angles empty the cache. A fresh evaluator is evaluateProject.
+ * changed. New walls, catalogue or criteria angles empty the cache. A fresh evaluator is
+ * evaluateProject.
  */
 export class ProjectEvaluator {
   private cache: CacheEntry | null = null;
