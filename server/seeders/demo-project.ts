@@ -5,8 +5,6 @@ import type { Scene, SceneWall } from '../../shared/schemas';
  * aisle between two racking blocks meets the main aisle at a blind T-junction, where forklifts cross;
  * at the loading-dock corner, trucks leaving the main aisle turn blind around a racking end.
  * M1 is a half dome on a building column's north face, facing up the side aisle.
- * The junction zone asks only that cross traffic be detected (noticed in time to stop); the dock
- * apron asks that a person be recognised.
  * Coordinates in metres from the building's south-west corner; x east, y north.
  */
 const RACK_M = 6;
@@ -35,7 +33,7 @@ export const DEMO_PROJECT = {
       ...box('column', 19.2, 9.5, 20.3, 10, WALL_M, 'wall'),
     ],
     zones: [
-      { id: 'z-junction', name: 'T-junction cross traffic', polygonM: [[12, 10.2], [28, 10.2], [28, 13.3], [12, 13.3]], target: { kind: 'adult' }, criterion: 'detect' },
+      { id: 'z-junction', name: 'T-junction cross traffic', polygonM: [[12, 10.2], [28, 10.2], [28, 13.3], [12, 13.3]], target: { kind: 'adult' } },
       { id: 'z-dock', name: 'Dock corner apron', polygonM: [[16.2, 4], [22, 4], [22, 9.8], [16.2, 9.8]], target: { kind: 'adult' } },
     ],
     viewers: [

@@ -99,7 +99,7 @@ describe('the specification sheet PDF', () => {
     project.scene.zones.forEach((z, i) => expect(text).toContain(`${z.name}: ${f.percent(evaluation.zones[i].fraction)} seen`));
     // Both criteria with their angles, each zone's own, and the on-axis figure named as such.
     expect(text).toContain("Detect: 6′ of the person's height; recognise: 20′ of the person's height");
-    expect(text).toContain('T-junction cross traffic standing adult detect');
+    expect(text).toContain('T-junction cross traffic standing adult recognise');
     expect(text).toContain('Dock corner apron standing adult recognise');
     expect(text).toContain('Field of view on axis');
     const used = project.placements.map((p) => catalogue.find((c) => c.id === p.catalogueItemId)!);
