@@ -1,6 +1,6 @@
 /**
- * The four cautions the product always carries (PRODUCT.md, "Cautions the product always carries"),
- * in the product brief's words. The one list: the app's caution block and the PDF sheet both read it.
+ * The four cautions the product always carries, on every screen and sheet that shows coverage
+ * (a product decision, not an outside source). The one list: the app's caution block and the PDF sheet both read it.
  * Plain data, no React, so the server can import it too.
  */
 export const SAFETY_CAUTIONS = [

@@ -4,7 +4,7 @@ import Svg, { Circle, G, Line, Path, Rect, Text as SvgText } from 'react-native-
 import { AppText } from '@/components/ui/text';
 import { fonts, palette, spacing } from '@/constants/theme';
 import { fanRays, type FanRay } from '@/shared/optics';
-import { MAX_DRAWN_RANGE_M, type EvaluatedPlacement } from '@/shared/project-optics';
+import { drawnRangeM, type EvaluatedPlacement } from '@/shared/project-optics';
 import { formatLength, type UnitSystem } from '@/shared/units';
 
 export interface ElevationViewProps {
@@ -42,7 +42,7 @@ export function ElevationView({ evaluation, units, testID = 'placement-elevation
     let rays: FanRay[] = [];
     if (evaluation.numbers) {
       try {
-        const maxRangeM = Math.min(MAX_DRAWN_RANGE_M, evaluation.numbers.rangeM.adult);
+        const maxRangeM = drawnRangeM(evaluation.numbers);
         rays = fanRays({ mirror: evaluation.mirror, pose: evaluation.pose, eyeM: eye, maxRangeM, samples: 24 });
       } catch {
         // The engine could not trace this pose; the sightline and heights still help.

@@ -3,7 +3,7 @@ import { StyleSheet, View } from 'react-native';
 import { AppText } from '@/components/ui/text';
 import { Notice } from '@/components/ui/notice';
 import { palette, radii, spacing } from '@/constants/theme';
-import type { EvaluatedPlacement, EvaluatedZone } from '@/shared/project-optics';
+import { criteriaSentence, targetLabel, zoneCriterion, type EvaluatedPlacement, type EvaluatedZone } from '@/shared/project-optics';
 import type { Scene } from '@/shared/schemas';
 import { formatAngle, formatArea, formatLength, formatNumber, formatPercent, type UnitSystem } from '@/shared/units';
 
@@ -30,6 +30,7 @@ export function rimSqueezeText(rimSqueeze: number): string {
  */
 export function PlacementNumbersPanel({ evaluation, zones, scene, units }: PlacementNumbersPanelProps) {
   const n = evaluation?.numbers ?? null;
+  const fs = n?.floorSeen ?? null;
   return (
     <View style={styles.panel} testID="numbers-panel">
       {evaluation?.problem ? (
@@ -39,16 +40,35 @@ export function PlacementNumbersPanel({ evaluation, zones, scene, units }: Place
       ) : null}
       {n ? (
         <>
-          <Group title="The mirror from this viewer">
+          <Group title="What this viewer sees">
+            <Row label="Eye to mirror" value={dist(n.eyeDistanceM, units)} testID="numbers-eye-distance" />
+            <Row label="Eye off the mirror's axis" value={formatAngle(n.eyeOffAxisRad)} testID="numbers-eye-off-axis" />
+            <Row label="Floor area seen" value={evaluation?.coverage ? formatArea(evaluation.coverage.areaM2, units) : '—'} testID="numbers-area" />
+            <Row label="Spread of the floor seen, around the mirror" value={fs ? formatAngle(fs.spreadRad) : '—'} testID="numbers-floor-spread" />
+            <Row label="Nearest to farthest floor seen, from the mirror" value={fs ? `${dist(fs.nearestM, units)} to ${dist(fs.farthestM, units)}` : '—'} testID="numbers-floor-reach" />
+            <AppText variant="small" tone="muted">
+              Floor seen with walls and racking, out to the distance at which a standing adult is still recognised.
+            </AppText>
+          </Group>
+
+          <Group title="The mirror">
             <Row label="Focal length" value={size(n.focalLengthM, units)} testID="numbers-focal-length" />
             <Row label="Radius of curvature" value={size(n.radiusM, units)} testID="numbers-radius" />
-            <Row label="Eye to mirror" value={dist(n.eyeDistanceM, units)} testID="numbers-eye-distance" />
             <Row
-              label="Field of view (across × up-down)"
-              value={`${formatAngle(n.fieldOfView.horizontalRad)} × ${formatAngle(n.fieldOfView.verticalRad)}`}
+              label="Field of view on axis (eye on the mirror's axis), across × up-down"
+              value={`${formatAngle(n.onAxisFieldOfView.horizontalRad)} × ${formatAngle(n.onAxisFieldOfView.verticalRad)}`}
               testID="numbers-field-of-view"
             />
-            <Row label="Floor area seen" value={evaluation?.coverage ? formatArea(evaluation.coverage.areaM2, units) : '—'} testID="numbers-area" />
+          </Group>
+
+          <Group title="Detect and recognise">
+            <Row label="Standing adult detected up to" value={dist(n.rangesM.detect.adult, units)} testID="numbers-range-adult-detect" />
+            <Row label="Standing adult recognised up to" value={dist(n.rangesM.recognise.adult, units)} testID="numbers-range-adult-recognise" />
+            <Row label="Child detected up to" value={dist(n.rangesM.detect.child, units)} testID="numbers-range-child-detect" />
+            <Row label="Child recognised up to" value={dist(n.rangesM.recognise.child, units)} testID="numbers-range-child-recognise" />
+            <AppText variant="small" tone="muted" testID="numbers-criteria-basis">
+              {criteriaSentence(n.criteria)}
+            </AppText>
           </Group>
 
           <Group title="How far away things look">
@@ -62,11 +82,6 @@ export function PlacementNumbersPanel({ evaluation, zones, scene, units }: Place
             ))}
           </Group>
 
-          <Group title="Recognisable up to">
-            <Row label="Standing adult" value={dist(n.rangeM.adult, units)} testID="numbers-range-adult" />
-            <Row label="Child" value={dist(n.rangeM.child, units)} testID="numbers-range-child" />
-          </Group>
-
           <Group title="Edge of the image">
             <AppText testID="numbers-rim-squeeze">{rimSqueezeText(n.rimSqueeze)}</AppText>
           </Group>
@@ -78,7 +93,7 @@ export function PlacementNumbersPanel({ evaluation, zones, scene, units }: Place
           {scene.zones.map((z) => {
             const ev = zones.find((e) => e.zoneId === z.id);
             const value = !ev ? '—' : ev.problem ? ev.problem : Number.isFinite(ev.fraction) ? `${formatPercent(ev.fraction)} (${formatArea(ev.coveredM2, units)})` : '—';
-            return <Row key={z.id} label={z.name} value={value} testID={`numbers-zone-${z.id}`} />;
+            return <Row key={z.id} label={`${z.name}, ${targetLabel(z.target)}, ${zoneCriterion(z)}`} value={value} testID={`numbers-zone-${z.id}`} />;
           })}
         </Group>
       ) : null}

@@ -9,8 +9,9 @@ import { SafetyCautions } from '@/components/ui/safety-cautions';
 import { SheetActions } from '@/components/sheet';
 import { palette, radii, spacing } from '@/constants/theme';
 import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
-import { targetLabel } from '@/shared/project-optics';
-import type { CatalogueItemDto, PlacementDto, ProjectDto, Scene, SceneViewer } from '@/shared/schemas';
+import { adultRangesText, criteriaOf, criterionText, targetLabel, zoneCriterion } from '@/shared/project-optics';
+import type { CatalogueItemDto, CriteriaSettings, CriterionKind, PlacementDto, ProjectDto, Scene, SceneViewer } from '@/shared/schemas';
+import { CriteriaSettingsForm } from './criteria-settings';
 import { formatLength, formatPercent, type UnitSystem } from '@/shared/units';
 import { PlacementEditorSlot } from './placement-editor-slot';
 import type { PlanSelection } from './plan-types';
@@ -30,6 +31,10 @@ export interface PlanDetailsProps {
   selection: PlanSelection;
   onSelect: (s: PlanSelection) => void;
   onViewerEyeHeight: (viewerId: string, eyeHeightM: number) => void;
+  /** Sets whether a zone asks for its target to be detected or recognised. */
+  onZoneCriterion: (zoneId: string, criterion: CriterionKind) => void;
+  /** Sets the project's two angles; undefined goes back to the defaults. */
+  onCriteria: (criteria: CriteriaSettings | undefined) => void;
 }
 
 export function PlanDetails(p: PlanDetailsProps) {
@@ -55,7 +60,20 @@ export function PlanDetails(p: PlanDetailsProps) {
         <View style={styles.column} testID="plan-zone-details">
           <BackToSummary onPress={() => p.onSelect(null)} />
           <AppText variant="heading">{zone.name}</AppText>
-          <AppText>{`Must show a ${targetLabel(zone.target)} recognisably.`}</AppText>
+          <Segmented<CriterionKind>
+            label="What the mirrors must let the viewer do here"
+            value={zoneCriterion(zone)}
+            disabled={!p.canEdit}
+            stretch
+            onChange={(c) => p.onZoneCriterion(zone.id, c)}
+            options={[
+              { value: 'detect', label: 'Detect (notice)', testID: 'zone-criterion-detect' },
+              { value: 'recognise', label: 'Recognise (make out)', testID: 'zone-criterion-recognise' },
+            ]}
+          />
+          <AppText testID="zone-criterion-text">
+            {`Must show a ${targetLabel(zone.target)} so that they are ${zoneCriterion(zone) === 'detect' ? 'detected' : 'recognised'}: ${criterionText(criteriaOf(p.scene), zoneCriterion(zone))} at the viewer's eye.`}
+          </AppText>
           <AppText variant="bodyStrong" style={{ color: bandColours[band].text }}>
             {ev?.problem ?? `${formatPercent(ev?.fraction ?? Number.NaN)} covered — ${bandWords[band]}`}
           </AppText>
@@ -126,7 +144,7 @@ function ProjectSummary(p: PlanDetailsProps) {
             <ListRow key={z.id} testID={`summary-zone-${z.id}`} onPress={() => p.onSelect({ kind: 'zone', id: z.id })} a11y={`Zone ${z.name}`}>
               <View style={styles.rowMain}>
                 <AppText variant="bodyStrong">{z.name}</AppText>
-                <AppText variant="small" tone="muted">{`Target: ${targetLabel(z.target)}`}</AppText>
+                <AppText variant="small" tone="muted">{`Target: ${targetLabel(z.target)}, ${zoneCriterion(z)}`}</AppText>
               </View>
               <View style={styles.rowEnd}>
                 <AppText variant="bodyStrong" style={{ color: bandColours[band].text }}>
@@ -151,7 +169,7 @@ function ProjectSummary(p: PlanDetailsProps) {
                     {ev.problem.message}
                   </AppText>
                 ) : ev?.numbers ? (
-                  <AppText variant="small" tone="muted">{`Adult recognisable to ${formatLength(ev.numbers.rangeM.adult, p.units)}`}</AppText>
+                  <AppText variant="small" tone="muted">{adultRangesText(ev.numbers, (m) => formatLength(m, p.units))}</AppText>
                 ) : null}
               </View>
             </ListRow>
@@ -168,6 +186,9 @@ function ProjectSummary(p: PlanDetailsProps) {
             </View>
           </ListRow>
         ))}
+      </Section>
+      <Section title="Detect and recognise">
+        <CriteriaSettingsForm criteria={criteriaOf(p.scene)} canEdit={p.canEdit} onSave={p.onCriteria} />
       </Section>
       <SafetyCautions compact />
       <SheetActions projectId={p.project.id} canEdit={p.project.canEdit} />

@@ -7,6 +7,7 @@ import { Pressable, ScrollView, StyleSheet, View, useWindowDimensions } from 're
 import { AppText } from '@/components/ui';
 import { layout, palette, radii, spacing } from '@/constants/theme';
 import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
+import { adultRangesText } from '@/shared/project-optics';
 import type { PlacementDto, Scene } from '@/shared/schemas';
 import { formatLength, formatPercent, type UnitSystem } from '@/shared/units';
 import type { PlanSelection } from './plan-types';
@@ -32,7 +33,7 @@ export function sheetSummary(p: Pick<PlanSheetProps, 'selection' | 'placement' |
     .join(' · ');
   if (p.selection?.kind === 'placement' && p.placement) {
     const ev = p.evaluation?.placements.find((e) => e.placementId === p.placement!.id);
-    const range = ev?.numbers ? `Adult recognisable to ${formatLength(ev.numbers.rangeM.adult, p.units)}` : (ev?.problem?.message ?? '');
+    const range = ev?.numbers ? adultRangesText(ev.numbers, (m) => formatLength(m, p.units)) : (ev?.problem?.message ?? '');
     return { title: p.placement.label, numbers: [range, zones].filter(Boolean).join(' · ') };
   }
   if (p.selection?.kind === 'viewer') {

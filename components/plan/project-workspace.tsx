@@ -15,7 +15,7 @@ import { usePlanEvaluation } from '@/hooks/use-plan-evaluation';
 import { ApiError } from '@/shared/api-client';
 import { describeError } from '@/shared/errors';
 import { isSimpleRing } from '@/shared/optics';
-import type { CatalogueItemDto, ProjectDto, SceneWall } from '@/shared/schemas';
+import type { CatalogueItemDto, CriteriaSettings, CriterionKind, ProjectDto, SceneWall } from '@/shared/schemas';
 import { markRedrawEnd } from './perf-marks';
 import { PlanCanvas, type PlanDrag } from './plan-canvas';
 import { PlanDetails } from './plan-details';
@@ -161,6 +161,15 @@ function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: Cat
   const onViewerEyeHeight = (viewerId: string, eyeHeightM: number) =>
     void edits.saveScene({ ...base, viewers: base.viewers.map((v) => (v.id === viewerId ? { ...v, eyeHeightM } : v)) });
 
+  const onZoneCriterion = (zoneId: string, criterion: CriterionKind) =>
+    void edits.saveScene({ ...base, zones: base.zones.map((z) => (z.id === zoneId ? { ...z, criterion } : z)) });
+
+  // Leaving `criteria` out of the scene means the defaults (shared/project-optics/criteria.ts).
+  const onCriteria = (criteria: CriteriaSettings | undefined) => {
+    const rest = { walls: base.walls, zones: base.zones, viewers: base.viewers };
+    void edits.saveScene(criteria ? { ...rest, criteria } : rest);
+  };
+
   const select = (s: PlanSelection) => {
     setSelection(s);
     if (s?.kind === 'placement' && !wide) setSheetOpen(true);
@@ -200,6 +209,8 @@ function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: Cat
       selection={selection}
       onSelect={setSelection}
       onViewerEyeHeight={onViewerEyeHeight}
+      onZoneCriterion={onZoneCriterion}
+      onCriteria={onCriteria}
     />
   );
 

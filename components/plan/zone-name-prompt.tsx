@@ -25,7 +25,7 @@ export function ZoneNamePrompt({ defaultName, error, onSave, onCancel }: { defau
         onSubmitEditing={() => trimmed && onSave(trimmed, target)}
       />
       <Segmented<NewZoneTarget>
-        label="Who must be recognisable here"
+        label="Who must be seen here"
         value={target}
         onChange={setTarget}
         options={[

@@ -303,6 +303,6 @@ export function drawElevation(doc: PDFKit.PDFDocument, el: SheetElevation, box: 
   doc.text(`eye ${fmt.dist(el.eye.heightM)} high`, X(-el.eye.distanceM) + 5, Y(el.eye.heightM) - 10, { lineBreak: false });
   doc.text(`mirror ${fmt.dist(el.mirrorHeightM)} high`, X(0) + 5, Y(el.mirrorHeightM) - 12, { lineBreak: false });
   doc.fillColor(MUTED).text(`${fmt.dist(el.eye.distanceM)} across the floor`, X(-el.eye.distanceM), floorY + 5, { lineBreak: false });
-  doc.fillColor(STOP).text(el.rangeCapped ? `view drawn to ${fmt.dist(el.rangeM)}` : `adult recognisable to ${fmt.dist(el.rangeM)}`, Math.max(rx - 140, X(0) + 4), floorY + 13, { width: 140, align: 'right', lineBreak: false });
+  doc.fillColor(STOP).text(el.rangeCapped ? `view drawn to ${fmt.dist(el.rangeM)}` : `adult recognised to ${fmt.dist(el.rangeM)}`, Math.max(rx - 140, X(0) + 4), floorY + 13, { width: 140, align: 'right', lineBreak: false });
   doc.restore();
 }

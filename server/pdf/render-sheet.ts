@@ -137,35 +137,41 @@ function zonesBlock(flow: Flow, content: SheetContent): void {
   }
   flow.table(
     [
-      { title: 'Zone', width: 0.4 },
-      { title: 'Who must be recognisable', width: 0.26 },
-      { title: 'Share seen', width: 0.16, align: 'right' },
-      { title: 'Area seen', width: 0.18, align: 'right' },
+      { title: 'Zone', width: 0.34 },
+      { title: 'Who must be seen', width: 0.2 },
+      { title: 'Criterion', width: 0.14 },
+      { title: 'Share seen', width: 0.15, align: 'right' },
+      { title: 'Area seen', width: 0.17, align: 'right' },
     ],
-    content.zones.map((z) => [z.name, z.target, z.covered, z.area]),
+    content.zones.map((z) => [z.name, z.target, z.criterion, z.covered, z.area]),
   );
   flow.gap(3);
-  flow.paragraph('Share seen: the part of the zone\u2019s floor that some mirror shows within the distance at which that person is still recognisable, with walls and racking taken into account.', 'regular', 8, MUTED);
+  flow.paragraph(
+    `Share seen: floor some mirror shows, walls included, out to where that person meets the zone\u2019s criterion. Detect: ${content.criteria.detect}; recognise: ${content.criteria.recognise} (${content.criteria.basis}).`,
+    'regular',
+    8,
+    MUTED,
+  );
 }
 
 function summaryBlock(flow: Flow, content: SheetContent): void {
   flow.heading('Mirrors at a glance');
   flow.table(
     [
-      { title: 'Mirror', width: 0.16 },
+      { title: 'Mirror', width: 0.14 },
       { title: 'Product', width: 0.3 },
-      { title: 'Height', width: 0.11, align: 'right' },
-      { title: 'Field of view', width: 0.16, align: 'right' },
-      { title: 'Adult recognisable to', width: 0.14, align: 'right' },
-      { title: 'Child to', width: 0.13, align: 'right' },
+      { title: 'Height', width: 0.09, align: 'right' },
+      { title: 'Floor seen', width: 0.15, align: 'right' },
+      { title: 'Adult detected', width: 0.16, align: 'right' },
+      { title: 'Adult recognised', width: 0.16, align: 'right' },
     ],
     content.placements.map((p) => [
       p.label,
       p.mirror[0][1],
       p.mounting[1][1],
-      p.numbers ? `${p.numbers.fovHorizontal} × ${p.numbers.fovVertical}` : '—',
-      p.numbers?.rangeAdult ?? '—',
-      p.numbers?.rangeChild ?? '—',
+      p.numbers ? `${p.numbers.floorArea}, ${p.numbers.floorSpread}` : '—',
+      p.numbers?.rangeAdultDetect ?? '—',
+      p.numbers?.rangeAdultRecognise ?? '—',
     ]),
   );
 }
@@ -186,7 +192,7 @@ function planPage(flow: Flow, content: SheetContent, paperName: string): void {
     lineBreak: false,
   });
   flow.y += 26;
-  const legend = 'Legend: blue shading — floor seen in a mirror, within the adult recognisable range; red dashed outline — zone that must be seen, with its share seen; thick black line — wall; grey line — racking; blue square with a tick — mirror and its aim; ringed dot — viewer\u2019s eye position.';
+  const legend = 'Legend: blue shading — floor seen in a mirror, within the distance at which a standing adult is still recognised; red dashed outline — zone that must be seen, with its share seen; thick black line — wall; grey line — racking; blue square with a tick — mirror and its aim; ringed dot — viewer\u2019s eye position.';
   flow.paragraph(legend, 'regular', 8, INK);
 }
 
@@ -208,14 +214,26 @@ function placementPage(flow: Flow, content: SheetContent, p: SheetPlacement, ind
     if (p.problem) flow.paragraph(`Coverage could not be computed: ${p.problem}`, 'medium', 9, STOP);
     flow.rows(
       [
-        ['Field of view, across × up-down', `${n.fovHorizontal} × ${n.fovVertical}`],
         ['Viewer\u2019s eye to mirror', n.eyeDistance],
-        ['Recognisable range, standing adult', n.rangeAdult],
-        ['Recognisable range, child-height target', n.rangeChild],
+        ['Viewer\u2019s eye off the mirror\u2019s axis', n.eyeOffAxis],
+        ['Floor area seen by this viewer', n.floorArea],
+        ['Spread of that floor around the mirror', n.floorSpread],
+        ['Nearest to farthest floor seen, from the mirror', n.floorReach],
+        ['Standing adult detected up to', n.rangeAdultDetect],
+        ['Standing adult recognised up to', n.rangeAdultRecognise],
+        ['Child-height target detected up to', n.rangeChildDetect],
+        ['Child-height target recognised up to', n.rangeChildRecognise],
+        ['Field of view on axis (eye on the mirror\u2019s axis), across × up-down', `${n.fovOnAxisHorizontal} × ${n.fovOnAxisVertical}`],
         ['Size at the rim compared with the centre (rim squeeze)', n.rimSqueeze],
-        ['Floor area seen', n.floorArea],
       ],
       0.5,
+    );
+    flow.gap(2);
+    flow.paragraph(
+      `Floor seen: with walls and racking, out to the distance at which a standing adult is still recognised. Detect: ${content.criteria.detect}; recognise: ${content.criteria.recognise}. The on-axis field of view assumes the eye on the mirror\u2019s axis; this viewer\u2019s eye is ${n.eyeOffAxis} off it.`,
+      'regular',
+      8,
+      MUTED,
     );
     flow.gap(6);
     flow.paragraph('How big and how far things look, at three distances from the mirror', 'semibold', 9.5, INK);

@@ -9,7 +9,17 @@
  */
 import { createHash } from 'node:crypto';
 import { fanRays, sphereRadiusM, type MultiPolygon } from '../../shared/optics';
-import { MAX_DRAWN_RANGE_M, evaluateProject, targetLabel, type ProjectEvaluation } from '../../shared/project-optics';
+import {
+  MAX_DRAWN_RANGE_M,
+  criteriaBasisText,
+  criteriaOf,
+  criterionText,
+  drawnRangeM,
+  evaluateProject,
+  targetLabel,
+  zoneCriterion,
+  type ProjectEvaluation,
+} from '../../shared/project-optics';
 import type { CatalogueItemDto, MirrorSpec, PlacementDto, Scene, UnitSystem } from '../../shared/schemas';
 import { formatAngle, formatArea, formatLength, formatMoney, formatNumber, formatPercent, resolveUnits } from '../../shared/units';
 import { SHEET_CAUTIONS } from './cautions';
@@ -35,14 +45,23 @@ export interface SheetReference {
 }
 
 export interface SheetNumbers {
-  fovHorizontal: string;
-  fovVertical: string;
+  /** Field of view for an eye on the mirror's axis: a property of the mirror, always printed as "on axis". */
+  fovOnAxisHorizontal: string;
+  fovOnAxisVertical: string;
   eyeDistance: string;
+  /** How far this viewer's eye is off the mirror's axis. */
+  eyeOffAxis: string;
   references: SheetReference[];
-  rangeAdult: string;
-  rangeChild: string;
+  /** Farthest distance, mirror to person, at which each target is detected / recognised. */
+  rangeAdultDetect: string;
+  rangeAdultRecognise: string;
+  rangeChildDetect: string;
+  rangeChildRecognise: string;
   rimSqueeze: string;
+  /** The floor this viewer sees (walls included, out to the adult recognise range). */
   floorArea: string;
+  floorSpread: string;
+  floorReach: string;
 }
 
 /** Side view, unfolded: the viewer to the left of the mirror, what the mirror shows to the right. Metres. */
@@ -52,7 +71,7 @@ export interface SheetElevation {
   /** Two reflected rays: from the mirror (height) to a point `reachM` away at height `endHeightM`. */
   rays: { fromHeightM: number; reachM: number; endHeightM: number }[];
   rangeM: number;
-  /** True when the recognisable range is longer than the drawing limit and the view is cut there. */
+  /** True when the adult recognise range is longer than the drawing limit and the view is cut there. */
   rangeCapped: boolean;
 }
 
@@ -84,13 +103,15 @@ export interface SheetPurchaseLine {
 }
 
 export interface SheetContent {
-  format: 1;
+  format: 2;
   projectId: number;
   project: { name: string; customer: string; site: string; kind: string; notes: string };
   installer: { name: string; email: string; organization: string };
   units: UnitSystem;
   cautions: readonly string[];
-  zones: { name: string; target: string; covered: string; area: string; problem: string | null }[];
+  /** The project's two criteria as printed ("6′ of the person's height") and the sentence stating their basis. */
+  criteria: { detect: string; recognise: string; basis: string };
+  zones: { name: string; target: string; criterion: string; covered: string; area: string; problem: string | null }[];
   placements: SheetPlacement[];
   plan: SheetPlan;
   purchase: { lines: SheetPurchaseLine[]; totals: { currency: string; total: string }[]; onRequest: number };
@@ -135,7 +156,7 @@ function specOf(p: SheetPlacementInput, catalogue: readonly CatalogueItemDto[]):
 function elevationOf(ev: ProjectEvaluation['placements'][number]): SheetElevation | null {
   if (!ev.mirror || !ev.pose || !ev.eyeM || !ev.numbers) return null;
   const v = ev.pose.vertexM;
-  const rangeM = Math.min(MAX_DRAWN_RANGE_M, ev.numbers.rangeM.adult);
+  const rangeM = drawnRangeM(ev.numbers);
   let rays: ReturnType<typeof fanRays>;
   try {
     rays = fanRays({ mirror: ev.mirror, pose: ev.pose, eyeM: ev.eyeM, maxRangeM: Math.max(rangeM, 0.1), samples: 32 });
@@ -151,7 +172,7 @@ function elevationOf(ev: ProjectEvaluation['placements'][number]): SheetElevatio
     mirrorHeightM: round3(v[2]),
     rays: picked.map((r) => ({ fromHeightM: round3(r.fromM[2]), reachM: round3(reach(r)), endHeightM: round3(r.toM[2]) })),
     rangeM: round3(rangeM),
-    rangeCapped: ev.numbers.rangeM.adult > MAX_DRAWN_RANGE_M,
+    rangeCapped: ev.numbers.rangesM.recognise.adult > MAX_DRAWN_RANGE_M,
   };
 }
 
@@ -168,6 +189,7 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
   const scene = input.project.scene;
   const placements = [...input.placements].sort((a, b) => a.label.localeCompare(b.label, 'en') || a.id - b.id);
   const evaluation = evaluateProject({ scene, placements, catalogue: input.catalogue });
+  const criteria = criteriaOf(scene);
 
   const sheetPlacements: SheetPlacement[] = placements.map((p, i) => {
     const ev = evaluation.placements[i];
@@ -193,9 +215,10 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
     const n = ev.numbers;
     const numbers: SheetNumbers | null = n
       ? {
-          fovHorizontal: f.angle(n.fieldOfView.horizontalRad),
-          fovVertical: f.angle(n.fieldOfView.verticalRad),
+          fovOnAxisHorizontal: f.angle(n.onAxisFieldOfView.horizontalRad),
+          fovOnAxisVertical: f.angle(n.onAxisFieldOfView.verticalRad),
           eyeDistance: f.dist(n.eyeDistanceM),
+          eyeOffAxis: f.angle(n.eyeOffAxisRad),
           references: n.references.map((r) => ({
             objectDistance: f.dist(r.objectDistanceM),
             magnification: f.magnification(r.magnification),
@@ -203,10 +226,14 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
             sizeCueDistance: f.dist(r.sizeCueDistanceM),
             ratio: f.ratio(r.ratio),
           })),
-          rangeAdult: f.dist(n.rangeM.adult),
-          rangeChild: f.dist(n.rangeM.child),
+          rangeAdultDetect: f.dist(n.rangesM.detect.adult),
+          rangeAdultRecognise: f.dist(n.rangesM.recognise.adult),
+          rangeChildDetect: f.dist(n.rangesM.detect.child),
+          rangeChildRecognise: f.dist(n.rangesM.recognise.child),
           rimSqueeze: n.rimSqueeze > 0 ? f.percent(n.rimSqueeze) : 'rim out of sight',
           floorArea: ev.coverage ? f.area(ev.coverage.areaM2) : '—',
+          floorSpread: n.floorSeen ? f.angle(n.floorSeen.spreadRad) : 'no floor seen',
+          floorReach: n.floorSeen ? `${f.dist(n.floorSeen.nearestM)} to ${f.dist(n.floorSeen.farthestM)}` : 'no floor seen',
         }
       : null;
     return { label: p.label, mirror, mounting, numbers, problem: ev.problem?.message ?? null, elevation: elevationOf(ev), notes: p.notes.trim() };
@@ -218,6 +245,7 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
     return {
       name: z.name,
       target: targetLabel(z.target),
+      criterion: zoneCriterion(z),
       covered: ok ? f.percent(ez.fraction) : '—',
       area: ok ? f.area(ez.coveredM2) : '—',
       problem: ok ? null : 'not computable',
@@ -235,12 +263,17 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
   const purchase = purchaseLines(placements, input.catalogue, f.money);
 
   const content: SheetContent = {
-    format: 1,
+    format: 2,
     projectId: input.project.id,
     project: { name: input.project.name, customer: input.project.customer, site: input.project.site, kind: input.project.kind, notes: input.project.notes.trim() },
     installer: { name: input.owner.name, email: input.owner.email, organization: input.organization },
     units,
     cautions: SHEET_CAUTIONS,
+    criteria: {
+      detect: criterionText(criteria, 'detect'),
+      recognise: criterionText(criteria, 'recognise'),
+      basis: criteriaBasisText(criteria),
+    },
     zones,
     placements: sheetPlacements,
     plan,

@@ -6,7 +6,7 @@ import { checkMirror, sphereRadiusM, type Mirror } from './mirror';
  * from the axis) on a sphere of radius R, for an eye on the axis D from the vertex:
  * θ = 2α + atan(a/(D + s)), a = R·sin α, s = R(1 − cos α). The incident ray makes
  * atan(a/(D + s)) with the axis, the normal makes α, so the reflected ray leaves at
- * 2α + atan(…). Source: SOURCES.md "Geometry" (θ = 2·asin(a/R) + atan(a/(D + s))); R → ∞
+ * 2α + atan(…). Source: docs/sources.md, "Geometry of a spherical mirror" (θ = 2·asin(a/R) + atan(a/(D + s))); R → ∞
  * gives the flat mirror's atan(a/D). When the rim is beyond the sphere's silhouette as seen
  * from the eye (cos α < R/(R + D)), the silhouette bounds the field instead: there the ray
  * grazes and θ = π/2 + α_s.

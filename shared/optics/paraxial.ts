@@ -74,7 +74,7 @@ export type PerceivedDistance = {
 /**
  * How far away an object looks in a convex mirror, judged by its size. The image is m times
  * the object's size at D + |dᵢ| from the eye, so it subtends the same angle as the object
- * itself at (D + |dᵢ|)/m. Derivation from the mirror equation (PRODUCT.md, "Physics"); a
+ * itself at (D + |dᵢ|)/m. Derivation from the mirror equation (docs/sources.md, "Perceived distance and the angle through the mirror"); a
  * pure minification model: drivers judge less far than this (UMTRI-97-32).
  */
 export function perceivedDistance(input: { radiusM: number; eyeDistanceM: number; objectDistanceM: number }): PerceivedDistance {
@@ -90,7 +90,7 @@ export function perceivedDistance(input: { radiusM: number; eyeDistanceM: number
 /**
  * Angle (rad) an object of height h subtends at the eye through the mirror, paraxially:
  * θ = h·|f| / (dₒ(D + |f|) + D·|f|). Derivation: hᵢ = h·|f|/(dₒ + |f|) seen at D + |dᵢ|,
- * |dᵢ| = |f|·dₒ/(dₒ + |f|), small-angle θ ≈ hᵢ/(D + |dᵢ|) (PRODUCT.md, "Physics").
+ * |dᵢ| = |f|·dₒ/(dₒ + |f|), small-angle θ ≈ hᵢ/(D + |dᵢ|) (docs/sources.md, "Perceived distance and the angle through the mirror").
  */
 export function paraxialAngle(input: { radiusM: number; eyeDistanceM: number; objectDistanceM: number; targetSizeM: number }): number {
   const F = requirePositive('radiusM', input.radiusM, 'radius of curvature') / 2;
@@ -102,17 +102,18 @@ export function paraxialAngle(input: { radiusM: number; eyeDistanceM: number; ob
 
 /**
  * Farthest object distance (m, mirror to object) at which a target of size h still subtends
- * `minAngleRad` at the eye through the mirror, paraxially. Solving θ = h·F/(dₒ(D + F) + D·F)
- * (F = |f| = R/2) for dₒ gives dₒ = (h·F/θ − D·F)/(D + F). When even an object at the mirror
- * is too small (h·F/θ ≤ D·F) the range is 0.
+ * `minAngleRad` at the eye through the mirror, paraxially: the detect or the recognise range,
+ * depending on which criterion's angle is passed (docs/sources.md, "Detect and recognise").
+ * Solving θ = h·F/(dₒ(D + F) + D·F) (F = |f| = R/2) for dₒ gives dₒ = (h·F/θ − D·F)/(D + F).
+ * When even an object at the mirror is too small (h·F/θ ≤ D·F) the range is 0.
  */
 export function recognisableRange(input: { radiusM: number; eyeDistanceM: number; targetSizeM: number; minAngleRad: number }): { rangeM: number } {
   const F = requirePositive('radiusM', input.radiusM, 'radius of curvature') / 2;
   const D = requirePositive('eyeDistanceM', input.eyeDistanceM, 'eye-to-mirror distance');
   const h = requirePositive('targetSizeM', input.targetSizeM, 'target size');
-  const theta = requirePositive('minAngleRad', input.minAngleRad, 'smallest recognisable angle');
+  const theta = requirePositive('minAngleRad', input.minAngleRad, 'smallest angle the target must subtend');
   if (theta >= Math.PI) {
-    throw new OpticsInputError('minAngleRad', 'The smallest recognisable angle must be less than 180°.');
+    throw new OpticsInputError('minAngleRad', 'The smallest angle the target must subtend must be less than 180°.');
   }
   const rangeM = ((h * F) / theta - D * F) / (D + F);
   return { rangeM: Math.max(0, rangeM) };

@@ -21,25 +21,49 @@ import {
   type Vec3,
   type Wall,
 } from '../optics';
-import type { CatalogueItemDto, MirrorSpec, PlacementDto, Scene, SceneViewer, ZoneTarget } from '../schemas';
-import { DEFAULT_MIN_ANGLE_RAD, targetHeightM } from './targets';
+import type { CatalogueItemDto, CriteriaSettings, MirrorSpec, PlacementDto, Scene, SceneViewer, ZoneTarget } from '../schemas';
+import { criterionAngleRad, type CriterionKind } from './criteria';
+import { eyeOffAxisRad, floorSeenFigures, type FloorSeenFigures } from './figures';
 import { mountProblem } from './mounting';
+import { targetHeightM } from './targets';
 
 /** Reference object distances (m) at which the sheet and editor compare true and apparent distance. */
 export const REFERENCE_DISTANCES_M = [3, 10, 20] as const;
 /** Coverage is never drawn beyond this horizontal distance from the mirror, whatever the range. */
 export const MAX_DRAWN_RANGE_M = 60;
 
+export interface TargetRangesM {
+  adult: number;
+  child: number;
+}
+
 export interface PlacementNumbers {
   focalLengthM: number;
   radiusM: number;
   eyeDistanceM: number;
-  fieldOfView: { horizontalRad: number; verticalRad: number };
+  /**
+   * Field of view for an eye ON the mirror's axis at this eye distance: a property of the mirror,
+   * not what this viewer sees (their eye is `eyeOffAxisRad` off the axis). Always label it "on axis".
+   */
+  onAxisFieldOfView: { horizontalRad: number; verticalRad: number };
+  /** Angle between the mirror's axis and the direction from the mirror to this viewer's eye, radians. */
+  eyeOffAxisRad: number;
   references: { objectDistanceM: number; magnification: number; trueDistanceM: number; sizeCueDistanceM: number; ratio: number }[];
-  /** Recognisable range (m, mirror to person) for each target kind, at the project's smallest angle. */
-  rangeM: { adult: number; child: number };
+  /** The project's two angles these ranges were computed with, radians. */
+  criteria: CriteriaSettings;
+  /** Farthest distance (m, mirror to person) at which each target is detected, and recognised (paraxial). */
+  rangesM: Record<CriterionKind, TargetRangesM>;
   rimSqueeze: number;
+  /**
+   * The floor this viewer sees in the mirror, within the drawn range (the adult recognise range,
+   * capped at MAX_DRAWN_RANGE_M) and with walls: spread around the mirror, nearest and farthest
+   * point. Null when no floor is seen or coverage could not be traced.
+   */
+  floorSeen: FloorSeenFigures | null;
 }
+
+/** Range (m) to which a placement's own region is traced and drawn: the adult recognise range, capped. */
+export const drawnRangeM = (n: Pick<PlacementNumbers, 'rangesM'>): number => Math.min(MAX_DRAWN_RANGE_M, n.rangesM.recognise.adult);
 
 export interface EvaluatedPlacement {
   placementId: number;
@@ -48,7 +72,7 @@ export interface EvaluatedPlacement {
   eyeM: Vec3 | null;
   viewer: SceneViewer | null;
   numbers: PlacementNumbers | null;
-  /** Coverage on the floor, clipped by walls and by the adult recognisable range. */
+  /** Coverage on the floor, clipped by walls and by the adult recognise range (see drawnRangeM). */
   coverage: CoverageResult | null;
   /** Why there are no numbers, as a sentence (no viewer, impossible optics, a wall through the mirror…). */
   problem: { field: string; message: string; snapM?: [number, number] | null } | null;
@@ -86,21 +110,31 @@ export function mirrorOfPlacement(p: Pick<PlacementDto, 'catalogueItemId' | 'cus
 
 export const wallsOfScene = (scene: Scene): Wall[] => scene.walls.map((w) => ({ aM: w.aM, bM: w.bM, heightM: w.heightM }));
 
-function numbersFor(mirror: Mirror, eyeDistanceM: number, minAngleRad: number): PlacementNumbers {
+/** Farthest distance (m, mirror to person) at which target `t` meets criterion `kind` (paraxial). */
+export function criterionRangeM(n: Pick<PlacementNumbers, 'radiusM' | 'eyeDistanceM' | 'criteria'>, t: ZoneTarget, kind: CriterionKind): number {
+  const minAngleRad = criterionAngleRad(n.criteria, kind);
+  return recognisableRange({ radiusM: n.radiusM, eyeDistanceM: n.eyeDistanceM, targetSizeM: targetHeightM(t), minAngleRad }).rangeM;
+}
+
+function numbersFor(mirror: Mirror, pose: Pose, eyeM: Vec3, eyeDistanceM: number, criteria: CriteriaSettings): PlacementNumbers {
   const radiusM = sphereRadiusM(mirror);
-  const range = (t: ZoneTarget) => recognisableRange({ radiusM, eyeDistanceM, targetSizeM: targetHeightM(t), minAngleRad }).rangeM;
+  const base = { radiusM, eyeDistanceM, criteria };
+  const ranges = (kind: CriterionKind): TargetRangesM => ({ adult: criterionRangeM(base, { kind: 'adult' }, kind), child: criterionRangeM(base, { kind: 'child' }, kind) });
   return {
     focalLengthM: focalLength(radiusM),
     radiusM,
     eyeDistanceM,
-    fieldOfView: fieldOfView({ mirror, eyeDistanceM }),
+    onAxisFieldOfView: fieldOfView({ mirror, eyeDistanceM }),
+    eyeOffAxisRad: eyeOffAxisRad(pose, eyeM),
     references: REFERENCE_DISTANCES_M.map((d) => {
       const img = convexImage({ radiusM, objectDistanceM: d });
       const pd = perceivedDistance({ radiusM, eyeDistanceM, objectDistanceM: d });
       return { objectDistanceM: d, magnification: img.magnification, trueDistanceM: pd.trueDistanceM, sizeCueDistanceM: pd.sizeCueDistanceM, ratio: pd.ratio };
     }),
-    rangeM: { adult: range({ kind: 'adult' }), child: range({ kind: 'child' }) },
+    criteria,
+    rangesM: { detect: ranges('detect'), recognise: ranges('recognise') },
     rimSqueeze: rimSqueeze({ mirror, eyeDistanceM }),
+    floorSeen: null,
   };
 }
 
@@ -114,8 +148,8 @@ interface EvaluatePlacementInput {
   scene: Scene;
   catalogue: readonly CatalogueItemDto[];
   walls: Wall[];
-  minAngleRad: number;
-  /** Horizontal clip distance; defaults to the adult recognisable range. */
+  criteria: CriteriaSettings;
+  /** Horizontal clip distance; defaults to the adult recognise range (drawnRangeM). */
   maxRangeM?: number;
 }
 
@@ -135,12 +169,18 @@ export function evaluatePlacement(input: EvaluatePlacementInput): EvaluatedPlace
     out.eyeM = [viewer.positionM[0], viewer.positionM[1], viewer.eyeHeightM];
     const v = out.pose.vertexM;
     const eyeDistanceM = Math.hypot(out.eyeM[0] - v[0], out.eyeM[1] - v[1], out.eyeM[2] - v[2]);
-    out.numbers = numbersFor(out.mirror, eyeDistanceM, input.minAngleRad);
-    const maxRangeM = Math.min(MAX_DRAWN_RANGE_M, input.maxRangeM ?? out.numbers.rangeM.adult);
+    out.numbers = numbersFor(out.mirror, out.pose, out.eyeM, eyeDistanceM, input.criteria);
+    const maxRangeM = Math.min(MAX_DRAWN_RANGE_M, input.maxRangeM ?? drawnRangeM(out.numbers));
     out.coverage = maxRangeM > 0.05 ? coverage({ mirror: out.mirror, pose: out.pose, eyeM: out.eyeM, maxRangeM, walls: input.walls }) : { region: [], areaM2: 0 };
+    out.numbers.floorSeen = floorSeenFigures(out.coverage.region, [v[0], v[1]]);
   } catch (e) {
     out.problem = problemOf(e);
     out.coverage = null;
   }
   return out;
+}
+
+/** "Adult detected to 98 m, recognised to 29 m": both adult ranges in one phrase, for short summaries. */
+export function adultRangesText(n: Pick<PlacementNumbers, 'rangesM'>, dist: (m: number) => string): string {
+  return `Adult detected to ${dist(n.rangesM.detect.adult)}, recognised to ${dist(n.rangesM.recognise.adult)}`;
 }

@@ -1,14 +1,15 @@
 /**
  * The cache-aware evaluation behind evaluateProject: each placement through the engine once per
  * distinct input, and each zone's covered share from the union of the placements' regions,
- * clipped at the recognisable range for that zone's target. The union of all mirrors but the one
- * being moved is kept, so a drag costs one boolean operation a frame instead of thirty.
+ * clipped at the range where that zone's target meets the zone's criterion (detect or
+ * recognise). The union of all mirrors but the one being moved is kept, so a drag costs one
+ * boolean operation a frame instead of thirty.
  */
-import { recognisableRange, zoneCoverage, type MultiPolygon } from '../optics';
+import { zoneCoverage, type MultiPolygon } from '../optics';
 import { robustUnion } from '../geometry/robust-boolean';
-import type { CatalogueItemDto, PlacementDto, Scene, ZoneTarget } from '../schemas';
-import { evaluatePlacement, wallsOfScene, type EvaluatedPlacement, type EvaluatedZone, type ProjectEvaluation } from './evaluate';
-import { DEFAULT_MIN_ANGLE_RAD, targetHeightM } from './targets';
+import type { CatalogueItemDto, CriteriaSettings, PlacementDto, Scene, SceneZone, ZoneTarget } from '../schemas';
+import { criteriaOf, zoneCriterion, type CriterionKind } from './criteria';
+import { criterionRangeM, evaluatePlacement, wallsOfScene, type EvaluatedPlacement, type EvaluatedZone, type ProjectEvaluation } from './evaluate';
 
 export type PlacementInput = Pick<PlacementDto, 'id' | 'catalogueItemId' | 'customMirror' | 'positionM' | 'heightM' | 'azimuthRad' | 'tiltDownRad' | 'viewerId'>;
 
@@ -18,7 +19,7 @@ interface CacheEntry {
   /** The same walls arrive as a new array after every save; compare their content then. */
   wallsJson: string;
   catalogue: readonly CatalogueItemDto[];
-  minAngleRad: number;
+  criteria: CriteriaSettings;
   byKey: Map<string, EvaluatedPlacement>;
 }
 
@@ -27,9 +28,12 @@ function placementKey(p: PlacementInput, scene: Scene, maxRangeM?: number): stri
   return JSON.stringify([p.id, p.catalogueItemId, p.customMirror, p.positionM, p.heightM, p.azimuthRad, p.tiltDownRad, p.viewerId, viewer, maxRangeM ?? null]);
 }
 
-function targetKey(t: ZoneTarget): string {
-  return t.kind === 'custom' ? `custom:${t.heightM}` : t.kind;
+function targetKey(t: ZoneTarget, kind: CriterionKind): string {
+  return `${kind}:${t.kind === 'custom' ? `custom:${t.heightM}` : t.kind}`;
 }
+
+const zoneKey = (z: SceneZone) => targetKey(z.target, zoneCriterion(z));
+const sameCriteria = (a: CriteriaSettings, b: CriteriaSettings) => a.detectRad === b.detectRad && a.recogniseRad === b.recogniseRad;
 
 interface UnionCache {
   parts: MultiPolygon[];
@@ -49,7 +53,8 @@ function unionAll(regions: readonly MultiPolygon[]): MultiPolygon {
 /**
  * Evaluates a project's placements and zones, keeping each placement's result keyed by its inputs
  * so an evaluator reused between calls (the plan, while a mirror is dragged) recomputes only what
- * changed. New walls, catalogue or angle empty the cache. A fresh evaluator is evaluateProject.
+ * changed. New walls, catalogue or criteria angles empty the cache. A fresh evaluator is
+ * evaluateProject.
  */
 export class ProjectEvaluator {
   private cache: CacheEntry | null = null;
@@ -92,19 +97,19 @@ export class ProjectEvaluator {
     }
   }
 
-  evaluate(input: { scene: Scene; placements: readonly PlacementInput[]; catalogue: readonly CatalogueItemDto[]; minAngleRad?: number }): ProjectEvaluation {
-    const minAngleRad = input.minAngleRad ?? DEFAULT_MIN_ANGLE_RAD;
+  evaluate(input: { scene: Scene; placements: readonly PlacementInput[]; catalogue: readonly CatalogueItemDto[] }): ProjectEvaluation {
+    const criteria = criteriaOf(input.scene);
     if (this.cache && this.cache.walls !== input.scene.walls) {
       const json = JSON.stringify(input.scene.walls);
       if (json === this.cache.wallsJson) this.cache.walls = input.scene.walls;
       else this.cache = null;
     }
-    if (!this.cache || this.cache.catalogue !== input.catalogue || this.cache.minAngleRad !== minAngleRad) {
-      this.cache = { walls: input.scene.walls, wallsJson: JSON.stringify(input.scene.walls), catalogue: input.catalogue, minAngleRad, byKey: new Map() };
+    if (!this.cache || this.cache.catalogue !== input.catalogue || !sameCriteria(this.cache.criteria, criteria)) {
+      this.cache = { walls: input.scene.walls, wallsJson: JSON.stringify(input.scene.walls), catalogue: input.catalogue, criteria, byKey: new Map() };
     }
     const cache = this.cache;
     const walls = wallsOfScene(input.scene);
-    const base = { scene: input.scene, catalogue: input.catalogue, walls, minAngleRad };
+    const base = { scene: input.scene, catalogue: input.catalogue, walls, criteria };
     const used = new Map<string, EvaluatedPlacement>();
     const one = (placement: PlacementInput, maxRangeM?: number): EvaluatedPlacement => {
       const key = placementKey(placement, input.scene, maxRangeM);
@@ -116,15 +121,16 @@ export class ProjectEvaluator {
     const placements = input.placements.map((p) => one(p));
     // One region per placement, [] where it has none, so positions stay stable between frames.
     const regionsFor = new Map<string, MultiPolygon[]>();
-    const regionsForTarget = (t: ZoneTarget): MultiPolygon[] => {
-      const key = targetKey(t);
+    const regionsForZone = (z: SceneZone): MultiPolygon[] => {
+      const key = zoneKey(z);
       const hit = regionsFor.get(key);
       if (hit) return hit;
+      const kind = zoneCriterion(z);
       const regions = placements.map((ev, i): MultiPolygon => {
         if (!ev.numbers || !ev.coverage) return [];
-        if (t.kind === 'adult') return ev.coverage.region;
-        const range = recognisableRange({ radiusM: ev.numbers.radiusM, eyeDistanceM: ev.numbers.eyeDistanceM, targetSizeM: targetHeightM(t), minAngleRad }).rangeM;
-        return one(input.placements[i], range).coverage?.region ?? [];
+        // Each placement's own region is traced to the adult recognise range (drawnRangeM).
+        if (z.target.kind === 'adult' && kind === 'recognise') return ev.coverage.region;
+        return one(input.placements[i], criterionRangeM(ev.numbers, z.target, kind)).coverage?.region ?? [];
       });
       regionsFor.set(key, regions);
       return regions;
@@ -132,7 +138,7 @@ export class ProjectEvaluator {
 
     const zones = input.scene.zones.map((z): EvaluatedZone => {
       try {
-        const covered = this.unionFor(targetKey(z.target), regionsForTarget(z.target));
+        const covered = this.unionFor(zoneKey(z), regionsForZone(z));
         // zoneCoverage unions its regions itself; handing it the one union already made is the same set.
         const { fraction, coveredM2 } = zoneCoverage({ zone: [z.polygonM], regions: [covered] });
         return { zoneId: z.id, fraction, coveredM2, covered, problem: null };
@@ -149,14 +155,14 @@ export class ProjectEvaluator {
 
 /**
  * Every placement's numbers and coverage, and each zone's covered fraction. A zone counts the
- * union of all placements' regions, each clipped at the recognisable range for that zone's target.
+ * union of all placements' regions, each clipped at the range where the zone's target meets the
+ * zone's criterion (detect or recognise, at the angles in the scene's `criteria`).
  * Throws when a zone's share cannot be computed (a sheet must never show a blank share).
  */
 export function evaluateProject(input: {
   scene: Scene;
   placements: readonly PlacementInput[];
   catalogue: readonly CatalogueItemDto[];
-  minAngleRad?: number;
 }): ProjectEvaluation {
   const evaluation = new ProjectEvaluator().evaluate(input);
   const failed = evaluation.zones.find((z) => z.problem);

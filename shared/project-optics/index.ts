@@ -2,3 +2,5 @@ export * from './evaluate';
 export * from './evaluator';
 export * from './targets';
 export * from './mounting';
+export * from './criteria';
+export * from './figures';

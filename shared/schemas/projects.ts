@@ -3,6 +3,7 @@ import { multiLine, singleLine, unitSystem } from './common';
 import { checkedMirrorSpec } from './catalog';
 import { isSimpleRing } from '../geometry/polygon';
 import { PLACEMENT_LIMITS } from './limits';
+import { criteriaSettings, criterionKind } from './criteria';
 
 const MAX_SITE_M = 2000;
 const coord = z.number({ message: 'Enter a position.' }).finite('Positions must be numbers.').min(-MAX_SITE_M, 'That point is more than 2 km from the origin.').max(MAX_SITE_M, 'That point is more than 2 km from the origin.');
@@ -24,7 +25,7 @@ export const wall = z
   })
   .refine((w) => Math.hypot(w.bM[0] - w.aM[0], w.bM[1] - w.aM[1]) >= 0.01, { message: 'A wall needs two different ends (at least 10 mm apart).', path: ['bM'] });
 
-/** Who must be recognisable in a zone: a standing adult, a child, or a custom height. */
+/** Who must be seen in a zone: a standing adult, a child, or a custom height. */
 export const targetKinds = ['adult', 'child', 'custom'] as const;
 export const zoneTarget = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('adult') }),
@@ -42,6 +43,8 @@ export const zone = z.object({
     .max(200, 'A zone may have at most 200 corners.')
     .refine((ring) => isSimpleRing(ring), 'The zone outline crosses or touches itself; redraw it as one simple outline.'),
   target: zoneTarget.default({ kind: 'adult' }),
+  /** Detect or recognise; absent in zones saved before criteria existed, which mean recognise. */
+  criterion: criterionKind.optional(),
 });
 
 export const viewer = z.object({
@@ -56,6 +59,8 @@ export const scene = z
     walls: z.array(wall).max(2000, 'At most 2,000 walls per project.').default([]),
     zones: z.array(zone).max(100, 'At most 100 zones per project.').default([]),
     viewers: z.array(viewer).max(100, 'At most 100 viewers per project.').default([]),
+    /** The project's detect and recognise angles; absent means the defaults (shared/project-optics/criteria.ts). */
+    criteria: criteriaSettings.optional(),
   })
   .superRefine((s, ctx) => {
     const seen = new Set<string>();

@@ -47,9 +47,13 @@ describe('PlacementNumbersPanel', () => {
     expect(screen.getByTestId('numbers-focal-length')).toHaveTextContent(size(n.focalLengthM));
     expect(screen.getByTestId('numbers-radius')).toHaveTextContent(size(n.radiusM));
     expect(screen.getByTestId('numbers-eye-distance')).toHaveTextContent(dist(n.eyeDistanceM));
-    expect(screen.getByTestId('numbers-field-of-view')).toHaveTextContent(`${formatAngle(n.fieldOfView.horizontalRad)} × ${formatAngle(n.fieldOfView.verticalRad)}`);
-    expect(screen.getByTestId('numbers-range-adult')).toHaveTextContent(dist(n.rangeM.adult));
-    expect(screen.getByTestId('numbers-range-child')).toHaveTextContent(dist(n.rangeM.child));
+    expect(screen.getByTestId('numbers-field-of-view')).toHaveTextContent(`${formatAngle(n.onAxisFieldOfView.horizontalRad)} × ${formatAngle(n.onAxisFieldOfView.verticalRad)}`);
+    expect(screen.getByTestId('numbers-range-adult-detect')).toHaveTextContent(dist(n.rangesM.detect.adult));
+    expect(screen.getByTestId('numbers-range-adult-recognise')).toHaveTextContent(dist(n.rangesM.recognise.adult));
+    expect(screen.getByTestId('numbers-range-child-detect')).toHaveTextContent(dist(n.rangesM.detect.child));
+    expect(screen.getByTestId('numbers-range-child-recognise')).toHaveTextContent(dist(n.rangesM.recognise.child));
+    expect(screen.getByTestId('numbers-eye-off-axis')).toHaveTextContent(formatAngle(n.eyeOffAxisRad));
+    expect(screen.getByTestId('numbers-floor-spread')).toHaveTextContent(formatAngle(n.floorSeen!.spreadRad));
     expect(screen.getByTestId('numbers-area')).toHaveTextContent(formatArea(evaluation.coverage!.areaM2, units));
     expect(screen.getByTestId('numbers-rim-squeeze')).toHaveTextContent(rimSqueezeText(n.rimSqueeze));
     for (const r of n.references) {
@@ -62,9 +66,18 @@ describe('PlacementNumbersPanel', () => {
     expect(screen.getByTestId('numbers-zone-z1')).toHaveTextContent(`${formatPercent(zone.fraction)} (${formatArea(zone.coveredM2, units)})`);
   });
 
+  it('labels the field of view "on axis" and states the angles behind both ranges', () => {
+    render(<PlacementNumbersPanel evaluation={evaluation} zones={project.zones} scene={scene} units="metric" />);
+    expect(screen.getByText(/Field of view on axis/)).toBeInTheDocument();
+    expect(screen.getByTestId('numbers-criteria-basis')).toHaveTextContent('at least 6′');
+    expect(screen.getByTestId('numbers-criteria-basis')).toHaveTextContent('at least 20′');
+    // The zone's row says which criterion it is scored by (a zone saved without one means recognise).
+    expect(screen.getByText('Crossing, standing adult, recognise')).toBeInTheDocument();
+  });
+
   it('writes imperial lengths in feet and inches, not metres', () => {
     render(<PlacementNumbersPanel evaluation={evaluation} zones={project.zones} scene={scene} units="imperial" />);
-    expect(screen.getByTestId('numbers-range-adult').textContent).toMatch(/ft/);
+    expect(screen.getByTestId('numbers-range-adult-recognise').textContent).toMatch(/ft/);
     expect(screen.getByTestId('numbers-focal-length').textContent).toMatch(/in$/);
     expect(screen.getByTestId('numbers-panel').textContent).not.toMatch(/\d m\b/);
   });

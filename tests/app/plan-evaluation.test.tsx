@@ -1,28 +1,16 @@
 import { ProjectEvaluator as PlanEvaluator, type PlacementInput as PlanPlacement } from '@/shared/project-optics';
 import { evaluateProject } from '@/shared/project-optics';
-import type { CatalogueItemDto, Scene } from '@/shared/schemas';
+import type { Scene } from '@/shared/schemas';
 import { DEMO_PROJECT } from '../../server/seeders/demo-project';
+import { demoCatalogueDtos, demoPlacementDtos } from './fixtures';
 
-const catalogue = [
-  { id: 1, mirror: { shape: 'round', diameterM: 0.8, radiusM: 1.6 } },
-  { id: 2, mirror: { shape: 'round', diameterM: 0.6, radiusM: 1.2 } },
-  { id: 3, mirror: { shape: 'dome', portion: 'half', diameterM: 0.61 } },
-] as unknown as CatalogueItemDto[];
+/** The seeded demo catalogue, which the seeded placements name by code. */
+const catalogue = demoCatalogueDtos();
 
 /** The demo scene with one zone switched to a child target, so the re-clipped path is exercised too. */
 const scene: Scene = { ...DEMO_PROJECT.scene, zones: DEMO_PROJECT.scene.zones.map((z, i) => (i === 1 ? { ...z, target: { kind: 'child' as const } } : z)) };
 
-const placements: PlanPlacement[] = DEMO_PROJECT.placements.map((p, i) => ({
-  id: i + 1,
-  // The demo's dome sits with its flat back on a column; a round panel there would reach into it.
-  catalogueItemId: p.code === 'DEMO-R800' ? 1 : p.code === 'DEMO-DH610' ? 3 : 2,
-  customMirror: null,
-  positionM: p.positionM,
-  heightM: p.heightM,
-  azimuthRad: (p.azimuthDeg * Math.PI) / 180,
-  tiltDownRad: (p.tiltDownDeg * Math.PI) / 180,
-  viewerId: p.viewerId,
-}));
+const placements: PlanPlacement[] = demoPlacementDtos(1);
 
 /** The plan joins regions in a different order than evaluateProject; the areas agree to rounding. */
 function expectSameFractions(a: { zoneId: string; fraction: number }[], b: { zoneId: string; fraction: number }[]) {
@@ -30,13 +18,13 @@ function expectSameFractions(a: { zoneId: string; fraction: number }[], b: { zon
   a.forEach((z, i) => expect(z.fraction).toBeCloseTo(b[i].fraction, 9));
 }
 
+// evaluateProject is a fresh evaluator; comparing a fresh one with it would prove nothing. What can
+// go wrong is the cache: an evaluator that has already seen other positions must answer as a fresh
+// one does. (The zone shares themselves are checked against the exact point test in
+// tests/shared/project-optics/criteria.test.ts.)
 describe('the plan’s cached evaluation', () => {
-  it('gives the same zone fractions and coverage areas as evaluateProject', () => {
-    const cached = new PlanEvaluator().evaluate({ scene, placements, catalogue });
-    const direct = evaluateProject({ scene, placements, catalogue });
-    expectSameFractions(cached.zones, direct.zones);
-    expect(direct.placements.map((p) => p.problem)).toEqual([null, null]);
-    expect(cached.placements.map((p) => p.coverage?.areaM2)).toEqual(direct.placements.map((p) => p.coverage?.areaM2));
+  it('gives both demo mirrors numbers: each hangs on the face it is mounted on', () => {
+    expect(evaluateProject({ scene, placements, catalogue }).placements.map((p) => p.problem)).toEqual([null, null]);
   });
 
   it('still agrees after one mirror moves, reusing the others', () => {

@@ -269,7 +269,9 @@ describe('stale versions and bad bodies', () => {
 });
 
 describe('the demo project', () => {
-  it('leaves a gap worth fixing: the junction is covered, the dock apron only partly', async () => {
+  // At the recognise criterion (20′ of an adult's height) the junction's half dome recognises an
+  // adult only to about 6 m, so the junction is partly covered too (it was "covered" at the old 3′).
+  it('leaves gaps worth fixing: the junction and the dock apron are both only partly covered', async () => {
     const a = await as('installerA');
     const list = await a.get('/api/projects?q=demo');
     const id = list.body.projects.find((p: { name: string }) => p.name === 'Cold store aisles and dock (demo)').id;
@@ -278,7 +280,8 @@ describe('the demo project', () => {
     const ev = evaluateProject({ scene: project.scene, placements: project.placements, catalogue });
     expect(ev.placements.map((p) => p.problem)).toEqual([null, null]);
     const byId = Object.fromEntries(ev.zones.map((z) => [z.zoneId, z.fraction]));
-    expect(byId['z-junction']).toBeGreaterThan(0.95);
+    expect(byId['z-junction']).toBeGreaterThan(0.6);
+    expect(byId['z-junction']).toBeLessThan(0.9);
     expect(byId['z-dock']).toBeGreaterThan(0.5);
     expect(byId['z-dock']).toBeLessThan(0.9);
   });

@@ -9,9 +9,10 @@ import {
   type Mirror,
   type Vec3,
 } from '../../../shared/optics';
+import { parseLength } from '../../../shared/units';
 
-// Human factors (SOURCES.md): 20/20 acuity resolves 1 minute of arc; a Snellen 20/20 letter
-// subtends 5 minutes of arc. Common practice in vision testing (recorded as confirmed in the project's outside-facts list).
+// Human factors (docs/sources.md, "Human factors"): 20/20 acuity resolves 1 minute of arc; a
+// Snellen 20/20 letter subtends 5 minutes of arc. Common practice in vision testing.
 const normalize = (a: Vec3): Vec3 => {
   const n = Math.hypot(a[0], a[1], a[2]);
   return [a[0] / n, a[1] / n, a[2] / n];
@@ -41,18 +42,34 @@ describe('recognisable range with acuity figures from common practice', () => {
 });
 
 describe('US FMVSS No. 111 figures as check values', () => {
-  // S9.4 school-bus mirrors: each test cylinder's image at least 3′ in its shortest dimension,
-  // one larger cylinder at least 9′ in its longest (confirmed, 70 FR 73383). Cylinders 0.3048 m
-  // in diameter and 0.3048 m high, the larger 0.9144 m high (from memory).
-  it('gives the same range for a 0.3048 m cylinder at 3′ and a 0.9144 m one at 9′, since only size/angle matters', () => {
-    const common = { radiusM: 0.4, eyeDistanceM: 2.2 };
-    const small = recognisableRange({ ...common, targetSizeM: 0.3048, minAngleRad: 3 * ARCMIN_RAD }).rangeM;
-    const large = recognisableRange({ ...common, targetSizeM: 0.9144, minAngleRad: 9 * ARCMIN_RAD }).rangeM;
-    expect(small).toBeGreaterThan(0);
-    expect(large).toBeCloseTo(small, 9);
+  // S9.4 school-bus mirrors (docs/sources.md, "US FMVSS No. 111"; published, checked: 70 FR 73383):
+  // each test cylinder's image lies at least 3′ inside the edge of the mirror surface, and the
+  // image of cylinder P is at least 3′ in its shortest dimension and at least 9′ in its longest.
+  // Cylinder P: 0.3048 m in diameter, 0.9144 m high (from memory).
+  const P_DIAMETER_M = 0.3048;
+  it("puts cylinder P's 3′ limit on its diameter where an exact ray trace puts it, on the axis", () => {
+    const mirror: Mirror = { shape: 'round', diameterM: 0.25, radiusM: 0.4 };
+    const pose = poseFromAim({ vertexM: [0, 0, 2], azimuthRad: 0, tiltDownRad: 0 });
+    const D = 2.2;
+    const eyeM: Vec3 = [D, 0, 2];
+    // The diameter, centred on the axis, seen across through the exact reflection points.
+    const exactAngle = (d: number) =>
+      apparentAngle({ mirror, pose, eyeM, pointM: [d, -P_DIAMETER_M / 2, 2], targetSizeM: P_DIAMETER_M, directionM: [0, 1, 0] }) as number;
+    let lo = D + 0.1;
+    let hi = 200;
+    expect(exactAngle(lo)).toBeGreaterThan(3 * ARCMIN_RAD);
+    expect(exactAngle(hi)).toBeLessThan(3 * ARCMIN_RAD);
+    for (let k = 0; k < 60; k++) {
+      const mid = (lo + hi) / 2;
+      if (exactAngle(mid) > 3 * ARCMIN_RAD) lo = mid;
+      else hi = mid;
+    }
+    const traced = lo;
+    const closedForm = recognisableRange({ radiusM: 0.4, eyeDistanceM: D, targetSizeM: P_DIAMETER_M, minAngleRad: 3 * ARCMIN_RAD }).rangeM;
+    expect(Math.abs(closedForm - traced) / traced).toBeLessThan(0.01);
   });
 
-  it('finds where a school-bus test cylinder falls below the 3′ threshold along a reflected sightline', () => {
+  it("finds where cylinder P's diameter falls below S9.4's 3′ along a reflected sightline", () => {
     const mirror: Mirror = { shape: 'round', diameterM: 0.25, radiusM: 0.4 };
     const pose = poseFromAim({ vertexM: [1.2, 1.3, 2.2], azimuthRad: Math.PI + 0.6, tiltDownRad: 0.7 });
     const eyeM: Vec3 = [-0.5, 0.4, 1.3];
@@ -73,10 +90,19 @@ describe('US FMVSS No. 111 figures as check values', () => {
     expect(angles[angles.length - 1]).toBeLessThan(3 * ARCMIN_RAD);
   });
 
-  // S5.4.1 passenger-car convex mirror: average radius of curvature 889–1,651 mm (35–65 in;
-  // inches confirmed by an official interpretation, mm and paragraph number from memory).
-  it.each([0.889, 1.651])('makes objects look farther than they are with R = %s m, hence the S5.4.2 warning (confirmed)', (R) => {
-    expect(R / 0.0254).toBeCloseTo(R === 0.889 ? 35 : 65, 9);
+  // S5.4.1 passenger-car convex mirror: average radius of curvature 35–65 in (docs/sources.md,
+  // "US FMVSS No. 111": the inches published, checked). The inch is 25.4 mm exactly (international
+  // yard and pound agreement, 1959: common practice), so 35 in is 889 mm and 65 in is 1,651 mm.
+  it.each([
+    ['35 in', 0.889],
+    ['65 in', 1.651],
+  ])('reads the rule’s radius %s as %s m when an installer types it', (text, metres) => {
+    const parsed = parseLength(text, 'imperial', 'size');
+    expect(parsed.ok).toBe(true);
+    if (parsed.ok) expect(parsed.m).toBeCloseTo(metres, 12);
+  });
+
+  it.each([0.889, 1.651])('makes objects look farther than they are with R = %s m, hence the S5.4.2 warning (published, checked)', (R) => {
     const p = perceivedDistance({ radiusM: R, eyeDistanceM: 1, objectDistanceM: 10 });
     expect(p.ratio).toBeGreaterThan(1);
   });

@@ -10,7 +10,7 @@ function radiusFrom(objectDistance: number, magnification: number): number {
 describe('convex mirror worked examples from published textbooks', () => {
   // OpenStax, University Physics Vol. 3, §2.2 "Spherical Mirrors", example "Image in a Convex
   // Mirror" (keratometer): dₒ = 12 cm, m = 0.032; printed dᵢ = −0.384 cm, f = −0.40 cm,
-  // |R| = 0.80 cm (rounded). Confirmed (SOURCES.md).
+  // |R| = 0.80 cm (rounded). Published, checked (docs/sources.md, "Mirror optics: worked examples").
   it('reproduces the keratometer example: printed rounding loosely, exact values tightly', () => {
     const R = radiusFrom(0.12, 0.032);
     const img = convexImage({ radiusM: R, objectDistanceM: 0.12 });
@@ -30,7 +30,7 @@ describe('convex mirror worked examples from published textbooks', () => {
   });
 
   // OpenStax, College Physics, §25.7 problems: a shopper 3.00 m from a convex security mirror
-  // sees m = 0.250 → dᵢ = −0.750 m, f = −1.00 m, R = 2.00 m (computed from the givens; SOURCES.md).
+  // sees m = 0.250 → dᵢ = −0.750 m, f = −1.00 m, R = 2.00 m (computed from the givens; docs/sources.md, "Mirror optics: worked examples").
   it('reproduces the shopper and security mirror problem', () => {
     const img = convexImage({ radiusM: 2, objectDistanceM: 3 });
     expect(img.magnification).toBeCloseTo(0.25, 14);
@@ -41,7 +41,7 @@ describe('convex mirror worked examples from published textbooks', () => {
 
   // OpenStax, College Physics, §25.7 problems: cornea as a convex mirror, hₒ = 1.50 cm at
   // dₒ = 3.00 cm, hᵢ = 0.167 cm → m = 0.111, dᵢ = −0.334 cm, f = −0.376 cm, R = 0.752 cm
-  // (key in the book; SOURCES.md).
+  // (key in the book; docs/sources.md, "Mirror optics: worked examples").
   it('reproduces the cornea problem to the printed three figures', () => {
     const m = 0.167 / 1.5;
     const R = radiusFrom(0.03, m);
@@ -55,7 +55,7 @@ describe('convex mirror worked examples from published textbooks', () => {
 
   // NCERT, Physics Class 12, Ray Optics, Exercise 9.2: 4.5 cm object 12 cm from a convex
   // mirror of focal length 15 cm → image 6.7 cm behind, m = 0.56, height 2.5 cm; exact
-  // dᵢ = −20/3 cm, m = 5/9 (SOURCES.md).
+  // dᵢ = −20/3 cm, m = 5/9 (docs/sources.md, "Mirror optics: worked examples").
   it('reproduces NCERT exercise 9.2 exactly and to the printed rounding', () => {
     const img = convexImage({ radiusM: 0.3, objectDistanceM: 0.12, objectHeightM: 0.045 });
     expect(img.imageDistanceM).toBeCloseTo(-0.2 / 3, 14);

@@ -37,7 +37,7 @@ describe('ranking mirror options for a zone', () => {
     { id: 'r800', mirror: { shape: 'round', diameterM: 0.8, radiusM: 1.6 }, cost: 210 },
     { id: 'r800-twin', mirror: { shape: 'round', diameterM: 0.8, radiusM: 1.6 }, cost: 190 },
   ];
-  // Target: a person, 1.7 m, at the Snellen-letter angle of 5′ (common practice, SOURCES.md).
+  // Target: a person, 1.7 m, at the Snellen-letter angle of 5′ (common practice; docs/sources.md, "Human factors").
   const target = { sizeM: 1.7, minAngleRad: 5 * ARCMIN_RAD };
 
   it('returns options best first with exact, consistent numbers', () => {

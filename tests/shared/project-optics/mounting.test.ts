@@ -1,4 +1,4 @@
-import { evaluateProject, mountProblem, mirrorOfSpec } from '../../../shared/project-optics';
+import { evaluateProject, mountProblem, mirrorOfSpec, zoneCriterion } from '../../../shared/project-optics';
 import { visibleInMirror } from '../../../shared/optics';
 import type { CatalogueItemDto, Scene } from '../../../shared/schemas';
 import { DEMO_PROJECT } from '../../../server/seeders/demo-project';
@@ -73,7 +73,10 @@ describe('the demo project', () => {
     const ev = evaluateProject({ scene, placements: demoPlacements, catalogue });
     const walls = scene.walls.map((w) => ({ aM: w.aM, bM: w.bM, heightM: w.heightM }));
     for (const z of ev.zones) {
-      const ring = scene.zones.find((q) => q.id === z.zoneId)!.polygonM;
+      const zone = scene.zones.find((q) => q.id === z.zoneId)!;
+      const ring = zone.polygonM;
+      // Both demo zones ask for a standing adult.
+      expect(zone.target).toEqual({ kind: 'adult' });
       const xs = ring.map((p) => p[0]);
       const ys = ring.map((p) => p[1]);
       const [x0, x1, y0, y1] = [Math.min(...xs), Math.max(...xs), Math.min(...ys), Math.max(...ys)];
@@ -83,7 +86,7 @@ describe('the demo project', () => {
         for (let j = 0; j < N; j++) {
           const pointM: [number, number, number] = [x0 + ((x1 - x0) * (i + 0.5)) / N, y0 + ((y1 - y0) * (j + 0.5)) / N, 0];
           const hit = ev.placements.some(
-            (pl) => pl.mirror && pl.pose && pl.eyeM && pl.numbers && visibleInMirror({ mirror: pl.mirror, pose: pl.pose, eyeM: pl.eyeM, pointM, walls, maxRangeM: pl.numbers.rangeM.adult }).visible,
+            (pl) => pl.mirror && pl.pose && pl.eyeM && pl.numbers && visibleInMirror({ mirror: pl.mirror, pose: pl.pose, eyeM: pl.eyeM, pointM, walls, maxRangeM: pl.numbers.rangesM[zoneCriterion(zone)].adult }).visible,
           );
           if (hit) seen++;
         }
