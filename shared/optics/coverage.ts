@@ -1,7 +1,7 @@
 import { bbox, multiPolygonArea, pointInMultiPolygon, polygonArea, ringLength, segmentsIntersect, windingNumber, type MultiPolygon, type Ring } from '../geometry/polygon';
 import { clipOrientedCurvesToDisc } from '../geometry/clip-disc';
 import { simplifyMultiPolygon, simplifyRing } from '../geometry/simplify';
-import { gridDifference } from '../geometry/grid-difference';
+import { robustDifference } from '../geometry/robust-boolean';
 import type { Vec3 } from '../geometry/vec3';
 import type { Pair } from '../geometry/polygon';
 import { OpticsInputError, requireNonNegative, requirePoint, requirePositive } from './errors';
@@ -199,7 +199,7 @@ export function subtractWalls(p: PreparedCoverage, region: MultiPolygon, walls: 
   const eyeShadows = eyeSideShadows(p.pm, p.eyeM, p.fan, eyeWalls, p.h0, p.farM, p.maxRangeM);
   // Slivers left where a shadow's traced edge runs along the region's own edge enclose no
   // meaningful area (below one square millimetre); drop them.
-  if (eyeShadows.length > 0) region = keepArea(gridDifference(region, eyeShadows));
+  if (eyeShadows.length > 0) region = keepArea(robustDifference(region, ...eyeShadows));
   if (region.length === 0) return region;
 
   // Mirror → floor leg.
@@ -229,7 +229,7 @@ export function subtractWalls(p: PreparedCoverage, region: MultiPolygon, walls: 
       if (cut.length >= 4) shadows.push([simplifyRing(cut, tolM / 5)]);
     }
     if (shadows.length === 0) continue;
-    region = keepArea(gridDifference(region, shadows));
+    region = keepArea(robustDifference(region, ...shadows));
     if (region.length > 0) [minX, minY, maxX, maxY] = bbox(region);
   }
   return region;

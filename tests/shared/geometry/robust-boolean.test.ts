@@ -1,5 +1,8 @@
 import { coverage, poseFromAim, type Mirror, type Wall } from '../../../shared/optics';
-import { robustDifference, snapMultiPolygon } from '../../../shared/geometry/robust-boolean';
+import fs from 'node:fs';
+import path from 'node:path';
+import { GRID_M, robustDifference, robustIntersection, robustUnion } from '../../../shared/geometry/robust-boolean';
+import type { MultiPolygon, Polygon } from '../../../shared/geometry/polygon';
 import { multiPolygonArea } from '../../../shared/geometry/polygon';
 
 // A fixture named after the case it pins: a 40 m × 25 m hall (8 m walls) with three racking
@@ -38,14 +41,37 @@ describe('wall subtraction on nearly degenerate shadows', () => {
     }
   });
 
-  it('snapping moves no vertex by more than half a grid step and keeps the area', () => {
-    const square = [[[[0.1234567, 0.9876543], [5.0000004, 1.0000001], [5, 6], [0, 6]]]] as [number, number][][][];
-    const snapped = snapMultiPolygon(square, 1e-3);
-    snapped[0][0].forEach(([x, y], i) => {
-      expect(Math.abs(x - square[0][0][i][0])).toBeLessThanOrEqual(5e-4 + 1e-12);
-      expect(Math.abs(y - square[0][0][i][1])).toBeLessThanOrEqual(5e-4 + 1e-12);
-    });
-    expect(multiPolygonArea(snapped)).toBeCloseTo(multiPolygonArea(square), 2);
+  it('ends, and quickly, on the hall region and wall shadows that made polygon-clipping loop forever', () => {
+    const f = JSON.parse(fs.readFileSync(path.join(__dirname, 'fixtures', 'polygon-clipping-hang.json'), 'utf8')) as { region: MultiPolygon; shadows: (Polygon | Polygon[0])[] };
+    const shadows: Polygon[] = f.shadows.map((s) => (typeof (s as Polygon[0])[0][0] === 'number' ? [s as Polygon[0]] : (s as Polygon)));
+    const t0 = Date.now();
+    const out = robustDifference(f.region, ...shadows);
+    // Generous for a loaded machine; the sweep takes milliseconds. Without the fix this never returns.
+    expect(Date.now() - t0).toBeLessThan(5000);
+    const area = multiPolygonArea(out);
+    expect(area).toBeGreaterThan(0);
+    expect(area).toBeLessThan(multiPolygonArea(f.region));
+  });
+
+  it('moves no vertex by more than half a grid step on each axis', () => {
+    const square: MultiPolygon = [[[[0.12345678, 0.98765432], [5.00000004, 1.00000001], [5, 6], [0, 6], [0.12345678, 0.98765432]]]];
+    const out = robustUnion(square);
+    expect(out).toHaveLength(1);
+    for (const [x, y] of out[0][0]) {
+      const nearest = square[0][0].reduce((best, p) => Math.min(best, Math.max(Math.abs(p[0] - x), Math.abs(p[1] - y))), Infinity);
+      expect(nearest).toBeLessThanOrEqual(GRID_M / 2 + 1e-12);
+    }
+  });
+
+  it('unions overlapping squares and intersects them, whatever the rings’ orientation', () => {
+    const a: Polygon = [[[0, 0], [4, 0], [4, 4], [0, 4]]];
+    const bCw: Polygon = [[[2, 2], [2, 6], [6, 6], [6, 2]]];
+    // 16 + 16 − 4 and the 2 × 2 overlap: plain arithmetic.
+    expect(multiPolygonArea(robustUnion(a, bCw))).toBeCloseTo(28, 9);
+    expect(multiPolygonArea(robustIntersection(a, bCw))).toBeCloseTo(4, 9);
+    // A square with a square hole, minus a bar across it: 64 − 16 − (8 × 1 − 4 × 1) = 44.
+    const framed: Polygon = [[[0, 0], [8, 0], [8, 8], [0, 8]], [[2, 2], [6, 2], [6, 6], [2, 6]]];
+    expect(multiPolygonArea(robustDifference(framed, [[[0, 3.5], [8, 3.5], [8, 4.5], [0, 4.5]]]))).toBeCloseTo(44, 9);
   });
 
   it('subtracts exactly when the input is well conditioned (10 × 10 minus 5 × 5 leaves 75 m²)', () => {
