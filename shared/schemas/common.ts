@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { emailRule, newPasswordRule, personNameRule, ROLE_MESSAGE, UNITS_MESSAGE } from './rules';
+import { zodText } from './zod-rules';
 
 /** The error body every API route returns: one sentence, plus per-field sentences for forms. */
 export const apiErrorBody = z.object({
@@ -8,33 +10,20 @@ export const apiErrorBody = z.object({
 export type ApiErrorBody = z.infer<typeof apiErrorBody>;
 
 export const roles = ['installer', 'reviewer', 'admin'] as const;
-export const role = z.enum(roles, { message: 'Choose a role: installer, reviewer or admin.' });
+export const role = z.enum(roles, { message: ROLE_MESSAGE });
 export type Role = z.infer<typeof role>;
 
 export const unitSystems = ['metric', 'imperial'] as const;
-export const unitSystem = z.enum(unitSystems, { message: 'Choose metric or imperial units.' });
+export const unitSystem = z.enum(unitSystems, { message: UNITS_MESSAGE });
 export type UnitSystem = z.infer<typeof unitSystem>;
 
 /** An e-mail address, trimmed and lower-cased so look-ups do not depend on how it was typed. */
-export const email = z
-  .string({ message: 'Enter an e-mail address.' })
-  .trim()
-  .min(1, 'Enter an e-mail address.')
-  .max(254, 'That e-mail address is too long (254 characters at most).')
-  .email('Enter a full e-mail address, like name@company.com.')
-  .transform((s) => s.toLowerCase());
+export const email = zodText(emailRule);
 
-export const personName = z
-  .string({ message: 'Enter a name.' })
-  .trim()
-  .min(1, 'Enter a name.')
-  .max(120, 'Keep the name to 120 characters.');
+export const personName = zodText(personNameRule);
 
 /** A new password: long enough to resist guessing, short enough for bcrypt (72 bytes). */
-export const newPassword = z
-  .string({ message: 'Enter a password.' })
-  .min(10, 'Use at least 10 characters.')
-  .max(72, 'Use at most 72 characters.');
+export const newPassword = zodText(newPasswordRule);
 
 export const idParam = z.coerce
   .number({ message: 'That id is not a number.' })

@@ -4,3 +4,4 @@ export * from './catalog';
 export * from './projects';
 export * from './sheets';
 export * from './limits';
+export * from './rules';

@@ -3,12 +3,14 @@ import { unitSystem } from './common';
 import { checkedMirrorSpec } from './catalog';
 import { isSimpleRing } from '../geometry/polygon';
 import { PLACEMENT_LIMITS } from './limits';
+import { labelRule, projectRules } from './rules';
+import { zodText } from './zod-rules';
 
 const MAX_SITE_M = 2000;
 const coord = z.number({ message: 'Enter a position.' }).finite('Positions must be numbers.').min(-MAX_SITE_M, 'That point is more than 2 km from the origin.').max(MAX_SITE_M, 'That point is more than 2 km from the origin.');
 const pair = z.tuple([coord, coord], { message: 'A point needs x and y.' });
 const sceneId = z.string().min(1).max(40).regex(/^[A-Za-z0-9_-]+$/, 'Ids use letters, digits, dash or underscore.');
-const label = (what: string) => z.string({ message: `Give the ${what} a name.` }).trim().min(1, `Give the ${what} a name.`).max(80, `Keep the ${what}'s name to 80 characters.`);
+const label = (what: string) => zodText(labelRule(what));
 
 export const wallKinds = ['wall', 'racking', 'door'] as const;
 export const wall = z
@@ -72,12 +74,12 @@ export const projectKinds = ['site', 'vehicle'] as const;
 export const projectStatuses = ['draft'] as const;
 
 const projectFields = {
-  name: label('project'),
-  customer: z.string().trim().max(160, 'Keep the customer to 160 characters.').default(''),
-  site: z.string().trim().max(200, 'Keep the site to 200 characters.').default(''),
+  name: zodText(projectRules.name),
+  customer: zodText(projectRules.customer).default(''),
+  site: zodText(projectRules.site).default(''),
   kind: z.enum(projectKinds, { message: 'Choose a site or a vehicle.' }).default('site'),
   units: unitSystem.nullable().default(null),
-  notes: z.string().max(5000, 'Keep the notes to 5,000 characters.').default(''),
+  notes: zodText(projectRules.notes).default(''),
   scene: scene.default({ walls: [], zones: [], viewers: [] }),
 };
 
@@ -88,10 +90,10 @@ export const patchProjectBody = z
   .object({
     version: z.number({ message: 'The change must say which version it edits.' }).int(),
     name: projectFields.name.optional(),
-    customer: z.string().trim().max(160, 'Keep the customer to 160 characters.').optional(),
-    site: z.string().trim().max(200, 'Keep the site to 200 characters.').optional(),
+    customer: zodText(projectRules.customer).optional(),
+    site: zodText(projectRules.site).optional(),
     units: unitSystem.nullable().optional(),
-    notes: z.string().max(5000, 'Keep the notes to 5,000 characters.').optional(),
+    notes: zodText(projectRules.notes).optional(),
     scene: scene.optional(),
   })
   .strict();

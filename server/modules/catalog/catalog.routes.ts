@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import { createCatalogueItemBody, idParam, patchCatalogueItemBody } from '../../../shared/schemas';
+import { changedElsewhere } from '../../../shared/errors';
 import type { Orm } from '../../db';
 import { HttpError, notFound } from '../../http-error';
 import { requireRole, requireUser } from '../../middleware/auth';
@@ -41,7 +42,7 @@ export function catalogRoutes(orm: Orm): Router {
     const item = await em.findOne(MirrorModel, { id });
     if (!item) throw notFound('That catalogue item');
     if (body.version !== item.version) {
-      throw new HttpError(409, 'Someone changed this catalogue item since you opened it. Review the current values and make your change again.', undefined, undefined, { current: toCatalogueItemDto(item) });
+      throw new HttpError(409, changedElsewhere('catalogue item'), undefined, undefined, { current: toCatalogueItemDto(item) });
     }
     const { mirror, version: _v, ...rest } = body;
     if (rest.code && rest.code !== item.code && (await em.count(MirrorModel, { code: rest.code }))) throw duplicateCode();

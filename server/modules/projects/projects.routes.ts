@@ -9,6 +9,7 @@ import {
   type Scene,
 } from '../../../shared/schemas';
 import { z } from 'zod';
+import { changedElsewhere } from '../../../shared/errors';
 import type { Orm } from '../../db';
 import { HttpError, notFound } from '../../http-error';
 import { requireRole, requireUser } from '../../middleware/auth';
@@ -49,9 +50,9 @@ async function checkReferences(em: EntityManager, scene: Scene, body: { catalogu
 }
 
 const staleProject = (current: unknown) =>
-  new HttpError(409, 'This project was changed elsewhere since you opened it. Your change was not saved; the current version is loaded so you can make it again.', undefined, undefined, { current });
+  new HttpError(409, changedElsewhere('project'), undefined, undefined, { current });
 const stalePlacement = (current: unknown) =>
-  new HttpError(409, 'This mirror was changed elsewhere since you opened it. Your change was not saved; the current values are loaded so you can make it again.', undefined, undefined, { current });
+  new HttpError(409, changedElsewhere('mirror'), undefined, undefined, { current });
 
 export function projectsRoutes(orm: Orm): Router {
   const r = Router();
