@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { HttpError } from '../http-error';
 import type { Logger } from '../logger';
+import { writeConflict } from '../write-conflicts';
 
 export const apiNotFound: RequestHandler = (req, _res, next) => {
   next(new HttpError(404, `There is no API route ${req.method} ${req.originalUrl.split('?')[0]}.`));
@@ -8,7 +9,9 @@ export const apiNotFound: RequestHandler = (req, _res, next) => {
 
 /** The one error middleware: every failure leaves as `{error, fields?}` with a fitting status. */
 export function errorHandler(log: Logger): ErrorRequestHandler {
-  return (err, req, res, _next) => {
+  return async (err, req, res, _next) => {
+    // A stale version or a duplicate caught by the database becomes the same 409 a route would throw.
+    err = (await writeConflict(err)) ?? err;
     if (err instanceof HttpError) {
       if (err.headers) res.set(err.headers);
       res.status(err.status).json({ error: err.message, ...(err.fields ? { fields: err.fields } : {}), ...(err.extra ?? {}) });

@@ -201,6 +201,25 @@ describe('stale versions and bad bodies', () => {
     expect(stale.body.current).toMatchObject({ heightM: 4, version: 2 });
   });
 
+  it("keeps the project's version when a mirror is added, changed or removed, so the plan's next save is not refused", async () => {
+    const a = await as('installerA');
+    const p = (await a.post('/api/projects').send(newProject('Mirror edits beside plan edits'))).body.project;
+    const pl = (await a.post(`/api/projects/${p.id}/placements`).send(newPlacement(await firstCatalogueId()))).body.placement;
+    await a.patch(`/api/projects/${p.id}/placements/${pl.id}`).send({ version: pl.version, heightM: 3 });
+    await a.delete(`/api/projects/${p.id}/placements/${pl.id}`);
+    const planSave = await a.patch(`/api/projects/${p.id}`).send({ version: p.version, notes: 'Plan edited after the mirror changes' });
+    expect(planSave.status).toBe(200);
+  });
+
+  it('answers 409 for a duplicate catalogue code found only by the database, naming the field', async () => {
+    const admin = await as('admin');
+    const items = (await admin.get('/api/catalog')).body.items;
+    const [first, second] = items;
+    const res = await admin.patch(`/api/catalog/${second.id}`).send({ version: second.version, code: first.code });
+    expect(res.status).toBe(409);
+    expect(res.body.fields.code).toBe('This code is already in use.');
+  });
+
   it.each([
     ['a project without a name', { ...newProject(), name: '' }, 'name', 'Give the project a name.'],
     [

@@ -1,15 +1,16 @@
 import { Router } from 'express';
-import { UniqueConstraintViolationException } from '@mikro-orm/core';
+import { LockMode } from '@mikro-orm/core';
 import { createCatalogueItemBody, idParam, patchCatalogueItemBody } from '../../../shared/schemas';
-import { changedElsewhere } from '../../../shared/errors';
 import type { Orm } from '../../db';
 import { HttpError, notFound } from '../../http-error';
 import { requireRole, requireUser } from '../../middleware/auth';
 import { parseOr400 } from '../../middleware/validate';
 import { assignMirror, toCatalogueItemDto } from './catalog.dto';
 import { MirrorModel } from './mirror-model.entity';
+import { onDuplicate, onStaleVersion } from '../../write-conflicts';
 
-const duplicateCode = () => new HttpError(409, 'Another catalogue item already uses this code.', { code: 'This code is already in use.' });
+onDuplicate('mirror_model.code', () => new HttpError(409, 'Another catalogue item already uses this code.', { code: 'This code is already in use.' }));
+onStaleVersion(MirrorModel, 'catalogue item', async (em, stale) => toCatalogueItemDto(await em.findOneOrFail(MirrorModel, stale.id)));
 
 export function catalogRoutes(orm: Orm): Router {
   const r = Router();
@@ -22,16 +23,10 @@ export function catalogRoutes(orm: Orm): Router {
   r.post('/', requireRole('admin'), async (req, res) => {
     const body = parseOr400(createCatalogueItemBody, req.body, 'The catalogue item');
     const em = orm.em.fork();
-    if (await em.count(MirrorModel, { code: body.code })) throw duplicateCode();
     const { mirror, ...rest } = body;
     const item = em.create(MirrorModel, { ...rest, shape: mirror.shape });
     assignMirror(item, mirror);
-    try {
-      await em.flush();
-    } catch (e) {
-      if (e instanceof UniqueConstraintViolationException) throw duplicateCode();
-      throw e;
-    }
+    await em.flush();
     res.status(201).json({ item: toCatalogueItemDto(item) });
   });
 
@@ -41,14 +36,10 @@ export function catalogRoutes(orm: Orm): Router {
     const em = orm.em.fork();
     const item = await em.findOne(MirrorModel, { id });
     if (!item) throw notFound('That catalogue item');
-    if (body.version !== item.version) {
-      throw new HttpError(409, changedElsewhere('catalogue item'), undefined, undefined, { current: toCatalogueItemDto(item) });
-    }
+    await em.lock(item, LockMode.OPTIMISTIC, body.version);
     const { mirror, version: _v, ...rest } = body;
-    if (rest.code && rest.code !== item.code && (await em.count(MirrorModel, { code: rest.code }))) throw duplicateCode();
     em.assign(item, rest);
     if (mirror) assignMirror(item, mirror);
-    item.version += 1;
     await em.flush();
     res.json({ item: toCatalogueItemDto(item) });
   });

@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { LockMode, raw, type EntityManager as AnyEntityManager } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/sqlite';
 import {
   createPlacementBody,
@@ -9,7 +10,6 @@ import {
   type Scene,
 } from '../../../shared/schemas';
 import { z } from 'zod';
-import { changedElsewhere } from '../../../shared/errors';
 import type { Orm } from '../../db';
 import { HttpError, notFound } from '../../http-error';
 import { requireRole, requireUser } from '../../middleware/auth';
@@ -20,6 +20,14 @@ import { Placement } from './placement.entity';
 import { Project } from './project.entity';
 import { assertCanEdit, canEdit, visibleProjects } from './project-access';
 import { toPlacementDto, toProjectDto, toProjectSummaryDto } from './project.dto';
+import { onStaleVersion } from '../../write-conflicts';
+
+// A stale `version` fails in the ORM (optimistic locking); the error middleware answers 409 with these.
+onStaleVersion(Project, 'project', async (em, stale) => {
+  const project = await em.findOneOrFail(Project, stale.id, { populate: ['owner', 'organization'] });
+  return toProjectDto(project, await placementsOf(em, project), true);
+});
+onStaleVersion(Placement, 'mirror', async (em, stale) => toPlacementDto(await em.findOneOrFail(Placement, stale.id)));
 
 const listQuery = z.object({
   q: z.string().trim().max(100, 'Keep the search to 100 characters.').optional(),
@@ -33,7 +41,7 @@ async function loadVisible(em: EntityManager, user: User, rawId: unknown): Promi
   return project;
 }
 
-async function placementsOf(em: EntityManager, project: Project): Promise<Placement[]> {
+async function placementsOf(em: AnyEntityManager, project: Project): Promise<Placement[]> {
   return em.find(Placement, { project: project.id }, { orderBy: { id: 'asc' } });
 }
 
@@ -49,10 +57,11 @@ async function checkReferences(em: EntityManager, scene: Scene, body: { catalogu
   if (Object.keys(fields).length) throw new HttpError(400, Object.values(fields)[0], fields);
 }
 
-const staleProject = (current: unknown) =>
-  new HttpError(409, changedElsewhere('project'), undefined, undefined, { current });
-const stalePlacement = (current: unknown) =>
-  new HttpError(409, changedElsewhere('mirror'), undefined, undefined, { current });
+/**
+ * Touches the project's `updatedAt` without a new project version: a mirror's change is not a plan
+ * change. Naming `version` (as itself) in the update stops MikroORM adding its `version + 1`.
+ */
+const touch = (em: EntityManager, project: Project) => em.nativeUpdate(Project, { id: project.id }, { updatedAt: new Date(), version: raw<Project, number>('version') });
 
 export function projectsRoutes(orm: Orm): Router {
   const r = Router();
@@ -97,7 +106,7 @@ export function projectsRoutes(orm: Orm): Router {
     const project = await loadVisible(em, req.user!, req.params.id);
     assertCanEdit(req.user!, project);
     const body = parseOr400(patchProjectBody, req.body, 'The change');
-    if (body.version !== project.version) throw staleProject(toProjectDto(project, await placementsOf(em, project), true));
+    await em.lock(project, LockMode.OPTIMISTIC, body.version);
     const { version: _v, ...changes } = body;
     if (changes.scene) {
       // A viewer still served by a mirror cannot vanish from the plan.
@@ -106,7 +115,6 @@ export function projectsRoutes(orm: Orm): Router {
       if (orphan) throw new HttpError(409, `Mirror "${orphan.label}" serves a viewer this change removes; move it to another viewer first.`, { scene: 'A viewer in use was removed.' });
     }
     em.assign(project, changes);
-    project.version += 1;
     await em.flush();
     res.json({ project: toProjectDto(project, await placementsOf(em, project), true) });
   });
@@ -135,8 +143,8 @@ export function projectsRoutes(orm: Orm): Router {
       xM: positionM[0],
       yM: positionM[1],
     });
-    project.updatedAt = new Date();
     await em.flush();
+    await touch(em, project);
     res.status(201).json({ placement: toPlacementDto(placement) });
   });
 
@@ -145,10 +153,10 @@ export function projectsRoutes(orm: Orm): Router {
     const project = await loadVisible(em, req.user!, req.params.id);
     assertCanEdit(req.user!, project);
     const placementId = parseOr400(idParam, req.params.placementId, 'The address');
+    const body = parseOr400(patchPlacementBody, req.body, 'The mirror');
     const placement = await em.findOne(Placement, { id: placementId, project: project.id });
     if (!placement) throw notFound('That mirror');
-    const body = parseOr400(patchPlacementBody, req.body, 'The mirror');
-    if (body.version !== placement.version) throw stalePlacement(toPlacementDto(placement));
+    await em.lock(placement, LockMode.OPTIMISTIC, body.version);
     await checkReferences(em, project.scene, body);
     const { version: _v, positionM, catalogueItemId, ...rest } = body;
     em.assign(placement, rest);
@@ -159,9 +167,8 @@ export function projectsRoutes(orm: Orm): Router {
     if (catalogueItemId !== undefined) placement.catalogueItem = catalogueItemId === null ? null : em.getReference(MirrorModel, catalogueItemId);
     if (body.catalogueItemId != null) placement.customMirror = null;
     if (body.customMirror != null) placement.catalogueItem = null;
-    placement.version += 1;
-    project.updatedAt = new Date();
     await em.flush();
+    await touch(em, project);
     res.json({ placement: toPlacementDto(placement) });
   });
 
@@ -172,6 +179,7 @@ export function projectsRoutes(orm: Orm): Router {
     const placementId = parseOr400(idParam, req.params.placementId, 'The address');
     const deleted = await em.nativeDelete(Placement, { id: placementId, project: project.id });
     if (!deleted) throw notFound('That mirror');
+    await touch(em, project);
     res.status(204).end();
   });
 

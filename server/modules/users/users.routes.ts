@@ -1,5 +1,4 @@
 import { Router } from 'express';
-import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import { idParam, inviteBody, patchUserBody } from '../../../shared/schemas';
 import type { Orm } from '../../db';
 import { HttpError, notFound } from '../../http-error';
@@ -9,6 +8,9 @@ import type { Mailer } from '../mail/mailer';
 import type { OrmSessionStore } from '../sessions/orm-session-store';
 import { createInvitation, invitationEmail } from './invitations';
 import { User } from './user.entity';
+import { onDuplicate } from '../../write-conflicts';
+
+onDuplicate('user.email', () => new HttpError(409, 'Someone already has an account with this e-mail address.', { email: 'This e-mail address already has an account.' }));
 import { toUserDto } from './user.dto';
 
 export function usersRoutes(deps: { orm: Orm; mailer: Mailer; store: OrmSessionStore; publicUrl: (host: string) => string }): Router {
@@ -28,9 +30,6 @@ export function usersRoutes(deps: { orm: Orm; mailer: Mailer; store: OrmSessionS
   r.post('/', async (req, res) => {
     const body = parseOr400(inviteBody, req.body, 'The invitation');
     const em = orm.em.fork();
-    if (await em.count(User, { email: body.email })) {
-      throw new HttpError(409, 'Someone already has an account with this e-mail address.', { email: 'This e-mail address already has an account.' });
-    }
     const user = em.create(User, {
       organization: req.user!.organization.id,
       email: body.email,
@@ -41,14 +40,7 @@ export function usersRoutes(deps: { orm: Orm; mailer: Mailer; store: OrmSessionS
       units: 'metric',
     });
     const { token } = createInvitation(em, user);
-    try {
-      await em.flush();
-    } catch (e) {
-      if (e instanceof UniqueConstraintViolationException) {
-        throw new HttpError(409, 'Someone already has an account with this e-mail address.', { email: 'This e-mail address already has an account.' });
-      }
-      throw e;
-    }
+    await em.flush();
     await em.populate(user, ['organization']);
     const link = `${deps.publicUrl(req.get('host') ?? 'localhost')}/set-password?token=${token}`;
     const mail = invitationEmail({ name: user.name, inviter: req.user!.name, organization: user.organization.name, link });
