@@ -2,6 +2,8 @@ import '@testing-library/jest-dom';
 import { act, fireEvent, screen, waitFor } from '@testing-library/react';
 import { PlacementEditor } from '@/components/placement/placement-editor';
 import { api } from '@/hooks/api';
+import { usePlacementWrites } from '@/hooks/use-placement-writes';
+import { usePlanEvaluation } from '@/hooks/use-plan-evaluation';
 import { projectKeys, useProjectQuery } from '@/hooks/use-projects';
 import { ApiError } from '@/shared/api-client';
 import { evaluateProject } from '@/shared/project-optics';
@@ -58,7 +60,15 @@ const project: ProjectDto = {
 function Harness({ onClose }: { onClose?: () => void }) {
   const q = useProjectQuery(3);
   if (!q.data) return null;
-  return <PlacementEditor project={q.data} placementId={7} catalogue={catalogue} units="imperial" canEdit onClose={onClose} />;
+  return <Fed project={q.data} onClose={onClose} />;
+}
+
+/** Feeds the editor as the plan does: the shared write path and the plan's evaluation of its placements. */
+function Fed({ project: p, onClose }: { project: ProjectDto; onClose?: () => void }) {
+  const writes = usePlacementWrites(p);
+  const evaluation = usePlanEvaluation(p.scene, writes.placements, catalogue);
+  const live = writes.placements.find((x) => x.id === 7) ?? null;
+  return <PlacementEditor project={p} placement={live} writes={writes} evaluation={evaluation} catalogue={catalogue} units="imperial" canEdit onClose={onClose} />;
 }
 
 function renderEditor(onClose?: () => void) {
@@ -110,6 +120,25 @@ describe('PlacementEditor', () => {
     jest.mocked(api.projects.updatePlacement).mockResolvedValue({ placement: { ...placement, heightM: 10 * 0.3048, version: 6 } });
     fireEvent.click(screen.getByTestId('placement-conflict-keep'));
     await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenLastCalledWith(3, 7, { heightM: 10 * 0.3048, version: 5 }));
+  });
+
+  it('keeps a change made after a conflict, says it is not saved, and saves it with the first when the person keeps theirs', async () => {
+    const theirs = { ...placement, heightM: 2.4384, version: 5 };
+    jest.mocked(api.projects.updatePlacement).mockRejectedValue(new ApiError(409, 'Changed elsewhere.', {}, undefined, theirs));
+    renderEditor();
+
+    fireEvent.change(screen.getByTestId('placement-height'), { target: { value: '10 ft' } });
+    fireEvent.click(screen.getByTestId('placement-save'));
+    await screen.findByTestId('placement-conflict');
+    fireEvent.change(screen.getByTestId('placement-tilt'), { target: { value: '20°' } });
+
+    expect(screen.getByTestId('placement-conflict-mine-values')).toHaveTextContent('tilt 20');
+    expect(screen.getByTestId('placement-save-status')).toHaveTextContent('Not saved: changed elsewhere.');
+    expect(api.projects.updatePlacement).toHaveBeenCalledTimes(1);
+
+    jest.mocked(api.projects.updatePlacement).mockResolvedValue({ placement: { ...theirs, heightM: 10 * 0.3048, tiltDownRad: (20 * Math.PI) / 180, version: 6 } });
+    fireEvent.click(screen.getByTestId('placement-conflict-keep'));
+    await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenLastCalledWith(3, 7, { heightM: 10 * 0.3048, tiltDownRad: (20 * Math.PI) / 180, version: 5 }));
   });
 
   it('says why a typed height cannot be read, and does not save it', () => {
