@@ -86,7 +86,7 @@ function PlacementEditorInner({ project, placement: draft, writes, evaluation, c
   };
 
   const form = (
-    <View style={styles.column}>
+    <View style={[styles.column, twoColumns && styles.columnInRow]}>
       <TextField
         name="label"
         label="Label"
@@ -228,7 +228,7 @@ function PlacementEditorInner({ project, placement: draft, writes, evaluation, c
   );
 
   const numbers = (
-    <View style={styles.column}>
+    <View style={[styles.column, twoColumns && styles.columnInRow]}>
       <Card title="Live numbers">
         <PlacementNumbersPanel evaluation={live?.evaluation ?? null} zones={live?.zones ?? []} scene={project.scene} units={units} />
       </Card>
@@ -308,7 +308,10 @@ const styles = StyleSheet.create({
   head: { flexDirection: 'row', alignItems: 'flex-start', gap: spacing.md },
   columns: { flexDirection: 'row', gap: spacing.xl, alignItems: 'flex-start' },
   stack: { gap: spacing.xl },
-  column: { flex: 1, gap: spacing.lg, minWidth: 0 },
+  column: { gap: spacing.lg, minWidth: 0 },
+  // Only side by side may a column grow and shrink: stacked, a zero flex basis let the actions below
+  // be drawn over the cautions.
+  columnInRow: { flex: 1 },
   section: { gap: spacing.sm },
   mirrorSummary: { gap: spacing.xxs, padding: spacing.md, backgroundColor: palette.chalk, borderRadius: 8 },
   pair: { flexDirection: 'row', gap: spacing.md },
