@@ -14,8 +14,9 @@ import type { UnitSystem } from '@/shared/units';
 import { flushFrame } from './flush-frame';
 import { markRecomputeStart } from './perf-marks';
 import { AimHandle, AIM_HANDLE_PX, CoverageLayer, DraftShape, GAP_HATCH_ID, MARKER_RADIUS_PX, PlacementMarker, Sightline, ViewerMarker, WallsLayer, ZoneGap, ZoneLabel, ZoneShapes } from './plan-layers';
+import { pointInPolygon, pointSegmentDistance } from '@/shared/geometry/polygon';
 import { alongAzimuth, azimuthBetween, gridLines, multiPolygonToPath, scaleBar, uncoveredPart } from './plan-geometry';
-import { boundsOf, distanceToSegment, fitView, formatTransform, insideRing, panBy, toPlan, toScreen, zoomAt, type PairM, type PlanView, type Size } from './plan-view';
+import { boundsOf, fitView, formatTransform, panBy, toPlan, toScreen, zoomAt, type PairM, type PlanView, type Size } from './plan-view';
 import type { PlanSelection, PlanTool } from './plan-types';
 import { ZoomControls } from './zoom-controls';
 
@@ -199,12 +200,12 @@ export function PlanCanvas(props: PlanCanvasProps) {
     if (best) return { hit: best.hit };
     let wall: { d: number; id: string } | null = null;
     for (const w of p.scene.walls) {
-      const d = distanceToSegment(pt, toScreen(v, w.aM), toScreen(v, w.bM));
+      const d = pointSegmentDistance(pt, toScreen(v, w.aM), toScreen(v, w.bM));
       if (d <= 10 && (!wall || d < wall.d)) wall = { d, id: w.id };
     }
     if (wall) return { hit: { kind: 'wall', id: wall.id } };
     const planPt = toPlan(v, pt[0], pt[1]);
-    const zone = [...p.scene.zones].reverse().find((z) => insideRing(planPt, z.polygonM));
+    const zone = [...p.scene.zones].reverse().find((z) => pointInPolygon([z.polygonM], planPt));
     return { hit: zone ? { kind: 'zone', id: zone.id } : null };
   };
 
@@ -372,14 +373,16 @@ function PlanDrawing({ scene, placements, evaluation, units, canEdit, selection,
   const bar = scaleBar(view, units);
   const evaluatedById = useMemo(() => new Map((evaluation?.placements ?? []).map((e) => [e.placementId, e])), [evaluation]);
   const zoneFraction = useMemo(() => new Map((evaluation?.zones ?? []).map((z) => [z.zoneId, z.fraction])), [evaluation]);
-  // The gap of each zone: the part no mirror shows for that zone's target.
-  const gaps = useMemo(() => {
+  // The gap of each zone: the part no mirror shows for that zone's target (in metres, kept while panning).
+  const gapsM = useMemo(() => {
     const covered = new Map((evaluation?.zones ?? []).map((z) => [z.zoneId, z]));
     return scene.zones.map((z) => {
       const ev = covered.get(z.id);
-      return { id: z.id, d: ev && !ev.problem ? multiPolygonToPath(view, uncoveredPart(z.polygonM, [ev.covered])) : '' };
+      return { id: z.id, gap: ev && !ev.problem ? uncoveredPart(z.polygonM, [ev.covered], z.name) : null };
     });
-  }, [evaluation, scene.zones, view]);
+  }, [evaluation, scene.zones]);
+  const gaps = useMemo(() => gapsM.map(({ id, gap }) => ({ id, d: gap?.ok ? multiPolygonToPath(view, gap.region) : '' })), [gapsM, view]);
+  const gapProblems = gapsM.flatMap(({ id, gap }) => (gap && !gap.ok ? [{ id, problem: gap.problem }] : []));
 
   const selectedPlacement = selection?.kind === 'placement' ? placements.find((p) => p.id === selection.id) : undefined;
   const selectedViewer = selectedPlacement ? scene.viewers.find((v) => v.id === selectedPlacement.viewerId) : undefined;
@@ -424,6 +427,11 @@ function PlanDrawing({ scene, placements, evaluation, units, canEdit, selection,
         <SvgText testID="plan-scale-label" x={20} y={22} fontFamily={fonts.semibold} fontSize={12} fill={palette.asphalt}>
           {bar.label}
         </SvgText>
+        {gapProblems.map((g, i) => (
+          <SvgText key={g.id} testID={`plan-gap-problem-${g.id}`} x={12} y={62 + i * 16} fontFamily={fonts.semibold} fontSize={12} fill={palette.stop}>
+            {g.problem}
+          </SvgText>
+        ))}
       </G>
     </Svg>
   );

@@ -1,3 +1,5 @@
+import { LENGTH_EPS_M } from '../geometry/tolerance';
+import { clipToSlab } from '../geometry/clip';
 import { robustIntersection } from '../geometry/robust-boolean';
 import type { Pair, Ring } from '../geometry/polygon';
 import { cross, dot, norm, type Vec3 } from '../geometry/vec3';
@@ -85,7 +87,7 @@ export function eyeSideShadows(pm: PlacedMirror, eyeM: Vec3, fan: TracedFan, wal
       [w.bM[0], w.bM[1], w.heightM],
       [w.aM[0], w.aM[1], w.heightM],
     ];
-    const near = clipSlab(quad, (p) => depth(p[0], p[1], p[2]), 1e-6, zmin);
+    const near = clipToSlab(quad, (p) => depth(p[0], p[1], p[2]), LENGTH_EPS_M, zmin);
     if (near.length < 3) continue;
     const img: Ring = near.map((p) => {
       const z = depth(p[0], p[1], p[2]);
@@ -127,26 +129,6 @@ export function eyeSideShadows(pm: PlacedMirror, eyeM: Vec3, fan: TracedFan, wal
     }
   }
   return out;
-}
-
-/** Sutherland–Hodgman clip of a 3-D polygon to lo ≤ f(p) ≤ hi for an affine f. */
-function clipSlab(poly: Vec3[], f: (p: Vec3) => number, lo: number, hi: number): Vec3[] {
-  const half = (pts: Vec3[], g: (p: Vec3) => number): Vec3[] => {
-    const res: Vec3[] = [];
-    for (let i = 0; i < pts.length; i++) {
-      const p = pts[i];
-      const q = pts[(i + 1) % pts.length];
-      const gp = g(p);
-      const gq = g(q);
-      if (gp >= 0) res.push(p);
-      if ((gp >= 0) !== (gq >= 0)) {
-        const t = gp / (gp - gq);
-        res.push([p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1]), p[2] + t * (q[2] - p[2])]);
-      }
-    }
-    return res;
-  };
-  return half(half(poly, (p) => f(p) - lo), (p) => hi - f(p));
 }
 
 /** Traces the eye ray of image-plane point (x, y) to the sphere, reflects it, and meets the plane (parked at farM if not). */

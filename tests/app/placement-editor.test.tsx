@@ -105,15 +105,19 @@ describe('PlacementEditor', () => {
     await waitFor(() => expect(screen.getByTestId('placement-save-status')).toHaveTextContent('All changes saved.'));
   });
 
-  it("keeps the typed value and shows the server's on a 409", async () => {
+  /** Types 10 ft and saves; the server answers 409 with someone else's 8 ft (version 5). */
+  async function heightConflict() {
     const theirs = { ...placement, heightM: 2.4384, version: 5 };
     jest.mocked(api.projects.updatePlacement).mockRejectedValue(new ApiError(409, 'Changed elsewhere.', {}, undefined, theirs));
     renderEditor();
-
     fireEvent.change(screen.getByTestId('placement-height'), { target: { value: '10 ft' } });
     fireEvent.click(screen.getByTestId('placement-save'));
-
     await screen.findByTestId('placement-conflict');
+    return theirs;
+  }
+
+  it("keeps the typed value and shows the server's on a 409", async () => {
+    await heightConflict();
     expect(screen.getByTestId('placement-conflict-theirs-values')).toHaveTextContent(`height ${formatLength(2.4384, 'imperial')}`);
     expect(screen.getByTestId('placement-height')).toHaveValue('10 ft');
 
@@ -122,14 +126,8 @@ describe('PlacementEditor', () => {
     await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenLastCalledWith(3, 7, { heightM: 10 * 0.3048, version: 5 }));
   });
 
-  it('keeps a change made after a conflict, says it is not saved, and saves it with the first when the person keeps theirs', async () => {
-    const theirs = { ...placement, heightM: 2.4384, version: 5 };
-    jest.mocked(api.projects.updatePlacement).mockRejectedValue(new ApiError(409, 'Changed elsewhere.', {}, undefined, theirs));
-    renderEditor();
-
-    fireEvent.change(screen.getByTestId('placement-height'), { target: { value: '10 ft' } });
-    fireEvent.click(screen.getByTestId('placement-save'));
-    await screen.findByTestId('placement-conflict');
+  it('keeps a change made after a conflict, says it is not saved, and saves it with the first when the person keeps their own values', async () => {
+    const theirs = await heightConflict();
     fireEvent.change(screen.getByTestId('placement-tilt'), { target: { value: '20°' } });
 
     expect(screen.getByTestId('placement-conflict-mine-values')).toHaveTextContent('tilt 20');
