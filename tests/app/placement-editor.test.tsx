@@ -10,28 +10,14 @@ import { evaluateProject } from '@/shared/project-optics';
 import type { PlacementDto, ProjectDto } from '@/shared/schemas';
 import { formatLength } from '@/shared/units';
 import { makeTestQueryClient, renderWithQuery } from './render';
-import { TEST_CATALOGUE } from './fixtures';
+import { TEST_CATALOGUE, testPlacement } from './fixtures';
 
 jest.mock('@/hooks/api', () => ({
   api: { projects: { get: jest.fn(), updatePlacement: jest.fn(), removePlacement: jest.fn(), list: jest.fn() } },
 }));
 
 const catalogue = TEST_CATALOGUE;
-const placement: PlacementDto = {
-  id: 7,
-  projectId: 3,
-  label: 'Corner',
-  catalogueItemId: 1,
-  customMirror: null,
-  positionM: [0, 0],
-  heightM: 2.6,
-  azimuthRad: 0,
-  tiltDownRad: 0.3,
-  viewerId: 'v1',
-  notes: '',
-  version: 4,
-  updatedAt: '2025-01-01T00:00:00.000Z',
-};
+const placement: PlacementDto = testPlacement();
 const project: ProjectDto = {
   id: 3,
   name: 'Test aisle',

@@ -6,27 +6,14 @@ import { usePlacementWrites } from '@/hooks/use-placement-writes';
 import { projectKeys, useProjectQuery } from '@/hooks/use-projects';
 import { ApiError } from '@/shared/api-client';
 import type { PlacementDto, ProjectDto } from '@/shared/schemas';
+import { testPlacement } from './fixtures';
 import { makeTestQueryClient } from './render';
 
 jest.mock('@/hooks/api', () => ({
   api: { projects: { get: jest.fn(), updatePlacement: jest.fn(), removePlacement: jest.fn(), addPlacement: jest.fn() } },
 }));
 
-const placement: PlacementDto = {
-  id: 7,
-  projectId: 3,
-  label: 'Corner',
-  catalogueItemId: 1,
-  customMirror: null,
-  positionM: [0, 0],
-  heightM: 2.6,
-  azimuthRad: 0,
-  tiltDownRad: 0.3,
-  viewerId: null,
-  notes: '',
-  version: 4,
-  updatedAt: '2025-01-01T00:00:00.000Z',
-};
+const placement: PlacementDto = testPlacement({ viewerId: null });
 const project = { id: 3, version: 1, scene: { walls: [], zones: [], viewers: [] }, placements: [placement] } as unknown as ProjectDto;
 
 function setup() {
