@@ -43,7 +43,7 @@ export class MirrorModel extends BaseRecord {
       notes: p.text().default(''),
       active: p.boolean().default(true),
       demo: p.boolean().default(false),
-      version: p.integer().version(),
+      version: p.integer().version().default(1),
     }),
   });
 }
