@@ -1,14 +1,16 @@
 /**
- * Edits made on the plan: the live draft while a finger drags, the local change kept visible while
- * it saves (and after a failed save, with a retry), and the saves themselves. Saves go one at a
- * time per target so each carries the version the previous one produced.
+ * Edits made on the plan: the live draft while a finger drags, the scene's saves (walls, zones,
+ * viewers: one project PATCH at a time, each with the version the one before produced), and the
+ * placements' writes through the one placement write path (use-placement-writes.ts), which the
+ * placement editor shares.
  */
 import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useMemo, useRef, useState } from 'react';
 import { ApiError } from '@/shared/api-client';
 import { describeError } from '@/shared/errors';
-import type { CreatePlacementBody, PatchPlacementBody, PlacementDto, ProjectDto, Scene } from '@/shared/schemas';
-import { projectKeys, useAddPlacementMutation, useRemovePlacementMutation, useUpdatePlacementMutation, useUpdateProjectMutation } from './use-projects';
+import type { CreatePlacementBody, PlacementDto, ProjectDto, Scene } from '@/shared/schemas';
+import { usePlacementWrites } from './use-placement-writes';
+import { projectKeys, useUpdateProjectMutation } from './use-projects';
 
 export type PlacementPatch = Partial<Pick<PlacementDto, 'positionM' | 'azimuthRad' | 'heightM' | 'tiltDownRad' | 'viewerId' | 'label'>>;
 
@@ -20,7 +22,8 @@ export interface PlanSaveProblem {
   retry: (() => void) | null;
 }
 
-export const CHANGED_ELSEWHERE = 'This project was changed elsewhere (another tab or device); the plan now shows the saved version. Make your change again if it is still needed.';
+/** Said after the server's conflict sentence when a plan (scene) change was refused. */
+export const PLAN_SHOWS_SAVED = 'The plan now shows the saved version; make your change again if it is still needed.';
 
 const isConflict = (e: unknown) => e instanceof ApiError && e.status === 409;
 
@@ -28,32 +31,22 @@ export function usePlanEdits(project: ProjectDto) {
   const qc = useQueryClient();
   const key = projectKeys.detail(project.id);
   const updateProject = useUpdateProjectMutation(project.id);
-  const addPlacement = useAddPlacementMutation(project.id);
-  const updatePlacement = useUpdatePlacementMutation(project.id);
-  const removePlacement = useRemovePlacementMutation(project.id);
+  const writes = usePlacementWrites(project);
 
   const [live, setLive] = useState<LiveDraft>(null);
-  const [localPlacements, setLocalPlacements] = useState<Record<number, PlacementPatch>>({});
-  // Read synchronously when merging edits; the state copy drives rendering.
-  const localRef = useRef<Record<number, PlacementPatch>>({});
   const [localScene, setLocalScene] = useState<Scene | null>(null);
   const [problem, setProblem] = useState<PlanSaveProblem | null>(null);
   const [pending, setPending] = useState(0);
   const queue = useRef<Promise<unknown>>(Promise.resolve());
 
   const cached = () => qc.getQueryData<ProjectDto>(key);
-  /** One save after another: the next reads the version the previous one returned. */
+  /** One scene save after another: the next reads the version the previous one returned. */
   const enqueue = useCallback(<T,>(run: () => Promise<T>): Promise<T> => {
     setPending((n) => n + 1);
     const next = queue.current.catch(() => undefined).then(run);
     queue.current = next;
     return next.finally(() => setPending((n) => n - 1));
   }, []);
-
-  const onConflict = useCallback(() => {
-    setProblem({ message: CHANGED_ELSEWHERE, retry: null });
-    void qc.invalidateQueries({ queryKey: key });
-  }, [qc, project.id]);
 
   const scene = localScene ?? project.scene;
 
@@ -70,87 +63,50 @@ export function usePlanEdits(project: ProjectDto) {
         } catch (e) {
           if (isConflict(e)) {
             setLocalScene(null);
-            onConflict();
+            setProblem({ message: `${describeError(e)} ${PLAN_SHOWS_SAVED}`, retry: null });
+            void qc.invalidateQueries({ queryKey: key });
           } else setProblem({ message: describeError(e), retry: () => void saveScene(next) });
           return false;
         }
       });
     },
-    [enqueue, onConflict, project.version],
+    [enqueue, project.version],
   );
 
-  const savePlacement = useCallback(
-    (id: number, patch: PlacementPatch) => {
-      const merged: PlacementPatch = { ...localRef.current[id], ...patch };
-      localRef.current = { ...localRef.current, [id]: merged };
-      setLocalPlacements(localRef.current);
-      setProblem(null);
-      return enqueue(async () => {
-        const version = cached()?.placements.find((p) => p.id === id)?.version;
-        if (version === undefined) return false;
-        const body: PatchPlacementBody = { version, ...merged };
-        try {
-          await updatePlacement.mutateAsync({ placementId: id, body });
-          if (localRef.current[id] === merged) {
-            const { [id]: _saved, ...rest } = localRef.current;
-            localRef.current = rest;
-            setLocalPlacements(rest);
-          }
-          return true;
-        } catch (e) {
-          if (isConflict(e)) {
-            const { [id]: _dropped, ...rest } = localRef.current;
-            localRef.current = rest;
-            setLocalPlacements(rest);
-            onConflict();
-          } else setProblem({ message: describeError(e), retry: () => void savePlacement(id, merged) });
-          return false;
-        }
-      });
-    },
-    [enqueue, onConflict],
-  );
+  /** A placement change from the plan (the end of a drag): saved at once through the shared path. */
+  const savePlacement = useCallback((id: number, patch: PlacementPatch) => writes.change(id, patch), [writes.change]);
 
   const createPlacement = useCallback(
-    (body: CreatePlacementBody): Promise<PlacementDto | null> => {
+    async (body: CreatePlacementBody): Promise<PlacementDto | null> => {
       setProblem(null);
-      return enqueue(async () => {
-        try {
-          return (await addPlacement.mutateAsync(body)).placement;
-        } catch (e) {
-          setProblem({ message: describeError(e), retry: () => void createPlacement(body) });
-          return null;
-        }
-      });
+      try {
+        return await writes.create(body);
+      } catch (e) {
+        setProblem({ message: describeError(e), retry: () => void createPlacement(body) });
+        return null;
+      }
     },
-    [enqueue],
+    [writes.create],
   );
 
   const deletePlacement = useCallback(
-    (id: number): Promise<boolean> => {
+    async (id: number): Promise<boolean> => {
       setProblem(null);
-      return enqueue(async () => {
-        try {
-          await removePlacement.mutateAsync(id);
-          return true;
-        } catch (e) {
-          setProblem({ message: describeError(e), retry: () => void deletePlacement(id) });
-          return false;
-        }
-      });
+      try {
+        await writes.remove(id);
+        return true;
+      } catch (e) {
+        setProblem({ message: describeError(e), retry: () => void deletePlacement(id) });
+        return false;
+      }
     },
-    [enqueue],
+    [writes.remove],
   );
 
-  /** Server placements with the saved-locally changes and the live drag on top. */
+  /** Placements with the unsaved edits (shared with the editor) and the live drag on top. */
   const placements = useMemo(
-    () =>
-      project.placements.map((p) => {
-        const local = localPlacements[p.id];
-        const drag = live?.kind === 'placement' && live.id === p.id ? live.patch : undefined;
-        return local || drag ? { ...p, ...local, ...drag } : p;
-      }),
-    [project.placements, localPlacements, live],
+    () => writes.placements.map((p) => (live?.kind === 'placement' && live.id === p.id ? { ...p, ...live.patch } : p)),
+    [writes.placements, live],
   );
 
   const liveScene = useMemo(() => {
@@ -169,9 +125,11 @@ export function usePlanEdits(project: ProjectDto) {
     savePlacement,
     createPlacement,
     deletePlacement,
+    /** The placement write path, for the editor (unsaved edits, conflicts, autosave). */
+    writes,
     problem,
     dismissProblem: () => setProblem(null),
-    saving: pending > 0,
-    unsaved: localScene !== null || Object.keys(localPlacements).length > 0,
+    saving: pending > 0 || writes.saving,
+    unsaved: localScene !== null || Object.keys(writes.unsaved).length > 0,
   };
 }

@@ -1,6 +1,6 @@
 /** Projects and their placements. Edits carry the version; a 409 brings back the current record. */
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { CreatePlacementBody, CreateProjectBody, PatchPlacementBody, PatchProjectBody, PlacementDto, ProjectDto } from '@/shared/schemas';
+import type { CreatePlacementBody, CreateProjectBody, PatchProjectBody, PlacementDto, ProjectDto } from '@/shared/schemas';
 import { ApiError } from '@/shared/api-client';
 import { api } from './api';
 
@@ -72,9 +72,21 @@ function replacePlacement(project: ProjectDto | undefined, placement: PlacementD
   return { ...project, placements: exists ? project.placements.map((p) => (p.id === placement.id ? placement : p)) : [...project.placements, placement] };
 }
 
+/**
+ * Every write to a project's placements shares one mutation scope, so TanStack Query runs them one
+ * after another in the order they were made; each update reads the version when it runs, which is
+ * the version the write before it produced.
+ */
+export const placementScope = (projectId: number) => ({ id: `project-${projectId}-placements` });
+
+/** The fields of a placement a person edits; a save sends only those that changed. */
+export type EditableFields = Pick<PlacementDto, 'label' | 'catalogueItemId' | 'customMirror' | 'positionM' | 'heightM' | 'azimuthRad' | 'tiltDownRad' | 'viewerId' | 'notes'>;
+export type PlacementEdits = Partial<EditableFields>;
+
 export function useAddPlacementMutation(projectId: number) {
   const qc = useQueryClient();
   return useMutation({
+    scope: placementScope(projectId),
     mutationFn: (body: CreatePlacementBody) => api.projects.addPlacement(projectId, body),
     onSuccess: ({ placement }) => {
       qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) => replacePlacement(old, placement));
@@ -86,7 +98,12 @@ export function useAddPlacementMutation(projectId: number) {
 export function useUpdatePlacementMutation(projectId: number) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ placementId, body }: { placementId: number; body: PatchPlacementBody }) => api.projects.updatePlacement(projectId, placementId, body),
+    scope: placementScope(projectId),
+    mutationFn: ({ placementId, edits }: { placementId: number; edits: PlacementEdits }) => {
+      const version = qc.getQueryData<ProjectDto>(projectKeys.detail(projectId))?.placements.find((p) => p.id === placementId)?.version;
+      if (version === undefined) throw new Error('This mirror is no longer in the project; it may have been removed.');
+      return api.projects.updatePlacement(projectId, placementId, { ...edits, version });
+    },
     onSuccess: ({ placement }) => qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) => replacePlacement(old, placement)),
     onError: (err) => {
       if (err instanceof ApiError && err.status === 409 && err.current) {
@@ -99,6 +116,7 @@ export function useUpdatePlacementMutation(projectId: number) {
 export function useRemovePlacementMutation(projectId: number) {
   const qc = useQueryClient();
   return useMutation({
+    scope: placementScope(projectId),
     mutationFn: (placementId: number) => api.projects.removePlacement(projectId, placementId),
     onSuccess: (_v, placementId) => {
       qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) => (old ? { ...old, placements: old.placements.filter((p) => p.id !== placementId) } : old));

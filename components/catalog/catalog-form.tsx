@@ -4,6 +4,7 @@ import * as yup from 'yup';
 import { FormFooter } from '@/components/forms/form-footer';
 import { FormFrame } from '@/components/forms/form-frame';
 import { FormikTextField } from '@/components/forms/formik-text-field';
+import { numberOfText, yupNumber, yupNumberText, yupText } from '@/components/forms/yup-rules';
 import { fieldMessage, serverErrorsFor, type FormStatus } from '@/components/forms/server-errors';
 import { SHAPE_LABELS, SHAPE_ORDER } from '@/components/placement/mirror-text';
 import { NumberField } from '@/components/ui/number-field';
@@ -12,6 +13,7 @@ import { AppText } from '@/components/ui/text';
 import { spacing } from '@/constants/theme';
 import { ApiError } from '@/shared/api-client';
 import type { CatalogueItemDto, CreateCatalogueItemBody, MirrorSpec } from '@/shared/schemas';
+import { catalogueRules, DOME_PORTION_MESSAGE, MIRROR_SHAPE_MESSAGE, MIRROR_SIZES, mirrorSizeProblem, numberProblem, sizeRule, type SizeLimit } from '@/shared/schemas/rules';
 import { formatLength, minorToText, parseMoney, type UnitSystem } from '@/shared/units';
 
 type Shape = MirrorSpec['shape'];
@@ -60,55 +62,52 @@ export function valuesOf(item: CatalogueItemDto | null): CatalogFormValues {
   };
 }
 
-/** Size limits match shared/schemas/catalog.ts; messages are in the person's units. */
-function sizeRule(what: string, min: number, max: number, units: UnitSystem) {
-  const f = (m: number) => formatLength(m, units, { kind: 'size' });
-  return yup
-    .number()
-    .nullable()
-    .required(`Enter the ${what}.`)
-    .min(min, `The ${what} must be at least ${f(min)}.`)
-    .max(max, `The ${what} must be at most ${f(max)}.`);
-}
-
+/** Every limit and message comes from shared/schemas/rules.ts (the route's too); sizes are said in the person's units. */
 export function catalogSchema(units: UnitSystem) {
   const opt = yup.number().nullable();
+  const size = (limit: SizeLimit) => yupNumber(sizeRule(limit, units));
   return yup.object({
-    code: yup.string().trim().required('Enter a catalogue code.').max(40, 'Keep the code to 40 characters.').matches(/^[A-Za-z0-9._-]+$/, 'Use letters, digits, dot, dash or underscore in the code.'),
-    name: yup.string().trim().required('Enter a name.').max(160, 'Keep the name to 160 characters.'),
-    shape: yup.string().oneOf(SHAPE_ORDER).required(),
-    portion: yup.string().oneOf(['full', 'half', 'quarter']).required(),
-    diameterM: opt.when('shape', { is: 'rect', then: () => opt, otherwise: () => sizeRule('diameter', 0.05, 3, units) }),
-    widthM: opt.when('shape', { is: 'rect', then: () => sizeRule('width', 0.05, 3, units), otherwise: () => opt }),
-    heightM: opt.when('shape', { is: 'rect', then: () => sizeRule('height', 0.05, 3, units), otherwise: () => opt }),
-    radiusM: opt
-      .when('shape', { is: 'dome', then: () => opt, otherwise: () => sizeRule('radius of curvature', 0.05, 50, units) })
-      .test('cap-fits', 'The radius of curvature must be more than half the mirror’s width across (no smaller sphere has a cap that wide).', function check(r) {
-        const v = this.parent as CatalogFormValues;
-        if (v.shape === 'dome' || r == null) return true;
-        const across = v.shape === 'rect' ? Math.hypot(v.widthM ?? 0, v.heightM ?? 0) : (v.diameterM ?? 0);
-        return across < 2 * r;
-      }),
-    material: yup.string().max(80, 'Keep the material to 80 characters.'),
-    reflectancePct: yup.string().test('pct', 'Enter the reflectance as a percentage from 4 to 100.', (s) => !s || (/^\d+([.,]\d+)?$/.test(s.trim()) && Number(s.replace(',', '.')) >= 4 && Number(s.replace(',', '.')) <= 100)),
-    massKg: yup.string().test('kg', 'Enter the mass in kilograms, more than 0 and at most 200.', (s) => !s || (/^\d+([.,]\d+)?$/.test(s.trim()) && Number(s.replace(',', '.')) > 0 && Number(s.replace(',', '.')) <= 200)),
-    currency: yup.string().trim().required('Enter a currency code.').matches(/^[A-Za-z]{3}$/, 'Use a three-letter currency code, like EUR or USD.'),
+    code: yupText(catalogueRules.code),
+    name: yupText(catalogueRules.name),
+    shape: yup.string().oneOf(SHAPE_ORDER, MIRROR_SHAPE_MESSAGE).required(MIRROR_SHAPE_MESSAGE),
+    portion: yup.string().oneOf(['full', 'half', 'quarter'], DOME_PORTION_MESSAGE).required(DOME_PORTION_MESSAGE),
+    diameterM: opt.when('shape', ([shape]: Shape[]) => (shape === 'rect' ? opt : size(shape === 'dome' ? MIRROR_SIZES.domeDiameter : MIRROR_SIZES.diameter))),
+    widthM: opt.when('shape', { is: 'rect', then: () => size(MIRROR_SIZES.width), otherwise: () => opt }),
+    heightM: opt.when('shape', { is: 'rect', then: () => size(MIRROR_SIZES.height), otherwise: () => opt }),
+    // A `when` branch replaces the whole field schema, so the cap check lives inside the branch.
+    radiusM: opt.when('shape', ([shape]: Shape[]) =>
+      shape === 'dome'
+        ? opt
+        : size(MIRROR_SIZES.radius).test('cap-fits', function check(r) {
+            const { widthM: w, heightM: h, diameterM: d } = this.parent as CatalogFormValues;
+            if (r == null) return true;
+            const problem = shape === 'rect' ? w != null && h != null && mirrorSizeProblem({ shape, widthM: w, heightM: h, radiusM: r }) : d != null && mirrorSizeProblem({ shape: 'round', diameterM: d, radiusM: r });
+            return problem ? this.createError({ message: problem.message }) : true;
+          }),
+    ),
+    material: yupText(catalogueRules.material),
+    reflectancePct: yupNumberText(catalogueRules.reflectance, 100),
+    massKg: yupNumberText(catalogueRules.massKg),
+    currency: yupText(catalogueRules.currency),
     price: yup.string().test('price', function check(s) {
-      const r = parseMoney(s ?? '', (this.parent as CatalogFormValues).currency.toUpperCase());
-      return r.ok || this.createError({ message: r.message });
+      // Formik hands yup an empty field as undefined.
+      const r = parseMoney(s ?? '', ((this.parent as Partial<CatalogFormValues>).currency ?? '').trim().toUpperCase());
+      // Reading the text is the form's own job (the request carries a number); the number's limits are the route's.
+      const problem = r.ok ? numberProblem(catalogueRules.unitPriceMinor, r.minor) : r.message;
+      return problem ? this.createError({ message: problem }) : true;
     }),
-    notes: yup.string().max(2000, 'Keep the notes to 2,000 characters.'),
+    notes: yupText(catalogueRules.notes),
     active: yup.boolean(),
   });
 }
 
+/** An empty size is sent as NaN, which the route refuses with the same "Enter the …" sentence. */
 export function mirrorOfValues(v: CatalogFormValues): MirrorSpec {
-  if (v.shape === 'rect') return { shape: 'rect', widthM: v.widthM ?? 0, heightM: v.heightM ?? 0, radiusM: v.radiusM ?? 0 };
-  if (v.shape === 'dome') return { shape: 'dome', portion: v.portion, diameterM: v.diameterM ?? 0 };
-  return { shape: 'round', diameterM: v.diameterM ?? 0, radiusM: v.radiusM ?? 0 };
+  const m = (x: number | null) => x ?? Number.NaN;
+  if (v.shape === 'rect') return { shape: 'rect', widthM: m(v.widthM), heightM: m(v.heightM), radiusM: m(v.radiusM) };
+  if (v.shape === 'dome') return { shape: 'dome', portion: v.portion, diameterM: m(v.diameterM) };
+  return { shape: 'round', diameterM: m(v.diameterM), radiusM: m(v.radiusM) };
 }
-
-const num = (s: string) => Number(s.trim().replace(',', '.'));
 
 export function bodyOf(v: CatalogFormValues): CreateCatalogueItemBody {
   const currency = v.currency.trim().toUpperCase();
@@ -118,9 +117,9 @@ export function bodyOf(v: CatalogFormValues): CreateCatalogueItemBody {
     name: v.name.trim(),
     mirror: mirrorOfValues(v),
     material: v.material.trim(),
-    reflectance: v.reflectancePct.trim() ? num(v.reflectancePct) / 100 : null,
-    massKg: v.massKg.trim() ? num(v.massKg) : null,
-    unitPriceMinor: price.ok ? price.minor : 0,
+    reflectance: numberOfText(v.reflectancePct, 100),
+    massKg: numberOfText(v.massKg),
+    unitPriceMinor: price.ok ? price.minor : Number.NaN,
     currency,
     notes: v.notes,
     active: v.active,
@@ -128,7 +127,7 @@ export function bodyOf(v: CatalogFormValues): CreateCatalogueItemBody {
 }
 
 /** The server names nested fields ("mirror.radiusM", "unitPriceMinor"); the form names them flat. */
-const SERVER_TO_FORM: Record<string, keyof CatalogFormValues> = {
+export const SERVER_TO_FORM: Record<string, keyof CatalogFormValues> = {
   'mirror.diameterM': 'diameterM',
   'mirror.widthM': 'widthM',
   'mirror.heightM': 'heightM',
@@ -161,7 +160,7 @@ export function CatalogForm({ item, units, submitLabel, onSubmit }: CatalogFormP
       if (error instanceof ApiError && error.status === 409 && error.current) {
         // Someone saved first: show their values (reload) and say so; the person makes the change again.
         helpers.resetForm({ values: valuesOf(error.current as CatalogueItemDto) });
-        helpers.setStatus({ formError: error.message } satisfies FormStatus);
+        helpers.setStatus({ formError: `${error.message} The form now shows the saved values; make your change again.` } satisfies FormStatus);
         return;
       }
       const { fieldErrors, status } = serverErrorsFor<CatalogFormValues>(remapServerFields(error), [...FORM_FIELDS], values);

@@ -6,10 +6,12 @@ import { Notice, Segmented, AppText } from '@/components/ui';
 import { roleOptions, shortRoleLabels } from '@/constants/navigation';
 import { spacing } from '@/constants/theme';
 import type { Role } from '@/shared/schemas';
+import { emailRule, personNameRule, ROLE_MESSAGE } from '@/shared/schemas/rules';
 import { FormFooter } from './form-footer';
 import { FormFrame } from './form-frame';
 import { FormikTextField } from './formik-text-field';
 import { fieldMessage, submitWithServerErrors, type FormStatus } from './server-errors';
+import { yupText } from './yup-rules';
 
 export interface InviteValues {
   email: string;
@@ -19,10 +21,15 @@ export interface InviteValues {
 }
 
 export const inviteSchema = yup.object({
-  email: yup.string().trim().required('Enter their e-mail address.').email('Enter a full e-mail address, like name@company.com.'),
-  name: yup.string().trim().required('Enter their name.').max(120, 'Keep the name to 120 characters.'),
-  role: yup.string().oneOf(roleOptions, 'Choose a role.').required('Choose a role.'),
+  email: yupText(emailRule),
+  name: yupText(personNameRule),
+  role: yup.string().oneOf(roleOptions, ROLE_MESSAGE).required(ROLE_MESSAGE),
 });
+
+/** What the form sends (the route trims and lower-cases again). */
+export function inviteBodyOf<R extends Role | ''>(values: InviteValues, role: R) {
+  return { email: values.email.trim(), name: values.name.trim(), role };
+}
 
 export interface InviteFormProps {
   onSubmit: (values: { email: string; name: string; role: Role }) => Promise<unknown>;
@@ -40,7 +47,7 @@ export function InviteForm({ onSubmit, sentNote }: InviteFormProps) {
       validationSchema={inviteSchema}
       onSubmit={async (values, helpers) => {
         if (values.role === '') return; // the schema has already refused this
-        const body = { email: values.email.trim(), name: values.name.trim(), role: values.role };
+        const body = inviteBodyOf(values, values.role);
         if (await submitWithServerErrors(helpers, ['email', 'name', 'role'], values, () => onSubmit(body))) {
           helpers.resetForm();
           helpers.setStatus({ done: `Invitation for ${body.name} <${body.email}> is queued and goes out at once when the mail server answers.${sentNote ? ` ${sentNote}` : ''}` } satisfies FormStatus);

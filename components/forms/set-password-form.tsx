@@ -7,19 +7,18 @@ import { FormFooter } from './form-footer';
 import { FormFrame } from './form-frame';
 import { FormikTextField } from './formik-text-field';
 import { submitWithServerErrors } from './server-errors';
+import { yupText } from './yup-rules';
+import { newPasswordRule, passwordAgainRule, PASSWORDS_DIFFER } from '@/shared/schemas/rules';
 
 export interface SetPasswordValues {
   password: string;
   confirm: string;
 }
 
-/** Mirrors the server's `newPassword` rule (10–72 characters: bcrypt reads at most 72 bytes). */
+/** The server's rules (shared/schemas/rules.ts): 10–72 characters, since bcrypt reads at most 72 bytes. */
 export const setPasswordSchema = yup.object({
-  password: yup.string().required('Choose a password.').min(10, 'Use at least 10 characters.').max(72, 'Use at most 72 characters.'),
-  confirm: yup
-    .string()
-    .required('Type the password again.')
-    .oneOf([yup.ref('password')], 'The two passwords are not the same.'),
+  password: yupText(newPasswordRule),
+  confirm: yupText(passwordAgainRule).oneOf([yup.ref('password')], PASSWORDS_DIFFER),
 });
 
 export interface SetPasswordFormProps {

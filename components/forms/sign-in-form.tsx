@@ -6,6 +6,8 @@ import { FormFooter } from './form-footer';
 import { FormFrame } from './form-frame';
 import { FormikTextField } from './formik-text-field';
 import { submitWithServerErrors } from './server-errors';
+import { yupText } from './yup-rules';
+import { currentPasswordRule, emailRule } from '@/shared/schemas/rules';
 
 export interface SignInValues {
   email: string;
@@ -13,8 +15,8 @@ export interface SignInValues {
 }
 
 export const signInSchema = yup.object({
-  email: yup.string().trim().required('Enter your e-mail address.').email('Enter a full e-mail address, like name@company.com.'),
-  password: yup.string().required('Enter your password.'),
+  email: yupText(emailRule),
+  password: yupText(currentPasswordRule),
 });
 
 export interface SignInFormProps {

@@ -1,4 +1,5 @@
-export { PlacementEditor, evaluateDraft, type PlacementEditorProps } from './placement-editor';
+export { PlacementEditor, type PlacementEditorProps } from './placement-editor';
+export { PlacementConflictNotice, valuesText } from './placement-conflict';
 export { PlacementNumbersPanel, rimSqueezeText, type PlacementNumbersPanelProps } from './numbers-panel';
 export { ElevationView } from './elevation-view';
 export { MirrorPicker } from './mirror-picker';

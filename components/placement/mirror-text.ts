@@ -2,9 +2,9 @@
 import type { CatalogueItemDto, MirrorSpec } from '@/shared/schemas';
 import { formatLength, formatMoney, type UnitSystem } from '@/shared/units';
 
-export const SHAPE_LABELS: Record<MirrorSpec['shape'], string> = { round: 'Round', rect: 'Rectangular', dome: 'Dome' };
-export const PORTION_LABELS = { full: 'Full dome', half: 'Half dome', quarter: 'Quarter dome' } as const;
-export const SHAPE_ORDER: readonly MirrorSpec['shape'][] = ['round', 'rect', 'dome'];
+import { PORTION_LABELS, SHAPE_ORDER } from '@/shared/mirror-labels';
+
+export { PORTION_LABELS, SHAPE_LABELS, SHAPE_ORDER } from '@/shared/mirror-labels';
 
 const size = (m: number, units: UnitSystem) => formatLength(m, units, { kind: 'size' });
 

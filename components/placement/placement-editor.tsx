@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useState } from 'react';
 import { StyleSheet, View, type LayoutChangeEvent } from 'react-native';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -8,9 +8,9 @@ import { SafetyCautions } from '@/components/ui/safety-cautions';
 import { AppText } from '@/components/ui/text';
 import { TextField } from '@/components/ui/text-field';
 import { palette, spacing } from '@/constants/theme';
-import { useRemovePlacementMutation } from '@/hooks/use-projects';
+import { AUTOSAVE_MS, type PlacementEdits, type PlacementWrites } from '@/hooks/use-placement-writes';
 import { describeError } from '@/shared/errors';
-import { ProjectEvaluator, type EvaluatedPlacement, type EvaluatedZone } from '@/shared/project-optics';
+import type { ProjectEvaluation } from '@/shared/project-optics';
 import type { CatalogueItemDto, PlacementDto, ProjectDto } from '@/shared/schemas';
 import { PLACEMENT_LIMITS } from '@/shared/schemas/limits';
 import { formatAngle, formatLength, type UnitSystem } from '@/shared/units';
@@ -19,11 +19,16 @@ import { ElevationView } from './elevation-view';
 import { MirrorPicker, type MirrorChoice } from './mirror-picker';
 import { mirrorSizeText, radiusText, SHAPE_LABELS } from './mirror-text';
 import { PlacementNumbersPanel } from './numbers-panel';
-import { usePlacementDraft, type PlacementEdits } from './use-placement-draft';
+import { PlacementConflictNotice } from './placement-conflict';
 
 export interface PlacementEditorProps {
   project: ProjectDto;
-  placementId: number;
+  /** The plan's live placement: saved values, unsaved edits and a drag in progress, or null when gone. */
+  placement: PlacementDto | null;
+  /** The plan's placement write path (unsaved edits, ordered saves, conflicts). */
+  writes: PlacementWrites;
+  /** The plan's evaluation (its cached evaluator), which already includes this mirror's unsaved values. */
+  evaluation: ProjectEvaluation | null;
   catalogue: readonly CatalogueItemDto[];
   units: UnitSystem;
   canEdit: boolean;
@@ -35,34 +40,20 @@ const TWO_COLUMNS_FROM = 760;
 const DEG = Math.PI / 180;
 
 /**
- * Edits one mirror mount and shows its live numbers. Keyed by placement so switching mirrors
- * starts a fresh draft (the old one's unsaved edits are saved on the way out).
+ * Edits one mirror mount and shows its live numbers. It keeps no copy of the mirror: every change
+ * goes into the plan's write path at once (so the plan redraws) and is saved a moment after typing
+ * stops. Keyed by placement so switching mirrors starts fresh UI state.
  */
 export function PlacementEditor(props: PlacementEditorProps) {
-  return <PlacementEditorInner key={`${props.project.id}:${props.placementId}`} {...props} />;
+  return <PlacementEditorInner key={`${props.project.id}:${props.placement?.id ?? 'gone'}`} {...props} />;
 }
 
-/**
- * Every placement as saved, with this one's draft in its place: the numbers follow typing. A zone
- * whose share cannot be computed carries the evaluator's sentence instead of a number.
- */
-export function evaluateDraft(project: ProjectDto, draft: PlacementDto, catalogue: readonly CatalogueItemDto[]): { evaluation: EvaluatedPlacement; zones: EvaluatedZone[] } {
-  const placements = project.placements.map((p) => (p.id === draft.id ? draft : p));
-  const all = new ProjectEvaluator().evaluate({ scene: project.scene, placements, catalogue });
-  const evaluation = all.placements.find((e) => e.placementId === draft.id) ?? all.placements[0];
-  return { evaluation, zones: all.zones };
-}
-
-function PlacementEditorInner({ project, placementId, catalogue, units, canEdit, onClose }: PlacementEditorProps) {
-  const d = usePlacementDraft(project, placementId, canEdit);
-  const remove = useRemovePlacementMutation(project.id);
+function PlacementEditorInner({ project, placement: draft, writes, evaluation, catalogue, units, canEdit, onClose }: PlacementEditorProps) {
   const [confirmDelete, setConfirmDelete] = useState(false);
+  const [removeError, setRemoveError] = useState<unknown>(null);
   const [showPicker, setShowPicker] = useState(false);
   const [width, setWidth] = useState(0);
   const onLayout = (e: LayoutChangeEvent) => setWidth(e.nativeEvent.layout.width);
-  const draft = d.draft;
-
-  const live = useMemo(() => (draft ? evaluateDraft(project, draft, catalogue) : null), [project, draft && JSON.stringify(draft), catalogue]); // eslint-disable-line react-hooks/exhaustive-deps
 
   if (!draft) {
     return (
@@ -75,8 +66,14 @@ function PlacementEditorInner({ project, placementId, catalogue, units, canEdit,
     );
   }
 
-  const e = d.fieldErrors;
-  const set = (patch: PlacementEdits) => d.change(patch);
+  const id = draft.id;
+  const dirty = Boolean(writes.unsaved[id]);
+  const conflict = writes.conflicts[id] ?? null;
+  const problem = writes.problems[id] ?? null;
+  const live = evaluation ? { evaluation: evaluation.placements.find((p) => p.placementId === id) ?? null, zones: evaluation.zones } : null;
+  const e = problem?.fields ?? {};
+  const set = (patch: PlacementEdits) => writes.change(id, patch, AUTOSAVE_MS);
+  const saveNow = () => writes.save(id);
   const item = draft.catalogueItemId !== null ? catalogue.find((c) => c.id === draft.catalogueItemId) ?? null : null;
   const spec = draft.customMirror ?? item?.mirror ?? null;
   const mirrorChoice: MirrorChoice = draft.customMirror ? { catalogueItemId: null, customMirror: draft.customMirror } : { catalogueItemId: draft.catalogueItemId ?? -1, customMirror: null };
@@ -84,12 +81,12 @@ function PlacementEditorInner({ project, placementId, catalogue, units, canEdit,
   const twoColumns = width >= TWO_COLUMNS_FROM;
 
   const close = () => {
-    if (d.dirty && !d.conflict) d.save();
+    if (dirty) saveNow();
     onClose?.();
   };
 
   const form = (
-    <View style={styles.column}>
+    <View style={[styles.column, twoColumns && styles.columnInRow]}>
       <TextField
         name="label"
         label="Label"
@@ -98,7 +95,7 @@ function PlacementEditorInner({ project, placementId, catalogue, units, canEdit,
         onChangeText={(label) => set({ label })}
         editable={canEdit}
         error={e.label}
-        onBlur={() => d.save()}
+        onBlur={saveNow}
       />
 
       <View style={styles.section}>
@@ -221,7 +218,7 @@ function PlacementEditorInner({ project, placementId, catalogue, units, canEdit,
         testID="placement-notes"
         value={draft.notes}
         onChangeText={(notes) => set({ notes })}
-        onBlur={() => d.save()}
+        onBlur={saveNow}
         editable={canEdit}
         multiline
         numberOfLines={3}
@@ -231,7 +228,7 @@ function PlacementEditorInner({ project, placementId, catalogue, units, canEdit,
   );
 
   const numbers = (
-    <View style={styles.column}>
+    <View style={[styles.column, twoColumns && styles.columnInRow]}>
       <Card title="Live numbers">
         <PlacementNumbersPanel evaluation={live?.evaluation ?? null} zones={live?.zones ?? []} scene={project.scene} units={units} />
       </Card>
@@ -249,22 +246,13 @@ function PlacementEditorInner({ project, placementId, catalogue, units, canEdit,
           <AppText variant="heading" role="heading" aria-level={2}>
             {draft.label}
           </AppText>
-          <SaveStatus canEdit={canEdit} dirty={d.dirty} saving={d.saving} error={d.formError} conflict={Boolean(d.conflict)} />
+          <SaveStatus canEdit={canEdit} dirty={dirty} saving={writes.saving} error={problem?.message || null} conflict={Boolean(conflict)} />
         </View>
         {onClose ? <Button label="Close" testID="placement-close" variant="secondary" onPress={close} /> : null}
       </View>
 
-      {d.conflict ? (
-        <View style={styles.section} testID="placement-conflict">
-          <Notice tone="stop">{d.conflict.message}</Notice>
-          <AppText testID="placement-conflict-theirs-values">{describeValues(d.conflict.theirs, units, catalogue)}</AppText>
-          <View style={styles.actions}>
-            <Button label="Save mine over it" testID="placement-conflict-keep" onPress={d.keepMine} />
-            <Button label="Use the saved values" testID="placement-conflict-theirs" variant="secondary" onPress={d.useTheirs} />
-          </View>
-        </View>
-      ) : null}
-      {d.formError ? <Notice tone="stop" testID="placement-error">{d.formError}</Notice> : null}
+      {conflict ? <PlacementConflictNotice conflict={conflict} units={units} catalogue={catalogue} onKeepMine={() => writes.keepMine(id)} onUseTheirs={() => writes.useTheirs(id)} /> : null}
+      {problem?.message ? <Notice tone="stop" testID="placement-error">{problem.message}</Notice> : null}
 
       <View style={twoColumns ? styles.columns : styles.stack}>
         {form}
@@ -273,7 +261,7 @@ function PlacementEditorInner({ project, placementId, catalogue, units, canEdit,
 
       {canEdit ? (
         <View style={styles.actions}>
-          <Button label={d.saving ? 'Saving…' : 'Save now'} testID="placement-save" onPress={() => d.save()} disabled={!d.dirty || Boolean(d.conflict)} busy={d.saving} />
+          <Button label={writes.saving ? 'Saving…' : 'Save now'} testID="placement-save" onPress={saveNow} disabled={!dirty || Boolean(conflict)} busy={writes.saving} />
           {confirmDelete ? (
             <View style={styles.confirm} testID="placement-delete-confirmation">
               <AppText variant="bodyStrong">{`Remove “${draft.label}” from this project? This cannot be undone.`}</AppText>
@@ -282,12 +270,15 @@ function PlacementEditorInner({ project, placementId, catalogue, units, canEdit,
                   label="Remove mirror"
                   testID="placement-delete-confirm"
                   variant="danger"
-                  busy={remove.isPending}
-                  onPress={() => remove.mutate(placementId, { onSuccess: () => onClose?.() })}
+                  busy={writes.removing}
+                  onPress={() => {
+                    setRemoveError(null);
+                    writes.remove(id).then(() => onClose?.(), setRemoveError);
+                  }}
                 />
                 <Button label="Keep it" testID="placement-delete-cancel" variant="secondary" onPress={() => setConfirmDelete(false)} />
               </View>
-              {remove.isError ? <Notice tone="stop">{describeError(remove.error)}</Notice> : null}
+              {removeError ? <Notice tone="stop">{describeError(removeError)}</Notice> : null}
             </View>
           ) : (
             <Button label="Remove this mirror…" testID="placement-delete" variant="danger" onPress={() => setConfirmDelete(true)} />
@@ -312,27 +303,15 @@ function SaveStatus({ canEdit, dirty, saving, error, conflict }: { canEdit: bool
   );
 }
 
-/** The server's values for the fields in a conflict, in the person's units. */
-export function describeValues(v: PlacementEdits, units: UnitSystem, catalogue: readonly CatalogueItemDto[]): string {
-  const parts: string[] = [];
-  if (v.label !== undefined) parts.push(`label “${v.label}”`);
-  if (v.heightM !== undefined) parts.push(`height ${formatLength(v.heightM, units)}`);
-  if (v.azimuthRad !== undefined) parts.push(`aim ${formatAngle(v.azimuthRad)}`);
-  if (v.tiltDownRad !== undefined) parts.push(`tilt ${formatAngle(v.tiltDownRad)}`);
-  if (v.positionM !== undefined) parts.push(`position ${formatLength(v.positionM[0], units)}, ${formatLength(v.positionM[1], units)}`);
-  if (v.customMirror) parts.push(`custom mirror ${mirrorSizeText(v.customMirror, units)}`);
-  else if (v.catalogueItemId != null) parts.push(`mirror ${catalogue.find((c) => c.id === v.catalogueItemId)?.name ?? `#${v.catalogueItemId}`}`);
-  if (v.viewerId !== undefined) parts.push(v.viewerId ? `viewer ${v.viewerId}` : 'no viewer');
-  if (v.notes !== undefined) parts.push('notes changed');
-  return parts.length ? `Saved now: ${parts.join('; ')}.` : 'The saved values are shown in the fields you did not change.';
-}
-
 const styles = StyleSheet.create({
   root: { gap: spacing.lg, alignSelf: 'stretch' },
   head: { flexDirection: 'row', alignItems: 'flex-start', gap: spacing.md },
   columns: { flexDirection: 'row', gap: spacing.xl, alignItems: 'flex-start' },
   stack: { gap: spacing.xl },
-  column: { flex: 1, gap: spacing.lg, minWidth: 0 },
+  column: { gap: spacing.lg, minWidth: 0 },
+  // Only side by side may a column grow and shrink: stacked, a zero flex basis let the actions below
+  // be drawn over the cautions.
+  columnInRow: { flex: 1 },
   section: { gap: spacing.sm },
   mirrorSummary: { gap: spacing.xxs, padding: spacing.md, backgroundColor: palette.chalk, borderRadius: 8 },
   pair: { flexDirection: 'row', gap: spacing.md },

@@ -8,6 +8,7 @@ import { AppText, Badge, Button, Segmented } from '@/components/ui';
 import { SafetyCautions } from '@/components/ui/safety-cautions';
 import { SheetActions } from '@/components/sheet';
 import { palette, radii, spacing } from '@/constants/theme';
+import type { PlacementWrites } from '@/hooks/use-placement-writes';
 import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
 import { adultRangesText, criteriaOf, criterionText, targetLabel, zoneCriterion } from '@/shared/project-optics';
 import type { CatalogueItemDto, CriteriaSettings, CriterionKind, PlacementDto, ProjectDto, Scene, SceneViewer } from '@/shared/schemas';
@@ -24,6 +25,8 @@ export interface PlanDetailsProps {
   project: ProjectDto;
   scene: Scene;
   placements: readonly PlacementDto[];
+  /** The one write path for placements, shared with the editor. */
+  writes: PlacementWrites;
   evaluation: PlanEvaluation | null;
   catalogue: readonly CatalogueItemDto[];
   units: UnitSystem;
@@ -43,7 +46,16 @@ export function PlanDetails(p: PlanDetailsProps) {
     return (
       <View style={styles.column}>
         <BackToSummary onPress={() => p.onSelect(null)} />
-        <PlacementEditorSlot project={p.project} placementId={sel.id} catalogue={p.catalogue} units={p.units} canEdit={p.canEdit} evaluation={p.evaluation} scene={p.scene} onClose={() => p.onSelect(null)} />
+        <PlacementEditorSlot
+          project={p.project}
+          placement={p.placements.find((x) => x.id === sel.id) ?? null}
+          writes={p.writes}
+          catalogue={p.catalogue}
+          units={p.units}
+          canEdit={p.canEdit}
+          evaluation={p.evaluation}
+          onClose={() => p.onSelect(null)}
+        />
       </View>
     );
   }

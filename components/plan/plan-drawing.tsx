@@ -34,14 +34,16 @@ export function PlanDrawing({ scene, placements, evaluation, units, canEdit, sel
   const bar = scaleBar(view, units);
   const evaluatedById = useMemo(() => new Map((evaluation?.placements ?? []).map((e) => [e.placementId, e])), [evaluation]);
   const zoneFraction = useMemo(() => new Map((evaluation?.zones ?? []).map((z) => [z.zoneId, z.fraction])), [evaluation]);
-  // The gap of each zone: the part no mirror shows for that zone's target.
-  const gaps = useMemo(() => {
+  // The gap of each zone: the part no mirror shows for that zone's target (in metres, kept while panning).
+  const gapsM = useMemo(() => {
     const covered = new Map((evaluation?.zones ?? []).map((z) => [z.zoneId, z]));
     return scene.zones.map((z) => {
       const ev = covered.get(z.id);
-      return { id: z.id, d: ev && !ev.problem ? multiPolygonToPath(view, uncoveredPart(z.polygonM, [ev.covered])) : '' };
+      return { id: z.id, gap: ev && !ev.problem ? uncoveredPart(z.polygonM, [ev.covered], z.name) : null };
     });
-  }, [evaluation, scene.zones, view]);
+  }, [evaluation, scene.zones]);
+  const gaps = useMemo(() => gapsM.map(({ id, gap }) => ({ id, d: gap?.ok ? multiPolygonToPath(view, gap.region) : '' })), [gapsM, view]);
+  const gapProblems = gapsM.flatMap(({ id, gap }) => (gap && !gap.ok ? [{ id, problem: gap.problem }] : []));
 
   const selectedPlacement = selection?.kind === 'placement' ? placements.find((p) => p.id === selection.id) : undefined;
   const selectedViewer = selectedPlacement ? scene.viewers.find((v) => v.id === selectedPlacement.viewerId) : undefined;
@@ -86,6 +88,11 @@ export function PlanDrawing({ scene, placements, evaluation, units, canEdit, sel
         <SvgText testID="plan-scale-label" x={20} y={22} fontFamily={fonts.semibold} fontSize={12} fill={palette.asphalt}>
           {bar.label}
         </SvgText>
+        {gapProblems.map((g, i) => (
+          <SvgText key={g.id} testID={`plan-gap-problem-${g.id}`} x={12} y={62 + i * 16} fontFamily={fonts.semibold} fontSize={12} fill={palette.stop}>
+            {g.problem}
+          </SvgText>
+        ))}
       </G>
     </Svg>
   );

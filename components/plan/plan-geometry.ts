@@ -2,9 +2,9 @@
  * Turning plan geometry (metres) into SVG path strings (pixels), and the drawing helpers that are
  * pure arithmetic on the view: grid lines, the scale bar, the uncovered part of a zone.
  */
-import { difference, union } from 'polygon-clipping';
-import type { MultiPolygon, Ring } from '@/shared/optics';
-import { M_PER_FT, type UnitSystem } from '@/shared/units';
+import type { MultiPolygon, Ring } from '@/shared/geometry/polygon';
+import { robustDifference, robustUnion } from '@/shared/geometry/robust-boolean';
+import { chooseScaleBar, M_PER_FT, type UnitSystem } from '@/shared/units';
 import { toScreen, type PairM, type PlanView, type Size } from './plan-view';
 
 const r1 = (n: number) => Math.round(n * 10) / 10;
@@ -25,18 +25,21 @@ export function ringsToPath(v: PlanView, rings: readonly (readonly (readonly [nu
 
 export const multiPolygonToPath = (v: PlanView, mp: MultiPolygon): string => ringsToPath(v, mp.flat());
 
+export type UncoveredPart = { ok: true; region: MultiPolygon } | { ok: false; problem: string };
+
 /**
- * The part of a zone no placement covers: zone minus the union of all coverage regions. Drawn
- * hatched so the gap is plain to see. Empty when the clipping library fails on odd input.
+ * The part of a zone no placement covers: zone minus the union of all coverage regions, in metres.
+ * Drawn hatched so the gap is plain to see. Through the robust booleans (shared/geometry); if even
+ * those fail, a sentence says the gap could not be drawn rather than the plan showing no gap.
  */
-export function uncoveredPart(zone: Ring, regions: readonly MultiPolygon[]): MultiPolygon {
+export function uncoveredPart(zone: Ring, regions: readonly MultiPolygon[], zoneName: string): UncoveredPart {
   const nonEmpty = regions.filter((r) => r.length > 0);
   try {
-    if (nonEmpty.length === 0) return [[zone]];
-    const merged = nonEmpty.length === 1 ? nonEmpty[0] : union(nonEmpty[0], ...nonEmpty.slice(1));
-    return difference([zone], merged);
+    if (nonEmpty.length === 0) return { ok: true, region: [[zone]] };
+    const merged = nonEmpty.length === 1 ? nonEmpty[0] : robustUnion(nonEmpty[0], ...nonEmpty.slice(1));
+    return { ok: true, region: robustDifference([zone], merged) };
   } catch {
-    return [];
+    return { ok: false, problem: `The uncovered part of “${zoneName}” could not be drawn (its outline and the coverage meet at odd angles); its percentage still stands.` };
   }
 }
 
@@ -82,11 +85,8 @@ export function gridLines(v: PlanView, size: Size, units: UnitSystem): GridLines
 
 /** A scale bar 60–150 px long at a round length in the person's units. */
 export function scaleBar(v: PlanView, units: UnitSystem): { lengthPx: number; label: string } {
-  const unit = gridUnitM(units);
-  const name = units === 'metric' ? 'm' : 'ft';
-  const nice = [0.5, 1, 2, 5, 10, 20, 25, 50, 100, 200, 500, 1000];
-  const count = nice.find((n) => n * unit * v.scale >= 60) ?? 1000;
-  return { lengthPx: count * unit * v.scale, label: `${count} ${name}` };
+  const bar = chooseScaleBar(units, v.scale, { atLeast: 60 });
+  return { lengthPx: bar.lengthM * v.scale, label: bar.label };
 }
 
 /** A point `lengthPx` pixels from `from` (screen) toward plan azimuth `azimuthRad` (0 = east, π/2 = north). */

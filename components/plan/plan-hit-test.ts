@@ -5,7 +5,8 @@
  */
 import type { PlacementDto, Scene } from '@/shared/schemas';
 import { alongAzimuth } from './plan-geometry';
-import { AIM_HANDLE_PX, MARKER_RADIUS_PX, distanceToSegment, insideRing, toPlan, toScreen, type PairM, type PlanView } from './plan-view';
+import { pointInPolygon, pointSegmentDistance } from '@/shared/geometry/polygon';
+import { AIM_HANDLE_PX, MARKER_RADIUS_PX, toPlan, toScreen, type PairM, type PlanView } from './plan-view';
 import type { PlanSelection } from './plan-types';
 
 /** Finger-sized pick radius (the 48 px target rule, halved). */
@@ -49,11 +50,11 @@ export function hitTest(ctx: HitContext, view: PlanView, pt: PairM): Hit {
   if (best) return { hit: best.hit };
   let wall: { d: number; id: string } | null = null;
   for (const w of ctx.scene.walls) {
-    const d = distanceToSegment(pt, toScreen(view, w.aM), toScreen(view, w.bM));
+    const d = pointSegmentDistance(pt, toScreen(view, w.aM), toScreen(view, w.bM));
     if (d <= WALL_PICK_PX && (!wall || d < wall.d)) wall = { d, id: w.id };
   }
   if (wall) return { hit: { kind: 'wall', id: wall.id } };
   const planPt = toPlan(view, pt[0], pt[1]);
-  const zone = [...ctx.scene.zones].reverse().find((z) => insideRing(planPt, z.polygonM));
+  const zone = [...ctx.scene.zones].reverse().find((z) => pointInPolygon([z.polygonM], planPt));
   return { hit: zone ? { kind: 'zone', id: zone.id } : null };
 }

@@ -4,6 +4,8 @@
  * The same three numbers are published on the canvas (data-transform) so browser tests can click
  * at a plan point.
  */
+import type { Bounds } from '@/shared/geometry/bounds';
+
 export type PairM = [number, number];
 
 export interface PlanView {
@@ -33,27 +35,8 @@ export const toPlan = (v: PlanView, x: number, y: number): PairM => [(x - v.offs
 export const formatTransform = (v: PlanView): string => `${round3(v.scale)} ${round3(v.offsetX)} ${round3(v.offsetY)}`;
 const round3 = (n: number) => Math.round(n * 1000) / 1000;
 
-export interface Bounds {
-  minX: number;
-  minY: number;
-  maxX: number;
-  maxY: number;
-}
-
-export function boundsOf(points: readonly (readonly [number, number])[]): Bounds | null {
-  if (points.length === 0) return null;
-  let minX = Infinity;
-  let minY = Infinity;
-  let maxX = -Infinity;
-  let maxY = -Infinity;
-  for (const [x, y] of points) {
-    minX = Math.min(minX, x);
-    minY = Math.min(minY, y);
-    maxX = Math.max(maxX, x);
-    maxY = Math.max(maxY, y);
-  }
-  return { minX, minY, maxX, maxY };
-}
+/** Bounds of plan points: the shared function (shared/geometry/bounds.ts) under the plan's name. */
+export { boundsOfPoints as boundsOf, type Bounds } from '@/shared/geometry/bounds';
 
 /**
  * A view showing the whole bounds inside the canvas with a margin; `reserveBottom` keeps the
@@ -81,23 +64,3 @@ export function zoomAt(v: PlanView, factor: number, x: number, y: number): PlanV
 }
 
 export const panBy = (v: PlanView, dx: number, dy: number): PlanView => ({ ...v, offsetX: v.offsetX + dx, offsetY: v.offsetY + dy });
-
-/** Distance in pixels from screen point p to the segment a–b (all in pixels). */
-export function distanceToSegment(p: PairM, a: PairM, b: PairM): number {
-  const dx = b[0] - a[0];
-  const dy = b[1] - a[1];
-  const len2 = dx * dx + dy * dy;
-  const t = len2 === 0 ? 0 : Math.max(0, Math.min(1, ((p[0] - a[0]) * dx + (p[1] - a[1]) * dy) / len2));
-  return Math.hypot(p[0] - (a[0] + t * dx), p[1] - (a[1] + t * dy));
-}
-
-/** Point-in-polygon by ray casting (even–odd), for picking a zone under the finger. */
-export function insideRing(p: readonly [number, number], ring: readonly (readonly [number, number])[]): boolean {
-  let inside = false;
-  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
-    const [xi, yi] = ring[i];
-    const [xj, yj] = ring[j];
-    if (yi > p[1] !== yj > p[1] && p[0] < ((xj - xi) * (p[1] - yi)) / (yj - yi) + xi) inside = !inside;
-  }
-  return inside;
-}

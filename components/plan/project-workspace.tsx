@@ -18,6 +18,7 @@ import { isSimpleRing } from '@/shared/optics';
 import type { CatalogueItemDto, CriteriaSettings, CriterionKind, ProjectDto, SceneWall } from '@/shared/schemas';
 import { markRedrawEnd } from './perf-marks';
 import { PlanCanvas, type PlanDrag } from './plan-canvas';
+import { PlacementConflictNotice } from '@/components/placement/placement-conflict';
 import { PlanDetails } from './plan-details';
 import { PlanSheet } from './plan-sheet';
 import { PlanToolbar } from './plan-toolbar';
@@ -189,6 +190,20 @@ function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: Cat
           </View>
         </Notice>
       ) : null}
+      {/* A mirror's conflict shows in its editor when open; otherwise here, so a drag's conflict is never silent. */}
+      {Object.entries(edits.writes.conflicts)
+        .filter(([id]) => !(selection?.kind === 'placement' && selection.id === Number(id)))
+        .map(([id, conflict]) => (
+          <PlacementConflictNotice
+            key={id}
+            conflict={conflict}
+            units={units}
+            catalogue={catalogue}
+            label={edits.placements.find((p) => p.id === Number(id))?.label}
+            onKeepMine={() => edits.writes.keepMine(Number(id))}
+            onUseTheirs={() => edits.writes.useTheirs(Number(id))}
+          />
+        ))}
       {localProblem ? (
         <Notice tone="stop" testID="plan-tool-error">
           {localProblem}
@@ -202,6 +217,7 @@ function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: Cat
       project={project}
       scene={edits.scene}
       placements={edits.placements}
+      writes={edits.writes}
       evaluation={evaluation}
       catalogue={catalogue}
       units={units}

@@ -6,6 +6,8 @@ import { FormFooter } from '@/components/forms/form-footer';
 import { FormFrame } from '@/components/forms/form-frame';
 import { FormikTextField } from '@/components/forms/formik-text-field';
 import { submitWithServerErrors } from '@/components/forms/server-errors';
+import { yupText } from '@/components/forms/yup-rules';
+import { projectRules, UNITS_MESSAGE } from '@/shared/schemas/rules';
 import { Segmented } from '@/components/ui/segmented';
 import { AppText } from '@/components/ui/text';
 import { spacing } from '@/constants/theme';
@@ -22,13 +24,13 @@ export interface ProjectFormValues {
   notes: string;
 }
 
-/** Mirrors the server's limits (shared/schemas/projects.ts) so most mistakes are caught before sending. */
+/** The server's rules (shared/schemas/rules.ts), so mistakes are caught before sending, in the same words. */
 export const projectSchema = yup.object({
-  name: yup.string().trim().required('Give the project a name.').max(80, "Keep the project's name to 80 characters."),
-  customer: yup.string().trim().max(160, 'Keep the customer to 160 characters.'),
-  site: yup.string().trim().max(200, 'Keep the site to 200 characters.'),
-  units: yup.string().oneOf(['mine', 'metric', 'imperial']).required(),
-  notes: yup.string().max(5000, 'Keep the notes to 5,000 characters.'),
+  name: yupText(projectRules.name),
+  customer: yupText(projectRules.customer),
+  site: yupText(projectRules.site),
+  units: yup.string().oneOf(['mine', 'metric', 'imperial'], UNITS_MESSAGE).required(UNITS_MESSAGE),
+  notes: yupText(projectRules.notes),
 });
 
 export function toCreateBody(v: ProjectFormValues): CreateProjectBody {

@@ -4,11 +4,13 @@ import * as yup from 'yup';
 import { AppText, Button, Notice, TextField } from '@/components/ui';
 import { FormFrame } from '@/components/forms/form-frame';
 import { fieldMessage, serverErrorsFor, type FormStatus } from '@/components/forms/server-errors';
+import { yupText } from '@/components/forms/yup-rules';
 import { spacing } from '@/constants/theme';
 import { api } from '@/hooks/api';
 import { useDownloadSheetMutation, useEmailSheetMutation, useSheetStatusQuery } from '@/hooks/use-sheet';
 import { describeError } from '@/shared/errors';
-import type { SheetStatusDto } from '@/shared/schemas';
+import type { SheetEmailBody, SheetStatusDto } from '@/shared/schemas';
+import { sheetEmailRules } from '@/shared/schemas/rules';
 import { canSaveFiles, saveFile } from './save-file';
 
 export interface SheetEmailValues {
@@ -17,9 +19,14 @@ export interface SheetEmailValues {
 }
 
 export const sheetEmailSchema = yup.object({
-  to: yup.string().trim().required('Enter the buyer\u2019s e-mail address.').email('Enter a full e-mail address, like name@company.com.'),
-  note: yup.string().max(2000, 'Keep the note to 2,000 characters.'),
+  to: yupText(sheetEmailRules.to),
+  note: yupText(sheetEmailRules.note),
 });
+
+/** What the form sends; the route calls the note "message". */
+export function sheetEmailBodyOf(values: SheetEmailValues): SheetEmailBody {
+  return { to: values.to.trim(), message: values.note.trim() || undefined };
+}
 
 /** "Revision 3, issued 2026-12-02 by Ines Okafor" — or that none has been issued yet. */
 export function revisionText(status: SheetStatusDto | undefined): string {
@@ -74,7 +81,7 @@ export function SheetActions({ projectId, canEdit }: SheetActionsProps) {
         onSubmit={async (values, helpers) => {
           helpers.setStatus(undefined);
           try {
-            const sent = await email.mutateAsync({ to: values.to.trim(), message: values.note.trim() || undefined });
+            const sent = await email.mutateAsync(sheetEmailBodyOf(values));
             helpers.resetForm();
             helpers.setStatus({
               done:

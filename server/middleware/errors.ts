@@ -2,6 +2,7 @@ import type { ErrorRequestHandler, Request, RequestHandler } from 'express';
 import { DriverException } from '@mikro-orm/core';
 import { HttpError } from '../http-error';
 import type { Logger } from '../logger';
+import { writeConflict } from '../write-conflicts';
 
 export const apiNotFound: RequestHandler = (req, _res, next) => {
   next(new HttpError(404, `There is no API route ${req.method} ${safePath(req)}.`));
@@ -82,7 +83,9 @@ export function describeForLog(err: unknown): string {
 
 /** The one error middleware: every failure leaves as `{error, fields?}` with a fitting status. */
 export function errorHandler(log: Logger): ErrorRequestHandler {
-  return (err, req, res, _next) => {
+  return async (err, req, res, _next) => {
+    // A stale version or a duplicate caught by the database becomes the same 409 a route would throw.
+    err = (await writeConflict(err)) ?? err;
     if (err instanceof HttpError) {
       if (err.headers) res.set(err.headers);
       res.status(err.status).json({ error: err.message, ...(err.fields ? { fields: err.fields } : {}), ...(err.extra ?? {}) });

@@ -3,8 +3,10 @@
  * viewers and mirrors, at a round scale that is stated on the sheet, with a scale bar.
  */
 import type { UnitSystem } from '../../shared/schemas';
-import { M_PER_FT } from '../../shared/units';
-import { GLASS, INK, MUTED, RULE, STOP } from './layout';
+import { boundsOfPoints } from '../../shared/geometry/bounds';
+import { simplifyRing } from '../../shared/geometry/simplify';
+import { chooseScaleBar, type ScaleBar } from '../../shared/units';
+import { GLASS, INK, MUTED, PAPER, RULE, STOP } from './layout';
 import type { SheetElevation, SheetPlan } from './sheet-model';
 
 /** Points per metre of paper: 72 pt per inch, 0.0254 m per inch. */
@@ -32,21 +34,12 @@ export interface PlanFit {
 
 /** The largest round scale at which the scene (walls, zones, viewers, mirrors, plus a margin) fits the box. */
 export function fitPlan(plan: SheetPlan, box: Box, marginM = 1): PlanFit {
-  const xs: number[] = [];
-  const ys: number[] = [];
-  const add = (p: readonly number[]) => {
-    xs.push(p[0]);
-    ys.push(p[1]);
-  };
-  plan.walls.forEach((w) => (add(w.a), add(w.b)));
-  plan.zones.forEach((z) => z.ring.forEach(add));
-  plan.viewers.forEach((v) => add(v.at));
-  plan.mirrors.forEach((m) => add(m.at));
-  if (!xs.length) add([0, 0]);
-  const minX = Math.min(...xs) - marginM;
-  const maxX = Math.max(...xs) + marginM;
-  const minY = Math.min(...ys) - marginM;
-  const maxY = Math.max(...ys) + marginM;
+  const points = [...plan.walls.flatMap((w) => [w.a, w.b]), ...plan.zones.flatMap((z) => z.ring), ...plan.viewers.map((v) => v.at), ...plan.mirrors.map((m) => m.at)];
+  const b = boundsOfPoints(points) ?? { minX: 0, minY: 0, maxX: 0, maxY: 0 };
+  const minX = b.minX - marginM;
+  const maxX = b.maxX + marginM;
+  const minY = b.minY - marginM;
+  const maxY = b.maxY + marginM;
   const spanX = Math.max(maxX - minX, 1);
   const spanY = Math.max(maxY - minY, 1);
   const denominator = PLAN_SCALES.find((n) => (spanX * PT_PER_M) / n <= box.w && (spanY * PT_PER_M) / n <= box.h) ?? PLAN_SCALES[PLAN_SCALES.length - 1];
@@ -57,61 +50,9 @@ export function fitPlan(plan: SheetPlan, box: Box, marginM = 1): PlanFit {
 /** Outline detail finer than this (0.2 mm on paper, in points) cannot be seen in print and is dropped before drawing. */
 export const OUTLINE_TOLERANCE_PT = (0.2 / 25.4) * 72;
 
-/**
- * Douglas–Peucker simplification of a closed ring already in paper points: keeps the first point
- * and every point that lies farther than `tolerance` from the simplified outline. A pure function of
- * its input, so the same plan always draws the same path (and the PDF stays byte-identical).
- */
-export function simplifyRing(ring: readonly (readonly [number, number])[], tolerance: number): [number, number][] {
-  const n = ring.length;
-  if (n <= 3) return ring.map(([x, y]) => [x, y]);
-  // Split the closed ring at the point farthest from the first, then simplify both open halves.
-  const [x0, y0] = ring[0];
-  let far = 1;
-  let farD = -1;
-  for (let i = 1; i < n; i++) {
-    const d = (ring[i][0] - x0) ** 2 + (ring[i][1] - y0) ** 2;
-    if (d > farD) {
-      farD = d;
-      far = i;
-    }
-  }
-  const keep = new Uint8Array(n + 1);
-  keep[0] = keep[far] = keep[n] = 1;
-  const point = (i: number) => ring[i % n];
-  const stack: [number, number][] = [
-    [0, far],
-    [far, n],
-  ];
-  while (stack.length) {
-    const [a, b] = stack.pop()!;
-    const [ax, ay] = point(a);
-    const [bx, by] = point(b);
-    const dx = bx - ax;
-    const dy = by - ay;
-    const len = Math.hypot(dx, dy);
-    let worst = -1;
-    let worstD = tolerance;
-    for (let i = a + 1; i < b; i++) {
-      const [px, py] = point(i);
-      const d = len > 0 ? Math.abs(dx * (py - ay) - dy * (px - ax)) / len : Math.hypot(px - ax, py - ay);
-      if (d > worstD) {
-        worstD = d;
-        worst = i;
-      }
-    }
-    if (worst >= 0) {
-      keep[worst] = 1;
-      stack.push([a, worst], [worst, b]);
-    }
-  }
-  const out: [number, number][] = [];
-  for (let i = 0; i < n; i++) if (keep[i]) out.push([ring[i][0], ring[i][1]]);
-  return out;
-}
-
 function ringPath(doc: PDFKit.PDFDocument, ring: readonly (readonly number[])[], at: (p: readonly number[]) => [number, number], tolerance = 0): void {
   const onPaper = ring.map(at);
+  // Douglas–Peucker from shared/geometry, on paper points: detail finer than `tolerance` cannot be seen in print.
   const drawn = tolerance > 0 ? simplifyRing(onPaper, tolerance) : onPaper;
   drawn.forEach(([x, y], i) => {
     if (i === 0) doc.moveTo(x, y);
@@ -183,14 +124,14 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): Pl
     const label = `${z.name}: ${z.covered} seen`;
     doc.font('semibold').fontSize(7);
     const w = doc.widthOfString(label) + 4;
-    doc.rect(x - w / 2, y - 5, w, 10).fillOpacity(0.85).fillColor('#ffffff').fill().fillOpacity(1);
+    doc.rect(x - w / 2, y - 5, w, 10).fillOpacity(0.85).fillColor(PAPER).fill().fillOpacity(1);
     doc.fillColor(STOP).text(label, x - w / 2 + 2, y - 3.5, { lineBreak: false });
     taken.push({ x: x - w / 2, y: y - 5, w, h: 10 });
   }
 
   for (const v of plan.viewers) {
     const [x, y] = at(v.at);
-    doc.circle(x, y, 3.2).lineWidth(1).fillColor('#ffffff').strokeColor(INK).fillAndStroke();
+    doc.circle(x, y, 3.2).lineWidth(1).fillColor(PAPER).strokeColor(INK).fillAndStroke();
     doc.circle(x, y, 1.2).fillColor(INK).fill();
     doc.font('regular').fontSize(6.8).fillColor(INK).text(v.name, x + 5, y - 3, { lineBreak: false });
     taken.push({ x: x - 3.2, y: y - 3.2, w: 8.2 + doc.widthOfString(v.name), h: 9 });
@@ -217,26 +158,18 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): Pl
     const w = doc.widthOfString(m.label);
     const spot = labelSpot({ x: x - dx * 6 + 4, y: y - dy * 6 - 11, w, h: LABEL_LINE_PT }, taken);
     taken.push(spot);
-    doc.rect(spot.x - 1.5, spot.y - 1, spot.w + 3, spot.h).fillOpacity(0.85).fillColor('#ffffff').fill().fillOpacity(1);
+    doc.rect(spot.x - 1.5, spot.y - 1, spot.w + 3, spot.h).fillOpacity(0.85).fillColor(PAPER).fill().fillOpacity(1);
     doc.fillColor(GLASS).text(m.label, spot.x, spot.y, { lineBreak: false });
   });
   doc.restore();
   return fit;
 }
 
-export interface ScaleBar {
-  lengthM: number;
-  label: string;
-}
+export type { ScaleBar };
 
-/** A bar of a round length (metres or feet) that takes about a quarter of `maxPt` at the plan's scale. */
+/** A bar of a round length (metres or feet), the longest that fits in `maxPt` at the plan's scale (shared/units). */
 export function scaleBarFor(fit: PlanFit, units: UnitSystem, maxPt: number): ScaleBar {
-  const steps = [0.5, 1, 2, 5, 10, 20, 50, 100, 200, 500, 1000];
-  const unitM = units === 'metric' ? 1 : M_PER_FT;
-  const name = units === 'metric' ? 'm' : 'ft';
-  const fits = steps.filter((s) => s * unitM * fit.ptPerM <= maxPt);
-  const n = fits.length ? fits[fits.length - 1] : steps[0];
-  return { lengthM: n * unitM, label: `${n} ${name}` };
+  return chooseScaleBar(units, fit.ptPerM, { atMost: maxPt });
 }
 
 export function drawScaleBar(doc: PDFKit.PDFDocument, fit: PlanFit, bar: ScaleBar, x: number, y: number): number {

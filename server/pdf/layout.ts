@@ -4,14 +4,19 @@
  */
 import type { SheetFont } from './fonts';
 
-export const INK = '#14202b';
-export const MUTED = '#4b5763';
-export const RULE = '#b9b2a3';
-export const RULE_SOFT = '#dcd6ca';
-export const GLASS = '#1d5f8a';
-export const GLASS_SOFT = '#dcebf5';
-export const BEACON_SOFT = '#fdf0cf';
-export const STOP = '#a4231b';
+import { palette } from '../../shared/palette';
+
+// The sheet's names for the one palette (shared/palette.ts), which the screens use too.
+export const INK: string = palette.asphalt;
+export const MUTED: string = palette.haze;
+export const RULE: string = palette.rule;
+export const RULE_SOFT: string = palette.ruleSoft;
+export const GLASS: string = palette.glass;
+export const GLASS_SOFT: string = palette.glassSoft;
+export const BEACON: string = palette.beaconPressed;
+export const BEACON_SOFT: string = palette.beaconSoft;
+export const STOP: string = palette.stop;
+export const PAPER: string = palette.sheet;
 
 export interface Column {
   title: string;

@@ -8,7 +8,7 @@ import type { SheetPaper } from '../../shared/schemas';
 import { SHEET_LIMITS } from './cautions';
 import { drawElevation, drawPlan, drawScaleBar, fitPlan, scaleBarFor } from './draw-plan';
 import { NO_DEFAULT_FONT, registerSheetFonts } from './fonts';
-import { BEACON_SOFT, Flow, GLASS, INK, MUTED, RULE, STOP } from './layout';
+import { BEACON, BEACON_SOFT, Flow, GLASS, INK, MUTED, RULE, STOP } from './layout';
 import { sheetFormat, type SheetContent, type SheetPlacement } from './sheet-model';
 
 export interface SheetRevisionInfo {
@@ -45,7 +45,7 @@ function cautionBox(flow: Flow, cautions: readonly string[], title: string, size
   const h = 2 * pad + 14 + heights.reduce((a, b) => a + b, 0);
   flow.ensure(h + 4);
   doc.rect(flow.left, flow.y, flow.width, h).fillColor(BEACON_SOFT).fill();
-  doc.rect(flow.left, flow.y, 3, h).fillColor('#d99a0c').fill();
+  doc.rect(flow.left, flow.y, 3, h).fillColor(BEACON).fill();
   let y = flow.y + pad;
   flow.style('semibold', 9.5, INK).text(title, flow.left + pad + 2, y, { lineBreak: false });
   y += 14;

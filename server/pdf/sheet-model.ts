@@ -7,6 +7,7 @@
  * Every number comes from `evaluateProject` (shared/project-optics), i.e. the same engine the screens
  * use; this file only picks and formats.
  */
+import { mirrorKindName } from '../../shared/mirror-labels';
 import { createHash } from 'node:crypto';
 import { fanRays, sphereRadiusM, type MultiPolygon } from '../../shared/optics';
 import {
@@ -117,8 +118,6 @@ export interface SheetContent {
   purchase: { lines: SheetPurchaseLine[]; totals: { currency: string; total: string }[]; onRequest: number };
 }
 
-const SHAPE = { round: 'Round convex panel', rect: 'Rectangular convex panel', dome: 'Dome' } as const;
-const PORTION = { full: 'Full dome', half: 'Half dome', quarter: 'Quarter dome' } as const;
 
 /** The formatters the sheet uses for each kind of number; tests format engine values with these too. */
 export function sheetFormat(units: UnitSystem) {
@@ -139,7 +138,7 @@ const round3 = (n: number) => Math.round(n * 1000) / 1000;
 const pt = (p: readonly number[]): [number, number] => [round3(p[0]), round3(p[1])];
 
 function shapeText(spec: MirrorSpec): string {
-  return spec.shape === 'dome' ? PORTION[spec.portion] : SHAPE[spec.shape];
+  return mirrorKindName(spec);
 }
 
 function sizeText(spec: MirrorSpec, size: (m: number) => string): string {

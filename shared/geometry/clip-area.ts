@@ -1,59 +1,15 @@
+import { clipRingToConvex } from './clip';
 import { orient, ringLength, signedRingArea, type MultiPolygon, type Pair, type Polygon, type Ring } from './polygon';
 
 /**
  * Signed area (m²) of the part of a ring inside a convex counter-clockwise polygon, by
- * Sutherland–Hodgman clipping (I. Sutherland, G. Hodgman, "Reentrant polygon clipping",
- * CACM 17(1), 1974). The clipped contour may contain zero-width bridges when the result has
- * several pieces; they enclose no area, so the shoelace sum is still exact. Sign follows the
- * ring's orientation, so holes (clockwise) subtract.
+ * Sutherland–Hodgman clipping (./clip.ts). The clipped contour may contain zero-width bridges
+ * when the result has several pieces; they enclose no area, so the shoelace sum is still exact.
+ * Sign follows the ring's orientation, so holes (clockwise) subtract.
  */
 export function clippedRingArea(ring: Ring, convex: Ring): number {
-  const n = ringLength(ring);
-  const m = ringLength(convex);
-  let xs: number[] = [];
-  let ys: number[] = [];
-  for (let i = 0; i < n; i++) {
-    xs.push(ring[i][0]);
-    ys.push(ring[i][1]);
-  }
-  for (let e = 0; e < m && xs.length > 0; e++) {
-    const ax = convex[e][0];
-    const ay = convex[e][1];
-    const bx = convex[(e + 1) % m][0];
-    const by = convex[(e + 1) % m][1];
-    const ex = bx - ax;
-    const ey = by - ay;
-    const nx: number[] = [];
-    const ny: number[] = [];
-    const len = xs.length;
-    for (let i = 0; i < len; i++) {
-      const j = i + 1 === len ? 0 : i + 1;
-      const si = ex * (ys[i] - ay) - ey * (xs[i] - ax);
-      const sj = ex * (ys[j] - ay) - ey * (xs[j] - ax);
-      if (si >= 0) {
-        nx.push(xs[i]);
-        ny.push(ys[i]);
-        if (sj < 0) {
-          const t = si / (si - sj);
-          nx.push(xs[i] + t * (xs[j] - xs[i]));
-          ny.push(ys[i] + t * (ys[j] - ys[i]));
-        }
-      } else if (sj >= 0) {
-        const t = si / (si - sj);
-        nx.push(xs[i] + t * (xs[j] - xs[i]));
-        ny.push(ys[i] + t * (ys[j] - ys[i]));
-      }
-    }
-    xs = nx;
-    ys = ny;
-  }
-  let twice = 0;
-  const len = xs.length;
-  for (let i = 0; i < len; i++) {
-    const j = i + 1 === len ? 0 : i + 1;
-    twice += xs[i] * ys[j] - xs[j] * ys[i];
-  }
-  return twice / 2;
+  const inside = clipRingToConvex(ring, convex);
+  return inside.length >= 3 ? signedRingArea(inside) : 0;
 }
 
 /**

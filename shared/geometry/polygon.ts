@@ -3,6 +3,8 @@
  * pairs in metres, a Polygon is an outer ring followed by hole rings, a MultiPolygon is a
  * list of Polygons. Rings may or may not repeat their first point at the end.
  */
+import { boundsOfPoints } from './bounds';
+
 export type Pair = [number, number];
 export type Ring = Pair[];
 export type Polygon = Ring[];
@@ -156,7 +158,7 @@ export function pointInMultiPolygon(mp: MultiPolygon, p: Pair): boolean {
   return false;
 }
 
-/** Distance from p to segment ab, metres. */
+/** Distance from p to segment ab, in the units of the points (metres on the plan, pixels on screen). */
 export function pointSegmentDistance(p: Pair, a: Pair, b: Pair): number {
   const dx = b[0] - a[0];
   const dy = b[1] - a[1];
@@ -194,20 +196,8 @@ export function circleRing(centre: Pair, radiusM: number, segments: number): Rin
   return ring;
 }
 
-/** Axis-aligned bounding box [minX, minY, maxX, maxY] of a multipolygon's outer rings. */
+/** Axis-aligned bounding box [minX, minY, maxX, maxY] of a multipolygon's outer rings (infinite and inverted when empty). */
 export function bbox(mp: MultiPolygon): [number, number, number, number] {
-  let minX = Infinity;
-  let minY = Infinity;
-  let maxX = -Infinity;
-  let maxY = -Infinity;
-  for (const poly of mp) {
-    if (poly.length === 0) continue;
-    for (const p of poly[0]) {
-      if (p[0] < minX) minX = p[0];
-      if (p[1] < minY) minY = p[1];
-      if (p[0] > maxX) maxX = p[0];
-      if (p[1] > maxY) maxY = p[1];
-    }
-  }
-  return [minX, minY, maxX, maxY];
+  const b = boundsOfPoints(mp.flatMap((poly) => poly[0] ?? []));
+  return b ? [b.minX, b.minY, b.maxX, b.maxY] : [Infinity, Infinity, -Infinity, -Infinity];
 }

@@ -1,3 +1,4 @@
+import { REL_EPS, SOLVER_EPS_RAD } from '../geometry/tolerance';
 import type { Vec3 } from '../geometry/vec3';
 
 /**
@@ -35,7 +36,7 @@ export function sphereReflectionPoint(C: Vec3, R: number, E: Vec3, Q: Vec3): Vec
   let bz = qz - qa * az;
   const qb = Math.sqrt(bx * bx + by * by + bz * bz);
   const psi = Math.atan2(qb, qa);
-  if (qb <= 1e-15 * qL) {
+  if (qb <= SOLVER_EPS_RAD * qL) {
     // Q on the line through C and E: on E's side the normal toward E reflects onto itself.
     if (qa > 0) return [ax, ay, az];
     return null;
@@ -85,7 +86,7 @@ export function sphereReflectionPoint(C: Vec3, R: number, E: Vec3, Q: Vec3): Vec
   const s = Math.sin(phi);
   const m: Vec3 = [c * ax + s * bx, c * ay + s * by, c * az + s * bz];
   // Both points must be on the outer side of the tangent plane at P.
-  if (eL * c <= R * (1 + 1e-12)) return null;
-  if (qa * c + qb * s <= R * (1 + 1e-12)) return null;
+  if (eL * c <= R * (1 + REL_EPS)) return null;
+  if (qa * c + qb * s <= R * (1 + REL_EPS)) return null;
   return m;
 }

@@ -1,3 +1,5 @@
+import { LENGTH_EPS_M } from '../geometry/tolerance';
+import { clipToSlab } from '../geometry/clip';
 import { robustIntersection } from '../geometry/robust-boolean';
 import { clipOrientedCurvesToDisc } from '../geometry/clip-disc';
 import { signedRingArea, windingNumber, type Pair, type Polygon, type Ring } from '../geometry/polygon';
@@ -96,7 +98,7 @@ export function eyeSideShadows(pm: PlacedMirror, eyeM: Vec3, fan: TracedFan, wal
       [w.bM[0], w.bM[1], w.heightM],
       [w.aM[0], w.aM[1], w.heightM],
     ];
-    const near = clipSlab(quad, (p) => depth(p[0], p[1], p[2]), 1e-6, zmin);
+    const near = clipToSlab(quad, (p) => depth(p[0], p[1], p[2]), LENGTH_EPS_M, zmin);
     if (near.length < 3) continue;
     const img: Ring = near.map((p) => {
       const z = depth(p[0], p[1], p[2]);

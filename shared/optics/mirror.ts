@@ -1,3 +1,4 @@
+import { EYE_MARGIN, REL_EPS } from '../geometry/tolerance';
 import { add, dot, norm, scale, sub, type Vec3 } from '../geometry/vec3';
 import { OpticsInputError, requirePositive } from './errors';
 import { checkPose, frameOf, type Frame, type Pose } from './pose';
@@ -165,7 +166,7 @@ export function placeMirror(mirror: Mirror, pose: Pose): PlacedMirror {
 }
 
 /** True when unit direction m (from the centre) lies on the reflecting part, within `eps`. */
-export function onPortion(pm: PlacedMirror, m: Vec3, eps = 1e-12): boolean {
+export function onPortion(pm: PlacedMirror, m: Vec3, eps = REL_EPS): boolean {
   for (const { k, c } of pm.portion) if (dot(m, k) < c - eps) return false;
   return true;
 }
@@ -180,18 +181,18 @@ export function onPortion(pm: PlacedMirror, m: Vec3, eps = 1e-12): boolean {
 export function checkEye(pm: PlacedMirror, eyeM: Vec3, field = 'eyeM'): Vec3 {
   const e = sub(eyeM, pm.C);
   const dist = norm(e);
-  if (dist <= pm.R * (1 + 1e-9)) {
+  if (dist <= pm.R * (1 + EYE_MARGIN)) {
     throw new OpticsInputError(field, 'The eye is inside the mirror’s sphere; move the viewer in front of the mirror.');
   }
   if (!pm.isDome) {
-    if (dot(sub(eyeM, pm.pose.vertexM), pm.frame.w) <= 1e-9) {
+    if (dot(sub(eyeM, pm.pose.vertexM), pm.frame.w) <= EYE_MARGIN) {
       throw new OpticsInputError(field, 'The eye is behind the mirror; aim the mirror toward the viewer or move the viewer in front of it.');
     }
     return pm.frame.w;
   }
   const m = scale(e, 1 / dist);
   for (const { k } of pm.portion) {
-    if (dot(m, k) <= 1e-9) {
+    if (dot(m, k) <= EYE_MARGIN) {
       throw new OpticsInputError(field, 'The eye is behind the dome’s mounting surface; the viewer must be on the open side of the dome.');
     }
   }

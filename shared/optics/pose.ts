@@ -1,3 +1,4 @@
+import { ANGLE_EPS_RAD } from '../geometry/tolerance';
 import { cross, norm, type Vec3 } from '../geometry/vec3';
 import { OpticsInputError, requireFinite, requirePoint } from './errors';
 
@@ -18,7 +19,7 @@ export function poseFromAim(input: { vertexM: Vec3; azimuthRad: number; tiltDown
   const vertexM = requirePoint('vertexM', input.vertexM, 'mirror position');
   const az = requireFinite('azimuthRad', input.azimuthRad, 'aim (azimuth)');
   const tilt = requireFinite('tiltDownRad', input.tiltDownRad, 'tilt');
-  if (Math.abs(tilt) > Math.PI / 2 + 1e-12) {
+  if (Math.abs(tilt) > Math.PI / 2 + ANGLE_EPS_RAD) {
     throw new OpticsInputError('tiltDownRad', 'Tilt must be between 90° up and 90° down.');
   }
   const c = Math.cos(tilt);

@@ -1,9 +1,11 @@
 import { z } from 'zod';
 import { email, newPassword, personName, role, unitSystem } from './common';
+import { currentPasswordRule, passwordAgainRule, PASSWORDS_DIFFER } from './rules';
+import { zodText } from './zod-rules';
 
 export const signInBody = z.object({
   email,
-  password: z.string({ message: 'Enter your password.' }).min(1, 'Enter your password.').max(200, 'That password is too long.'),
+  password: zodText(currentPasswordRule),
 });
 export type SignInBody = z.infer<typeof signInBody>;
 
@@ -59,9 +61,9 @@ export const invitationDto = z.object({
 export type InvitationDto = z.infer<typeof invitationDto>;
 
 export const acceptInvitationBody = z
-  .object({ token: invitationToken, password: newPassword, confirm: z.string({ message: 'Type the password again.' }) })
+  .object({ token: invitationToken, password: newPassword, confirm: zodText(passwordAgainRule) })
   .strict()
-  .refine((b) => b.password === b.confirm, { message: 'The two passwords are not the same.', path: ['confirm'] });
+  .refine((b) => b.password === b.confirm, { message: PASSWORDS_DIFFER, path: ['confirm'] });
 export type AcceptInvitationBody = z.infer<typeof acceptInvitationBody>;
 
 export const outboxMessageDto = z.object({

@@ -5,3 +5,4 @@ export * from './projects';
 export * from './sheets';
 export * from './limits';
 export * from './criteria';
+export * from './rules';

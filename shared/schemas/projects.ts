@@ -1,18 +1,17 @@
 import { z } from 'zod';
-import { multiLine, singleLine, unitSystem } from './common';
+import { unitSystem } from './common';
 import { checkedMirrorSpec } from './catalog';
 import { isSimpleRing } from '../geometry/polygon';
 import { PLACEMENT_LIMITS } from './limits';
 import { criteriaSettings, criterionKind } from './criteria';
+import { labelRule, placementRules, projectRules } from './rules';
+import { zodText } from './zod-rules';
 
 const MAX_SITE_M = 2000;
 const coord = z.number({ message: 'Enter a position.' }).finite('Positions must be numbers.').min(-MAX_SITE_M, 'That point is more than 2 km from the origin.').max(MAX_SITE_M, 'That point is more than 2 km from the origin.');
 const pair = z.tuple([coord, coord], { message: 'A point needs x and y.' });
 const sceneId = z.string().min(1).max(40).regex(/^[A-Za-z0-9_-]+$/, 'Ids use letters, digits, dash or underscore.');
-const label = (what: string) => singleLine(z.string({ message: `Give the ${what} a name.` }).trim().min(1, `Give the ${what} a name.`).max(80, `Keep the ${what}'s name to 80 characters.`));
-const customer = singleLine(z.string().trim().max(160, 'Keep the customer to 160 characters.'));
-const site = singleLine(z.string().trim().max(200, 'Keep the site to 200 characters.'));
-const notes = (max: number, shown: string) => multiLine(z.string().max(max, `Keep the notes to ${shown} characters.`));
+const label = (what: string) => zodText(labelRule(what));
 
 export const wallKinds = ['wall', 'racking', 'door'] as const;
 export const wall = z
@@ -80,12 +79,12 @@ export const projectKinds = ['site', 'vehicle'] as const;
 export const projectStatuses = ['draft'] as const;
 
 const projectFields = {
-  name: label('project'),
-  customer: customer.default(''),
-  site: site.default(''),
+  name: zodText(projectRules.name),
+  customer: zodText(projectRules.customer).default(''),
+  site: zodText(projectRules.site).default(''),
   kind: z.enum(projectKinds, { message: 'Choose a site or a vehicle.' }).default('site'),
   units: unitSystem.nullable().default(null),
-  notes: notes(5000, '5,000').default(''),
+  notes: zodText(projectRules.notes).default(''),
   scene: scene.default({ walls: [], zones: [], viewers: [] }),
 };
 
@@ -96,10 +95,10 @@ export const patchProjectBody = z
   .object({
     version: z.number({ message: 'The change must say which version it edits.' }).int(),
     name: projectFields.name.optional(),
-    customer: customer.optional(),
-    site: site.optional(),
+    customer: zodText(projectRules.customer).optional(),
+    site: zodText(projectRules.site).optional(),
     units: unitSystem.nullable().optional(),
-    notes: notes(5000, '5,000').optional(),
+    notes: zodText(projectRules.notes).optional(),
     scene: scene.optional(),
   })
   .strict();
@@ -121,7 +120,7 @@ const placementFields = {
   azimuthRad: angle('aim direction', PLACEMENT_LIMITS.azimuthRad.min, PLACEMENT_LIMITS.azimuthRad.max),
   tiltDownRad: angle('tilt', PLACEMENT_LIMITS.tiltDownRad.min, PLACEMENT_LIMITS.tiltDownRad.max),
   viewerId: sceneId.nullable(),
-  notes: notes(2000, '2,000'),
+  notes: zodText(placementRules.notes),
 };
 
 const oneMirror = (b: { catalogueItemId?: number | null; customMirror?: unknown }) => (b.catalogueItemId == null) !== (b.customMirror == null);

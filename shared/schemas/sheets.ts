@@ -1,5 +1,7 @@
 import { z } from 'zod';
-import { email, multiLine } from './common';
+import { email } from './common';
+import { sheetEmailRules } from './rules';
+import { zodText } from './zod-rules';
 
 /** Paper the sheet is printed on; the default follows the project's units (imperial → US Letter). */
 export const sheetPapers = ['a4', 'letter'] as const;
@@ -12,7 +14,7 @@ export const sheetQuery = z.object({
 export const sheetEmailBody = z
   .object({
     to: email,
-    message: multiLine(z.string().trim().max(2000, 'Keep the note to 2,000 characters.')).optional(),
+    message: zodText(sheetEmailRules.note).optional(),
   })
   .strict();
 export type SheetEmailBody = z.input<typeof sheetEmailBody>;

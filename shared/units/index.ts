@@ -292,3 +292,5 @@ export function minorToText(minor: number, currency: string): string {
   const digits = minorDigits(currency);
   return (minor / 10 ** digits).toFixed(digits);
 }
+
+export { chooseScaleBar, SCALE_BAR_COUNTS, type ScaleBar } from './scale-bar';

@@ -70,3 +70,23 @@ export function demoPlacementDtos(projectId: number): PlacementDto[] {
     };
   });
 }
+
+/** One corner mirror (catalogue item 1) on a plan: the tests' common placement; override what a test needs. */
+export function testPlacement(overrides: Partial<PlacementDto> = {}): PlacementDto {
+  return {
+    id: 7,
+    projectId: 3,
+    label: 'Corner',
+    catalogueItemId: 1,
+    customMirror: null,
+    positionM: [0, 0],
+    heightM: 2.6,
+    azimuthRad: 0,
+    tiltDownRad: 0.3,
+    viewerId: 'v1',
+    notes: '',
+    version: 4,
+    updatedAt: '2025-01-01T00:00:00.000Z',
+    ...overrides,
+  };
+}

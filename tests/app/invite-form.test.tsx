@@ -3,6 +3,7 @@ import { render, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { InviteForm } from '@/components/forms/invite-form';
 import { ApiError } from '@/shared/api-client';
+import { ROLE_MESSAGE } from '@/shared/schemas/rules';
 
 describe('InviteForm', () => {
   it('asks for a role instead of choosing one for the admin', async () => {
@@ -14,7 +15,7 @@ describe('InviteForm', () => {
     await user.type(screen.getByTestId('invite-name'), 'New Person');
     await user.click(screen.getByTestId('invite-submit'));
 
-    expect(await screen.findByTestId('field-error-role')).toHaveTextContent('Choose a role.');
+    expect(await screen.findByTestId('field-error-role')).toHaveTextContent(ROLE_MESSAGE);
     expect(onSubmit).not.toHaveBeenCalled();
   });
 

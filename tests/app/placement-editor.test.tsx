@@ -2,34 +2,22 @@ import '@testing-library/jest-dom';
 import { act, fireEvent, screen, waitFor } from '@testing-library/react';
 import { PlacementEditor } from '@/components/placement/placement-editor';
 import { api } from '@/hooks/api';
+import { usePlacementWrites } from '@/hooks/use-placement-writes';
+import { usePlanEvaluation } from '@/hooks/use-plan-evaluation';
 import { projectKeys, useProjectQuery } from '@/hooks/use-projects';
 import { ApiError } from '@/shared/api-client';
 import { evaluateProject } from '@/shared/project-optics';
 import type { PlacementDto, ProjectDto } from '@/shared/schemas';
 import { formatLength } from '@/shared/units';
 import { makeTestQueryClient, renderWithQuery } from './render';
-import { TEST_CATALOGUE } from './fixtures';
+import { TEST_CATALOGUE, testPlacement } from './fixtures';
 
 jest.mock('@/hooks/api', () => ({
   api: { projects: { get: jest.fn(), updatePlacement: jest.fn(), removePlacement: jest.fn(), list: jest.fn() } },
 }));
 
 const catalogue = TEST_CATALOGUE;
-const placement: PlacementDto = {
-  id: 7,
-  projectId: 3,
-  label: 'Corner',
-  catalogueItemId: 1,
-  customMirror: null,
-  positionM: [0, 0],
-  heightM: 2.6,
-  azimuthRad: 0,
-  tiltDownRad: 0.3,
-  viewerId: 'v1',
-  notes: '',
-  version: 4,
-  updatedAt: '2025-01-01T00:00:00.000Z',
-};
+const placement: PlacementDto = testPlacement();
 const project: ProjectDto = {
   id: 3,
   name: 'Test aisle',
@@ -58,7 +46,15 @@ const project: ProjectDto = {
 function Harness({ onClose }: { onClose?: () => void }) {
   const q = useProjectQuery(3);
   if (!q.data) return null;
-  return <PlacementEditor project={q.data} placementId={7} catalogue={catalogue} units="imperial" canEdit onClose={onClose} />;
+  return <Fed project={q.data} onClose={onClose} />;
+}
+
+/** Feeds the editor as the plan does: the shared write path and the plan's evaluation of its placements. */
+function Fed({ project: p, onClose }: { project: ProjectDto; onClose?: () => void }) {
+  const writes = usePlacementWrites(p);
+  const evaluation = usePlanEvaluation(p.scene, writes.placements, catalogue);
+  const live = writes.placements.find((x) => x.id === 7) ?? null;
+  return <PlacementEditor project={p} placement={live} writes={writes} evaluation={evaluation} catalogue={catalogue} units="imperial" canEdit onClose={onClose} />;
 }
 
 function renderEditor(onClose?: () => void) {
@@ -95,21 +91,38 @@ describe('PlacementEditor', () => {
     await waitFor(() => expect(screen.getByTestId('placement-save-status')).toHaveTextContent('All changes saved.'));
   });
 
-  it("keeps the typed value and shows the server's on a 409", async () => {
+  /** Types 10 ft and saves; the server answers 409 with someone else's 8 ft (version 5). */
+  async function heightConflict() {
     const theirs = { ...placement, heightM: 2.4384, version: 5 };
     jest.mocked(api.projects.updatePlacement).mockRejectedValue(new ApiError(409, 'Changed elsewhere.', {}, undefined, theirs));
     renderEditor();
-
     fireEvent.change(screen.getByTestId('placement-height'), { target: { value: '10 ft' } });
     fireEvent.click(screen.getByTestId('placement-save'));
-
     await screen.findByTestId('placement-conflict');
+    return theirs;
+  }
+
+  it("keeps the typed value and shows the server's on a 409", async () => {
+    await heightConflict();
     expect(screen.getByTestId('placement-conflict-theirs-values')).toHaveTextContent(`height ${formatLength(2.4384, 'imperial')}`);
     expect(screen.getByTestId('placement-height')).toHaveValue('10 ft');
 
     jest.mocked(api.projects.updatePlacement).mockResolvedValue({ placement: { ...placement, heightM: 10 * 0.3048, version: 6 } });
     fireEvent.click(screen.getByTestId('placement-conflict-keep'));
     await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenLastCalledWith(3, 7, { heightM: 10 * 0.3048, version: 5 }));
+  });
+
+  it('keeps a change made after a conflict, says it is not saved, and saves it with the first when the person keeps their own values', async () => {
+    const theirs = await heightConflict();
+    fireEvent.change(screen.getByTestId('placement-tilt'), { target: { value: '20°' } });
+
+    expect(screen.getByTestId('placement-conflict-mine-values')).toHaveTextContent('tilt 20');
+    expect(screen.getByTestId('placement-save-status')).toHaveTextContent('Not saved: changed elsewhere.');
+    expect(api.projects.updatePlacement).toHaveBeenCalledTimes(1);
+
+    jest.mocked(api.projects.updatePlacement).mockResolvedValue({ placement: { ...theirs, heightM: 10 * 0.3048, tiltDownRad: (20 * Math.PI) / 180, version: 6 } });
+    fireEvent.click(screen.getByTestId('placement-conflict-keep'));
+    await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenLastCalledWith(3, 7, { heightM: 10 * 0.3048, tiltDownRad: (20 * Math.PI) / 180, version: 5 }));
   });
 
   it('says why a typed height cannot be read, and does not save it', () => {

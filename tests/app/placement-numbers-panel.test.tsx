@@ -4,7 +4,7 @@ import { PlacementNumbersPanel, rimSqueezeText } from '@/components/placement/nu
 import { evaluateProject } from '@/shared/project-optics';
 import type { PlacementDto, Scene } from '@/shared/schemas';
 import { formatAngle, formatArea, formatLength, formatNumber, formatPercent, type UnitSystem } from '@/shared/units';
-import { TEST_CATALOGUE } from './fixtures';
+import { TEST_CATALOGUE, testPlacement } from './fixtures';
 
 // An invented aisle: a viewer 6 m from a 600 mm round mirror on a 0.8 m sphere, mounted at 2.6 m.
 const catalogue = TEST_CATALOGUE;
@@ -13,21 +13,7 @@ const scene: Scene = {
   zones: [{ id: 'z1', name: 'Crossing', polygonM: [[2, -3], [8, -3], [8, 3], [2, 3]], target: { kind: 'adult' } }],
   viewers: [{ id: 'v1', name: 'Driver', positionM: [6, 0], eyeHeightM: 1.6 }],
 };
-const placement: PlacementDto = {
-  id: 7,
-  projectId: 1,
-  label: 'Corner',
-  catalogueItemId: 1,
-  customMirror: null,
-  positionM: [0, 0],
-  heightM: 2.6,
-  azimuthRad: 0,
-  tiltDownRad: 0.3,
-  viewerId: 'v1',
-  notes: '',
-  version: 1,
-  updatedAt: '2025-01-01T00:00:00.000Z',
-};
+const placement: PlacementDto = testPlacement({ projectId: 1, version: 1 });
 
 const project = evaluateProject({ scene, placements: [placement], catalogue });
 const evaluation = project.placements[0];

@@ -1,6 +1,7 @@
 import '@testing-library/jest-dom';
 import { fireEvent, screen } from '@testing-library/react';
 import { PlanDetails, type PlanDetailsProps } from '@/components/plan/plan-details';
+import { usePlacementWrites } from '@/hooks/use-placement-writes';
 import type { ProjectDto, Scene } from '@/shared/schemas';
 import { renderWithQuery } from './render';
 
@@ -21,12 +22,18 @@ const project = {
   version: 1, createdAt: STAMP, updatedAt: STAMP, units: null, notes: '', scene, placements: [], canEdit: true,
 } satisfies ProjectDto;
 
-function renderDetails(overrides: Partial<PlanDetailsProps>) {
-  const props: PlanDetailsProps = {
+/** The details with the real placement write path (the one the plan passes down). */
+function Details(props: Omit<PlanDetailsProps, 'writes'>) {
+  const writes = usePlacementWrites(props.project);
+  return <PlanDetails {...props} writes={writes} />;
+}
+
+function renderDetails(overrides: Partial<Omit<PlanDetailsProps, 'writes'>>) {
+  const props: Omit<PlanDetailsProps, 'writes'> = {
     project, scene, placements: [], evaluation: null, catalogue: [], units: 'metric', canEdit: true, selection: null,
     onSelect: jest.fn(), onViewerEyeHeight: jest.fn(), onZoneCriterion: jest.fn(), onCriteria: jest.fn(), ...overrides,
   };
-  renderWithQuery(<PlanDetails {...props} />);
+  renderWithQuery(<Details {...props} />);
   return props;
 }
 

@@ -3,6 +3,7 @@ import { fireEvent, render, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { SignInForm } from '@/components/forms/sign-in-form';
 import { ApiError } from '@/shared/api-client';
+import { currentPasswordRule, emailRule } from '@/shared/schemas/rules';
 
 describe('SignInForm', () => {
   it('shows a message beside each empty field and does not submit', async () => {
@@ -11,8 +12,8 @@ describe('SignInForm', () => {
 
     fireEvent.click(screen.getByTestId('sign-in-submit'));
 
-    expect(await screen.findByTestId('field-error-email')).toHaveTextContent('Enter your e-mail address.');
-    expect(screen.getByTestId('field-error-password')).toHaveTextContent('Enter your password.');
+    expect(await screen.findByTestId('field-error-email')).toHaveTextContent(emailRule.required!);
+    expect(screen.getByTestId('field-error-password')).toHaveTextContent(currentPasswordRule.required!);
     expect(onSubmit).not.toHaveBeenCalled();
   });
 

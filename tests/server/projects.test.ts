@@ -201,6 +201,38 @@ describe('stale versions and bad bodies', () => {
     expect(stale.body.current).toMatchObject({ heightM: 4, version: 2 });
   });
 
+  it("keeps the project's version when a mirror is added, changed or removed, so the plan's next save is not refused", async () => {
+    const a = await as('installerA');
+    const p = (await a.post('/api/projects').send(newProject('Mirror edits beside plan edits'))).body.project;
+    const pl = (await a.post(`/api/projects/${p.id}/placements`).send(newPlacement(await firstCatalogueId()))).body.placement;
+    await a.patch(`/api/projects/${p.id}/placements/${pl.id}`).send({ version: pl.version, heightM: 3.4 });
+    await a.delete(`/api/projects/${p.id}/placements/${pl.id}`);
+    const planSave = await a.patch(`/api/projects/${p.id}`).send({ version: p.version, notes: 'Plan edited after the mirror changes' });
+    expect(planSave.status).toBe(200);
+  });
+
+  it('lets only one of two simultaneous edits of the same version through, and tells the other what was saved', async () => {
+    const a = await as('installerA');
+    const p = (await a.post('/api/projects').send(newProject('Simultaneous edits'))).body.project;
+    const pl = (await a.post(`/api/projects/${p.id}/placements`).send(newPlacement(await firstCatalogueId()))).body.placement;
+    const [one, two] = await Promise.all([
+      a.patch(`/api/projects/${p.id}/placements/${pl.id}`).send({ version: pl.version, heightM: 3.3 }),
+      a.patch(`/api/projects/${p.id}/placements/${pl.id}`).send({ version: pl.version, heightM: 4.4 }),
+    ]);
+    expect([one.status, two.status].sort()).toEqual([200, 409]);
+    const [won, lost] = one.status === 200 ? [one, two] : [two, one];
+    expect(lost.body.current).toMatchObject({ heightM: won.body.placement.heightM, version: won.body.placement.version });
+  });
+
+  it('answers 409 for a duplicate catalogue code found only by the database, naming the field', async () => {
+    const admin = await as('admin');
+    const items = (await admin.get('/api/catalog')).body.items;
+    const [first, second] = items;
+    const res = await admin.patch(`/api/catalog/${second.id}`).send({ version: second.version, code: first.code });
+    expect(res.status).toBe(409);
+    expect(res.body.fields.code).toBe('This code is already in use.');
+  });
+
   it.each([
     ['a project without a name', { ...newProject(), name: '' }, 'name', 'Give the project a name.'],
     [

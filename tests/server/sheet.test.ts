@@ -17,7 +17,8 @@ import { createLogger } from '../../server/logger';
 import { createMailer } from '../../server/modules/mail/mailer';
 import { OutgoingMail } from '../../server/modules/mail/outgoing-mail.entity';
 import { SAFETY_CAUTIONS } from '../../shared/cautions';
-import { LABEL_LINE_PT, OUTLINE_TOLERANCE_PT, labelSpot, simplifyRing } from '../../server/pdf/draw-plan';
+import { LABEL_LINE_PT, OUTLINE_TOLERANCE_PT, labelSpot } from '../../server/pdf/draw-plan';
+import { simplifyRing } from '../../shared/geometry/simplify';
 import { sheetFormat } from '../../server/pdf/sheet-model';
 import { EMAIL, startHarness, type Harness } from './harness';
 
@@ -280,6 +281,7 @@ describe('drawing the plan', () => {
     expect(50 - Math.sqrt(50 ** 2 - (longest / 2) ** 2)).toBeLessThanOrEqual(OUTLINE_TOLERANCE_PT);
     expect(simplifyRing(circle, OUTLINE_TOLERANCE_PT)).toEqual(simple);
     const square: [number, number][] = [[0, 0], [40, 0], [40, 40], [0, 40]];
-    expect(simplifyRing(square, OUTLINE_TOLERANCE_PT)).toEqual(square);
+    // The shared simplification returns the ring closed (first point repeated).
+    expect(simplifyRing(square, OUTLINE_TOLERANCE_PT)).toEqual([...square, square[0]]);
   });
 });

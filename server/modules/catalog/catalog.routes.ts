@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { UniqueConstraintViolationException } from '@mikro-orm/core';
+import { LockMode } from '@mikro-orm/core';
 import { createCatalogueItemBody, idParam, patchCatalogueItemBody } from '../../../shared/schemas';
 import type { Orm } from '../../db';
 import { HttpError, notFound } from '../../http-error';
@@ -8,8 +8,10 @@ import { parseOr400 } from '../../middleware/validate';
 import { assignMirror, toCatalogueItemDto } from './catalog.dto';
 import { MirrorModel } from './mirror-model.entity';
 import { visibleCatalogue } from '../projects/project-access';
+import { onDuplicate, onStaleVersion } from '../../write-conflicts';
 
-const duplicateCode = () => new HttpError(409, 'Another catalogue item already uses this code.', { code: 'This code is already in use.' });
+onDuplicate('mirror_model.code', () => new HttpError(409, 'Another catalogue item already uses this code.', { code: 'This code is already in use.' }));
+onStaleVersion(MirrorModel, 'catalogue item', async (em, stale) => toCatalogueItemDto(await em.findOneOrFail(MirrorModel, stale.id)));
 
 export function catalogRoutes(orm: Orm): Router {
   const r = Router();
@@ -23,16 +25,10 @@ export function catalogRoutes(orm: Orm): Router {
     const body = parseOr400(createCatalogueItemBody, req.body, 'The catalogue item');
     const em = orm.em.fork();
     const organization = req.user!.organization.id;
-    if (await em.count(MirrorModel, { organization, code: body.code })) throw duplicateCode();
     const { mirror, ...rest } = body;
     const item = em.create(MirrorModel, { ...rest, organization, shape: mirror.shape });
     assignMirror(item, mirror);
-    try {
-      await em.flush();
-    } catch (e) {
-      if (e instanceof UniqueConstraintViolationException) throw duplicateCode();
-      throw e;
-    }
+    await em.flush();
     res.status(201).json({ item: toCatalogueItemDto(item) });
   });
 
@@ -45,14 +41,10 @@ export function catalogRoutes(orm: Orm): Router {
     if (!item.organization) {
       throw new HttpError(403, 'The demo catalogue is shared and read-only. Add the mirror to your own catalogue under a new code to change it.');
     }
-    if (body.version !== item.version) {
-      throw new HttpError(409, 'Someone changed this catalogue item since you opened it. Review the current values and make your change again.', undefined, undefined, { current: toCatalogueItemDto(item) });
-    }
+    await em.lock(item, LockMode.OPTIMISTIC, body.version);
     const { mirror, version: _v, ...rest } = body;
-    if (rest.code && rest.code !== item.code && (await em.count(MirrorModel, { organization: req.user!.organization.id, code: rest.code }))) throw duplicateCode();
     em.assign(item, rest);
     if (mirror) assignMirror(item, mirror);
-    item.version += 1;
     await em.flush();
     res.json({ item: toCatalogueItemDto(item) });
   });

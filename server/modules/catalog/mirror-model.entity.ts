@@ -51,7 +51,7 @@ export class MirrorModel extends BaseRecord {
       notes: p.text().default(''),
       active: p.boolean().default(true),
       demo: p.boolean().default(false),
-      version: p.integer().default(1),
+      version: p.integer().version().default(1),
     }),
   });
 }

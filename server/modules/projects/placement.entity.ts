@@ -35,7 +35,7 @@ export class Placement extends BaseRecord {
       tiltDownRad: p.float(),
       viewerId: p.string().length(40).nullable(),
       notes: p.text().default(''),
-      version: p.integer().default(1),
+      version: p.integer().version().default(1),
     }),
   });
 }

@@ -34,7 +34,7 @@ export class Project extends BaseRecord {
       notes: p.text().default(''),
       status: p.enum([...projectStatuses]).default('draft'),
       scene: p.json<Scene>(),
-      version: p.integer().default(1),
+      version: p.integer().version().default(1),
       demo: p.boolean().default(false),
     }),
   });

@@ -1,17 +1,19 @@
 import { Router } from 'express';
+import { LockMode, raw, type EntityManager as AnyEntityManager } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/sqlite';
 import {
   createPlacementBody,
   createProjectBody,
   idParam,
-  singleLine,
   patchPlacementBody,
+  searchRule,
   patchProjectBody,
   type MirrorSpec,
 } from '../../../shared/schemas';
 import { mirrorOfSpec, mountProblem } from '../../../shared/project-optics';
 import { resolveUnits } from '../../../shared/units';
 import { mirrorOfModel } from '../catalog/catalog.dto';
+import { zodText } from '../../../shared/schemas/zod-rules';
 import { z } from 'zod';
 import type { Orm } from '../../db';
 import { HttpError, notFound } from '../../http-error';
@@ -23,15 +25,23 @@ import { Placement } from './placement.entity';
 import { Project } from './project.entity';
 import { assertCanEdit, canEdit, findVisibleProject, visibleCatalogue, visibleProjects } from './project-access';
 import { toPlacementDto, toProjectDto, toProjectSummaryDto } from './project.dto';
+import { onStaleVersion } from '../../write-conflicts';
+
+// A stale `version` fails in the ORM (optimistic locking); the error middleware answers 409 with these.
+onStaleVersion(Project, 'project', async (em, stale) => {
+  const project = await em.findOneOrFail(Project, stale.id, { populate: ['owner', 'organization'] });
+  return toProjectDto(project, await placementsOf(em, project), true);
+});
+onStaleVersion(Placement, 'mirror', async (em, stale) => toPlacementDto(await em.findOneOrFail(Placement, stale.id)));
 
 const listQuery = z.object({
-  q: singleLine(z.string().trim().max(100, 'Keep the search to 100 characters.')).optional(),
+  q: zodText(searchRule).optional(),
   sort: z.enum(['updated', 'name', 'customer'], { message: 'Sort by updated, name or customer.' }).default('updated'),
 });
 
 const loadVisible = findVisibleProject;
 
-async function placementsOf(em: EntityManager, project: Project): Promise<Placement[]> {
+async function placementsOf(em: AnyEntityManager, project: Project): Promise<Placement[]> {
   return em.find(Placement, { project: project.id }, { orderBy: { id: 'asc' } });
 }
 
@@ -67,10 +77,12 @@ async function checkMount(
   if (problem) throw new HttpError(400, problem.message, { positionM: problem.message });
 }
 
-const staleProject = (current: unknown) =>
-  new HttpError(409, 'This project was changed elsewhere since you opened it. Your change was not saved; the current version is loaded so you can make it again.', undefined, undefined, { current });
-const stalePlacement = (current: unknown) =>
-  new HttpError(409, 'This mirror was changed elsewhere since you opened it. Your change was not saved; the current values are loaded so you can make it again.', undefined, undefined, { current });
+
+/**
+ * Touches the project's `updatedAt` without a new project version: a mirror's change is not a plan
+ * change. Naming `version` (as itself) in the update stops MikroORM adding its `version + 1`.
+ */
+const touch = (em: EntityManager, project: Project) => em.nativeUpdate(Project, { id: project.id }, { updatedAt: new Date(), version: raw<Project, number>('version') });
 
 export function projectsRoutes(orm: Orm): Router {
   const r = Router();
@@ -115,7 +127,7 @@ export function projectsRoutes(orm: Orm): Router {
     const project = await loadVisible(em, req.user!, req.params.id);
     assertCanEdit(req.user!, project);
     const body = parseOr400(patchProjectBody, req.body, 'The change');
-    if (body.version !== project.version) throw staleProject(toProjectDto(project, await placementsOf(em, project), true));
+    await em.lock(project, LockMode.OPTIMISTIC, body.version);
     const { version: _v, ...changes } = body;
     if (changes.scene) {
       // A viewer still served by a mirror cannot vanish from the plan.
@@ -124,7 +136,6 @@ export function projectsRoutes(orm: Orm): Router {
       if (orphan) throw new HttpError(409, `Mirror "${orphan.label}" serves a viewer this change removes; move it to another viewer first.`, { scene: 'A viewer in use was removed.' });
     }
     em.assign(project, changes);
-    project.version += 1;
     await em.flush();
     res.json({ project: toProjectDto(project, await placementsOf(em, project), true) });
   });
@@ -154,8 +165,8 @@ export function projectsRoutes(orm: Orm): Router {
       xM: positionM[0],
       yM: positionM[1],
     });
-    project.updatedAt = new Date();
     await em.flush();
+    await touch(em, project);
     res.status(201).json({ placement: toPlacementDto(placement) });
   });
 
@@ -164,10 +175,10 @@ export function projectsRoutes(orm: Orm): Router {
     const project = await loadVisible(em, req.user!, req.params.id);
     assertCanEdit(req.user!, project);
     const placementId = parseOr400(idParam, req.params.placementId, 'The address');
+    const body = parseOr400(patchPlacementBody, req.body, 'The mirror');
     const placement = await em.findOne(Placement, { id: placementId, project: project.id });
     if (!placement) throw notFound('That mirror');
-    const body = parseOr400(patchPlacementBody, req.body, 'The mirror');
-    if (body.version !== placement.version) throw stalePlacement(toPlacementDto(placement));
+    await em.lock(placement, LockMode.OPTIMISTIC, body.version);
     await checkReferences(em, project, body);
     const merged = {
       label: body.label ?? placement.label,
@@ -189,9 +200,8 @@ export function projectsRoutes(orm: Orm): Router {
     if (catalogueItemId !== undefined) placement.catalogueItem = catalogueItemId === null ? null : em.getReference(MirrorModel, catalogueItemId);
     if (body.catalogueItemId != null) placement.customMirror = null;
     if (body.customMirror != null) placement.catalogueItem = null;
-    placement.version += 1;
-    project.updatedAt = new Date();
     await em.flush();
+    await touch(em, project);
     res.json({ placement: toPlacementDto(placement) });
   });
 
@@ -202,6 +212,7 @@ export function projectsRoutes(orm: Orm): Router {
     const placementId = parseOr400(idParam, req.params.placementId, 'The address');
     const deleted = await em.nativeDelete(Placement, { id: placementId, project: project.id });
     if (!deleted) throw notFound('That mirror');
+    await touch(em, project);
     res.status(204).end();
   });
 

@@ -1,5 +1,4 @@
 import { Router } from 'express';
-import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/sqlite';
 import { idParam, inviteBody, patchUserBody } from '../../../shared/schemas';
 import type { Orm } from '../../db';
@@ -12,6 +11,9 @@ import type { OrmSessionStore } from '../sessions/orm-session-store';
 import { createInvitation, invitationEmail } from './invitations';
 import { Invitation } from './invitation.entity';
 import { User } from './user.entity';
+import { onDuplicate } from '../../write-conflicts';
+
+onDuplicate('user.email', () => new HttpError(409, 'Someone already has an account with this e-mail address.', { email: 'This e-mail address already has an account.' }));
 import { toUserDto } from './user.dto';
 
 /** Adds an invitation and the e-mail carrying its link to `em`'s unit of work. */
@@ -59,15 +61,9 @@ export function usersRoutes(deps: { orm: Orm; outbox: MailDispatcher; store: Orm
     });
     const inviter = req.user!;
     queueInvitation(em, user, inviter, deps.publicUrl(req.get('host') ?? 'localhost'));
-    try {
-      // One transaction: the account, its invitation and the e-mail carrying the link.
-      await em.flush();
-    } catch (e) {
-      if (e instanceof UniqueConstraintViolationException) {
-        throw new HttpError(409, 'Someone already has an account with this e-mail address.', { email: 'This e-mail address already has an account.' });
-      }
-      throw e;
-    }
+    // One transaction: the account, its invitation and the e-mail carrying the link. Two admins
+    // inviting the same address at once: the unique index answers, mapped to 409 above.
+    await em.flush();
     outbox.kick();
     res.status(201).json({ user: toUserDto(user) });
   });

@@ -1,0 +1,206 @@
+/**
+ * Each form and the route it sends to must agree: the same generated values go through the
+ * form's yup schema (as Formik runs it) and, turned into the request the form would send, through
+ * the route's zod schema. Per field, both must accept, or both refuse with the same sentence.
+ */
+import fc from 'fast-check';
+import { validateYupSchema, yupToFormErrors } from 'formik';
+import { ValidationError, type AnyObject, type ObjectSchema } from 'yup';
+import type { z } from 'zod';
+import { bodyOf, catalogSchema, SERVER_TO_FORM, type CatalogFormValues } from '@/components/catalog/catalog-form';
+import { inviteBodyOf, inviteSchema, type InviteValues } from '@/components/forms/invite-form';
+import { setPasswordSchema, type SetPasswordValues } from '@/components/forms/set-password-form';
+import { signInSchema, type SignInValues } from '@/components/forms/sign-in-form';
+import { projectSchema, toCreateBody, type ProjectFormValues } from '@/components/projects/project-form';
+import { sheetEmailBodyOf, sheetEmailSchema, type SheetEmailValues } from '@/components/sheet/sheet-actions';
+import {
+  acceptInvitationBody,
+  createCatalogueItemBody,
+  createProjectBody,
+  fieldErrors,
+  inviteBody,
+  roles,
+  sheetEmailBody,
+  signInBody,
+} from '@/shared/schemas';
+import { catalogueRules, emailRule, MIRROR_SIZES, type TextRule } from '@/shared/schemas/rules';
+import { minorToText } from '@/shared/units';
+
+const RUNS = 300;
+
+async function formErrors<V extends object>(schema: ObjectSchema<AnyObject>, values: V): Promise<Record<string, string>> {
+  try {
+    await validateYupSchema(values, schema);
+    return {};
+  } catch (e) {
+    if (!(e instanceof ValidationError)) throw e;
+    return yupToFormErrors<Record<string, string>>(e) as Record<string, string>;
+  }
+}
+
+function routeErrors(schema: z.ZodType, body: unknown, rename: Record<string, string> = {}): Record<string, string> {
+  const r = schema.safeParse(body);
+  if (r.success) return {};
+  const out: Record<string, string> = {};
+  for (const [k, m] of Object.entries(fieldErrors(r.error.issues))) {
+    const name = rename[k] ?? k;
+    if (!(name in out)) out[name] = m;
+  }
+  return out;
+}
+
+/** Text across a rule's whole range: empty, blank, short, padded, around the length limit, pattern matches. */
+function textFor(rule: TextRule): fc.Arbitrary<string> {
+  const max = rule.maxLength.value;
+  const parts: fc.Arbitrary<string>[] = [
+    fc.constantFrom('', ' ', '\t \n'),
+    fc.string({ maxLength: 12 }),
+    fc.string({ unit: 'grapheme', maxLength: 12 }),
+    fc.tuple(fc.constantFrom('', ' ', '  '), fc.string({ minLength: Math.max(0, max - 2), maxLength: max + 2 }), fc.constantFrom('', ' ')).map(([a, b, c]) => a + b + c),
+  ];
+  if (rule.minLength) parts.push(fc.string({ minLength: rule.minLength.value - 1, maxLength: rule.minLength.value + 1 }));
+  if (rule.pattern) parts.push(fc.stringMatching(rule.pattern.re).map((s) => s.slice(0, max + 3)));
+  return fc.oneof(...parts);
+}
+
+const emailText = fc.oneof(
+  textFor(emailRule),
+  fc.emailAddress(),
+  fc.emailAddress().map((e) => ` ${e.toUpperCase()} `),
+  fc.constantFrom('a@b', 'a@b.c', 'a@b.co', 'a..b@c.com', '.a@b.com', 'a.@b.com', 'a@-b.com', 'a b@c.com', `${'a'.repeat(250)}@b.co`),
+);
+
+async function expectSameVerdicts<V extends object>(
+  arb: fc.Arbitrary<V>,
+  form: (v: V) => Promise<Record<string, string>>,
+  route: (v: V) => Record<string, string>,
+  fields: readonly string[],
+  /** Fields where only the verdict must agree for a value (a text the form reads that the request never carries). */
+  verdictOnly: (v: V) => readonly string[] = () => [],
+) {
+  await fc.assert(
+    fc.asyncProperty(arb, async (values) => {
+      const fromForm = await form(values);
+      const fromRoute = route(values);
+      const loose = verdictOnly(values);
+      for (const f of fields) {
+        if (loose.includes(f)) expect([f, fromForm[f] !== undefined]).toEqual([f, fromRoute[f] !== undefined]);
+        else expect([f, fromForm[f]]).toEqual([f, fromRoute[f]]);
+      }
+      expect(Object.keys(fromRoute).filter((f) => !fields.includes(f))).toEqual([]);
+    }),
+    { numRuns: RUNS },
+  );
+}
+
+describe('each form refuses what its route refuses, with the same sentence per field', () => {
+  it('sign-in form and POST /auth/sign-in', async () => {
+    const arb = fc.record<SignInValues>({ email: emailText, password: fc.oneof(fc.string({ maxLength: 210 }), fc.constantFrom('', ' ')) });
+    await expectSameVerdicts(
+      arb,
+      (v) => formErrors(signInSchema, v),
+      (v) => routeErrors(signInBody, { email: v.email.trim(), password: v.password }),
+      ['email', 'password'],
+    );
+  });
+
+  it('invite form and POST /users', async () => {
+    const arb = fc.record<InviteValues>({
+      email: emailText,
+      name: textFor({ trim: true, maxLength: { value: 120, message: '' } }),
+      role: fc.constantFrom('', ...roles),
+    });
+    await expectSameVerdicts(
+      arb,
+      (v) => formErrors(inviteSchema, v),
+      (v) => routeErrors(inviteBody, inviteBodyOf(v, v.role)),
+      ['email', 'name', 'role'],
+    );
+  });
+
+  it('set-password form and POST /invitations/accept', async () => {
+    const password = fc.oneof(fc.string({ maxLength: 80 }), fc.string({ minLength: 8, maxLength: 12 }), fc.constantFrom('', ' '.repeat(10)));
+    const arb = fc.oneof(
+      fc.record<SetPasswordValues>({ password, confirm: password }),
+      password.map((p) => ({ password: p, confirm: p })),
+    );
+    await expectSameVerdicts(
+      arb,
+      (v) => formErrors(setPasswordSchema, v),
+      (v) => routeErrors(acceptInvitationBody, { token: 'x'.repeat(43), ...v }),
+      ['password', 'confirm'],
+    );
+  });
+
+  it('new-project form and POST /projects', async () => {
+    const arb = fc.record<ProjectFormValues>({
+      name: textFor({ trim: true, maxLength: { value: 80, message: '' } }),
+      customer: textFor({ trim: true, maxLength: { value: 160, message: '' } }),
+      site: textFor({ trim: true, maxLength: { value: 200, message: '' } }),
+      units: fc.constantFrom('mine', 'metric', 'imperial'),
+      notes: fc.oneof(fc.string({ maxLength: 20 }), fc.string({ minLength: 4998, maxLength: 5002 })),
+    });
+    await expectSameVerdicts(
+      arb,
+      (v) => formErrors(projectSchema, v),
+      (v) => routeErrors(createProjectBody, toCreateBody(v)),
+      ['name', 'customer', 'site', 'units', 'notes'],
+    );
+  });
+
+  it('sheet e-mail form and POST /projects/:id/sheet/email', async () => {
+    const arb = fc.record<SheetEmailValues>({ to: emailText, note: fc.oneof(fc.string({ maxLength: 20 }), fc.string({ minLength: 1998, maxLength: 2003 })) });
+    await expectSameVerdicts(
+      arb,
+      (v) => formErrors(sheetEmailSchema, v),
+      (v) => routeErrors(sheetEmailBody, sheetEmailBodyOf(v), { message: 'note' }),
+      ['to', 'note'],
+    );
+  });
+
+  it('catalogue form (metric) and POST /catalog', async () => {
+    const CATALOGUE_FIELDS = ['code', 'name', 'shape', 'portion', 'diameterM', 'widthM', 'heightM', 'radiusM', 'material', 'reflectancePct', 'massKg', 'price', 'currency', 'notes'];
+    const limits = Object.values(MIRROR_SIZES).flatMap((s) => [s.minM, s.maxM]);
+    const size = fc.oneof(fc.constant(null), fc.double({ min: -1, max: 60, noNaN: true }), fc.double({ min: 0, max: 3.5, noNaN: true }), fc.constantFrom(...limits), fc.constantFrom(...limits).map((m) => m * (1 - 1e-9)));
+    const decimalText = (max: number) =>
+      fc.oneof(
+        fc.constantFrom('', ' ', 'abc', '-1', '1e3', '12,5', '0'),
+        fc.double({ min: 0, max, noNaN: true }).map((n) => String(Math.round(n * 100) / 100)),
+        fc.double({ min: 0, max, noNaN: true }).map((n) => String(Math.round(n * 10) / 10).replace('.', ',')),
+      );
+    const currency = fc.oneof(fc.constantFrom('EUR', 'usd', ' jpy ', 'GBP', 'EU', 'EURO', '', 'E1R'), fc.string({ maxLength: 4 }));
+    const arb = fc
+      .record<Omit<CatalogFormValues, 'price'>>({
+        code: textFor(catalogueRules.code),
+        name: textFor(catalogueRules.name),
+        shape: fc.constantFrom('round', 'rect', 'dome'),
+        portion: fc.constantFrom('full', 'half', 'quarter'),
+        diameterM: size,
+        widthM: size,
+        heightM: size,
+        radiusM: size,
+        material: textFor(catalogueRules.material),
+        reflectancePct: decimalText(120),
+        massKg: decimalText(250),
+        currency,
+        notes: fc.oneof(fc.string({ maxLength: 20 }), fc.string({ minLength: 1998, maxLength: 2003 })),
+        active: fc.boolean(),
+      })
+      .chain((v) =>
+        fc
+          .oneof(
+            fc.integer({ min: 0, max: 200_000_000 }).map((minor) => minorToText(minor, v.currency.trim().toUpperCase() || 'EUR')),
+            fc.constantFrom('', 'free', '12.345', '1,000,000.00', '-5'),
+          )
+          .map((price) => ({ ...v, price })),
+      );
+    await expectSameVerdicts(
+      arb,
+      (v) => formErrors(catalogSchema('metric'), v),
+      (v) => routeErrors(createCatalogueItemBody, bodyOf(v), SERVER_TO_FORM),
+      CATALOGUE_FIELDS,
+      // A price the form cannot read is never sent as text: the form explains the reading, the route refuses the missing number.
+      (v) => (Number.isNaN(bodyOf(v).unitPriceMinor) ? ['price'] : []),
+    );
+  });
+});
