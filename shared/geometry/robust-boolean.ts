@@ -30,6 +30,10 @@ function toPath(ring: Ring): IntPoint[] {
   const n = closed ? ring.length - 1 : ring.length;
   const out: IntPoint[] = [];
   for (let i = 0; i < n; i++) {
+    if (!Number.isFinite(ring[i][0]) || !Number.isFinite(ring[i][1])) {
+      // Rounding would turn it into garbage silently; callers turn this into a sentence.
+      throw new RangeError('A polygon has a corner whose coordinates are not finite numbers.');
+    }
     const p = { X: Math.round(ring[i][0] * S), Y: Math.round(ring[i][1] * S) };
     const last = out[out.length - 1];
     if (!last || last.X !== p.X || last.Y !== p.Y) out.push(p);

@@ -16,7 +16,7 @@ describe('the uncovered part of a zone', () => {
   });
 
   it('says in a sentence that the gap could not be drawn when the boolean operation fails, instead of showing no gap', () => {
-    // A coverage outline with a coordinate that is not a number makes polygon-clipping throw at every snap step.
+    // A coverage outline with a coordinate that is not a number: the booleans refuse it rather than guess.
     const gap = uncoveredPart(zone, [[[[[0, 0], [Number.NaN, 0], [5, 10]]]]], 'Crossing');
     expect(gap).toEqual({ ok: false, problem: expect.stringContaining('“Crossing” could not be drawn') });
   });

@@ -226,8 +226,10 @@ describe('stale versions and bad bodies', () => {
 
   it('answers 409 for a duplicate catalogue code found only by the database, naming the field', async () => {
     const admin = await as('admin');
-    const items = (await admin.get('/api/catalog')).body.items;
-    const [first, second] = items;
+    // The organisation's own items (the shared demo set is read-only).
+    const own = (code: string) => ({ code, name: `Own round ${code}`, mirror: { shape: 'round', diameterM: 0.7, radiusM: 1.4 }, material: 'acrylic', reflectance: 0.8, massKg: 4, unitPriceMinor: 14900, currency: 'EUR' });
+    const first = (await admin.post('/api/catalog').send(own('OWN-1'))).body.item;
+    const second = (await admin.post('/api/catalog').send(own('OWN-2'))).body.item;
     const res = await admin.patch(`/api/catalog/${second.id}`).send({ version: second.version, code: first.code });
     expect(res.status).toBe(409);
     expect(res.body.fields.code).toBe('This code is already in use.');
