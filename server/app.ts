@@ -24,6 +24,7 @@ import { usersRoutes } from './modules/users/users.routes';
 import { catalogRoutes } from './modules/catalog/catalog.routes';
 import { projectsRoutes } from './modules/projects/projects.routes';
 import { sheetsRoutes } from './modules/sheets/sheets.routes';
+import { createSheetWork, type SheetWork } from './workers/sheet-pool';
 
 export interface AppDeps {
   config: AppConfig;
@@ -32,6 +33,8 @@ export interface AppDeps {
   log: Logger;
   sessionSecret: string;
   signInLimits?: SignInLimits;
+  /** The sheet worker pool; by default one is made from the config and closed with the app. */
+  sheetWork?: SheetWork;
 }
 
 export interface SightfanApp {
@@ -70,7 +73,12 @@ export function createApp(deps: AppDeps): SightfanApp {
   );
 
   const store = new OrmSessionStore(orm);
+  const work = deps.sheetWork ?? createSheetWork({ budgetMs: config.sheetBudgetMs, threads: config.sheetWorkers });
   const api = express.Router();
+  // First, before sessions and the database: "is the process up and answering".
+  api.get('/health', (_req, res) => {
+    res.set('Cache-Control', 'no-store').json({ ok: true });
+  });
   if (config.devOrigins.length) {
     api.use(cors({ origin: config.devOrigins, credentials: true }));
   }
@@ -101,16 +109,13 @@ export function createApp(deps: AppDeps): SightfanApp {
   });
 
   const publicUrl = (host: string) => config.publicUrl ?? `http://${host}`;
-  api.get('/health', (_req, res) => {
-    res.json({ ok: true });
-  });
   api.use('/auth', authRoutes(orm, new SignInLimiter(deps.signInLimits ?? DEFAULT_SIGN_IN_LIMITS)));
   api.use('/invitations', invitationsRoutes(orm, config.bcryptCost));
   api.use('/users', usersRoutes({ orm, mailer: deps.mailer, store, publicUrl }));
   api.use('/outbox', outboxRoutes(orm, config.demoMode));
   api.use('/catalog', catalogRoutes(orm));
   api.use('/projects', projectsRoutes(orm));
-  api.use('/projects', sheetsRoutes({ orm, mailer: deps.mailer }));
+  api.use('/projects', sheetsRoutes({ orm, mailer: deps.mailer, work }));
   api.use(apiNotFound);
   app.use('/api', api);
 
@@ -136,5 +141,11 @@ export function createApp(deps: AppDeps): SightfanApp {
   });
   app.use(errorHandler(log));
 
-  return { app, close: () => store.close() };
+  return {
+    app,
+    close: () => {
+      store.close();
+      if (!deps.sheetWork) void work.close();
+    },
+  };
 }

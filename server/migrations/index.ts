@@ -6,9 +6,11 @@ import type { MigrationObject } from '@mikro-orm/core';
 import { Migration20261202022227 } from './Migration20261202022227';
 import { Migration20261202030218 } from './Migration20261202030218';
 import { Migration20261202032324 } from './Migration20261202032324';
+import { Migration20261202140000 } from './Migration20261202140000';
 
 export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261202022227', class: Migration20261202022227 },
   { name: 'Migration20261202030218', class: Migration20261202030218 },
   { name: 'Migration20261202032324', class: Migration20261202032324 },
+  { name: 'Migration20261202140000', class: Migration20261202140000 },
 ];

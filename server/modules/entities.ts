@@ -12,5 +12,6 @@ import { MirrorModel } from './catalog/mirror-model.entity';
 import { Project } from './projects/project.entity';
 import { Placement } from './projects/placement.entity';
 import { SheetRevision } from './sheets/sheet-revision.entity';
+import { SheetEvaluation } from './sheets/sheet-evaluation.entity';
 
-export const entities = [Organization.schema, User.schema, Invitation.schema, SessionRecord.schema, MailMessage.schema, MirrorModel.schema, Project.schema, Placement.schema, SheetRevision.schema];
+export const entities = [Organization.schema, User.schema, Invitation.schema, SessionRecord.schema, MailMessage.schema, MirrorModel.schema, Project.schema, Placement.schema, SheetRevision.schema, SheetEvaluation.schema];

@@ -8,6 +8,7 @@ import {
   patchProjectBody,
   type Scene,
 } from '../../../shared/schemas';
+import { LIMIT_MESSAGES, SCENE_LIMITS } from '../../../shared/schemas/limits';
 import { z } from 'zod';
 import type { Orm } from '../../db';
 import { HttpError, notFound } from '../../http-error';
@@ -125,6 +126,8 @@ export function projectsRoutes(orm: Orm): Router {
     const project = await loadVisible(em, req.user!, req.params.id);
     assertCanEdit(req.user!, project);
     const body = parseOr400(createPlacementBody, req.body, 'The mirror');
+    // The mirror limit bounds the sheet's work (SCENE_LIMITS); counted before the body's references.
+    if ((await em.count(Placement, { project: project.id })) >= SCENE_LIMITS.mirrors) throw new HttpError(409, LIMIT_MESSAGES.mirrors);
     await checkReferences(em, project.scene, body);
     const { positionM, catalogueItemId, ...rest } = body;
     const placement = em.create(Placement, {

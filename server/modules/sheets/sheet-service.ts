@@ -1,14 +1,17 @@
 /**
- * Loads what a sheet needs, computes its content and hash, and issues revisions: a new revision
- * only when the content hash differs from the latest one.
+ * Loads what a sheet needs, gets its content (from the evaluation cache, or worked out on the sheet
+ * worker pool), issues revisions and renders them. Only `issueRevision` writes a revision: reading a
+ * sheet (its status, a PDF of an issued revision) changes nothing.
  */
+import { createHash } from 'node:crypto';
 import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/sqlite';
 import { idParam, type SheetPaper, type SheetRevisionDto } from '../../../shared/schemas';
 import { HttpError, notFound } from '../../http-error';
 import { parseOr400 } from '../../middleware/validate';
-import { buildSheetContent, contentHash, sheetFilename, type BuiltSheet } from '../../pdf/sheet-model';
-import { defaultPaper, renderSheet } from '../../pdf/render-sheet';
+import { canonicalJson, sheetFilename, type SheetContent, type SheetInput } from '../../pdf/sheet-model';
+import { defaultPaper } from '../../pdf/render-sheet';
+import type { SheetWork } from '../../workers/sheet-pool';
 import { toCatalogueItemDto } from '../catalog/catalog.dto';
 import { MirrorModel } from '../catalog/mirror-model.entity';
 import { Placement } from '../projects/placement.entity';
@@ -16,38 +19,86 @@ import { Project } from '../projects/project.entity';
 import { visibleProjects } from '../projects/project-access';
 import { toPlacementDto } from '../projects/project.dto';
 import { User } from '../users/user.entity';
+import { SheetEvaluation } from './sheet-evaluation.entity';
 import { SheetRevision } from './sheet-revision.entity';
+
+/**
+ * Part of every evaluation cache key. Raise it whenever the sheet model or the engine changes what a
+ * sheet says for the same input (the cache is also emptied when the server starts).
+ */
+export const SHEET_MODEL_VERSION = 1;
+/** Cached evaluations kept; the least recently used beyond this are deleted. */
+export const SHEET_CACHE_ROWS = 200;
 
 export interface CurrentSheet {
   project: Project;
-  built: BuiltSheet;
+  content: SheetContent;
   hash: string;
 }
 
-export async function loadCurrentSheet(em: EntityManager, user: User, rawId: unknown): Promise<CurrentSheet> {
+export async function loadProject(em: EntityManager, user: User, rawId: unknown): Promise<Project> {
   const id = parseOr400(idParam, rawId, 'The address');
   const project = await em.findOne(Project, { $and: [{ id }, visibleProjects(user)] }, { populate: ['owner', 'organization'] });
   if (!project) throw notFound('That project');
+  return project;
+}
+
+async function sheetInput(em: EntityManager, project: Project): Promise<SheetInput> {
   const placements = await em.find(Placement, { project: project.id }, { orderBy: { id: 'asc' } });
   const catalogue = (await em.find(MirrorModel, {}, { orderBy: { id: 'asc' } })).map(toCatalogueItemDto);
-  const built = buildSheetContent({
+  // Only the catalogue items placed here: other items' edits must not change this project's key.
+  const used = new Set(placements.map((p) => p.catalogueItem?.id).filter((id) => id != null));
+  return {
     project: { id: project.id, name: project.name, customer: project.customer, site: project.site, kind: project.kind, notes: project.notes, units: project.units, scene: project.scene },
     owner: { name: project.owner.name, email: project.owner.email, units: project.owner.units },
     organization: project.organization.name,
     placements: placements.map(toPlacementDto),
-    catalogue,
-  });
-  return { project, built, hash: contentHash(built.content) };
+    catalogue: catalogue.filter((c) => used.has(c.id)),
+  };
+}
+
+export const inputHash = (input: SheetInput) => createHash('sha256').update(canonicalJson({ v: SHEET_MODEL_VERSION, input })).digest('hex');
+
+/** The project's sheet content as it stands: from the cache when its input was evaluated before. */
+export async function currentContent(em: EntityManager, project: Project, work: SheetWork): Promise<CurrentSheet> {
+  const input = await sheetInput(em, project);
+  const key = inputHash(input);
+  const hit = await em.findOne(SheetEvaluation, { inputHash: key });
+  if (hit) {
+    await em.nativeUpdate(SheetEvaluation, { inputHash: key }, { usedAt: new Date() });
+    return { project, content: JSON.parse(hit.content) as SheetContent, hash: hit.contentHash };
+  }
+  const built = await work.build(input);
+  await storeEvaluation(em, key, built.content, built.hash);
+  return { project, content: built.content, hash: built.hash };
+}
+
+async function storeEvaluation(em: EntityManager, key: string, content: SheetContent, hash: string): Promise<void> {
+  const fork = em.fork();
+  try {
+    await fork.insert(SheetEvaluation, { inputHash: key, content: JSON.stringify(content), contentHash: hash, usedAt: new Date() });
+  } catch (e) {
+    // Another request evaluated the same input at the same time: its row is as good as ours.
+    if (!(e instanceof UniqueConstraintViolationException)) throw e;
+    return;
+  }
+  const stale = await fork.find(SheetEvaluation, {}, { fields: ['inputHash'], orderBy: { usedAt: 'desc' }, offset: SHEET_CACHE_ROWS, limit: 1000 });
+  if (stale.length) await fork.nativeDelete(SheetEvaluation, { inputHash: { $in: stale.map((s) => s.inputHash) } });
+}
+
+/** Empties the evaluation cache (at start-up, so a new engine never serves an old engine's numbers). */
+export async function clearEvaluationCache(em: EntityManager): Promise<void> {
+  await em.fork().nativeDelete(SheetEvaluation, {});
 }
 
 export const latestRevision = (em: EntityManager, project: Project) =>
   em.findOne(SheetRevision, { project: project.id }, { orderBy: { number: 'desc' }, populate: ['issuedBy'] });
 
 /** The latest revision if its content is the current content; otherwise a new revision n + 1. */
-export async function issueRevision(em: EntityManager, sheet: CurrentSheet, user: User): Promise<SheetRevision> {
+export async function issueRevision(em: EntityManager, sheet: CurrentSheet, user: User): Promise<{ revision: SheetRevision; created: boolean }> {
   for (let attempt = 0; attempt < 3; attempt++) {
     const latest = await latestRevision(em, sheet.project);
-    if (latest && latest.contentHash === sheet.hash) return latest;
+    if (latest && latest.contentHash === sheet.hash) return { revision: latest, created: false };
     // Whole seconds: the PDF's dates are derived from this value and must read back the same.
     const issuedAt = new Date(Math.floor(Date.now() / 1000) * 1000);
     const rev = em.create(SheetRevision, {
@@ -56,13 +107,14 @@ export async function issueRevision(em: EntityManager, sheet: CurrentSheet, user
       contentHash: sheet.hash,
       issuedAt,
       issuedBy: em.getReference(User, user.id),
+      content: JSON.stringify(sheet.content),
     });
     try {
       await em.flush();
       await em.populate(rev, ['issuedBy']);
-      return rev;
+      return { revision: rev, created: true };
     } catch (e) {
-      // Two renders raced for the same number: the other one won; read it and compare again.
+      // Two requests raced for the same number: the other one won; read it and compare again.
       if (!(e instanceof UniqueConstraintViolationException)) throw e;
       em.clear();
     }
@@ -77,11 +129,24 @@ export interface RenderedSheet {
   projectName: string;
 }
 
-export async function issueAndRender(em: EntityManager, user: User, rawId: unknown, paper?: SheetPaper): Promise<RenderedSheet> {
-  const sheet = await loadCurrentSheet(em, user, rawId);
-  const revision = await issueRevision(em, sheet, user);
-  const pdf = await renderSheet(sheet.built.content, { number: revision.number, contentHash: revision.contentHash, issuedAt: revision.issuedAt }, paper ?? defaultPaper(sheet.built.content.units));
-  return { revision, pdf, filename: sheetFilename(sheet.project.name, revision.number), projectName: sheet.project.name };
+/**
+ * The PDF of an issued revision, from the content kept with it. A revision issued before content was
+ * kept renders only while the project still has that content.
+ */
+export async function renderRevision(em: EntityManager, project: Project, revision: SheetRevision, work: SheetWork, paper?: SheetPaper): Promise<RenderedSheet> {
+  await em.populate(revision, ['content']);
+  let content: SheetContent;
+  if (revision.content) {
+    content = JSON.parse(revision.content) as SheetContent;
+  } else {
+    const now = await currentContent(em, project, work);
+    if (now.hash !== revision.contentHash) {
+      throw new HttpError(410, `Revision ${revision.number} was issued before Sightfan kept each revision's content, and the project has changed since, so it cannot be printed again. Issue a new revision.`);
+    }
+    content = now.content;
+  }
+  const pdf = await work.render(content, { number: revision.number, contentHash: revision.contentHash, issuedAt: revision.issuedAt }, paper ?? defaultPaper(content.units));
+  return { revision, pdf, filename: sheetFilename(project.name, revision.number), projectName: project.name };
 }
 
 export function toRevisionDto(r: SheetRevision): SheetRevisionDto {
