@@ -11,7 +11,7 @@ import Piscina from 'piscina';
 import type { SheetPaper } from '../../shared/schemas';
 import { HttpError } from '../http-error';
 import type { SheetRevisionInfo } from '../pdf/render-sheet';
-import type { SheetContent, SheetInput } from '../pdf/sheet-model';
+import type { SheetInput } from '../pdf/sheet-model';
 import type { BuiltContent, RenderTask } from './sheet-tasks';
 
 export interface SheetWorkOptions {
@@ -22,8 +22,11 @@ export interface SheetWorkOptions {
 }
 
 export interface SheetWork {
+  /** The SHA-256 that keys the evaluation cache (hashing the largest input takes ~0.1 s, so not on the request thread). */
+  inputHash(input: SheetInput): Promise<string>;
   build(input: SheetInput): Promise<BuiltContent>;
-  render(content: SheetContent, rev: SheetRevisionInfo, paper: SheetPaper): Promise<Buffer>;
+  /** `paper` unset: the content's default (US Letter for imperial, else A4). */
+  render(contentJson: string, rev: SheetRevisionInfo, paper?: SheetPaper): Promise<Buffer>;
   close(): Promise<void>;
 }
 
@@ -31,6 +34,7 @@ export interface SheetWork {
 export const SHEET_RETRY_AFTER_S = 30;
 /** A worker's own heap limit: a runaway project kills that thread, not the server. */
 const WORKER_HEAP_MB = 768;
+const WORKER_NICE = 10;
 
 const busy = (sentence: string) => new HttpError(503, sentence, undefined, { 'Retry-After': String(SHEET_RETRY_AFTER_S) });
 
@@ -44,10 +48,13 @@ export function createSheetWork(opts: SheetWorkOptions): SheetWork {
     idleTimeout: 5 * 60_000,
     maxQueue: threads * 8,
     resourceLimits: { maxOldGenerationSizeMb: WORKER_HEAP_MB },
+    // Sheet threads run at a lower priority than the request thread: when the cores are busy, the
+    // scheduler serves requests first and the sheet waits.
+    niceIncrement: WORKER_NICE,
   });
   const seconds = Math.round(opts.budgetMs / 1000);
 
-  async function run<T>(name: 'build' | 'render', arg: unknown): Promise<T> {
+  async function run<T>(name: 'inputHash' | 'build' | 'render', arg: unknown): Promise<T> {
     const abort = new AbortController();
     const timer = setTimeout(() => abort.abort(), opts.budgetMs);
     try {
@@ -70,9 +77,10 @@ export function createSheetWork(opts: SheetWorkOptions): SheetWork {
   }
 
   return {
+    inputHash: (input) => run<string>('inputHash', input),
     build: (input) => run<BuiltContent>('build', input),
-    async render(content, rev, paper) {
-      const bytes = await run<Uint8Array>('render', { content, rev, paper } satisfies RenderTask);
+    async render(contentJson, rev, paper) {
+      const bytes = await run<Uint8Array>('render', { contentJson, rev, paper } satisfies RenderTask);
       return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
     },
     close: () => pool.destroy(),

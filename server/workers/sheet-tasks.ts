@@ -1,28 +1,41 @@
 /**
- * The sheet's heavy work, run inside a worker thread (see sheet-pool.ts): the engine's evaluation of
- * a whole project (buildSheetContent) and the pdfkit render. Both take plain data and return plain
- * data, because everything crossing a thread is copied by structured clone.
+ * The sheet's heavy work, run inside a worker thread (see sheet-pool.ts): hashing a project's input,
+ * the engine's evaluation of the whole project (buildSheetContent) and the pdfkit render. Content
+ * crosses threads as JSON text, so the request thread never walks, parses or serialises it: for the
+ * largest accepted project that alone held the request thread for a tenth of a second.
  */
+import { createHash } from 'node:crypto';
 import type { SheetPaper } from '../../shared/schemas';
-import { renderSheet, type SheetRevisionInfo } from '../pdf/render-sheet';
-import { buildSheetContent, contentHash, type SheetContent, type SheetInput } from '../pdf/sheet-model';
+import { defaultPaper, renderSheet, type SheetRevisionInfo } from '../pdf/render-sheet';
+import { buildSheetContent, canonicalJson, contentHash, type SheetContent, type SheetInput } from '../pdf/sheet-model';
+
+/**
+ * Part of every evaluation cache key. Raise it whenever the sheet model or the engine changes what a
+ * sheet says for the same input (the cache is also emptied when the server starts).
+ */
+export const SHEET_MODEL_VERSION = 1;
+
+export function inputHash(input: SheetInput): string {
+  return createHash('sha256').update(canonicalJson({ v: SHEET_MODEL_VERSION, input })).digest('hex');
+}
 
 export interface BuiltContent {
-  content: SheetContent;
+  contentJson: string;
   hash: string;
 }
 
 export function build(input: SheetInput): BuiltContent {
   const { content } = buildSheetContent(input);
-  return { content, hash: contentHash(content) };
+  return { contentJson: JSON.stringify(content), hash: contentHash(content) };
 }
 
 export interface RenderTask {
-  content: SheetContent;
+  contentJson: string;
   rev: SheetRevisionInfo;
-  paper: SheetPaper;
+  paper?: SheetPaper;
 }
 
 export async function render(task: RenderTask): Promise<Uint8Array> {
-  return renderSheet(task.content, task.rev, task.paper);
+  const content = JSON.parse(task.contentJson) as SheetContent;
+  return renderSheet(content, task.rev, task.paper ?? defaultPaper(content.units));
 }

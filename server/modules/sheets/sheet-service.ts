@@ -3,14 +3,12 @@
  * worker pool), issues revisions and renders them. Only `issueRevision` writes a revision: reading a
  * sheet (its status, a PDF of an issued revision) changes nothing.
  */
-import { createHash } from 'node:crypto';
 import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/sqlite';
 import { idParam, type SheetPaper, type SheetRevisionDto } from '../../../shared/schemas';
 import { HttpError, notFound } from '../../http-error';
 import { parseOr400 } from '../../middleware/validate';
-import { canonicalJson, sheetFilename, type SheetContent, type SheetInput } from '../../pdf/sheet-model';
-import { defaultPaper } from '../../pdf/render-sheet';
+import { sheetFilename, type SheetInput } from '../../pdf/sheet-model';
 import type { SheetWork } from '../../workers/sheet-pool';
 import { toCatalogueItemDto } from '../catalog/catalog.dto';
 import { MirrorModel } from '../catalog/mirror-model.entity';
@@ -22,17 +20,13 @@ import { User } from '../users/user.entity';
 import { SheetEvaluation } from './sheet-evaluation.entity';
 import { SheetRevision } from './sheet-revision.entity';
 
-/**
- * Part of every evaluation cache key. Raise it whenever the sheet model or the engine changes what a
- * sheet says for the same input (the cache is also emptied when the server starts).
- */
-export const SHEET_MODEL_VERSION = 1;
 /** Cached evaluations kept; the least recently used beyond this are deleted. */
 export const SHEET_CACHE_ROWS = 200;
 
 export interface CurrentSheet {
   project: Project;
-  content: SheetContent;
+  /** The SheetContent as JSON text: only worker threads parse it. */
+  contentJson: string;
   hash: string;
 }
 
@@ -57,26 +51,24 @@ async function sheetInput(em: EntityManager, project: Project): Promise<SheetInp
   };
 }
 
-export const inputHash = (input: SheetInput) => createHash('sha256').update(canonicalJson({ v: SHEET_MODEL_VERSION, input })).digest('hex');
-
 /** The project's sheet content as it stands: from the cache when its input was evaluated before. */
 export async function currentContent(em: EntityManager, project: Project, work: SheetWork): Promise<CurrentSheet> {
   const input = await sheetInput(em, project);
-  const key = inputHash(input);
-  const hit = await em.findOne(SheetEvaluation, { inputHash: key });
+  const key = await work.inputHash(input);
+  const hit = await em.fork().findOne(SheetEvaluation, { inputHash: key });
   if (hit) {
     await em.nativeUpdate(SheetEvaluation, { inputHash: key }, { usedAt: new Date() });
-    return { project, content: JSON.parse(hit.content) as SheetContent, hash: hit.contentHash };
+    return { project, contentJson: hit.content, hash: hit.contentHash };
   }
   const built = await work.build(input);
-  await storeEvaluation(em, key, built.content, built.hash);
-  return { project, content: built.content, hash: built.hash };
+  await storeEvaluation(em, key, built.contentJson, built.hash);
+  return { project, contentJson: built.contentJson, hash: built.hash };
 }
 
-async function storeEvaluation(em: EntityManager, key: string, content: SheetContent, hash: string): Promise<void> {
+async function storeEvaluation(em: EntityManager, key: string, contentJson: string, hash: string): Promise<void> {
   const fork = em.fork();
   try {
-    await fork.insert(SheetEvaluation, { inputHash: key, content: JSON.stringify(content), contentHash: hash, usedAt: new Date() });
+    await fork.insert(SheetEvaluation, { inputHash: key, content: contentJson, contentHash: hash, usedAt: new Date() });
   } catch (e) {
     // Another request evaluated the same input at the same time: its row is as good as ours.
     if (!(e instanceof UniqueConstraintViolationException)) throw e;
@@ -107,7 +99,7 @@ export async function issueRevision(em: EntityManager, sheet: CurrentSheet, user
       contentHash: sheet.hash,
       issuedAt,
       issuedBy: em.getReference(User, user.id),
-      content: JSON.stringify(sheet.content),
+      content: sheet.contentJson,
     });
     try {
       await em.flush();
@@ -135,17 +127,17 @@ export interface RenderedSheet {
  */
 export async function renderRevision(em: EntityManager, project: Project, revision: SheetRevision, work: SheetWork, paper?: SheetPaper): Promise<RenderedSheet> {
   await em.populate(revision, ['content']);
-  let content: SheetContent;
+  let contentJson: string;
   if (revision.content) {
-    content = JSON.parse(revision.content) as SheetContent;
+    contentJson = revision.content;
   } else {
     const now = await currentContent(em, project, work);
     if (now.hash !== revision.contentHash) {
       throw new HttpError(410, `Revision ${revision.number} was issued before Sightfan kept each revision's content, and the project has changed since, so it cannot be printed again. Issue a new revision.`);
     }
-    content = now.content;
+    contentJson = now.contentJson;
   }
-  const pdf = await work.render(content, { number: revision.number, contentHash: revision.contentHash, issuedAt: revision.issuedAt }, paper ?? defaultPaper(content.units));
+  const pdf = await work.render(contentJson, { number: revision.number, contentHash: revision.contentHash, issuedAt: revision.issuedAt }, paper);
   return { revision, pdf, filename: sheetFilename(project.name, revision.number), projectName: project.name };
 }
 
