@@ -36,3 +36,27 @@ export const LIMIT_MESSAGES = {
   viewers: `At most ${limitText(SCENE_LIMITS.viewers)} viewers per project; split a larger site into several projects.`,
   mirrors: `At most ${limitText(SCENE_LIMITS.mirrors)} mirrors per project; split a larger site into several projects.`,
 } as const;
+
+export type LimitedThing = 'wall' | 'zone' | 'zoneCorner' | 'viewer' | 'mirror';
+
+/**
+ * What the plan's tools check before adding one more thing: the sentence to show instead of sending a
+ * change the API would refuse, or null when there is room. `draftCorners` is the zone being drawn.
+ */
+export function limitProblem(thing: LimitedThing, scene: { walls: readonly unknown[]; zones: readonly { polygonM: readonly unknown[] }[]; viewers: readonly unknown[] }, mirrors: number, draftCorners = 0): string | null {
+  switch (thing) {
+    case 'wall':
+      return scene.walls.length >= SCENE_LIMITS.walls ? LIMIT_MESSAGES.walls : null;
+    case 'viewer':
+      return scene.viewers.length >= SCENE_LIMITS.viewers ? LIMIT_MESSAGES.viewers : null;
+    case 'mirror':
+      return mirrors >= SCENE_LIMITS.mirrors ? LIMIT_MESSAGES.mirrors : null;
+    case 'zone':
+      return scene.zones.length >= SCENE_LIMITS.zones ? LIMIT_MESSAGES.zones : null;
+    case 'zoneCorner': {
+      if (draftCorners >= SCENE_LIMITS.cornersPerZone) return LIMIT_MESSAGES.cornersPerZone;
+      const used = scene.zones.reduce((sum, z) => sum + z.polygonM.length, 0);
+      return used + draftCorners >= SCENE_LIMITS.zoneCorners ? LIMIT_MESSAGES.zoneCorners : null;
+    }
+  }
+}
