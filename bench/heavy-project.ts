@@ -63,7 +63,7 @@ export function heavyPlacements(c: HeavyCounts, catalogueItemId: number): Create
 }
 
 /** The same project as a sheet-model input, for benches that skip HTTP and the database. */
-export function heavySheetInput(c: HeavyCounts, catalogue: CatalogueItemDto[]): SheetInput {
+export function heavySheetInput(c: HeavyCounts, catalogue: readonly CatalogueItemDto[]): SheetInput {
   return {
     project: { id: 1, name: 'Heavy hall (demo)', customer: 'Bench (demo)', site: 'Hall 9 (demo)', kind: 'site', notes: '', units: 'metric', scene: heavyScene(c) },
     owner: { name: 'Bench installer', email: 'bench@sightfan-demo.example', units: 'metric' },

@@ -2,8 +2,9 @@
 import { runOpticsBench } from './optics.bench';
 import { runPlanBench } from './plan.bench';
 import { runSheetBench } from './sheet.bench';
+import { runBoundedBench } from './bounded.bench';
 
-const runners: Array<() => Promise<void>> = [runOpticsBench, runSheetBench, runPlanBench];
+const runners: Array<() => Promise<void>> = [runOpticsBench, runSheetBench, runBoundedBench, runPlanBench];
 
 async function main(): Promise<void> {
   for (const run of runners) await run();
