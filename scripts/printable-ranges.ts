@@ -1,7 +1,8 @@
 /**
  * Writes shared/text/printable-ranges.ts: the characters the sheet can print, i.e. letters, marks,
- * digits, punctuation, symbols and spaces that Barlow or one of the fallback faces in fonts/ has a
- * glyph for, minus emoji (no shipped face draws them). Run after changing a font:
+ * digits, punctuation, symbols and spaces that every sheet face (Barlow's weights, the mono face)
+ * or one of the fallback faces in fonts/ has a glyph for, minus emoji (no shipped face draws them).
+ * Run after changing a font:
  *   npx tsx scripts/printable-ranges.ts
  */
 import fs from 'node:fs';
@@ -9,15 +10,17 @@ import path from 'node:path';
 import * as fontkit from 'fontkit';
 import { FALLBACK_FONTS, SHEET_FONTS, FONTS_DIR } from '../server/pdf/fonts';
 
-const files = [...new Set([...Object.values(SHEET_FONTS), ...Object.values(FALLBACK_FONTS)])];
-const faces = files.map((f) => fontkit.create(fs.readFileSync(path.join(FONTS_DIR, f))) as fontkit.Font);
+const open = (f: string) => fontkit.create(fs.readFileSync(path.join(FONTS_DIR, f))) as fontkit.Font;
+const sheetFaces = Object.values(SHEET_FONTS).map(open);
+const fallbacks = Object.values(FALLBACK_FONTS).map(open);
+const prints = (cp: number) => fallbacks.some((f) => f.hasGlyphForCodePoint(cp)) || sheetFaces.every((f) => f.hasGlyphForCodePoint(cp));
 const kind = /^[\p{L}\p{M}\p{N}\p{P}\p{S}\p{Zs}]$/u;
 const emoji = /^\p{Extended_Pictographic}$/u;
 
 const ranges: [number, number][] = [];
 for (let cp = 0; cp <= 0x3ffff; cp++) {
   const ch = String.fromCodePoint(cp);
-  if (!kind.test(ch) || emoji.test(ch) || !faces.some((f) => f.hasGlyphForCodePoint(cp))) continue;
+  if (!kind.test(ch) || emoji.test(ch) || !prints(cp)) continue;
   const last = ranges[ranges.length - 1];
   if (last && last[1] === cp - 1) last[1] = cp;
   else ranges.push([cp, cp]);

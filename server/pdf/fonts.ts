@@ -21,6 +21,8 @@ export type SheetFont = keyof typeof SHEET_FONTS;
  * only (each is megabytes): bold Chinese or Japanese prints in the regular weight.
  */
 export const FALLBACK_FONTS = {
+  latin: 'NotoSans-Regular.ttf',
+  latinBold: 'NotoSans-Bold.ttf',
   hebrew: 'NotoSansHebrew-Regular.ttf',
   hebrewBold: 'NotoSansHebrew-Bold.ttf',
   arabic: 'NotoSansArabic-Regular.ttf',

@@ -3,7 +3,8 @@
  * face prints entirely goes straight to pdfkit, unchanged. Other text is set here:
  *
  * 1. each character gets the first face that has a glyph for it: the requested face, then Noto Sans
- *    Hebrew, Noto Sans Arabic, then the CJK faces (Japanese first when the text has kana);
+ *    (Latin, Greek, Cyrillic), Noto Sans Hebrew, Noto Sans Arabic, then the CJK faces (Japanese
+ *    first when the text has kana);
  * 2. lines are broken in logical order (after spaces, and between CJK characters);
  * 3. each line is put in visual order with the Unicode Bidirectional Algorithm (bidi-js, UAX #9);
  * 4. each right-to-left word goes to pdfkit whole and in logical order: fontkit shapes it (Arabic
@@ -35,7 +36,7 @@ const MARK = /\p{M}/u;
 export function fallbackChain(face: SheetFont, text: string): AnyFont[] {
   const bold = face === 'semibold' || face === 'bold';
   const cjk: AnyFont[] = KANA.test(text) ? ['jp', 'sc'] : ['sc', 'jp'];
-  return [face, bold ? 'hebrewBold' : 'hebrew', bold ? 'arabicBold' : 'arabic', ...cjk];
+  return [face, bold ? 'latinBold' : 'latin', bold ? 'hebrewBold' : 'hebrew', bold ? 'arabicBold' : 'arabic', ...cjk];
 }
 
 /** True when `face` alone prints every character of `text` (line breaks aside). */

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { printable } from './common';
 
 /** Shapes the catalogue sells; the engine's `Mirror` is built from these fields (see mirrorOfItem). */
 export const mirrorShapes = ['round', 'rect', 'dome'] as const;
@@ -46,9 +47,9 @@ export const checkedMirrorSpec = mirrorSpec.superRefine((m, ctx) => {
 
 const catalogueFields = {
   code: z.string({ message: 'Enter a catalogue code.' }).trim().min(1, 'Enter a catalogue code.').max(40, 'Keep the code to 40 characters.').regex(/^[A-Za-z0-9._-]+$/, 'Use letters, digits, dot, dash or underscore in the code.'),
-  name: z.string({ message: 'Enter a name.' }).trim().min(1, 'Enter a name.').max(160, 'Keep the name to 160 characters.'),
+  name: printable(z.string({ message: 'Enter a name.' }).trim().min(1, 'Enter a name.').max(160, 'Keep the name to 160 characters.')),
   mirror: checkedMirrorSpec,
-  material: z.string().trim().max(80, 'Keep the material to 80 characters.'),
+  material: printable(z.string().trim().max(80, 'Keep the material to 80 characters.')),
   reflectance: z.number({ message: 'Enter the reflectance as a fraction, like 0.8.' }).min(0.04, 'Reflectance below 4 % is not a mirror.').max(1, 'Reflectance cannot exceed 100 %.').nullable(),
   massKg: z.number({ message: 'Enter the mass in kilograms.' }).positive('The mass must be more than zero.').max(200, 'The mass must be at most 200 kg.').nullable(),
   /** Price in the currency's minor unit (cents), so sums are exact. */

@@ -1,4 +1,15 @@
 import { z } from 'zod';
+import { unprintableMessage } from '../text/printable';
+
+/**
+ * A text that will be printed on the specification sheet: refuses characters no shipped face can
+ * draw (emoji among them) with a sentence, instead of printing empty boxes.
+ */
+export const printable = <T extends z.ZodString>(schema: T, opts: { multiline?: boolean } = {}) =>
+  schema.superRefine((s, ctx) => {
+    const message = unprintableMessage(s, opts.multiline);
+    if (message) ctx.addIssue({ code: 'custom', message });
+  });
 
 /** The error body every API route returns: one sentence, plus per-field sentences for forms. */
 export const apiErrorBody = z.object({
@@ -24,11 +35,13 @@ export const email = z
   .email('Enter a full e-mail address, like name@company.com.')
   .transform((s) => s.toLowerCase());
 
-export const personName = z
-  .string({ message: 'Enter a name.' })
-  .trim()
-  .min(1, 'Enter a name.')
-  .max(120, 'Keep the name to 120 characters.');
+export const personName = printable(
+  z
+    .string({ message: 'Enter a name.' })
+    .trim()
+    .min(1, 'Enter a name.')
+    .max(120, 'Keep the name to 120 characters.'),
+);
 
 /** A new password: long enough to resist guessing, short enough for bcrypt (72 bytes). */
 export const newPassword = z

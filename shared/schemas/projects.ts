@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { unitSystem } from './common';
+import { printable, unitSystem } from './common';
 import { checkedMirrorSpec } from './catalog';
 import { isSimpleRing } from '../geometry/polygon';
 import { LIMIT_MESSAGES, PLACEMENT_LIMITS, SCENE_LIMITS } from './limits';
@@ -8,7 +8,10 @@ const MAX_SITE_M = 2000;
 const coord = z.number({ message: 'Enter a position.' }).finite('Positions must be numbers.').min(-MAX_SITE_M, 'That point is more than 2 km from the origin.').max(MAX_SITE_M, 'That point is more than 2 km from the origin.');
 const pair = z.tuple([coord, coord], { message: 'A point needs x and y.' });
 const sceneId = z.string().min(1).max(40).regex(/^[A-Za-z0-9_-]+$/, 'Ids use letters, digits, dash or underscore.');
-const label = (what: string) => z.string({ message: `Give the ${what} a name.` }).trim().min(1, `Give the ${what} a name.`).max(80, `Keep the ${what}'s name to 80 characters.`);
+const label = (what: string) => printable(z.string({ message: `Give the ${what} a name.` }).trim().min(1, `Give the ${what} a name.`).max(80, `Keep the ${what}'s name to 80 characters.`));
+const customerText = printable(z.string().trim().max(160, 'Keep the customer to 160 characters.'));
+const siteText = printable(z.string().trim().max(200, 'Keep the site to 200 characters.'));
+const notesText = (max: number, shown: string) => printable(z.string().max(max, `Keep the notes to ${shown} characters.`), { multiline: true });
 
 export const wallKinds = ['wall', 'racking', 'door'] as const;
 export const wall = z
@@ -75,11 +78,11 @@ export const projectStatuses = ['draft'] as const;
 
 const projectFields = {
   name: label('project'),
-  customer: z.string().trim().max(160, 'Keep the customer to 160 characters.').default(''),
-  site: z.string().trim().max(200, 'Keep the site to 200 characters.').default(''),
+  customer: customerText.default(''),
+  site: siteText.default(''),
   kind: z.enum(projectKinds, { message: 'Choose a site or a vehicle.' }).default('site'),
   units: unitSystem.nullable().default(null),
-  notes: z.string().max(5000, 'Keep the notes to 5,000 characters.').default(''),
+  notes: notesText(5000, '5,000').default(''),
   scene: scene.default({ walls: [], zones: [], viewers: [] }),
 };
 
@@ -90,10 +93,10 @@ export const patchProjectBody = z
   .object({
     version: z.number({ message: 'The change must say which version it edits.' }).int(),
     name: projectFields.name.optional(),
-    customer: z.string().trim().max(160, 'Keep the customer to 160 characters.').optional(),
-    site: z.string().trim().max(200, 'Keep the site to 200 characters.').optional(),
+    customer: customerText.optional(),
+    site: siteText.optional(),
     units: unitSystem.nullable().optional(),
-    notes: z.string().max(5000, 'Keep the notes to 5,000 characters.').optional(),
+    notes: notesText(5000, '5,000').optional(),
     scene: scene.optional(),
   })
   .strict();
@@ -115,7 +118,7 @@ const placementFields = {
   azimuthRad: angle('aim direction', PLACEMENT_LIMITS.azimuthRad.min, PLACEMENT_LIMITS.azimuthRad.max),
   tiltDownRad: angle('tilt', PLACEMENT_LIMITS.tiltDownRad.min, PLACEMENT_LIMITS.tiltDownRad.max),
   viewerId: sceneId.nullable(),
-  notes: z.string().max(2000, 'Keep the notes to 2,000 characters.'),
+  notes: notesText(2000, '2,000'),
 };
 
 const oneMirror = (b: { catalogueItemId?: number | null; customMirror?: unknown }) => (b.catalogueItemId == null) !== (b.customMirror == null);
