@@ -205,9 +205,11 @@ function visualPieces(doc: PDFKit.PDFDocument, size: number, text: string, line:
 
 function layout(doc: PDFKit.PDFDocument, face: SheetFont, size: number, text: string, opts: TextOptions): Line[] {
   let at = 0;
-  const chars: Char[] = facesFor(face, text).map(({ ch, font }) => {
+  // Line breaks stay line breaks; a tab or carriage return is a space (no face draws them).
+  const clean = text.replace(/\r\n?/g, '\n').replace(/[\t\r]/g, ' ');
+  const chars: Char[] = facesFor(face, clean).map(({ ch, font }) => {
     // A character no shipped face has: the schemas refuse these; older data prints a visible marker.
-    const c = font ? { ch, font, at, level: 0 } : { ch: '?', font: face, at, level: 0 };
+    const c = ch === '\n' || font ? { ch, font: font ?? face, at, level: 0 } : { ch: '?', font: face, at, level: 0 };
     at += ch.length;
     return c;
   });

@@ -96,6 +96,7 @@ describe('a sheet with names in several scripts', () => {
     customer: '冷库物流有限公司 (demo)',
     site: '東京倉庫 ひがし棟 (demo)',
     mirror: 'مرآة المدخل',
+    note: 'שורה ראשונה ליד הדלת\nשורה שנייה: 2 מראות',
   };
 
   beforeAll(async () => {
@@ -103,7 +104,7 @@ describe('a sheet with names in several scripts', () => {
     expect(created.status).toBe(201);
     const id = created.body.project.id as number;
     const catalogueItemId = ((await installer.get('/api/catalog')).body.items as CatalogueItemDto[])[0].id;
-    const placed = await installer.post(`/api/projects/${id}/placements`).send({ label: names.mirror, catalogueItemId, positionM: [3, 4], heightM: 2.6, azimuthRad: -2.2, tiltDownRad: 0.35, viewerId: 'v1' });
+    const placed = await installer.post(`/api/projects/${id}/placements`).send({ label: names.mirror, catalogueItemId, positionM: [3, 4], heightM: 2.6, azimuthRad: -2.2, tiltDownRad: 0.35, viewerId: 'v1', notes: names.note });
     expect(placed.status).toBe(201);
     const issued = await installer.post(`/api/projects/${id}/sheet/revisions`);
     expect(issued.status).toBe(201);
@@ -130,6 +131,16 @@ describe('a sheet with names in several scripts', () => {
     expect(text).toContain('מחסן קירור צפון');
     expect(text).toContain('مرآة المدخل');
     expect(text).not.toContain('ןופצ רורק ןסחמ');
+  });
+
+  it("keeps the line break of a right-to-left note and prints no stand-in '?' for it", () => {
+    const text = tool('pdftotext', pdf).replace(/[\u202a-\u202e]/g, '');
+    const lines = text.split('\n');
+    const first = lines.findIndex((l) => l.includes('שורה ראשונה ליד הדלת'));
+    const second = lines.findIndex((l) => l.includes('שורה שנייה'));
+    expect(first).toBeGreaterThanOrEqual(0);
+    expect(second).toBeGreaterThan(first);
+    expect(lines[first]).not.toContain('?');
   });
 
   it('stays within the sheet size budget of 500 KB with the CJK subsets embedded', () => {
