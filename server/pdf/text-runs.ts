@@ -49,6 +49,20 @@ export function printsPlain(face: SheetFont, text: string): boolean {
   return true;
 }
 
+/**
+ * Whether pdfkit can set `text` by itself: the face has every character and fontkit lays it out
+ * without failing (measured first, so a failure never leaves half a text op on the page).
+ */
+function plain(doc: PDFKit.PDFDocument, face: SheetFont, size: number, text: string): boolean {
+  if (!printsPlain(face, text)) return false;
+  try {
+    doc.font(face).fontSize(size).widthOfString(text, withFeatures(FACE_FEATURES[face]));
+    return true;
+  } catch {
+    return false;
+  }
+}
+
 /** The face each character is set in; null where no shipped face has the character. */
 export function facesFor(face: SheetFont, text: string): { ch: string; font: AnyFont | null }[] {
   const chain = fallbackChain(face, text);
@@ -74,19 +88,52 @@ interface Char {
   level: number;
 }
 
-interface Piece {
+export interface Piece {
   text: string;
   font: AnyFont;
   width: number;
+  /** OpenType features to set this piece with (see `measured`). */
+  features?: PDFKit.Mixins.OpenTypeFeatures[];
 }
 
-interface Line {
+export interface Line {
   pieces: Piece[];
   width: number;
 }
 
+type Features = PDFKit.Mixins.OpenTypeFeatures[];
+/** pdfkit hands an object straight to fontkit, which reads it as feature → on/off. */
+const featureSwitches = (switches: Record<string, boolean>) => switches as unknown as Features;
+
+/**
+ * Features switched per face. JetBrains Mono's contextual alternates make fontkit 2.0.4 throw
+ * ("Offset is outside the bounds of the DataView" for "--", "->", "=="), and a catalogue code should
+ * print its characters as typed, not as programming ligatures: the mono face prints without them.
+ */
+const FACE_FEATURES: Partial<Record<AnyFont, Features>> = { mono: featureSwitches({ calt: false, liga: false, clig: false }) };
+
+/**
+ * The last resort when fontkit throws while shaping a run (it also fails in mark positioning for
+ * some Arabic letters in Noto Sans Arabic, a null anchor, e.g. U+06A2 in final form): the run is set
+ * again without mark positioning or contextual ligatures. Letters and dots still print, dots perhaps
+ * a little off their ideal place, instead of the sheet failing.
+ */
+const SAFE_FEATURES = featureSwitches({ mark: false, mkmk: false, calt: false, liga: false, clig: false });
+
+const withFeatures = (features: Features | undefined) => (features ? { features } : {});
+
+function measured(doc: PDFKit.PDFDocument, font: AnyFont, size: number, text: string): { width: number; features?: Features } {
+  const d = useFont(doc, font).fontSize(size);
+  const own = FACE_FEATURES[font];
+  try {
+    return { width: d.widthOfString(text, withFeatures(own)), features: own };
+  } catch {
+    return { width: d.widthOfString(text, { features: SAFE_FEATURES }), features: SAFE_FEATURES };
+  }
+}
+
 function measure(doc: PDFKit.PDFDocument, font: AnyFont, size: number, text: string): number {
-  return useFont(doc, font).fontSize(size).widthOfString(text);
+  return measured(doc, font, size, text).width;
 }
 
 /** Logical chars → runs of one face, measured. */
@@ -197,13 +244,14 @@ function visualPieces(doc: PDFKit.PDFDocument, size: number, text: string, line:
     } else {
       t = chunk.map((c) => c.ch).join('');
     }
-    pieces.push({ text: t, font: start.font, width: measure(doc, start.font, size, t) });
+    pieces.push({ text: t, font: start.font, ...measured(doc, start.font, size, t) });
     k = e;
   }
   return pieces;
 }
 
-function layout(doc: PDFKit.PDFDocument, face: SheetFont, size: number, text: string, opts: TextOptions): Line[] {
+/** Lines of pieces in visual order, as writeText would set them (exported for the tests). */
+export function layout(doc: PDFKit.PDFDocument, face: SheetFont, size: number, text: string, opts: TextOptions): Line[] {
   let at = 0;
   // Line breaks stay line breaks; a tab or carriage return is a space (no face draws them).
   const clean = text.replace(/\r\n?/g, '\n').replace(/[\t\r]/g, ' ');
@@ -238,16 +286,16 @@ function lineHeight(doc: PDFKit.PDFDocument, face: SheetFont, size: number, line
 
 /** The height `text` takes at `width` (what pdfkit's heightOfString gives for plain text). */
 export function textHeight(doc: PDFKit.PDFDocument, face: SheetFont, size: number, text: string, width: number, lineGap = 1): number {
-  if (printsPlain(face, text)) {
+  if (plain(doc, face, size, text)) {
     doc.font(face).fontSize(size);
-    return doc.heightOfString(text, { width, lineGap });
+    return doc.heightOfString(text, { width, lineGap, ...withFeatures(FACE_FEATURES[face]) });
   }
   return layout(doc, face, size, text, { width, lineGap }).length * lineHeight(doc, face, size, lineGap);
 }
 
 /** The width of `text` on one line. */
 export function textWidth(doc: PDFKit.PDFDocument, face: SheetFont, size: number, text: string): number {
-  if (printsPlain(face, text)) return doc.font(face).fontSize(size).widthOfString(text);
+  if (plain(doc, face, size, text)) return doc.font(face).fontSize(size).widthOfString(text, withFeatures(FACE_FEATURES[face]));
   return Math.max(0, ...layout(doc, face, size, text, { lineBreak: false }).map((l) => l.width));
 }
 
@@ -256,8 +304,8 @@ export function textWidth(doc: PDFKit.PDFDocument, face: SheetFont, size: number
  * Leaves `face` at `size` selected.
  */
 export function writeText(doc: PDFKit.PDFDocument, face: SheetFont, size: number, text: string, x: number, y: number, opts: TextOptions = {}): void {
-  if (printsPlain(face, text)) {
-    doc.font(face).fontSize(size).text(text, x, y, opts);
+  if (plain(doc, face, size, text)) {
+    doc.font(face).fontSize(size).text(text, x, y, { ...opts, ...withFeatures(FACE_FEATURES[face]) });
     return;
   }
   const lineGap = opts.lineGap ?? 0;
@@ -268,7 +316,7 @@ export function writeText(doc: PDFKit.PDFDocument, face: SheetFont, size: number
     let cx = x + (opts.align === 'right' ? room - line.width : opts.align === 'center' ? (room - line.width) / 2 : 0);
     const baseline = y + i * lh + ascent;
     for (const p of line.pieces) {
-      useFont(doc, p.font).fontSize(size).text(p.text, cx, baseline, { lineBreak: false, baseline: 'alphabetic' });
+      useFont(doc, p.font).fontSize(size).text(p.text, cx, baseline, { lineBreak: false, baseline: 'alphabetic', ...(p.features ? { features: p.features } : {}) });
       cx += p.width;
     }
   });
