@@ -232,6 +232,16 @@ describe('reading a sheet changes nothing', () => {
     expect(textOf((await getPdf(installer, `?revision=${first + 1}`)).body as Buffer)).toContain(`Height of the mirror centre ${f.dist(p.heightM + 0.35)}`);
   });
 
+  it('refuses to issue a revision for a request from another site (403), and issues none', async () => {
+    const { project } = await engine();
+    const p = project.placements[0];
+    expect((await installer.patch(`/api/projects/${projectId}/placements/${p.id}`).send({ version: p.version, heightM: p.heightM + 0.05 })).status).toBe(200);
+    const before = await revisionCount();
+    const res = await installer.post(`/api/projects/${projectId}/sheet/revisions`).set('Origin', 'https://elsewhere-demo.example').set('Sec-Fetch-Site', 'cross-site');
+    expect(res.status).toBe(403);
+    expect(await revisionCount()).toBe(before);
+  });
+
   it.each([['0'], ['1.0'], ['0x2'], ['-1'], ['two']])('refuses revision=%s with 400 and a sentence', async (value) => {
     const res = await installer.get(`/api/projects/${projectId}/sheet.pdf?revision=${encodeURIComponent(value)}`);
     expect(res.status).toBe(400);
