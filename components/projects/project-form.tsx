@@ -5,6 +5,7 @@ import * as yup from 'yup';
 import { FormFooter } from '@/components/forms/form-footer';
 import { FormFrame } from '@/components/forms/form-frame';
 import { FormikTextField } from '@/components/forms/formik-text-field';
+import { printableText } from '@/components/forms/printable';
 import { submitWithServerErrors } from '@/components/forms/server-errors';
 import { Segmented } from '@/components/ui/segmented';
 import { AppText } from '@/components/ui/text';
@@ -24,11 +25,11 @@ export interface ProjectFormValues {
 
 /** Mirrors the server's limits (shared/schemas/projects.ts) so most mistakes are caught before sending. */
 export const projectSchema = yup.object({
-  name: yup.string().trim().required('Give the project a name.').max(80, "Keep the project's name to 80 characters."),
-  customer: yup.string().trim().max(160, 'Keep the customer to 160 characters.'),
-  site: yup.string().trim().max(200, 'Keep the site to 200 characters.'),
+  name: printableText(yup.string().trim().required('Give the project a name.').max(80, "Keep the project's name to 80 characters.")),
+  customer: printableText(yup.string().trim().max(160, 'Keep the customer to 160 characters.')),
+  site: printableText(yup.string().trim().max(200, 'Keep the site to 200 characters.')),
   units: yup.string().oneOf(['mine', 'metric', 'imperial']).required(),
-  notes: yup.string().max(5000, 'Keep the notes to 5,000 characters.'),
+  notes: printableText(yup.string().max(5000, 'Keep the notes to 5,000 characters.'), true),
 });
 
 export function toCreateBody(v: ProjectFormValues): CreateProjectBody {
