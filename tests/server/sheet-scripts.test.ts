@@ -49,7 +49,7 @@ describe('characters the sheet can print', () => {
       const ch = String.fromCodePoint(cp);
       for (const face of Object.keys(SHEET_FONTS) as SheetFont[]) {
         const [{ font }] = facesFor(face, ch);
-        // Glyph 0 is .notdef, the empty box.
+        // Glyph 0 is .notdef, the missing-character box (OpenType specification, "Recommendations for OpenType fonts": glyph index 0).
         if (!font || fontFace(font).glyphForCodePoint(cp).id === 0) missing.push(`U+${cp.toString(16)} in ${face}`);
       }
       checked++;
