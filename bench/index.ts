@@ -3,8 +3,9 @@ import { runOpticsBench } from './optics.bench';
 import { runPlanBench } from './plan.bench';
 import { runSheetBench } from './sheet.bench';
 import { runVehicleBench } from './vehicle.bench';
+import { runBoundedBench } from './bounded.bench';
 
-const runners: Array<() => Promise<void>> = [runOpticsBench, runVehicleBench, runSheetBench, runPlanBench];
+const runners: Array<() => Promise<void>> = [runOpticsBench, runVehicleBench, runSheetBench, runBoundedBench, runPlanBench];
 
 async function main(): Promise<void> {
   // BENCH_ONLY=walls: the optics engine's wall growth table alone.

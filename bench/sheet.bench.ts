@@ -61,6 +61,18 @@ export function tenPlacementInput(): SheetInput {
   };
 }
 
+/** The same ten mirrors with names in Hebrew, Arabic, Chinese and Japanese (fictional demo names). */
+export function scriptsInput(): SheetInput {
+  const input = tenPlacementInput();
+  const labels = ['מראה צפון', 'مرآة المدخل', '北门镜', 'ひがしミラー', 'Dock (שער)'];
+  return {
+    ...input,
+    project: { ...input.project, name: 'מחסן קירור — مستودع التبريد (demo)', customer: '冷库物流 (demo)', site: '東京倉庫 ひがし棟 (demo)' },
+    owner: { ...input.owner, name: 'يوسف الحداد (demo)' },
+    placements: input.placements.map((p, i) => ({ ...p, label: `${labels[i % labels.length]} ${i + 1}` })),
+  };
+}
+
 function barePage(): Promise<Buffer> {
   const doc = new PDFDocument({ size: 'A4', font: NO_DEFAULT_FONT, info: { CreationDate: new Date(0) } });
   registerSheetFonts(doc);
@@ -78,6 +90,9 @@ export async function runSheetBench(): Promise<void> {
   const rev = { number: 1, contentHash: contentHash(built.content), issuedAt: new Date(Date.UTC(2026, 0, 1)) };
   let sheetBytes = 0;
   let bareBytes = 0;
+  let scriptsBytes = 0;
+  const scripts = buildSheetContent(scriptsInput());
+  const scriptsRev = { ...rev, contentHash: contentHash(scripts.content) };
   const bench = new Bench({ name: 'sheet', time: 3000, warmupTime: 500 });
   bench
     .add('render a 10-placement sheet (pdfkit, content ready)', async () => {
@@ -86,6 +101,9 @@ export async function runSheetBench(): Promise<void> {
     .add('build content (engine) + render, 10 placements', async () => {
       const b = buildSheetContent(input);
       await renderSheet(b.content, rev, 'a4');
+    })
+    .add('render the same sheet with names in Hebrew, Arabic, Chinese and Japanese', async () => {
+      scriptsBytes = (await renderSheet(scripts.content, scriptsRev, 'a4')).length;
     })
     .add('bare pdfkit page, same fonts', async () => {
       bareBytes = (await barePage()).length;
@@ -103,6 +121,7 @@ export async function runSheetBench(): Promise<void> {
     console.log(`  ${task.name}: median ${median.toFixed(1)} ms${budget}`);
   }
   console.log(`  size: sheet ${(sheetBytes / 1024).toFixed(1)} KB (budget ${SIZE_BUDGET_BYTES / 1024} KB) ${sheetBytes <= SIZE_BUDGET_BYTES ? 'meets' : 'MISSES'}; bare page ${(bareBytes / 1024).toFixed(1)} KB`);
+  console.log(`  size: sheet in several scripts ${(scriptsBytes / 1024).toFixed(1)} KB (budget ${SIZE_BUDGET_BYTES / 1024} KB) ${scriptsBytes <= SIZE_BUDGET_BYTES ? 'meets' : 'MISSES'}`);
 }
 
 if (require.main === module) void runSheetBench();

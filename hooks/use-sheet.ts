@@ -16,15 +16,31 @@ export function useSheetStatusQuery(projectId: number) {
   return useQuery({ queryKey: sheetKeys.status(projectId), queryFn: () => api.sheets.status(projectId), staleTime: SHEET_STALE_MS });
 }
 
-/** Fetches the PDF (cookies included) and hands it to `save`, which turns it into a file for the person. */
+/**
+ * Issues a revision with the current content (an explicit POST: downloading alone never issues one),
+ * then fetches that revision's PDF (cookies included) and hands it to `save`, which turns it into a
+ * file for the person.
+ */
 export function useDownloadSheetMutation(projectId: number, save: (file: { blob: Blob; filename: string }) => void) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (paper?: SheetPaper) => api.sheets.download(projectId, paper),
+    mutationFn: async (paper?: SheetPaper) => {
+      const issued = await api.sheets.issue(projectId);
+      return api.sheets.download(projectId, issued.revision.number, paper);
+    },
     onSuccess: (file) => {
       save(file);
       void qc.invalidateQueries({ queryKey: sheetKeys.status(projectId) });
     },
+  });
+}
+
+/** Issues a revision and gives the address of its PDF, for platforms that open links instead of saving files. */
+export function useIssueSheetMutation(projectId: number) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: () => api.sheets.issue(projectId),
+    onSuccess: () => void qc.invalidateQueries({ queryKey: sheetKeys.status(projectId) }),
   });
 }
 

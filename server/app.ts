@@ -25,6 +25,7 @@ import { usersRoutes } from './modules/users/users.routes';
 import { catalogRoutes } from './modules/catalog/catalog.routes';
 import { projectsRoutes } from './modules/projects/projects.routes';
 import { sheetsRoutes } from './modules/sheets/sheets.routes';
+import { createSheetWork, type SheetWork } from './workers/sheet-pool';
 
 export interface AppDeps {
   config: AppConfig;
@@ -35,6 +36,8 @@ export interface AppDeps {
   signInLimits?: SignInLimits;
   /** Outbox timing (tests shorten the retry delays). */
   outbox?: Partial<OutboxOptions>;
+  /** The sheet worker pool; by default one is made from the config and closed with the app. */
+  sheetWork?: SheetWork;
 }
 
 export interface SightfanApp {
@@ -79,7 +82,12 @@ export function createApp(deps: AppDeps): SightfanApp {
   const store = new OrmSessionStore(orm);
   const outbox = new MailDispatcher(orm, deps.mailer, log, { ...DEFAULT_OUTBOX_OPTIONS, scrubAfterSend: !config.demoMode, ...deps.outbox });
   outbox.start();
+  const work = deps.sheetWork ?? createSheetWork({ budgetMs: config.sheetBudgetMs, threads: config.sheetWorkers });
   const api = express.Router();
+  // First, before sessions and the database: "is the process up and answering".
+  api.get('/health', (_req, res) => {
+    res.set('Cache-Control', 'no-store').json({ ok: true });
+  });
   if (config.devOrigins.length) {
     api.use(cors({ origin: config.devOrigins, credentials: true }));
   }
@@ -110,9 +118,6 @@ export function createApp(deps: AppDeps): SightfanApp {
   });
 
   const publicUrl = (host: string) => config.publicUrl ?? `http://${host}`;
-  api.get('/health', (_req, res) => {
-    res.json({ ok: true });
-  });
   const limiter = new SignInLimiter(deps.signInLimits ?? DEFAULT_SIGN_IN_LIMITS);
   api.use('/auth', authRoutes({ orm, limiter, store, outbox, bcryptCost: config.bcryptCost, publicUrl }));
   api.use('/invitations', invitationsRoutes(orm, config.bcryptCost, store));
@@ -120,7 +125,7 @@ export function createApp(deps: AppDeps): SightfanApp {
   api.use('/outbox', outboxRoutes(orm, config.demoMode, config.mailFrom));
   api.use('/catalog', catalogRoutes(orm));
   api.use('/projects', projectsRoutes(orm));
-  api.use('/projects', sheetsRoutes({ orm, outbox }));
+  api.use('/projects', sheetsRoutes({ orm, outbox, work }));
   api.use(apiNotFound);
   app.use('/api', api);
 
@@ -152,6 +157,7 @@ export function createApp(deps: AppDeps): SightfanApp {
     close: () => {
       outbox.stop();
       store.close();
+      if (!deps.sheetWork) void work.close();
     },
   };
 }

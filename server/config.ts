@@ -34,6 +34,10 @@ const envSchema = z.object({
   /** Extra origins allowed to call the API with cookies (the Expo dev server in `npm run dev`). */
   DEV_ORIGINS: z.string().default(''),
   BCRYPT_COST: z.coerce.number().int().min(12, 'BCRYPT_COST must be at least 12.').max(15).default(12),
+  /** Milliseconds one sheet task (evaluation or PDF render) may take before the request gets 503. */
+  SHEET_BUDGET_MS: z.coerce.number().int().min(100, 'SHEET_BUDGET_MS must be at least 100.').max(600_000).default(20_000),
+  /** Worker threads for sheets; unset: one fewer than the cores, at least one. */
+  SHEET_WORKERS: z.coerce.number().int().min(1, 'SHEET_WORKERS must be at least 1.').max(64).optional(),
 });
 
 export interface AppConfig {
@@ -53,6 +57,8 @@ export interface AppConfig {
   devOrigins: string[];
   bcryptCost: number;
   distDir: string;
+  sheetBudgetMs: number;
+  sheetWorkers?: number;
 }
 
 export class ConfigError extends Error {}
@@ -85,6 +91,8 @@ export function parseConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     demoMode: e.DEMO_MODE ?? !production,
     devOrigins: e.DEV_ORIGINS.split(',').map((s) => s.trim()).filter(Boolean),
     bcryptCost: e.BCRYPT_COST,
+    sheetBudgetMs: e.SHEET_BUDGET_MS,
+    sheetWorkers: e.SHEET_WORKERS,
     distDir: path.resolve(__dirname, '..', 'dist'),
   };
 }

@@ -11,6 +11,7 @@ import type { Logger } from './logger';
 import { startFakeSmtp, type FakeSmtp } from './modules/mail/fake-smtp';
 import { createMailer } from './modules/mail/mailer';
 import { seedDemo } from './seeders/demo';
+import { clearEvaluationCache } from './modules/sheets/sheet-service';
 import { demoSessionSecret } from './session-secret';
 
 export interface RunningServer {
@@ -23,6 +24,7 @@ export interface RunningServer {
 export async function startServer(config: AppConfig, log: Logger): Promise<RunningServer> {
   const orm = await initORM(config.databasePath);
   log.info(`database ready at ${config.databasePath} (migrations applied)`);
+  await clearEvaluationCache(orm.em);
   if (config.demoMode && (await seedDemo(orm, config.bcryptCost))) log.info('demo data seeded (see README.md for the demo accounts)');
 
   let fake: FakeSmtp | undefined;

@@ -28,6 +28,7 @@ import type {
   UsersResponse,
   SheetEmailBody,
   SheetEmailResponse,
+  SheetIssueResponse,
   SheetPaper,
   SheetStatusDto,
 } from './schemas';
@@ -167,12 +168,18 @@ export function createApiClient(options: ApiClientOptions = {}) {
     },
     sheets: {
       status: (projectId: number) => request<SheetStatusDto>('GET', `/projects/${projectId}/sheet`),
-      pdfPath: (projectId: number, paper?: SheetPaper) => `${baseUrl}/api/projects/${projectId}/sheet.pdf${paper ? `?paper=${paper}` : ''}`,
-      download: (projectId: number, paper?: SheetPaper) =>
-        download(`/projects/${projectId}/sheet.pdf${paper ? `?paper=${paper}` : ''}`, `sightfan-project-${projectId}.pdf`),
+      /** Issues a revision with the project's current content (or returns the latest, if unchanged). The only call that issues one. */
+      issue: (projectId: number) => request<SheetIssueResponse>('POST', `/projects/${projectId}/sheet/revisions`),
+      /** The address of an issued revision's PDF (a GET: it changes nothing). */
+      pdfPath: (projectId: number, revision: number, paper?: SheetPaper) => `${baseUrl}/api${sheetPdfPath(projectId, revision, paper)}`,
+      download: (projectId: number, revision: number, paper?: SheetPaper) => download(sheetPdfPath(projectId, revision, paper), `sightfan-project-${projectId}-rev${revision}.pdf`),
       email: (projectId: number, body: SheetEmailBody) => request<SheetEmailResponse>('POST', `/projects/${projectId}/sheet/email`, body),
     },
   };
 }
 
 export type ApiClient = ReturnType<typeof createApiClient>;
+
+function sheetPdfPath(projectId: number, revision: number, paper?: SheetPaper): string {
+  return `/projects/${projectId}/sheet.pdf?revision=${revision}${paper ? `&paper=${paper}` : ''}`;
+}

@@ -4,7 +4,7 @@
  * is the rule's order, the same order the zod side checks in.
  */
 import * as yup from 'yup';
-import { numberProblem, textLinesProblem, type NumberRule, type TextRule } from '@/shared/schemas/rules';
+import { numberProblem, textLinesProblem, textPrintProblem, type NumberRule, type TextRule } from '@/shared/schemas/rules';
 
 export function yupText(rule: TextRule): yup.StringSchema<string | undefined> {
   let s: yup.StringSchema<string | undefined> = yup.string();
@@ -15,9 +15,9 @@ export function yupText(rule: TextRule): yup.StringSchema<string | undefined> {
   if (rule.minLength) s = s.min(rule.minLength.value, rule.minLength.message);
   s = s.max(rule.maxLength.value, rule.maxLength.message);
   if (rule.pattern) s = s.matches(rule.pattern.re, rule.pattern.message);
-  if (rule.lines) {
+  if (rule.lines || rule.printable) {
     s = s.test('lines', (v, ctx) => {
-      const problem = v ? textLinesProblem(rule, v) : null;
+      const problem = v ? (textLinesProblem(rule, v) ?? textPrintProblem(rule, v)) : null;
       return problem ? ctx.createError({ message: problem }) : true;
     });
   }

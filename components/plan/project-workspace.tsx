@@ -16,6 +16,7 @@ import { ApiError } from '@/shared/api-client';
 import { describeError } from '@/shared/errors';
 import { isSimpleRing } from '@/shared/optics';
 import type { CatalogueItemDto, CriteriaSettings, CriterionKind, ProjectDto, SceneWall } from '@/shared/schemas';
+import { limitProblem } from '@/shared/schemas/limits';
 import { markRedrawEnd } from './perf-marks';
 import { PlanCanvas, type PlanDrag } from './plan-canvas';
 import { PlacementConflictNotice } from '@/components/placement/placement-conflict';
@@ -89,6 +90,14 @@ function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: Cat
   const onTapPlan = (raw: PairM) => {
     const pointM: PairM = [roundM(raw[0]), roundM(raw[1])];
     setLocalProblem(null);
+    // The project's limits, said before sending what the server would refuse.
+    const full =
+      tool === 'mirror' ? limitProblem('mirror', base, edits.placements.length)
+      : tool === 'viewer' ? limitProblem('viewer', base, 0)
+      : tool === 'wall' && draft.length === 0 ? limitProblem('wall', base, 0)
+      : tool === 'zone' ? (draft.length === 0 ? limitProblem('zone', base, 0) : null) ?? limitProblem('zoneCorner', base, 0, draft.length)
+      : null;
+    if (full) return setLocalProblem(full);
     if (tool === 'mirror') {
       const body = newMirrorBody(pointM, catalogue, base.viewers, edits.placements.length);
       if (!body) return setLocalProblem('The catalogue has no mirrors yet; ask your administrator to add one.');

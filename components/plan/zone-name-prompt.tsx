@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { AppText, Button, Segmented, TextField } from '@/components/ui';
 import { palette, radii, shadow, spacing } from '@/constants/theme';
+import { unprintableMessage } from '@/shared/text/printable';
 
 export type NewZoneTarget = 'adult' | 'child';
 
@@ -10,6 +11,7 @@ export function ZoneNamePrompt({ defaultName, error, onSave, onCancel }: { defau
   const [name, setName] = useState(defaultName);
   const [target, setTarget] = useState<NewZoneTarget>('adult');
   const trimmed = name.trim();
+  const ok = trimmed !== '' && unprintableMessage(trimmed) === null;
   return (
     <View style={styles.card} testID="plan-zone-prompt" role="dialog" aria-label="Name the new zone">
       <AppText variant="heading">Name the zone</AppText>
@@ -21,8 +23,8 @@ export function ZoneNamePrompt({ defaultName, error, onSave, onCancel }: { defau
         onChangeText={setName}
         autoFocus
         selectTextOnFocus
-        error={error ?? (trimmed ? undefined : 'Give the zone a name.')}
-        onSubmitEditing={() => trimmed && onSave(trimmed, target)}
+        error={error ?? (trimmed ? (unprintableMessage(trimmed) ?? undefined) : 'Give the zone a name.')}
+        onSubmitEditing={() => ok && onSave(trimmed, target)}
       />
       <Segmented<NewZoneTarget>
         label="Who must be seen here"
@@ -34,7 +36,7 @@ export function ZoneNamePrompt({ defaultName, error, onSave, onCancel }: { defau
         ]}
       />
       <View style={styles.row}>
-        <Button label="Save zone" testID="plan-zone-save" onPress={() => onSave(trimmed, target)} disabled={!trimmed} />
+        <Button label="Save zone" testID="plan-zone-save" onPress={() => onSave(trimmed, target)} disabled={!ok} />
         <Button label="Discard" variant="quiet" testID="plan-zone-discard" onPress={onCancel} />
       </View>
     </View>

@@ -7,7 +7,7 @@ import { fieldMessage, serverErrorsFor, type FormStatus } from '@/components/for
 import { yupText } from '@/components/forms/yup-rules';
 import { spacing } from '@/constants/theme';
 import { api } from '@/hooks/api';
-import { useDownloadSheetMutation, useEmailSheetMutation, useSheetStatusQuery } from '@/hooks/use-sheet';
+import { useDownloadSheetMutation, useEmailSheetMutation, useIssueSheetMutation, useSheetStatusQuery } from '@/hooks/use-sheet';
 import { describeError } from '@/shared/errors';
 import type { SheetEmailBody, SheetStatusDto } from '@/shared/schemas';
 import { sheetEmailRules } from '@/shared/schemas/rules';
@@ -50,11 +50,14 @@ export interface SheetActionsProps {
 export function SheetActions({ projectId, canEdit }: SheetActionsProps) {
   const status = useSheetStatusQuery(projectId);
   const download = useDownloadSheetMutation(projectId, saveFile);
+  const issue = useIssueSheetMutation(projectId);
   const email = useEmailSheetMutation(projectId);
+  const preparing = download.isPending || issue.isPending;
+  const failed = download.error ?? issue.error;
 
   const onDownload = () => {
     if (canSaveFiles) download.mutate(undefined);
-    else void Linking.openURL(api.sheets.pdfPath(projectId));
+    else issue.mutate(undefined, { onSuccess: (issued) => void Linking.openURL(api.sheets.pdfPath(projectId, issued.revision.number)) });
   };
 
   return (
@@ -68,10 +71,10 @@ export function SheetActions({ projectId, canEdit }: SheetActionsProps) {
           ? 'A PDF for the safety officer to sign and the buyer to attach to a purchase request.'
           : 'A PDF of this project as it stands; only the installer can change what is on it.'}
       </AppText>
-      <Button label={download.isPending ? 'Preparing the sheet\u2026' : 'Download sheet'} testID="sheet-download" onPress={onDownload} busy={download.isPending} variant="secondary" />
-      {download.isError ? (
+      <Button label={preparing ? 'Preparing the sheet\u2026' : 'Download sheet'} testID="sheet-download" onPress={onDownload} busy={preparing} variant="secondary" />
+      {failed ? (
         <Notice tone="stop" testID="sheet-download-error">
-          {describeError(download.error)}
+          {describeError(failed)}
         </Notice>
       ) : null}
 

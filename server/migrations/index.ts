@@ -9,6 +9,7 @@ import { Migration20261202032324 } from './Migration20261202032324';
 import { Migration20261202133000 } from './Migration20261202133000';
 import { Migration20261202134000 } from './Migration20261202134000';
 import { Migration20261202135000 } from './Migration20261202135000';
+import { Migration20261202140000 } from './Migration20261202140000';
 
 export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261202022227', class: Migration20261202022227 },
@@ -17,4 +18,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261202133000', class: Migration20261202133000 },
   { name: 'Migration20261202134000', class: Migration20261202134000 },
   { name: 'Migration20261202135000', class: Migration20261202135000 },
+  { name: 'Migration20261202140000', class: Migration20261202140000 },
 ];

@@ -8,6 +8,7 @@ import { simplifyRing } from '../../shared/geometry/simplify';
 import { chooseScaleBar, type ScaleBar } from '../../shared/units';
 import { GLASS, INK, MUTED, PAPER, RULE, STOP } from './layout';
 import type { SheetElevation, SheetPlan } from './sheet-model';
+import { textWidth, writeText } from './text-runs';
 
 /** Points per metre of paper: 72 pt per inch, 0.0254 m per inch. */
 export const PT_PER_M = 72 / 0.0254;
@@ -122,10 +123,10 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): Pl
     const cy = z.ring.reduce((s, p) => s + p[1], 0) / z.ring.length;
     const [x, y] = at([cx, cy]);
     const label = `${z.name}: ${z.covered} seen`;
-    doc.font('semibold').fontSize(7);
-    const w = doc.widthOfString(label) + 4;
+    const w = textWidth(doc, 'semibold', 7, label) + 4;
     doc.rect(x - w / 2, y - 5, w, 10).fillOpacity(0.85).fillColor(PAPER).fill().fillOpacity(1);
-    doc.fillColor(STOP).text(label, x - w / 2 + 2, y - 3.5, { lineBreak: false });
+    doc.fillColor(STOP);
+    writeText(doc, 'semibold', 7, label, x - w / 2 + 2, y - 3.5, { lineBreak: false });
     taken.push({ x: x - w / 2, y: y - 5, w, h: 10 });
   }
 
@@ -133,8 +134,9 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): Pl
     const [x, y] = at(v.at);
     doc.circle(x, y, 3.2).lineWidth(1).fillColor(PAPER).strokeColor(INK).fillAndStroke();
     doc.circle(x, y, 1.2).fillColor(INK).fill();
-    doc.font('regular').fontSize(6.8).fillColor(INK).text(v.name, x + 5, y - 3, { lineBreak: false });
-    taken.push({ x: x - 3.2, y: y - 3.2, w: 8.2 + doc.widthOfString(v.name), h: 9 });
+    doc.fillColor(INK);
+    writeText(doc, 'regular', 6.8, v.name, x + 5, y - 3, { lineBreak: false });
+    taken.push({ x: x - 3.2, y: y - 3.2, w: 8.2 + textWidth(doc, 'regular', 6.8, v.name), h: 9 });
   }
 
   // Every mirror's square and aim tick first, so no mirror's label is written across another mirror.
@@ -152,14 +154,14 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): Pl
     taken.push({ x: left, y: top, w: Math.max(x + 3, tipX) - left, h: Math.max(y + 3, tipY) - top });
     return { x, y, dx, dy };
   });
-  doc.font('bold').fontSize(7.2);
   plan.mirrors.forEach((m, i) => {
     const { x, y, dx, dy } = glyphs[i];
-    const w = doc.widthOfString(m.label);
+    const w = textWidth(doc, 'bold', 7.2, m.label);
     const spot = labelSpot({ x: x - dx * 6 + 4, y: y - dy * 6 - 11, w, h: LABEL_LINE_PT }, taken);
     taken.push(spot);
     doc.rect(spot.x - 1.5, spot.y - 1, spot.w + 3, spot.h).fillOpacity(0.85).fillColor(PAPER).fill().fillOpacity(1);
-    doc.fillColor(GLASS).text(m.label, spot.x, spot.y, { lineBreak: false });
+    doc.fillColor(GLASS);
+    writeText(doc, 'bold', 7.2, m.label, spot.x, spot.y, { lineBreak: false });
   });
   doc.restore();
   return fit;

@@ -1,5 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
+import * as fontkit from 'fontkit';
 
 /**
  * The shipped TTF files (fonts/, OFL), read once per process. pdfkit embeds only the glyphs a
@@ -15,22 +16,52 @@ export const SHEET_FONTS = {
 } as const;
 export type SheetFont = keyof typeof SHEET_FONTS;
 
+/**
+ * Faces for the scripts Barlow lacks, used per text run (text-runs.ts). One weight of the CJK faces
+ * only (each is megabytes): bold Chinese or Japanese prints in the regular weight.
+ */
+export const FALLBACK_FONTS = {
+  latin: 'NotoSans-Regular.ttf',
+  latinBold: 'NotoSans-Bold.ttf',
+  hebrew: 'NotoSansHebrew-Regular.ttf',
+  hebrewBold: 'NotoSansHebrew-Bold.ttf',
+  arabic: 'NotoSansArabic-Regular.ttf',
+  arabicBold: 'NotoSansArabic-Bold.ttf',
+  jp: 'NotoSansJP-Regular.ttf',
+  sc: 'NotoSansSC-Regular.ttf',
+} as const;
+export type FallbackFont = keyof typeof FALLBACK_FONTS;
+export type AnyFont = SheetFont | FallbackFont;
+export const ALL_FONTS: Record<AnyFont, string> = { ...SHEET_FONTS, ...FALLBACK_FONTS };
+
 export const FONTS_DIR = path.resolve(__dirname, '..', '..', 'fonts');
 
-let cache: Record<SheetFont, Buffer> | null = null;
+const files = new Map<AnyFont, Buffer>();
+
+/** One face's file, read once per process (each worker thread reads its own). */
+export function fontFile(name: AnyFont): Buffer {
+  let buf = files.get(name);
+  if (!buf) {
+    buf = fs.readFileSync(path.join(FONTS_DIR, ALL_FONTS[name]));
+    files.set(name, buf);
+  }
+  return buf;
+}
 
 export function sheetFontFiles(): Record<SheetFont, Buffer> {
-  if (!cache) {
-    const read = (f: string) => fs.readFileSync(path.join(FONTS_DIR, f));
-    cache = {
-      regular: read(SHEET_FONTS.regular),
-      medium: read(SHEET_FONTS.medium),
-      semibold: read(SHEET_FONTS.semibold),
-      bold: read(SHEET_FONTS.bold),
-      mono: read(SHEET_FONTS.mono),
-    };
+  return { regular: fontFile('regular'), medium: fontFile('medium'), semibold: fontFile('semibold'), bold: fontFile('bold'), mono: fontFile('mono') };
+}
+
+const parsed = new Map<AnyFont, fontkit.Font>();
+
+/** A face parsed by fontkit (the parser pdfkit uses), to ask which characters it has a glyph for. */
+export function fontFace(name: AnyFont): fontkit.Font {
+  let face = parsed.get(name);
+  if (!face) {
+    face = fontkit.create(fontFile(name)) as fontkit.Font;
+    parsed.set(name, face);
   }
-  return cache;
+  return face;
 }
 
 /**
@@ -51,4 +82,22 @@ export function registerSheetFonts(doc: PDFKit.PDFDocument): void {
   const files = sheetFontFiles();
   for (const name of Object.keys(files) as SheetFont[]) doc.registerFont(name, files[name]);
   doc.font('regular');
+}
+
+const registered = new WeakMap<PDFKit.PDFDocument, Set<AnyFont>>();
+
+/**
+ * Selects a face on a document, registering a fallback face first if this document has not used it
+ * yet: a fallback file (megabytes for CJK) is read only by the first sheet that needs it.
+ */
+export function useFont(doc: PDFKit.PDFDocument, name: AnyFont): PDFKit.PDFDocument {
+  if (name in FALLBACK_FONTS) {
+    let set = registered.get(doc);
+    if (!set) registered.set(doc, (set = new Set()));
+    if (!set.has(name)) {
+      doc.registerFont(name, fontFile(name));
+      set.add(name);
+    }
+  }
+  return doc.font(name);
 }

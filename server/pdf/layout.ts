@@ -3,6 +3,7 @@
  * own would split a table row), headings, label/value grids and tables.
  */
 import type { SheetFont } from './fonts';
+import { textHeight, writeText, type TextOptions } from './text-runs';
 
 import { palette } from '../../shared/palette';
 
@@ -67,6 +68,12 @@ export class Flow {
     return this.doc.font(font).fontSize(size).fillColor(color);
   }
 
+  /** Text that may hold any script the app accepts (names, notes): see text-runs.ts. */
+  write(font: SheetFont, size: number, color: string, text: string, x: number, y: number, opts: TextOptions = {}): void {
+    this.doc.fillColor(color);
+    writeText(this.doc, font, size, text, x, y, opts);
+  }
+
   /** Heights already measured on this document, by font, size, width and text (tables measure each cell twice). */
   private readonly heights = new Map<string, number>();
 
@@ -74,8 +81,7 @@ export class Flow {
     const key = `${font}\u0000${size}\u0000${width}\u0000${text}`;
     const known = this.heights.get(key);
     if (known !== undefined) return known;
-    this.doc.font(font).fontSize(size);
-    const h = this.doc.heightOfString(text, { width, lineGap: 1 });
+    const h = textHeight(this.doc, font, size, text, width, 1);
     this.heights.set(key, h);
     return h;
   }
@@ -85,7 +91,7 @@ export class Flow {
     const width = opts.width ?? this.width;
     const h = this.textHeight(text, font, size, width);
     this.ensure(h);
-    this.style(font, size, color).text(text, opts.x ?? this.left, this.y, { width, lineGap: 1 });
+    this.write(font, size, color, text, opts.x ?? this.left, this.y, { width, lineGap: 1 });
     this.y += h;
   }
 
@@ -105,8 +111,8 @@ export class Flow {
     let dy = 0;
     for (const [label, value] of rows) {
       const h = Math.max(this.textHeight(label, 'regular', 8.5, lw), this.textHeight(value, 'medium', 9.5, vw)) + 4;
-      this.style('regular', 8.5, MUTED).text(label, x, y + dy + 1, { width: lw, lineGap: 1 });
-      this.style('medium', 9.5, INK).text(value, x + lw + 6, y + dy, { width: vw, lineGap: 1 });
+      this.write('regular', 8.5, MUTED, label, x, y + dy + 1, { width: lw, lineGap: 1 });
+      this.write('medium', 9.5, INK, value, x + lw + 6, y + dy, { width: vw, lineGap: 1 });
       dy += h;
       this.doc.moveTo(x, y + dy - 2).lineTo(x + width, y + dy - 2).lineWidth(0.3).strokeColor(RULE_SOFT).stroke();
     }
@@ -167,7 +173,7 @@ export class Flow {
       }
       let x = this.left;
       row.forEach((text, i) => {
-        this.style(fontOf(i), 8.8, INK).text(text, x + pad, this.y + pad, { width: widths[i] - 2 * pad, align: columns[i].align ?? 'left', lineGap: 1 });
+        this.write(fontOf(i), 8.8, INK, text, x + pad, this.y + pad, { width: widths[i] - 2 * pad, align: columns[i].align ?? 'left', lineGap: 1 });
         x += widths[i];
       });
       this.y += h;

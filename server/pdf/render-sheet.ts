@@ -8,6 +8,7 @@ import type { SheetPaper } from '../../shared/schemas';
 import { SHEET_LIMITS } from './cautions';
 import { drawElevation, drawPlan, drawScaleBar, fitPlan, scaleBarFor } from './draw-plan';
 import { NO_DEFAULT_FONT, registerSheetFonts } from './fonts';
+import { writeText } from './text-runs';
 import { BEACON, BEACON_SOFT, Flow, GLASS, INK, MUTED, RULE, STOP } from './layout';
 import { sheetFormat, type SheetContent, type SheetPlacement } from './sheet-model';
 
@@ -308,8 +309,8 @@ export async function renderSheet(content: SheetContent, rev: SheetRevisionInfo,
     const left = doc.page.margins.left;
     const width = doc.page.width - left - doc.page.margins.right;
     doc.moveTo(left, y - 6).lineTo(left + width, y - 6).lineWidth(0.4).strokeColor(RULE).stroke();
-    doc.font('regular').fontSize(7.5).fillColor(MUTED);
-    doc.text(`Sightfan · ${content.project.name} · revision ${rev.number} · ${issueDate(issued)} · hash ${shortHash(rev.contentHash)}`, left, y, { width: width - 90, lineBreak: false, ellipsis: true });
+    doc.fillColor(MUTED);
+    writeText(doc, 'regular', 7.5, `Sightfan · ${content.project.name} · revision ${rev.number} · ${issueDate(issued)} · hash ${shortHash(rev.contentHash)}`, left, y, { width: width - 90, lineBreak: false, ellipsis: true });
     doc.font('semibold').fontSize(8).fillColor(INK).text(`Page ${i - range.start + 1} of ${range.count}`, left + width - 90, y, { width: 90, align: 'right', lineBreak: false });
     doc.page.margins.bottom = bottom;
   }

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { unitSystem } from './common';
 import { checkedMirrorSpec } from './catalog';
 import { isSimpleRing } from '../geometry/polygon';
-import { PLACEMENT_LIMITS } from './limits';
+import { LIMIT_MESSAGES, PLACEMENT_LIMITS, SCENE_LIMITS } from './limits';
 import { criteriaSettings, criterionKind } from './criteria';
 import { labelRule, placementRules, projectRules } from './rules';
 import { zodText } from './zod-rules';
@@ -39,7 +39,7 @@ export const zone = z.object({
   polygonM: z
     .array(pair)
     .min(3, 'A zone needs at least three corners.')
-    .max(200, 'A zone may have at most 200 corners.')
+    .max(SCENE_LIMITS.cornersPerZone, LIMIT_MESSAGES.cornersPerZone)
     .refine((ring) => isSimpleRing(ring), 'The zone outline crosses or touches itself; redraw it as one simple outline.'),
   target: zoneTarget.default({ kind: 'adult' }),
   /** Detect or recognise; absent in zones saved before criteria existed, which mean recognise. */
@@ -55,13 +55,15 @@ export const viewer = z.object({
 
 export const scene = z
   .object({
-    walls: z.array(wall).max(2000, 'At most 2,000 walls per project.').default([]),
-    zones: z.array(zone).max(100, 'At most 100 zones per project.').default([]),
-    viewers: z.array(viewer).max(100, 'At most 100 viewers per project.').default([]),
+    walls: z.array(wall).max(SCENE_LIMITS.walls, LIMIT_MESSAGES.walls).default([]),
+    zones: z.array(zone).max(SCENE_LIMITS.zones, LIMIT_MESSAGES.zones).default([]),
+    viewers: z.array(viewer).max(SCENE_LIMITS.viewers, LIMIT_MESSAGES.viewers).default([]),
     /** The project's detect and recognise angles; absent means the defaults (shared/project-optics/criteria.ts). */
     criteria: criteriaSettings.optional(),
   })
   .superRefine((s, ctx) => {
+    const corners = s.zones.reduce((sum, z) => sum + z.polygonM.length, 0);
+    if (corners > SCENE_LIMITS.zoneCorners) ctx.addIssue({ code: 'custom', path: ['zones'], message: LIMIT_MESSAGES.zoneCorners });
     const seen = new Set<string>();
     for (const [listName, list] of [['walls', s.walls], ['zones', s.zones], ['viewers', s.viewers]] as const) {
       list.forEach((item, i) => {

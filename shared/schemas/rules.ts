@@ -9,6 +9,7 @@
  * To change what a field accepts or what it says, change it here.
  */
 import { formatLength, type UnitSystem } from '../units';
+import { unprintableMessage } from '../text/printable';
 
 /** A limit and the sentence shown when it is crossed. */
 export interface Limit {
@@ -33,6 +34,11 @@ export interface TextRule {
    * Absent only for passwords, which are never stored or printed as text.
    */
   readonly lines?: 'single' | 'multi';
+  /**
+   * The text is printed on the specification sheet: characters no shipped face can draw (emoji
+   * among them) are refused with a sentence (shared/text/printable.ts), never printed as boxes.
+   */
+  readonly printable?: boolean;
 }
 
 /**
@@ -58,6 +64,11 @@ export function textLinesProblem(rule: Pick<TextRule, 'lines'>, value: string): 
   if (rule.lines === 'single' && LINE_BREAK.test(value)) return LINE_BREAK_MESSAGE;
   if (hasControl(value, rule.lines === 'multi')) return CONTROL_MESSAGE;
   return null;
+}
+
+/** The sentence for text the sheet cannot print, or null (only for rules marked `printable`). */
+export function textPrintProblem(rule: Pick<TextRule, 'lines' | 'printable'>, value: string): string | null {
+  return rule.printable ? unprintableMessage(value, rule.lines === 'multi') : null;
 }
 
 /** A number typed as a number. `required` is also said when it is missing or not a finite number. */
@@ -93,6 +104,7 @@ export const personNameRule: TextRule = {
   required: 'Enter a name.',
   maxLength: { value: 120, message: 'Keep the name to 120 characters.' },
   lines: 'single',
+  printable: true,
 };
 
 /** A new password: long enough to resist guessing, short enough for bcrypt (it reads 72 bytes). */
@@ -126,6 +138,7 @@ export const labelRule = (what: string): TextRule => ({
   required: `Give the ${what} a name.`,
   maxLength: { value: 80, message: `Keep the ${what}'s name to 80 characters.` },
   lines: 'single',
+  printable: true,
 });
 
 /** An optional free-text field of at most `max` characters ("Keep the notes to 2,000 characters."). */
@@ -133,10 +146,11 @@ export const optionalTextRule = (what: string, max: number, lines: 'single' | 'm
   trim,
   maxLength: { value: max, message: `Keep the ${what} to ${max.toLocaleString('en-GB')} characters.` },
   lines,
+  printable: true,
 });
 
-/** A search box: one line. */
-export const searchRule: TextRule = optionalTextRule('search', 100, 'single');
+/** A search box: one line (never printed). */
+export const searchRule: TextRule = { ...optionalTextRule('search', 100, 'single'), printable: false };
 
 export const projectRules = {
   name: labelRule('project'),
@@ -207,7 +221,7 @@ export const catalogueRules = {
     pattern: { re: /^[A-Za-z0-9._-]+$/, message: 'Use letters, digits, dot, dash or underscore in the code.' },
     lines: 'single',
   },
-  name: { trim: true, required: 'Enter a name.', maxLength: { value: 160, message: 'Keep the name to 160 characters.' }, lines: 'single' },
+  name: { trim: true, required: 'Enter a name.', maxLength: { value: 160, message: 'Keep the name to 160 characters.' }, lines: 'single', printable: true },
   material: optionalTextRule('material', 80, 'single'),
   notes: optionalTextRule('notes', 2000, 'multi', false),
   currency: {

@@ -10,6 +10,15 @@ export const sheetQuery = z.object({
   paper: z.enum(sheetPapers, { message: 'Choose a4 or letter paper.' }).optional(),
 });
 
+/** `GET …/sheet.pdf?revision=3`: an issued revision by number; without it, the latest issued one. */
+export const sheetPdfQuery = sheetQuery.extend({
+  revision: z
+    .string()
+    .regex(/^[1-9][0-9]{0,8}$/, 'A revision is a whole number like 3.')
+    .transform(Number)
+    .optional(),
+});
+
 /** One buyer address per sending: a purchase request goes to one desk. */
 export const sheetEmailBody = z
   .object({
@@ -33,6 +42,10 @@ export const sheetStatusDto = z.object({
   filename: z.string(),
 });
 export type SheetStatusDto = z.infer<typeof sheetStatusDto>;
+
+/** `POST …/sheet/revisions`: the revision that now holds the current content, and whether it is new. */
+export const sheetIssueResponse = z.object({ revision: sheetRevisionDto, created: z.boolean(), filename: z.string() });
+export type SheetIssueResponse = z.infer<typeof sheetIssueResponse>;
 
 /** `sent`: the mail server accepted it; `queued`: stored and retried until the server takes it. */
 export const sheetEmailResponse = z.object({ revision: sheetRevisionDto, to: z.string(), filename: z.string(), delivery: z.enum(['sent', 'queued']) });

@@ -1,6 +1,6 @@
 /** Builds the API's zod fields from the shared rules (./rules.ts), so the contract and the forms agree. */
 import { z } from 'zod';
-import { CONTROL_MESSAGE, LINE_BREAK_MESSAGE, textLinesProblem, type NumberRule, type TextRule } from './rules';
+import { CONTROL_MESSAGE, LINE_BREAK_MESSAGE, textLinesProblem, textPrintProblem, type NumberRule, type TextRule } from './rules';
 
 /** A string field: trimmed and re-cased as the rule says, then checked in the rule's order. */
 export function zodText(rule: TextRule) {
@@ -16,6 +16,12 @@ export function zodText(rule: TextRule) {
     s = s
       .refine((v) => textLinesProblem(rule, v) !== LINE_BREAK_MESSAGE, LINE_BREAK_MESSAGE)
       .refine((v) => textLinesProblem(rule, v) !== CONTROL_MESSAGE, CONTROL_MESSAGE);
+  }
+  if (rule.printable) {
+    s = s.superRefine((v, ctx) => {
+      const message = textPrintProblem(rule, v);
+      if (message) ctx.addIssue({ code: 'custom', message });
+    });
   }
   return s;
 }

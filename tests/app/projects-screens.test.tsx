@@ -83,6 +83,23 @@ describe('new project form', () => {
     expect(onSubmit).not.toHaveBeenCalled();
   });
 
+  it('says before sending that an emoji in the name cannot be printed on the sheet, and sends nothing', async () => {
+    const onSubmit = jest.fn();
+    render(<ProjectForm onSubmit={onSubmit} myUnits="metric" />);
+    fireEvent.change(screen.getByTestId('project-form-name'), { target: { value: 'Dock 3 🚚' } });
+    fireEvent.click(screen.getByTestId('project-form-submit'));
+    expect(await screen.findByTestId('field-error-name')).toHaveTextContent('Emoji cannot be printed on the specification sheet');
+    expect(onSubmit).not.toHaveBeenCalled();
+  });
+
+  it('sends a Hebrew, Arabic or Chinese name as typed', async () => {
+    const onSubmit = jest.fn().mockResolvedValue(undefined);
+    render(<ProjectForm onSubmit={onSubmit} myUnits="metric" />);
+    fireEvent.change(screen.getByTestId('project-form-name'), { target: { value: 'מחסן צפון — مستودع 冷库' } });
+    fireEvent.click(screen.getByTestId('project-form-submit'));
+    await waitFor(() => expect(onSubmit).toHaveBeenCalledWith(expect.objectContaining({ name: 'מחסן צפון — مستودع 冷库' })));
+  });
+
   it('sends the fields, with "my preference" as no project units', async () => {
     const onSubmit = jest.fn().mockResolvedValue(undefined);
     render(<ProjectForm onSubmit={onSubmit} myUnits="metric" />);

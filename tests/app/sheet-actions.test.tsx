@@ -3,12 +3,14 @@ import { screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { SheetActions } from '@/components/sheet';
 import { api } from '@/hooks/api';
+import { saveFile } from '@/components/sheet/save-file';
 import { sheetKeys } from '@/hooks/use-sheet';
 import { ApiError } from '@/shared/api-client';
 import type { SheetEmailResponse, SheetRevisionDto, SheetStatusDto } from '@/shared/schemas';
 import { makeTestQueryClient, renderWithQuery } from './render';
 
-jest.mock('@/hooks/api', () => ({ api: { sheets: { status: jest.fn(), pdfPath: jest.fn(), download: jest.fn(), email: jest.fn() } } }));
+jest.mock('@/hooks/api', () => ({ api: { sheets: { status: jest.fn(), issue: jest.fn(), pdfPath: jest.fn(), download: jest.fn(), email: jest.fn() } } }));
+jest.mock('@/components/sheet/save-file', () => ({ canSaveFiles: true, saveFile: jest.fn() }));
 
 const PROJECT_ID = 7;
 
@@ -96,5 +98,33 @@ describe('SheetActions', () => {
     expect(await screen.findByTestId('sheet-email-sent')).toHaveTextContent(`Sheet revision ${sent.revision.number} sent to ${sent.to}.`);
     await waitFor(() => expect(api.sheets.email).toHaveBeenCalledWith(PROJECT_ID, { to, message: note }));
     expect(screen.getByTestId('sheet-email-to')).toHaveValue('');
+  });
+
+  it('issues a revision with an explicit request first, then downloads exactly that revision', async () => {
+    const issued = revision(6);
+    jest.mocked(api.sheets.issue).mockResolvedValue({ revision: issued, created: true, filename: 'sightfan-demo-rev6.pdf' });
+    const file = { blob: new Blob(['%PDF-1.7']), filename: 'sightfan-demo-rev6.pdf', revision: 6 };
+    jest.mocked(api.sheets.download).mockResolvedValue(file);
+    renderWithStatus(status([revision(5)], true));
+    const user = userEvent.setup();
+
+    await user.click(screen.getByTestId('sheet-download'));
+
+    await waitFor(() => expect(saveFile).toHaveBeenCalledWith(file));
+    expect(api.sheets.issue).toHaveBeenCalledWith(PROJECT_ID);
+    expect(api.sheets.download).toHaveBeenCalledWith(PROJECT_ID, issued.number, undefined);
+    expect(jest.mocked(api.sheets.issue).mock.invocationCallOrder[0]).toBeLessThan(jest.mocked(api.sheets.download).mock.invocationCallOrder[0]);
+  });
+
+  it('shows why the sheet could not be prepared when issuing fails, and downloads nothing', async () => {
+    const busy = 'Working out this sheet took longer than 20 s, so it was stopped to keep Sightfan answering everyone else. Try again in a minute.';
+    jest.mocked(api.sheets.issue).mockRejectedValue(new ApiError(503, busy, {}, 30));
+    renderWithStatus(status([revision(5)], true));
+    const user = userEvent.setup();
+
+    await user.click(screen.getByTestId('sheet-download'));
+
+    expect(await screen.findByTestId('sheet-download-error')).toHaveTextContent('took longer than 20 s');
+    expect(api.sheets.download).not.toHaveBeenCalled();
   });
 });

@@ -48,10 +48,15 @@ const binary = (res: request.Response, cb: (err: Error | null, body: Buffer) => 
   res.on('end', () => cb(null, Buffer.concat(chunks)));
 };
 
+/** What the app's Download does: issue (POST), then fetch that revision's PDF (GET). */
 async function fetchSheet(agent: Agent, query = ''): Promise<{ pdf: Buffer; res: request.Response }> {
-  const res = await agent.get(`/api/projects/${projectId}/sheet.pdf${query}`).buffer(true).parse(binary);
+  const issued = await agent.post(`/api/projects/${projectId}/sheet/revisions`);
+  if (issued.status !== 200 && issued.status !== 201) throw new Error(`issuing failed: ${issued.status} ${JSON.stringify(issued.body)}`);
+  const res = await getPdf(agent, `?revision=${issued.body.revision.number}${query ? `&${query.slice(1)}` : ''}`);
   return { pdf: res.body as Buffer, res };
 }
+const getPdf = (agent: Agent, query = '') => agent.get(`/api/projects/${projectId}/sheet.pdf${query}`).buffer(true).parse(binary);
+const revisionCount = async () => ((await installer.get(`/api/projects/${projectId}/sheet`)).body as SheetStatusDto).revisions.length;
 
 let fileCount = 0;
 function tool(cmd: string, pdf: Buffer, args: string[] = []): string {
@@ -186,6 +191,79 @@ describe('the specification sheet PDF', () => {
   });
 });
 
+describe('reading a sheet changes nothing', () => {
+  it('answers GET sheet.pdf with 404 and a sentence before any revision is issued, and issues none', async () => {
+    const fresh = await installer.post('/api/projects').send({ name: 'Nothing issued yet (demo)' });
+    expect(fresh.status).toBe(201);
+    const id = fresh.body.project.id as number;
+    const res = await installer.get(`/api/projects/${id}/sheet.pdf`);
+    expect(res.status).toBe(404);
+    expect(res.body.error).toMatch(/No sheet has been issued/);
+    const status = (await installer.get(`/api/projects/${id}/sheet`)).body as SheetStatusDto;
+    expect(status.revisions).toEqual([]);
+  });
+
+  it('renders the latest issued revision on GET after the project changed, without issuing a new one', async () => {
+    const issued = (await installer.post(`/api/projects/${projectId}/sheet/revisions`)).body.revision.number as number;
+    const { project } = await engine();
+    const p = project.placements[0];
+    expect((await installer.patch(`/api/projects/${projectId}/placements/${p.id}`).send({ version: p.version, heightM: p.heightM + 0.1 })).status).toBe(200);
+    const before = await revisionCount();
+
+    // A top-level GET, as a link from another site would make it, with a cross-site fetch header.
+    const res = await getPdf(installer).set('Sec-Fetch-Site', 'cross-site');
+    expect(res.status).toBe(200);
+    expect(Number(res.headers['x-sheet-revision'])).toBe(issued);
+    expect(await revisionCount()).toBe(before);
+    const status = (await installer.get(`/api/projects/${projectId}/sheet`)).body as SheetStatusDto;
+    expect(status.current.changedSinceLast).toBe(true);
+  });
+
+  it('prints a named older revision with the content it was issued with, not the current content', async () => {
+    const { project, f } = await engine();
+    const p = project.placements[0];
+    const oldHeight = f.dist(p.heightM);
+    const first = (await installer.post(`/api/projects/${projectId}/sheet/revisions`)).body.revision.number as number;
+    expect((await installer.patch(`/api/projects/${projectId}/placements/${p.id}`).send({ version: p.version, heightM: p.heightM + 0.35 })).status).toBe(200);
+    const second = await installer.post(`/api/projects/${projectId}/sheet/revisions`);
+    expect(second.status).toBe(201);
+    expect(second.body.revision.number).toBe(first + 1);
+    // Issuing again with nothing changed returns the same revision (200, not a new one).
+    const again = await installer.post(`/api/projects/${projectId}/sheet/revisions`);
+    expect(again.status).toBe(200);
+    expect(again.body).toMatchObject({ created: false, revision: { number: first + 1 } });
+
+    const old = await getPdf(installer, `?revision=${first}`);
+    expect(old.status).toBe(200);
+    expect(Number(old.headers['x-sheet-revision'])).toBe(first);
+    const oldText = textOf(old.body as Buffer);
+    expect(oldText).toContain(`Height of the mirror centre ${oldHeight}`);
+    expect(textOf((await getPdf(installer, `?revision=${first + 1}`)).body as Buffer)).toContain(`Height of the mirror centre ${f.dist(p.heightM + 0.35)}`);
+  });
+
+  it('refuses to issue a revision for a request from another site (403), and issues none', async () => {
+    const { project } = await engine();
+    const p = project.placements[0];
+    expect((await installer.patch(`/api/projects/${projectId}/placements/${p.id}`).send({ version: p.version, heightM: p.heightM + 0.05 })).status).toBe(200);
+    const before = await revisionCount();
+    const res = await installer.post(`/api/projects/${projectId}/sheet/revisions`).set('Origin', 'https://elsewhere-demo.example').set('Sec-Fetch-Site', 'cross-site');
+    expect(res.status).toBe(403);
+    expect(await revisionCount()).toBe(before);
+  });
+
+  it.each([['0'], ['1.0'], ['0x2'], ['-1'], ['two']])('refuses revision=%s with 400 and a sentence', async (value) => {
+    const res = await installer.get(`/api/projects/${projectId}/sheet.pdf?revision=${encodeURIComponent(value)}`);
+    expect(res.status).toBe(400);
+    expect(res.body.fields.revision).toMatch(/whole number/);
+  });
+
+  it('answers 404 for a revision number that was never issued', async () => {
+    const res = await installer.get(`/api/projects/${projectId}/sheet.pdf?revision=999`);
+    expect(res.status).toBe(404);
+    expect(res.body.error).toMatch(/no revision 999/);
+  });
+});
+
 describe('e-mailing the sheet', () => {
   it('delivers the sheet to the buyer through the fake SMTP server with a byte-identical attachment', async () => {
     const to = 'buyer.desk@purchasing-demo.example';
@@ -220,6 +298,13 @@ describe('e-mailing the sheet', () => {
     const reviewer = await h.signedIn(EMAIL.reviewer);
     const res = await reviewer.get(`/api/projects/${projectId}/sheet.pdf`).buffer(true).parse(binary);
     expect(res.status).toBe(200);
+  });
+
+  it("does not let another installer issue a revision of someone else's sheet", async () => {
+    const other = await h.signedIn(OTHER_INSTALLER);
+    const before = await revisionCount();
+    expect((await other.post(`/api/projects/${projectId}/sheet/revisions`)).status).toBe(404);
+    expect(await revisionCount()).toBe(before);
   });
 
   it('reports a send the mail server refused as queued, keeps the revision, and delivers it from the outbox later', async () => {

@@ -14,6 +14,7 @@ import { mirrorOfSpec, mountProblem } from '../../../shared/project-optics';
 import { resolveUnits } from '../../../shared/units';
 import { mirrorOfModel } from '../catalog/catalog.dto';
 import { zodText } from '../../../shared/schemas/zod-rules';
+import { LIMIT_MESSAGES, SCENE_LIMITS } from '../../../shared/schemas/limits';
 import { z } from 'zod';
 import type { Orm } from '../../db';
 import { HttpError, notFound } from '../../http-error';
@@ -155,6 +156,8 @@ export function projectsRoutes(orm: Orm): Router {
     const project = await loadVisible(em, req.user!, req.params.id);
     assertCanEdit(req.user!, project);
     const body = parseOr400(createPlacementBody, req.body, 'The mirror');
+    // The mirror limit bounds the sheet's work (SCENE_LIMITS); counted before the body's references.
+    if ((await em.count(Placement, { project: project.id })) >= SCENE_LIMITS.mirrors) throw new HttpError(409, LIMIT_MESSAGES.mirrors);
     await checkReferences(em, project, body);
     await checkMount(em, req.user!, project, body);
     const { positionM, catalogueItemId, ...rest } = body;

@@ -6,6 +6,8 @@ import { User } from '../users/user.entity';
  * One issued revision of a project's specification sheet. A new row is written only when the
  * sheet's content hash differs from the latest one, so the number rises exactly when content changes.
  * `issuedAt` is whole seconds: the PDF's metadata dates are derived from it, so it must round-trip.
+ * `content` is the issued SheetContent as JSON, so a named revision renders the same later, whatever
+ * the project has become since (null for revisions issued before it was kept).
  */
 export class SheetRevision {
   id!: number;
@@ -14,6 +16,7 @@ export class SheetRevision {
   contentHash!: string;
   issuedAt!: Date;
   issuedBy!: User;
+  content?: string | null;
 
   static readonly schema = defineEntity({
     class: SheetRevision,
@@ -26,6 +29,7 @@ export class SheetRevision {
       contentHash: p.string().length(64),
       issuedAt: p.datetime(),
       issuedBy: p.manyToOne(User.schema),
+      content: p.text().nullable().lazy(true, false),
     }),
   });
 }

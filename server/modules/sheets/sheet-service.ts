@@ -1,13 +1,14 @@
 /**
- * Loads what a sheet needs, computes its content and hash, and issues revisions: a new revision
- * only when the content hash differs from the latest one.
+ * Loads what a sheet needs, gets its content (from the evaluation cache, or worked out on the sheet
+ * worker pool), issues revisions and renders them. Only `issueRevision` writes a revision: reading a
+ * sheet (its status, a PDF of an issued revision) changes nothing.
  */
 import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/sqlite';
 import type { SheetPaper, SheetRevisionDto } from '../../../shared/schemas';
-import { HttpError } from '../../http-error';
-import { buildSheetContent, contentHash, sheetFilename, type BuiltSheet } from '../../pdf/sheet-model';
-import { defaultPaper, renderSheet } from '../../pdf/render-sheet';
+import { HttpError, notFound } from '../../http-error';
+import { sheetFilename, type SheetInput } from '../../pdf/sheet-model';
+import type { SheetWork } from '../../workers/sheet-pool';
 import { toCatalogueItemDto } from '../catalog/catalog.dto';
 import { MirrorModel } from '../catalog/mirror-model.entity';
 import { Placement } from '../projects/placement.entity';
@@ -15,36 +16,78 @@ import { Project } from '../projects/project.entity';
 import { findVisibleProject, visibleCatalogue } from '../projects/project-access';
 import { toPlacementDto } from '../projects/project.dto';
 import { User } from '../users/user.entity';
+import { SheetEvaluation } from './sheet-evaluation.entity';
 import { SheetRevision } from './sheet-revision.entity';
+
+/** Cached evaluations kept; the least recently used beyond this are deleted. */
+export const SHEET_CACHE_ROWS = 200;
 
 export interface CurrentSheet {
   project: Project;
-  built: BuiltSheet;
+  /** The SheetContent as JSON text: only worker threads parse it. */
+  contentJson: string;
   hash: string;
 }
 
-export async function loadCurrentSheet(em: EntityManager, user: User, rawId: unknown): Promise<CurrentSheet> {
-  const project = await findVisibleProject(em, user, rawId);
+/** The project if the user may see it (the one access service), else 404. */
+export function loadProject(em: EntityManager, user: User, rawId: unknown): Promise<Project> {
+  return findVisibleProject(em, user, rawId);
+}
+
+async function sheetInput(em: EntityManager, project: Project): Promise<SheetInput> {
   const placements = await em.find(Placement, { project: project.id }, { orderBy: { id: 'asc' } });
   const catalogue = (await em.find(MirrorModel, visibleCatalogue(project.organization.id), { orderBy: { id: 'asc' } })).map(toCatalogueItemDto);
-  const built = buildSheetContent({
+  // Only the catalogue items placed here: other items' edits must not change this project's key.
+  const used = new Set(placements.map((p) => p.catalogueItem?.id).filter((id) => id != null));
+  return {
     project: { id: project.id, name: project.name, customer: project.customer, site: project.site, kind: project.kind, notes: project.notes, units: project.units, scene: project.scene },
     owner: { name: project.owner.name, email: project.owner.email, units: project.owner.units },
     organization: project.organization.name,
     placements: placements.map(toPlacementDto),
-    catalogue,
-  });
-  return { project, built, hash: contentHash(built.content) };
+    catalogue: catalogue.filter((c) => used.has(c.id)),
+  };
+}
+
+/** The project's sheet content as it stands: from the cache when its input was evaluated before. */
+export async function currentContent(em: EntityManager, project: Project, work: SheetWork): Promise<CurrentSheet> {
+  const input = await sheetInput(em, project);
+  const key = await work.inputHash(input);
+  const hit = await em.fork().findOne(SheetEvaluation, { inputHash: key });
+  if (hit) {
+    await em.nativeUpdate(SheetEvaluation, { inputHash: key }, { usedAt: new Date() });
+    return { project, contentJson: hit.content, hash: hit.contentHash };
+  }
+  const built = await work.build(input);
+  await storeEvaluation(em, key, built.contentJson, built.hash);
+  return { project, contentJson: built.contentJson, hash: built.hash };
+}
+
+async function storeEvaluation(em: EntityManager, key: string, contentJson: string, hash: string): Promise<void> {
+  const fork = em.fork();
+  try {
+    await fork.insert(SheetEvaluation, { inputHash: key, content: contentJson, contentHash: hash, usedAt: new Date() });
+  } catch (e) {
+    // Another request evaluated the same input at the same time: its row is as good as ours.
+    if (!(e instanceof UniqueConstraintViolationException)) throw e;
+    return;
+  }
+  const stale = await fork.find(SheetEvaluation, {}, { fields: ['inputHash'], orderBy: { usedAt: 'desc' }, offset: SHEET_CACHE_ROWS, limit: 1000 });
+  if (stale.length) await fork.nativeDelete(SheetEvaluation, { inputHash: { $in: stale.map((s) => s.inputHash) } });
+}
+
+/** Empties the evaluation cache (at start-up, so a new engine never serves an old engine's numbers). */
+export async function clearEvaluationCache(em: EntityManager): Promise<void> {
+  await em.fork().nativeDelete(SheetEvaluation, {});
 }
 
 export const latestRevision = (em: EntityManager, project: Project) =>
   em.findOne(SheetRevision, { project: project.id }, { orderBy: { number: 'desc' }, populate: ['issuedBy'] });
 
 /** The latest revision if its content is the current content; otherwise a new revision n + 1. */
-export async function issueRevision(em: EntityManager, sheet: CurrentSheet, user: User): Promise<SheetRevision> {
+export async function issueRevision(em: EntityManager, sheet: CurrentSheet, user: User): Promise<{ revision: SheetRevision; created: boolean }> {
   for (let attempt = 0; attempt < 3; attempt++) {
     const latest = await latestRevision(em, sheet.project);
-    if (latest && latest.contentHash === sheet.hash) return latest;
+    if (latest && latest.contentHash === sheet.hash) return { revision: latest, created: false };
     // Whole seconds: the PDF's dates are derived from this value and must read back the same.
     const issuedAt = new Date(Math.floor(Date.now() / 1000) * 1000);
     const rev = em.create(SheetRevision, {
@@ -53,13 +96,14 @@ export async function issueRevision(em: EntityManager, sheet: CurrentSheet, user
       contentHash: sheet.hash,
       issuedAt,
       issuedBy: em.getReference(User, user.id),
+      content: sheet.contentJson,
     });
     try {
       await em.flush();
       await em.populate(rev, ['issuedBy']);
-      return rev;
+      return { revision: rev, created: true };
     } catch (e) {
-      // Two renders raced for the same number: the other one won; read it and compare again.
+      // Two requests raced for the same number: the other one won; read it and compare again.
       if (!(e instanceof UniqueConstraintViolationException)) throw e;
       em.clear();
     }
@@ -74,11 +118,24 @@ export interface RenderedSheet {
   projectName: string;
 }
 
-export async function issueAndRender(em: EntityManager, user: User, rawId: unknown, paper?: SheetPaper): Promise<RenderedSheet> {
-  const sheet = await loadCurrentSheet(em, user, rawId);
-  const revision = await issueRevision(em, sheet, user);
-  const pdf = await renderSheet(sheet.built.content, { number: revision.number, contentHash: revision.contentHash, issuedAt: revision.issuedAt }, paper ?? defaultPaper(sheet.built.content.units));
-  return { revision, pdf, filename: sheetFilename(sheet.project.name, revision.number), projectName: sheet.project.name };
+/**
+ * The PDF of an issued revision, from the content kept with it. A revision issued before content was
+ * kept renders only while the project still has that content.
+ */
+export async function renderRevision(em: EntityManager, project: Project, revision: SheetRevision, work: SheetWork, paper?: SheetPaper): Promise<RenderedSheet> {
+  await em.populate(revision, ['content']);
+  let contentJson: string;
+  if (revision.content) {
+    contentJson = revision.content;
+  } else {
+    const now = await currentContent(em, project, work);
+    if (now.hash !== revision.contentHash) {
+      throw new HttpError(410, `Revision ${revision.number} was issued before Sightfan kept each revision's content, and the project has changed since, so it cannot be printed again. Issue a new revision.`);
+    }
+    contentJson = now.contentJson;
+  }
+  const pdf = await work.render(contentJson, { number: revision.number, contentHash: revision.contentHash, issuedAt: revision.issuedAt }, paper);
+  return { revision, pdf, filename: sheetFilename(project.name, revision.number), projectName: project.name };
 }
 
 export function toRevisionDto(r: SheetRevision): SheetRevisionDto {

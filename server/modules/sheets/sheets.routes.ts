@@ -1,12 +1,14 @@
 import { Router, type Response } from 'express';
-import { sheetEmailBody, sheetQuery, type SheetEmailResponse, type SheetStatusDto } from '../../../shared/schemas';
+import { sheetEmailBody, sheetPdfQuery, sheetQuery, type SheetEmailResponse, type SheetIssueResponse, type SheetStatusDto } from '../../../shared/schemas';
 import type { Orm } from '../../db';
+import { HttpError } from '../../http-error';
 import { requireUser } from '../../middleware/auth';
 import { parseOr400 } from '../../middleware/validate';
 import { sheetFilename } from '../../pdf/sheet-model';
+import type { SheetWork } from '../../workers/sheet-pool';
 import { queueMail, type MailDispatcher } from '../mail/outbox';
 import { SheetRevision } from './sheet-revision.entity';
-import { issueAndRender, loadCurrentSheet, toRevisionDto } from './sheet-service';
+import { currentContent, issueRevision, latestRevision, loadProject, renderRevision, toRevisionDto } from './sheet-service';
 
 function sendPdf(res: Response, pdf: Buffer, filename: string, revision: number): void {
   res.set({
@@ -21,41 +23,62 @@ function sendPdf(res: Response, pdf: Buffer, filename: string, revision: number)
 
 /**
  * The specification sheet of a project. Anyone who can read the project (its installer, a reviewer
- * of its organisation, an admin) can download it or e-mail it to a buyer; others get 404.
+ * of its organisation, an admin) can issue a revision, download an issued one or e-mail the sheet to
+ * a buyer; others get 404. GET requests change nothing: a revision is issued only by POST.
  */
-export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher }): Router {
-  const { orm, outbox } = deps;
+export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: SheetWork }): Router {
+  const { orm, outbox, work } = deps;
   const r = Router();
   r.use(requireUser);
 
   r.get('/:id/sheet', async (req, res) => {
     const em = orm.em.fork();
-    const sheet = await loadCurrentSheet(em, req.user!, req.params.id);
-    const revisions = await em.find(SheetRevision, { project: sheet.project.id }, { orderBy: { number: 'desc' }, populate: ['issuedBy'] });
+    const project = await loadProject(em, req.user!, req.params.id);
+    const sheet = await currentContent(em, project, work);
+    const revisions = await em.find(SheetRevision, { project: project.id }, { orderBy: { number: 'desc' }, populate: ['issuedBy'] });
     const latest = revisions[0];
     const changed = !latest || latest.contentHash !== sheet.hash;
     const number = changed ? (latest?.number ?? 0) + 1 : latest.number;
     const body: SheetStatusDto = {
       revisions: revisions.map(toRevisionDto),
       current: { number, contentHash: sheet.hash, changedSinceLast: changed },
-      filename: sheetFilename(sheet.project.name, number),
+      filename: sheetFilename(project.name, number),
     };
     res.json(body);
   });
 
+  /** Issues a revision holding the project's current content (or answers with the latest, if that already does). */
+  r.post('/:id/sheet/revisions', async (req, res) => {
+    const em = orm.em.fork();
+    const project = await loadProject(em, req.user!, req.params.id);
+    const { revision, created } = await issueRevision(em, await currentContent(em, project, work), req.user!);
+    const body: SheetIssueResponse = { revision: toRevisionDto(revision), created, filename: sheetFilename(project.name, revision.number) };
+    res.status(created ? 201 : 200).json(body);
+  });
+
+  /** The PDF of an issued revision: `?revision=n`, or the latest issued. Never issues one. */
   r.get('/:id/sheet.pdf', async (req, res) => {
-    const q = parseOr400(sheetQuery, req.query, 'The address');
-    const sheet = await issueAndRender(orm.em.fork(), req.user!, req.params.id, q.paper);
-    sendPdf(res, sheet.pdf, sheet.filename, sheet.revision.number);
+    const em = orm.em.fork();
+    const project = await loadProject(em, req.user!, req.params.id);
+    const q = parseOr400(sheetPdfQuery, req.query, 'The address');
+    const revision = q.revision
+      ? await em.findOne(SheetRevision, { project: project.id, number: q.revision }, { populate: ['issuedBy'] })
+      : await latestRevision(em, project);
+    if (!revision) {
+      throw new HttpError(404, q.revision ? `This project has no revision ${q.revision}.` : 'No sheet has been issued for this project yet. Issue one first (the app\u2019s Download sheet does).');
+    }
+    const sheet = await renderRevision(em, project, revision, work, q.paper);
+    sendPdf(res, sheet.pdf, sheet.filename, revision.number);
   });
 
   r.post('/:id/sheet/email', async (req, res) => {
     const em = orm.em.fork();
     // Check access before the body, so a stranger learns nothing about the project from a 400.
-    await loadCurrentSheet(em, req.user!, req.params.id);
+    const project = await loadProject(em, req.user!, req.params.id);
     const body = parseOr400(sheetEmailBody, req.body, 'The e-mail');
     const q = parseOr400(sheetQuery, req.query, 'The address');
-    const sheet = await issueAndRender(em, req.user!, req.params.id, q.paper);
+    const { revision } = await issueRevision(em, await currentContent(em, project, work), req.user!);
+    const sheet = await renderRevision(em, project, revision, work, q.paper);
     const content = `${req.user!.name} sent you the Sightfan specification sheet for "${sheet.projectName}" (revision ${sheet.revision.number}), attached as a PDF.`;
     const note = body.message ? `\n\nTheir note:\n${body.message}` : '';
     const tail =

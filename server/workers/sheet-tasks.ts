@@ -1,0 +1,41 @@
+/**
+ * The sheet's heavy work, run inside a worker thread (see sheet-pool.ts): hashing a project's input,
+ * the engine's evaluation of the whole project (buildSheetContent) and the pdfkit render. Content
+ * crosses threads as JSON text, so the request thread never walks, parses or serialises it: for the
+ * largest accepted project that alone held the request thread for a tenth of a second.
+ */
+import { createHash } from 'node:crypto';
+import type { SheetPaper } from '../../shared/schemas';
+import { defaultPaper, renderSheet, type SheetRevisionInfo } from '../pdf/render-sheet';
+import { buildSheetContent, canonicalJson, contentHash, type SheetContent, type SheetInput } from '../pdf/sheet-model';
+
+/**
+ * Part of every evaluation cache key. Raise it whenever the sheet model or the engine changes what a
+ * sheet says for the same input (the cache is also emptied when the server starts).
+ */
+export const SHEET_MODEL_VERSION = 1;
+
+export function inputHash(input: SheetInput): string {
+  return createHash('sha256').update(canonicalJson({ v: SHEET_MODEL_VERSION, input })).digest('hex');
+}
+
+export interface BuiltContent {
+  contentJson: string;
+  hash: string;
+}
+
+export function build(input: SheetInput): BuiltContent {
+  const { content } = buildSheetContent(input);
+  return { contentJson: JSON.stringify(content), hash: contentHash(content) };
+}
+
+export interface RenderTask {
+  contentJson: string;
+  rev: SheetRevisionInfo;
+  paper?: SheetPaper;
+}
+
+export async function render(task: RenderTask): Promise<Uint8Array> {
+  const content = JSON.parse(task.contentJson) as SheetContent;
+  return renderSheet(content, task.rev, task.paper ?? defaultPaper(content.units));
+}
