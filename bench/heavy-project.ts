@@ -47,9 +47,13 @@ export function heavyScene(c: HeavyCounts): Scene {
 }
 
 export function heavyPlacements(c: HeavyCounts, catalogueItemId: number): CreatePlacementBody[] {
+  // Mirrors hang between the walls' grid cells (half a cell from every wall), never inside one.
+  const wallStep = HALL_M / Math.ceil(Math.sqrt(Math.max(1, c.walls)));
+  const between = (m: number) => -HALL_M / 2 + wallStep * Math.round((m + HALL_M / 2) / wallStep);
   return Array.from({ length: c.mirrors }, (_, i) => {
     const v = i % Math.max(1, c.viewers);
-    const [x, y] = cell(v, c.viewers);
+    const [vx, vy] = cell(v, c.viewers);
+    const [x, y] = [between(vx + 2) - 2, between(vy + 3) - 3];
     return {
       label: `H${String(i + 1).padStart(3, '0')}`,
       catalogueItemId,

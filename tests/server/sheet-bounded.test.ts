@@ -194,7 +194,9 @@ describe('the evaluation cache', () => {
       expect((await agent.get(`/api/projects/${id}/sheet`)).status).toBe(200);
       expect((await agent.post(`/api/projects/${id}/sheet/revisions`)).status).toBeLessThan(300);
       expect((await agent.get(`/api/projects/${id}/sheet`)).status).toBe(200);
-      expect((await agent.post(`/api/projects/${id}/sheet/email`).send({ to: 'cache.buyer@purchasing-demo.example' })).status).toBe(502);
+      const sent = await agent.post(`/api/projects/${id}/sheet/email`).send({ to: 'cache.buyer@purchasing-demo.example' });
+      // No mail server answers here: the e-mail waits in the outbox, and says so.
+      expect([sent.status, sent.body.delivery]).toEqual([200, 'queued']);
       expect(builds).toBe(1);
 
       // Another instance over the same database finds the evaluation there.
