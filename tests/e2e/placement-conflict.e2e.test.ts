@@ -23,7 +23,9 @@ async function openDemoMirror(page: Page): Promise<{ projectId: number; placemen
   await page.getByText('Cold store aisles and dock (demo)').first().click();
   await page.waitForURL(/\/projects\/\d+$/);
   const projectId = Number(new URL(page.url()).pathname.split('/').pop());
-  const row = page.locator('[data-testid^="summary-placement-"]').first();
+  // The round panel on the rack's end face: its tilt can change within the mounting rule (the
+  // junction's half dome sits with its flat faces on a column and keeps its mounting tilt).
+  const row = page.locator('[data-testid^="summary-placement-"]', { hasText: 'M2 dock corner' }).first();
   const placementId = Number((await row.getAttribute('data-testid'))!.replace('summary-placement-', ''));
   await row.click();
   await byTestId(page, 'placement-height').waitFor({ state: 'visible' });
