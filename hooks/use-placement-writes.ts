@@ -11,7 +11,7 @@
  * values are kept beside them, and nothing more is sent for that mirror until the person chooses
  * "keep mine" (saved over the new version) or "use theirs" (the unsaved edits are dropped).
  */
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { ApiError } from '@/shared/api-client';
 import { describeError } from '@/shared/errors';
 import type { CreatePlacementBody, PlacementDto, ProjectDto } from '@/shared/schemas';
@@ -178,7 +178,9 @@ export function usePlacementWrites(project: ProjectDto) {
 
   // Leaving the plan saves what is still waiting for its autosave rather than dropping it.
   const saveRef = useRef(save);
-  saveRef.current = save;
+  useLayoutEffect(() => {
+    saveRef.current = save;
+  });
   useEffect(
     () => () => {
       for (const id of [...timers.current.keys()]) saveRef.current(id);

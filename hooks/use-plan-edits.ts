@@ -5,7 +5,7 @@
  * placement editor shares.
  */
 import { useQueryClient } from '@tanstack/react-query';
-import { useCallback, useMemo, useRef, useState } from 'react';
+import { useCallback, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { ApiError } from '@/shared/api-client';
 import { describeError } from '@/shared/errors';
 import type { CreatePlacementBody, PlacementDto, ProjectDto, Scene } from '@/shared/schemas';
@@ -29,7 +29,7 @@ const isConflict = (e: unknown) => e instanceof ApiError && e.status === 409;
 
 export function usePlanEdits(project: ProjectDto) {
   const qc = useQueryClient();
-  const key = projectKeys.detail(project.id);
+  const key = useMemo(() => projectKeys.detail(project.id), [project.id]);
   const updateProject = useUpdateProjectMutation(project.id);
   const writes = usePlacementWrites(project);
 
@@ -39,7 +39,6 @@ export function usePlanEdits(project: ProjectDto) {
   const [pending, setPending] = useState(0);
   const queue = useRef<Promise<unknown>>(Promise.resolve());
 
-  const cached = () => qc.getQueryData<ProjectDto>(key);
   /** One scene save after another: the next reads the version the previous one returned. */
   const enqueue = useCallback(<T,>(run: () => Promise<T>): Promise<T> => {
     setPending((n) => n + 1);
@@ -49,15 +48,22 @@ export function usePlanEdits(project: ProjectDto) {
   }, []);
 
   const scene = localScene ?? project.scene;
+  const projectVersion = project.version;
+  const { change, create, remove } = writes;
+  const { mutateAsync: patchProject } = updateProject;
+
+  // "Try again" calls the save that failed; the saves are reached through this ref so that each
+  // can offer itself as the retry without referring to itself while being defined.
+  const retryable = useRef<{ saveScene: (next: Scene) => Promise<boolean>; createPlacement: (body: CreatePlacementBody) => Promise<PlacementDto | null>; deletePlacement: (id: number) => Promise<boolean> } | null>(null);
 
   const saveScene = useCallback(
     (next: Scene) => {
       setLocalScene(next);
       setProblem(null);
       return enqueue(async () => {
-        const version = cached()?.version ?? project.version;
+        const version = qc.getQueryData<ProjectDto>(key)?.version ?? projectVersion;
         try {
-          await updateProject.mutateAsync({ version, scene: next });
+          await patchProject({ version, scene: next });
           setLocalScene((current) => (current === next ? null : current));
           return true;
         } catch (e) {
@@ -65,43 +71,46 @@ export function usePlanEdits(project: ProjectDto) {
             setLocalScene(null);
             setProblem({ message: `${describeError(e)} ${PLAN_SHOWS_SAVED}`, retry: null });
             void qc.invalidateQueries({ queryKey: key });
-          } else setProblem({ message: describeError(e), retry: () => void saveScene(next) });
+          } else setProblem({ message: describeError(e), retry: () => void retryable.current?.saveScene(next) });
           return false;
         }
       });
     },
-    [enqueue, project.version],
+    [enqueue, projectVersion, patchProject, qc, key],
   );
 
   /** A placement change from the plan (the end of a drag): saved at once through the shared path. */
-  const savePlacement = useCallback((id: number, patch: PlacementPatch) => writes.change(id, patch), [writes.change]);
+  const savePlacement = useCallback((id: number, patch: PlacementPatch) => change(id, patch), [change]);
 
   const createPlacement = useCallback(
     async (body: CreatePlacementBody): Promise<PlacementDto | null> => {
       setProblem(null);
       try {
-        return await writes.create(body);
+        return await create(body);
       } catch (e) {
-        setProblem({ message: describeError(e), retry: () => void createPlacement(body) });
+        setProblem({ message: describeError(e), retry: () => void retryable.current?.createPlacement(body) });
         return null;
       }
     },
-    [writes.create],
+    [create],
   );
 
   const deletePlacement = useCallback(
     async (id: number): Promise<boolean> => {
       setProblem(null);
       try {
-        await writes.remove(id);
+        await remove(id);
         return true;
       } catch (e) {
-        setProblem({ message: describeError(e), retry: () => void deletePlacement(id) });
+        setProblem({ message: describeError(e), retry: () => void retryable.current?.deletePlacement(id) });
         return false;
       }
     },
-    [writes.remove],
+    [remove],
   );
+  useLayoutEffect(() => {
+    retryable.current = { saveScene, createPlacement, deletePlacement };
+  });
 
   /** Placements with the unsaved edits (shared with the editor) and the live drag on top. */
   const placements = useMemo(

@@ -196,7 +196,7 @@ function PlacementEditorInner({ project, placement: draft, writes, evaluation, c
       <View style={styles.section}>
         <AppText variant="label">Serves the viewer</AppText>
         {project.scene.viewers.length === 0 ? (
-          <AppText tone="muted">The plan has no viewers yet. Add the driver's or walker's eye point on the plan to see numbers.</AppText>
+          <AppText tone="muted">The plan has no viewers yet. Add the driver’s or walker’s eye point on the plan to see numbers.</AppText>
         ) : (
           <ChoiceChips
             label="Viewer this mirror serves"
@@ -286,7 +286,7 @@ function PlacementEditorInner({ project, placement: draft, writes, evaluation, c
         </View>
       ) : (
         <AppText tone="muted" testID="placement-read-only">
-          You can read this mirror's values; only the project's installer can change them.
+          You can read this mirror’s values; only the project’s installer can change them.
         </AppText>
       )}
     </View>

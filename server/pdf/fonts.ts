@@ -90,7 +90,7 @@ const registered = new WeakMap<PDFKit.PDFDocument, Set<AnyFont>>();
  * Selects a face on a document, registering a fallback face first if this document has not used it
  * yet: a fallback file (megabytes for CJK) is read only by the first sheet that needs it.
  */
-export function useFont(doc: PDFKit.PDFDocument, name: AnyFont): PDFKit.PDFDocument {
+export function selectFont(doc: PDFKit.PDFDocument, name: AnyFont): PDFKit.PDFDocument {
   if (name in FALLBACK_FONTS) {
     let set = registered.get(doc);
     if (!set) registered.set(doc, (set = new Set()));

@@ -13,7 +13,7 @@
  * Pieces in different faces share the requested face's baseline and line height.
  */
 import bidiFactory from 'bidi-js';
-import { fontFace, useFont, type AnyFont, type SheetFont } from './fonts';
+import { fontFace, selectFont, type AnyFont, type SheetFont } from './fonts';
 
 const bidi = bidiFactory();
 
@@ -123,7 +123,7 @@ const SAFE_FEATURES = featureSwitches({ mark: false, mkmk: false, calt: false, l
 const withFeatures = (features: Features | undefined) => (features ? { features } : {});
 
 function measured(doc: PDFKit.PDFDocument, font: AnyFont, size: number, text: string): { width: number; features?: Features } {
-  const d = useFont(doc, font).fontSize(size);
+  const d = selectFont(doc, font).fontSize(size);
   const own = FACE_FEATURES[font];
   try {
     return { width: d.widthOfString(text, withFeatures(own)), features: own };
@@ -281,7 +281,7 @@ export function layout(doc: PDFKit.PDFDocument, face: SheetFont, size: number, t
 }
 
 function lineHeight(doc: PDFKit.PDFDocument, face: SheetFont, size: number, lineGap: number): number {
-  return useFont(doc, face).fontSize(size).currentLineHeight(true) + lineGap;
+  return selectFont(doc, face).fontSize(size).currentLineHeight(true) + lineGap;
 }
 
 /** The height `text` takes at `width` (what pdfkit's heightOfString gives for plain text). */
@@ -316,7 +316,7 @@ export function writeText(doc: PDFKit.PDFDocument, face: SheetFont, size: number
     let cx = x + (opts.align === 'right' ? room - line.width : opts.align === 'center' ? (room - line.width) / 2 : 0);
     const baseline = y + i * lh + ascent;
     for (const p of line.pieces) {
-      useFont(doc, p.font).fontSize(size).text(p.text, cx, baseline, { lineBreak: false, baseline: 'alphabetic', ...(p.features ? { features: p.features } : {}) });
+      selectFont(doc, p.font).fontSize(size).text(p.text, cx, baseline, { lineBreak: false, baseline: 'alphabetic', ...(p.features ? { features: p.features } : {}) });
       cx += p.width;
     }
   });
