@@ -43,8 +43,12 @@ export async function runBoundedBench(): Promise<void> {
     renders.push(performance.now() - t);
   }
   const inProcess = median(builds) + median(renders);
-  console.log(`  in this process: evaluate median ${median(builds).toFixed(0)} ms, render median ${median(renders).toFixed(0)} ms, PDF ${(bytes / 1024).toFixed(0)} KB`);
-  console.log(`  whole sheet ${inProcess.toFixed(0)} ms (budget ${SHEET_BUDGET_MS} ms) ${inProcess <= SHEET_BUDGET_MS ? 'meets' : 'MISSES'}`);
+  console.log(
+    `  in this process: evaluate median ${median(builds).toFixed(0)} ms, render median ${median(renders).toFixed(0)} ms, PDF ${(bytes / 1024).toFixed(0)} KB`,
+  );
+  console.log(
+    `  whole sheet ${inProcess.toFixed(0)} ms (budget ${SHEET_BUDGET_MS} ms) ${inProcess <= SHEET_BUDGET_MS ? 'meets' : 'MISSES'}`,
+  );
 
   // Through the pool, with a health server on this (the request) thread polled every 20 ms.
   const work = createSheetWork({ budgetMs: 120_000, threads: 1 });
@@ -78,8 +82,12 @@ export async function runBoundedBench(): Promise<void> {
   server.close();
   await work.close();
   const worst = Math.max(...latencies);
-  console.log(`  worker pool: first task (thread start, TypeScript loader) ${cold.toFixed(0)} ms; input hash ${hashMs.toFixed(0)} ms (${key.slice(0, 8)}…); evaluate ${buildMs.toFixed(0)} ms; render ${renderMs.toFixed(0)} ms`);
-  console.log(`  health while the pool worked: ${latencies.length} checks, median ${median(latencies).toFixed(1)} ms, worst ${worst.toFixed(1)} ms (budget ${HEALTH_BUDGET_MS} ms) ${worst <= HEALTH_BUDGET_MS ? 'meets' : 'MISSES'}`);
+  console.log(
+    `  worker pool: first task (thread start, TypeScript loader) ${cold.toFixed(0)} ms; input hash ${hashMs.toFixed(0)} ms (${key.slice(0, 8)}…); evaluate ${buildMs.toFixed(0)} ms; render ${renderMs.toFixed(0)} ms`,
+  );
+  console.log(
+    `  health while the pool worked: ${latencies.length} checks, median ${median(latencies).toFixed(1)} ms, worst ${worst.toFixed(1)} ms (budget ${HEALTH_BUDGET_MS} ms) ${worst <= HEALTH_BUDGET_MS ? 'meets' : 'MISSES'}`,
+  );
 }
 
 if (require.main === module) void runBoundedBench();

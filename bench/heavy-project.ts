@@ -28,7 +28,13 @@ export function heavyScene(c: HeavyCounts): Scene {
   const walls = Array.from({ length: c.walls }, (_, i) => {
     const [x, y] = cell(i, c.walls);
     const along = i % 2 === 0;
-    return { id: `w${i}`, kind: (i % 3 === 0 ? 'racking' : 'wall') as 'wall' | 'racking', aM: [x, y] as [number, number], bM: (along ? [x + 1.5, y] : [x, y + 1.5]) as [number, number], heightM: 3 };
+    return {
+      id: `w${i}`,
+      kind: (i % 3 === 0 ? 'racking' : 'wall') as 'wall' | 'racking',
+      aM: [x, y] as [number, number],
+      bM: (along ? [x + 1.5, y] : [x, y + 1.5]) as [number, number],
+      heightM: 3,
+    };
   });
   const zones = Array.from({ length: c.zones }, (_, i) => {
     const [x, y] = cell(i, c.zones);
@@ -69,7 +75,16 @@ export function heavyPlacements(c: HeavyCounts, catalogueItemId: number): Create
 /** The same project as a sheet-model input, for benches that skip HTTP and the database. */
 export function heavySheetInput(c: HeavyCounts, catalogue: readonly CatalogueItemDto[]): SheetInput {
   return {
-    project: { id: 1, name: 'Heavy hall (demo)', customer: 'Bench (demo)', site: 'Hall 9 (demo)', kind: 'site', notes: '', units: 'metric', scene: heavyScene(c) },
+    project: {
+      id: 1,
+      name: 'Heavy hall (demo)',
+      customer: 'Bench (demo)',
+      site: 'Hall 9 (demo)',
+      kind: 'site',
+      notes: '',
+      units: 'metric',
+      scene: heavyScene(c),
+    },
     owner: { name: 'Bench installer', email: 'bench@sightfan-demo.example', units: 'metric' },
     organization: 'Bench (demo)',
     placements: heavyPlacements(c, catalogue[0].id).map((p, i) => ({

@@ -65,7 +65,10 @@ async function runWallGrowth(): Promise<boolean> {
   console.log('coverage of one placement (800 mm round, 15 m range) as walls grow — median');
   let sink = 0;
   let allMet = true;
-  for (const [label, halfM] of [['sparse, 40 m × 40 m', 20], ['dense, 16 m × 16 m', 8]] as const) {
+  for (const [label, halfM] of [
+    ['sparse, 40 m × 40 m', 20],
+    ['dense, 16 m × 16 m', 8],
+  ] as const) {
     const row: string[] = [];
     for (const n of [0, 50, 200, 1000]) {
       const walls = scatteredWalls(n, halfM);
@@ -91,9 +94,20 @@ function demoCatalogue(): CatalogueItem[] {
   const items: CatalogueItem[] = [];
   const sizes = [0.3, 0.4, 0.5, 0.6, 0.8, 1.0];
   sizes.forEach((d, i) => items.push({ id: `round-${d}`, mirror: { shape: 'round', diameterM: d, radiusM: 2 * d }, cost: 40 + 100 * d }));
-  sizes.forEach((d, i) => items.push({ id: `round-tight-${d}`, mirror: { shape: 'round', diameterM: d, radiusM: 1.2 * d }, cost: 45 + 100 * d + i }));
-  [[0.4, 0.3], [0.6, 0.4], [0.8, 0.5], [1.0, 0.6]].forEach(([w, h]) => items.push({ id: `rect-${w}x${h}`, mirror: { shape: 'rect', widthM: w, heightM: h, radiusM: 1.5 * w }, cost: 60 + 120 * w }));
-  (['full', 'half', 'quarter'] as const).forEach((portion) => items.push({ id: `dome-${portion}`, mirror: { shape: 'dome', portion, diameterM: 0.8 }, cost: 150 }));
+  sizes.forEach((d, i) =>
+    items.push({ id: `round-tight-${d}`, mirror: { shape: 'round', diameterM: d, radiusM: 1.2 * d }, cost: 45 + 100 * d + i }),
+  );
+  [
+    [0.4, 0.3],
+    [0.6, 0.4],
+    [0.8, 0.5],
+    [1.0, 0.6],
+  ].forEach(([w, h]) =>
+    items.push({ id: `rect-${w}x${h}`, mirror: { shape: 'rect', widthM: w, heightM: h, radiusM: 1.5 * w }, cost: 60 + 120 * w }),
+  );
+  (['full', 'half', 'quarter'] as const).forEach((portion) =>
+    items.push({ id: `dome-${portion}`, mirror: { shape: 'dome', portion, diameterM: 0.8 }, cost: 150 }),
+  );
   items.push({ id: 'round-1.2', mirror: { shape: 'round', diameterM: 1.2, radiusM: 2.4 }, cost: 300 });
   return items.slice(0, 20);
 }
@@ -119,10 +133,27 @@ export async function runOpticsBench(): Promise<void> {
       id: i,
     };
   });
-  const siteZone: Polygon = [[[-18, -18], [18, -18], [18, 18], [-18, 18]]];
-  const rankZone: Polygon = [[[3, -6], [9, -6], [9, -2], [3, -2]]];
+  const siteZone: Polygon = [
+    [
+      [-18, -18],
+      [18, -18],
+      [18, 18],
+      [-18, 18],
+    ],
+  ];
+  const rankZone: Polygon = [
+    [
+      [3, -6],
+      [9, -6],
+      [9, -2],
+      [3, -2],
+    ],
+  ];
   const catalogue = demoCatalogue();
-  const mountPoints = Array.from({ length: 8 }, (_, i) => ({ id: `m${i}`, vertexM: [-2 + i * 1.5, 1 + (i % 3), 2.6 + 0.2 * (i % 2)] as Vec3 }));
+  const mountPoints = Array.from({ length: 8 }, (_, i) => ({
+    id: `m${i}`,
+    vertexM: [-2 + i * 1.5, 1 + (i % 3), 2.6 + 0.2 * (i % 2)] as Vec3,
+  }));
   const rankEye: Vec3 = [6, 3, 1.6];
   const target = { sizeM: 1.7, minAngleRad: 5 * ARCMIN_RAD };
 

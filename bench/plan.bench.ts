@@ -80,13 +80,27 @@ export async function runPlanBench(): Promise<void> {
   let server: RunningServer | undefined;
   let browser: Browser | undefined;
   try {
-    const config = parseConfig({ NODE_ENV: 'test', PORT: '0', HOST: '127.0.0.1', FAKE_SMTP_PORT: '0', DATABASE_PATH: path.join(dir, 'bench.sqlite') });
+    const config = parseConfig({
+      NODE_ENV: 'test',
+      PORT: '0',
+      HOST: '127.0.0.1',
+      FAKE_SMTP_PORT: '0',
+      DATABASE_PATH: path.join(dir, 'bench.sqlite'),
+    });
     server = await startServer({ ...config, distDir }, createLogger(true));
     const base = server.url;
     const { project } = await seedProject(base);
     browser = await chromium.launch({
       executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-      args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+      args: [
+        '--no-sandbox',
+        '--disable-gpu',
+        '--disable-quic',
+        '--no-first-run',
+        '--disable-background-networking',
+        '--disable-component-update',
+        '--disable-sync',
+      ],
     });
     const page = await (await browser.newContext({ viewport: WIDE, deviceScaleFactor: 1 })).newPage();
     const installer = DEMO_USERS.find((u) => u.role === 'installer')!;
@@ -95,7 +109,10 @@ export async function runPlanBench(): Promise<void> {
     await page.goto(`${base}/projects/${project.id}`);
     const canvas = page.locator('svg[data-testid="plan-canvas"]');
     await canvas.waitFor({ state: 'visible', timeout: 60_000 });
-    await page.locator('[data-testid^="placement-marker-"]').nth(PLACEMENTS - 1).waitFor({ state: 'attached', timeout: 60_000 });
+    await page
+      .locator('[data-testid^="placement-marker-"]')
+      .nth(PLACEMENTS - 1)
+      .waitFor({ state: 'attached', timeout: 60_000 });
 
     // Metres to page pixels from the transform the canvas publishes: "scale offsetX offsetY".
     const toPage = async (p: readonly [number, number]): Promise<[number, number]> => {
@@ -127,7 +144,9 @@ export async function runPlanBench(): Promise<void> {
     const median = quantile(sorted, 0.5);
     const p95 = quantile(sorted, 0.95);
     console.log(`plan in Chromium (${PLACEMENTS} placements, dragging one in ${STEPS} steps)`);
-    console.log(`  recompute + redraw per frame: median ${median.toFixed(1)} ms, p95 ${p95.toFixed(1)} ms over ${frames.length} frames (budget ${BUDGET_MS} ms) ${p95 <= BUDGET_MS ? 'meets' : 'MISSES'}`);
+    console.log(
+      `  recompute + redraw per frame: median ${median.toFixed(1)} ms, p95 ${p95.toFixed(1)} ms over ${frames.length} frames (budget ${BUDGET_MS} ms) ${p95 <= BUDGET_MS ? 'meets' : 'MISSES'}`,
+    );
   } catch (e) {
     console.log(`plan in Chromium: could not run — ${e instanceof Error ? e.message : String(e)}`);
   } finally {

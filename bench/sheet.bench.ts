@@ -40,20 +40,29 @@ export function tenPlacementInput(): SheetInput {
     // Aim each mirror halfway between its viewer and straight along the aisle, as an installer would.
     const toViewer = Math.atan2(viewer.positionM[1] - at[1], viewer.positionM[0] - at[0]);
     return {
-    id: i + 1,
-    label: `M${i + 1} bench`,
-    catalogueItemId: (i % catalogue.length) + 1,
-    customMirror: null,
-    positionM: at,
-    heightM: 2.6 + (i % 3) * 0.2,
-    azimuthRad: toViewer + (i % 2 ? 20 : -20) * DEG,
-    tiltDownRad: (20 + (i % 4) * 5) * DEG,
-    viewerId: viewer.id,
-    notes: '',
+      id: i + 1,
+      label: `M${i + 1} bench`,
+      catalogueItemId: (i % catalogue.length) + 1,
+      customMirror: null,
+      positionM: at,
+      heightM: 2.6 + (i % 3) * 0.2,
+      azimuthRad: toViewer + (i % 2 ? 20 : -20) * DEG,
+      tiltDownRad: (20 + (i % 4) * 5) * DEG,
+      viewerId: viewer.id,
+      notes: '',
     };
   });
   return {
-    project: { id: 1, name: 'Bench: ten mirrors', customer: 'Bench (demo)', site: 'Hall 2 (demo)', kind: 'site', notes: '', units: 'metric', scene: DEMO_PROJECT.scene },
+    project: {
+      id: 1,
+      name: 'Bench: ten mirrors',
+      customer: 'Bench (demo)',
+      site: 'Hall 2 (demo)',
+      kind: 'site',
+      notes: '',
+      units: 'metric',
+      scene: DEMO_PROJECT.scene,
+    },
     owner: { name: 'Bench installer', email: 'bench@sightfan-demo.example', units: 'metric' },
     organization: 'Bench (demo)',
     placements,
@@ -67,7 +76,12 @@ export function scriptsInput(): SheetInput {
   const labels = ['מראה צפון', 'مرآة المدخل', '北门镜', 'ひがしミラー', 'Dock (שער)'];
   return {
     ...input,
-    project: { ...input.project, name: 'מחסן קירור — مستودع التبريد (demo)', customer: '冷库物流 (demo)', site: '東京倉庫 ひがし棟 (demo)' },
+    project: {
+      ...input.project,
+      name: 'מחסן קירור — مستودع التبريد (demo)',
+      customer: '冷库物流 (demo)',
+      site: '東京倉庫 ひがし棟 (demo)',
+    },
     owner: { ...input.owner, name: 'يوسف الحداد (demo)' },
     placements: input.placements.map((p, i) => ({ ...p, label: `${labels[i % labels.length]} ${i + 1}` })),
   };
@@ -79,7 +93,8 @@ function barePage(): Promise<Buffer> {
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));
   const done = new Promise<Buffer>((resolve) => doc.on('end', () => resolve(Buffer.concat(chunks))));
-  for (const f of ['regular', 'medium', 'semibold', 'bold', 'mono'] as const) doc.font(f).fontSize(10).text(`Sightfan bare page 0123456789 ${f}`);
+  for (const f of ['regular', 'medium', 'semibold', 'bold', 'mono'] as const)
+    doc.font(f).fontSize(10).text(`Sightfan bare page 0123456789 ${f}`);
   doc.end();
   return done;
 }
@@ -117,11 +132,17 @@ export async function runSheetBench(): Promise<void> {
       continue;
     }
     const median = res.latency.p50 ?? NaN;
-    const budget = task.name.startsWith('render a') ? ` (budget ${RENDER_BUDGET_MS} ms) ${median <= RENDER_BUDGET_MS ? 'meets' : 'MISSES'}` : '';
+    const budget = task.name.startsWith('render a')
+      ? ` (budget ${RENDER_BUDGET_MS} ms) ${median <= RENDER_BUDGET_MS ? 'meets' : 'MISSES'}`
+      : '';
     console.log(`  ${task.name}: median ${median.toFixed(1)} ms${budget}`);
   }
-  console.log(`  size: sheet ${(sheetBytes / 1024).toFixed(1)} KB (budget ${SIZE_BUDGET_BYTES / 1024} KB) ${sheetBytes <= SIZE_BUDGET_BYTES ? 'meets' : 'MISSES'}; bare page ${(bareBytes / 1024).toFixed(1)} KB`);
-  console.log(`  size: sheet in several scripts ${(scriptsBytes / 1024).toFixed(1)} KB (budget ${SIZE_BUDGET_BYTES / 1024} KB) ${scriptsBytes <= SIZE_BUDGET_BYTES ? 'meets' : 'MISSES'}`);
+  console.log(
+    `  size: sheet ${(sheetBytes / 1024).toFixed(1)} KB (budget ${SIZE_BUDGET_BYTES / 1024} KB) ${sheetBytes <= SIZE_BUDGET_BYTES ? 'meets' : 'MISSES'}; bare page ${(bareBytes / 1024).toFixed(1)} KB`,
+  );
+  console.log(
+    `  size: sheet in several scripts ${(scriptsBytes / 1024).toFixed(1)} KB (budget ${SIZE_BUDGET_BYTES / 1024} KB) ${scriptsBytes <= SIZE_BUDGET_BYTES ? 'meets' : 'MISSES'}`,
+  );
 }
 
 if (require.main === module) void runSheetBench();

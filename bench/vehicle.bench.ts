@@ -63,7 +63,9 @@ export async function runVehicleBench(): Promise<void> {
     allMet &&= met;
     console.log(`  ${task.name}: median ${fmt(median)} (budget ${fmt(budget)}) ${met ? 'meets' : 'MISSES'}`);
   }
-  console.log(`  truck, CPU time per scoring: median ${fmt(cpuMs[cpuMs.length >> 1])} (load average ${load1.toFixed(1)} on ${os.cpus().length} cores while measured)`);
+  console.log(
+    `  truck, CPU time per scoring: median ${fmt(cpuMs[cpuMs.length >> 1])} (load average ${load1.toFixed(1)} on ${os.cpus().length} cores while measured)`,
+  );
   if (!allMet) process.exitCode = 1;
 }
 

@@ -51,4 +51,3 @@ export const focusRing = { outlineStyle: 'solid', outlineWidth: 3, outlineColor:
 
 /** A low lift for cards; boxShadow is understood by both react-native-web and React Native ≥ 0.76. */
 export const shadow = { boxShadow: '0 1px 2px rgba(20,32,43,0.10), 0 2px 10px rgba(20,32,43,0.06)' } as const;
-

@@ -15,7 +15,13 @@ import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState } fr
 import { ApiError } from '@/shared/api-client';
 import { describeError } from '@/shared/errors';
 import type { CreatePlacementBody, PlacementDto, ProjectDto } from '@/shared/schemas';
-import { useAddPlacementMutation, useRemovePlacementMutation, useUpdatePlacementMutation, type EditableFields, type PlacementEdits } from './use-projects';
+import {
+  useAddPlacementMutation,
+  useRemovePlacementMutation,
+  useUpdatePlacementMutation,
+  type EditableFields,
+  type PlacementEdits,
+} from './use-projects';
 
 export type { EditableFields, PlacementEdits };
 
@@ -58,7 +64,7 @@ function without(edits: PlacementEdits, settled: (k: keyof EditableFields) => bo
 }
 
 type ById<T> = Readonly<Record<number, T>>;
-const setIn = <T,>(m: ById<T>, id: number, v: T | undefined): ById<T> => {
+const setIn = <T>(m: ById<T>, id: number, v: T | undefined): ById<T> => {
   const { [id]: _old, ...rest } = m;
   return v === undefined ? rest : { ...rest, [id]: v };
 };
@@ -105,7 +111,11 @@ export function usePlacementWrites(project: ProjectDto) {
         {
           onSuccess: () => {
             const now = localRef.current[id];
-            if (now) setLocal(id, without(now, (k) => k in sent && same(now[k], sent[k])));
+            if (now)
+              setLocal(
+                id,
+                without(now, (k) => k in sent && same(now[k], sent[k])),
+              );
           },
           onError: (err) => {
             if (err instanceof ApiError && err.status === 409 && err.current) {
@@ -134,11 +144,17 @@ export function usePlacementWrites(project: ProjectDto) {
       setProblems((p) => {
         const old = p[id];
         if (!old) return p;
-        const fields = Object.fromEntries(Object.entries(old.fields).filter(([f]) => !Object.keys(patch).some((k) => f === k || f.startsWith(`${k}.`))));
+        const fields = Object.fromEntries(
+          Object.entries(old.fields).filter(([f]) => !Object.keys(patch).some((k) => f === k || f.startsWith(`${k}.`))),
+        );
         return setIn(p, id, Object.keys(fields).length ? { message: old.message, fields } : undefined);
       });
       cancelTimer(id);
-      if (autosaveMs > 0) timers.current.set(id, setTimeout(() => save(id), autosaveMs));
+      if (autosaveMs > 0)
+        timers.current.set(
+          id,
+          setTimeout(() => save(id), autosaveMs),
+        );
       else save(id);
     },
     [save, setLocal, setConflict],
@@ -189,7 +205,10 @@ export function usePlacementWrites(project: ProjectDto) {
   );
 
   /** The saved placements with the unsaved edits on top: what the plan draws and the editor shows. */
-  const placements = useMemo(() => project.placements.map((p) => (local[p.id] ? { ...p, ...local[p.id] } : p)), [project.placements, local]);
+  const placements = useMemo(
+    () => project.placements.map((p) => (local[p.id] ? { ...p, ...local[p.id] } : p)),
+    [project.placements, local],
+  );
 
   return {
     placements,

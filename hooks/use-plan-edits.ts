@@ -14,7 +14,8 @@ import { projectKeys, useUpdateProjectMutation } from './use-projects';
 
 export type PlacementPatch = Partial<Pick<PlacementDto, 'positionM' | 'azimuthRad' | 'heightM' | 'tiltDownRad' | 'viewerId' | 'label'>>;
 
-export type LiveDraft = { kind: 'placement'; id: number; patch: PlacementPatch } | { kind: 'viewer'; id: string; positionM: [number, number] } | null;
+export type LiveDraft =
+  { kind: 'placement'; id: number; patch: PlacementPatch } | { kind: 'viewer'; id: string; positionM: [number, number] } | null;
 
 export interface PlanSaveProblem {
   message: string;
@@ -40,7 +41,7 @@ export function usePlanEdits(project: ProjectDto) {
   const queue = useRef<Promise<unknown>>(Promise.resolve());
 
   /** One scene save after another: the next reads the version the previous one returned. */
-  const enqueue = useCallback(<T,>(run: () => Promise<T>): Promise<T> => {
+  const enqueue = useCallback(<T>(run: () => Promise<T>): Promise<T> => {
     setPending((n) => n + 1);
     const next = queue.current.catch(() => undefined).then(run);
     queue.current = next;
@@ -54,7 +55,11 @@ export function usePlanEdits(project: ProjectDto) {
 
   // "Try again" calls the save that failed; the saves are reached through this ref so that each
   // can offer itself as the retry without referring to itself while being defined.
-  const retryable = useRef<{ saveScene: (next: Scene) => Promise<boolean>; createPlacement: (body: CreatePlacementBody) => Promise<PlacementDto | null>; deletePlacement: (id: number) => Promise<boolean> } | null>(null);
+  const retryable = useRef<{
+    saveScene: (next: Scene) => Promise<boolean>;
+    createPlacement: (body: CreatePlacementBody) => Promise<PlacementDto | null>;
+    deletePlacement: (id: number) => Promise<boolean>;
+  } | null>(null);
 
   const saveScene = useCallback(
     (next: Scene) => {

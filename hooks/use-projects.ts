@@ -17,7 +17,11 @@ export const projectKeys = {
 };
 
 export function useProjectsQuery(params: ProjectListParams = {}) {
-  return useQuery({ queryKey: projectKeys.list(params), queryFn: async () => (await api.projects.list(params)).projects, staleTime: PROJECTS_STALE_MS });
+  return useQuery({
+    queryKey: projectKeys.list(params),
+    queryFn: async () => (await api.projects.list(params)).projects,
+    staleTime: PROJECTS_STALE_MS,
+  });
 }
 
 export function useProjectQuery(id: number | undefined) {
@@ -69,7 +73,10 @@ export function useDeleteProjectMutation() {
 function replacePlacement(project: ProjectDto | undefined, placement: PlacementDto): ProjectDto | undefined {
   if (!project) return project;
   const exists = project.placements.some((p) => p.id === placement.id);
-  return { ...project, placements: exists ? project.placements.map((p) => (p.id === placement.id ? placement : p)) : [...project.placements, placement] };
+  return {
+    ...project,
+    placements: exists ? project.placements.map((p) => (p.id === placement.id ? placement : p)) : [...project.placements, placement],
+  };
 }
 
 /**
@@ -80,7 +87,10 @@ function replacePlacement(project: ProjectDto | undefined, placement: PlacementD
 export const placementScope = (projectId: number) => ({ id: `project-${projectId}-placements` });
 
 /** The fields of a placement a person edits; a save sends only those that changed. */
-export type EditableFields = Pick<PlacementDto, 'label' | 'catalogueItemId' | 'customMirror' | 'positionM' | 'heightM' | 'azimuthRad' | 'tiltDownRad' | 'viewerId' | 'notes'>;
+export type EditableFields = Pick<
+  PlacementDto,
+  'label' | 'catalogueItemId' | 'customMirror' | 'positionM' | 'heightM' | 'azimuthRad' | 'tiltDownRad' | 'viewerId' | 'notes'
+>;
 export type PlacementEdits = Partial<EditableFields>;
 
 export function useAddPlacementMutation(projectId: number) {
@@ -119,7 +129,9 @@ export function useRemovePlacementMutation(projectId: number) {
     scope: placementScope(projectId),
     mutationFn: (placementId: number) => api.projects.removePlacement(projectId, placementId),
     onSuccess: (_v, placementId) => {
-      qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) => (old ? { ...old, placements: old.placements.filter((p) => p.id !== placementId) } : old));
+      qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) =>
+        old ? { ...old, placements: old.placements.filter((p) => p.id !== placementId) } : old,
+      );
       void qc.invalidateQueries({ queryKey: [...projectKeys.all, 'list'] });
     },
   });

@@ -17,7 +17,9 @@ if (missing.length) {
   const pkgs = missing.map((m) => m.pkg);
   const isRoot = typeof process.getuid === 'function' && process.getuid() === 0;
   if (!isRoot) {
-    console.error(`Missing ${pkgs.join(' and ')}: run  sudo apt-get update && sudo apt-get install -y ${pkgs.join(' ')}  then npm test again.`);
+    console.error(
+      `Missing ${pkgs.join(' and ')}: run  sudo apt-get update && sudo apt-get install -y ${pkgs.join(' ')}  then npm test again.`,
+    );
     process.exit(1);
   }
   console.log(`installing ${pkgs.join(', ')} with apt-get…`);

@@ -7,7 +7,18 @@ import fs from 'node:fs';
 import path from 'node:path';
 
 const root = path.resolve(__dirname, '..');
-const SOURCES = ['app', 'components', 'hooks', 'constants', 'shared', 'fonts', 'app.json', 'package.json', 'babel.config.js', 'package-lock.json'];
+const SOURCES = [
+  'app',
+  'components',
+  'hooks',
+  'constants',
+  'shared',
+  'fonts',
+  'app.json',
+  'package.json',
+  'babel.config.js',
+  'package-lock.json',
+];
 
 function newestMtime(p: string): number {
   let st: fs.Stats;

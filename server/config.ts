@@ -4,9 +4,7 @@
 import { z } from 'zod';
 import path from 'node:path';
 
-const flag = z
-  .enum(['true', 'false', '1', '0', 'yes', 'no'])
-  .transform((v) => v === 'true' || v === '1' || v === 'yes');
+const flag = z.enum(['true', 'false', '1', '0', 'yes', 'no']).transform((v) => v === 'true' || v === '1' || v === 'yes');
 
 const envSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
@@ -89,7 +87,9 @@ export function parseConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     mailFrom: e.MAIL_FROM,
     publicUrl: e.PUBLIC_URL?.replace(/\/$/, ''),
     demoMode: e.DEMO_MODE ?? !production,
-    devOrigins: e.DEV_ORIGINS.split(',').map((s) => s.trim()).filter(Boolean),
+    devOrigins: e.DEV_ORIGINS.split(',')
+      .map((s) => s.trim())
+      .filter(Boolean),
     bcryptCost: e.BCRYPT_COST,
     sheetBudgetMs: e.SHEET_BUDGET_MS,
     sheetWorkers: e.SHEET_WORKERS,

@@ -13,4 +13,5 @@ export class HttpError extends Error {
   }
 }
 
-export const notFound = (what = 'That page') => new HttpError(404, `${what} was not found. It may have been removed, or the link is wrong.`);
+export const notFound = (what = 'That page') =>
+  new HttpError(404, `${what} was not found. It may have been removed, or the link is wrong.`);

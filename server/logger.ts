@@ -15,7 +15,7 @@ export function createLogger(quiet = process.env.NODE_ENV === 'test' && process.
       if (!quiet) console.warn(`${stamp()}  warning: ${m}`);
     },
     error: (m, err) => {
-      console.error(`${stamp()}  error: ${m}`, err instanceof Error ? err.stack : err ?? '');
+      console.error(`${stamp()}  error: ${m}`, err instanceof Error ? err.stack : (err ?? ''));
     },
   };
 }

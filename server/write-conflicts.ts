@@ -18,7 +18,11 @@ interface LockEntry {
 const locks = new Map<EntityClass, LockEntry>();
 const uniques = new Map<string, () => HttpError>();
 
-export function onStaleVersion<E extends object>(cls: abstract new (...args: never[]) => E, what: Thing, current: (em: EntityManager, entity: E) => Promise<unknown>) {
+export function onStaleVersion<E extends object>(
+  cls: abstract new (...args: never[]) => E,
+  what: Thing,
+  current: (em: EntityManager, entity: E) => Promise<unknown>,
+) {
   locks.set(cls, { what, current: current as LockEntry['current'] });
 }
 
@@ -34,7 +38,13 @@ export async function writeConflict(err: unknown): Promise<HttpError | null> {
     const entry = entity ? [...locks].find(([cls]) => entity instanceof cls)?.[1] : undefined;
     const em = entity ? wrap(entity, true).__em : undefined;
     const current = entry && em && entity ? await entry.current(em.fork(), entity).catch(() => undefined) : undefined;
-    return new HttpError(409, changedElsewhere(entry?.what ?? 'project'), undefined, undefined, current === undefined ? undefined : { current });
+    return new HttpError(
+      409,
+      changedElsewhere(entry?.what ?? 'project'),
+      undefined,
+      undefined,
+      current === undefined ? undefined : { current },
+    );
   }
   if (err instanceof UniqueConstraintViolationException) {
     const column = [...uniques.keys()].find((c) => err.message.includes(c));

@@ -87,7 +87,9 @@ export function createApiClient(options: ApiClientOptions = {}) {
       const retry = Number(res.headers.get('Retry-After'));
       throw new ApiError(
         res.status,
-        typeof errBody.error === 'string' ? errBody.error : `The server answered ${res.status} without an explanation. Try again in a moment.`,
+        typeof errBody.error === 'string'
+          ? errBody.error
+          : `The server answered ${res.status} without an explanation. Try again in a moment.`,
         errBody.fields ?? {},
         Number.isFinite(retry) && retry > 0 ? retry : undefined,
         (data as { current?: unknown } | undefined)?.current,
@@ -111,7 +113,11 @@ export function createApiClient(options: ApiClientOptions = {}) {
       } catch {
         body = {};
       }
-      throw new ApiError(res.status, typeof body.error === 'string' ? body.error : `The server answered ${res.status} without an explanation. Try again in a moment.`, body.fields ?? {});
+      throw new ApiError(
+        res.status,
+        typeof body.error === 'string' ? body.error : `The server answered ${res.status} without an explanation. Try again in a moment.`,
+        body.fields ?? {},
+      );
     }
     const disposition = res.headers.get('Content-Disposition') ?? '';
     const filename = /filename="([^"]+)"/.exec(disposition)?.[1] ?? fallbackName;
@@ -161,7 +167,8 @@ export function createApiClient(options: ApiClientOptions = {}) {
       create: (body: CreateProjectBody) => request<{ project: ProjectDto }>('POST', '/projects', body),
       update: (id: number, body: PatchProjectBody) => request<{ project: ProjectDto }>('PATCH', `/projects/${id}`, body),
       remove: (id: number) => request<void>('DELETE', `/projects/${id}`),
-      addPlacement: (id: number, body: CreatePlacementBody) => request<{ placement: PlacementDto }>('POST', `/projects/${id}/placements`, body),
+      addPlacement: (id: number, body: CreatePlacementBody) =>
+        request<{ placement: PlacementDto }>('POST', `/projects/${id}/placements`, body),
       updatePlacement: (id: number, placementId: number, body: PatchPlacementBody) =>
         request<{ placement: PlacementDto }>('PATCH', `/projects/${id}/placements/${placementId}`, body),
       removePlacement: (id: number, placementId: number) => request<void>('DELETE', `/projects/${id}/placements/${placementId}`),
@@ -172,7 +179,8 @@ export function createApiClient(options: ApiClientOptions = {}) {
       issue: (projectId: number) => request<SheetIssueResponse>('POST', `/projects/${projectId}/sheet/revisions`),
       /** The address of an issued revision's PDF (a GET: it changes nothing). */
       pdfPath: (projectId: number, revision: number, paper?: SheetPaper) => `${baseUrl}/api${sheetPdfPath(projectId, revision, paper)}`,
-      download: (projectId: number, revision: number, paper?: SheetPaper) => download(sheetPdfPath(projectId, revision, paper), `sightfan-project-${projectId}-rev${revision}.pdf`),
+      download: (projectId: number, revision: number, paper?: SheetPaper) =>
+        download(sheetPdfPath(projectId, revision, paper), `sightfan-project-${projectId}-rev${revision}.pdf`),
       email: (projectId: number, body: SheetEmailBody) => request<SheetEmailResponse>('POST', `/projects/${projectId}/sheet/email`, body),
     },
   };

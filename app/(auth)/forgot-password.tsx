@@ -9,7 +9,10 @@ import { useForgotPasswordMutation } from '@/hooks/use-session';
 export default function ForgotPasswordScreen() {
   const forgot = useForgotPasswordMutation();
   return (
-    <AuthFrame title="Forgot your password?" lead="Enter the address you sign in with. If it has an account, we e-mail a link to choose a new password.">
+    <AuthFrame
+      title="Forgot your password?"
+      lead="Enter the address you sign in with. If it has an account, we e-mail a link to choose a new password."
+    >
       <ForgotPasswordForm onSubmit={(values) => forgot.mutateAsync(values)} />
       <Link href="/sign-in" style={styles.back} testID="forgot-password-back">
         Back to sign-in
@@ -19,5 +22,11 @@ export default function ForgotPasswordScreen() {
 }
 
 const styles = StyleSheet.create({
-  back: { color: palette.glass, textDecorationLine: 'underline', fontFamily: typeScale.bodyStrong.fontFamily, marginTop: spacing.md, alignSelf: 'center' },
+  back: {
+    color: palette.glass,
+    textDecorationLine: 'underline',
+    fontFamily: typeScale.bodyStrong.fontFamily,
+    marginTop: spacing.md,
+    alignSelf: 'center',
+  },
 });

@@ -27,12 +27,7 @@ export default function SetPasswordScreen() {
       }
     >
       <InvitationState token={token} query={invitation} signedInAs={user?.email}>
-        {(found) => (
-          <SetPasswordForm
-            email={found.email}
-            onSubmit={(values) => accept.mutateAsync({ token: token ?? '', ...values })}
-          />
-        )}
+        {(found) => <SetPasswordForm email={found.email} onSubmit={(values) => accept.mutateAsync({ token: token ?? '', ...values })} />}
       </InvitationState>
     </AuthFrame>
   );

@@ -19,5 +19,11 @@ export default function SignInScreen() {
 }
 
 const styles = StyleSheet.create({
-  forgot: { color: palette.glass, textDecorationLine: 'underline', fontFamily: typeScale.bodyStrong.fontFamily, marginTop: spacing.md, alignSelf: 'center' },
+  forgot: {
+    color: palette.glass,
+    textDecorationLine: 'underline',
+    fontFamily: typeScale.bodyStrong.fontFamily,
+    marginTop: spacing.md,
+    alignSelf: 'center',
+  },
 });

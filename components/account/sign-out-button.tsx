@@ -14,7 +14,14 @@ export function SignOutButton() {
           {describeError(signOut.error)}
         </Notice>
       ) : null}
-      <Button label="Sign out" variant="secondary" testID="account-sign-out" busy={signOut.isPending} onPress={() => signOut.mutate()} block />
+      <Button
+        label="Sign out"
+        variant="secondary"
+        testID="account-sign-out"
+        busy={signOut.isPending}
+        onPress={() => signOut.mutate()}
+        block
+      />
     </View>
   );
 }

@@ -17,9 +17,17 @@ export function UnitsControl({ units }: { units: UnitSystem }) {
   const shown = update.isPending && update.variables?.units ? update.variables.units : units;
   return (
     <View style={styles.column}>
-      <Segmented<UnitSystem> label="Units" options={options} value={shown} disabled={update.isPending} onChange={(next) => update.mutate({ units: next })} />
+      <Segmented<UnitSystem>
+        label="Units"
+        options={options}
+        value={shown}
+        disabled={update.isPending}
+        onChange={(next) => update.mutate({ units: next })}
+      />
       <AppText variant="small" tone="muted" aria-live="polite" testID="units-status">
-        {update.isPending ? 'Saving…' : `Distances and heights are shown in ${units === 'metric' ? 'metres and millimetres' : 'feet and inches'}.`}
+        {update.isPending
+          ? 'Saving…'
+          : `Distances and heights are shown in ${units === 'metric' ? 'metres and millimetres' : 'feet and inches'}.`}
       </AppText>
       {update.isError ? (
         <Notice tone="stop" testID="units-error">

@@ -42,7 +42,11 @@ export function AuthFrame({ title, lead, children }: AuthFrameProps) {
   }
 
   return (
-    <ScrollView style={styles.narrowRoot} contentContainerStyle={{ paddingBottom: insets.bottom + spacing.xl }} keyboardShouldPersistTaps="handled">
+    <ScrollView
+      style={styles.narrowRoot}
+      contentContainerStyle={{ paddingBottom: insets.bottom + spacing.xl }}
+      keyboardShouldPersistTaps="handled"
+    >
       <View style={[styles.phoneBand, { paddingTop: insets.top + spacing.lg }]}>
         <Wordmark onDark />
         <AppText variant="body" tone="onAsphaltMuted">

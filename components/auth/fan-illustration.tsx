@@ -20,7 +20,16 @@ export function FanIllustration({ width = 360 }: { width?: number }) {
       {/* The fan: what a convex mirror at the corner shows. */}
       <Path d="M40 40 L380 110 A330 330 0 0 1 240 280 Z" fill="url(#fan)" />
       {[0.2, 0.4, 0.6, 0.8].map((t) => (
-        <Line key={t} x1={40} y1={40} x2={380 - 140 * t} y2={110 + 170 * t} stroke={palette.asphalt} strokeOpacity={0.25} strokeWidth={1.5} />
+        <Line
+          key={t}
+          x1={40}
+          y1={40}
+          x2={380 - 140 * t}
+          y2={110 + 170 * t}
+          stroke={palette.asphalt}
+          strokeOpacity={0.25}
+          strokeWidth={1.5}
+        />
       ))}
       {/* Racking drawn over the fan: the mirror cannot see through it. */}
       <Path d="M170 125 H380 M170 205 H380" stroke={palette.onAsphaltMuted} strokeWidth={12} />

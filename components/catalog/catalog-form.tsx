@@ -13,7 +13,16 @@ import { AppText } from '@/components/ui/text';
 import { spacing } from '@/constants/theme';
 import { ApiError } from '@/shared/api-client';
 import type { CatalogueItemDto, CreateCatalogueItemBody, MirrorSpec } from '@/shared/schemas';
-import { catalogueRules, DOME_PORTION_MESSAGE, MIRROR_SHAPE_MESSAGE, MIRROR_SIZES, mirrorSizeProblem, numberProblem, sizeRule, type SizeLimit } from '@/shared/schemas/rules';
+import {
+  catalogueRules,
+  DOME_PORTION_MESSAGE,
+  MIRROR_SHAPE_MESSAGE,
+  MIRROR_SIZES,
+  mirrorSizeProblem,
+  numberProblem,
+  sizeRule,
+  type SizeLimit,
+} from '@/shared/schemas/rules';
 import { formatLength, minorToText, parseMoney, type UnitSystem } from '@/shared/units';
 
 type Shape = MirrorSpec['shape'];
@@ -39,7 +48,23 @@ export interface CatalogFormValues {
   active: boolean;
 }
 
-export const FORM_FIELDS = ['code', 'name', 'shape', 'portion', 'diameterM', 'widthM', 'heightM', 'radiusM', 'material', 'reflectancePct', 'massKg', 'price', 'currency', 'notes', 'active'] as const;
+export const FORM_FIELDS = [
+  'code',
+  'name',
+  'shape',
+  'portion',
+  'diameterM',
+  'widthM',
+  'heightM',
+  'radiusM',
+  'material',
+  'reflectancePct',
+  'massKg',
+  'price',
+  'currency',
+  'notes',
+  'active',
+] as const;
 
 export function valuesOf(item: CatalogueItemDto | null): CatalogFormValues {
   const m = item?.mirror;
@@ -71,7 +96,9 @@ export function catalogSchema(units: UnitSystem) {
     name: yupText(catalogueRules.name),
     shape: yup.string().oneOf(SHAPE_ORDER, MIRROR_SHAPE_MESSAGE).required(MIRROR_SHAPE_MESSAGE),
     portion: yup.string().oneOf(['full', 'half', 'quarter'], DOME_PORTION_MESSAGE).required(DOME_PORTION_MESSAGE),
-    diameterM: opt.when('shape', ([shape]: Shape[]) => (shape === 'rect' ? opt : size(shape === 'dome' ? MIRROR_SIZES.domeDiameter : MIRROR_SIZES.diameter))),
+    diameterM: opt.when('shape', ([shape]: Shape[]) =>
+      shape === 'rect' ? opt : size(shape === 'dome' ? MIRROR_SIZES.domeDiameter : MIRROR_SIZES.diameter),
+    ),
     widthM: opt.when('shape', { is: 'rect', then: () => size(MIRROR_SIZES.width), otherwise: () => opt }),
     heightM: opt.when('shape', { is: 'rect', then: () => size(MIRROR_SIZES.height), otherwise: () => opt }),
     // A `when` branch replaces the whole field schema, so the cap check lives inside the branch.
@@ -81,7 +108,10 @@ export function catalogSchema(units: UnitSystem) {
         : size(MIRROR_SIZES.radius).test('cap-fits', function check(r) {
             const { widthM: w, heightM: h, diameterM: d } = this.parent as CatalogFormValues;
             if (r == null) return true;
-            const problem = shape === 'rect' ? w != null && h != null && mirrorSizeProblem({ shape, widthM: w, heightM: h, radiusM: r }) : d != null && mirrorSizeProblem({ shape: 'round', diameterM: d, radiusM: r });
+            const problem =
+              shape === 'rect'
+                ? w != null && h != null && mirrorSizeProblem({ shape, widthM: w, heightM: h, radiusM: r })
+                : d != null && mirrorSizeProblem({ shape: 'round', diameterM: d, radiusM: r });
             return problem ? this.createError({ message: problem.message }) : true;
           }),
     ),
@@ -160,7 +190,9 @@ export function CatalogForm({ item, units, submitLabel, onSubmit }: CatalogFormP
       if (error instanceof ApiError && error.status === 409 && error.current) {
         // Someone saved first: show their values (reload) and say so; the person makes the change again.
         helpers.resetForm({ values: valuesOf(error.current as CatalogueItemDto) });
-        helpers.setStatus({ formError: `${error.message} The form now shows the saved values; make your change again.` } satisfies FormStatus);
+        helpers.setStatus({
+          formError: `${error.message} The form now shows the saved values; make your change again.`,
+        } satisfies FormStatus);
         return;
       }
       const { fieldErrors, status } = serverErrorsFor<CatalogFormValues>(remapServerFields(error), [...FORM_FIELDS], values);
@@ -189,10 +221,24 @@ export function CatalogForm({ item, units, submitLabel, onSubmit }: CatalogFormP
           <FormFrame label={submitLabel} onSubmit={handleSubmit} testID="catalog-form">
             <View style={styles.pair}>
               <View style={styles.flex}>
-                <FormikTextField form={form} name="code" label="Code" testID="catalog-form-code" autoCapitalize="characters" autoCorrect={false} />
+                <FormikTextField
+                  form={form}
+                  name="code"
+                  label="Code"
+                  testID="catalog-form-code"
+                  autoCapitalize="characters"
+                  autoCorrect={false}
+                />
               </View>
               <View style={styles.flex}>
-                <FormikTextField form={form} name="currency" label="Currency" testID="catalog-form-currency" autoCapitalize="characters" maxLength={3} />
+                <FormikTextField
+                  form={form}
+                  name="currency"
+                  label="Currency"
+                  testID="catalog-form-currency"
+                  autoCapitalize="characters"
+                  maxLength={3}
+                />
               </View>
             </View>
             <FormikTextField form={form} name="name" label="Name" testID="catalog-form-name" />
@@ -239,7 +285,13 @@ export function CatalogForm({ item, units, submitLabel, onSubmit }: CatalogFormP
             )}
             <View style={styles.pair}>
               <View style={styles.flex}>
-                <FormikTextField form={form} name="price" label={`Unit price (${values.currency.toUpperCase() || 'currency'})`} testID="catalog-form-price" inputMode="decimal" />
+                <FormikTextField
+                  form={form}
+                  name="price"
+                  label={`Unit price (${values.currency.toUpperCase() || 'currency'})`}
+                  testID="catalog-form-price"
+                  inputMode="decimal"
+                />
               </View>
               <View style={styles.flex}>
                 <FormikTextField form={form} name="massKg" label="Mass (kg)" testID="catalog-form-mass" inputMode="decimal" />
@@ -250,7 +302,13 @@ export function CatalogForm({ item, units, submitLabel, onSubmit }: CatalogFormP
                 <FormikTextField form={form} name="material" label="Material" testID="catalog-form-material" />
               </View>
               <View style={styles.flex}>
-                <FormikTextField form={form} name="reflectancePct" label="Reflectance (%)" testID="catalog-form-reflectance" inputMode="decimal" />
+                <FormikTextField
+                  form={form}
+                  name="reflectancePct"
+                  label="Reflectance (%)"
+                  testID="catalog-form-reflectance"
+                  inputMode="decimal"
+                />
               </View>
             </View>
             <FormikTextField form={form} name="notes" label="Notes" testID="catalog-form-notes" multiline numberOfLines={3} />
@@ -266,7 +324,14 @@ export function CatalogForm({ item, units, submitLabel, onSubmit }: CatalogFormP
                 ]}
               />
             </View>
-            <FormFooter status={form.status} errorTestID="catalog-form-error" submitLabel={submitLabel} submitTestID="catalog-form-submit" busy={form.isSubmitting} onSubmit={() => handleSubmit()} />
+            <FormFooter
+              status={form.status}
+              errorTestID="catalog-form-error"
+              submitLabel={submitLabel}
+              submitTestID="catalog-form-submit"
+              busy={form.isSubmitting}
+              onSubmit={() => handleSubmit()}
+            />
           </FormFrame>
         );
       }}

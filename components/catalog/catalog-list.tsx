@@ -60,7 +60,11 @@ export function CatalogList({ units, isAdmin }: { units: UnitSystem; isAdmin: bo
       ) : null}
       {catalog.data && sorted.length === 0 ? (
         <AppText tone="muted" testID="catalog-empty">
-          {shape === 'all' ? (isAdmin ? 'The catalogue is empty. Add the mirrors you sell with “New mirror”.' : 'The catalogue is empty; your administrator adds the mirrors you can choose.') : 'No mirror of this shape in the catalogue.'}
+          {shape === 'all'
+            ? isAdmin
+              ? 'The catalogue is empty. Add the mirrors you sell with “New mirror”.'
+              : 'The catalogue is empty; your administrator adds the mirrors you can choose.'
+            : 'No mirror of this shape in the catalogue.'}
         </AppText>
       ) : null}
       {sorted.length > 0 ? (
@@ -120,7 +124,12 @@ function CatalogRow({ item, units, wide }: { item: CatalogueItemDto; units: Unit
       aria-label={`${item.name}, ${cells.size}, radius of curvature ${cells.radius}, ${cells.price}`}
       onFocus={onFocus}
       onBlur={onBlur}
-      style={({ hovered, pressed }) => [wide ? styles.tr : styles.card, (hovered || pressed) && styles.hover, !item.active && styles.inactive, focusVisible && focusRing]}
+      style={({ hovered, pressed }) => [
+        wide ? styles.tr : styles.card,
+        (hovered || pressed) && styles.hover,
+        !item.active && styles.inactive,
+        focusVisible && focusRing,
+      ]}
     >
       {wide ? (
         COLUMNS.map((c) => (
@@ -163,11 +172,26 @@ const styles = StyleSheet.create({
   filter: { gap: spacing.xs },
   table: { borderWidth: 1, borderColor: palette.ruleSoft, borderRadius: radii.lg, backgroundColor: palette.sheet, overflow: 'hidden' },
   thead: { backgroundColor: palette.chalk, minHeight: 40 },
-  tr: { flexDirection: 'row', alignItems: 'center', minHeight: layout.minTarget + 8, borderBottomWidth: 1, borderBottomColor: palette.ruleSoft, paddingHorizontal: spacing.sm },
+  tr: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    minHeight: layout.minTarget + 8,
+    borderBottomWidth: 1,
+    borderBottomColor: palette.ruleSoft,
+    paddingHorizontal: spacing.sm,
+  },
   cell: { paddingHorizontal: spacing.sm, paddingVertical: spacing.sm, gap: spacing.xxs },
   right: { textAlign: 'right' },
   cards: { gap: spacing.md },
-  card: { gap: spacing.xs, padding: spacing.lg, backgroundColor: palette.sheet, borderRadius: radii.lg, borderWidth: 1, borderColor: palette.ruleSoft, minHeight: layout.minTarget },
+  card: {
+    gap: spacing.xs,
+    padding: spacing.lg,
+    backgroundColor: palette.sheet,
+    borderRadius: radii.lg,
+    borderWidth: 1,
+    borderColor: palette.ruleSoft,
+    minHeight: layout.minTarget,
+  },
   cardHead: { flexDirection: 'row', gap: spacing.md, alignItems: 'baseline' },
   flex: { flex: 1 },
   hover: { backgroundColor: palette.glassSoft },

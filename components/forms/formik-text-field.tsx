@@ -7,7 +7,10 @@ import { fieldMessage } from './server-errors';
 /** The names of a form's fields that hold text: the only ones a text input can edit. */
 export type TextFieldName<Values> = { [K in keyof Values]: Values[K] extends string ? K : never }[keyof Values] & string;
 
-export interface FormikTextFieldProps<Values extends object> extends Omit<TextFieldProps, 'name' | 'value' | 'onChangeText' | 'onBlur' | 'error'> {
+export interface FormikTextFieldProps<Values extends object> extends Omit<
+  TextFieldProps,
+  'name' | 'value' | 'onChangeText' | 'onBlur' | 'error'
+> {
   form: FormikProps<Values>;
   /** The Formik field; also the input's DOM id and `field-error-<name>` test id (see TextField). */
   name: TextFieldName<Values>;

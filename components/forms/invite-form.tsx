@@ -50,7 +50,9 @@ export function InviteForm({ onSubmit, sentNote }: InviteFormProps) {
         const body = inviteBodyOf(values, values.role);
         if (await submitWithServerErrors(helpers, ['email', 'name', 'role'], values, () => onSubmit(body))) {
           helpers.resetForm();
-          helpers.setStatus({ done: `Invitation for ${body.name} <${body.email}> is queued and goes out at once when the mail server answers.${sentNote ? ` ${sentNote}` : ''}` } satisfies FormStatus);
+          helpers.setStatus({
+            done: `Invitation for ${body.name} <${body.email}> is queued and goes out at once when the mail server answers.${sentNote ? ` ${sentNote}` : ''}`,
+          } satisfies FormStatus);
         }
       }}
     >
@@ -106,7 +108,14 @@ export function InviteForm({ onSubmit, sentNote }: InviteFormProps) {
                 </AppText>
               ) : null}
             </View>
-            <FormFooter status={formStatus} errorTestID="invite-error" submitLabel="Send invitation" submitTestID="invite-submit" busy={form.isSubmitting} onSubmit={() => handleSubmit()}>
+            <FormFooter
+              status={formStatus}
+              errorTestID="invite-error"
+              submitLabel="Send invitation"
+              submitTestID="invite-submit"
+              busy={form.isSubmitting}
+              onSubmit={() => handleSubmit()}
+            >
               {formStatus?.done ? (
                 <Notice tone="go" testID="invite-sent">
                   {formStatus.done}

@@ -33,7 +33,9 @@ export function SignInForm({ onSubmit }: SignInFormProps) {
       initialValues={initialValues}
       validationSchema={signInSchema}
       onSubmit={async (values, helpers) => {
-        await submitWithServerErrors(helpers, ['email', 'password'], values, () => onSubmit({ email: values.email.trim(), password: values.password }));
+        await submitWithServerErrors(helpers, ['email', 'password'], values, () =>
+          onSubmit({ email: values.email.trim(), password: values.password }),
+        );
       }}
     >
       {(form) => {
@@ -73,7 +75,14 @@ export function SignInForm({ onSubmit }: SignInFormProps) {
               enterKeyHint="go"
               onSubmitEditing={() => handleSubmit()}
             />
-            <FormFooter status={form.status} errorTestID="sign-in-error" submitLabel="Sign in" submitTestID="sign-in-submit" busy={form.isSubmitting} onSubmit={() => handleSubmit()} />
+            <FormFooter
+              status={form.status}
+              errorTestID="sign-in-error"
+              submitLabel="Sign in"
+              submitTestID="sign-in-submit"
+              busy={form.isSubmitting}
+              onSubmit={() => handleSubmit()}
+            />
           </FormFrame>
         );
       }}

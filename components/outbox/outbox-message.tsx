@@ -37,7 +37,14 @@ export function OutboxMessage({ message }: { message: OutboxMessageDto }) {
             part.text
           ) : (
             // Opens in a new tab so the outbox stays open; following an invitation there signs that browser in as the invitee.
-            <Link key={i} href={part.url as Href} target="_blank" rel="noopener" style={styles.link} testID={`outbox-link-${message.id}-${i}`}>
+            <Link
+              key={i}
+              href={part.url as Href}
+              target="_blank"
+              rel="noopener"
+              style={styles.link}
+              testID={`outbox-link-${message.id}-${i}`}
+            >
               {part.url}
             </Link>
           ),

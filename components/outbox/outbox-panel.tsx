@@ -35,9 +35,7 @@ export function OutboxPanel() {
           testID="outbox-empty"
           title="No e-mail yet"
           body="Invitations and, later, review notices and specification sheets will appear here as they are sent."
-          next={
-            <TextLink href="/users" testID="outbox-go-users" label="Invite someone on the Users screen" />
-          }
+          next={<TextLink href="/users" testID="outbox-go-users" label="Invite someone on the Users screen" />}
         />
       ) : (
         [...messages]

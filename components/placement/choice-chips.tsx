@@ -10,7 +10,19 @@ export interface Chip<T extends string> {
 }
 
 /** One of several choices that may be too many for a segmented row (viewers): wraps onto lines. */
-export function ChoiceChips<T extends string>({ label, options, value, onChange, disabled }: { label: string; options: readonly Chip<T>[]; value: T | null; onChange: (v: T) => void; disabled?: boolean }) {
+export function ChoiceChips<T extends string>({
+  label,
+  options,
+  value,
+  onChange,
+  disabled,
+}: {
+  label: string;
+  options: readonly Chip<T>[];
+  value: T | null;
+  onChange: (v: T) => void;
+  disabled?: boolean;
+}) {
   return (
     <View role="radiogroup" aria-label={label} style={styles.wrap}>
       {options.map((o) => (
@@ -20,7 +32,17 @@ export function ChoiceChips<T extends string>({ label, options, value, onChange,
   );
 }
 
-function ChipButton<T extends string>({ chip, selected, disabled, onPress }: { chip: Chip<T>; selected: boolean; disabled?: boolean; onPress: () => void }) {
+function ChipButton<T extends string>({
+  chip,
+  selected,
+  disabled,
+  onPress,
+}: {
+  chip: Chip<T>;
+  selected: boolean;
+  disabled?: boolean;
+  onPress: () => void;
+}) {
   const { focusVisible, onFocus, onBlur } = useFocusVisible();
   return (
     <Pressable
@@ -33,7 +55,13 @@ function ChipButton<T extends string>({ chip, selected, disabled, onPress }: { c
       onPress={onPress}
       onFocus={onFocus}
       onBlur={onBlur}
-      style={({ hovered }) => [styles.chip, hovered && !selected && styles.hovered, selected && styles.selected, disabled && styles.disabled, focusVisible && focusRing]}
+      style={({ hovered }) => [
+        styles.chip,
+        hovered && !selected && styles.hovered,
+        selected && styles.selected,
+        disabled && styles.disabled,
+        focusVisible && focusRing,
+      ]}
     >
       <AppText variant="label" style={{ color: selected ? palette.onAsphalt : palette.asphalt }}>
         {chip.label}

@@ -84,7 +84,12 @@ export function ElevationView({ evaluation, units, testID = 'placement-elevation
 
   return (
     <View onLayout={onLayout} testID={testID} style={styles.box}>
-      <Svg width={width} height={HEIGHT_PX} role="img" aria-label={`Side view: eye at ${label(drawing.eye.z)}, mirror at ${label(drawing.mirror.z)}, ${label(drawing.horizontal)} apart.`}>
+      <Svg
+        width={width}
+        height={HEIGHT_PX}
+        role="img"
+        aria-label={`Side view: eye at ${label(drawing.eye.z)}, mirror at ${label(drawing.mirror.z)}, ${label(drawing.horizontal)} apart.`}
+      >
         <Rect x={0} y={floorY} width={width} height={HEIGHT_PX - floorY} fill={palette.ruleSoft} />
         <Line x1={0} y1={floorY} x2={width} y2={floorY} stroke={palette.asphalt} strokeWidth={2} />
         <G>
@@ -102,15 +107,48 @@ export function ElevationView({ evaluation, units, testID = 'placement-elevation
           ))}
         </G>
         {drawing.near !== null && drawing.far !== null ? (
-          <Line x1={X(drawing.near)} y1={floorY} x2={X(drawing.far)} y2={floorY} stroke={palette.beacon} strokeWidth={6} strokeLinecap="round" />
+          <Line
+            x1={X(drawing.near)}
+            y1={floorY}
+            x2={X(drawing.far)}
+            y2={floorY}
+            stroke={palette.beacon}
+            strokeWidth={6}
+            strokeLinecap="round"
+          />
         ) : null}
         <Path d={sightline} stroke={palette.glass} strokeWidth={2.5} strokeDasharray="7 5" fill="none" />
         {/* Height ticks from the floor to the eye and to the mirror. */}
-        <Line x1={X(drawing.eye.s)} y1={floorY} x2={X(drawing.eye.s)} y2={Z(drawing.eye.z)} stroke={palette.haze} strokeWidth={1} strokeDasharray="2 3" />
-        <Line x1={X(drawing.mirror.s)} y1={floorY} x2={X(drawing.mirror.s)} y2={Z(drawing.mirror.z)} stroke={palette.haze} strokeWidth={1} strokeDasharray="2 3" />
+        <Line
+          x1={X(drawing.eye.s)}
+          y1={floorY}
+          x2={X(drawing.eye.s)}
+          y2={Z(drawing.eye.z)}
+          stroke={palette.haze}
+          strokeWidth={1}
+          strokeDasharray="2 3"
+        />
+        <Line
+          x1={X(drawing.mirror.s)}
+          y1={floorY}
+          x2={X(drawing.mirror.s)}
+          y2={Z(drawing.mirror.z)}
+          stroke={palette.haze}
+          strokeWidth={1}
+          strokeDasharray="2 3"
+        />
         <Circle cx={X(drawing.eye.s)} cy={Z(drawing.eye.z)} r={7} fill={palette.sheet} stroke={palette.glass} strokeWidth={3} />
         <Circle cx={X(drawing.eye.s)} cy={Z(drawing.eye.z)} r={2.5} fill={palette.glass} />
-        <Rect x={X(drawing.mirror.s) - 4} y={Z(drawing.mirror.z) - 9} width={8} height={18} rx={3} fill={palette.glass} stroke={palette.asphalt} strokeWidth={1.5} />
+        <Rect
+          x={X(drawing.mirror.s) - 4}
+          y={Z(drawing.mirror.z) - 9}
+          width={8}
+          height={18}
+          rx={3}
+          fill={palette.glass}
+          stroke={palette.asphalt}
+          strokeWidth={1.5}
+        />
         <SvgText x={X(drawing.eye.s) + 10} y={Z(drawing.eye.z) - 10} fontSize={13} fontFamily={fonts.semibold} fill={palette.asphalt}>
           {`eye ${label(drawing.eye.z)}`}
         </SvgText>
@@ -124,7 +162,14 @@ export function ElevationView({ evaluation, units, testID = 'placement-elevation
         >
           {`mirror ${label(drawing.mirror.z)}`}
         </SvgText>
-        <SvgText x={(X(drawing.eye.s) + X(drawing.mirror.s)) / 2} y={floorY + 18} fontSize={13} fontFamily={fonts.medium} fill={palette.asphalt} textAnchor="middle">
+        <SvgText
+          x={(X(drawing.eye.s) + X(drawing.mirror.s)) / 2}
+          y={floorY + 18}
+          fontSize={13}
+          fontFamily={fonts.medium}
+          fill={palette.asphalt}
+          textAnchor="middle"
+        >
           {`${label(drawing.horizontal)} apart`}
         </SvgText>
       </Svg>

@@ -42,8 +42,14 @@ function matches(item: CatalogueItemDto, q: string): boolean {
 export function MirrorPicker({ catalogue, value, onChange, units, errors = {} }: MirrorPickerProps) {
   const [mode, setMode] = useState<'catalogue' | 'custom'>(value.customMirror ? 'custom' : 'catalogue');
   const [q, setQ] = useState('');
-  const active = useMemo(() => catalogue.filter((c) => c.active || c.id === value.catalogueItemId).sort(compareMirrorsBySize), [catalogue, value.catalogueItemId]);
-  const groups = SHAPE_ORDER.map((shape) => ({ shape, items: active.filter((c) => c.mirror.shape === shape && matches(c, q.trim())) })).filter((g) => g.items.length > 0);
+  const active = useMemo(
+    () => catalogue.filter((c) => c.active || c.id === value.catalogueItemId).sort(compareMirrorsBySize),
+    [catalogue, value.catalogueItemId],
+  );
+  const groups = SHAPE_ORDER.map((shape) => ({
+    shape,
+    items: active.filter((c) => c.mirror.shape === shape && matches(c, q.trim())),
+  })).filter((g) => g.items.length > 0);
   const custom = value.customMirror;
 
   return (
@@ -67,7 +73,15 @@ export function MirrorPicker({ catalogue, value, onChange, units, errors = {} }:
       />
       {mode === 'catalogue' ? (
         <View style={styles.box}>
-          <TextField name="placement-catalogue-search" label="Find a mirror" testID="placement-catalogue-search" value={q} onChangeText={setQ} placeholder="Code, name or shape" autoCapitalize="none" />
+          <TextField
+            name="placement-catalogue-search"
+            label="Find a mirror"
+            testID="placement-catalogue-search"
+            value={q}
+            onChangeText={setQ}
+            placeholder="Code, name or shape"
+            autoCapitalize="none"
+          />
           {groups.length === 0 ? <AppText tone="muted">No catalogue mirror matches “{q}”.</AppText> : null}
           {groups.map((g) => (
             <View key={g.shape} style={styles.group}>
@@ -92,15 +106,35 @@ export function MirrorPicker({ catalogue, value, onChange, units, errors = {} }:
           ) : null}
         </View>
       ) : custom ? (
-        <CustomMirror spec={custom} units={units} errors={errors} onChange={(spec) => onChange({ catalogueItemId: null, customMirror: spec })} />
+        <CustomMirror
+          spec={custom}
+          units={units}
+          errors={errors}
+          onChange={(spec) => onChange({ catalogueItemId: null, customMirror: spec })}
+        />
       ) : (
-        <Button label="Describe a custom mirror" testID="placement-custom-start" variant="secondary" onPress={() => onChange({ catalogueItemId: null, customMirror: DEFAULT_CUSTOM.round })} />
+        <Button
+          label="Describe a custom mirror"
+          testID="placement-custom-start"
+          variant="secondary"
+          onPress={() => onChange({ catalogueItemId: null, customMirror: DEFAULT_CUSTOM.round })}
+        />
       )}
     </View>
   );
 }
 
-function CatalogueOption({ item, units, selected, onPress }: { item: CatalogueItemDto; units: UnitSystem; selected: boolean; onPress: () => void }) {
+function CatalogueOption({
+  item,
+  units,
+  selected,
+  onPress,
+}: {
+  item: CatalogueItemDto;
+  units: UnitSystem;
+  selected: boolean;
+  onPress: () => void;
+}) {
   const { focusVisible, onFocus, onBlur } = useFocusVisible();
   return (
     <Pressable
@@ -111,7 +145,12 @@ function CatalogueOption({ item, units, selected, onPress }: { item: CatalogueIt
       onPress={onPress}
       onFocus={onFocus}
       onBlur={onBlur}
-      style={({ hovered }) => [styles.option, hovered && !selected && styles.optionHover, selected && styles.optionSelected, focusVisible && focusRing]}
+      style={({ hovered }) => [
+        styles.option,
+        hovered && !selected && styles.optionHover,
+        selected && styles.optionSelected,
+        focusVisible && focusRing,
+      ]}
     >
       <View style={styles.optionHead}>
         <AppText variant="bodyStrong" style={styles.flex}>
@@ -142,7 +181,17 @@ export function reshape(spec: MirrorSpec, shape: MirrorSpec['shape']): MirrorSpe
   return { shape, portion: 'half', diameterM: Math.max(across, 0.1) };
 }
 
-function CustomMirror({ spec, units, errors, onChange }: { spec: MirrorSpec; units: UnitSystem; errors: Record<string, string>; onChange: (s: MirrorSpec) => void }) {
+function CustomMirror({
+  spec,
+  units,
+  errors,
+  onChange,
+}: {
+  spec: MirrorSpec;
+  units: UnitSystem;
+  errors: Record<string, string>;
+  onChange: (s: MirrorSpec) => void;
+}) {
   const err = (f: string) => errors[`customMirror.${f}`];
   return (
     <View style={styles.box}>
@@ -169,10 +218,28 @@ function CustomMirror({ spec, units, errors, onChange }: { spec: MirrorSpec; uni
       {spec.shape === 'rect' ? (
         <View style={styles.pair}>
           <View style={styles.flex}>
-            <NumberField name="customMirror.widthM" label="Width" testID="placement-custom-width" units={units} kind="size" value={spec.widthM} error={err('widthM')} onChangeValue={(v) => v !== null && onChange({ ...spec, widthM: v })} />
+            <NumberField
+              name="customMirror.widthM"
+              label="Width"
+              testID="placement-custom-width"
+              units={units}
+              kind="size"
+              value={spec.widthM}
+              error={err('widthM')}
+              onChangeValue={(v) => v !== null && onChange({ ...spec, widthM: v })}
+            />
           </View>
           <View style={styles.flex}>
-            <NumberField name="customMirror.heightM" label="Height" testID="placement-custom-height" units={units} kind="size" value={spec.heightM} error={err('heightM')} onChangeValue={(v) => v !== null && onChange({ ...spec, heightM: v })} />
+            <NumberField
+              name="customMirror.heightM"
+              label="Height"
+              testID="placement-custom-height"
+              units={units}
+              kind="size"
+              value={spec.heightM}
+              error={err('heightM')}
+              onChangeValue={(v) => v !== null && onChange({ ...spec, heightM: v })}
+            />
           </View>
         </View>
       ) : (

@@ -20,7 +20,8 @@ const size = (m: number, units: UnitSystem) => formatLength(m, units, { kind: 's
 
 /** Plain words for the rim squeeze figure (rim magnification ÷ centre magnification). */
 export function rimSqueezeText(rimSqueeze: number): string {
-  if (!(rimSqueeze > 0)) return 'From this eye position the rim is out of sight, so the edge of the image cannot be compared with the centre.';
+  if (!(rimSqueeze > 0))
+    return 'From this eye position the rim is out of sight, so the edge of the image cannot be compared with the centre.';
   return `At the rim, things look ${formatPercent(rimSqueeze)} of the size they would at the centre of the mirror.`;
 }
 
@@ -43,9 +44,21 @@ export function PlacementNumbersPanel({ evaluation, zones, scene, units }: Place
           <Group title="What this viewer sees">
             <Row label="Eye to mirror" value={dist(n.eyeDistanceM, units)} testID="numbers-eye-distance" />
             <Row label="Eye off the mirror's axis" value={formatAngle(n.eyeOffAxisRad)} testID="numbers-eye-off-axis" />
-            <Row label="Floor area seen" value={evaluation?.coverage ? formatArea(evaluation.coverage.areaM2, units) : '—'} testID="numbers-area" />
-            <Row label="Spread of the floor seen, around the mirror" value={fs ? formatAngle(fs.spreadRad) : '—'} testID="numbers-floor-spread" />
-            <Row label="Nearest to farthest floor seen, from the mirror" value={fs ? `${dist(fs.nearestM, units)} to ${dist(fs.farthestM, units)}` : '—'} testID="numbers-floor-reach" />
+            <Row
+              label="Floor area seen"
+              value={evaluation?.coverage ? formatArea(evaluation.coverage.areaM2, units) : '—'}
+              testID="numbers-area"
+            />
+            <Row
+              label="Spread of the floor seen, around the mirror"
+              value={fs ? formatAngle(fs.spreadRad) : '—'}
+              testID="numbers-floor-spread"
+            />
+            <Row
+              label="Nearest to farthest floor seen, from the mirror"
+              value={fs ? `${dist(fs.nearestM, units)} to ${dist(fs.farthestM, units)}` : '—'}
+              testID="numbers-floor-reach"
+            />
             <AppText variant="small" tone="muted">
               Floor seen with walls and racking, out to the distance at which a standing adult is still recognised.
             </AppText>
@@ -63,7 +76,11 @@ export function PlacementNumbersPanel({ evaluation, zones, scene, units }: Place
 
           <Group title="Detect and recognise">
             <Row label="Standing adult detected up to" value={dist(n.rangesM.detect.adult, units)} testID="numbers-range-adult-detect" />
-            <Row label="Standing adult recognised up to" value={dist(n.rangesM.recognise.adult, units)} testID="numbers-range-adult-recognise" />
+            <Row
+              label="Standing adult recognised up to"
+              value={dist(n.rangesM.recognise.adult, units)}
+              testID="numbers-range-adult-recognise"
+            />
             <Row label="Child detected up to" value={dist(n.rangesM.detect.child, units)} testID="numbers-range-child-detect" />
             <Row label="Child recognised up to" value={dist(n.rangesM.recognise.child, units)} testID="numbers-range-child-recognise" />
             <AppText variant="small" tone="muted" testID="numbers-criteria-basis">
@@ -92,8 +109,21 @@ export function PlacementNumbersPanel({ evaluation, zones, scene, units }: Place
         <Group title="Zones covered (all mirrors)">
           {scene.zones.map((z) => {
             const ev = zones.find((e) => e.zoneId === z.id);
-            const value = !ev ? '—' : ev.problem ? ev.problem : Number.isFinite(ev.fraction) ? `${formatPercent(ev.fraction)} (${formatArea(ev.coveredM2, units)})` : '—';
-            return <Row key={z.id} label={`${z.name}, ${targetLabel(z.target)}, ${zoneCriterion(z)}`} value={value} testID={`numbers-zone-${z.id}`} />;
+            const value = !ev
+              ? '—'
+              : ev.problem
+                ? ev.problem
+                : Number.isFinite(ev.fraction)
+                  ? `${formatPercent(ev.fraction)} (${formatArea(ev.coveredM2, units)})`
+                  : '—';
+            return (
+              <Row
+                key={z.id}
+                label={`${z.name}, ${targetLabel(z.target)}, ${zoneCriterion(z)}`}
+                value={value}
+                testID={`numbers-zone-${z.id}`}
+              />
+            );
           })}
         </Group>
       ) : null}

@@ -45,7 +45,8 @@ export function valuesText(v: PlacementEdits, units: UnitSystem, catalogue: read
   if (v.tiltDownRad !== undefined) parts.push(`tilt ${formatAngle(v.tiltDownRad)}`);
   if (v.positionM !== undefined) parts.push(`position ${formatLength(v.positionM[0], units)}, ${formatLength(v.positionM[1], units)}`);
   if (v.customMirror) parts.push(`custom mirror ${mirrorSizeText(v.customMirror, units)}`);
-  else if (v.catalogueItemId != null) parts.push(`mirror ${catalogue.find((c) => c.id === v.catalogueItemId)?.name ?? `#${v.catalogueItemId}`}`);
+  else if (v.catalogueItemId != null)
+    parts.push(`mirror ${catalogue.find((c) => c.id === v.catalogueItemId)?.name ?? `#${v.catalogueItemId}`}`);
   if (v.viewerId !== undefined) parts.push(v.viewerId ? `viewer ${v.viewerId}` : 'no viewer');
   if (v.notes !== undefined) parts.push(`notes “${v.notes}”`);
   return parts.length ? parts.join('; ') : 'no fields';

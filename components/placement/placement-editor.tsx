@@ -74,9 +74,11 @@ function PlacementEditorInner({ project, placement: draft, writes, evaluation, c
   const e = problem?.fields ?? {};
   const set = (patch: PlacementEdits) => writes.change(id, patch, AUTOSAVE_MS);
   const saveNow = () => writes.save(id);
-  const item = draft.catalogueItemId !== null ? catalogue.find((c) => c.id === draft.catalogueItemId) ?? null : null;
+  const item = draft.catalogueItemId !== null ? (catalogue.find((c) => c.id === draft.catalogueItemId) ?? null) : null;
   const spec = draft.customMirror ?? item?.mirror ?? null;
-  const mirrorChoice: MirrorChoice = draft.customMirror ? { catalogueItemId: null, customMirror: draft.customMirror } : { catalogueItemId: draft.catalogueItemId ?? -1, customMirror: null };
+  const mirrorChoice: MirrorChoice = draft.customMirror
+    ? { catalogueItemId: null, customMirror: draft.customMirror }
+    : { catalogueItemId: draft.catalogueItemId ?? -1, customMirror: null };
   const heightStep = units === 'metric' ? 0.05 : 2 * 0.0254;
   const twoColumns = width >= TWO_COLUMNS_FROM;
 
@@ -114,7 +116,9 @@ function PlacementEditorInner({ project, placement: draft, writes, evaluation, c
           showPicker || !spec ? (
             <>
               <MirrorPicker catalogue={catalogue} units={units} value={mirrorChoice} errors={e} onChange={(choice) => set(choice)} />
-              {spec ? <Button label="Done choosing" testID="placement-mirror-done" variant="quiet" onPress={() => setShowPicker(false)} /> : null}
+              {spec ? (
+                <Button label="Done choosing" testID="placement-mirror-done" variant="quiet" onPress={() => setShowPicker(false)} />
+              ) : null}
             </>
           ) : (
             <Button label="Change mirror" testID="placement-mirror-change" variant="secondary" onPress={() => setShowPicker(true)} />
@@ -204,7 +208,11 @@ function PlacementEditorInner({ project, placement: draft, writes, evaluation, c
             disabled={!canEdit}
             onChange={(v) => set({ viewerId: v === '__none' ? null : v })}
             options={[
-              ...project.scene.viewers.map((v) => ({ value: v.id, label: `${v.name} (eye ${formatLength(v.eyeHeightM, units)})`, testID: `placement-viewer-${v.id}` })),
+              ...project.scene.viewers.map((v) => ({
+                value: v.id,
+                label: `${v.name} (eye ${formatLength(v.eyeHeightM, units)})`,
+                testID: `placement-viewer-${v.id}`,
+              })),
               { value: '__none', label: 'None yet', testID: 'placement-viewer-none' },
             ]}
           />
@@ -246,13 +254,31 @@ function PlacementEditorInner({ project, placement: draft, writes, evaluation, c
           <AppText variant="heading" role="heading" aria-level={2}>
             {draft.label}
           </AppText>
-          <SaveStatus canEdit={canEdit} dirty={dirty} saving={writes.saving} error={problem?.message || null} conflict={Boolean(conflict)} />
+          <SaveStatus
+            canEdit={canEdit}
+            dirty={dirty}
+            saving={writes.saving}
+            error={problem?.message || null}
+            conflict={Boolean(conflict)}
+          />
         </View>
         {onClose ? <Button label="Close" testID="placement-close" variant="secondary" onPress={close} /> : null}
       </View>
 
-      {conflict ? <PlacementConflictNotice conflict={conflict} units={units} catalogue={catalogue} onKeepMine={() => writes.keepMine(id)} onUseTheirs={() => writes.useTheirs(id)} /> : null}
-      {problem?.message ? <Notice tone="stop" testID="placement-error">{problem.message}</Notice> : null}
+      {conflict ? (
+        <PlacementConflictNotice
+          conflict={conflict}
+          units={units}
+          catalogue={catalogue}
+          onKeepMine={() => writes.keepMine(id)}
+          onUseTheirs={() => writes.useTheirs(id)}
+        />
+      ) : null}
+      {problem?.message ? (
+        <Notice tone="stop" testID="placement-error">
+          {problem.message}
+        </Notice>
+      ) : null}
 
       <View style={twoColumns ? styles.columns : styles.stack}>
         {form}
@@ -261,7 +287,13 @@ function PlacementEditorInner({ project, placement: draft, writes, evaluation, c
 
       {canEdit ? (
         <View style={styles.actions}>
-          <Button label={writes.saving ? 'Saving…' : 'Save now'} testID="placement-save" onPress={saveNow} disabled={!dirty || Boolean(conflict)} busy={writes.saving} />
+          <Button
+            label={writes.saving ? 'Saving…' : 'Save now'}
+            testID="placement-save"
+            onPress={saveNow}
+            disabled={!dirty || Boolean(conflict)}
+            busy={writes.saving}
+          />
           {confirmDelete ? (
             <View style={styles.confirm} testID="placement-delete-confirmation">
               <AppText variant="bodyStrong">{`Remove “${draft.label}” from this project? This cannot be undone.`}</AppText>
@@ -293,9 +325,29 @@ function PlacementEditorInner({ project, placement: draft, writes, evaluation, c
   );
 }
 
-function SaveStatus({ canEdit, dirty, saving, error, conflict }: { canEdit: boolean; dirty: boolean; saving: boolean; error: string | null; conflict: boolean }) {
+function SaveStatus({
+  canEdit,
+  dirty,
+  saving,
+  error,
+  conflict,
+}: {
+  canEdit: boolean;
+  dirty: boolean;
+  saving: boolean;
+  error: string | null;
+  conflict: boolean;
+}) {
   if (!canEdit) return null;
-  const text = saving ? 'Saving…' : conflict ? 'Not saved: changed elsewhere.' : error ? 'Not saved.' : dirty ? 'Unsaved changes; saving shortly.' : 'All changes saved.';
+  const text = saving
+    ? 'Saving…'
+    : conflict
+      ? 'Not saved: changed elsewhere.'
+      : error
+        ? 'Not saved.'
+        : dirty
+          ? 'Unsaved changes; saving shortly.'
+          : 'All changes saved.';
   return (
     <AppText variant="small" tone={error || conflict ? 'stop' : 'muted'} testID="placement-save-status" aria-live="polite">
       {text}
@@ -317,5 +369,13 @@ const styles = StyleSheet.create({
   pair: { flexDirection: 'row', gap: spacing.md },
   flex: { flex: 1 },
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.md, alignItems: 'center' },
-  confirm: { gap: spacing.sm, padding: spacing.md, borderWidth: 2, borderColor: palette.stop, borderRadius: 8, backgroundColor: palette.stopSoft, alignSelf: 'stretch' },
+  confirm: {
+    gap: spacing.sm,
+    padding: spacing.md,
+    borderWidth: 2,
+    borderColor: palette.stop,
+    borderRadius: 8,
+    backgroundColor: palette.stopSoft,
+    alignSelf: 'stretch',
+  },
 });

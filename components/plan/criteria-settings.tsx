@@ -21,7 +21,10 @@ const asText = (rad: number) => formatArcmin(rad).replace('′', '');
 
 /** "6", "6′", "6'", "6 arcmin", "7,5" → minutes of arc; null when it is not a number. */
 export function parseArcmin(text: string): number | null {
-  const s = text.trim().replace(/(\d),(\d)/, '$1.$2').replace(/\s*(′|'|arc ?min(utes?)?|min)$/i, '');
+  const s = text
+    .trim()
+    .replace(/(\d),(\d)/, '$1.$2')
+    .replace(/\s*(′|'|arc ?min(utes?)?|min)$/i, '');
   if (!/^\d+(\.\d+)?$/.test(s)) return null;
   return Number(s);
 }
@@ -74,10 +77,22 @@ export function CriteriaSettingsForm({ criteria, canEdit, onSave }: CriteriaSett
             <View style={styles.column}>
               <View style={styles.row}>
                 <View style={styles.field}>
-                  <FormikTextField form={form} name="detect" label="Detect, minutes of arc" testID="criteria-detect" keyboardType="decimal-pad" />
+                  <FormikTextField
+                    form={form}
+                    name="detect"
+                    label="Detect, minutes of arc"
+                    testID="criteria-detect"
+                    keyboardType="decimal-pad"
+                  />
                 </View>
                 <View style={styles.field}>
-                  <FormikTextField form={form} name="recognise" label="Recognise, minutes of arc" testID="criteria-recognise" keyboardType="decimal-pad" />
+                  <FormikTextField
+                    form={form}
+                    name="recognise"
+                    label="Recognise, minutes of arc"
+                    testID="criteria-recognise"
+                    keyboardType="decimal-pad"
+                  />
                 </View>
               </View>
               <View style={styles.row}>

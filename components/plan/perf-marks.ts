@@ -6,7 +6,10 @@ export const RECOMPUTE_START = 'plan-recompute-start';
 export const REDRAW_END = 'plan-redraw-end';
 export const FRAME_MEASURE = 'plan-frame';
 
-const timing = (): Performance | null => (typeof performance !== 'undefined' && typeof performance.mark === 'function' && typeof performance.measure === 'function' ? performance : null);
+const timing = (): Performance | null =>
+  typeof performance !== 'undefined' && typeof performance.mark === 'function' && typeof performance.measure === 'function'
+    ? performance
+    : null;
 
 let open = false;
 

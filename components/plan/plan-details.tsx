@@ -118,7 +118,12 @@ function BackToSummary({ onPress }: { onPress: () => void }) {
 
 function ViewerDetails(p: PlanDetailsProps & { viewer: SceneViewer }) {
   const { viewer } = p;
-  const kind = Math.abs(viewer.eyeHeightM - EYE_HEIGHTS.driver) < 1e-6 ? 'driver' : Math.abs(viewer.eyeHeightM - EYE_HEIGHTS.pedestrian) < 1e-6 ? 'pedestrian' : undefined;
+  const kind =
+    Math.abs(viewer.eyeHeightM - EYE_HEIGHTS.driver) < 1e-6
+      ? 'driver'
+      : Math.abs(viewer.eyeHeightM - EYE_HEIGHTS.pedestrian) < 1e-6
+        ? 'pedestrian'
+        : undefined;
   const served = p.placements.filter((x) => x.viewerId === viewer.id);
   return (
     <View style={styles.column} testID="plan-viewer-details">
@@ -148,12 +153,19 @@ function ProjectSummary(p: PlanDetailsProps) {
   return (
     <View style={styles.column} testID="plan-summary">
       <Section title="Zones">
-        {p.scene.zones.length === 0 ? <AppText tone="muted">No zones yet. Draw the area a mirror must show with the Zone tool.</AppText> : null}
+        {p.scene.zones.length === 0 ? (
+          <AppText tone="muted">No zones yet. Draw the area a mirror must show with the Zone tool.</AppText>
+        ) : null}
         {p.scene.zones.map((z) => {
           const ev = p.evaluation?.zones.find((e) => e.zoneId === z.id);
           const band = zoneBand(ev?.fraction ?? Number.NaN);
           return (
-            <ListRow key={z.id} testID={`summary-zone-${z.id}`} onPress={() => p.onSelect({ kind: 'zone', id: z.id })} a11y={`Zone ${z.name}`}>
+            <ListRow
+              key={z.id}
+              testID={`summary-zone-${z.id}`}
+              onPress={() => p.onSelect({ kind: 'zone', id: z.id })}
+              a11y={`Zone ${z.name}`}
+            >
               <View style={styles.rowMain}>
                 <AppText variant="bodyStrong">{z.name}</AppText>
                 <AppText variant="small" tone="muted">{`Target: ${targetLabel(z.target)}, ${zoneCriterion(z)}`}</AppText>
@@ -162,18 +174,28 @@ function ProjectSummary(p: PlanDetailsProps) {
                 <AppText variant="bodyStrong" style={{ color: bandColours[band].text }}>
                   {formatPercent(ev?.fraction ?? Number.NaN)}
                 </AppText>
-                <Badge label={bandWords[band]} tone={band === 'good' ? 'go' : band === 'partial' ? 'beacon' : band === 'poor' ? 'stop' : 'neutral'} />
+                <Badge
+                  label={bandWords[band]}
+                  tone={band === 'good' ? 'go' : band === 'partial' ? 'beacon' : band === 'poor' ? 'stop' : 'neutral'}
+                />
               </View>
             </ListRow>
           );
         })}
       </Section>
       <Section title="Mirrors">
-        {p.placements.length === 0 ? <AppText tone="muted">No mirrors yet. Choose Mirror and tap the plan where one mounts.</AppText> : null}
+        {p.placements.length === 0 ? (
+          <AppText tone="muted">No mirrors yet. Choose Mirror and tap the plan where one mounts.</AppText>
+        ) : null}
         {p.placements.map((pl) => {
           const ev = evalById.get(pl.id);
           return (
-            <ListRow key={pl.id} testID={`summary-placement-${pl.id}`} onPress={() => p.onSelect({ kind: 'placement', id: pl.id })} a11y={`Mirror ${pl.label}`}>
+            <ListRow
+              key={pl.id}
+              testID={`summary-placement-${pl.id}`}
+              onPress={() => p.onSelect({ kind: 'placement', id: pl.id })}
+              a11y={`Mirror ${pl.label}`}
+            >
               <View style={styles.rowMain}>
                 <AppText variant="bodyStrong">{pl.label}</AppText>
                 {ev?.problem ? (
@@ -181,7 +203,9 @@ function ProjectSummary(p: PlanDetailsProps) {
                     {ev.problem.message}
                   </AppText>
                 ) : ev?.numbers ? (
-                  <AppText variant="small" tone="muted">{adultRangesText(ev.numbers, (m) => formatLength(m, p.units))}</AppText>
+                  <AppText variant="small" tone="muted">
+                    {adultRangesText(ev.numbers, (m) => formatLength(m, p.units))}
+                  </AppText>
                 ) : null}
               </View>
             </ListRow>
@@ -189,9 +213,16 @@ function ProjectSummary(p: PlanDetailsProps) {
         })}
       </Section>
       <Section title="Viewers">
-        {p.scene.viewers.length === 0 ? <AppText tone="muted">No viewers yet. Choose Viewer and tap where the driver or pedestrian looks from.</AppText> : null}
+        {p.scene.viewers.length === 0 ? (
+          <AppText tone="muted">No viewers yet. Choose Viewer and tap where the driver or pedestrian looks from.</AppText>
+        ) : null}
         {p.scene.viewers.map((v) => (
-          <ListRow key={v.id} testID={`summary-viewer-${v.id}`} onPress={() => p.onSelect({ kind: 'viewer', id: v.id })} a11y={`Viewer ${v.name}`}>
+          <ListRow
+            key={v.id}
+            testID={`summary-viewer-${v.id}`}
+            onPress={() => p.onSelect({ kind: 'viewer', id: v.id })}
+            a11y={`Viewer ${v.name}`}
+          >
             <View style={styles.rowMain}>
               <AppText variant="bodyStrong">{v.name}</AppText>
               <AppText variant="small" tone="muted">{`Eye ${formatLength(v.eyeHeightM, p.units)}`}</AppText>
@@ -221,12 +252,17 @@ function Section({ title, children }: { title: string; children: ReactNode }) {
 
 function ListRow({ children, onPress, testID, a11y }: { children: ReactNode; onPress: () => void; testID: string; a11y: string }) {
   return (
-    <Pressable testID={testID} role="button" aria-label={a11y} onPress={onPress} style={({ hovered, pressed }) => [styles.listRow, (hovered || pressed) && styles.listRowHover]}>
+    <Pressable
+      testID={testID}
+      role="button"
+      aria-label={a11y}
+      onPress={onPress}
+      style={({ hovered, pressed }) => [styles.listRow, (hovered || pressed) && styles.listRowHover]}
+    >
       {children}
     </Pressable>
   );
 }
-
 
 const styles = StyleSheet.create({
   column: { gap: spacing.md },

@@ -10,7 +10,19 @@ import { fonts, palette } from '@/constants/theme';
 import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
 import type { PlacementDto, Scene } from '@/shared/schemas';
 import type { UnitSystem } from '@/shared/units';
-import { AimHandle, CoverageLayer, DraftShape, GAP_HATCH_ID, PlacementMarker, Sightline, ViewerMarker, WallsLayer, ZoneGap, ZoneLabel, ZoneShapes } from './plan-layers';
+import {
+  AimHandle,
+  CoverageLayer,
+  DraftShape,
+  GAP_HATCH_ID,
+  PlacementMarker,
+  Sightline,
+  ViewerMarker,
+  WallsLayer,
+  ZoneGap,
+  ZoneLabel,
+  ZoneShapes,
+} from './plan-layers';
 import { gridLines, multiPolygonToPath, scaleBar, uncoveredPart } from './plan-geometry';
 import { toScreen, type PairM, type PlanView, type Size } from './plan-view';
 import type { PlanSelection, PlanTool } from './plan-types';
@@ -29,7 +41,18 @@ export interface DrawingProps {
   size: Size;
 }
 
-export function PlanDrawing({ scene, placements, evaluation, units, canEdit, selection, draftPoints, draftClosed, view, size }: DrawingProps) {
+export function PlanDrawing({
+  scene,
+  placements,
+  evaluation,
+  units,
+  canEdit,
+  selection,
+  draftPoints,
+  draftClosed,
+  view,
+  size,
+}: DrawingProps) {
   const grid = useMemo(() => gridLines(view, size, units), [view, size, units]);
   const bar = scaleBar(view, units);
   const evaluatedById = useMemo(() => new Map((evaluation?.placements ?? []).map((e) => [e.placementId, e])), [evaluation]);
@@ -59,18 +82,32 @@ export function PlanDrawing({ scene, placements, evaluation, units, canEdit, sel
       <Path pointerEvents="none" d={grid.minor} stroke={palette.ruleSoft} strokeWidth={1} />
       <Path pointerEvents="none" d={grid.major} stroke={palette.rule} strokeWidth={1.2} />
       {scene.zones.map((z) => (
-        <ZoneShapes key={z.id} zone={z} fraction={zoneFraction.get(z.id) ?? Number.NaN} view={view} selected={selection?.kind === 'zone' && selection.id === z.id} />
+        <ZoneShapes
+          key={z.id}
+          zone={z}
+          fraction={zoneFraction.get(z.id) ?? Number.NaN}
+          view={view}
+          selected={selection?.kind === 'zone' && selection.id === z.id}
+        />
       ))}
       <G>
         {placements.map((p) => (
-          <CoverageLayer key={p.id} placementId={p.id} evaluated={evaluatedById.get(p.id)} view={view} selected={selectedPlacement?.id === p.id} />
+          <CoverageLayer
+            key={p.id}
+            placementId={p.id}
+            evaluated={evaluatedById.get(p.id)}
+            view={view}
+            selected={selectedPlacement?.id === p.id}
+          />
         ))}
       </G>
       {gaps.map((g) => (
         <ZoneGap key={g.id} d={g.d} />
       ))}
       <WallsLayer walls={scene.walls} view={view} selectedId={selection?.kind === 'wall' ? selection.id : null} />
-      {selectedPlacement && selectedViewer ? <Sightline from={toScreen(view, selectedViewer.positionM)} to={toScreen(view, selectedPlacement.positionM)} /> : null}
+      {selectedPlacement && selectedViewer ? (
+        <Sightline from={toScreen(view, selectedViewer.positionM)} to={toScreen(view, selectedPlacement.positionM)} />
+      ) : null}
       {scene.zones.map((z) => (
         <ZoneLabel key={z.id} zone={z} fraction={zoneFraction.get(z.id) ?? Number.NaN} view={view} />
       ))}
@@ -78,9 +115,17 @@ export function PlanDrawing({ scene, placements, evaluation, units, canEdit, sel
         <ViewerMarker key={v.id} viewer={v} view={view} selected={selection?.kind === 'viewer' && selection.id === v.id} />
       ))}
       {placements.map((p) => (
-        <PlacementMarker key={p.id} placement={p} problem={evaluatedById.get(p.id)?.problem?.message ?? null} view={view} selected={selectedPlacement?.id === p.id} />
+        <PlacementMarker
+          key={p.id}
+          placement={p}
+          problem={evaluatedById.get(p.id)?.problem?.message ?? null}
+          view={view}
+          selected={selectedPlacement?.id === p.id}
+        />
       ))}
-      {selectedPlacement && canEdit ? <AimHandle from={toScreen(view, selectedPlacement.positionM)} azimuthRad={selectedPlacement.azimuthRad} /> : null}
+      {selectedPlacement && canEdit ? (
+        <AimHandle from={toScreen(view, selectedPlacement.positionM)} azimuthRad={selectedPlacement.azimuthRad} />
+      ) : null}
       <DraftShape points={draftPoints} closed={draftClosed} view={view} />
       <G pointerEvents="none">
         <Rect x={12} y={10} width={bar.lengthPx + 16} height={34} rx={6} fill={palette.sheet} fillOpacity={0.9} />
@@ -89,7 +134,15 @@ export function PlanDrawing({ scene, placements, evaluation, units, canEdit, sel
           {bar.label}
         </SvgText>
         {gapProblems.map((g, i) => (
-          <SvgText key={g.id} testID={`plan-gap-problem-${g.id}`} x={12} y={62 + i * 16} fontFamily={fonts.semibold} fontSize={12} fill={palette.stop}>
+          <SvgText
+            key={g.id}
+            testID={`plan-gap-problem-${g.id}`}
+            x={12}
+            y={62 + i * 16}
+            fontFamily={fonts.semibold}
+            fontSize={12}
+            fill={palette.stop}
+          >
             {g.problem}
           </SvgText>
         ))}

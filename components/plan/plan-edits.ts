@@ -33,7 +33,12 @@ export function nearestViewer(pointM: PairM, viewers: readonly SceneViewer[]): S
 }
 
 /** The body for a mirror placed by a tap: aimed at the nearest viewer, so it shows them something at once. */
-export function newMirrorBody(pointM: PairM, catalogue: readonly CatalogueItemDto[], viewers: readonly SceneViewer[], existing: number): CreatePlacementBody | null {
+export function newMirrorBody(
+  pointM: PairM,
+  catalogue: readonly CatalogueItemDto[],
+  viewers: readonly SceneViewer[],
+  existing: number,
+): CreatePlacementBody | null {
   const item = defaultCatalogueItem(catalogue);
   if (!item) return null;
   const viewer = nearestViewer(pointM, viewers);

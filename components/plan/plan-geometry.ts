@@ -39,7 +39,10 @@ export function uncoveredPart(zone: Ring, regions: readonly MultiPolygon[], zone
     const merged = nonEmpty.length === 1 ? nonEmpty[0] : robustUnion(nonEmpty[0], ...nonEmpty.slice(1));
     return { ok: true, region: robustDifference([zone], merged) };
   } catch {
-    return { ok: false, problem: `The uncovered part of “${zoneName}” could not be drawn (its outline and the coverage meet at odd angles); its percentage still stands.` };
+    return {
+      ok: false,
+      problem: `The uncovered part of “${zoneName}” could not be drawn (its outline and the coverage meet at odd angles); its percentage still stands.`,
+    };
   }
 }
 

@@ -53,7 +53,10 @@ export function startGesture(ctx: GestureContext, points: readonly PairM[]): Ste
   const selecting = ctx.tool === 'select' || !ctx.canEdit;
   if (aim && hit?.kind === 'placement') return { gesture: { mode: 'aim', id: hit.id, moved: false }, effects: [] };
   if (selecting && (hit?.kind === 'placement' || hit?.kind === 'viewer')) {
-    const at = hit.kind === 'placement' ? ctx.placements.find((x) => x.id === hit.id)?.positionM : ctx.scene.viewers.find((x) => x.id === hit.id)?.positionM;
+    const at =
+      hit.kind === 'placement'
+        ? ctx.placements.find((x) => x.id === hit.id)?.positionM
+        : ctx.scene.viewers.find((x) => x.id === hit.id)?.positionM;
     if (at) {
       const s = toScreen(ctx.view, at);
       return {
@@ -116,7 +119,9 @@ function aimDrag(ctx: GestureContext, id: number, pt: PairM, done: boolean): Pla
 
 function moveDrag(view: PlanView, g: Extract<Gesture, { mode: 'placement' | 'viewer' }>, pt: PairM, done: boolean): PlanDrag {
   const positionM = toPlan(view, pt[0] + g.grab[0], pt[1] + g.grab[1]);
-  return g.mode === 'placement' ? { kind: 'placement-move', id: g.id as number, positionM, done } : { kind: 'viewer-move', id: g.id as string, positionM, done };
+  return g.mode === 'placement'
+    ? { kind: 'placement-move', id: g.id as number, positionM, done }
+    : { kind: 'viewer-move', id: g.id as string, positionM, done };
 }
 
 const dist = (a: PairM, b: PairM) => Math.hypot(a[0] - b[0], a[1] - b[1]);

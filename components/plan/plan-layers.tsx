@@ -37,12 +37,31 @@ export function wrapWords(text: string, width: number, maxLines: number): string
 
 /** A light plate behind text so labels stay readable over grid, fans and hatching. */
 function LabelPlate({ x, y, width, lines, lineHeight = 16 }: { x: number; y: number; width: number; lines: number; lineHeight?: number }) {
-  return <Rect pointerEvents="none" x={x - 4} y={y - lineHeight + 3} width={width + 8} height={lines * lineHeight + 4} rx={4} fill={palette.sheet} fillOpacity={0.9} />;
+  return (
+    <Rect
+      pointerEvents="none"
+      x={x - 4}
+      y={y - lineHeight + 3}
+      width={width + 8}
+      height={lines * lineHeight + 4}
+      rx={4}
+      fill={palette.sheet}
+      fillOpacity={0.9}
+    />
+  );
 }
 
 const approxWidth = (text: string, px = 7.4) => text.length * px;
 
-export const WallsLayer = memo(function WallsLayer({ walls, view, selectedId }: { walls: readonly SceneWall[]; view: PlanView; selectedId: string | null }) {
+export const WallsLayer = memo(function WallsLayer({
+  walls,
+  view,
+  selectedId,
+}: {
+  walls: readonly SceneWall[];
+  view: PlanView;
+  selectedId: string | null;
+}) {
   return (
     <G pointerEvents="none">
       {walls.map((w) => {
@@ -52,9 +71,22 @@ export const WallsLayer = memo(function WallsLayer({ walls, view, selectedId }: 
         const style = wallStyle[w.kind];
         return (
           <G key={w.id}>
-            {selected ? <Line x1={ax} y1={ay} x2={bx} y2={by} stroke={palette.beacon} strokeWidth={style.width + 8} strokeLinecap="round" /> : null}
-            <Line x1={ax} y1={ay} x2={bx} y2={by} stroke={style.colour} strokeWidth={style.width} strokeDasharray={style.dash} strokeLinecap={w.kind === 'door' ? 'butt' : 'square'} />
-            {w.kind === 'racking' ? <Line x1={ax} y1={ay} x2={bx} y2={by} stroke={palette.sheet} strokeWidth={1.5} strokeDasharray="2 6" /> : null}
+            {selected ? (
+              <Line x1={ax} y1={ay} x2={bx} y2={by} stroke={palette.beacon} strokeWidth={style.width + 8} strokeLinecap="round" />
+            ) : null}
+            <Line
+              x1={ax}
+              y1={ay}
+              x2={bx}
+              y2={by}
+              stroke={style.colour}
+              strokeWidth={style.width}
+              strokeDasharray={style.dash}
+              strokeLinecap={w.kind === 'door' ? 'butt' : 'square'}
+            />
+            {w.kind === 'racking' ? (
+              <Line x1={ax} y1={ay} x2={bx} y2={by} stroke={palette.sheet} strokeWidth={1.5} strokeDasharray="2 6" />
+            ) : null}
           </G>
         );
       })}
@@ -75,13 +107,29 @@ export function ZoneShapes({ zone, fraction, view, selected }: { zone: SceneZone
   return (
     <G pointerEvents="none">
       <Path d={d} fill={colours.fill} fillOpacity={0.55} stroke="none" />
-      <Path d={d} fill="none" stroke={selected ? palette.beacon : colours.stroke} strokeWidth={selected ? 4 : 2.5} strokeDasharray={selected ? undefined : '10 4'} />
+      <Path
+        d={d}
+        fill="none"
+        stroke={selected ? palette.beacon : colours.stroke}
+        strokeWidth={selected ? 4 : 2.5}
+        strokeDasharray={selected ? undefined : '10 4'}
+      />
     </G>
   );
 }
 
 export function ZoneGap({ d }: { d: string }) {
-  return d ? <Path pointerEvents="none" d={d} fill={`url(#${GAP_HATCH_ID})`} fillRule="evenodd" stroke={palette.stop} strokeWidth={1} strokeOpacity={0.6} /> : null;
+  return d ? (
+    <Path
+      pointerEvents="none"
+      d={d}
+      fill={`url(#${GAP_HATCH_ID})`}
+      fillRule="evenodd"
+      stroke={palette.stop}
+      strokeWidth={1}
+      strokeOpacity={0.6}
+    />
+  ) : null;
 }
 
 export function ZoneLabel({ zone, fraction, view }: { zone: SceneZone; fraction: number; view: PlanView }) {
@@ -98,20 +146,46 @@ export function ZoneLabel({ zone, fraction, view }: { zone: SceneZone; fraction:
   return (
     <G>
       <LabelPlate x={x} y={cy - 4} width={width} lines={2} />
-      <SvgText pointerEvents="none" testID={`zone-label-${zone.id}`} x={x} y={cy - 4} fontFamily={fonts.semibold} fontSize={13} fill={palette.asphalt}>
+      <SvgText
+        pointerEvents="none"
+        testID={`zone-label-${zone.id}`}
+        x={x}
+        y={cy - 4}
+        fontFamily={fonts.semibold}
+        fontSize={13}
+        fill={palette.asphalt}
+      >
         <TSpan>{`${name} · `}</TSpan>
         <TSpan testID={`zone-pct-${zone.id}`} fontFamily={fonts.bold} fill={bandColours[band].text}>
           {pct}
         </TSpan>
       </SvgText>
-      <SvgText pointerEvents="none" testID={`zone-quality-${zone.id}`} x={x} y={cy + 12} fontFamily={fonts.medium} fontSize={12} fill={bandColours[band].text}>
+      <SvgText
+        pointerEvents="none"
+        testID={`zone-quality-${zone.id}`}
+        x={x}
+        y={cy + 12}
+        fontFamily={fonts.medium}
+        fontSize={12}
+        fill={bandColours[band].text}
+      >
         {second}
       </SvgText>
     </G>
   );
 }
 
-export const CoverageLayer = memo(function CoverageLayer({ placementId, evaluated, view, selected }: { placementId: number; evaluated: EvaluatedPlacement | undefined; view: PlanView; selected: boolean }) {
+export const CoverageLayer = memo(function CoverageLayer({
+  placementId,
+  evaluated,
+  view,
+  selected,
+}: {
+  placementId: number;
+  evaluated: EvaluatedPlacement | undefined;
+  view: PlanView;
+  selected: boolean;
+}) {
   const d = evaluated?.coverage ? multiPolygonToPath(view, evaluated.coverage.region) : '';
   return (
     <Path
@@ -128,21 +202,45 @@ export const CoverageLayer = memo(function CoverageLayer({ placementId, evaluate
   );
 });
 
-export const ViewerMarker = memo(function ViewerMarker({ viewer, view, selected }: { viewer: SceneViewer; view: PlanView; selected: boolean }) {
+export const ViewerMarker = memo(function ViewerMarker({
+  viewer,
+  view,
+  selected,
+}: {
+  viewer: SceneViewer;
+  view: PlanView;
+  selected: boolean;
+}) {
   const [x, y] = toScreen(view, viewer.positionM);
   const r = MARKER_RADIUS_PX;
   // An almond eye: two arcs meeting at the corners, a pupil in the middle.
   const eye = `M${x - 10} ${y}Q${x} ${y - 9} ${x + 10} ${y}Q${x} ${y + 9} ${x - 10} ${y}Z`;
   return (
     <G>
-      <Circle testID={`viewer-marker-${viewer.id}`} cx={x} cy={y} r={r} fill={palette.sheet} stroke={selected ? palette.beacon : palette.asphalt} strokeWidth={selected ? 4 : 2} />
+      <Circle
+        testID={`viewer-marker-${viewer.id}`}
+        cx={x}
+        cy={y}
+        r={r}
+        fill={palette.sheet}
+        stroke={selected ? palette.beacon : palette.asphalt}
+        strokeWidth={selected ? 4 : 2}
+      />
       <Path pointerEvents="none" d={eye} fill="none" stroke={palette.asphalt} strokeWidth={1.8} />
       <Circle pointerEvents="none" cx={x} cy={y} r={3.2} fill={palette.asphalt} />
       {/* Names crowd the zone labels when zoomed far out; the selected one always shows. */}
       {selected || view.scale >= NAME_MIN_SCALE ? (
         <G>
           <LabelPlate x={x - approxWidth(viewer.name, 6.6) / 2} y={y + r + 15} width={approxWidth(viewer.name, 6.6)} lines={1} />
-          <SvgText pointerEvents="none" x={x} y={y + r + 15} textAnchor="middle" fontFamily={fonts.medium} fontSize={12} fill={palette.asphalt}>
+          <SvgText
+            pointerEvents="none"
+            x={x}
+            y={y + r + 15}
+            textAnchor="middle"
+            fontFamily={fonts.medium}
+            fontSize={12}
+            fill={palette.asphalt}
+          >
             {viewer.name}
           </SvgText>
         </G>
@@ -179,7 +277,15 @@ export const PlacementMarker = memo(function PlacementMarker({
   const labelY = back[1] + 5 - 8 * Math.sin(placement.azimuthRad + Math.PI);
   return (
     <G>
-      <Circle testID={`placement-marker-${placement.id}`} cx={p[0]} cy={p[1]} r={r} fill={palette.glassSoft} stroke={selected ? palette.beacon : palette.glass} strokeWidth={selected ? 4 : 2} />
+      <Circle
+        testID={`placement-marker-${placement.id}`}
+        cx={p[0]}
+        cy={p[1]}
+        r={r}
+        fill={palette.glassSoft}
+        stroke={selected ? palette.beacon : palette.glass}
+        strokeWidth={selected ? 4 : 2}
+      />
       <Line pointerEvents="none" x1={p[0]} y1={p[1]} x2={tip[0]} y2={tip[1]} stroke={palette.glass} strokeWidth={2} />
       <Path pointerEvents="none" d={face} fill="none" stroke={palette.glass} strokeWidth={4} strokeLinecap="round" />
       <LabelPlate x={labelX} y={labelY} width={labelW} lines={1} />
@@ -188,9 +294,23 @@ export const PlacementMarker = memo(function PlacementMarker({
       </SvgText>
       {problemLines.length > 0 ? (
         <G testID={`placement-problem-${placement.id}`}>
-          <LabelPlate x={p[0] + r + 4} y={p[1] + 14} width={Math.max(...problemLines.map((l) => approxWidth(l, 6.4)))} lines={problemLines.length} lineHeight={15} />
+          <LabelPlate
+            x={p[0] + r + 4}
+            y={p[1] + 14}
+            width={Math.max(...problemLines.map((l) => approxWidth(l, 6.4)))}
+            lines={problemLines.length}
+            lineHeight={15}
+          />
           {problemLines.map((line, i) => (
-            <SvgText pointerEvents="none" key={i} x={p[0] + r + 4} y={p[1] + 14 + i * 15} fontFamily={fonts.medium} fontSize={12} fill={palette.stop}>
+            <SvgText
+              pointerEvents="none"
+              key={i}
+              x={p[0] + r + 4}
+              y={p[1] + 14 + i * 15}
+              fontFamily={fonts.medium}
+              fontSize={12}
+              fill={palette.stop}
+            >
               {line}
             </SvgText>
           ))}
@@ -204,7 +324,16 @@ export function AimHandle({ from, azimuthRad }: { from: PairM; azimuthRad: numbe
   const end = alongAzimuth(from, azimuthRad, AIM_HANDLE_PX);
   return (
     <G>
-      <Line pointerEvents="none" x1={from[0]} y1={from[1]} x2={end[0]} y2={end[1]} stroke={palette.asphalt} strokeWidth={2} strokeDasharray="4 3" />
+      <Line
+        pointerEvents="none"
+        x1={from[0]}
+        y1={from[1]}
+        x2={end[0]}
+        y2={end[1]}
+        stroke={palette.asphalt}
+        strokeWidth={2}
+        strokeDasharray="4 3"
+      />
       <Circle testID="aim-handle" cx={end[0]} cy={end[1]} r={13} fill={palette.beacon} stroke={palette.asphalt} strokeWidth={2.5} />
       <Circle pointerEvents="none" cx={end[0]} cy={end[1]} r={3} fill={palette.asphalt} />
     </G>
@@ -212,7 +341,19 @@ export function AimHandle({ from, azimuthRad }: { from: PairM; azimuthRad: numbe
 }
 
 export function Sightline({ from, to }: { from: PairM; to: PairM }) {
-  return <Line pointerEvents="none" x1={from[0]} y1={from[1]} x2={to[0]} y2={to[1]} stroke={palette.asphalt} strokeWidth={1.6} strokeDasharray="2 5" strokeLinecap="round" />;
+  return (
+    <Line
+      pointerEvents="none"
+      x1={from[0]}
+      y1={from[1]}
+      x2={to[0]}
+      y2={to[1]}
+      stroke={palette.asphalt}
+      strokeWidth={1.6}
+      strokeDasharray="2 5"
+      strokeLinecap="round"
+    />
+  );
 }
 
 /** Points of a zone or wall being drawn, joined in order. */
@@ -222,7 +363,14 @@ export function DraftShape({ points, closed, view }: { points: readonly PairM[];
   const d = screen.map((p, i) => `${i === 0 ? 'M' : 'L'}${p[0]} ${p[1]}`).join('') + (closed && points.length > 2 ? 'Z' : '');
   return (
     <G testID="plan-draft" pointerEvents="none">
-      <Path d={d} fill={closed ? palette.beaconSoft : 'none'} fillOpacity={0.6} stroke={palette.beaconPressed} strokeWidth={3} strokeDasharray="6 4" />
+      <Path
+        d={d}
+        fill={closed ? palette.beaconSoft : 'none'}
+        fillOpacity={0.6}
+        stroke={palette.beaconPressed}
+        strokeWidth={3}
+        strokeDasharray="6 4"
+      />
       {screen.map((p, i) => (
         <Circle key={i} cx={p[0]} cy={p[1]} r={6} fill={palette.beacon} stroke={palette.asphalt} strokeWidth={2} />
       ))}

@@ -24,7 +24,10 @@ export interface PlanSheetProps {
 }
 
 /** The collapsed strip's two lines: what is selected, and the numbers a person glances at. */
-export function sheetSummary(p: Pick<PlanSheetProps, 'selection' | 'placement' | 'scene' | 'evaluation' | 'units'>): { title: string; numbers: string } {
+export function sheetSummary(p: Pick<PlanSheetProps, 'selection' | 'placement' | 'scene' | 'evaluation' | 'units'>): {
+  title: string;
+  numbers: string;
+} {
   const zones = p.scene.zones
     .map((z) => {
       const ev = p.evaluation?.zones.find((e) => e.zoneId === z.id);
@@ -92,8 +95,21 @@ export function PlanSheet(p: PlanSheetProps) {
 }
 
 const styles = StyleSheet.create({
-  sheet: { backgroundColor: palette.sheet, borderTopLeftRadius: radii.lg, borderTopRightRadius: radii.lg, borderTopWidth: 2, borderColor: palette.asphalt, boxShadow: '0 -4px 14px rgba(20,32,43,0.14)' },
-  strip: { minHeight: layout.minTarget + 12, paddingHorizontal: spacing.lg, paddingTop: spacing.xs, paddingBottom: spacing.sm, gap: spacing.xs },
+  sheet: {
+    backgroundColor: palette.sheet,
+    borderTopLeftRadius: radii.lg,
+    borderTopRightRadius: radii.lg,
+    borderTopWidth: 2,
+    borderColor: palette.asphalt,
+    boxShadow: '0 -4px 14px rgba(20,32,43,0.14)',
+  },
+  strip: {
+    minHeight: layout.minTarget + 12,
+    paddingHorizontal: spacing.lg,
+    paddingTop: spacing.xs,
+    paddingBottom: spacing.sm,
+    gap: spacing.xs,
+  },
   stripPressed: { backgroundColor: palette.chalk },
   grip: { alignSelf: 'center', width: 44, height: 5, borderRadius: 3, backgroundColor: palette.rule },
   stripRow: { flexDirection: 'row', alignItems: 'center', gap: spacing.md },

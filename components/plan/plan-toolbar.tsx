@@ -54,42 +54,68 @@ export function PlanToolbar(p: PlanToolbarProps) {
   return (
     <View style={styles.wrap} pointerEvents="box-none">
       {p.tool !== 'select' ? (
-      <View style={styles.context} testID="plan-tool-context">
-        <AppText variant="small" tone="muted" style={styles.hint} testID="plan-tool-hint">
-          {p.tool === 'zone' && p.zonePoints > 0 ? `${p.zonePoints} corner${p.zonePoints === 1 ? '' : 's'} placed. ${HINTS.zone}` : HINTS[p.tool]}
-        </AppText>
-        {p.tool === 'zone' ? (
-          <View style={styles.row}>
-            <Button label="Finish zone" testID="plan-zone-finish" onPress={p.onFinishZone} disabled={p.zonePoints < 3} />
-            {p.zonePoints > 0 ? <Button label="Cancel" variant="quiet" testID="plan-draft-cancel" onPress={p.onCancelDraft} /> : null}
-          </View>
-        ) : null}
-        {p.tool === 'wall' ? (
-          <Segmented<SceneWall['kind']>
-            label="Kind of wall"
-            value={p.wallKind}
-            onChange={p.onWallKind}
-            compact
-            options={[
-              { value: 'wall', label: 'Wall', testID: 'plan-wall-kind-wall' },
-              { value: 'racking', label: 'Racking', testID: 'plan-wall-kind-racking' },
-              { value: 'door', label: 'Door', testID: 'plan-wall-kind-door' },
-            ]}
-          />
-        ) : null}
-      </View>
+        <View style={styles.context} testID="plan-tool-context">
+          <AppText variant="small" tone="muted" style={styles.hint} testID="plan-tool-hint">
+            {p.tool === 'zone' && p.zonePoints > 0
+              ? `${p.zonePoints} corner${p.zonePoints === 1 ? '' : 's'} placed. ${HINTS.zone}`
+              : HINTS[p.tool]}
+          </AppText>
+          {p.tool === 'zone' ? (
+            <View style={styles.row}>
+              <Button label="Finish zone" testID="plan-zone-finish" onPress={p.onFinishZone} disabled={p.zonePoints < 3} />
+              {p.zonePoints > 0 ? <Button label="Cancel" variant="quiet" testID="plan-draft-cancel" onPress={p.onCancelDraft} /> : null}
+            </View>
+          ) : null}
+          {p.tool === 'wall' ? (
+            <Segmented<SceneWall['kind']>
+              label="Kind of wall"
+              value={p.wallKind}
+              onChange={p.onWallKind}
+              compact
+              options={[
+                { value: 'wall', label: 'Wall', testID: 'plan-wall-kind-wall' },
+                { value: 'racking', label: 'Racking', testID: 'plan-wall-kind-racking' },
+                { value: 'door', label: 'Door', testID: 'plan-wall-kind-door' },
+              ]}
+            />
+          ) : null}
+        </View>
       ) : null}
       <View style={styles.bar} role="toolbar" aria-label="Plan tools">
         {TOOLS.map((t) => (
           <ToolButton key={t.tool} {...t} active={p.tool === t.tool} onPress={() => p.onTool(t.tool)} />
         ))}
-        <ToolButton tool="delete" label="Delete" a11y="Delete the selected item" active={false} disabled={!p.canDelete || p.busy} danger onPress={p.onDelete} />
+        <ToolButton
+          tool="delete"
+          label="Delete"
+          a11y="Delete the selected item"
+          active={false}
+          disabled={!p.canDelete || p.busy}
+          danger
+          onPress={p.onDelete}
+        />
       </View>
     </View>
   );
 }
 
-function ToolButton({ tool, label, a11y, active, onPress, disabled, danger }: { tool: PlanTool | 'delete'; label: string; a11y: string; active: boolean; onPress: () => void; disabled?: boolean; danger?: boolean }) {
+function ToolButton({
+  tool,
+  label,
+  a11y,
+  active,
+  onPress,
+  disabled,
+  danger,
+}: {
+  tool: PlanTool | 'delete';
+  label: string;
+  a11y: string;
+  active: boolean;
+  onPress: () => void;
+  disabled?: boolean;
+  danger?: boolean;
+}) {
   const { focusVisible, onFocus, onBlur } = useFocusVisible();
   return (
     <Pressable
@@ -102,9 +128,19 @@ function ToolButton({ tool, label, a11y, active, onPress, disabled, danger }: { 
       onPress={onPress}
       onFocus={onFocus}
       onBlur={onBlur}
-      style={({ hovered, pressed }) => [styles.tool, (hovered || pressed) && !active && styles.toolHover, active && styles.toolActive, disabled && styles.toolDisabled, focusVisible && styles.focus]}
+      style={({ hovered, pressed }) => [
+        styles.tool,
+        (hovered || pressed) && !active && styles.toolHover,
+        active && styles.toolActive,
+        disabled && styles.toolDisabled,
+        focusVisible && styles.focus,
+      ]}
     >
-      <AppText variant="label" numberOfLines={1} style={[styles.toolText, active && styles.toolTextActive, danger && !disabled && styles.toolTextDanger]}>
+      <AppText
+        variant="label"
+        numberOfLines={1}
+        style={[styles.toolText, active && styles.toolTextActive, danger && !disabled && styles.toolTextDanger]}
+      >
         {label}
       </AppText>
     </Pressable>
@@ -113,11 +149,27 @@ function ToolButton({ tool, label, a11y, active, onPress, disabled, danger }: { 
 
 const styles = StyleSheet.create({
   wrap: { gap: spacing.sm },
-  context: { backgroundColor: palette.sheet, borderRadius: radii.md, borderWidth: 1, borderColor: palette.rule, padding: spacing.sm, gap: spacing.sm, ...shadow },
+  context: {
+    backgroundColor: palette.sheet,
+    borderRadius: radii.md,
+    borderWidth: 1,
+    borderColor: palette.rule,
+    padding: spacing.sm,
+    gap: spacing.sm,
+    ...shadow,
+  },
   hint: { paddingHorizontal: spacing.xs },
   row: { flexDirection: 'row', gap: spacing.sm, alignItems: 'center' },
   bar: { flexDirection: 'row', backgroundColor: palette.asphalt, borderRadius: radii.md, padding: 3, gap: 3, ...shadow },
-  tool: { flex: 1, minHeight: layout.minTarget, minWidth: 52, borderRadius: radii.sm, alignItems: 'center', justifyContent: 'center', paddingHorizontal: spacing.xs },
+  tool: {
+    flex: 1,
+    minHeight: layout.minTarget,
+    minWidth: 52,
+    borderRadius: radii.sm,
+    alignItems: 'center',
+    justifyContent: 'center',
+    paddingHorizontal: spacing.xs,
+  },
   toolHover: { backgroundColor: palette.asphaltRaised },
   toolActive: { backgroundColor: palette.beacon },
   toolDisabled: { opacity: 0.45 },
@@ -125,5 +177,13 @@ const styles = StyleSheet.create({
   toolText: { color: palette.onAsphalt, fontSize: 15 },
   toolTextActive: { color: palette.asphalt },
   toolTextDanger: { color: palette.stopSoft },
-  readOnly: { backgroundColor: palette.sheet, borderRadius: radii.md, borderWidth: 2, borderColor: palette.glass, padding: spacing.md, gap: spacing.xs, ...shadow },
+  readOnly: {
+    backgroundColor: palette.sheet,
+    borderRadius: radii.md,
+    borderWidth: 2,
+    borderColor: palette.glass,
+    padding: spacing.md,
+    gap: spacing.xs,
+    ...shadow,
+  },
 });

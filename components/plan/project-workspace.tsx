@@ -36,7 +36,14 @@ export interface ProjectWorkspaceProps {
 
 export function ProjectWorkspace({ projectId, project, catalogue }: ProjectWorkspaceProps) {
   if (!Number.isInteger(projectId) || projectId <= 0) {
-    return <CenteredMessage title="No such project" body="The address does not name a project." titleTestID="project-title" action={<TextLink href="/projects" label="Back to projects" testID="project-back" />} />;
+    return (
+      <CenteredMessage
+        title="No such project"
+        body="The address does not name a project."
+        titleTestID="project-title"
+        action={<TextLink href="/projects" label="Back to projects" testID="project-back" />}
+      />
+    );
   }
   const failed = project.error ?? catalogue.error;
   if (failed) {
@@ -92,11 +99,15 @@ function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: Cat
     setLocalProblem(null);
     // The project's limits, said before sending what the server would refuse.
     const full =
-      tool === 'mirror' ? limitProblem('mirror', base, edits.placements.length)
-      : tool === 'viewer' ? limitProblem('viewer', base, 0)
-      : tool === 'wall' && draft.length === 0 ? limitProblem('wall', base, 0)
-      : tool === 'zone' ? (draft.length === 0 ? limitProblem('zone', base, 0) : null) ?? limitProblem('zoneCorner', base, 0, draft.length)
-      : null;
+      tool === 'mirror'
+        ? limitProblem('mirror', base, edits.placements.length)
+        : tool === 'viewer'
+          ? limitProblem('viewer', base, 0)
+          : tool === 'wall' && draft.length === 0
+            ? limitProblem('wall', base, 0)
+            : tool === 'zone'
+              ? ((draft.length === 0 ? limitProblem('zone', base, 0) : null) ?? limitProblem('zoneCorner', base, 0, draft.length))
+              : null;
     if (full) return setLocalProblem(full);
     if (tool === 'mirror') {
       const body = newMirrorBody(pointM, catalogue, base.viewers, edits.placements.length);
@@ -119,7 +130,8 @@ function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: Cat
       if (draft.length === 0) return setDraft([pointM]);
       const a = draft[0];
       setDraft([]);
-      if (Math.hypot(pointM[0] - a[0], pointM[1] - a[1]) < 0.05) return setLocalProblem('The two ends are too close; tap the second end farther away.');
+      if (Math.hypot(pointM[0] - a[0], pointM[1] - a[1]) < 0.05)
+        return setLocalProblem('The two ends are too close; tap the second end farther away.');
       const wall: SceneWall = { id: newSceneId('w'), kind: wallKind, aM: a, bM: pointM, heightM: WALL_HEIGHT_M[wallKind] };
       void edits.saveScene({ ...base, walls: [...base.walls, wall] });
     }
@@ -127,7 +139,8 @@ function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: Cat
 
   const finishZone = () => {
     if (draft.length < 3) return;
-    if (!isSimpleRing(draft)) return setLocalProblem('The outline crosses itself; tap Cancel and draw the corners in order around the zone.');
+    if (!isSimpleRing(draft))
+      return setLocalProblem('The outline crosses itself; tap Cancel and draw the corners in order around the zone.');
     setZonePrompt(draft);
   };
 
@@ -147,10 +160,16 @@ function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: Cat
         if (!d.done) return edits.setLive({ kind: 'viewer', id: d.id, positionM: d.positionM });
         edits.setLive(null);
         const positionM: PairM = [roundM(d.positionM[0]), roundM(d.positionM[1])];
-        void edits.saveScene({ ...edits.baseScene, viewers: edits.baseScene.viewers.map((v) => (v.id === d.id ? { ...v, positionM } : v)) });
+        void edits.saveScene({
+          ...edits.baseScene,
+          viewers: edits.baseScene.viewers.map((v) => (v.id === d.id ? { ...v, positionM } : v)),
+        });
         return;
       }
-      const patch = d.kind === 'placement-move' ? { positionM: [roundM(d.positionM[0]), roundM(d.positionM[1])] as PairM } : { azimuthRad: Math.round(d.azimuthRad * 1e4) / 1e4 };
+      const patch =
+        d.kind === 'placement-move'
+          ? { positionM: [roundM(d.positionM[0]), roundM(d.positionM[1])] as PairM }
+          : { azimuthRad: Math.round(d.azimuthRad * 1e4) / 1e4 };
       if (!d.done) return edits.setLive({ kind: 'placement', id: d.id, patch });
       edits.setLive(null);
       void edits.savePlacement(d.id, patch);
@@ -274,7 +293,9 @@ function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: Cat
       />
       <View style={[styles.overlayTop, wide && styles.overlayTopWide]} pointerEvents="box-none">
         {banner}
-        {zonePrompt ? <ZoneNamePrompt defaultName={`Zone ${base.zones.length + 1}`} onSave={saveZone} onCancel={() => setZonePrompt(null)} /> : null}
+        {zonePrompt ? (
+          <ZoneNamePrompt defaultName={`Zone ${base.zones.length + 1}`} onSave={saveZone} onCancel={() => setZonePrompt(null)} />
+        ) : null}
       </View>
       {/* With the sheet open the plan strip is short; the tools come back when it closes. */}
       {wide || !sheetOpen ? (
@@ -326,7 +347,15 @@ function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: Cat
       <PageTitle title={project.name} />
       {header}
       {plan}
-      <PlanSheet open={sheetOpen} onToggle={() => setSheetOpen((o) => !o)} selection={selection} placement={selectedPlacement} scene={edits.scene} evaluation={evaluation} units={units}>
+      <PlanSheet
+        open={sheetOpen}
+        onToggle={() => setSheetOpen((o) => !o)}
+        selection={selection}
+        placement={selectedPlacement}
+        scene={edits.scene}
+        evaluation={evaluation}
+        units={units}
+      >
         {details}
       </PlanSheet>
     </View>
@@ -337,7 +366,16 @@ const styles = StyleSheet.create({
   wideRoot: { flex: 1, flexDirection: 'row', backgroundColor: palette.chalk },
   wideMain: { flex: 1 },
   phoneRoot: { flex: 1, backgroundColor: palette.chalk },
-  header: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, paddingHorizontal: spacing.sm, minHeight: layout.minTarget, backgroundColor: palette.chalk, borderBottomWidth: 1, borderBottomColor: palette.ruleSoft },
+  header: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: spacing.sm,
+    paddingHorizontal: spacing.sm,
+    minHeight: layout.minTarget,
+    backgroundColor: palette.chalk,
+    borderBottomWidth: 1,
+    borderBottomColor: palette.ruleSoft,
+  },
   headerWide: { paddingHorizontal: spacing.lg, paddingVertical: spacing.sm },
   headerMain: { flex: 1, minWidth: 0 },
   planArea: { flex: 1, position: 'relative' },

@@ -8,7 +8,15 @@ import type { GestureResponderEvent, View } from 'react-native';
 import { flushFrame } from './flush-frame';
 import { markRecomputeStart } from './perf-marks';
 import { asDom } from './plan-dom';
-import { endGesture, moveGesture, startGesture, type Gesture, type GestureContext, type GestureEffect, type PlanDrag } from './plan-gesture';
+import {
+  endGesture,
+  moveGesture,
+  startGesture,
+  type Gesture,
+  type GestureContext,
+  type GestureEffect,
+  type PlanDrag,
+} from './plan-gesture';
 import type { PairM, PlanView } from './plan-view';
 import type { PlanSelection } from './plan-types';
 

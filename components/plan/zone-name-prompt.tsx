@@ -7,7 +7,17 @@ import { unprintableMessage } from '@/shared/text/printable';
 export type NewZoneTarget = 'adult' | 'child';
 
 /** Names a zone just drawn; the default "Zone N" is fine to keep. */
-export function ZoneNamePrompt({ defaultName, error, onSave, onCancel }: { defaultName: string; error?: string; onSave: (name: string, target: NewZoneTarget) => void; onCancel: () => void }) {
+export function ZoneNamePrompt({
+  defaultName,
+  error,
+  onSave,
+  onCancel,
+}: {
+  defaultName: string;
+  error?: string;
+  onSave: (name: string, target: NewZoneTarget) => void;
+  onCancel: () => void;
+}) {
   const [name, setName] = useState(defaultName);
   const [target, setTarget] = useState<NewZoneTarget>('adult');
   const trimmed = name.trim();
@@ -44,6 +54,14 @@ export function ZoneNamePrompt({ defaultName, error, onSave, onCancel }: { defau
 }
 
 const styles = StyleSheet.create({
-  card: { backgroundColor: palette.sheet, borderRadius: radii.lg, borderWidth: 2, borderColor: palette.asphalt, padding: spacing.lg, gap: spacing.md, ...shadow },
+  card: {
+    backgroundColor: palette.sheet,
+    borderRadius: radii.lg,
+    borderWidth: 2,
+    borderColor: palette.asphalt,
+    padding: spacing.lg,
+    gap: spacing.md,
+    ...shadow,
+  },
   row: { flexDirection: 'row', gap: spacing.sm, alignItems: 'center' },
 });

@@ -34,7 +34,13 @@ export const projectSchema = yup.object({
 });
 
 export function toCreateBody(v: ProjectFormValues): CreateProjectBody {
-  return { name: v.name.trim(), customer: v.customer.trim(), site: v.site.trim(), units: v.units === 'mine' ? null : v.units, notes: v.notes };
+  return {
+    name: v.name.trim(),
+    customer: v.customer.trim(),
+    site: v.site.trim(),
+    units: v.units === 'mine' ? null : v.units,
+    notes: v.notes,
+  };
 }
 
 export interface ProjectFormProps {
@@ -106,14 +112,7 @@ export function ProjectForm({ onSubmit, myUnits }: ProjectFormProps) {
                 ]}
               />
             </View>
-            <FormikTextField
-              form={form}
-              name="notes"
-              label="Notes"
-              testID="project-form-notes"
-              multiline
-              numberOfLines={4}
-            />
+            <FormikTextField form={form} name="notes" label="Notes" testID="project-form-notes" multiline numberOfLines={4} />
             <FormFooter
               status={form.status}
               errorTestID="project-form-error"

@@ -17,9 +17,7 @@ export function ProjectsEmpty({ role }: { role: Role }) {
             ? 'Each job you take on will be listed here: a site plan or a vehicle outline, the mirrors you mount on it, and where it stands in review. Start one with “New project”.'
             : "Your organisation's installers have no jobs yet. Each site or vehicle they fit with mirrors will be listed here, to read and review."
         }
-        next={
-          <TextLink href="/account" testID="projects-go-account" label="Meanwhile, set metric or imperial units on your account" />
-        }
+        next={<TextLink href="/account" testID="projects-go-account" label="Meanwhile, set metric or imperial units on your account" />}
       />
       <Card title="What a project will hold">
         <Bullet text="The place: a site plan with walls, racking and the zones that must be seen, or a vehicle with its driver's eye point." />
@@ -55,6 +53,14 @@ function PlanArt() {
 const styles = StyleSheet.create({
   column: { gap: spacing.xl },
   bullet: { flexDirection: 'row', gap: spacing.md, alignItems: 'flex-start' },
-  dot: { width: 8, height: 8, borderRadius: 4, backgroundColor: palette.beacon, borderWidth: 1, borderColor: palette.asphalt, marginTop: 9 },
+  dot: {
+    width: 8,
+    height: 8,
+    borderRadius: 4,
+    backgroundColor: palette.beacon,
+    borderWidth: 1,
+    borderColor: palette.asphalt,
+    marginTop: 9,
+  },
   bulletText: { flex: 1 },
 });

@@ -34,7 +34,9 @@ export function revisionText(status: SheetStatusDto | undefined): string {
   const last = status.revisions[0];
   if (!last) return 'No sheet issued yet. Downloading or e-mailing it issues revision 1.';
   const issued = `Last issued: revision ${last.number}, ${last.issuedAt.slice(0, 10)}, by ${last.issuedBy}.`;
-  return status.current.changedSinceLast ? `${issued} The project has changed since; the next sheet will be revision ${status.current.number}.` : issued;
+  return status.current.changedSinceLast
+    ? `${issued} The project has changed since; the next sheet will be revision ${status.current.number}.`
+    : issued;
 }
 
 export interface SheetActionsProps {
@@ -71,7 +73,13 @@ export function SheetActions({ projectId, canEdit }: SheetActionsProps) {
           ? 'A PDF for the safety officer to sign and the buyer to attach to a purchase request.'
           : 'A PDF of this project as it stands; only the installer can change what is on it.'}
       </AppText>
-      <Button label={preparing ? 'Preparing the sheet\u2026' : 'Download sheet'} testID="sheet-download" onPress={onDownload} busy={preparing} variant="secondary" />
+      <Button
+        label={preparing ? 'Preparing the sheet\u2026' : 'Download sheet'}
+        testID="sheet-download"
+        onPress={onDownload}
+        busy={preparing}
+        variant="secondary"
+      />
       {failed ? (
         <Notice tone="stop" testID="sheet-download-error">
           {describeError(failed)}
@@ -141,7 +149,12 @@ export function SheetActions({ projectId, canEdit }: SheetActionsProps) {
                   {formStatus.done}
                 </Notice>
               ) : null}
-              <Button label={form.isSubmitting ? 'Sending\u2026' : 'E-mail sheet'} testID="sheet-email-submit" onPress={() => form.handleSubmit()} busy={form.isSubmitting} />
+              <Button
+                label={form.isSubmitting ? 'Sending\u2026' : 'E-mail sheet'}
+                testID="sheet-email-submit"
+                onPress={() => form.handleSubmit()}
+                busy={form.isSubmitting}
+              />
             </FormFrame>
           );
         }}

@@ -27,7 +27,11 @@ export function AppShell({ user, pathname, children }: AppShellProps) {
   if (wide) {
     return (
       <View style={styles.wideRoot}>
-        <View style={[styles.rail, { paddingTop: insets.top + spacing.xl, paddingBottom: insets.bottom + spacing.lg }]} role="navigation" aria-label="Sections">
+        <View
+          style={[styles.rail, { paddingTop: insets.top + spacing.xl, paddingBottom: insets.bottom + spacing.lg }]}
+          role="navigation"
+          aria-label="Sections"
+        >
           <View style={styles.railBrand}>
             <Wordmark onDark />
           </View>

@@ -32,7 +32,12 @@ export function NavLink({ item, active, shape }: NavLinkProps) {
         onFocus={onFocus}
         onBlur={onBlur}
         // Link's Slot needs one flat style object (expo-router refuses arrays there).
-        style={StyleSheet.flatten([shape === 'rail' ? styles.rail : styles.tab, hovered && !active && styles.hovered, active && shape === 'rail' && styles.railActive, focusVisible && styles.focused])}
+        style={StyleSheet.flatten([
+          shape === 'rail' ? styles.rail : styles.tab,
+          hovered && !active && styles.hovered,
+          active && shape === 'rail' && styles.railActive,
+          focusVisible && styles.focused,
+        ])}
       >
         {shape === 'tab' ? <View style={[styles.tabMarker, active && styles.tabMarkerActive]} /> : null}
         <NavIcon name={item.key} color={iconColor} size={shape === 'rail' ? 24 : 26} />

@@ -22,7 +22,18 @@ export interface ButtonProps {
   block?: boolean;
 }
 
-export function Button({ label, onPress, testID, variant = 'primary', accessibilityLabel, disabled, busy, icon, style, block }: ButtonProps) {
+export function Button({
+  label,
+  onPress,
+  testID,
+  variant = 'primary',
+  accessibilityLabel,
+  disabled,
+  busy,
+  icon,
+  style,
+  block,
+}: ButtonProps) {
   const inactive = Boolean(disabled || busy);
   const { focusVisible, onFocus, onBlur } = useFocusVisible();
   return (

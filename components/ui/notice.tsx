@@ -15,7 +15,13 @@ export interface NoticeProps {
 export function Notice({ tone, children, testID }: NoticeProps) {
   return (
     <View style={[styles.band, bandStyles[tone]]} testID={testID} role={tone === 'stop' ? 'alert' : 'status'} aria-live="polite">
-      {typeof children === 'string' ? <AppText variant="bodyStrong" tone={textTone[tone]}>{children}</AppText> : children}
+      {typeof children === 'string' ? (
+        <AppText variant="bodyStrong" tone={textTone[tone]}>
+          {children}
+        </AppText>
+      ) : (
+        children
+      )}
     </View>
   );
 }

@@ -49,7 +49,8 @@ function parseValue(text: string, kind: NumberFieldKind, units: UnitSystem): { o
 
 function unitHint(kind: NumberFieldKind, units: UnitSystem): string {
   if (kind === 'angle') return 'Degrees.';
-  if (units === 'metric') return kind === 'size' ? 'Millimetres unless you type a unit (also "24 in").' : 'Metres unless you type a unit (also "10 ft 6 in").';
+  if (units === 'metric')
+    return kind === 'size' ? 'Millimetres unless you type a unit (also "24 in").' : 'Metres unless you type a unit (also "10 ft 6 in").';
   return kind === 'size' ? 'Inches unless you type a unit (also "600 mm").' : 'Feet unless you type a unit (also "3.2 m").';
 }
 
@@ -58,7 +59,24 @@ function unitHint(kind: NumberFieldKind, units: UnitSystem): string {
  * text the person typed is kept as typed while they edit (never rewritten under their thumb); it
  * is tidied into the current units only on blur or when the value changes from outside.
  */
-export function NumberField({ name, label, testID, units, kind, value, onChangeValue, onCommitted, error, hint, editable = true, step, min, max, precision, required = true }: NumberFieldProps) {
+export function NumberField({
+  name,
+  label,
+  testID,
+  units,
+  kind,
+  value,
+  onChangeValue,
+  onCommitted,
+  error,
+  hint,
+  editable = true,
+  step,
+  min,
+  max,
+  precision,
+  required = true,
+}: NumberFieldProps) {
   const [text, setText] = useState(() => formatValue(value, kind, units, precision));
   const [parseError, setParseError] = useState<string | undefined>();
   const focused = useRef(false);

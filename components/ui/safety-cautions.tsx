@@ -39,6 +39,14 @@ const styles = StyleSheet.create({
   compact: { padding: spacing.md, gap: spacing.xs },
   row: { flexDirection: 'row', gap: spacing.sm, alignItems: 'flex-start' },
   // A small amber-on-asphalt diamond: reads as "caution" without borrowing any standard sign.
-  mark: { width: 9, height: 9, marginTop: 8, backgroundColor: palette.beacon, borderWidth: 1.5, borderColor: palette.asphalt, transform: [{ rotate: '45deg' }] },
+  mark: {
+    width: 9,
+    height: 9,
+    marginTop: 8,
+    backgroundColor: palette.beacon,
+    borderWidth: 1.5,
+    borderColor: palette.asphalt,
+    transform: [{ rotate: '45deg' }],
+  },
   text: { flex: 1 },
 });

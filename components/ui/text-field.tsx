@@ -16,7 +16,10 @@ export interface TextFieldProps extends Omit<TextInputProps, 'style' | 'id' | 'n
  * A labelled input with its message right under it. The label and message are tied to the input
  * by id (aria-labelledby / aria-describedby), so screen readers and `getByLabelText` find them.
  */
-export const TextField = forwardRef<TextInput, TextFieldProps>(function TextField({ name, label, testID, error, hint, onFocus, onBlur, ...inputProps }, ref) {
+export const TextField = forwardRef<TextInput, TextFieldProps>(function TextField(
+  { name, label, testID, error, hint, onFocus, onBlur, ...inputProps },
+  ref,
+) {
   // A strong focus border: the browser's thin default outline is hard to see in daylight.
   const [focused, setFocused] = useState(false);
   const readOnly = inputProps.editable === false;
@@ -50,7 +53,12 @@ export const TextField = forwardRef<TextInput, TextFieldProps>(function TextFiel
           onBlur?.(event);
         }}
         placeholderTextColor={palette.haze}
-        style={[styles.input, readOnly && styles.inputReadOnly, error ? styles.inputError : null, focused && !readOnly && styles.inputFocused]}
+        style={[
+          styles.input,
+          readOnly && styles.inputReadOnly,
+          error ? styles.inputError : null,
+          focused && !readOnly && styles.inputFocused,
+        ]}
       />
       {error ? (
         <AppText variant="small" tone="stop" nativeID={messageId} testID={`field-error-${name}`} aria-live="polite">

@@ -12,7 +12,12 @@ export interface UserActionsProps {
   isSelf: boolean;
 }
 
-export function UserRoleControl({ user, isSelf, mutation, stretch }: UserActionsProps & { mutation: ReturnType<typeof useUpdateUserMutation>; stretch?: boolean }) {
+export function UserRoleControl({
+  user,
+  isSelf,
+  mutation,
+  stretch,
+}: UserActionsProps & { mutation: ReturnType<typeof useUpdateUserMutation>; stretch?: boolean }) {
   const pendingRole = mutation.isPending ? mutation.variables?.body.role : undefined;
   return (
     <Segmented<Role>

@@ -41,7 +41,15 @@ function ListItem({ user, isSelf }: { user: UserDto; isSelf: boolean }) {
 
 const styles = StyleSheet.create({
   list: { gap: spacing.md },
-  item: { backgroundColor: palette.sheet, borderRadius: radii.lg, borderWidth: 1, borderColor: palette.ruleSoft, padding: spacing.lg, gap: spacing.md, ...shadow },
+  item: {
+    backgroundColor: palette.sheet,
+    borderRadius: radii.lg,
+    borderWidth: 1,
+    borderColor: palette.ruleSoft,
+    padding: spacing.lg,
+    gap: spacing.md,
+    ...shadow,
+  },
   head: { flexDirection: 'row', gap: spacing.md, alignItems: 'flex-start' },
   who: { flex: 1, gap: 2 },
 });

@@ -21,7 +21,17 @@ export function UsersPanel({ currentUserId }: { currentUserId: number }) {
     );
   }
   if (users.data.length === 0) {
-    return <EmptyState title="No one here yet" body="Invite the installers and safety reviewers of your organisation with the form." testID="users-empty" />;
+    return (
+      <EmptyState
+        title="No one here yet"
+        body="Invite the installers and safety reviewers of your organisation with the form."
+        testID="users-empty"
+      />
+    );
   }
-  return wide ? <UsersTable users={users.data} currentUserId={currentUserId} /> : <UsersList users={users.data} currentUserId={currentUserId} />;
+  return wide ? (
+    <UsersTable users={users.data} currentUserId={currentUserId} />
+  ) : (
+    <UsersList users={users.data} currentUserId={currentUserId} />
+  );
 }

@@ -66,7 +66,14 @@ function TableRow({ user, isSelf }: { user: UserDto; isSelf: boolean }) {
 }
 
 const styles = StyleSheet.create({
-  table: { backgroundColor: palette.sheet, borderRadius: radii.lg, borderWidth: 1, borderColor: palette.ruleSoft, overflow: 'hidden', ...shadow },
+  table: {
+    backgroundColor: palette.sheet,
+    borderRadius: radii.lg,
+    borderWidth: 1,
+    borderColor: palette.ruleSoft,
+    overflow: 'hidden',
+    ...shadow,
+  },
   row: { flexDirection: 'row', alignItems: 'center', gap: spacing.lg, paddingHorizontal: spacing.lg },
   headRow: { paddingVertical: spacing.md, backgroundColor: palette.chalk, borderBottomWidth: 2, borderBottomColor: palette.rule },
   bodyRow: { paddingVertical: spacing.md, borderBottomWidth: 1, borderBottomColor: palette.ruleSoft },

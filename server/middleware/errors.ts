@@ -16,7 +16,10 @@ const BY_TYPE: Record<string, [number, string]> = {
   'entity.parse.failed': [400, 'The request body is not valid JSON.'],
   'entity.too.large': [413, 'The request is too large.'],
   'charset.unsupported': [415, 'Send the request body as UTF-8 (charset=utf-8); other character sets are not accepted.'],
-  'encoding.unsupported': [415, 'The request body uses a content encoding the server does not accept; send it uncompressed, or compressed with gzip or deflate.'],
+  'encoding.unsupported': [
+    415,
+    'The request body uses a content encoding the server does not accept; send it uncompressed, or compressed with gzip or deflate.',
+  ],
   'request.aborted': [400, 'The request was cut off before its body arrived. Try again.'],
   'request.size.invalid': [400, 'The request body is shorter or longer than its Content-Length says.'],
 };
@@ -37,7 +40,10 @@ function knownClientError(err: unknown): [number, string] | undefined {
   if (e.type && BY_TYPE[e.type]) return BY_TYPE[e.type];
   const status = e.status ?? e.statusCode;
   if (err instanceof URIError && status === 400) {
-    return [400, 'The address contains a broken percent-escape (such as "%E0" without the rest of its character). Check the link and try again.'];
+    return [
+      400,
+      'The address contains a broken percent-escape (such as "%E0" without the rest of its character). Check the link and try again.',
+    ];
   }
   // Body errors from zlib ("incorrect header check") and the like carry 400 from body-parser.
   if (typeof status === 'number' && status >= 400 && status < 500) return [status, BY_STATUS[status] ?? 'The request is not valid.'];
@@ -75,7 +81,10 @@ export function describeForLog(err: unknown): string {
   // Duck-typed: errors from Node internals can come from another realm (e.g. under Jest).
   const e = err as { name?: unknown; message?: unknown; stack?: unknown } | null;
   if (e && typeof e === 'object' && typeof e.message === 'string') {
-    const frames = (typeof e.stack === 'string' ? e.stack : '').split('\n').filter((l) => /^\s+at /.test(l)).slice(0, 8);
+    const frames = (typeof e.stack === 'string' ? e.stack : '')
+      .split('\n')
+      .filter((l) => /^\s+at /.test(l))
+      .slice(0, 8);
     return [`${typeof e.name === 'string' ? e.name : 'Error'}: ${redact(e.message)}`, ...frames].join('\n');
   }
   return `non-error value thrown (${typeof err})`;
@@ -98,6 +107,10 @@ export function errorHandler(log: Logger): ErrorRequestHandler {
     }
     log.error(`${req.method} ${safePath(req)} failed`, describeForLog(err));
     if (res.headersSent) return;
-    res.status(500).json({ error: 'Sightfan hit an unexpected problem and saved nothing from this request. Try again; if it repeats, tell your administrator.' });
+    res
+      .status(500)
+      .json({
+        error: 'Sightfan hit an unexpected problem and saved nothing from this request. Try again; if it repeats, tell your administrator.',
+      });
   };
 }

@@ -8,6 +8,9 @@ export function parseOr400<S extends z.ZodType>(schema: S, value: unknown, what 
   if (result.success) return result.data;
   const fields = fieldErrors(result.error.issues);
   const first = Object.values(fields)[0];
-  const message = Object.keys(fields).length === 1 && fields._ ? first : `${what} has ${Object.keys(fields).length === 1 ? 'a problem' : 'some problems'}: ${first}`;
+  const message =
+    Object.keys(fields).length === 1 && fields._
+      ? first
+      : `${what} has ${Object.keys(fields).length === 1 ? 'a problem' : 'some problems'}: ${first}`;
   throw new HttpError(400, message ?? `${what} is not valid.`, fields);
 }

@@ -12,6 +12,9 @@ export const baseProperties = () => {
   return {
     id: p.integer().primary().autoincrement(),
     createdAt: p.datetime().onCreate(() => new Date()),
-    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+    updatedAt: p
+      .datetime()
+      .onCreate(() => new Date())
+      .onUpdate(() => new Date()),
   };
 };

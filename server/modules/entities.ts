@@ -15,4 +15,16 @@ import { SheetRevision } from './sheets/sheet-revision.entity';
 import { OutgoingMail } from './mail/outgoing-mail.entity';
 import { SheetEvaluation } from './sheets/sheet-evaluation.entity';
 
-export const entities = [Organization.schema, User.schema, Invitation.schema, SessionRecord.schema, MailMessage.schema, MirrorModel.schema, Project.schema, Placement.schema, SheetRevision.schema, OutgoingMail.schema, SheetEvaluation.schema];
+export const entities = [
+  Organization.schema,
+  User.schema,
+  Invitation.schema,
+  SessionRecord.schema,
+  MailMessage.schema,
+  MirrorModel.schema,
+  Project.schema,
+  Placement.schema,
+  SheetRevision.schema,
+  OutgoingMail.schema,
+  SheetEvaluation.schema,
+];

@@ -35,7 +35,12 @@ export interface PlanFit {
 
 /** The largest round scale at which the scene (walls, zones, viewers, mirrors, plus a margin) fits the box. */
 export function fitPlan(plan: SheetPlan, box: Box, marginM = 1): PlanFit {
-  const points = [...plan.walls.flatMap((w) => [w.a, w.b]), ...plan.zones.flatMap((z) => z.ring), ...plan.viewers.map((v) => v.at), ...plan.mirrors.map((m) => m.at)];
+  const points = [
+    ...plan.walls.flatMap((w) => [w.a, w.b]),
+    ...plan.zones.flatMap((z) => z.ring),
+    ...plan.viewers.map((v) => v.at),
+    ...plan.mirrors.map((m) => m.at),
+  ];
   const b = boundsOfPoints(points) ?? { minX: 0, minY: 0, maxX: 0, maxY: 0 };
   const minX = b.minX - marginM;
   const maxX = b.maxX + marginM;
@@ -43,15 +48,29 @@ export function fitPlan(plan: SheetPlan, box: Box, marginM = 1): PlanFit {
   const maxY = b.maxY + marginM;
   const spanX = Math.max(maxX - minX, 1);
   const spanY = Math.max(maxY - minY, 1);
-  const denominator = PLAN_SCALES.find((n) => (spanX * PT_PER_M) / n <= box.w && (spanY * PT_PER_M) / n <= box.h) ?? PLAN_SCALES[PLAN_SCALES.length - 1];
+  const denominator =
+    PLAN_SCALES.find((n) => (spanX * PT_PER_M) / n <= box.w && (spanY * PT_PER_M) / n <= box.h) ?? PLAN_SCALES[PLAN_SCALES.length - 1];
   const ptPerM = PT_PER_M / denominator;
-  return { denominator, ptPerM, minX, maxY, offsetX: box.x + (box.w - spanX * ptPerM) / 2, offsetY: box.y + (box.h - spanY * ptPerM) / 2, heightPt: spanY * ptPerM };
+  return {
+    denominator,
+    ptPerM,
+    minX,
+    maxY,
+    offsetX: box.x + (box.w - spanX * ptPerM) / 2,
+    offsetY: box.y + (box.h - spanY * ptPerM) / 2,
+    heightPt: spanY * ptPerM,
+  };
 }
 
 /** Outline detail finer than this (0.2 mm on paper, in points) cannot be seen in print and is dropped before drawing. */
 export const OUTLINE_TOLERANCE_PT = (0.2 / 25.4) * 72;
 
-function ringPath(doc: PDFKit.PDFDocument, ring: readonly (readonly number[])[], at: (p: readonly number[]) => [number, number], tolerance = 0): void {
+function ringPath(
+  doc: PDFKit.PDFDocument,
+  ring: readonly (readonly number[])[],
+  at: (p: readonly number[]) => [number, number],
+  tolerance = 0,
+): void {
   const onPaper = ring.map(at);
   // Douglas–Peucker from shared/geometry, on paper points: detail finer than `tolerance` cannot be seen in print.
   const drawn = tolerance > 0 ? simplifyRing(onPaper, tolerance) : onPaper;
@@ -86,7 +105,10 @@ export function labelSpot(wanted: Box, taken: readonly Box[], maxLines = 6): Box
 
 export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): PlanFit {
   const fit = fitPlan(plan, box);
-  const at = (p: readonly number[]): [number, number] => [fit.offsetX + (p[0] - fit.minX) * fit.ptPerM, fit.offsetY + (fit.maxY - p[1]) * fit.ptPerM];
+  const at = (p: readonly number[]): [number, number] => [
+    fit.offsetX + (p[0] - fit.minX) * fit.ptPerM,
+    fit.offsetY + (fit.maxY - p[1]) * fit.ptPerM,
+  ];
 
   doc.save();
   doc.rect(box.x, box.y, box.w, box.h).lineWidth(0.5).strokeColor(RULE).stroke();
@@ -115,7 +137,11 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): Pl
     const [bx, by] = at(w.b);
     doc.moveTo(ax, ay).lineTo(bx, by);
     if (w.kind === 'door') doc.lineWidth(1).dash(2, { space: 2 }).strokeColor(MUTED).stroke().undash();
-    else doc.lineWidth(w.kind === 'racking' ? 1 : 2).strokeColor(w.kind === 'racking' ? MUTED : INK).stroke();
+    else
+      doc
+        .lineWidth(w.kind === 'racking' ? 1 : 2)
+        .strokeColor(w.kind === 'racking' ? MUTED : INK)
+        .stroke();
   }
 
   for (const z of plan.zones) {
@@ -124,7 +150,12 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): Pl
     const [x, y] = at([cx, cy]);
     const label = `${z.name}: ${z.covered} seen`;
     const w = textWidth(doc, 'semibold', 7, label) + 4;
-    doc.rect(x - w / 2, y - 5, w, 10).fillOpacity(0.85).fillColor(PAPER).fill().fillOpacity(1);
+    doc
+      .rect(x - w / 2, y - 5, w, 10)
+      .fillOpacity(0.85)
+      .fillColor(PAPER)
+      .fill()
+      .fillOpacity(1);
     doc.fillColor(STOP);
     writeText(doc, 'semibold', 7, label, x - w / 2 + 2, y - 3.5, { lineBreak: false });
     taken.push({ x: x - w / 2, y: y - 5, w, h: 10 });
@@ -145,8 +176,16 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): Pl
     // Page y runs down, plan y runs up: the aim's page direction is (cos az, −sin az).
     const dx = Math.cos(m.azimuthRad);
     const dy = -Math.sin(m.azimuthRad);
-    doc.moveTo(x, y).lineTo(x + dx * 12, y + dy * 12).lineWidth(0.9).strokeColor(GLASS).stroke();
-    doc.rect(x - 3, y - 3, 6, 6).fillColor(GLASS).fill();
+    doc
+      .moveTo(x, y)
+      .lineTo(x + dx * 12, y + dy * 12)
+      .lineWidth(0.9)
+      .strokeColor(GLASS)
+      .stroke();
+    doc
+      .rect(x - 3, y - 3, 6, 6)
+      .fillColor(GLASS)
+      .fill();
     const tipX = x + dx * 12;
     const tipY = y + dy * 12;
     const left = Math.min(x - 3, tipX);
@@ -159,7 +198,12 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): Pl
     const w = textWidth(doc, 'bold', 7.2, m.label);
     const spot = labelSpot({ x: x - dx * 6 + 4, y: y - dy * 6 - 11, w, h: LABEL_LINE_PT }, taken);
     taken.push(spot);
-    doc.rect(spot.x - 1.5, spot.y - 1, spot.w + 3, spot.h).fillOpacity(0.85).fillColor(PAPER).fill().fillOpacity(1);
+    doc
+      .rect(spot.x - 1.5, spot.y - 1, spot.w + 3, spot.h)
+      .fillOpacity(0.85)
+      .fillColor(PAPER)
+      .fill()
+      .fillOpacity(1);
     doc.fillColor(GLASS);
     writeText(doc, 'bold', 7.2, m.label, spot.x, spot.y, { lineBreak: false });
   });
@@ -178,7 +222,10 @@ export function drawScaleBar(doc: PDFKit.PDFDocument, fit: PlanFit, bar: ScaleBa
   const len = bar.lengthM * fit.ptPerM;
   const parts = 4;
   for (let i = 0; i < parts; i++) {
-    doc.rect(x + (i * len) / parts, y, len / parts, 4).lineWidth(0.5).strokeColor(INK);
+    doc
+      .rect(x + (i * len) / parts, y, len / parts, 4)
+      .lineWidth(0.5)
+      .strokeColor(INK);
     if (i % 2 === 0) doc.fillColor(INK).fillAndStroke();
     else doc.stroke();
   }
@@ -207,37 +254,72 @@ export function drawElevation(doc: PDFKit.PDFDocument, el: SheetElevation, box: 
 
   doc.save();
   doc.rect(box.x, box.y, box.w, box.h).lineWidth(0.5).strokeColor(RULE).stroke();
-  doc.moveTo(box.x + 4, floorY).lineTo(box.x + box.w - 4, floorY).lineWidth(1.2).strokeColor(INK).stroke();
+  doc
+    .moveTo(box.x + 4, floorY)
+    .lineTo(box.x + box.w - 4, floorY)
+    .lineWidth(1.2)
+    .strokeColor(INK)
+    .stroke();
 
   // The floor the mirror shows, between the nearest and farthest traced rays.
   const reaches = el.rays.filter((r) => r.endHeightM <= 0.001).map((r) => r.reachM);
   if (reaches.length) {
     const a = Math.min(...reaches);
     const b = Math.min(Math.max(...reaches), el.rangeM);
-    if (b > a) doc.rect(X(a), floorY - 3, (b - a) * s, 3).fillOpacity(0.3).fillColor(GLASS).fill().fillOpacity(1);
+    if (b > a)
+      doc
+        .rect(X(a), floorY - 3, (b - a) * s, 3)
+        .fillOpacity(0.3)
+        .fillColor(GLASS)
+        .fill()
+        .fillOpacity(1);
   }
 
   // Sightline from the eye to the mirror.
-  doc.moveTo(X(-el.eye.distanceM), Y(el.eye.heightM)).lineTo(X(0), Y(el.mirrorHeightM)).lineWidth(0.9).dash(3, { space: 2 }).strokeColor(INK).stroke().undash();
+  doc
+    .moveTo(X(-el.eye.distanceM), Y(el.eye.heightM))
+    .lineTo(X(0), Y(el.mirrorHeightM))
+    .lineWidth(0.9)
+    .dash(3, { space: 2 })
+    .strokeColor(INK)
+    .stroke()
+    .undash();
   for (const r of el.rays) {
     doc.moveTo(X(0), Y(r.fromHeightM)).lineTo(X(r.reachM), Y(r.endHeightM)).lineWidth(0.9).strokeColor(GLASS).stroke();
   }
 
   // Mirror: a short thick mark at its height on a post line.
   doc.moveTo(X(0), floorY).lineTo(X(0), Y(el.mirrorHeightM)).lineWidth(0.4).strokeColor(MUTED).stroke();
-  doc.moveTo(X(0), Y(el.mirrorHeightM) - 5).lineTo(X(0), Y(el.mirrorHeightM) + 5).lineWidth(3).strokeColor(GLASS).stroke();
+  doc
+    .moveTo(X(0), Y(el.mirrorHeightM) - 5)
+    .lineTo(X(0), Y(el.mirrorHeightM) + 5)
+    .lineWidth(3)
+    .strokeColor(GLASS)
+    .stroke();
   // Eye.
   doc.circle(X(-el.eye.distanceM), Y(el.eye.heightM), 3).fillColor(INK).fill();
   doc.moveTo(X(-el.eye.distanceM), floorY).lineTo(X(-el.eye.distanceM), Y(el.eye.heightM)).lineWidth(0.4).strokeColor(MUTED).stroke();
 
   // Range mark.
   const rx = X(el.rangeM);
-  doc.moveTo(rx, floorY - 8).lineTo(rx, floorY + 4).lineWidth(1).strokeColor(STOP).stroke();
+  doc
+    .moveTo(rx, floorY - 8)
+    .lineTo(rx, floorY + 4)
+    .lineWidth(1)
+    .strokeColor(STOP)
+    .stroke();
 
   doc.font('regular').fontSize(7).fillColor(INK);
   doc.text(`eye ${fmt.dist(el.eye.heightM)} high`, X(-el.eye.distanceM) + 5, Y(el.eye.heightM) - 10, { lineBreak: false });
   doc.text(`mirror ${fmt.dist(el.mirrorHeightM)} high`, X(0) + 5, Y(el.mirrorHeightM) - 12, { lineBreak: false });
   doc.fillColor(MUTED).text(`${fmt.dist(el.eye.distanceM)} across the floor`, X(-el.eye.distanceM), floorY + 5, { lineBreak: false });
-  doc.fillColor(STOP).text(el.rangeCapped ? `view drawn to ${fmt.dist(el.rangeM)}` : `adult recognised to ${fmt.dist(el.rangeM)}`, Math.max(rx - 140, X(0) + 4), floorY + 13, { width: 140, align: 'right', lineBreak: false });
+  doc
+    .fillColor(STOP)
+    .text(
+      el.rangeCapped ? `view drawn to ${fmt.dist(el.rangeM)}` : `adult recognised to ${fmt.dist(el.rangeM)}`,
+      Math.max(rx - 140, X(0) + 4),
+      floorY + 13,
+      { width: 140, align: 'right', lineBreak: false },
+    );
   doc.restore();
 }

@@ -49,7 +49,13 @@ export function fontFile(name: AnyFont): Buffer {
 }
 
 export function sheetFontFiles(): Record<SheetFont, Buffer> {
-  return { regular: fontFile('regular'), medium: fontFile('medium'), semibold: fontFile('semibold'), bold: fontFile('bold'), mono: fontFile('mono') };
+  return {
+    regular: fontFile('regular'),
+    medium: fontFile('medium'),
+    semibold: fontFile('semibold'),
+    bold: fontFile('bold'),
+    mono: fontFile('mono'),
+  };
 }
 
 const parsed = new Map<AnyFont, fontkit.Font>();

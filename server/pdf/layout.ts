@@ -100,7 +100,12 @@ export class Flow {
     this.gap(6);
     this.style('semibold', 12.5, INK).text(text, this.left, this.y, { width: this.width, lineBreak: false });
     this.y += 17;
-    this.doc.moveTo(this.left, this.y).lineTo(this.left + this.width, this.y).lineWidth(0.6).strokeColor(RULE).stroke();
+    this.doc
+      .moveTo(this.left, this.y)
+      .lineTo(this.left + this.width, this.y)
+      .lineWidth(0.6)
+      .strokeColor(RULE)
+      .stroke();
     this.y += 5;
   }
 
@@ -114,7 +119,12 @@ export class Flow {
       this.write('regular', 8.5, MUTED, label, x, y + dy + 1, { width: lw, lineGap: 1 });
       this.write('medium', 9.5, INK, value, x + lw + 6, y + dy, { width: vw, lineGap: 1 });
       dy += h;
-      this.doc.moveTo(x, y + dy - 2).lineTo(x + width, y + dy - 2).lineWidth(0.3).strokeColor(RULE_SOFT).stroke();
+      this.doc
+        .moveTo(x, y + dy - 2)
+        .lineTo(x + width, y + dy - 2)
+        .lineWidth(0.3)
+        .strokeColor(RULE_SOFT)
+        .stroke();
     }
     return dy;
   }
@@ -122,7 +132,10 @@ export class Flow {
   rowsHeight(rows: readonly (readonly [string, string])[], width: number, labelShare = 0.42): number {
     const lw = width * labelShare;
     const vw = width - lw - 6;
-    return rows.reduce((sum, [l, v]) => sum + Math.max(this.textHeight(l, 'regular', 8.5, lw), this.textHeight(v, 'medium', 9.5, vw)) + 4, 0);
+    return rows.reduce(
+      (sum, [l, v]) => sum + Math.max(this.textHeight(l, 'regular', 8.5, lw), this.textHeight(v, 'medium', 9.5, vw)) + 4,
+      0,
+    );
   }
 
   /** Label/value rows across the full width. */
@@ -132,7 +145,10 @@ export class Flow {
   }
 
   /** Two label/value blocks side by side, each with a small title. */
-  twoBlocks(a: { title: string; rows: readonly (readonly [string, string])[] }, b: { title: string; rows: readonly (readonly [string, string])[] }): void {
+  twoBlocks(
+    a: { title: string; rows: readonly (readonly [string, string])[] },
+    b: { title: string; rows: readonly (readonly [string, string])[] },
+  ): void {
     const colW = (this.width - 18) / 2;
     const h = Math.max(this.rowsHeight(a.rows, colW), this.rowsHeight(b.rows, colW)) + 14;
     this.ensure(h);
@@ -154,7 +170,11 @@ export class Flow {
       this.doc.rect(this.left, this.y, this.width, h).fillColor(GLASS_SOFT).fill();
       let x = this.left;
       columns.forEach((c, i) => {
-        this.style('semibold', 8.8, INK).text(c.title, x + pad, this.y + pad, { width: widths[i] - 2 * pad, align: c.align ?? 'left', lineGap: 1 });
+        this.style('semibold', 8.8, INK).text(c.title, x + pad, this.y + pad, {
+          width: widths[i] - 2 * pad,
+          align: c.align ?? 'left',
+          lineGap: 1,
+        });
         x += widths[i];
       });
       this.y += h;
@@ -173,11 +193,20 @@ export class Flow {
       }
       let x = this.left;
       row.forEach((text, i) => {
-        this.write(fontOf(i), 8.8, INK, text, x + pad, this.y + pad, { width: widths[i] - 2 * pad, align: columns[i].align ?? 'left', lineGap: 1 });
+        this.write(fontOf(i), 8.8, INK, text, x + pad, this.y + pad, {
+          width: widths[i] - 2 * pad,
+          align: columns[i].align ?? 'left',
+          lineGap: 1,
+        });
         x += widths[i];
       });
       this.y += h;
-      this.doc.moveTo(this.left, this.y).lineTo(this.left + this.width, this.y).lineWidth(last ? 0.9 : 0.3).strokeColor(last ? INK : RULE_SOFT).stroke();
+      this.doc
+        .moveTo(this.left, this.y)
+        .lineTo(this.left + this.width, this.y)
+        .lineWidth(last ? 0.9 : 0.3)
+        .strokeColor(last ? INK : RULE_SOFT)
+        .stroke();
     });
   }
 }

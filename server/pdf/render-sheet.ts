@@ -60,7 +60,9 @@ function cautionBox(flow: Flow, cautions: readonly string[], title: string, size
 
 function headerBlock(flow: Flow, content: SheetContent, rev: SheetRevisionInfo, paperName: string): void {
   const doc = flow.doc;
-  flow.style('semibold', 8.5, GLASS).text('SIGHTFAN  ·  MIRROR SPECIFICATION SHEET', flow.left, flow.y, { characterSpacing: 1, lineBreak: false });
+  flow
+    .style('semibold', 8.5, GLASS)
+    .text('SIGHTFAN  ·  MIRROR SPECIFICATION SHEET', flow.left, flow.y, { characterSpacing: 1, lineBreak: false });
   flow.y += 14;
   flow.paragraph(content.project.name, 'bold', 19, INK);
   flow.gap(6);
@@ -81,7 +83,12 @@ function headerBlock(flow: Flow, content: SheetContent, rev: SheetRevisionInfo, 
   flow.rowsAt(left, flow.left, flow.y, colW, 0.34);
   flow.rowsAt(right, flow.left + colW + 18, flow.y, colW, 0.34);
   flow.y += h + 4;
-  doc.moveTo(flow.left, flow.y).lineTo(flow.left + flow.width, flow.y).lineWidth(1.2).strokeColor(INK).stroke();
+  doc
+    .moveTo(flow.left, flow.y)
+    .lineTo(flow.left + flow.width, flow.y)
+    .lineWidth(1.2)
+    .strokeColor(INK)
+    .stroke();
   flow.y += 8;
 }
 
@@ -92,16 +99,28 @@ function approvalBlock(flow: Flow): void {
   flow.heading('Approval by the safety officer', h);
   doc.rect(flow.left, flow.y, flow.width, h).lineWidth(0.8).strokeColor(INK).stroke();
   flow.style('bold', 11, STOP).text('Not yet reviewed', flow.left + 10, flow.y + 9, { lineBreak: false });
-  flow.style('regular', 8.5, MUTED).text('No safety officer has reviewed this revision. Do not treat it as approved until this block is completed and signed.', flow.left + 10, flow.y + 25, {
-    width: flow.width - 20,
-  });
+  flow
+    .style('regular', 8.5, MUTED)
+    .text(
+      'No safety officer has reviewed this revision. Do not treat it as approved until this block is completed and signed.',
+      flow.left + 10,
+      flow.y + 25,
+      {
+        width: flow.width - 20,
+      },
+    );
   const fields = ['Reviewer', 'Decision', 'Date', 'Signature'];
   const colW = (flow.width - 20) / 2;
   fields.forEach((f, i) => {
     const x = flow.left + 10 + (i % 2) * colW;
     const y = flow.y + 58 + Math.floor(i / 2) * 26;
     flow.style('regular', 8.5, MUTED).text(f, x, y, { lineBreak: false });
-    doc.moveTo(x + 52, y + 10).lineTo(x + colW - 16, y + 10).lineWidth(0.6).strokeColor(RULE).stroke();
+    doc
+      .moveTo(x + 52, y + 10)
+      .lineTo(x + colW - 16, y + 10)
+      .lineWidth(0.6)
+      .strokeColor(RULE)
+      .stroke();
   });
   flow.y += h + 8;
 }
@@ -126,7 +145,12 @@ function purchaseBlock(flow: Flow, content: SheetContent): void {
   );
   if (p.onRequest > 0) {
     flow.gap(3);
-    flow.paragraph(`${p.onRequest} custom mirror${p.onRequest === 1 ? ' is' : 's are'} priced on request and not included in the total.`, 'regular', 8.5, MUTED);
+    flow.paragraph(
+      `${p.onRequest} custom mirror${p.onRequest === 1 ? ' is' : 's are'} priced on request and not included in the total.`,
+      'regular',
+      8.5,
+      MUTED,
+    );
   }
 }
 
@@ -188,19 +212,26 @@ function planPage(flow: Flow, content: SheetContent, paperName: string): void {
   flow.y += box.h + 8;
   const bar = scaleBarFor(fit, content.units, flow.width * 0.28);
   const barLen = drawScaleBar(flow.doc, fit, bar, flow.left + 2, flow.y + 2);
-  flow.style('semibold', 9, INK).text(`Scale 1:${fit.denominator} on ${paperName} printed at 100 %`, flow.left + barLen + 24, flow.y, { lineBreak: false });
-  flow.style('regular', 7.5, MUTED).text('Plan x to the right, plan y up; positions in the tables are in these coordinates.', flow.left + barLen + 24, flow.y + 12, {
-    lineBreak: false,
-  });
+  flow
+    .style('semibold', 9, INK)
+    .text(`Scale 1:${fit.denominator} on ${paperName} printed at 100 %`, flow.left + barLen + 24, flow.y, { lineBreak: false });
+  flow
+    .style('regular', 7.5, MUTED)
+    .text('Plan x to the right, plan y up; positions in the tables are in these coordinates.', flow.left + barLen + 24, flow.y + 12, {
+      lineBreak: false,
+    });
   flow.y += 26;
-  const legend = 'Legend: blue shading — floor seen in a mirror, within the distance at which a standing adult is still recognised; red dashed outline — zone that must be seen, with its share seen; thick black line — wall; grey line — racking; blue square with a tick — mirror and its aim; ringed dot — viewer\u2019s eye position.';
+  const legend =
+    'Legend: blue shading — floor seen in a mirror, within the distance at which a standing adult is still recognised; red dashed outline — zone that must be seen, with its share seen; thick black line — wall; grey line — racking; blue square with a tick — mirror and its aim; ringed dot — viewer\u2019s eye position.';
   flow.paragraph(legend, 'regular', 8, INK);
 }
 
 function placementPage(flow: Flow, content: SheetContent, p: SheetPlacement, index: number): void {
   const f = sheetFormat(content.units);
   flow.newPage();
-  flow.style('semibold', 8.5, GLASS).text(`MIRROR ${index + 1} OF ${content.placements.length}`, flow.left, flow.y, { characterSpacing: 1, lineBreak: false });
+  flow
+    .style('semibold', 8.5, GLASS)
+    .text(`MIRROR ${index + 1} OF ${content.placements.length}`, flow.left, flow.y, { characterSpacing: 1, lineBreak: false });
   flow.y += 13;
   flow.paragraph(p.label, 'bold', 16, INK);
   flow.gap(6);
@@ -250,7 +281,12 @@ function placementPage(flow: Flow, content: SheetContent, p: SheetPlacement, ind
       n.references.map((r) => [r.objectDistance, r.magnification, r.trueDistance, r.sizeCueDistance, r.ratio]),
     );
     flow.gap(2);
-    flow.paragraph('"Looks as far away as": the distance at which the object, seen directly, would look as small as it does in the mirror.', 'regular', 8, MUTED);
+    flow.paragraph(
+      '"Looks as far away as": the distance at which the object, seen directly, would look as small as it does in the mirror.',
+      'regular',
+      8,
+      MUTED,
+    );
   }
 
   if (p.elevation) {
@@ -259,7 +295,12 @@ function placementPage(flow: Flow, content: SheetContent, p: SheetPlacement, ind
     flow.ensure(h + 14);
     drawElevation(flow.doc, p.elevation, { x: flow.left, y: flow.y, w: flow.width, h }, f);
     flow.y += h + 3;
-    flow.paragraph('Drawn unfolded about the mirror: the viewer on the left, the reflected rays from the nearest and farthest edge of the view on the right. One scale both ways.', 'regular', 7.5, MUTED);
+    flow.paragraph(
+      'Drawn unfolded about the mirror: the viewer on the left, the reflected rays from the nearest and farthest edge of the view on the right. One scale both ways.',
+      'regular',
+      7.5,
+      MUTED,
+    );
   }
   flow.gap(6);
   cautionBox(flow, content.cautions, 'Read with these numbers', 8);
@@ -308,10 +349,27 @@ export async function renderSheet(content: SheetContent, rev: SheetRevisionInfo,
     const y = doc.page.height - 34;
     const left = doc.page.margins.left;
     const width = doc.page.width - left - doc.page.margins.right;
-    doc.moveTo(left, y - 6).lineTo(left + width, y - 6).lineWidth(0.4).strokeColor(RULE).stroke();
+    doc
+      .moveTo(left, y - 6)
+      .lineTo(left + width, y - 6)
+      .lineWidth(0.4)
+      .strokeColor(RULE)
+      .stroke();
     doc.fillColor(MUTED);
-    writeText(doc, 'regular', 7.5, `Sightfan · ${content.project.name} · revision ${rev.number} · ${issueDate(issued)} · hash ${shortHash(rev.contentHash)}`, left, y, { width: width - 90, lineBreak: false, ellipsis: true });
-    doc.font('semibold').fontSize(8).fillColor(INK).text(`Page ${i - range.start + 1} of ${range.count}`, left + width - 90, y, { width: 90, align: 'right', lineBreak: false });
+    writeText(
+      doc,
+      'regular',
+      7.5,
+      `Sightfan · ${content.project.name} · revision ${rev.number} · ${issueDate(issued)} · hash ${shortHash(rev.contentHash)}`,
+      left,
+      y,
+      { width: width - 90, lineBreak: false, ellipsis: true },
+    );
+    doc
+      .font('semibold')
+      .fontSize(8)
+      .fillColor(INK)
+      .text(`Page ${i - range.start + 1} of ${range.count}`, left + width - 90, y, { width: 90, align: 'right', lineBreak: false });
     doc.page.margins.bottom = bottom;
   }
   doc.end();

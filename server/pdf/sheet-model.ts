@@ -25,10 +25,22 @@ import type { CatalogueItemDto, MirrorSpec, PlacementDto, Scene, UnitSystem } fr
 import { formatAngle, formatArea, formatLength, formatMoney, formatNumber, formatPercent, resolveUnits } from '../../shared/units';
 import { SHEET_CAUTIONS } from './cautions';
 
-export type SheetPlacementInput = Pick<PlacementDto, 'id' | 'label' | 'catalogueItemId' | 'customMirror' | 'positionM' | 'heightM' | 'azimuthRad' | 'tiltDownRad' | 'viewerId' | 'notes'>;
+export type SheetPlacementInput = Pick<
+  PlacementDto,
+  'id' | 'label' | 'catalogueItemId' | 'customMirror' | 'positionM' | 'heightM' | 'azimuthRad' | 'tiltDownRad' | 'viewerId' | 'notes'
+>;
 
 export interface SheetInput {
-  project: { id: number; name: string; customer: string; site: string; kind: string; notes: string; units: UnitSystem | null; scene: Scene };
+  project: {
+    id: number;
+    name: string;
+    customer: string;
+    site: string;
+    kind: string;
+    notes: string;
+    units: UnitSystem | null;
+    scene: Scene;
+  };
   owner: { name: string; email: string; units: UnitSystem };
   organization: string;
   placements: readonly SheetPlacementInput[];
@@ -118,7 +130,6 @@ export interface SheetContent {
   purchase: { lines: SheetPurchaseLine[]; totals: { currency: string; total: string }[]; onRequest: number };
 }
 
-
 /** The formatters the sheet uses for each kind of number; tests format engine values with these too. */
 export function sheetFormat(units: UnitSystem) {
   return {
@@ -146,7 +157,10 @@ function sizeText(spec: MirrorSpec, size: (m: number) => string): string {
   return `${size(spec.diameterM)} diameter`;
 }
 
-function specOf(p: SheetPlacementInput, catalogue: readonly CatalogueItemDto[]): { spec: MirrorSpec | null; item: CatalogueItemDto | null } {
+function specOf(
+  p: SheetPlacementInput,
+  catalogue: readonly CatalogueItemDto[],
+): { spec: MirrorSpec | null; item: CatalogueItemDto | null } {
   if (p.customMirror) return { spec: p.customMirror, item: null };
   const item = catalogue.find((c) => c.id === p.catalogueItemId) ?? null;
   return { spec: item?.mirror ?? null, item };
@@ -235,7 +249,15 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
           floorReach: n.floorSeen ? `${f.dist(n.floorSeen.nearestM)} to ${f.dist(n.floorSeen.farthestM)}` : 'no floor seen',
         }
       : null;
-    return { label: p.label, mirror, mounting, numbers, problem: ev.problem?.message ?? null, elevation: elevationOf(ev), notes: p.notes.trim() };
+    return {
+      label: p.label,
+      mirror,
+      mounting,
+      numbers,
+      problem: ev.problem?.message ?? null,
+      elevation: elevationOf(ev),
+      notes: p.notes.trim(),
+    };
   });
 
   const zones = scene.zones.map((z, i) => {
@@ -264,7 +286,13 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
   const content: SheetContent = {
     format: 2,
     projectId: input.project.id,
-    project: { name: input.project.name, customer: input.project.customer, site: input.project.site, kind: input.project.kind, notes: input.project.notes.trim() },
+    project: {
+      name: input.project.name,
+      customer: input.project.customer,
+      site: input.project.site,
+      kind: input.project.kind,
+      notes: input.project.notes.trim(),
+    },
     installer: { name: input.owner.name, email: input.owner.email, organization: input.organization },
     units,
     cautions: SHEET_CAUTIONS,
@@ -282,7 +310,11 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
 }
 
 /** Placements grouped by catalogue item (quantity × unit price), summed per currency; custom mirrors priced on request. */
-export function purchaseLines(placements: readonly SheetPlacementInput[], catalogue: readonly CatalogueItemDto[], money: (minor: number, currency: string) => string): SheetContent['purchase'] {
+export function purchaseLines(
+  placements: readonly SheetPlacementInput[],
+  catalogue: readonly CatalogueItemDto[],
+  money: (minor: number, currency: string) => string,
+): SheetContent['purchase'] {
   const counts = new Map<number, number>();
   let onRequest = 0;
   for (const p of placements) {
@@ -297,14 +329,30 @@ export function purchaseLines(placements: readonly SheetPlacementInput[], catalo
   const lines: SheetPurchaseLine[] = items.map(({ item, quantity }) => {
     const totalMinor = item.unitPriceMinor * quantity;
     totals.set(item.currency, (totals.get(item.currency) ?? 0) + totalMinor);
-    return { code: item.code, description: item.name, quantity, unitPrice: money(item.unitPriceMinor, item.currency), lineTotal: money(totalMinor, item.currency), currency: item.currency };
+    return {
+      code: item.code,
+      description: item.name,
+      quantity,
+      unitPrice: money(item.unitPriceMinor, item.currency),
+      lineTotal: money(totalMinor, item.currency),
+      currency: item.currency,
+    };
   });
   if (onRequest > 0) {
-    lines.push({ code: 'custom', description: 'Custom mirror — price on request', quantity: onRequest, unitPrice: 'on request', lineTotal: 'on request', currency: '' });
+    lines.push({
+      code: 'custom',
+      description: 'Custom mirror — price on request',
+      quantity: onRequest,
+      unitPrice: 'on request',
+      lineTotal: 'on request',
+      currency: '',
+    });
   }
   return {
     lines,
-    totals: [...totals.entries()].sort(([a], [b]) => a.localeCompare(b)).map(([currency, minor]) => ({ currency, total: money(minor, currency) })),
+    totals: [...totals.entries()]
+      .sort(([a], [b]) => a.localeCompare(b))
+      .map(([currency, minor]) => ({ currency, total: money(minor, currency) })),
     onRequest,
   };
 }

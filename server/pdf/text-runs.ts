@@ -143,7 +143,15 @@ function widthOf(doc: PDFKit.PDFDocument, size: number, chars: readonly Char[]):
   while (i < chars.length) {
     let j = i + 1;
     while (j < chars.length && chars[j].font === chars[i].font) j++;
-    w += measure(doc, chars[i].font, size, chars.slice(i, j).map((c) => c.ch).join(''));
+    w += measure(
+      doc,
+      chars[i].font,
+      size,
+      chars
+        .slice(i, j)
+        .map((c) => c.ch)
+        .join(''),
+    );
     i = j;
   }
   return w;
@@ -237,7 +245,10 @@ function visualPieces(doc: PDFKit.PDFDocument, size: number, text: string, line:
     let t: string;
     if (odd && chunk.some((c) => STRONG_RTL.test(c.ch))) {
       // Logical order: fontkit shapes the word and sets it right to left.
-      t = [...chunk].reverse().map((c) => c.ch).join('');
+      t = [...chunk]
+        .reverse()
+        .map((c) => c.ch)
+        .join('');
     } else if (odd) {
       // Neutral characters inside right-to-left text: already in visual order; brackets mirrored.
       t = chunk.map((c) => bidi.getMirroredCharacter(c.ch) ?? c.ch).join('');
@@ -303,9 +314,20 @@ export function textWidth(doc: PDFKit.PDFDocument, face: SheetFont, size: number
  * Writes `text` at (x, y) (y is the top of the first line, as in pdfkit) in the current fill colour.
  * Leaves `face` at `size` selected.
  */
-export function writeText(doc: PDFKit.PDFDocument, face: SheetFont, size: number, text: string, x: number, y: number, opts: TextOptions = {}): void {
+export function writeText(
+  doc: PDFKit.PDFDocument,
+  face: SheetFont,
+  size: number,
+  text: string,
+  x: number,
+  y: number,
+  opts: TextOptions = {},
+): void {
   if (plain(doc, face, size, text)) {
-    doc.font(face).fontSize(size).text(text, x, y, { ...opts, ...withFeatures(FACE_FEATURES[face]) });
+    doc
+      .font(face)
+      .fontSize(size)
+      .text(text, x, y, { ...opts, ...withFeatures(FACE_FEATURES[face]) });
     return;
   }
   const lineGap = opts.lineGap ?? 0;
@@ -316,7 +338,9 @@ export function writeText(doc: PDFKit.PDFDocument, face: SheetFont, size: number
     let cx = x + (opts.align === 'right' ? room - line.width : opts.align === 'center' ? (room - line.width) / 2 : 0);
     const baseline = y + i * lh + ascent;
     for (const p of line.pieces) {
-      selectFont(doc, p.font).fontSize(size).text(p.text, cx, baseline, { lineBreak: false, baseline: 'alphabetic', ...(p.features ? { features: p.features } : {}) });
+      selectFont(doc, p.font)
+        .fontSize(size)
+        .text(p.text, cx, baseline, { lineBreak: false, baseline: 'alphabetic', ...(p.features ? { features: p.features } : {}) });
       cx += p.width;
     }
   });

@@ -43,8 +43,28 @@ export const DEMO_PROJECT = {
       ...box('column', 19.2, 9.5, 20.3, 10, WALL_M, 'wall'),
     ],
     zones: [
-      { id: 'z-junction', name: 'T-junction cross traffic', polygonM: [[12, 10.2], [28, 10.2], [28, 13.3], [12, 13.3]], target: { kind: 'adult' } },
-      { id: 'z-dock', name: 'Dock corner apron', polygonM: [[16.2, 4], [22, 4], [22, 9.8], [16.2, 9.8]], target: { kind: 'adult' } },
+      {
+        id: 'z-junction',
+        name: 'T-junction cross traffic',
+        polygonM: [
+          [12, 10.2],
+          [28, 10.2],
+          [28, 13.3],
+          [12, 13.3],
+        ],
+        target: { kind: 'adult' },
+      },
+      {
+        id: 'z-dock',
+        name: 'Dock corner apron',
+        polygonM: [
+          [16.2, 4],
+          [22, 4],
+          [22, 9.8],
+          [16.2, 9.8],
+        ],
+        target: { kind: 'adult' },
+      },
     ],
     viewers: [
       { id: 'v-aisle', name: 'Forklift driver in the side aisle', positionM: [19.75, 17], eyeHeightM: 2.1 },
@@ -52,7 +72,23 @@ export const DEMO_PROJECT = {
     ],
   } satisfies Scene,
   placements: [
-    { label: 'M1 junction', code: 'DEMO-DH610', positionM: [19.75, M1_Y] as [number, number], heightM: 2.9, azimuthDeg: 90, tiltDownDeg: 45, viewerId: 'v-aisle' },
-    { label: 'M2 dock corner', code: 'DEMO-R600', positionM: [M2_X, 10.05] as [number, number], heightM: 3.0, azimuthDeg: -25, tiltDownDeg: 25, viewerId: 'v-dock' },
+    {
+      label: 'M1 junction',
+      code: 'DEMO-DH610',
+      positionM: [19.75, M1_Y] as [number, number],
+      heightM: 2.9,
+      azimuthDeg: 90,
+      tiltDownDeg: 45,
+      viewerId: 'v-aisle',
+    },
+    {
+      label: 'M2 dock corner',
+      code: 'DEMO-R600',
+      positionM: [M2_X, 10.05] as [number, number],
+      heightM: 3.0,
+      azimuthDeg: -25,
+      tiltDownDeg: 25,
+      viewerId: 'v-dock',
+    },
   ],
 };

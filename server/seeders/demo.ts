@@ -31,7 +31,13 @@ export async function seedDemo(orm: Orm, bcryptCost: number): Promise<boolean> {
   const byCode = new Map<string, MirrorModel>();
   for (const item of DEMO_CATALOGUE) {
     const { mirror, ...rest } = item;
-    const row = em.create(MirrorModel, { ...rest, shape: mirror.shape, currency: 'EUR', demo: true, notes: 'Demo catalogue item: invented figures.' });
+    const row = em.create(MirrorModel, {
+      ...rest,
+      shape: mirror.shape,
+      currency: 'EUR',
+      demo: true,
+      notes: 'Demo catalogue item: invented figures.',
+    });
     assignMirror(row, mirror);
     byCode.set(item.code, row);
   }

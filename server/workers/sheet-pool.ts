@@ -61,7 +61,9 @@ export function createSheetWork(opts: SheetWorkOptions): SheetWork {
       return (await pool.run(arg, { name, signal: abort.signal })) as T;
     } catch (e) {
       if (abort.signal.aborted) {
-        throw busy(`Working out this sheet took longer than ${seconds || 1} s, so it was stopped to keep Sightfan answering everyone else. Try again in a minute; if it happens again, the project may be too large for one sheet — split it into smaller projects.`);
+        throw busy(
+          `Working out this sheet took longer than ${seconds || 1} s, so it was stopped to keep Sightfan answering everyone else. Try again in a minute; if it happens again, the project may be too large for one sheet — split it into smaller projects.`,
+        );
       }
       const err = e as { code?: string; message?: string };
       if (err.code === 'ERR_WORKER_OUT_OF_MEMORY') {

@@ -16,7 +16,9 @@ import { buildSheetContent, canonicalJson, contentHash, type SheetContent, type 
 export const SHEET_MODEL_VERSION = 1;
 
 export function inputHash(input: SheetInput): string {
-  return createHash('sha256').update(canonicalJson({ v: SHEET_MODEL_VERSION, input })).digest('hex');
+  return createHash('sha256')
+    .update(canonicalJson({ v: SHEET_MODEL_VERSION, input }))
+    .digest('hex');
 }
 
 export interface BuiltContent {

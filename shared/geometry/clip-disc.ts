@@ -188,15 +188,7 @@ export function clipCurveToDisc(
  * Points on a circle strictly between angle `from` and `from + sweep` (counter-clockwise),
  * spaced at most `stepRad` apart; with `closed`, a full closed ring.
  */
-function arcRing(
-  cx: number,
-  cy: number,
-  r: number,
-  from: number,
-  sweep: number,
-  stepRad: number,
-  closed: boolean,
-): Ring {
+function arcRing(cx: number, cy: number, r: number, from: number, sweep: number, stepRad: number, closed: boolean): Ring {
   const pts: Ring = [];
   const k = Math.max(1, Math.ceil(sweep / stepRad));
   const step = sweep / k;

@@ -25,7 +25,10 @@ export function clipToHalfSpace<P extends readonly number[]>(poly: readonly P[],
 
 /** The part of a closed polygon where lo ≤ f(p) ≤ hi, for an affine f. */
 export function clipToSlab<P extends readonly number[]>(poly: readonly P[], f: (p: P) => number, lo: number, hi: number): P[] {
-  return clipToHalfSpace(clipToHalfSpace(poly, (p) => f(p) - lo), (p) => hi - f(p));
+  return clipToHalfSpace(
+    clipToHalfSpace(poly, (p) => f(p) - lo),
+    (p) => hi - f(p),
+  );
 }
 
 /** A ring cut to the box [x0, x1] × [y0, y1]; the result repeats its first point (empty when nothing is left). */

@@ -59,12 +59,7 @@ export function orient(a: Pair, b: Pair, c: Pair): number {
 }
 
 function onSegment(a: Pair, b: Pair, p: Pair): boolean {
-  return (
-    Math.min(a[0], b[0]) <= p[0] &&
-    p[0] <= Math.max(a[0], b[0]) &&
-    Math.min(a[1], b[1]) <= p[1] &&
-    p[1] <= Math.max(a[1], b[1])
-  );
+  return Math.min(a[0], b[0]) <= p[0] && p[0] <= Math.max(a[0], b[0]) && Math.min(a[1], b[1]) <= p[1] && p[1] <= Math.max(a[1], b[1]);
 }
 
 /** True when closed segments ab and cd share at least one point. */

@@ -23,7 +23,8 @@ const S = 1 / GRID_M;
 
 type Geom = Polygon | MultiPolygon;
 /** A Polygon's first element is a ring of pairs (numbers two levels down); a MultiPolygon's is a polygon. */
-const asMulti = (g: Geom): MultiPolygon => (g.length === 0 ? [] : typeof (g as Polygon)[0][0]?.[0] === 'number' ? [g as Polygon] : (g as MultiPolygon));
+const asMulti = (g: Geom): MultiPolygon =>
+  g.length === 0 ? [] : typeof (g as Polygon)[0][0]?.[0] === 'number' ? [g as Polygon] : (g as MultiPolygon);
 
 function toPath(ring: Ring): IntPoint[] {
   const closed = ring.length > 1 && ring[0][0] === ring[ring.length - 1][0] && ring[0][1] === ring[ring.length - 1][1];

@@ -67,9 +67,5 @@ export function angleBetween(a: Vec3, b: Vec3): number {
 
 /** True when every component is a finite number. */
 export function isFiniteVec3(a: unknown): a is Vec3 {
-  return (
-    Array.isArray(a) &&
-    a.length === 3 &&
-    a.every((c) => typeof c === 'number' && Number.isFinite(c))
-  );
+  return Array.isArray(a) && a.length === 3 && a.every((c) => typeof c === 'number' && Number.isFinite(c));
 }

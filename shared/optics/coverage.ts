@@ -1,4 +1,14 @@
-import { bbox, multiPolygonArea, pointInMultiPolygon, polygonArea, ringLength, segmentsIntersect, windingNumber, type MultiPolygon, type Ring } from '../geometry/polygon';
+import {
+  bbox,
+  multiPolygonArea,
+  pointInMultiPolygon,
+  polygonArea,
+  ringLength,
+  segmentsIntersect,
+  windingNumber,
+  type MultiPolygon,
+  type Ring,
+} from '../geometry/polygon';
 import { clipOrientedCurvesToDisc } from '../geometry/clip-disc';
 import { simplifyMultiPolygon, simplifyRing } from '../geometry/simplify';
 import { robustDifference } from '../geometry/robust-boolean';
@@ -204,7 +214,13 @@ export function subtractWalls(p: PreparedCoverage, region: MultiPolygon, walls: 
 
   // Mirror → floor leg.
   let [minX, minY, maxX, maxY] = bbox(region);
-  const candidates = wallsInBox(walls, Math.min(minX, v[0] - reach), Math.min(minY, v[1] - reach), Math.max(maxX, v[0] + reach), Math.max(maxY, v[1] + reach))
+  const candidates = wallsInBox(
+    walls,
+    Math.min(minX, v[0] - reach),
+    Math.min(minY, v[1] - reach),
+    Math.max(maxX, v[0] + reach),
+    Math.max(maxY, v[1] + reach),
+  )
     .map((i) => ({ w: walls[i], d: segmentDistance(v[0], v[1], walls[i]) }))
     .filter((c) => c.w.heightM > p.h0 && c.d < p.maxRangeM)
     .sort((a, b) => a.d - b.d);
@@ -216,7 +232,13 @@ export function subtractWalls(p: PreparedCoverage, region: MultiPolygon, walls: 
       const by0 = Math.min(minY, v[1] - reach);
       const bx1 = Math.max(maxX, v[0] + reach);
       const by1 = Math.max(maxY, v[1] + reach);
-      if (Math.max(w.aM[0], w.bM[0]) < bx0 || Math.min(w.aM[0], w.bM[0]) > bx1 || Math.max(w.aM[1], w.bM[1]) < by0 || Math.min(w.aM[1], w.bM[1]) > by1) continue;
+      if (
+        Math.max(w.aM[0], w.bM[0]) < bx0 ||
+        Math.min(w.aM[0], w.bM[0]) > bx1 ||
+        Math.max(w.aM[1], w.bM[1]) < by0 ||
+        Math.min(w.aM[1], w.bM[1]) > by1
+      )
+        continue;
       const bound = shadowBound(w, v, reach, p.farM);
       if (bound) {
         const cut = clipToBox(bound, minX, minY, maxX, maxY);
@@ -294,7 +316,7 @@ export function clipToBox(ring: Ring, x0: number, y0: number, x1: number, y1: nu
       const fp = a * p[0] + b * p[1] + c;
       const fq = a * q[0] + b * q[1] + c;
       if (fp >= 0) out.push(p);
-      if ((fp >= 0) !== (fq >= 0)) {
+      if (fp >= 0 !== fq >= 0) {
         const t = fp / (fp - fq);
         out.push([p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1])]);
       }

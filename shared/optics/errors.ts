@@ -40,11 +40,7 @@ export function requireNonNegative(field: string, value: unknown, what: string):
 
 /** Throws unless `value` is three finite numbers. */
 export function requirePoint(field: string, value: unknown, what: string): [number, number, number] {
-  if (
-    !Array.isArray(value) ||
-    value.length !== 3 ||
-    !value.every((c) => typeof c === 'number' && Number.isFinite(c))
-  ) {
+  if (!Array.isArray(value) || value.length !== 3 || !value.every((c) => typeof c === 'number' && Number.isFinite(c))) {
     throw new OpticsInputError(field, `Enter the ${what} as three numbers (x, y, z in metres).`);
   }
   return value as [number, number, number];

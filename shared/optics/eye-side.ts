@@ -25,7 +25,15 @@ import type { Wall } from './walls';
  * it. Approximation: a wall that reaches into the mirror's own depth band (within the mirror's
  * few centimetres of depth as seen by the eye) is treated as not hiding that part.
  */
-export function eyeSideShadows(pm: PlacedMirror, eyeM: Vec3, fan: TracedFan, walls: readonly Wall[], h0: number, farM: number, maxRangeM: number): Polygon[] {
+export function eyeSideShadows(
+  pm: PlacedMirror,
+  eyeM: Vec3,
+  fan: TracedFan,
+  walls: readonly Wall[],
+  h0: number,
+  farM: number,
+  maxRangeM: number,
+): Polygon[] {
   if (walls.length === 0) return [];
   const E = eyeM;
   const V = pm.pose.vertexM;
@@ -89,7 +97,12 @@ export function eyeSideShadows(pm: PlacedMirror, eyeM: Vec3, fan: TracedFan, wal
   const sphereDir = (x: number, y: number): Vec3 => sphereDirection(pm, E, d0, e1, e2, x, y);
   const out: Polygon[] = [];
   for (const w of walls) {
-    if (Math.max(w.aM[0], w.bM[0]) < bx0 || Math.min(w.aM[0], w.bM[0]) > bx1 || Math.max(w.aM[1], w.bM[1]) < by0 || Math.min(w.aM[1], w.bM[1]) > by1) {
+    if (
+      Math.max(w.aM[0], w.bM[0]) < bx0 ||
+      Math.min(w.aM[0], w.bM[0]) > bx1 ||
+      Math.max(w.aM[1], w.bM[1]) < by0 ||
+      Math.min(w.aM[1], w.bM[1]) > by1
+    ) {
       continue;
     }
     const quad: Vec3[] = [
@@ -226,14 +239,17 @@ function clipSlab(poly: Vec3[], f: (p: Vec3) => number, lo: number, hi: number):
       const gp = g(p);
       const gq = g(q);
       if (gp >= 0) res.push(p);
-      if ((gp >= 0) !== (gq >= 0)) {
+      if (gp >= 0 !== gq >= 0) {
         const t = gp / (gp - gq);
         res.push([p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1]), p[2] + t * (q[2] - p[2])]);
       }
     }
     return res;
   };
-  return half(half(poly, (p) => f(p) - lo), (p) => hi - f(p));
+  return half(
+    half(poly, (p) => f(p) - lo),
+    (p) => hi - f(p),
+  );
 }
 
 /** Unit direction from the sphere's centre of the point where the eye ray of image-plane point (x, y) meets the sphere (the tangent point for a ray that just misses it). */

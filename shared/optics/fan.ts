@@ -17,7 +17,14 @@ export type FanRay = {
  * The traced outline rays of the fan for drawing (plan or elevation): `samples` rays around the
  * visible outline of the mirror, exactly as used by `coverage`.
  */
-export function fanRays(input: { mirror: Mirror; pose: Pose; eyeM: Vec3; planeHeightM?: number; maxRangeM: number; samples?: number }): FanRay[] {
+export function fanRays(input: {
+  mirror: Mirror;
+  pose: Pose;
+  eyeM: Vec3;
+  planeHeightM?: number;
+  maxRangeM: number;
+  samples?: number;
+}): FanRay[] {
   const p = prepareCoverage({ ...input, rimSamples: input.samples ?? 32 });
   const f = p.fan;
   const out: FanRay[] = [];

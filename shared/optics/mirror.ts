@@ -186,7 +186,10 @@ export function checkEye(pm: PlacedMirror, eyeM: Vec3, field = 'eyeM'): Vec3 {
   }
   if (!pm.isDome) {
     if (dot(sub(eyeM, pm.pose.vertexM), pm.frame.w) <= EYE_MARGIN) {
-      throw new OpticsInputError(field, 'The eye is behind the mirror; aim the mirror toward the viewer or move the viewer in front of it.');
+      throw new OpticsInputError(
+        field,
+        'The eye is behind the mirror; aim the mirror toward the viewer or move the viewer in front of it.',
+      );
     }
     return pm.frame.w;
   }

@@ -94,7 +94,11 @@ export function maxLinearOverBody(C: Vec3, R: number, planes: readonly Plane[], 
       const b = q.d - dot3(q.k, C);
       const kjl: Vec3 = [q.k[1] * l[2] - q.k[2] * l[1], q.k[2] * l[0] - q.k[0] * l[2], q.k[0] * l[1] - q.k[1] * l[0]];
       const lki: Vec3 = [l[1] * k[2] - l[2] * k[1], l[2] * k[0] - l[0] * k[2], l[0] * k[1] - l[1] * k[0]];
-      const p0: Vec3 = [C[0] + (a * kjl[0] + b * lki[0]) / ll, C[1] + (a * kjl[1] + b * lki[1]) / ll, C[2] + (a * kjl[2] + b * lki[2]) / ll];
+      const p0: Vec3 = [
+        C[0] + (a * kjl[0] + b * lki[0]) / ll,
+        C[1] + (a * kjl[1] + b * lki[1]) / ll,
+        C[2] + (a * kjl[2] + b * lki[2]) / ll,
+      ];
       // Where the line p0 + t·l meets the sphere.
       const w: Vec3 = [p0[0] - C[0], p0[1] - C[1], p0[2] - C[2]];
       const B = dot3(w, l) / ll;
@@ -148,12 +152,7 @@ export function wallsThroughMirror(input: { mirror: Mirror; pose: Pose; walls: r
     const t = Math.max(0, Math.min(L, (C[0] - w.aM[0]) * e[0] + (C[1] - w.aM[1]) * e[1]));
     if (Math.hypot(C[0] - w.aM[0] - t * e[0], C[1] - w.aM[1] - t * e[1]) >= pm.R || C[2] - pm.R >= w.heightM) return;
     const eA = e[0] * w.aM[0] + e[1] * w.aM[1];
-    const beside: Plane[] = [
-      ...body,
-      { k: e, d: eA },
-      { k: [-e[0], -e[1], 0], d: -(eA + L) },
-      { k: [0, 0, -1], d: -w.heightM },
-    ];
+    const beside: Plane[] = [...body, { k: e, d: eA }, { k: [-e[0], -e[1], 0], d: -(eA + L) }, { k: [0, 0, -1], d: -w.heightM }];
     const n: Vec3 = [-e[1], e[0], 0];
     const nA = n[0] * w.aM[0] + n[1] * w.aM[1];
     const plus = maxLinearOverBody(C, pm.R, beside, n);
@@ -176,12 +175,19 @@ export function wallsThroughMirror(input: { mirror: Mirror; pose: Pose; walls: r
  * when given, in front of the mirror; moves that leave the straight line from the eye to the
  * mirror's vertex clear of walls are preferred. Returns [0, 0] when nothing passes through.
  */
-export function moveOutOfWalls(input: { mirror: Mirror; pose: Pose; walls: readonly Wall[]; eyeM?: Vec3; toleranceM?: number }): [number, number] | null {
+export function moveOutOfWalls(input: {
+  mirror: Mirror;
+  pose: Pose;
+  walls: readonly Wall[];
+  eyeM?: Vec3;
+  toleranceM?: number;
+}): [number, number] | null {
   const first = wallsThroughMirror(input);
   if (first.length === 0) return [0, 0];
   const singles = first.flatMap((w) => w.movesM);
   const moves: [number, number][] = [...singles];
-  for (let i = 0; i < singles.length; i++) for (let j = i + 1; j < singles.length; j++) moves.push([singles[i][0] + singles[j][0], singles[i][1] + singles[j][1]]);
+  for (let i = 0; i < singles.length; i++)
+    for (let j = i + 1; j < singles.length; j++) moves.push([singles[i][0] + singles[j][0], singles[i][1] + singles[j][1]]);
   // A hair beyond the face, so that rounding cannot put the body back inside it.
   const nudge = (m: [number, number]): [number, number] => {
     const l = Math.hypot(m[0], m[1]);

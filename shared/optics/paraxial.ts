@@ -107,7 +107,9 @@ export function paraxialAngle(input: { radiusM: number; eyeDistanceM: number; ob
  * Solving θ = h·F/(dₒ(D + F) + D·F) (F = |f| = R/2) for dₒ gives dₒ = (h·F/θ − D·F)/(D + F).
  * When even an object at the mirror is too small (h·F/θ ≤ D·F) the range is 0.
  */
-export function recognisableRange(input: { radiusM: number; eyeDistanceM: number; targetSizeM: number; minAngleRad: number }): { rangeM: number } {
+export function recognisableRange(input: { radiusM: number; eyeDistanceM: number; targetSizeM: number; minAngleRad: number }): {
+  rangeM: number;
+} {
   const F = requirePositive('radiusM', input.radiusM, 'radius of curvature') / 2;
   const D = requirePositive('eyeDistanceM', input.eyeDistanceM, 'eye-to-mirror distance');
   const h = requirePositive('targetSizeM', input.targetSizeM, 'target size');

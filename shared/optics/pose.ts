@@ -61,4 +61,3 @@ export function aimOfPose(pose: Pose): { azimuthRad: number; tiltDownRad: number
   const n = norm(w);
   return { azimuthRad: Math.atan2(w[1], w[0]), tiltDownRad: Math.asin(Math.max(-1, Math.min(1, -w[2] / n))) };
 }
-

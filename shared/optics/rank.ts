@@ -115,7 +115,10 @@ export function rankOptions(input: RankInput): RankedOption[] {
   const eyeM = requirePoint('eyeM', input.eyeM, 'eye position');
   const size = requirePositive('target.sizeM', input.target?.sizeM, 'target size');
   const minAngle = requirePositive('target.minAngleRad', input.target?.minAngleRad, 'smallest recognisable angle');
-  const required = input.target.requiredRangeM === undefined ? Infinity : requirePositive('target.requiredRangeM', input.target.requiredRangeM, 'required range');
+  const required =
+    input.target.requiredRangeM === undefined
+      ? Infinity
+      : requirePositive('target.requiredRangeM', input.target.requiredRangeM, 'required range');
   const cap = input.maxRangeM === undefined ? Infinity : requirePositive('maxRangeM', input.maxRangeM, 'range');
   const limit = input.limit ?? 10;
   const step = input.coverageStep ?? 0.01;
@@ -168,8 +171,16 @@ export function rankOptions(input: RankInput): RankedOption[] {
       }
     }
   }
-  const key = (c: { fraction: number; rangeKey: number; item: CatalogueItem }) => [Math.floor(c.fraction / step + 1e-9), c.rangeKey, -c.item.cost, c.fraction];
-  const byKey = (a: { fraction: number; rangeKey: number; item: CatalogueItem }, b: { fraction: number; rangeKey: number; item: CatalogueItem }): number => compareKeys(key(b), key(a));
+  const key = (c: { fraction: number; rangeKey: number; item: CatalogueItem }) => [
+    Math.floor(c.fraction / step + 1e-9),
+    c.rangeKey,
+    -c.item.cost,
+    c.fraction,
+  ];
+  const byKey = (
+    a: { fraction: number; rangeKey: number; item: CatalogueItem },
+    b: { fraction: number; rangeKey: number; item: CatalogueItem },
+  ): number => compareKeys(key(b), key(a));
   // Upper bounds, best first.
   const bounds = candidates.map((c) => ({ ...c, fraction: Math.min(1, c.fraction + tolerance) }));
   bounds.sort(byKey);

@@ -69,7 +69,15 @@ export function outlineParam(pm: PlacedMirror, eyeM: Vec3): { param: OutlinePara
     e2 = [m0[1] * e1[2] - m0[2] * e1[1], m0[2] * e1[0] - m0[0] * e1[2], m0[0] * e1[1] - m0[1] * e1[0]];
   }
   const nk = cons.length;
-  const param: OutlineParam = { m0, e1, e2, kn: new Float64Array(nk), k1: new Float64Array(nk), k2: new Float64Array(nk), c: new Float64Array(nk) };
+  const param: OutlineParam = {
+    m0,
+    e1,
+    e2,
+    kn: new Float64Array(nk),
+    k1: new Float64Array(nk),
+    k2: new Float64Array(nk),
+    c: new Float64Array(nk),
+  };
   for (let i = 0; i < nk; i++) {
     param.kn[i] = dot(cons[i].k, m0);
     param.k1[i] = dot(cons[i].k, e1);
@@ -168,11 +176,7 @@ function corners(cons: Constraint[]): Vec3[] {
       const base: Vec3 = [al * a.k[0] + be * b.k[0], al * a.k[1] + be * b.k[1], al * a.k[2] + be * b.k[2]];
       const rest = 1 - dot(base, base);
       if (rest < 0) continue;
-      const cx: Vec3 = [
-        a.k[1] * b.k[2] - a.k[2] * b.k[1],
-        a.k[2] * b.k[0] - a.k[0] * b.k[2],
-        a.k[0] * b.k[1] - a.k[1] * b.k[0],
-      ];
+      const cx: Vec3 = [a.k[1] * b.k[2] - a.k[2] * b.k[1], a.k[2] * b.k[0] - a.k[0] * b.k[2], a.k[0] * b.k[1] - a.k[1] * b.k[0]];
       const g = Math.sqrt(rest / den);
       for (const s of [1, -1]) {
         const p: Vec3 = [base[0] + s * g * cx[0], base[1] + s * g * cx[1], base[2] + s * g * cx[2]];

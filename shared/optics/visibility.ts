@@ -70,11 +70,7 @@ export function apparentAngle(input: {
   const dl = Math.hypot(dir[0], dir[1], dir[2]);
   if (!(dl > 0)) throw new OpticsInputError('directionM', 'The target direction cannot be the zero vector.');
   const a = visibleInMirror({ mirror: input.mirror, pose: input.pose, eyeM: input.eyeM, pointM: input.pointM });
-  const top: Vec3 = [
-    input.pointM[0] + (h * dir[0]) / dl,
-    input.pointM[1] + (h * dir[1]) / dl,
-    input.pointM[2] + (h * dir[2]) / dl,
-  ];
+  const top: Vec3 = [input.pointM[0] + (h * dir[0]) / dl, input.pointM[1] + (h * dir[1]) / dl, input.pointM[2] + (h * dir[2]) / dl];
   const b = visibleInMirror({ mirror: input.mirror, pose: input.pose, eyeM: input.eyeM, pointM: top });
   if (!a.visible || !b.visible || !a.reflectionPointM || !b.reflectionPointM) return null;
   return angleBetween(sub(a.reflectionPointM, input.eyeM), sub(b.reflectionPointM, input.eyeM));

@@ -36,7 +36,13 @@ export function wallsInBox(walls: readonly Wall[], x0: number, y0: number, x1: n
   if (walls.length < 32) {
     const out: number[] = [];
     walls.forEach((w, i) => {
-      if (Math.max(w.aM[0], w.bM[0]) >= x0 && Math.min(w.aM[0], w.bM[0]) <= x1 && Math.max(w.aM[1], w.bM[1]) >= y0 && Math.min(w.aM[1], w.bM[1]) <= y1) out.push(i);
+      if (
+        Math.max(w.aM[0], w.bM[0]) >= x0 &&
+        Math.min(w.aM[0], w.bM[0]) <= x1 &&
+        Math.max(w.aM[1], w.bM[1]) >= y0 &&
+        Math.min(w.aM[1], w.bM[1]) <= y1
+      )
+        out.push(i);
     });
     return out;
   }

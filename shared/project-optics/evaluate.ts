@@ -102,7 +102,10 @@ export function mirrorOfSpec(spec: MirrorSpec): Mirror {
       : { shape: 'round', diameterM: spec.diameterM, radiusM: spec.radiusM };
 }
 
-export function mirrorOfPlacement(p: Pick<PlacementDto, 'catalogueItemId' | 'customMirror'>, catalogue: readonly CatalogueItemDto[]): Mirror | null {
+export function mirrorOfPlacement(
+  p: Pick<PlacementDto, 'catalogueItemId' | 'customMirror'>,
+  catalogue: readonly CatalogueItemDto[],
+): Mirror | null {
   if (p.customMirror) return mirrorOfSpec(p.customMirror);
   const item = catalogue.find((c) => c.id === p.catalogueItemId);
   return item ? mirrorOfSpec(item.mirror) : null;
@@ -111,7 +114,11 @@ export function mirrorOfPlacement(p: Pick<PlacementDto, 'catalogueItemId' | 'cus
 export const wallsOfScene = (scene: Scene): Wall[] => scene.walls.map((w) => ({ aM: w.aM, bM: w.bM, heightM: w.heightM }));
 
 /** Farthest distance (m, mirror to person) at which target `t` meets criterion `kind` (paraxial). */
-export function criterionRangeM(n: Pick<PlacementNumbers, 'radiusM' | 'eyeDistanceM' | 'criteria'>, t: ZoneTarget, kind: CriterionKind): number {
+export function criterionRangeM(
+  n: Pick<PlacementNumbers, 'radiusM' | 'eyeDistanceM' | 'criteria'>,
+  t: ZoneTarget,
+  kind: CriterionKind,
+): number {
   const minAngleRad = criterionAngleRad(n.criteria, kind);
   return recognisableRange({ radiusM: n.radiusM, eyeDistanceM: n.eyeDistanceM, targetSizeM: targetHeightM(t), minAngleRad }).rangeM;
 }
@@ -119,7 +126,10 @@ export function criterionRangeM(n: Pick<PlacementNumbers, 'radiusM' | 'eyeDistan
 function numbersFor(mirror: Mirror, pose: Pose, eyeM: Vec3, eyeDistanceM: number, criteria: CriteriaSettings): PlacementNumbers {
   const radiusM = sphereRadiusM(mirror);
   const base = { radiusM, eyeDistanceM, criteria };
-  const ranges = (kind: CriterionKind): TargetRangesM => ({ adult: criterionRangeM(base, { kind: 'adult' }, kind), child: criterionRangeM(base, { kind: 'child' }, kind) });
+  const ranges = (kind: CriterionKind): TargetRangesM => ({
+    adult: criterionRangeM(base, { kind: 'adult' }, kind),
+    child: criterionRangeM(base, { kind: 'child' }, kind),
+  });
   return {
     focalLengthM: focalLength(radiusM),
     radiusM,
@@ -129,7 +139,13 @@ function numbersFor(mirror: Mirror, pose: Pose, eyeM: Vec3, eyeDistanceM: number
     references: REFERENCE_DISTANCES_M.map((d) => {
       const img = convexImage({ radiusM, objectDistanceM: d });
       const pd = perceivedDistance({ radiusM, eyeDistanceM, objectDistanceM: d });
-      return { objectDistanceM: d, magnification: img.magnification, trueDistanceM: pd.trueDistanceM, sizeCueDistanceM: pd.sizeCueDistanceM, ratio: pd.ratio };
+      return {
+        objectDistanceM: d,
+        magnification: img.magnification,
+        trueDistanceM: pd.trueDistanceM,
+        sizeCueDistanceM: pd.sizeCueDistanceM,
+        ratio: pd.ratio,
+      };
     }),
     criteria,
     rangesM: { detect: ranges('detect'), recognise: ranges('recognise') },
@@ -144,7 +160,10 @@ function problemOf(e: unknown): { field: string; message: string } {
 }
 
 interface EvaluatePlacementInput {
-  placement: Pick<PlacementDto, 'id' | 'catalogueItemId' | 'customMirror' | 'positionM' | 'heightM' | 'azimuthRad' | 'tiltDownRad' | 'viewerId'>;
+  placement: Pick<
+    PlacementDto,
+    'id' | 'catalogueItemId' | 'customMirror' | 'positionM' | 'heightM' | 'azimuthRad' | 'tiltDownRad' | 'viewerId'
+  >;
   scene: Scene;
   catalogue: readonly CatalogueItemDto[];
   walls: Wall[];
@@ -155,9 +174,19 @@ interface EvaluatePlacementInput {
 
 export function evaluatePlacement(input: EvaluatePlacementInput): EvaluatedPlacement {
   const { placement: p, scene } = input;
-  const out: EvaluatedPlacement = { placementId: p.id, mirror: null, pose: null, eyeM: null, viewer: null, numbers: null, coverage: null, problem: null };
+  const out: EvaluatedPlacement = {
+    placementId: p.id,
+    mirror: null,
+    pose: null,
+    eyeM: null,
+    viewer: null,
+    numbers: null,
+    coverage: null,
+    problem: null,
+  };
   out.mirror = mirrorOfPlacement(p, input.catalogue);
-  if (!out.mirror) return { ...out, problem: { field: 'catalogueItemId', message: 'Pick a mirror from the catalogue or describe a custom one.' } };
+  if (!out.mirror)
+    return { ...out, problem: { field: 'catalogueItemId', message: 'Pick a mirror from the catalogue or describe a custom one.' } };
   const viewer = scene.viewers.find((v) => v.id === p.viewerId) ?? null;
   out.viewer = viewer;
   try {
@@ -165,13 +194,17 @@ export function evaluatePlacement(input: EvaluatePlacementInput): EvaluatedPlace
     // A wall through the mirror's body makes every figure meaningless; say what to change instead.
     const mount = mountProblem({ mirror: out.mirror, placement: p, scene });
     if (mount) return { ...out, problem: mount };
-    if (!viewer) return { ...out, problem: { field: 'viewerId', message: 'Choose the viewer this mirror serves to see its numbers and coverage.' } };
+    if (!viewer)
+      return { ...out, problem: { field: 'viewerId', message: 'Choose the viewer this mirror serves to see its numbers and coverage.' } };
     out.eyeM = [viewer.positionM[0], viewer.positionM[1], viewer.eyeHeightM];
     const v = out.pose.vertexM;
     const eyeDistanceM = Math.hypot(out.eyeM[0] - v[0], out.eyeM[1] - v[1], out.eyeM[2] - v[2]);
     out.numbers = numbersFor(out.mirror, out.pose, out.eyeM, eyeDistanceM, input.criteria);
     const maxRangeM = Math.min(MAX_DRAWN_RANGE_M, input.maxRangeM ?? drawnRangeM(out.numbers));
-    out.coverage = maxRangeM > 0.05 ? coverage({ mirror: out.mirror, pose: out.pose, eyeM: out.eyeM, maxRangeM, walls: input.walls }) : { region: [], areaM2: 0 };
+    out.coverage =
+      maxRangeM > 0.05
+        ? coverage({ mirror: out.mirror, pose: out.pose, eyeM: out.eyeM, maxRangeM, walls: input.walls })
+        : { region: [], areaM2: 0 };
     out.numbers.floorSeen = floorSeenFigures(out.coverage.region, [v[0], v[1]]);
   } catch (e) {
     out.problem = problemOf(e);

@@ -9,9 +9,19 @@ import { zoneCoverage, type MultiPolygon } from '../optics';
 import { robustUnion } from '../geometry/robust-boolean';
 import type { CatalogueItemDto, CriteriaSettings, PlacementDto, Scene, SceneZone, ZoneTarget } from '../schemas';
 import { criteriaOf, zoneCriterion, type CriterionKind } from './criteria';
-import { criterionRangeM, evaluatePlacement, wallsOfScene, type EvaluatedPlacement, type EvaluatedZone, type ProjectEvaluation } from './evaluate';
+import {
+  criterionRangeM,
+  evaluatePlacement,
+  wallsOfScene,
+  type EvaluatedPlacement,
+  type EvaluatedZone,
+  type ProjectEvaluation,
+} from './evaluate';
 
-export type PlacementInput = Pick<PlacementDto, 'id' | 'catalogueItemId' | 'customMirror' | 'positionM' | 'heightM' | 'azimuthRad' | 'tiltDownRad' | 'viewerId'>;
+export type PlacementInput = Pick<
+  PlacementDto,
+  'id' | 'catalogueItemId' | 'customMirror' | 'positionM' | 'heightM' | 'azimuthRad' | 'tiltDownRad' | 'viewerId'
+>;
 
 interface CacheEntry {
   /** Walls are what make a placement's evaluation expensive; viewers are part of each key instead. */
@@ -25,7 +35,18 @@ interface CacheEntry {
 
 function placementKey(p: PlacementInput, scene: Scene, maxRangeM?: number): string {
   const viewer = scene.viewers.find((v) => v.id === p.viewerId) ?? null;
-  return JSON.stringify([p.id, p.catalogueItemId, p.customMirror, p.positionM, p.heightM, p.azimuthRad, p.tiltDownRad, p.viewerId, viewer, maxRangeM ?? null]);
+  return JSON.stringify([
+    p.id,
+    p.catalogueItemId,
+    p.customMirror,
+    p.positionM,
+    p.heightM,
+    p.azimuthRad,
+    p.tiltDownRad,
+    p.viewerId,
+    viewer,
+    maxRangeM ?? null,
+  ]);
 }
 
 function targetKey(t: ZoneTarget, kind: CriterionKind): string {
@@ -105,7 +126,13 @@ export class ProjectEvaluator {
       else this.cache = null;
     }
     if (!this.cache || this.cache.catalogue !== input.catalogue || !sameCriteria(this.cache.criteria, criteria)) {
-      this.cache = { walls: input.scene.walls, wallsJson: JSON.stringify(input.scene.walls), catalogue: input.catalogue, criteria, byKey: new Map() };
+      this.cache = {
+        walls: input.scene.walls,
+        wallsJson: JSON.stringify(input.scene.walls),
+        catalogue: input.catalogue,
+        criteria,
+        byKey: new Map(),
+      };
     }
     const cache = this.cache;
     const walls = wallsOfScene(input.scene);
@@ -144,7 +171,13 @@ export class ProjectEvaluator {
         return { zoneId: z.id, fraction, coveredM2, covered, problem: null };
       } catch {
         // polygon-clipping can fail on near-degenerate input; say so rather than stop the plan.
-        return { zoneId: z.id, fraction: Number.NaN, coveredM2: 0, covered: [], problem: 'The covered share of this zone could not be computed for these positions.' };
+        return {
+          zoneId: z.id,
+          fraction: Number.NaN,
+          coveredM2: 0,
+          covered: [],
+          problem: 'The covered share of this zone could not be computed for these positions.',
+        };
       }
     });
     // Keep only what this evaluation used, so a long drag does not grow the cache without bound.

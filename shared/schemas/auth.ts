@@ -86,7 +86,10 @@ export type OutboxResponse = z.infer<typeof outboxResponse>;
 /** Signed in: a new password, with the current one as proof. */
 export const changePasswordBody = z
   .object({
-    currentPassword: z.string({ message: 'Enter your current password.' }).min(1, 'Enter your current password.').max(200, 'That password is too long.'),
+    currentPassword: z
+      .string({ message: 'Enter your current password.' })
+      .min(1, 'Enter your current password.')
+      .max(200, 'That password is too long.'),
     password: newPassword,
     confirm: z.string({ message: 'Type the new password again.' }),
   })
@@ -100,6 +103,7 @@ export const forgotPasswordBody = z.object({ email }).strict();
 export type ForgotPasswordBody = z.infer<typeof forgotPasswordBody>;
 
 /** The same answer whether or not the address has an account. */
-export const FORGOT_PASSWORD_ANSWER = 'If an account uses that address, a link to choose a new password is on its way. It works once and for 1 hour.';
+export const FORGOT_PASSWORD_ANSWER =
+  'If an account uses that address, a link to choose a new password is on its way. It works once and for 1 hour.';
 export const forgotPasswordResponse = z.object({ message: z.string() });
 export type ForgotPasswordResponse = z.infer<typeof forgotPasswordResponse>;

@@ -1,5 +1,13 @@
 import { z } from 'zod';
-import { catalogueRules, DOME_PORTION_MESSAGE, MIRROR_SHAPE_MESSAGE, MIRROR_SIZES, mirrorSizeProblem, sizeRule, type SizeLimit } from './rules';
+import {
+  catalogueRules,
+  DOME_PORTION_MESSAGE,
+  MIRROR_SHAPE_MESSAGE,
+  MIRROR_SIZES,
+  mirrorSizeProblem,
+  sizeRule,
+  type SizeLimit,
+} from './rules';
 import { zodNumber, zodText } from './zod-rules';
 
 /** Shapes the catalogue sells; the engine's `Mirror` is built from these fields (see mirrorOfItem). */
@@ -20,7 +28,11 @@ export const mirrorSpec = z.discriminatedUnion(
       heightM: metres(MIRROR_SIZES.height),
       radiusM: metres(MIRROR_SIZES.radius),
     }),
-    z.object({ shape: z.literal('dome'), portion: z.enum(domePortions, { message: DOME_PORTION_MESSAGE }), diameterM: metres(MIRROR_SIZES.domeDiameter) }),
+    z.object({
+      shape: z.literal('dome'),
+      portion: z.enum(domePortions, { message: DOME_PORTION_MESSAGE }),
+      diameterM: metres(MIRROR_SIZES.domeDiameter),
+    }),
   ],
   { message: MIRROR_SHAPE_MESSAGE },
 );

@@ -43,7 +43,12 @@ export type LimitedThing = 'wall' | 'zone' | 'zoneCorner' | 'viewer' | 'mirror';
  * What the plan's tools check before adding one more thing: the sentence to show instead of sending a
  * change the API would refuse, or null when there is room. `draftCorners` is the zone being drawn.
  */
-export function limitProblem(thing: LimitedThing, scene: { walls: readonly unknown[]; zones: readonly { polygonM: readonly unknown[] }[]; viewers: readonly unknown[] }, mirrors: number, draftCorners = 0): string | null {
+export function limitProblem(
+  thing: LimitedThing,
+  scene: { walls: readonly unknown[]; zones: readonly { polygonM: readonly unknown[] }[]; viewers: readonly unknown[] },
+  mirrors: number,
+  draftCorners = 0,
+): string | null {
   switch (thing) {
     case 'wall':
       return scene.walls.length >= SCENE_LIMITS.walls ? LIMIT_MESSAGES.walls : null;

@@ -8,9 +8,17 @@ import { labelRule, placementRules, projectRules } from './rules';
 import { zodText } from './zod-rules';
 
 const MAX_SITE_M = 2000;
-const coord = z.number({ message: 'Enter a position.' }).finite('Positions must be numbers.').min(-MAX_SITE_M, 'That point is more than 2 km from the origin.').max(MAX_SITE_M, 'That point is more than 2 km from the origin.');
+const coord = z
+  .number({ message: 'Enter a position.' })
+  .finite('Positions must be numbers.')
+  .min(-MAX_SITE_M, 'That point is more than 2 km from the origin.')
+  .max(MAX_SITE_M, 'That point is more than 2 km from the origin.');
 const pair = z.tuple([coord, coord], { message: 'A point needs x and y.' });
-const sceneId = z.string().min(1).max(40).regex(/^[A-Za-z0-9_-]+$/, 'Ids use letters, digits, dash or underscore.');
+const sceneId = z
+  .string()
+  .min(1)
+  .max(40)
+  .regex(/^[A-Za-z0-9_-]+$/, 'Ids use letters, digits, dash or underscore.');
 const label = (what: string) => zodText(labelRule(what));
 
 export const wallKinds = ['wall', 'racking', 'door'] as const;
@@ -20,16 +28,25 @@ export const wall = z
     kind: z.enum(wallKinds).default('wall'),
     aM: pair,
     bM: pair,
-    heightM: z.number({ message: 'Enter the height.' }).positive('The height must be more than zero.').max(60, 'A wall higher than 60 m is not a wall.'),
+    heightM: z
+      .number({ message: 'Enter the height.' })
+      .positive('The height must be more than zero.')
+      .max(60, 'A wall higher than 60 m is not a wall.'),
   })
-  .refine((w) => Math.hypot(w.bM[0] - w.aM[0], w.bM[1] - w.aM[1]) >= 0.01, { message: 'A wall needs two different ends (at least 10 mm apart).', path: ['bM'] });
+  .refine((w) => Math.hypot(w.bM[0] - w.aM[0], w.bM[1] - w.aM[1]) >= 0.01, {
+    message: 'A wall needs two different ends (at least 10 mm apart).',
+    path: ['bM'],
+  });
 
 /** Who must be seen in a zone: a standing adult, a child, or a custom height. */
 export const targetKinds = ['adult', 'child', 'custom'] as const;
 export const zoneTarget = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('adult') }),
   z.object({ kind: z.literal('child') }),
-  z.object({ kind: z.literal('custom'), heightM: z.number().positive('The target height must be more than zero.').max(10, 'The target height must be at most 10 m.') }),
+  z.object({
+    kind: z.literal('custom'),
+    heightM: z.number().positive('The target height must be more than zero.').max(10, 'The target height must be at most 10 m.'),
+  }),
 ]);
 export type ZoneTarget = z.infer<typeof zoneTarget>;
 
@@ -50,7 +67,10 @@ export const viewer = z.object({
   id: sceneId,
   name: label('viewer'),
   positionM: pair,
-  eyeHeightM: z.number({ message: 'Enter the eye height.' }).min(0.3, 'An eye height under 0.3 m is not a seated or standing person.').max(6, 'An eye height over 6 m is not a person on the floor.'),
+  eyeHeightM: z
+    .number({ message: 'Enter the eye height.' })
+    .min(0.3, 'An eye height under 0.3 m is not a seated or standing person.')
+    .max(6, 'An eye height over 6 m is not a person on the floor.'),
 });
 
 export const scene = z
@@ -65,7 +85,11 @@ export const scene = z
     const corners = s.zones.reduce((sum, z) => sum + z.polygonM.length, 0);
     if (corners > SCENE_LIMITS.zoneCorners) ctx.addIssue({ code: 'custom', path: ['zones'], message: LIMIT_MESSAGES.zoneCorners });
     const seen = new Set<string>();
-    for (const [listName, list] of [['walls', s.walls], ['zones', s.zones], ['viewers', s.viewers]] as const) {
+    for (const [listName, list] of [
+      ['walls', s.walls],
+      ['zones', s.zones],
+      ['viewers', s.viewers],
+    ] as const) {
       list.forEach((item, i) => {
         if (seen.has(item.id)) ctx.addIssue({ code: 'custom', path: [listName, i, 'id'], message: 'Two items in the plan share an id.' });
         seen.add(item.id);
@@ -107,7 +131,11 @@ export const patchProjectBody = z
 export type PatchProjectBody = z.input<typeof patchProjectBody>;
 
 const angle = (what: string, min: number, max: number) =>
-  z.number({ message: `Enter the ${what}.` }).finite(`Enter the ${what} as a number.`).min(min, `The ${what} is out of range.`).max(max, `The ${what} is out of range.`);
+  z
+    .number({ message: `Enter the ${what}.` })
+    .finite(`Enter the ${what} as a number.`)
+    .min(min, `The ${what} is out of range.`)
+    .max(max, `The ${what} is out of range.`);
 
 /** Placement fields without defaults: a PATCH must not fill in what it did not say. */
 const placementFields = {
@@ -125,7 +153,8 @@ const placementFields = {
   notes: zodText(placementRules.notes),
 };
 
-const oneMirror = (b: { catalogueItemId?: number | null; customMirror?: unknown }) => (b.catalogueItemId == null) !== (b.customMirror == null);
+const oneMirror = (b: { catalogueItemId?: number | null; customMirror?: unknown }) =>
+  (b.catalogueItemId == null) !== (b.customMirror == null);
 const oneMirrorMessage = { message: 'Choose a catalogue mirror or describe a custom one (one of the two).', path: ['catalogueItemId'] };
 
 export const createPlacementBody = z

@@ -205,10 +205,16 @@ export type MirrorSize =
 /** The sphere's radius must exceed the half-aperture, or the panel could not be cut from it. */
 export function mirrorSizeProblem(m: MirrorSize): { field: 'radiusM'; message: string } | null {
   if (m.shape === 'round' && m.diameterM >= 2 * m.radiusM) {
-    return { field: 'radiusM', message: 'The radius of curvature must be more than half the diameter: no sphere that small has a cap this wide.' };
+    return {
+      field: 'radiusM',
+      message: 'The radius of curvature must be more than half the diameter: no sphere that small has a cap this wide.',
+    };
   }
   if (m.shape === 'rect' && Math.hypot(m.widthM, m.heightM) >= 2 * m.radiusM) {
-    return { field: 'radiusM', message: 'The radius of curvature must be more than half the panel diagonal: no sphere that small has a panel this large.' };
+    return {
+      field: 'radiusM',
+      message: 'The radius of curvature must be more than half the panel diagonal: no sphere that small has a panel this large.',
+    };
   }
   return null;
 }
@@ -221,7 +227,13 @@ export const catalogueRules = {
     pattern: { re: /^[A-Za-z0-9._-]+$/, message: 'Use letters, digits, dot, dash or underscore in the code.' },
     lines: 'single',
   },
-  name: { trim: true, required: 'Enter a name.', maxLength: { value: 160, message: 'Keep the name to 160 characters.' }, lines: 'single', printable: true },
+  name: {
+    trim: true,
+    required: 'Enter a name.',
+    maxLength: { value: 160, message: 'Keep the name to 160 characters.' },
+    lines: 'single',
+    printable: true,
+  },
   material: optionalTextRule('material', 80, 'single'),
   notes: optionalTextRule('notes', 2000, 'multi', false),
   currency: {

@@ -48,5 +48,10 @@ export const sheetIssueResponse = z.object({ revision: sheetRevisionDto, created
 export type SheetIssueResponse = z.infer<typeof sheetIssueResponse>;
 
 /** `sent`: the mail server accepted it; `queued`: stored and retried until the server takes it. */
-export const sheetEmailResponse = z.object({ revision: sheetRevisionDto, to: z.string(), filename: z.string(), delivery: z.enum(['sent', 'queued']) });
+export const sheetEmailResponse = z.object({
+  revision: sheetRevisionDto,
+  to: z.string(),
+  filename: z.string(),
+  delivery: z.enum(['sent', 'queued']),
+});
 export type SheetEmailResponse = z.infer<typeof sheetEmailResponse>;

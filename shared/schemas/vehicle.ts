@@ -42,7 +42,11 @@ const id = z
   .max(40, 'Keep ids to 40 characters.')
   .regex(/^[A-Za-z0-9_-]+$/, 'Ids use letters, digits, dash or underscore.');
 const name = (what: string) =>
-  z.string({ message: `Give the ${what} a name.` }).trim().min(1, `Give the ${what} a name.`).max(80, `Keep the ${what}'s name to 80 characters.`);
+  z
+    .string({ message: `Give the ${what} a name.` })
+    .trim()
+    .min(1, `Give the ${what} a name.`)
+    .max(80, `Keep the ${what}'s name to 80 characters.`);
 const planCoord = metres('position', -200, 200);
 const planPoint = z.tuple([planCoord, planCoord], { message: 'A point needs x (forward) and y (left) in metres.' });
 const arcAngle = (what: string) =>
@@ -90,8 +94,14 @@ export const bodyBox = z
     heightM: positiveMetres('body part’s height', 6),
     windowLineM: metres('window line height', 0, 6).nullable().default(null),
   })
-  .refine((b) => b.rearBehindM - b.frontBehindM >= 0.05, { message: 'The body part’s rear must be at least 50 mm behind its front.', path: ['rearBehindM'] })
-  .refine((b) => b.windowLineM === null || b.windowLineM < b.heightM, { message: 'The window line must be below the top of the body part.', path: ['windowLineM'] });
+  .refine((b) => b.rearBehindM - b.frontBehindM >= 0.05, {
+    message: 'The body part’s rear must be at least 50 mm behind its front.',
+    path: ['rearBehindM'],
+  })
+  .refine((b) => b.windowLineM === null || b.windowLineM < b.heightM, {
+    message: 'The window line must be below the top of the body part.',
+    path: ['windowLineM'],
+  });
 export type BodyBox = z.infer<typeof bodyBox>;
 
 /** A ground area the installer wants seen, in plan (x forward, y left, metres). */
@@ -132,7 +142,9 @@ export type PointTarget = z.infer<typeof pointTarget>;
 
 export const vehicle = z
   .object({
-    kind: z.enum(vehicleKinds, { message: 'Choose a kind of vehicle: car or van, bus or coach, rigid truck, tractor unit, school bus or site machine.' }),
+    kind: z.enum(vehicleKinds, {
+      message: 'Choose a kind of vehicle: car or van, bus or coach, rigid truck, tractor unit, school bus or site machine.',
+    }),
     driverSide: z.enum(driverSides, { message: 'Choose left- or right-hand drive.' }),
     lengthM: positiveMetres('overall length', 40),
     widthM: positiveMetres('overall width without mirrors', 3.5),
@@ -150,19 +162,29 @@ export const vehicle = z
     const behind = v.eye.method === 'seat' ? v.eye.seatBehindFrontM : v.eye.eyeBehindFrontM;
     const across = v.eye.method === 'seat' ? v.eye.seatFromCentreM : v.eye.eyeFromCentreM;
     const eyePath = v.eye.method === 'seat' ? ['eye', 'seatBehindFrontM'] : ['eye', 'eyeBehindFrontM'];
-    if (behind >= v.lengthM) say(eyePath, 'The driver sits within the vehicle: the distance behind the front must be less than its length.');
-    if (across >= v.widthM / 2) say(['eye', v.eye.method === 'seat' ? 'seatFromCentreM' : 'eyeFromCentreM'], 'The driver sits within the vehicle: the distance from the centreline must be less than half its width.');
+    if (behind >= v.lengthM)
+      say(eyePath, 'The driver sits within the vehicle: the distance behind the front must be less than its length.');
+    if (across >= v.widthM / 2)
+      say(
+        ['eye', v.eye.method === 'seat' ? 'seatFromCentreM' : 'eyeFromCentreM'],
+        'The driver sits within the vehicle: the distance from the centreline must be less than half its width.',
+      );
     const seen = new Set<string>();
     v.bodyBoxes.forEach((b, i) => {
       if (seen.has(b.id)) say(['bodyBoxes', i, 'id'], 'Two body parts share an id.');
       seen.add(b.id);
-      if (b.rearBehindM > v.lengthM + 1e-9) say(['bodyBoxes', i, 'rearBehindM'], 'The body part reaches behind the vehicle’s overall length.');
-      if (Math.abs(b.offsetM) + b.widthM / 2 > v.widthM / 2 + 1e-9) say(['bodyBoxes', i, 'widthM'], 'The body part is wider than the vehicle or sticks out past its side.');
+      if (b.rearBehindM > v.lengthM + 1e-9)
+        say(['bodyBoxes', i, 'rearBehindM'], 'The body part reaches behind the vehicle’s overall length.');
+      if (Math.abs(b.offsetM) + b.widthM / 2 > v.widthM / 2 + 1e-9)
+        say(['bodyBoxes', i, 'widthM'], 'The body part is wider than the vehicle or sticks out past its side.');
       const e = eyeMidpointM(v.eye, v.driverSide);
       const yBox = (v.driverSide === 'left' ? 1 : -1) * b.offsetM;
       const eyeInside = -e[0] > b.frontBehindM && -e[0] < b.rearBehindM && Math.abs(e[1] - yBox) < b.widthM / 2 && e[2] < b.heightM;
       if (eyeInside && (b.windowLineM === null || b.windowLineM >= e[2])) {
-        say(['bodyBoxes', i, 'windowLineM'], `The driver’s eye is inside “${b.name}” below its window line; give it a window line lower than the eye (${e[2].toFixed(2)} m).`);
+        say(
+          ['bodyBoxes', i, 'windowLineM'],
+          `The driver’s eye is inside “${b.name}” below its window line; give it a window line lower than the eye (${e[2].toFixed(2)} m).`,
+        );
       }
     });
     v.groundFields.forEach((f, i) => {

@@ -198,8 +198,10 @@ export function parseLength(text: string, units: UnitSystem, kind: LengthKind = 
     // After feet, a bare number is inches (2' 3); after metres, a bare number means nothing certain.
     const second = b.unit ?? (first === 'ft' ? 'in' : null);
     if (!first || !second) return { ok: false, message: `Give each number in "${text.trim()}" a unit, ${lengthExample(units)}.` };
-    if (isImperial(first) !== isImperial(second)) return { ok: false, message: 'Use one system per value: metric (m, cm, mm) or imperial (ft, in), not both.' };
-    if (METRES_PER[first] <= METRES_PER[second]) return { ok: false, message: 'Write the larger unit first, like "2 ft 3 in" or "1 m 20 cm".' };
+    if (isImperial(first) !== isImperial(second))
+      return { ok: false, message: 'Use one system per value: metric (m, cm, mm) or imperial (ft, in), not both.' };
+    if (METRES_PER[first] <= METRES_PER[second])
+      return { ok: false, message: 'Write the larger unit first, like "2 ft 3 in" or "1 m 20 cm".' };
     metres = a.value * METRES_PER[first] + b.value * METRES_PER[second];
   } else {
     return { ok: false, message: `"${text.trim()}" has too many numbers; write one length, ${lengthExample(units)}.` };
@@ -278,12 +280,19 @@ export function minorDigits(currency: string): number {
 
 /** A price typed in major units ("123.45", "123,45", "€ 99") into the currency's minor unit. */
 export function parseMoney(text: string, currency: string): ParseResult<'minor'> {
-  const s = normalise(text).replace(/[^\d.,-]/g, '').replace(/(\d),(\d{1,2})$/, '$1.$2').replace(/,/g, '');
+  const s = normalise(text)
+    .replace(/[^\d.,-]/g, '')
+    .replace(/(\d),(\d{1,2})$/, '$1.$2')
+    .replace(/,/g, '');
   if (s === '') return { ok: false, message: 'Enter a price, like 129.00.' };
   if (!/^\d+(\.\d+)?$/.test(s)) return { ok: false, message: `"${text.trim()}" is not a price we can read; write it like 129.00.` };
   const digits = minorDigits(currency);
   const [, frac = ''] = s.split('.');
-  if (frac.length > digits) return { ok: false, message: digits === 0 ? `${currency} has no cents; enter a whole amount.` : `Enter at most ${digits} digits after the point.` };
+  if (frac.length > digits)
+    return {
+      ok: false,
+      message: digits === 0 ? `${currency} has no cents; enter a whole amount.` : `Enter at most ${digits} digits after the point.`,
+    };
   return { ok: true, minor: Math.round(Number(s) * 10 ** digits) };
 }
 

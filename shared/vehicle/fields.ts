@@ -22,16 +22,7 @@ export const STATUS_MARK_MEANING: Record<StatusMark, string> = {
 };
 
 export type FieldCode =
-  | 'un-ii'
-  | 'un-iii'
-  | 'un-iv'
-  | 'un-v'
-  | 'un-v-extended'
-  | 'un-vi'
-  | 'us-driver-strip'
-  | 'iso-boundary-1m'
-  | 'iso-circle-12m'
-  | 'user';
+  'un-ii' | 'un-iii' | 'un-iv' | 'un-v' | 'un-v-extended' | 'un-vi' | 'us-driver-strip' | 'iso-boundary-1m' | 'iso-circle-12m' | 'user';
 
 export type FieldSpec = {
   code: Exclude<FieldCode, 'user'>;
@@ -86,7 +77,8 @@ export const FIELD_SPECS: Record<Exclude<FieldCode, 'user'>, FieldSpec> = {
     rule: 'UN Regulation No. 46',
     status: 'M',
     basis: 'Widths from memory [M]; area 5.5 m² published [P]; the forward limit at the front bumper published [P].',
-    description: 'Ground 2 m wide beside the cab on the passenger side, from 1 m ahead of the eyes (or the bumper if nearer) to 1.75 m behind.',
+    description:
+      'Ground 2 m wide beside the cab on the passenger side, from 1 m ahead of the eyes (or the bumper if nearer) to 1.75 m behind.',
     eyes: 'both',
     toHorizon: false,
   },
@@ -125,7 +117,8 @@ export const FIELD_SPECS: Record<Exclude<FieldCode, 'user'>, FieldSpec> = {
     title: '1 m boundary',
     rule: 'ISO 5006',
     status: 'D',
-    basis: 'A rectangular boundary 1 m outside the machine’s outline published [P]; scoring the ground band between the outline and that boundary is our reading [D].',
+    basis:
+      'A rectangular boundary 1 m outside the machine’s outline published [P]; scoring the ground band between the outline and that boundary is our reading [D].',
     description: 'The ground band from the machine’s outline to 1 m outside it, all round.',
     eyes: 'one',
     toHorizon: false,
@@ -135,7 +128,8 @@ export const FIELD_SPECS: Record<Exclude<FieldCode, 'user'>, FieldSpec> = {
     title: '12 m visibility circle',
     rule: 'ISO 5006',
     status: 'D',
-    basis: 'A 12 m circle on the ground centred under the seat index point published [P]; scoring a 1 m wide band centred on it is our reading [D].',
+    basis:
+      'A 12 m circle on the ground centred under the seat index point published [P]; scoring a 1 m wide band centred on it is our reading [D].',
     description: 'A band 1 m wide on the ground along the 12 m circle around the seat.',
     eyes: 'one',
     toHorizon: false,
@@ -188,32 +182,96 @@ export function fieldPolygon(code: Exclude<FieldCode, 'user'>, g: VehicleGeometr
   const yCab = g.cabY[side];
   switch (code) {
     case 'un-ii':
-      return [sideRing(g, side, yOut, [[-4, 0], [-4, 1], [-30, 1], [-30, 5], [far, 5], [far, 0]])];
+      return [
+        sideRing(g, side, yOut, [
+          [-4, 0],
+          [-4, 1],
+          [-30, 1],
+          [-30, 5],
+          [far, 5],
+          [far, 0],
+        ]),
+      ];
     case 'un-iii':
-      return [sideRing(g, side, yOut, [[-4, 0], [-4, 1], [-20, 1], [-20, 4], [far, 4], [far, 0]])];
+      return [
+        sideRing(g, side, yOut, [
+          [-4, 0],
+          [-4, 1],
+          [-20, 1],
+          [-20, 4],
+          [far, 4],
+          [far, 0],
+        ]),
+      ];
     case 'un-iv':
-      return [sideRing(g, side, yOut, [[-1.5, 0], [-1.5, 4.5], [-10, 15], [-25, 15], [-25, 0]])];
+      return [
+        sideRing(g, side, yOut, [
+          [-1.5, 0],
+          [-1.5, 4.5],
+          [-10, 15],
+          [-25, 15],
+          [-25, 0],
+        ]),
+      ];
     case 'un-v': {
       // Forward limit: 1 m ahead of the eyes, or the front bumper if that is nearer [P].
       const xf = Math.min(1.0, g.bumperX - g.eyeMidM[0]);
-      return [sideRing(g, side, yCab, [[xf, 0], [xf, 2], [-1.75, 2], [-1.75, 0]])];
+      return [
+        sideRing(g, side, yCab, [
+          [xf, 0],
+          [xf, 2],
+          [-1.75, 2],
+          [-1.75, 0],
+        ]),
+      ];
     }
     case 'un-v-extended':
-      return [sideRing(g, side, yCab, [[3, 0], [3, 4.5], [-1.75, 4.5], [-1.75, 0]])];
+      return [
+        sideRing(g, side, yCab, [
+          [3, 0],
+          [3, 4.5],
+          [-1.75, 4.5],
+          [-1.75, 0],
+        ]),
+      ];
     case 'un-vi': {
       // `side` is the passenger side: the field overhangs it by 2 m.
       const yDriver = g.outerY[otherSide(side)];
       const yFar = yOut + sideSign(side) * 2;
       const x0 = g.cabFrontX;
-      return [[[x0, yDriver], [x0 + 2, yDriver], [x0 + 2, yFar], [x0, yFar]]];
+      return [
+        [
+          [x0, yDriver],
+          [x0 + 2, yDriver],
+          [x0 + 2, yFar],
+          [x0, yFar],
+        ],
+      ];
     }
     case 'us-driver-strip':
-      return [sideRing(g, side, yOut, [[-10.7, 0], [-10.7, 2.4], [far, 2.4], [far, 0]])];
+      return [
+        sideRing(g, side, yOut, [
+          [-10.7, 0],
+          [-10.7, 2.4],
+          [far, 2.4],
+          [far, 0],
+        ]),
+      ];
     case 'iso-boundary-1m': {
       const [[x0, y0], , [x1, y1]] = [g.outline[0], g.outline[1], g.outline[2]];
       return [
-        [[x0 - 1, y0 - 1], [x1 + 1, y0 - 1], [x1 + 1, y1 + 1], [x0 - 1, y1 + 1]],
-        [[x0, y0], [x1, y0], [x1, y1], [x0, y1]],
+        [
+          [x0 - 1, y0 - 1],
+          [x1 + 1, y0 - 1],
+          [x1 + 1, y1 + 1],
+          [x0 - 1, y1 + 1],
+        ],
+        [
+          [x0, y0],
+          [x1, y0],
+          [x1, y1],
+          [x0, y1],
+        ],
       ];
     }
     case 'iso-circle-12m': {
@@ -234,7 +292,10 @@ function symmetricCircle(c: Pair, r: number, segments: number): Ring {
     const a = (2 * Math.PI * k) / segments;
     upper.push([r * Math.cos(a), k === 0 || 2 * k === segments ? 0 : r * Math.sin(a)]);
   }
-  const lower: Pair[] = upper.slice(1, -1).reverse().map(([dx, dy]) => [dx, -dy]);
+  const lower: Pair[] = upper
+    .slice(1, -1)
+    .reverse()
+    .map(([dx, dy]) => [dx, -dy]);
   return [...upper, ...lower].map(([dx, dy]) => [c[0] + dx, c[1] + dy] as Pair);
 }
 
@@ -259,7 +320,9 @@ export function libraryField(g: VehicleGeometry, choice: FieldChoice, opts: Fiel
     polygonM: fieldPolygon(choice.code, g, choice.side, opts),
     requiredShare: choice.requiredShare,
     requiredShareBasis: choice.requiredShareBasis,
-    scoredToNote: spec.toHorizon ? `The rule runs this field to the horizon; it is scored to ${horizonM} m behind the driver’s eyes.` : null,
+    scoredToNote: spec.toHorizon
+      ? `The rule runs this field to the horizon; it is scored to ${horizonM} m behind the driver’s eyes.`
+      : null,
   };
 }
 
@@ -268,7 +331,8 @@ export type RuleSetId = 'eu-retrofit' | 'un-r46' | 'fmvss-111' | 'iso-5006';
 export const RULE_SETS: Record<RuleSetId, { title: string; description: string }> = {
   'eu-retrofit': {
     title: 'EU retrofit rule for trucks (Directive 2007/38/EC)',
-    description: 'Trucks over 3.5 t: the passenger-side mirrors together show at least 95 % of the class IV field and 85 % of the class V field [P]; other fields as UN R46.',
+    description:
+      'Trucks over 3.5 t: the passenger-side mirrors together show at least 95 % of the class IV field and 85 % of the class V field [P]; other fields as UN R46.',
   },
   'un-r46': {
     title: 'UN Regulation No. 46',
@@ -280,7 +344,8 @@ export const RULE_SETS: Record<RuleSetId, { title: string; description: string }
   },
   'iso-5006': {
     title: 'ISO 5006 (earth-moving machinery)',
-    description: 'The share of the 1 m boundary and of the 12 m circle seen; the standard’s pass tables are not public, so no verdict is given.',
+    description:
+      'The share of the 1 m boundary and of the 12 m circle seen; the standard’s pass tables are not public, so no verdict is given.',
   },
 };
 
@@ -300,13 +365,22 @@ const R46_BASIS = '100 % less the 10 % of a field that bodywork may hide (UN R46
 export function ruleSetChoices(ruleSet: RuleSetId, v: Pick<Vehicle, 'kind' | 'driverSide'>): FieldChoice[] {
   const d: Side = v.driverSide;
   const p: Side = otherSide(d);
-  const r46 = (code: FieldChoice['code'], side: Side): FieldChoice => ({ code, side, requiredShare: R46_SHARE, requiredShareBasis: R46_BASIS });
+  const r46 = (code: FieldChoice['code'], side: Side): FieldChoice => ({
+    code,
+    side,
+    requiredShare: R46_SHARE,
+    requiredShareBasis: R46_BASIS,
+  });
   const truck = (): FieldChoice[] => [r46('un-ii', d), r46('un-ii', p), r46('un-iv', d), r46('un-iv', p), r46('un-v', p), r46('un-vi', p)];
   switch (ruleSet) {
     case 'eu-retrofit':
       return truck().map((c) =>
         c.side === p && c.code === 'un-iv'
-          ? { ...c, requiredShare: 0.95, requiredShareBasis: 'At least 95 % of the class IV field on the passenger side (Directive 2007/38/EC) [P].' }
+          ? {
+              ...c,
+              requiredShare: 0.95,
+              requiredShareBasis: 'At least 95 % of the class IV field on the passenger side (Directive 2007/38/EC) [P].',
+            }
           : c.side === p && c.code === 'un-v'
             ? { ...c, requiredShare: 0.85, requiredShareBasis: 'At least 85 % of the class V field (Directive 2007/38/EC) [P].' }
             : c,
@@ -329,7 +403,12 @@ export function ruleSetChoices(ruleSet: RuleSetId, v: Pick<Vehicle, 'kind' | 'dr
       ];
     case 'iso-5006':
       return [
-        { code: 'iso-boundary-1m', side: d, requiredShare: null, requiredShareBasis: 'No pass mark: the standard’s tables are not public.' },
+        {
+          code: 'iso-boundary-1m',
+          side: d,
+          requiredShare: null,
+          requiredShareBasis: 'No pass mark: the standard’s tables are not public.',
+        },
         { code: 'iso-circle-12m', side: d, requiredShare: null, requiredShareBasis: 'No pass mark: the standard’s tables are not public.' },
       ];
   }

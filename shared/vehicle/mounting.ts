@@ -47,7 +47,10 @@ export function mirrorExtent(m: Mirror, pose: Pose): { lowestZ: number; outermos
   const R = m.radiusM;
   const pts: [number, number][] =
     m.shape === 'round'
-      ? Array.from({ length: 72 }, (_, k) => [(m.diameterM / 2) * Math.cos((k * Math.PI) / 36), (m.diameterM / 2) * Math.sin((k * Math.PI) / 36)])
+      ? Array.from({ length: 72 }, (_, k) => [
+          (m.diameterM / 2) * Math.cos((k * Math.PI) / 36),
+          (m.diameterM / 2) * Math.sin((k * Math.PI) / 36),
+        ])
       : [
           [m.widthM / 2, m.heightM / 2],
           [-m.widthM / 2, m.heightM / 2],
@@ -73,7 +76,11 @@ export function mountingNotes(v: Vehicle, g: VehicleGeometry, mirrors: readonly 
     const name = f.label ?? f.id;
     const { lowestZ, outermostAbsY } = mirrorExtent(f.mirror, f.pose);
     if (f.mirror.shape !== 'dome' && dot(sub(g.eyeMidM, f.pose.vertexM), f.pose.axis) <= 0) {
-      notes.push({ mirrorId: f.id, check: 'faces-away', sentence: `${name} faces away from the driver’s eyes, so it shows the driver nothing; turn it toward the cab.` });
+      notes.push({
+        mirrorId: f.id,
+        check: 'faces-away',
+        sentence: `${name} faces away from the driver’s eyes, so it shows the driver nothing; turn it toward the cab.`,
+      });
     }
     if ((f.mirrorClass === 'V' || f.mirrorClass === 'VI') && lowestZ < LOW_MIRROR_M) {
       notes.push({

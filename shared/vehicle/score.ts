@@ -217,7 +217,13 @@ export function scoreVehicle(input: ScoreInput): VehicleScore {
  * One mirror's ground footprint from one eye, with the body as walls. An eye behind the
  * mirror's face sees nothing in it: an empty footprint (the mounting notes say so).
  */
-export function mirrorFootprint(m: VehicleMirror, eyeM: Vec3, maxRangeM: number, g: VehicleGeometry, accuracy: TraceAccuracy = VEHICLE_ACCURACY): MultiPolygon {
+export function mirrorFootprint(
+  m: VehicleMirror,
+  eyeM: Vec3,
+  maxRangeM: number,
+  g: VehicleGeometry,
+  accuracy: TraceAccuracy = VEHICLE_ACCURACY,
+): MultiPolygon {
   try {
     // The range circle only bounds the trace: it lies 1 m beyond every field's farthest corner,
     // so its chords may cut up to 50 mm inside it without touching a field.

@@ -117,7 +117,13 @@ export function targetView(args: {
     recognised: args.recogniseAngleRad === undefined ? null : false,
     passes: false,
   };
-  const rank = (x: TargetView): number[] => [x.passes ? 1 : 0, x.whollyVisible ? 1 : 0, x.insideEdgeRad ?? -1, x.heightAngleRad ?? -1, x.visible ? 1 : 0];
+  const rank = (x: TargetView): number[] => [
+    x.passes ? 1 : 0,
+    x.whollyVisible ? 1 : 0,
+    x.insideEdgeRad ?? -1,
+    x.heightAngleRad ?? -1,
+    x.visible ? 1 : 0,
+  ];
   const better = (a: TargetView, b: TargetView): boolean => {
     const ra = rank(a);
     const rb = rank(b);
@@ -155,7 +161,10 @@ export function targetView(args: {
       const meetsSize =
         t.minShortRad === null && t.minLongRad === null
           ? null
-          : short !== null && long !== null && (t.minShortRad === null || short >= t.minShortRad) && (t.minLongRad === null || long >= t.minLongRad);
+          : short !== null &&
+            long !== null &&
+            (t.minShortRad === null || short >= t.minShortRad) &&
+            (t.minLongRad === null || long >= t.minLongRad);
       const view: TargetView = {
         targetId: t.id,
         name: t.name,

@@ -56,7 +56,9 @@ function textFor(rule: TextRule): fc.Arbitrary<string> {
     fc.constantFrom('', ' ', '\t \n'),
     fc.string({ maxLength: 12 }),
     fc.string({ unit: 'grapheme', maxLength: 12 }),
-    fc.tuple(fc.constantFrom('', ' ', '  '), fc.string({ minLength: Math.max(0, max - 2), maxLength: max + 2 }), fc.constantFrom('', ' ')).map(([a, b, c]) => a + b + c),
+    fc
+      .tuple(fc.constantFrom('', ' ', '  '), fc.string({ minLength: Math.max(0, max - 2), maxLength: max + 2 }), fc.constantFrom('', ' '))
+      .map(([a, b, c]) => a + b + c),
   ];
   if (rule.minLength) parts.push(fc.string({ minLength: rule.minLength.value - 1, maxLength: rule.minLength.value + 1 }));
   if (rule.pattern) parts.push(fc.stringMatching(rule.pattern.re).map((s) => s.slice(0, max + 3)));
@@ -119,7 +121,11 @@ describe('each form refuses what its route refuses, with the same sentence per f
   });
 
   it('set-password form and POST /invitations/accept', async () => {
-    const password = fc.oneof(fc.string({ maxLength: 80 }), fc.string({ minLength: 8, maxLength: 12 }), fc.constantFrom('', ' '.repeat(10)));
+    const password = fc.oneof(
+      fc.string({ maxLength: 80 }),
+      fc.string({ minLength: 8, maxLength: 12 }),
+      fc.constantFrom('', ' '.repeat(10)),
+    );
     const arb = fc.oneof(
       fc.record<SetPasswordValues>({ password, confirm: password }),
       password.map((p) => ({ password: p, confirm: p })),
@@ -149,7 +155,10 @@ describe('each form refuses what its route refuses, with the same sentence per f
   });
 
   it('sheet e-mail form and POST /projects/:id/sheet/email', async () => {
-    const arb = fc.record<SheetEmailValues>({ to: emailText, note: fc.oneof(fc.string({ maxLength: 20 }), fc.string({ minLength: 1998, maxLength: 2003 })) });
+    const arb = fc.record<SheetEmailValues>({
+      to: emailText,
+      note: fc.oneof(fc.string({ maxLength: 20 }), fc.string({ minLength: 1998, maxLength: 2003 })),
+    });
     await expectSameVerdicts(
       arb,
       (v) => formErrors(sheetEmailSchema, v),
@@ -159,9 +168,30 @@ describe('each form refuses what its route refuses, with the same sentence per f
   });
 
   it('catalogue form (metric) and POST /catalog', async () => {
-    const CATALOGUE_FIELDS = ['code', 'name', 'shape', 'portion', 'diameterM', 'widthM', 'heightM', 'radiusM', 'material', 'reflectancePct', 'massKg', 'price', 'currency', 'notes'];
+    const CATALOGUE_FIELDS = [
+      'code',
+      'name',
+      'shape',
+      'portion',
+      'diameterM',
+      'widthM',
+      'heightM',
+      'radiusM',
+      'material',
+      'reflectancePct',
+      'massKg',
+      'price',
+      'currency',
+      'notes',
+    ];
     const limits = Object.values(MIRROR_SIZES).flatMap((s) => [s.minM, s.maxM]);
-    const size = fc.oneof(fc.constant(null), fc.double({ min: -1, max: 60, noNaN: true }), fc.double({ min: 0, max: 3.5, noNaN: true }), fc.constantFrom(...limits), fc.constantFrom(...limits).map((m) => m * (1 - 1e-9)));
+    const size = fc.oneof(
+      fc.constant(null),
+      fc.double({ min: -1, max: 60, noNaN: true }),
+      fc.double({ min: 0, max: 3.5, noNaN: true }),
+      fc.constantFrom(...limits),
+      fc.constantFrom(...limits).map((m) => m * (1 - 1e-9)),
+    );
     const decimalText = (max: number) =>
       fc.oneof(
         fc.constantFrom('', ' ', 'abc', '-1', '1e3', '12,5', '0'),

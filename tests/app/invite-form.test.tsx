@@ -29,13 +29,21 @@ describe('InviteForm', () => {
     await user.click(screen.getByTestId('invite-role-reviewer'));
     await user.click(screen.getByTestId('invite-submit'));
 
-    await waitFor(() => expect(onSubmit).toHaveBeenCalledWith({ email: 'new.person@sightfan-demo.example', name: 'New Person', role: 'reviewer' }));
-    expect(await screen.findByTestId('invite-sent')).toHaveTextContent('Invitation for New Person <new.person@sightfan-demo.example> is queued and goes out at once when the mail server answers.');
+    await waitFor(() =>
+      expect(onSubmit).toHaveBeenCalledWith({ email: 'new.person@sightfan-demo.example', name: 'New Person', role: 'reviewer' }),
+    );
+    expect(await screen.findByTestId('invite-sent')).toHaveTextContent(
+      'Invitation for New Person <new.person@sightfan-demo.example> is queued and goes out at once when the mail server answers.',
+    );
     expect(screen.getByTestId('invite-email')).toHaveValue('');
   });
 
   it("shows the server's objection to the e-mail beside the e-mail field", async () => {
-    const onSubmit = jest.fn().mockRejectedValue(new ApiError(409, 'Someone with that e-mail is already in Sightfan.', { email: 'This address is already in use.' }));
+    const onSubmit = jest
+      .fn()
+      .mockRejectedValue(
+        new ApiError(409, 'Someone with that e-mail is already in Sightfan.', { email: 'This address is already in use.' }),
+      );
     render(<InviteForm onSubmit={onSubmit} />);
     const user = userEvent.setup();
 

@@ -14,7 +14,16 @@ describe('the order mirrors are offered in', () => {
     const shapes = demoCatalogueDtos()
       .sort(compareMirrorsBySize)
       .map((c) => (c.mirror.shape === 'dome' ? `${c.mirror.portion}-${Math.round(c.mirror.diameterM * 1000)}` : c.mirror.shape));
-    expect(shapes.slice(-8)).toEqual(['full-460', 'full-610', 'full-910', 'half-610', 'half-910', 'quarter-460', 'quarter-610', 'quarter-910']);
+    expect(shapes.slice(-8)).toEqual([
+      'full-460',
+      'full-610',
+      'full-910',
+      'half-610',
+      'half-910',
+      'quarter-460',
+      'quarter-610',
+      'quarter-910',
+    ]);
     expect(shapes.indexOf('rect')).toBeGreaterThan(shapes.lastIndexOf('round'));
   });
 });

@@ -21,7 +21,13 @@ describe('ChangePasswordForm', () => {
   });
 
   it("puts the server's word about the current password beside that field", async () => {
-    const onSubmit = jest.fn().mockRejectedValue(new ApiError(400, 'Your current password is not right; nothing was changed.', { currentPassword: 'This is not your current password.' }));
+    const onSubmit = jest
+      .fn()
+      .mockRejectedValue(
+        new ApiError(400, 'Your current password is not right; nothing was changed.', {
+          currentPassword: 'This is not your current password.',
+        }),
+      );
     render(<ChangePasswordForm onSubmit={onSubmit} />);
     const user = userEvent.setup();
 
@@ -43,7 +49,11 @@ describe('ChangePasswordForm', () => {
     await user.type(screen.getByTestId('change-password-confirm'), 'a long enough phrase{Enter}');
 
     expect(await screen.findByTestId('change-password-done')).toHaveTextContent(PASSWORD_CHANGED);
-    expect(onSubmit).toHaveBeenCalledWith({ currentPassword: 'the old phrase here', password: 'a long enough phrase', confirm: 'a long enough phrase' });
+    expect(onSubmit).toHaveBeenCalledWith({
+      currentPassword: 'the old phrase here',
+      password: 'a long enough phrase',
+      confirm: 'a long enough phrase',
+    });
     expect(screen.getByTestId('change-password-current')).toHaveValue('');
   });
 });

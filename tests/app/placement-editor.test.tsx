@@ -35,7 +35,19 @@ const project: ProjectDto = {
   notes: '',
   scene: {
     walls: [],
-    zones: [{ id: 'z1', name: 'Crossing', polygonM: [[2, -3], [8, -3], [8, 3], [2, 3]], target: { kind: 'adult' } }],
+    zones: [
+      {
+        id: 'z1',
+        name: 'Crossing',
+        polygonM: [
+          [2, -3],
+          [8, -3],
+          [8, 3],
+          [2, 3],
+        ],
+        target: { kind: 'adult' },
+      },
+    ],
     viewers: [{ id: 'v1', name: 'Driver', positionM: [6, 0], eyeHeightM: 1.6 }],
   },
   placements: [placement],
@@ -54,7 +66,18 @@ function Fed({ project: p, onClose }: { project: ProjectDto; onClose?: () => voi
   const writes = usePlacementWrites(p);
   const evaluation = usePlanEvaluation(p.scene, writes.placements, catalogue);
   const live = writes.placements.find((x) => x.id === 7) ?? null;
-  return <PlacementEditor project={p} placement={live} writes={writes} evaluation={evaluation} catalogue={catalogue} units="imperial" canEdit onClose={onClose} />;
+  return (
+    <PlacementEditor
+      project={p}
+      placement={live}
+      writes={writes}
+      evaluation={evaluation}
+      catalogue={catalogue}
+      units="imperial"
+      canEdit
+      onClose={onClose}
+    />
+  );
 }
 
 function renderEditor(onClose?: () => void) {
@@ -65,7 +88,10 @@ function renderEditor(onClose?: () => void) {
 }
 
 const eyeDistanceFor = (heightM: number) =>
-  formatLength(evaluateProject({ scene: project.scene, placements: [{ ...placement, heightM }], catalogue }).placements[0].numbers!.eyeDistanceM, 'imperial');
+  formatLength(
+    evaluateProject({ scene: project.scene, placements: [{ ...placement, heightM }], catalogue }).placements[0].numbers!.eyeDistanceM,
+    'imperial',
+  );
 
 beforeEach(() => jest.clearAllMocks());
 
@@ -120,9 +146,17 @@ describe('PlacementEditor', () => {
     expect(screen.getByTestId('placement-save-status')).toHaveTextContent('Not saved: changed elsewhere.');
     expect(api.projects.updatePlacement).toHaveBeenCalledTimes(1);
 
-    jest.mocked(api.projects.updatePlacement).mockResolvedValue({ placement: { ...theirs, heightM: 10 * 0.3048, tiltDownRad: (20 * Math.PI) / 180, version: 6 } });
+    jest
+      .mocked(api.projects.updatePlacement)
+      .mockResolvedValue({ placement: { ...theirs, heightM: 10 * 0.3048, tiltDownRad: (20 * Math.PI) / 180, version: 6 } });
     fireEvent.click(screen.getByTestId('placement-conflict-keep'));
-    await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenLastCalledWith(3, 7, { heightM: 10 * 0.3048, tiltDownRad: (20 * Math.PI) / 180, version: 5 }));
+    await waitFor(() =>
+      expect(api.projects.updatePlacement).toHaveBeenLastCalledWith(3, 7, {
+        heightM: 10 * 0.3048,
+        tiltDownRad: (20 * Math.PI) / 180,
+        version: 5,
+      }),
+    );
   });
 
   it('says why a typed height cannot be read, and does not save it', () => {
@@ -153,7 +187,9 @@ describe('PlacementEditor', () => {
 
   it('shows the safety cautions beside the numbers', () => {
     renderEditor();
-    expect(screen.getByTestId('safety-cautions')).toHaveTextContent('Objects in a convex mirror appear smaller and farther away than they are');
+    expect(screen.getByTestId('safety-cautions')).toHaveTextContent(
+      'Objects in a convex mirror appear smaller and farther away than they are',
+    );
     expect(screen.getByTestId('safety-cautions')).toHaveTextContent('which take precedence');
   });
 });

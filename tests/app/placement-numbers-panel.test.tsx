@@ -10,7 +10,19 @@ import { TEST_CATALOGUE, testPlacement } from './fixtures';
 const catalogue = TEST_CATALOGUE;
 const scene: Scene = {
   walls: [],
-  zones: [{ id: 'z1', name: 'Crossing', polygonM: [[2, -3], [8, -3], [8, 3], [2, 3]], target: { kind: 'adult' } }],
+  zones: [
+    {
+      id: 'z1',
+      name: 'Crossing',
+      polygonM: [
+        [2, -3],
+        [8, -3],
+        [8, 3],
+        [2, 3],
+      ],
+      target: { kind: 'adult' },
+    },
+  ],
   viewers: [{ id: 'v1', name: 'Driver', positionM: [6, 0], eyeHeightM: 1.6 }],
 };
 const placement: PlacementDto = testPlacement({ projectId: 1, version: 1 });
@@ -33,7 +45,9 @@ describe('PlacementNumbersPanel', () => {
     expect(screen.getByTestId('numbers-focal-length')).toHaveTextContent(size(n.focalLengthM));
     expect(screen.getByTestId('numbers-radius')).toHaveTextContent(size(n.radiusM));
     expect(screen.getByTestId('numbers-eye-distance')).toHaveTextContent(dist(n.eyeDistanceM));
-    expect(screen.getByTestId('numbers-field-of-view')).toHaveTextContent(`${formatAngle(n.onAxisFieldOfView.horizontalRad)} × ${formatAngle(n.onAxisFieldOfView.verticalRad)}`);
+    expect(screen.getByTestId('numbers-field-of-view')).toHaveTextContent(
+      `${formatAngle(n.onAxisFieldOfView.horizontalRad)} × ${formatAngle(n.onAxisFieldOfView.verticalRad)}`,
+    );
     expect(screen.getByTestId('numbers-range-adult-detect')).toHaveTextContent(dist(n.rangesM.detect.adult));
     expect(screen.getByTestId('numbers-range-adult-recognise')).toHaveTextContent(dist(n.rangesM.recognise.adult));
     expect(screen.getByTestId('numbers-range-child-detect')).toHaveTextContent(dist(n.rangesM.detect.child));
@@ -49,7 +63,9 @@ describe('PlacementNumbersPanel', () => {
       expect(text).toHaveTextContent(`looks like ${dist(r.sizeCueDistanceM)}`);
     }
     const zone = project.zones[0];
-    expect(screen.getByTestId('numbers-zone-z1')).toHaveTextContent(`${formatPercent(zone.fraction)} (${formatArea(zone.coveredM2, units)})`);
+    expect(screen.getByTestId('numbers-zone-z1')).toHaveTextContent(
+      `${formatPercent(zone.fraction)} (${formatArea(zone.coveredM2, units)})`,
+    );
   });
 
   it('labels the field of view "on axis" and states the angles behind both ranges', () => {

@@ -54,7 +54,9 @@ describe('usePlacementWrites', () => {
 
   it('keeps the unsaved values after a 409, beside the saved ones, and sends nothing more until the person chooses', async () => {
     const theirs = { ...placement, heightM: 2.4, version: 5 };
-    jest.mocked(api.projects.updatePlacement).mockRejectedValue(new ApiError(409, 'Someone else changed this mirror.', {}, undefined, theirs));
+    jest
+      .mocked(api.projects.updatePlacement)
+      .mockRejectedValue(new ApiError(409, 'Someone else changed this mirror.', {}, undefined, theirs));
     const { result } = setup();
 
     act(() => result.current.change(7, { heightM: 3 }));

@@ -12,14 +12,50 @@ const ARCMIN = Math.PI / 10800;
 const scene: Scene = {
   walls: [],
   zones: [
-    { id: 'z1', name: 'Crossing', polygonM: [[0, 1], [5, 1], [5, 4], [0, 4]], target: { kind: 'adult' } },
-    { id: 'z2', name: 'Gate', polygonM: [[0, 5], [5, 5], [5, 8], [0, 8]], target: { kind: 'child' }, criterion: 'detect' },
+    {
+      id: 'z1',
+      name: 'Crossing',
+      polygonM: [
+        [0, 1],
+        [5, 1],
+        [5, 4],
+        [0, 4],
+      ],
+      target: { kind: 'adult' },
+    },
+    {
+      id: 'z2',
+      name: 'Gate',
+      polygonM: [
+        [0, 5],
+        [5, 5],
+        [5, 8],
+        [0, 8],
+      ],
+      target: { kind: 'child' },
+      criterion: 'detect',
+    },
   ],
   viewers: [],
 };
 const project = {
-  id: 7, name: 'Aisle (demo)', customer: '', site: '', kind: 'site', status: 'draft', ownerId: 1, ownerName: 'Ines', placementCount: 0,
-  version: 1, createdAt: STAMP, updatedAt: STAMP, units: null, notes: '', scene, placements: [], canEdit: true,
+  id: 7,
+  name: 'Aisle (demo)',
+  customer: '',
+  site: '',
+  kind: 'site',
+  status: 'draft',
+  ownerId: 1,
+  ownerName: 'Ines',
+  placementCount: 0,
+  version: 1,
+  createdAt: STAMP,
+  updatedAt: STAMP,
+  units: null,
+  notes: '',
+  scene,
+  placements: [],
+  canEdit: true,
 } satisfies ProjectDto;
 
 /** The details with the real placement write path (the one the plan passes down). */
@@ -30,8 +66,19 @@ function Details(props: Omit<PlanDetailsProps, 'writes'>) {
 
 function renderDetails(overrides: Partial<Omit<PlanDetailsProps, 'writes'>>) {
   const props: Omit<PlanDetailsProps, 'writes'> = {
-    project, scene, placements: [], evaluation: null, catalogue: [], units: 'metric', canEdit: true, selection: null,
-    onSelect: jest.fn(), onViewerEyeHeight: jest.fn(), onZoneCriterion: jest.fn(), onCriteria: jest.fn(), ...overrides,
+    project,
+    scene,
+    placements: [],
+    evaluation: null,
+    catalogue: [],
+    units: 'metric',
+    canEdit: true,
+    selection: null,
+    onSelect: jest.fn(),
+    onViewerEyeHeight: jest.fn(),
+    onZoneCriterion: jest.fn(),
+    onCriteria: jest.fn(),
+    ...overrides,
   };
   renderWithQuery(<Details {...props} />);
   return props;
@@ -50,7 +97,10 @@ describe('criteria on the plan', () => {
   });
 
   it('uses the project’s own angle when it has one', () => {
-    renderDetails({ selection: { kind: 'zone', id: 'z2' }, scene: { ...scene, criteria: { detectRad: 4 * ARCMIN, recogniseRad: 30 * ARCMIN } } });
+    renderDetails({
+      selection: { kind: 'zone', id: 'z2' },
+      scene: { ...scene, criteria: { detectRad: 4 * ARCMIN, recogniseRad: 30 * ARCMIN } },
+    });
     expect(screen.getByTestId('zone-criterion-text')).toHaveTextContent("child so that they are detected: 4′ of the person's height");
   });
 

@@ -8,7 +8,10 @@ import { demoCatalogueDtos, demoPlacementDtos } from './fixtures';
 const catalogue = demoCatalogueDtos();
 
 /** The demo scene with one zone switched to a child target, so the re-clipped path is exercised too. */
-const scene: Scene = { ...DEMO_PROJECT.scene, zones: DEMO_PROJECT.scene.zones.map((z, i) => (i === 1 ? { ...z, target: { kind: 'child' as const } } : z)) };
+const scene: Scene = {
+  ...DEMO_PROJECT.scene,
+  zones: DEMO_PROJECT.scene.zones.map((z, i) => (i === 1 ? { ...z, target: { kind: 'child' as const } } : z)),
+};
 
 const placements: PlanPlacement[] = demoPlacementDtos(1);
 
@@ -36,6 +39,9 @@ describe('the plan’s cached evaluation', () => {
     expectSameFractions(again.zones, evaluateProject({ scene, placements: moved, catalogue }).zones);
     // A second step of the same drag reuses the others' union.
     const movedAgain = moved.map((p, i) => (i === 0 ? { ...p, azimuthRad: p.azimuthRad - 0.3 } : p));
-    expectSameFractions(evaluator.evaluate({ scene, placements: movedAgain, catalogue }).zones, evaluateProject({ scene, placements: movedAgain, catalogue }).zones);
+    expectSameFractions(
+      evaluator.evaluate({ scene, placements: movedAgain, catalogue }).zones,
+      evaluateProject({ scene, placements: movedAgain, catalogue }).zones,
+    );
   });
 });

@@ -11,13 +11,42 @@ const zone: Ring = [
 describe('the uncovered part of a zone', () => {
   it('is the zone minus what the mirrors show', () => {
     // Left half covered: 50 m² of the 100 m² square stay uncovered (shoelace area of a 5 m × 10 m rectangle).
-    const gap = uncoveredPart(zone, [[[[[-1, -1], [5, -1], [5, 11], [-1, 11]]]]], 'Crossing');
+    const gap = uncoveredPart(
+      zone,
+      [
+        [
+          [
+            [
+              [-1, -1],
+              [5, -1],
+              [5, 11],
+              [-1, 11],
+            ],
+          ],
+        ],
+      ],
+      'Crossing',
+    );
     expect(gap.ok && multiPolygonArea(gap.region)).toBeCloseTo(50, 9);
   });
 
   it('says in a sentence that the gap could not be drawn when the boolean operation fails, instead of showing no gap', () => {
     // A coverage outline with a coordinate that is not a number: the booleans refuse it rather than guess.
-    const gap = uncoveredPart(zone, [[[[[0, 0], [Number.NaN, 0], [5, 10]]]]], 'Crossing');
+    const gap = uncoveredPart(
+      zone,
+      [
+        [
+          [
+            [
+              [0, 0],
+              [Number.NaN, 0],
+              [5, 10],
+            ],
+          ],
+        ],
+      ],
+      'Crossing',
+    );
     expect(gap).toEqual({ ok: false, problem: expect.stringContaining('“Crossing” could not be drawn') });
   });
 });

@@ -25,8 +25,28 @@ const placement = (id: number, positionM: PairM, azimuthRad = 0): PlacementDto =
 const scene: Scene = {
   walls: [{ id: 'w1', kind: 'wall', aM: [0, 10], bM: [10, 10], heightM: 3 }],
   zones: [
-    { id: 'z-low', name: 'Lower', polygonM: [[0, 0], [8, 0], [8, 8], [0, 8]], target: { kind: 'adult' } },
-    { id: 'z-top', name: 'Upper', polygonM: [[4, 4], [8, 4], [8, 8], [4, 8]], target: { kind: 'adult' } },
+    {
+      id: 'z-low',
+      name: 'Lower',
+      polygonM: [
+        [0, 0],
+        [8, 0],
+        [8, 8],
+        [0, 8],
+      ],
+      target: { kind: 'adult' },
+    },
+    {
+      id: 'z-top',
+      name: 'Upper',
+      polygonM: [
+        [4, 4],
+        [8, 4],
+        [8, 8],
+        [4, 8],
+      ],
+      target: { kind: 'adult' },
+    },
   ],
   viewers: [{ id: 'v1', name: 'Driver', positionM: [2, 2], eyeHeightM: 1.7 }],
 };
@@ -101,7 +121,9 @@ describe('the plan gesture machine', () => {
     expect(start.effects).toEqual([{ kind: 'select', selection: { kind: 'placement', id: 7 } }]);
     const moved = moveGesture(c, start.gesture!, [[x + 4 + 40, y]]);
     expect(moved.effects).toEqual([{ kind: 'drag', drag: { kind: 'placement-move', id: 7, positionM: [7, 2], done: false } }]);
-    expect(endGesture(c, moved.gesture!, [x + 4 + 60, y])).toEqual([{ kind: 'drag', drag: { kind: 'placement-move', id: 7, positionM: [8, 2], done: true } }]);
+    expect(endGesture(c, moved.gesture!, [x + 4 + 60, y])).toEqual([
+      { kind: 'drag', drag: { kind: 'placement-move', id: 7, positionM: [8, 2], done: true } },
+    ]);
   });
 
   it('turns the selected mirror with its aim handle toward the finger', () => {
@@ -129,9 +151,15 @@ describe('the plan gesture machine', () => {
   it('zooms about the two fingers’ centre as they spread, and a second finger turns a pan into a pinch', () => {
     const c = ctx();
     const start = startGesture(c, [[300, 300]]);
-    const pinch = moveGesture(c, start.gesture!, [[200, 300], [400, 300]]);
+    const pinch = moveGesture(c, start.gesture!, [
+      [200, 300],
+      [400, 300],
+    ]);
     expect(pinch.gesture?.mode).toBe('pinch');
-    const spread = moveGesture(c, pinch.gesture!, [[100, 300], [500, 300]]);
+    const spread = moveGesture(c, pinch.gesture!, [
+      [100, 300],
+      [500, 300],
+    ]);
     const fx = spread.effects[0];
     expect(fx.kind === 'view' ? fx.view.scale : NaN).toBeCloseTo(40, 9);
     // The point under the centre stays put: (300 − 100)/20 = 10 m before, (300 − x)/40 after.

@@ -107,7 +107,9 @@ describe('new project form', () => {
     fireEvent.change(screen.getByTestId('project-form-customer'), { target: { value: 'Invented Foods' } });
     fireEvent.change(screen.getByTestId('project-form-site'), { target: { value: 'Hall 2' } });
     fireEvent.click(screen.getByTestId('project-form-submit'));
-    await waitFor(() => expect(onSubmit).toHaveBeenCalledWith({ name: 'Dock 3', customer: 'Invented Foods', site: 'Hall 2', units: null, notes: '' }));
+    await waitFor(() =>
+      expect(onSubmit).toHaveBeenCalledWith({ name: 'Dock 3', customer: 'Invented Foods', site: 'Hall 2', units: null, notes: '' }),
+    );
   });
 
   it("shows the server's field message beside the field", async () => {

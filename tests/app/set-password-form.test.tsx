@@ -19,7 +19,11 @@ describe('SetPasswordForm', () => {
   });
 
   it("puts the server's message about the password beside the password field", async () => {
-    const onSubmit = jest.fn().mockRejectedValue(new ApiError(400, 'Check the highlighted fields.', { password: 'That password is on a list of leaked passwords.' }));
+    const onSubmit = jest
+      .fn()
+      .mockRejectedValue(
+        new ApiError(400, 'Check the highlighted fields.', { password: 'That password is on a list of leaked passwords.' }),
+      );
     render(<SetPasswordForm email="new.person@sightfan-demo.example" onSubmit={onSubmit} />);
     const user = userEvent.setup();
 

@@ -9,13 +9,21 @@ import { ApiError } from '@/shared/api-client';
 import type { SheetEmailResponse, SheetRevisionDto, SheetStatusDto } from '@/shared/schemas';
 import { makeTestQueryClient, renderWithQuery } from './render';
 
-jest.mock('@/hooks/api', () => ({ api: { sheets: { status: jest.fn(), issue: jest.fn(), pdfPath: jest.fn(), download: jest.fn(), email: jest.fn() } } }));
+jest.mock('@/hooks/api', () => ({
+  api: { sheets: { status: jest.fn(), issue: jest.fn(), pdfPath: jest.fn(), download: jest.fn(), email: jest.fn() } },
+}));
 jest.mock('@/components/sheet/save-file', () => ({ canSaveFiles: true, saveFile: jest.fn() }));
 
 const PROJECT_ID = 7;
 
 function revision(number: number, overrides: Partial<SheetRevisionDto> = {}): SheetRevisionDto {
-  return { number, contentHash: `${number}`.repeat(64).slice(0, 64), issuedAt: `2026-12-0${number}T09:30:00.000Z`, issuedBy: 'Ines Okafor', ...overrides };
+  return {
+    number,
+    contentHash: `${number}`.repeat(64).slice(0, 64),
+    issuedAt: `2026-12-0${number}T09:30:00.000Z`,
+    issuedBy: 'Ines Okafor',
+    ...overrides,
+  };
 }
 
 function status(revisions: SheetRevisionDto[], changedSinceLast: boolean): SheetStatusDto {
@@ -113,11 +121,14 @@ describe('SheetActions', () => {
     await waitFor(() => expect(saveFile).toHaveBeenCalledWith(file));
     expect(api.sheets.issue).toHaveBeenCalledWith(PROJECT_ID);
     expect(api.sheets.download).toHaveBeenCalledWith(PROJECT_ID, issued.number, undefined);
-    expect(jest.mocked(api.sheets.issue).mock.invocationCallOrder[0]).toBeLessThan(jest.mocked(api.sheets.download).mock.invocationCallOrder[0]);
+    expect(jest.mocked(api.sheets.issue).mock.invocationCallOrder[0]).toBeLessThan(
+      jest.mocked(api.sheets.download).mock.invocationCallOrder[0],
+    );
   });
 
   it('shows why the sheet could not be prepared when issuing fails, and downloads nothing', async () => {
-    const busy = 'Working out this sheet took longer than 20 s, so it was stopped to keep Sightfan answering everyone else. Try again in a minute.';
+    const busy =
+      'Working out this sheet took longer than 20 s, so it was stopped to keep Sightfan answering everyone else. Try again in a minute.';
     jest.mocked(api.sheets.issue).mockRejectedValue(new ApiError(503, busy, {}, 30));
     renderWithStatus(status([revision(5)], true));
     const user = userEvent.setup();

@@ -18,7 +18,9 @@ describe('SignInForm', () => {
   });
 
   it("shows the server's field message beside the field and its sentence above the button", async () => {
-    const onSubmit = jest.fn().mockRejectedValue(new ApiError(401, 'That e-mail and password do not match an account.', { password: 'Check the password.' }));
+    const onSubmit = jest
+      .fn()
+      .mockRejectedValue(new ApiError(401, 'That e-mail and password do not match an account.', { password: 'Check the password.' }));
     render(<SignInForm onSubmit={onSubmit} />);
     const user = userEvent.setup();
 
@@ -32,7 +34,9 @@ describe('SignInForm', () => {
   });
 
   it("keeps the server's field message after the field loses focus, and drops it once the field is edited", async () => {
-    const onSubmit = jest.fn().mockRejectedValue(new ApiError(400, 'Check the highlighted fields.', { email: 'No account uses this address.' }));
+    const onSubmit = jest
+      .fn()
+      .mockRejectedValue(new ApiError(400, 'Check the highlighted fields.', { email: 'No account uses this address.' }));
     render(<SignInForm onSubmit={onSubmit} />);
     const user = userEvent.setup();
 
@@ -70,7 +74,9 @@ describe('SignInForm', () => {
     await user.type(screen.getByTestId('sign-in-email'), '  ines.installer@sightfan-demo.example ');
     await user.type(screen.getByTestId('sign-in-password'), 'demo-password-1{Enter}');
 
-    await waitFor(() => expect(onSubmit).toHaveBeenCalledWith({ email: 'ines.installer@sightfan-demo.example', password: 'demo-password-1' }));
+    await waitFor(() =>
+      expect(onSubmit).toHaveBeenCalledWith({ email: 'ines.installer@sightfan-demo.example', password: 'demo-password-1' }),
+    );
   });
 
   it('labels its fields and marks them for password managers', () => {

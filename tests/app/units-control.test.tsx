@@ -10,7 +10,11 @@ const mutate = jest.fn();
 beforeEach(() => {
   mutate.mockReset();
   // Only the fields UnitsControl reads; the rest of React Query's result is irrelevant here.
-  jest.mocked(useUpdateMeMutation).mockReturnValue({ mutate, isPending: false, isError: false, error: null, variables: undefined } as unknown as ReturnType<typeof useUpdateMeMutation>);
+  jest
+    .mocked(useUpdateMeMutation)
+    .mockReturnValue({ mutate, isPending: false, isError: false, error: null, variables: undefined } as unknown as ReturnType<
+      typeof useUpdateMeMutation
+    >);
 });
 
 describe('UnitsControl', () => {

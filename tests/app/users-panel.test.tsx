@@ -27,7 +27,11 @@ function person(id: number, overrides: Partial<UserDto> = {}): UserDto {
   };
 }
 
-const people = [person(1, { role: 'admin', name: 'Ada Admin' }), person(2, { name: 'Ines Installer' }), person(3, { role: 'reviewer', hasPassword: false })];
+const people = [
+  person(1, { role: 'admin', name: 'Ada Admin' }),
+  person(2, { name: 'Ines Installer' }),
+  person(3, { role: 'reviewer', hasPassword: false }),
+];
 
 /** A client already holding the list, so the panel renders without asking the (mocked) API. */
 function clientWithPeople() {

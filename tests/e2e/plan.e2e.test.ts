@@ -32,11 +32,16 @@ async function planGrid(page: Page) {
   const cy = (offY - box.height * 0.45) / scale;
   const unitM = Math.round((unitPx / scale) * 10) / 10;
   const at = (x: number, y: number): [number, number] => [cx + x * unitM, cy + y * unitM];
-  const drawing = () => page.evaluate(() => (globalThis as unknown as PageDoc).document.querySelector('svg[data-testid="plan-canvas"]')?.innerHTML ?? '');
+  const drawing = () =>
+    page.evaluate(() => (globalThis as unknown as PageDoc).document.querySelector('svg[data-testid="plan-canvas"]')?.innerHTML ?? '');
   const tap = async ([xM, yM]: [number, number]) => {
     const before = await drawing();
     await page.mouse.click(box.x + offX + xM * scale, box.y + offY - yM * scale);
-    await page.waitForFunction((b) => (globalThis as unknown as PageDoc).document.querySelector('svg[data-testid="plan-canvas"]')?.innerHTML !== b, before, { timeout: 10_000 });
+    await page.waitForFunction(
+      (b) => (globalThis as unknown as PageDoc).document.querySelector('svg[data-testid="plan-canvas"]')?.innerHTML !== b,
+      before,
+      { timeout: 10_000 },
+    );
   };
   return { at, tap, unitM };
 }
@@ -56,7 +61,9 @@ async function fanChanged(page: Page, fanId: string, before: string): Promise<vo
 
 async function onlyPlacementId(page: Page): Promise<string> {
   await page.locator('[data-testid^="placement-marker-"]').first().waitFor({ state: 'attached' });
-  const ids = await page.locator('[data-testid^="placement-marker-"]').evaluateAll((els) => els.map((e) => e.getAttribute('data-testid')!.replace('placement-marker-', '')));
+  const ids = await page
+    .locator('[data-testid^="placement-marker-"]')
+    .evaluateAll((els) => els.map((e) => e.getAttribute('data-testid')!.replace('placement-marker-', '')));
   expect(ids).toHaveLength(1);
   return ids[0];
 }
@@ -103,12 +110,20 @@ describe.each([
 
   it('draws and names the zone that must be seen', async () => {
     await byTestId(page, 'plan-tool-zone').click();
-    for (const [x, y] of [[-4, -1.4], [4, -1.4], [4, 1.5], [-4, 1.5]]) await grid.tap(grid.at(x, y));
+    for (const [x, y] of [
+      [-4, -1.4],
+      [4, -1.4],
+      [4, 1.5],
+      [-4, 1.5],
+    ])
+      await grid.tap(grid.at(x, y));
     await byTestId(page, 'plan-zone-finish').click();
     // The prompt opens with its default name selected, so typing replaces it.
     const nameField = byTestId(page, 'plan-zone-name');
     await page.waitForFunction(() => {
-      const el = (globalThis as unknown as { document: { activeElement: { value?: string; selectionStart?: number; selectionEnd?: number } | null } }).document.activeElement;
+      const el = (
+        globalThis as unknown as { document: { activeElement: { value?: string; selectionStart?: number; selectionEnd?: number } | null } }
+      ).document.activeElement;
       return !!el?.value && el.selectionStart === 0 && el.selectionEnd === el.value.length;
     });
     await page.keyboard.type('Crossing');
@@ -139,7 +154,10 @@ describe.each([
     await byTestId(page, 'placement-height').press('Enter');
     await fanChanged(page, fanId, fanBefore);
     expect(await byTestId(page, 'numbers-range-adult-recognise').first().textContent()).not.toBe(rangeBefore);
-    await byTestId(page, 'placement-save-status').filter({ hasText: /All changes saved/ }).first().waitFor({ timeout: 15_000 });
+    await byTestId(page, 'placement-save-status')
+      .filter({ hasText: /All changes saved/ })
+      .first()
+      .waitFor({ timeout: 15_000 });
     await shot(page, `${sizeName}-plan-height-changed`);
   });
 
@@ -150,7 +168,11 @@ describe.each([
       const hx = handle.x + handle.width / 2;
       const hy = handle.y + handle.height / 2;
       const saved = page.waitForResponse(
-        (r) => r.request().method() === 'PATCH' && r.url().includes(`/placements/${placementId}`) && r.ok() && (r.request().postData() ?? '').includes('azimuthRad'),
+        (r) =>
+          r.request().method() === 'PATCH' &&
+          r.url().includes(`/placements/${placementId}`) &&
+          r.ok() &&
+          (r.request().postData() ?? '').includes('azimuthRad'),
         { timeout: 15_000 },
       );
       await page.mouse.move(hx, hy);

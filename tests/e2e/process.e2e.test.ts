@@ -22,7 +22,14 @@ describe('the server process that npm start runs', () => {
     const port = await freePort();
     const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
       cwd: root,
-      env: { ...process.env, NODE_ENV: 'development', PORT: String(port), HOST: '127.0.0.1', FAKE_SMTP_PORT: '0', DATABASE_PATH: path.join(dir, 'p.sqlite') },
+      env: {
+        ...process.env,
+        NODE_ENV: 'development',
+        PORT: String(port),
+        HOST: '127.0.0.1',
+        FAKE_SMTP_PORT: '0',
+        DATABASE_PATH: path.join(dir, 'p.sqlite'),
+      },
     });
     let out = '';
     child.stdout.on('data', (d) => (out += d));
@@ -57,7 +64,11 @@ describe('the server process that npm start runs', () => {
 describe('the web bundle', () => {
   it('carries no server-only package', () => {
     const jsDir = path.join(root, 'dist', '_expo', 'static', 'js', 'web');
-    const bundle = fs.readdirSync(jsDir).filter((f) => f.endsWith('.js')).map((f) => fs.readFileSync(path.join(jsDir, f), 'utf8')).join('\n');
+    const bundle = fs
+      .readdirSync(jsDir)
+      .filter((f) => f.endsWith('.js'))
+      .map((f) => fs.readFileSync(path.join(jsDir, f), 'utf8'))
+      .join('\n');
     expect(bundle.length).toBeGreaterThan(100_000);
     for (const marker of ['@mikro-orm', 'nodemailer', 'bcryptjs', 'smtp-server', 'express-session', 'node_sqlite3', 'pdfkit']) {
       expect({ marker, found: bundle.includes(marker) }).toEqual({ marker, found: false });

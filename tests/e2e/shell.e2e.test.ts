@@ -21,28 +21,31 @@ const sizes = [
 ] as const;
 
 describe.each(sizes)('the app shell on a %s screen', (sizeName, size) => {
-  it.each(DEMO_USERS.map((u) => [u.role, u.email] as const))('lets the demo %s sign in, see their navigation and sign out', async (role, email) => {
-    const { page, errors } = await openPage(product, size);
-    await page.goto(product.server.url);
-    await page.waitForURL(/\/sign-in/);
-    await signIn(page, product.server.url, email, DEMO_PASSWORD);
-    for (const id of NAV[role].shown) await byTestId(page, id).first().waitFor({ state: 'visible' });
-    for (const id of NAV[role].hidden) expect(await byTestId(page, id).count()).toBe(0);
-    await shot(page, `${sizeName}-${role}-home`);
+  it.each(DEMO_USERS.map((u) => [u.role, u.email] as const))(
+    'lets the demo %s sign in, see their navigation and sign out',
+    async (role, email) => {
+      const { page, errors } = await openPage(product, size);
+      await page.goto(product.server.url);
+      await page.waitForURL(/\/sign-in/);
+      await signIn(page, product.server.url, email, DEMO_PASSWORD);
+      for (const id of NAV[role].shown) await byTestId(page, id).first().waitFor({ state: 'visible' });
+      for (const id of NAV[role].hidden) expect(await byTestId(page, id).count()).toBe(0);
+      await shot(page, `${sizeName}-${role}-home`);
 
-    await byTestId(page, 'nav-account').first().click();
-    await byTestId(page, 'account-sign-out').waitFor({ state: 'visible' });
-    await shot(page, `${sizeName}-${role}-account`);
-    await byTestId(page, 'account-sign-out').click();
-    await page.waitForURL(/\/sign-in/);
-    await byTestId(page, 'sign-in-email').waitFor({ state: 'visible' });
+      await byTestId(page, 'nav-account').first().click();
+      await byTestId(page, 'account-sign-out').waitFor({ state: 'visible' });
+      await shot(page, `${sizeName}-${role}-account`);
+      await byTestId(page, 'account-sign-out').click();
+      await page.waitForURL(/\/sign-in/);
+      await byTestId(page, 'sign-in-email').waitFor({ state: 'visible' });
 
-    // Signed out means signed out: a protected page sends you back to sign-in.
-    await page.goto(`${product.server.url}/account`);
-    await page.waitForURL(/\/sign-in/);
-    expect(errors.filter((e) => !/401|Failed to load resource/.test(e))).toEqual([]);
-    await page.context().close();
-  });
+      // Signed out means signed out: a protected page sends you back to sign-in.
+      await page.goto(`${product.server.url}/account`);
+      await page.waitForURL(/\/sign-in/);
+      expect(errors.filter((e) => !/401|Failed to load resource/.test(e))).toEqual([]);
+      await page.context().close();
+    },
+  );
 
   it('shows the message for a wrong password and keeps what was typed', async () => {
     const { page } = await openPage(product, size);
@@ -116,7 +119,11 @@ describe('a forgotten password on a phone', () => {
     await signIn(admin, product.server.url, DEMO_USERS.find((u) => u.role === 'admin')!.email, DEMO_PASSWORD);
     await byTestId(admin, 'nav-outbox').first().click();
     await admin.getByText('Choose a new Sightfan password').first().waitFor({ state: 'visible' });
-    const text = (await admin.getByText(/set-password\?token=/).first().textContent()) ?? '';
+    const text =
+      (await admin
+        .getByText(/set-password\?token=/)
+        .first()
+        .textContent()) ?? '';
     const token = text.match(/token=([A-Za-z0-9_-]+)/)![1];
     await admin.context().close();
 

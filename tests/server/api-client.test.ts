@@ -36,19 +36,27 @@ describe('the typed API client', () => {
   });
 
   it('throws 401 for /me when no cookie is sent, with a sentence a person can act on', async () => {
-    const err = await createApiClient({ baseUrl }).auth.me().catch((e: unknown) => e);
+    const err = await createApiClient({ baseUrl })
+      .auth.me()
+      .catch((e: unknown) => e);
     expect((err as ApiError).status).toBe(401);
     expect(describeError(err)).toBe('You are signed out. Sign in to continue.');
   });
 
   it('turns an unreachable server into a sentence rather than a TypeError', async () => {
-    const err = await createApiClient({ baseUrl: 'http://127.0.0.1:9' }).auth.me().catch((e: unknown) => e);
+    const err = await createApiClient({ baseUrl: 'http://127.0.0.1:9' })
+      .auth.me()
+      .catch((e: unknown) => e);
     expect((err as ApiError).status).toBe(0);
     expect(describeError(err)).toMatch(/cannot reach its server/);
   });
 
   it('adds the wait to a 429 message', () => {
-    expect(describeError(new ApiError(429, 'Too many sign-in attempts for now.', {}, 120))).toBe('Too many sign-in attempts for now. Try again in 2 minutes.');
-    expect(describeError(new ApiError(429, 'Too many sign-in attempts for now.', {}, 30))).toBe('Too many sign-in attempts for now. Try again in 30 seconds.');
+    expect(describeError(new ApiError(429, 'Too many sign-in attempts for now.', {}, 120))).toBe(
+      'Too many sign-in attempts for now. Try again in 2 minutes.',
+    );
+    expect(describeError(new ApiError(429, 'Too many sign-in attempts for now.', {}, 30))).toBe(
+      'Too many sign-in attempts for now. Try again in 30 seconds.',
+    );
   });
 });

@@ -29,7 +29,9 @@ describe('sign-in', () => {
   });
 
   it('accepts the e-mail address in any case and with spaces around it', async () => {
-    const res = await request(h.app).post('/api/auth/sign-in').send({ email: `  ${EMAIL.admin.toUpperCase()} `, password: PASSWORD });
+    const res = await request(h.app)
+      .post('/api/auth/sign-in')
+      .send({ email: `  ${EMAIL.admin.toUpperCase()} `, password: PASSWORD });
     expect(res.status).toBe(200);
     expect(res.body.user.role).toBe('admin');
   });

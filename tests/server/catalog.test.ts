@@ -31,12 +31,18 @@ describe('the catalogue', () => {
   });
 
   it('seeds a demo catalogue spanning round 300–1,200 mm, rectangular panels and three kinds of dome', async () => {
-    const items = (await (await h.signedIn(EMAIL.installer)).get('/api/catalog')).body.items as { mirror: { shape: string; diameterM?: number; portion?: string }; demo: boolean; name: string }[];
+    const items = (await (await h.signedIn(EMAIL.installer)).get('/api/catalog')).body.items as {
+      mirror: { shape: string; diameterM?: number; portion?: string };
+      demo: boolean;
+      name: string;
+    }[];
     const rounds = items.filter((i) => i.mirror.shape === 'round').map((i) => i.mirror.diameterM!);
     expect(Math.min(...rounds)).toBeCloseTo(0.3);
     expect(Math.max(...rounds)).toBeCloseTo(1.2);
     expect(items.some((i) => i.mirror.shape === 'rect')).toBe(true);
-    expect(new Set(items.filter((i) => i.mirror.shape === 'dome').map((i) => i.mirror.portion))).toEqual(new Set(['full', 'half', 'quarter']));
+    expect(new Set(items.filter((i) => i.mirror.shape === 'dome').map((i) => i.mirror.portion))).toEqual(
+      new Set(['full', 'half', 'quarter']),
+    );
     expect(items.every((i) => i.demo && /\(demo\)/.test(i.name))).toBe(true);
   });
 

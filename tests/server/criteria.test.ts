@@ -15,7 +15,20 @@ afterAll(async () => {
 const ARCMIN = Math.PI / 10800;
 const scene = {
   walls: [],
-  zones: [{ id: 'z1', name: 'Crossing', polygonM: [[0, 1], [5, 1], [5, 4], [0, 4]], target: { kind: 'adult' }, criterion: 'detect' }],
+  zones: [
+    {
+      id: 'z1',
+      name: 'Crossing',
+      polygonM: [
+        [0, 1],
+        [5, 1],
+        [5, 4],
+        [0, 4],
+      ],
+      target: { kind: 'adult' },
+      criterion: 'detect',
+    },
+  ],
   viewers: [{ id: 'v1', name: 'Driver', positionM: [2, 8], eyeHeightM: 2.1 }],
 };
 
@@ -26,7 +39,9 @@ describe('a project’s criteria through the API', () => {
     expect(plain.status).toBe(201);
     expect(plain.body.project.scene.criteria).toBeUndefined();
     const criteria = { detectRad: 5 * ARCMIN, recogniseRad: 25 * ARCMIN };
-    const own = await a.patch(`/api/projects/${plain.body.project.id}`).send({ version: plain.body.project.version, scene: { ...scene, criteria } });
+    const own = await a
+      .patch(`/api/projects/${plain.body.project.id}`)
+      .send({ version: plain.body.project.version, scene: { ...scene, criteria } });
     expect(own.status).toBe(200);
     const back = (await a.get(`/api/projects/${plain.body.project.id}`)).body.project.scene;
     expect(back.criteria).toEqual(criteria);
@@ -35,7 +50,9 @@ describe('a project’s criteria through the API', () => {
 
   it('refuses a recognise angle smaller than the detect angle with 400 and a sentence for that field', async () => {
     const a = await h.signedIn(EMAIL.installer);
-    const res = await a.post('/api/projects').send({ name: 'Backwards angles', scene: { ...scene, criteria: { detectRad: 20 * ARCMIN, recogniseRad: 6 * ARCMIN } } });
+    const res = await a
+      .post('/api/projects')
+      .send({ name: 'Backwards angles', scene: { ...scene, criteria: { detectRad: 20 * ARCMIN, recogniseRad: 6 * ARCMIN } } });
     expect(res.status).toBe(400);
     const messages = Object.entries(res.body.fields as Record<string, string>);
     expect(messages).toHaveLength(1);

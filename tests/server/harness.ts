@@ -48,9 +48,16 @@ export interface Harness {
 
 const SECRET = 'test-secret-that-is-long-enough-for-the-config-check';
 
-export async function startHarness(opts: { signInLimits?: SignInLimits; env?: Record<string, string>; outbox?: Partial<OutboxOptions> } = {}): Promise<Harness> {
+export async function startHarness(
+  opts: { signInLimits?: SignInLimits; env?: Record<string, string>; outbox?: Partial<OutboxOptions> } = {},
+): Promise<Harness> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'sightfan-test-'));
-  const config = parseConfig({ NODE_ENV: 'test', DATABASE_PATH: path.join(dir, 'test.sqlite'), PUBLIC_URL: 'http://sightfan.test', ...opts.env });
+  const config = parseConfig({
+    NODE_ENV: 'test',
+    DATABASE_PATH: path.join(dir, 'test.sqlite'),
+    PUBLIC_URL: 'http://sightfan.test',
+    ...opts.env,
+  });
   const log = createLogger(true);
   let orm: Orm = await initORM(config.databasePath);
   await seedDemo(orm, config.bcryptCost);
@@ -100,7 +107,13 @@ export async function startHarness(opts: { signInLimits?: SignInLimits; env?: Re
       const org = organizationName
         ? ((await em.findOne(Organization, { name: organizationName })) ?? em.create(Organization, { name: organizationName }))
         : await em.findOneOrFail(Organization, { demo: true });
-      const user = em.create(User, { email, name: email.split('@')[0], role, organization: org, passwordHash: await hashPassword(PASSWORD, 12) });
+      const user = em.create(User, {
+        email,
+        name: email.split('@')[0],
+        role,
+        organization: org,
+        passwordHash: await hashPassword(PASSWORD, 12),
+      });
       await em.flush();
       return user.id;
     },

@@ -35,11 +35,36 @@ const nul = '\u0000';
 
 /** The corpus: each case was a 500 before the error middleware honoured the status errors carry. */
 const corpus = (): Case[] => [
-  { name: 'a JSON body declared as latin1', run: () => request(h.app).post('/api/auth/sign-in').set('Content-Type', 'application/json; charset=latin1').send(JSON.stringify({ email: EMAIL.installer, password: PASSWORD })) },
-  { name: 'a JSON body declared as Shift JIS', run: () => installer.post('/api/projects').set('Content-Type', 'application/json; charset=shift_jis').send('{"name":"x"}') },
-  { name: 'a body in the compress encoding', run: () => request(h.app).post('/api/auth/sign-in').set('Content-Type', 'application/json').set('Content-Encoding', 'compress').send('{"email":"a@b.c"}') },
-  { name: 'a body in an invented encoding', run: () => installer.post('/api/projects').set('Content-Type', 'application/json').set('Content-Encoding', 'x-squeeze').send('{"name":"x"}') },
-  { name: 'a body that claims gzip but is not', run: () => installer.post('/api/projects').set('Content-Type', 'application/json').set('Content-Encoding', 'gzip').send('{"name":"x"}') },
+  {
+    name: 'a JSON body declared as latin1',
+    run: () =>
+      request(h.app)
+        .post('/api/auth/sign-in')
+        .set('Content-Type', 'application/json; charset=latin1')
+        .send(JSON.stringify({ email: EMAIL.installer, password: PASSWORD })),
+  },
+  {
+    name: 'a JSON body declared as Shift JIS',
+    run: () => installer.post('/api/projects').set('Content-Type', 'application/json; charset=shift_jis').send('{"name":"x"}'),
+  },
+  {
+    name: 'a body in the compress encoding',
+    run: () =>
+      request(h.app)
+        .post('/api/auth/sign-in')
+        .set('Content-Type', 'application/json')
+        .set('Content-Encoding', 'compress')
+        .send('{"email":"a@b.c"}'),
+  },
+  {
+    name: 'a body in an invented encoding',
+    run: () =>
+      installer.post('/api/projects').set('Content-Type', 'application/json').set('Content-Encoding', 'x-squeeze').send('{"name":"x"}'),
+  },
+  {
+    name: 'a body that claims gzip but is not',
+    run: () => installer.post('/api/projects').set('Content-Type', 'application/json').set('Content-Encoding', 'gzip').send('{"name":"x"}'),
+  },
   { name: 'a cut percent-escape in a project id', run: () => installer.get('/api/projects/%E0%A4%A') },
   { name: 'an invalid percent-escape in an invitation token', run: () => request(h.app).get('/api/invitations/%ZZabc') },
   { name: 'a lone percent sign in a catalogue id', run: () => admin.patch('/api/catalog/%').send({ version: 1 }) },
@@ -48,18 +73,79 @@ const corpus = (): Case[] => [
   { name: 'NUL in a project name', run: () => installer.post('/api/projects').send({ name: `Cold${nul}store` }) },
   { name: 'NUL in project notes', run: () => installer.patch(`/api/projects/${projectId}`).send({ version: 1, notes: `a${nul}b` }) },
   { name: 'NUL in a project search', run: () => installer.get(`/api/projects?q=a%00b`) },
-  { name: 'NUL in a sign-in address', run: () => request(h.app).post('/api/auth/sign-in').send({ email: `ines${nul}@x.example`, password: PASSWORD }) },
-  { name: 'NUL in a sign-in password', run: () => request(h.app).post('/api/auth/sign-in').send({ email: EMAIL.reviewer, password: `demo${nul}` }) },
+  {
+    name: 'NUL in a sign-in address',
+    run: () =>
+      request(h.app)
+        .post('/api/auth/sign-in')
+        .send({ email: `ines${nul}@x.example`, password: PASSWORD }),
+  },
+  {
+    name: 'NUL in a sign-in password',
+    run: () =>
+      request(h.app)
+        .post('/api/auth/sign-in')
+        .send({ email: EMAIL.reviewer, password: `demo${nul}` }),
+  },
   { name: 'NUL in my own name', run: () => installer.patch('/api/auth/me').send({ name: `Ines${nul}` }) },
-  { name: 'NUL in an invited name', run: () => admin.post('/api/users').send({ email: 'nul@sightfan-demo.example', name: `N${nul}`, role: 'installer' }) },
-  { name: 'NUL in a catalogue name', run: () => admin.post('/api/catalog').send({ code: 'NUL-1', name: `Dome${nul}`, mirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 }, unitPriceMinor: 100, currency: 'EUR' }) },
-  { name: 'NUL in a sheet e-mail note', run: () => installer.post(`/api/projects/${projectId}/sheet/email`).send({ to: 'buyer@example.com', message: `hi${nul}` }) },
-  { name: 'a session cookie with a broken percent-escape', run: () => request(h.app).get('/api/auth/me').set('Cookie', 'sightfan.sid=s%3A%ZZ%E0') },
+  {
+    name: 'NUL in an invited name',
+    run: () => admin.post('/api/users').send({ email: 'nul@sightfan-demo.example', name: `N${nul}`, role: 'installer' }),
+  },
+  {
+    name: 'NUL in a catalogue name',
+    run: () =>
+      admin
+        .post('/api/catalog')
+        .send({
+          code: 'NUL-1',
+          name: `Dome${nul}`,
+          mirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 },
+          unitPriceMinor: 100,
+          currency: 'EUR',
+        }),
+  },
+  {
+    name: 'NUL in a sheet e-mail note',
+    run: () => installer.post(`/api/projects/${projectId}/sheet/email`).send({ to: 'buyer@example.com', message: `hi${nul}` }),
+  },
+  {
+    name: 'a session cookie with a broken percent-escape',
+    run: () => request(h.app).get('/api/auth/me').set('Cookie', 'sightfan.sid=s%3A%ZZ%E0'),
+  },
   { name: 'a broken percent-escape in a query string', run: () => installer.get('/api/projects?q=%E0%A4%A&sort=%ZZ') },
-  { name: 'a JSON body nested ten thousand deep', run: () => installer.post('/api/projects').set('Content-Type', 'application/json').send(`{"name":${'['.repeat(10000)}${']'.repeat(10000)}}`) },
-  { name: 'a scene id with NUL', run: () => installer.patch(`/api/projects/${projectId}`).send({ version: 1, scene: { walls: [], zones: [], viewers: [{ id: `v${nul}`, name: 'V', positionM: [0, 0], eyeHeightM: 1.6 }] } }) },
+  {
+    name: 'a JSON body nested ten thousand deep',
+    run: () =>
+      installer
+        .post('/api/projects')
+        .set('Content-Type', 'application/json')
+        .send(`{"name":${'['.repeat(10000)}${']'.repeat(10000)}}`),
+  },
+  {
+    name: 'a scene id with NUL',
+    run: () =>
+      installer
+        .patch(`/api/projects/${projectId}`)
+        .send({ version: 1, scene: { walls: [], zones: [], viewers: [{ id: `v${nul}`, name: 'V', positionM: [0, 0], eyeHeightM: 1.6 }] } }),
+  },
   { name: 'a line break in a project name', run: () => installer.post('/api/projects').send({ name: 'Cold\nstore' }) },
-  { name: 'a bell character in a mirror label', run: () => installer.post(`/api/projects/${projectId}/placements`).send({ label: 'M\u0007', customMirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 }, positionM: [0, 0], heightM: 2.5, azimuthRad: 0, tiltDownRad: 0.2, viewerId: null, notes: '' }) },
+  {
+    name: 'a bell character in a mirror label',
+    run: () =>
+      installer
+        .post(`/api/projects/${projectId}/placements`)
+        .send({
+          label: 'M\u0007',
+          customMirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 },
+          positionM: [0, 0],
+          heightM: 2.5,
+          azimuthRad: 0,
+          tiltDownRad: 0.2,
+          viewerId: null,
+          notes: '',
+        }),
+  },
 ];
 
 describe('the fuzz corpus of malformed requests', () => {
@@ -79,13 +165,22 @@ describe('statuses that say what was wrong', () => {
   });
 
   it('answers a body in an unsupported content encoding with 415', async () => {
-    const res = await request(h.app).post('/api/auth/sign-in').set('Content-Type', 'application/json').set('Content-Encoding', 'compress').send('{}');
+    const res = await request(h.app)
+      .post('/api/auth/sign-in')
+      .set('Content-Type', 'application/json')
+      .set('Content-Encoding', 'compress')
+      .send('{}');
     expect(res.status).toBe(415);
   });
 
   it('still accepts a gzip-compressed JSON body', async () => {
     const body = zlib.gzipSync(JSON.stringify({ email: EMAIL.reviewer, password: PASSWORD }));
-    const res = await request(h.app).post('/api/auth/sign-in').set('Content-Type', 'application/json').set('Content-Encoding', 'gzip').serialize(rawBody).send(body);
+    const res = await request(h.app)
+      .post('/api/auth/sign-in')
+      .set('Content-Type', 'application/json')
+      .set('Content-Encoding', 'gzip')
+      .serialize(rawBody)
+      .send(body);
     expect(res.status).toBe(200);
   });
 
@@ -114,7 +209,11 @@ describe('statuses that say what was wrong', () => {
 describe('the log of an unexpected failure', () => {
   const capture = () => {
     const lines: string[] = [];
-    const log = { info: (m: string) => lines.push(m), warn: (m: string) => lines.push(m), error: (m: string, e?: unknown) => lines.push(`${m} ${String(e)}`) };
+    const log = {
+      info: (m: string) => lines.push(m),
+      warn: (m: string) => lines.push(m),
+      error: (m: string, e?: unknown) => lines.push(`${m} ${String(e)}`),
+    };
     return { lines, log };
   };
   const token = 'Zq9'.repeat(15);
@@ -124,7 +223,9 @@ describe('the log of an unexpected failure', () => {
     const { lines, log } = capture();
     const app = express();
     app.get('/api/invitations/:token', () => {
-      throw new DriverException(new Error(`insert into \`user\` (\`email\`, \`password_hash\`) values ('ada@leak.example', '${hash}') - SQLITE_CONSTRAINT`));
+      throw new DriverException(
+        new Error(`insert into \`user\` (\`email\`, \`password_hash\`) values ('ada@leak.example', '${hash}') - SQLITE_CONSTRAINT`),
+      );
     });
     app.use(errorHandler(log));
     const res = await request(app).get(`/api/invitations/${token}`).set('Cookie', `sightfan.sid=s%3A${token}`);
@@ -158,7 +259,13 @@ describe('any text at all in stored and searched fields', () => {
     ['a project search', (t) => installer.get('/api/projects').query({ q: t })],
     ['my own name', (t) => installer.patch('/api/auth/me').send({ name: t })],
     ['a sign-in address', (t) => request(h.app).post('/api/auth/sign-in').send({ email: t, password: 'x' })],
-    ['a catalogue name', (t) => admin.post('/api/catalog').send({ code: 'FUZZ', name: t, mirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 }, unitPriceMinor: 1, currency: 'EUR' })],
+    [
+      'a catalogue name',
+      (t) =>
+        admin
+          .post('/api/catalog')
+          .send({ code: 'FUZZ', name: t, mirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 }, unitPriceMinor: 1, currency: 'EUR' }),
+    ],
   ];
 
   it.each(fields)('never answers 5xx for %s', async (_what, send) => {

@@ -7,7 +7,11 @@ import type TestAgent from 'supertest/lib/agent';
 import { EMAIL, startHarness, type Harness } from './harness';
 
 const OTHER = 'Northgate Logistics (test organisation)';
-const outsider = { admin: 'olga.admin@northgate.test', reviewer: 'omar.reviewer@northgate.test', installer: 'oona.installer@northgate.test' } as const;
+const outsider = {
+  admin: 'olga.admin@northgate.test',
+  reviewer: 'omar.reviewer@northgate.test',
+  installer: 'oona.installer@northgate.test',
+} as const;
 type Role = keyof typeof outsider;
 
 let h: Harness;
@@ -88,7 +92,10 @@ describe('the catalogue', () => {
     expect((await agents.admin.patch(`/api/catalog/${demoOwnItemId}`).send({ version: 1, unitPriceMinor: 1 })).status).toBe(404);
   });
 
-  it.each([['the demo admin', () => demoAdmin], ['an outside admin', () => agents.admin]])('keeps the shared demo set read-only for %s', async (_who, agent) => {
+  it.each([
+    ['the demo admin', () => demoAdmin],
+    ['an outside admin', () => agents.admin],
+  ])('keeps the shared demo set read-only for %s', async (_who, agent) => {
     const res = await agent().patch(`/api/catalog/${sharedItemId}`).send({ version: 1, unitPriceMinor: 1 });
     expect(res.status).toBe(403);
     expect(res.body.error).toMatch(/read-only/);
@@ -101,7 +108,15 @@ describe('the catalogue', () => {
   it('refuses a placement that points at another organisation’s catalogue item', async () => {
     const project = (await agents.installer.post('/api/projects').send({ name: 'Northgate dock (test)' })).body.project;
     const res = await agents.installer.post(`/api/projects/${project.id}/placements`).send({
-      label: 'M1', catalogueItemId: demoOwnItemId, customMirror: null, positionM: [0, 0], heightM: 2.5, azimuthRad: 0, tiltDownRad: 0.2, viewerId: null, notes: '',
+      label: 'M1',
+      catalogueItemId: demoOwnItemId,
+      customMirror: null,
+      positionM: [0, 0],
+      heightM: 2.5,
+      azimuthRad: 0,
+      tiltDownRad: 0.2,
+      viewerId: null,
+      notes: '',
     });
     expect(res.status).toBe(400);
     expect(res.body.fields.catalogueItemId).toMatch(/does not exist/);

@@ -32,7 +32,13 @@ const closedPort = () =>
 
 /** The app over the test database with its mail server unreachable and its worker stopped. */
 async function appWithMailDown() {
-  const built = createApp({ config: h.config, orm: h.orm, mailer: createMailer({ fakePort: await closedPort(), from: h.config.mailFrom }), log: createLogger(true), sessionSecret: 'another-secret-long-enough-for-the-config-check' });
+  const built = createApp({
+    config: h.config,
+    orm: h.orm,
+    mailer: createMailer({ fakePort: await closedPort(), from: h.config.mailFrom }),
+    log: createLogger(true),
+    sessionSecret: 'another-secret-long-enough-for-the-config-check',
+  });
   built.outbox.stop();
   const admin = request.agent(built.app);
   expect((await admin.post('/api/auth/sign-in').send({ email: EMAIL.admin, password: PASSWORD })).status).toBe(200);
@@ -58,7 +64,9 @@ describe('an invitation while the mail server is down', () => {
       await h.orm.em.fork().nativeUpdate(OutgoingMail, { id: row.id }, { nextAttemptAt: new Date(0) });
       expect(await h.outbox.runOnce()).toBeGreaterThanOrEqual(1);
       const token = tokenIn((await h.waitForMail(to)).text);
-      const accepted = await request(h.app).post('/api/invitations/accept').send({ token, password: 'a-long-enough-password', confirm: 'a-long-enough-password' });
+      const accepted = await request(h.app)
+        .post('/api/invitations/accept')
+        .send({ token, password: 'a-long-enough-password', confirm: 'a-long-enough-password' });
       expect(accepted.status).toBe(200);
     } finally {
       built.close();
@@ -116,7 +124,14 @@ describe('retries', () => {
     const to = 'never.arrives@sightfan-demo.example';
     const em = h.orm.em.fork();
     const org = (await (await h.signedIn(EMAIL.admin)).get('/api/auth/me')).body.user.organizationId as number;
-    const row = em.create(OutgoingMail, { organization: org, kind: 'sheet', toAddress: to, subject: 's', text: 't', nextAttemptAt: new Date(0) });
+    const row = em.create(OutgoingMail, {
+      organization: org,
+      kind: 'sheet',
+      toAddress: to,
+      subject: 's',
+      text: 't',
+      nextAttemptAt: new Date(0),
+    });
     await em.flush();
     const down = createMailer({ fakePort: await closedPort(), from: 'x@y.example' });
     const worker = new MailDispatcher(h.orm, down, createLogger(true), { ...DEFAULT_OUTBOX_OPTIONS, firstRetryMs: 1000, maxAttempts: 3 });
@@ -140,7 +155,14 @@ describe('what stays in the database', () => {
     const to = 'scrubbed.link@sightfan-demo.example';
     const em = h.orm.em.fork();
     const org = (await (await h.signedIn(EMAIL.admin)).get('/api/auth/me')).body.user.organizationId as number;
-    const row = em.create(OutgoingMail, { organization: org, kind: 'password-reset', toAddress: to, subject: 's', text: 'http://sightfan.test/set-password?token=secret-token-value', nextAttemptAt: new Date(0) });
+    const row = em.create(OutgoingMail, {
+      organization: org,
+      kind: 'password-reset',
+      toAddress: to,
+      subject: 's',
+      text: 'http://sightfan.test/set-password?token=secret-token-value',
+      nextAttemptAt: new Date(0),
+    });
     await em.flush();
     const worker = new MailDispatcher(h.orm, h.mailer, createLogger(true), { ...DEFAULT_OUTBOX_OPTIONS, scrubAfterSend: true });
     expect(await worker.deliver(row.id)).toBe('sent');
@@ -155,7 +177,11 @@ describe('a mail server that accepts the connection and then says nothing', () =
     const sockets: net.Socket[] = [];
     const silent = net.createServer((s) => sockets.push(s));
     await new Promise<void>((r) => silent.listen(0, '127.0.0.1', () => r()));
-    const mailer = createMailer({ fakePort: (silent.address() as AddressInfo).port, from: 'x@y.example', timeouts: { connectionMs: 300, greetingMs: 300, socketMs: 300 } });
+    const mailer = createMailer({
+      fakePort: (silent.address() as AddressInfo).port,
+      from: 'x@y.example',
+      timeouts: { connectionMs: 300, greetingMs: 300, socketMs: 300 },
+    });
     const started = Date.now();
     await expect(mailer.send({ to: 'a@b.example', subject: 's', text: 't' })).rejects.toThrow();
     expect(Date.now() - started).toBeLessThan(3000);

@@ -26,7 +26,8 @@ async function freshUser(): Promise<string> {
 }
 const signIn = (email: string, password: string) => request(h.app).post('/api/auth/sign-in').send({ email, password });
 const tokenIn = (text: string) => /token=([A-Za-z0-9_-]+)/.exec(text)![1];
-const accept = (token: string, password = NEW) => request(h.app).post('/api/invitations/accept').send({ token, password, confirm: password });
+const accept = (token: string, password = NEW) =>
+  request(h.app).post('/api/invitations/accept').send({ token, password, confirm: password });
 
 describe('changing my password', () => {
   it('refuses without the right current password and names the field', async () => {
@@ -64,13 +65,17 @@ describe('changing my password', () => {
   });
 
   it('needs a session', async () => {
-    expect((await request(h.app).post('/api/auth/password').send({ currentPassword: PASSWORD, password: NEW, confirm: NEW })).status).toBe(401);
+    expect((await request(h.app).post('/api/auth/password').send({ currentPassword: PASSWORD, password: NEW, confirm: NEW })).status).toBe(
+      401,
+    );
   });
 });
 
 describe('forgot password', () => {
   it('answers an unknown address exactly as a known one', async () => {
-    const known = await request(h.app).post('/api/auth/password-reset').send({ email: await freshUser() });
+    const known = await request(h.app)
+      .post('/api/auth/password-reset')
+      .send({ email: await freshUser() });
     const unknown = await request(h.app).post('/api/auth/password-reset').send({ email: 'no.such.person@sightfan-demo.example' });
     expect([known.status, known.body]).toEqual([202, { message: FORGOT_PASSWORD_ANSWER }]);
     expect([unknown.status, unknown.body]).toEqual([known.status, known.body]);

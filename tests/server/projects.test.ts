@@ -31,7 +31,19 @@ const newProject = (name = 'Aisle 7 crossing') => ({
   site: 'Unit 4',
   scene: {
     walls: [{ id: 'w1', kind: 'racking', aM: [0, 0], bM: [10, 0], heightM: 6 }],
-    zones: [{ id: 'z1', name: 'Crossing', polygonM: [[0, 1], [5, 1], [5, 4], [0, 4]], target: { kind: 'adult' } }],
+    zones: [
+      {
+        id: 'z1',
+        name: 'Crossing',
+        polygonM: [
+          [0, 1],
+          [5, 1],
+          [5, 4],
+          [0, 4],
+        ],
+        target: { kind: 'adult' },
+      },
+    ],
     viewers: [{ id: 'v1', name: 'Driver', positionM: [2, 8], eyeHeightM: 2.1 }],
   },
 });
@@ -227,7 +239,16 @@ describe('stale versions and bad bodies', () => {
   it('answers 409 for a duplicate catalogue code found only by the database, naming the field', async () => {
     const admin = await as('admin');
     // The organisation's own items (the shared demo set is read-only).
-    const own = (code: string) => ({ code, name: `Own round ${code}`, mirror: { shape: 'round', diameterM: 0.7, radiusM: 1.4 }, material: 'acrylic', reflectance: 0.8, massKg: 4, unitPriceMinor: 14900, currency: 'EUR' });
+    const own = (code: string) => ({
+      code,
+      name: `Own round ${code}`,
+      mirror: { shape: 'round', diameterM: 0.7, radiusM: 1.4 },
+      material: 'acrylic',
+      reflectance: 0.8,
+      massKg: 4,
+      unitPriceMinor: 14900,
+      currency: 'EUR',
+    });
     const first = (await admin.post('/api/catalog').send(own('OWN-1'))).body.item;
     const second = (await admin.post('/api/catalog').send(own('OWN-2'))).body.item;
     const res = await admin.patch(`/api/catalog/${second.id}`).send({ version: second.version, code: first.code });
@@ -239,7 +260,23 @@ describe('stale versions and bad bodies', () => {
     ['a project without a name', { ...newProject(), name: '' }, 'name', 'Give the project a name.'],
     [
       'a zone that crosses itself',
-      { ...newProject(), scene: { zones: [{ id: 'z', name: 'Bow tie', polygonM: [[0, 0], [2, 2], [2, 0], [0, 2]] }] } },
+      {
+        ...newProject(),
+        scene: {
+          zones: [
+            {
+              id: 'z',
+              name: 'Bow tie',
+              polygonM: [
+                [0, 0],
+                [2, 2],
+                [2, 0],
+                [0, 2],
+              ],
+            },
+          ],
+        },
+      },
       'scene.zones.0.polygonM',
       'The zone outline crosses or touches itself; redraw it as one simple outline.',
     ],
@@ -269,7 +306,8 @@ describe('stale versions and bad bodies', () => {
     const a = await as('installerA');
     const p = (await a.post('/api/projects').send(newProject('Bad placements'))).body.project;
     const base = newPlacement(await firstCatalogueId());
-    const body = 'customMirror' in patch && _what.startsWith('a custom') ? { ...base, catalogueItemId: null, ...patch } : { ...base, ...patch };
+    const body =
+      'customMirror' in patch && _what.startsWith('a custom') ? { ...base, catalogueItemId: null, ...patch } : { ...base, ...patch };
     const res = await a.post(`/api/projects/${p.id}/placements`).send(body);
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.fields)).toContain(field);
@@ -281,11 +319,15 @@ describe('stale versions and bad bodies', () => {
     const base = newPlacement(await firstCatalogueId());
     const inside = await a.post(`/api/projects/${p.id}/placements`).send({ ...base, positionM: [2.5, 0.01], tiltDownRad: 0 });
     expect(inside.status).toBe(400);
-    expect(inside.body.fields.positionM).toMatch(/^“M1” reaches .* into rack “w1”; a mirror cannot hang inside a wall or rack\. Move it .*, to x 2\.50 m, y 0\.\d\d m, where it sits on the face\.$/);
+    expect(inside.body.fields.positionM).toMatch(
+      /^“M1” reaches .* into rack “w1”; a mirror cannot hang inside a wall or rack\. Move it .*, to x 2\.50 m, y 0\.\d\d m, where it sits on the face\.$/,
+    );
     const y = Number(/y (0\.\d\d) m/.exec(inside.body.fields.positionM)![1]);
     const onFace = await a.post(`/api/projects/${p.id}/placements`).send({ ...base, positionM: [2.5, y], tiltDownRad: 0 });
     expect(onFace.status).toBe(201);
-    const pushed = await a.patch(`/api/projects/${p.id}/placements/${onFace.body.placement.id}`).send({ version: 1, positionM: [2.5, 0.01] });
+    const pushed = await a
+      .patch(`/api/projects/${p.id}/placements/${onFace.body.placement.id}`)
+      .send({ version: 1, positionM: [2.5, 0.01] });
     expect(pushed.status).toBe(400);
     expect(pushed.body.fields.positionM).toMatch(/into rack “w1”/);
   });

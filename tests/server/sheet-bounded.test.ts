@@ -55,7 +55,14 @@ async function heavyProject(agent: Agent, name: string): Promise<number> {
 
 /** An app over the same database with its own sheet worker pool (as a second server instance would be). */
 function instance(work: SheetWork) {
-  return createApp({ config: h.config, orm: h.orm, mailer: createMailer({ fakePort: 1, from: h.config.mailFrom }), log: createLogger(true), sessionSecret: 'another-secret-long-enough-for-the-config-check', sheetWork: work });
+  return createApp({
+    config: h.config,
+    orm: h.orm,
+    mailer: createMailer({ fakePort: 1, from: h.config.mailFrom }),
+    log: createLogger(true),
+    sessionSecret: 'another-secret-long-enough-for-the-config-check',
+    sheetWork: work,
+  });
 }
 
 async function signIn(app: ReturnType<typeof instance>['app']): Promise<Agent> {
@@ -72,10 +79,12 @@ function pollHealth(base: string): { stop(): Promise<number[]> } {
     while (running) {
       const t0 = performance.now();
       const status = await new Promise<number>((resolve, reject) => {
-        http.get(`${base}/api/health`, (res) => {
-          res.resume();
-          res.on('end', () => resolve(res.statusCode ?? 0));
-        }).on('error', reject);
+        http
+          .get(`${base}/api/health`, (res) => {
+            res.resume();
+            res.on('end', () => resolve(res.statusCode ?? 0));
+          })
+          .on('error', reject);
       });
       latencies.push(performance.now() - t0);
       if (status !== 200) throw new Error(`health answered ${status}`);
@@ -125,7 +134,8 @@ describe('the scene limits', () => {
   it('refuses the mirror after the limit with 409 and a sentence, and keeps the ones before', async () => {
     const id = await newProject(installer, 'Many mirrors (demo)');
     const mirror = { label: 'M', catalogueItemId, positionM: [0, 0], heightM: 2.5, azimuthRad: 0, tiltDownRad: 0.3 };
-    for (let i = 0; i < SCENE_LIMITS.mirrors; i++) expect((await installer.post(`/api/projects/${id}/placements`).send({ ...mirror, label: `M${i}` })).status).toBe(201);
+    for (let i = 0; i < SCENE_LIMITS.mirrors; i++)
+      expect((await installer.post(`/api/projects/${id}/placements`).send({ ...mirror, label: `M${i}` })).status).toBe(201);
     const over = await installer.post(`/api/projects/${id}/placements`).send({ ...mirror, label: 'One too many' });
     expect(over.status).toBe(409);
     expect(over.body.error).toBe(LIMIT_MESSAGES.mirrors);
@@ -212,7 +222,9 @@ describe('the evaluation cache', () => {
       }
 
       const project = (await agent.get(`/api/projects/${id}`)).body.project;
-      expect((await agent.patch(`/api/projects/${id}`).send({ version: project.version, notes: 'Changed for the cache test.' })).status).toBe(200);
+      expect(
+        (await agent.patch(`/api/projects/${id}`).send({ version: project.version, notes: 'Changed for the cache test.' })).status,
+      ).toBe(200);
       expect((await agent.get(`/api/projects/${id}/sheet`)).body.current.changedSinceLast).toBe(true);
       expect(builds).toBe(2);
     } finally {

@@ -82,7 +82,19 @@ describe('characters the sheet can print', () => {
   });
 
   it('refuses an emoji in a zone name at the API with 400 and a sentence for the field', async () => {
-    const scene = { zones: [{ id: 'z1', name: 'Forklift lane 🚜', polygonM: [[0, 0], [4, 0], [4, 3]] }] };
+    const scene = {
+      zones: [
+        {
+          id: 'z1',
+          name: 'Forklift lane 🚜',
+          polygonM: [
+            [0, 0],
+            [4, 0],
+            [4, 3],
+          ],
+        },
+      ],
+    };
     const res = await installer.post('/api/projects').send({ name: 'Emoji zone (demo)', scene });
     expect(res.status).toBe(400);
     expect(res.body.fields['scene.zones.0.name']).toMatch(/Emoji cannot be printed/);
@@ -100,11 +112,29 @@ describe('a sheet with names in several scripts', () => {
   };
 
   beforeAll(async () => {
-    const created = await installer.post('/api/projects').send({ name: names.project, customer: names.customer, site: names.site, scene: { viewers: [{ id: 'v1', name: 'נהג', positionM: [0, 0], eyeHeightM: 2.2 }] } });
+    const created = await installer
+      .post('/api/projects')
+      .send({
+        name: names.project,
+        customer: names.customer,
+        site: names.site,
+        scene: { viewers: [{ id: 'v1', name: 'נהג', positionM: [0, 0], eyeHeightM: 2.2 }] },
+      });
     expect(created.status).toBe(201);
     const id = created.body.project.id as number;
     const catalogueItemId = ((await installer.get('/api/catalog')).body.items as CatalogueItemDto[])[0].id;
-    const placed = await installer.post(`/api/projects/${id}/placements`).send({ label: names.mirror, catalogueItemId, positionM: [3, 4], heightM: 2.6, azimuthRad: -2.2, tiltDownRad: 0.35, viewerId: 'v1', notes: names.note });
+    const placed = await installer
+      .post(`/api/projects/${id}/placements`)
+      .send({
+        label: names.mirror,
+        catalogueItemId,
+        positionM: [3, 4],
+        heightM: 2.6,
+        azimuthRad: -2.2,
+        tiltDownRad: 0.35,
+        viewerId: 'v1',
+        notes: names.note,
+      });
     expect(placed.status).toBe(201);
     const issued = await installer.post(`/api/projects/${id}/sheet/revisions`);
     expect(issued.status).toBe(201);
@@ -113,13 +143,24 @@ describe('a sheet with names in several scripts', () => {
     pdf = res.body as Buffer;
     fs.mkdirSync(ARTIFACTS, { recursive: true });
     fs.writeFileSync(path.join(ARTIFACTS, 'scripts-sheet.pdf'), pdf);
-    execFileSync('/usr/bin/pdftoppm', ['-png', '-r', '110', '-f', '1', '-l', '1', path.join(ARTIFACTS, 'scripts-sheet.pdf'), path.join(ARTIFACTS, 'page')]);
+    execFileSync('/usr/bin/pdftoppm', [
+      '-png',
+      '-r',
+      '110',
+      '-f',
+      '1',
+      '-l',
+      '1',
+      path.join(ARTIFACTS, 'scripts-sheet.pdf'),
+      path.join(ARTIFACTS, 'page'),
+    ]);
   });
 
   it('embeds the Hebrew, Arabic and CJK fallback faces as subsets, beside Barlow', () => {
     const rows = tool('pdffonts', pdf).trim().split('\n').slice(2);
     const families = rows.map((r) => /^[A-Z]{6}\+([\w-]+)/.exec(r)?.[1]);
-    for (const face of ['NotoSansHebrew', 'NotoSansArabic', 'NotoSansJP', 'NotoSansSC']) expect(families.some((f) => f?.startsWith(face))).toBe(true);
+    for (const face of ['NotoSansHebrew', 'NotoSansArabic', 'NotoSansJP', 'NotoSansSC'])
+      expect(families.some((f) => f?.startsWith(face))).toBe(true);
     for (const row of rows) expect(row.trim().split(/\s+/).slice(-5, -2)).toEqual(['yes', 'yes', 'yes']);
   });
 

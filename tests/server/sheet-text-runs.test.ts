@@ -43,17 +43,22 @@ const multiset = (chars: string[]) => chars.map(canon).sort().join('\u0000');
 describe('setting text in any accepted script', () => {
   it('draws every non-space character exactly once, in a face that has its glyph, whatever the width', () => {
     fc.assert(
-      fc.property(text, fc.constantFrom(...(Object.keys(SHEET_FONTS) as SheetFont[])), fc.option(fc.integer({ min: 20, max: 400 }), { nil: undefined }), (t, face, width) => {
-        const lines = layout(doc, face, 9, t, { width });
-        const drawn = lines.flatMap((l) => l.pieces.flatMap((p) => Array.from(p.text)));
-        const wanted = Array.from(t).filter((ch) => !/\s/u.test(ch));
-        expect(multiset(drawn.filter((ch) => !/\s/u.test(ch)))).toBe(multiset(wanted));
-        for (const l of lines) {
-          for (const p of l.pieces) {
-            for (const ch of p.text) if (!/\s/u.test(ch)) expect(fontFace(p.font).glyphForCodePoint(ch.codePointAt(0)!).id).not.toBe(0);
+      fc.property(
+        text,
+        fc.constantFrom(...(Object.keys(SHEET_FONTS) as SheetFont[])),
+        fc.option(fc.integer({ min: 20, max: 400 }), { nil: undefined }),
+        (t, face, width) => {
+          const lines = layout(doc, face, 9, t, { width });
+          const drawn = lines.flatMap((l) => l.pieces.flatMap((p) => Array.from(p.text)));
+          const wanted = Array.from(t).filter((ch) => !/\s/u.test(ch));
+          expect(multiset(drawn.filter((ch) => !/\s/u.test(ch)))).toBe(multiset(wanted));
+          for (const l of lines) {
+            for (const p of l.pieces) {
+              for (const ch of p.text) if (!/\s/u.test(ch)) expect(fontFace(p.font).glyphForCodePoint(ch.codePointAt(0)!).id).not.toBe(0);
+            }
           }
-        }
-      }),
+        },
+      ),
       { numRuns: 300 },
     );
   });
@@ -65,7 +70,10 @@ describe('setting text in any accepted script', () => {
         for (const l of layout(doc, 'regular', 9, t, { width })) {
           if (l.width <= width + 0.01) continue;
           // Too wide: then there was nowhere to break it (no space inside, no second CJK character).
-          const shown = l.pieces.map((p) => p.text).join('').trim();
+          const shown = l.pieces
+            .map((p) => p.text)
+            .join('')
+            .trim();
           expect(shown).not.toMatch(/\S\s+\S/u);
           expect((shown.match(CJK) ?? []).length === 0 || Array.from(shown).length === 1).toBe(true);
         }
@@ -75,13 +83,28 @@ describe('setting text in any accepted script', () => {
   });
 
   it('prints a catalogue code with "--" or ".." in the mono face as typed (fontkit failed on the face\'s ligatures)', async () => {
-    const catalogue: CatalogueItemDto[] = DEMO_CATALOGUE.slice(0, 2).map((c, i) => ({ ...c, id: i + 1, reflectance: null, massKg: null, currency: 'EUR', notes: '', active: true, demo: true, version: 1, updatedAt: '2026-01-01T00:00:00.000Z' }));
+    const catalogue: CatalogueItemDto[] = DEMO_CATALOGUE.slice(0, 2).map((c, i) => ({
+      ...c,
+      id: i + 1,
+      reflectance: null,
+      massKg: null,
+      currency: 'EUR',
+      notes: '',
+      active: true,
+      demo: true,
+      version: 1,
+      updatedAt: '2026-01-01T00:00:00.000Z',
+    }));
     const input = heavySheetInput({ walls: 2, zones: 1, cornersPerZone: 4, viewers: 2, mirrors: 2 }, catalogue);
     const { content } = buildSheetContent({ ...input, placements: input.placements.map((p, i) => ({ ...p, catalogueItemId: i + 1 })) });
     expect(content.purchase.lines.length).toBeGreaterThanOrEqual(2);
     const codes = ['DEMO--R300', 'DEMO..R400'];
     const lines = content.purchase.lines.map((l, i) => (i < codes.length ? { ...l, code: codes[i] } : l));
-    const pdf = await renderSheet({ ...content, purchase: { ...content.purchase, lines } }, { number: 1, contentHash: '0'.repeat(64), issuedAt: new Date(Date.UTC(2026, 0, 1)) }, 'a4');
+    const pdf = await renderSheet(
+      { ...content, purchase: { ...content.purchase, lines } },
+      { number: 1, contentHash: '0'.repeat(64), issuedAt: new Date(Date.UTC(2026, 0, 1)) },
+      'a4',
+    );
     const text = execFileSync('/usr/bin/pdftotext', ['-', '-'], { input: pdf, encoding: 'utf8' });
     for (const code of codes) expect(text).toContain(code);
   });

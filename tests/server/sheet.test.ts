@@ -99,7 +99,13 @@ describe('the specification sheet PDF', () => {
         f.dist(n.rangesM.detect.child),
         f.dist(n.rangesM.recognise.child),
         ...(n.rimSqueeze > 0 ? [f.percent(n.rimSqueeze)] : []),
-        ...n.references.flatMap((r) => [f.dist(r.objectDistanceM), f.magnification(r.magnification), f.dist(r.trueDistanceM), f.dist(r.sizeCueDistanceM), f.ratio(r.ratio)]),
+        ...n.references.flatMap((r) => [
+          f.dist(r.objectDistanceM),
+          f.magnification(r.magnification),
+          f.dist(r.trueDistanceM),
+          f.dist(r.sizeCueDistanceM),
+          f.ratio(r.ratio),
+        ]),
       ];
       for (const value of expected) expect(text).toContain(value);
     });
@@ -118,7 +124,12 @@ describe('the specification sheet PDF', () => {
     const text = textOf((await fetchSheet(installer)).pdf);
     // The four cautions the product always carries, by a phrase of each written here, not read
     // from the list the sheet prints: a caution dropped from that list fails this test.
-    for (const phrase of ['smaller and farther away than they are', 'replaces none of them', 'which take precedence', 'a person walking the zone']) {
+    for (const phrase of [
+      'smaller and farther away than they are',
+      'replaces none of them',
+      'which take precedence',
+      'a person walking the zone',
+    ]) {
       expect(text).toContain(phrase);
     }
     // The app's caution block and the sheet show the same sentences, whole.
@@ -129,7 +140,10 @@ describe('the specification sheet PDF', () => {
   });
 
   it('embeds every font it uses, only the shipped families, as subsets', async () => {
-    const rows = tool('pdffonts', (await fetchSheet(installer)).pdf).trim().split('\n').slice(2);
+    const rows = tool('pdffonts', (await fetchSheet(installer)).pdf)
+      .trim()
+      .split('\n')
+      .slice(2);
     expect(rows.length).toBeGreaterThan(0);
     for (const row of rows) {
       expect(row).toMatch(/^[A-Z]{6}\+(Barlow|JetBrainsMono)-\w+\s/);
@@ -163,7 +177,9 @@ describe('the specification sheet PDF', () => {
     const b = await fetchSheet(installer);
     expect(a.res.headers['x-sheet-revision']).toBe(b.res.headers['x-sheet-revision']);
     expect(Buffer.compare(a.pdf, b.pdf)).toBe(0);
-    expect(a.res.headers['content-disposition']).toBe(`attachment; filename="sightfan-cold-store-aisles-and-dock-demo-rev${a.res.headers['x-sheet-revision']}.pdf"`);
+    expect(a.res.headers['content-disposition']).toBe(
+      `attachment; filename="sightfan-cold-store-aisles-and-dock-demo-rev${a.res.headers['x-sheet-revision']}.pdf"`,
+    );
   });
 
   it('raises the revision when the content changes, and keeps a record of each issued revision', async () => {
@@ -171,7 +187,9 @@ describe('the specification sheet PDF', () => {
     const revBefore = Number(before.res.headers['x-sheet-revision']);
     const { project } = await engine();
     const p = project.placements[0];
-    const patched = await installer.patch(`/api/projects/${projectId}/placements/${p.id}`).send({ version: p.version, heightM: p.heightM + 0.2 });
+    const patched = await installer
+      .patch(`/api/projects/${projectId}/placements/${p.id}`)
+      .send({ version: p.version, heightM: p.heightM + 0.2 });
     expect(patched.status).toBe(200);
 
     const status = (await installer.get(`/api/projects/${projectId}/sheet`)).body as SheetStatusDto;
@@ -207,7 +225,10 @@ describe('reading a sheet changes nothing', () => {
     const issued = (await installer.post(`/api/projects/${projectId}/sheet/revisions`)).body.revision.number as number;
     const { project } = await engine();
     const p = project.placements[0];
-    expect((await installer.patch(`/api/projects/${projectId}/placements/${p.id}`).send({ version: p.version, heightM: p.heightM + 0.1 })).status).toBe(200);
+    expect(
+      (await installer.patch(`/api/projects/${projectId}/placements/${p.id}`).send({ version: p.version, heightM: p.heightM + 0.1 }))
+        .status,
+    ).toBe(200);
     const before = await revisionCount();
 
     // A top-level GET, as a link from another site would make it, with a cross-site fetch header.
@@ -224,7 +245,10 @@ describe('reading a sheet changes nothing', () => {
     const p = project.placements[0];
     const oldHeight = f.dist(p.heightM);
     const first = (await installer.post(`/api/projects/${projectId}/sheet/revisions`)).body.revision.number as number;
-    expect((await installer.patch(`/api/projects/${projectId}/placements/${p.id}`).send({ version: p.version, heightM: p.heightM + 0.35 })).status).toBe(200);
+    expect(
+      (await installer.patch(`/api/projects/${projectId}/placements/${p.id}`).send({ version: p.version, heightM: p.heightM + 0.35 }))
+        .status,
+    ).toBe(200);
     const second = await installer.post(`/api/projects/${projectId}/sheet/revisions`);
     expect(second.status).toBe(201);
     expect(second.body.revision.number).toBe(first + 1);
@@ -238,15 +262,23 @@ describe('reading a sheet changes nothing', () => {
     expect(Number(old.headers['x-sheet-revision'])).toBe(first);
     const oldText = textOf(old.body as Buffer);
     expect(oldText).toContain(`Height of the mirror centre ${oldHeight}`);
-    expect(textOf((await getPdf(installer, `?revision=${first + 1}`)).body as Buffer)).toContain(`Height of the mirror centre ${f.dist(p.heightM + 0.35)}`);
+    expect(textOf((await getPdf(installer, `?revision=${first + 1}`)).body as Buffer)).toContain(
+      `Height of the mirror centre ${f.dist(p.heightM + 0.35)}`,
+    );
   });
 
   it('refuses to issue a revision for a request from another site (403), and issues none', async () => {
     const { project } = await engine();
     const p = project.placements[0];
-    expect((await installer.patch(`/api/projects/${projectId}/placements/${p.id}`).send({ version: p.version, heightM: p.heightM + 0.05 })).status).toBe(200);
+    expect(
+      (await installer.patch(`/api/projects/${projectId}/placements/${p.id}`).send({ version: p.version, heightM: p.heightM + 0.05 }))
+        .status,
+    ).toBe(200);
     const before = await revisionCount();
-    const res = await installer.post(`/api/projects/${projectId}/sheet/revisions`).set('Origin', 'https://elsewhere-demo.example').set('Sec-Fetch-Site', 'cross-site');
+    const res = await installer
+      .post(`/api/projects/${projectId}/sheet/revisions`)
+      .set('Origin', 'https://elsewhere-demo.example')
+      .set('Sec-Fetch-Site', 'cross-site');
     expect(res.status).toBe(403);
     expect(await revisionCount()).toBe(before);
   });
@@ -316,7 +348,13 @@ describe('e-mailing the sheet', () => {
         s.close(() => resolve(port));
       });
     });
-    const broken = createApp({ config: h.config, orm: h.orm, mailer: createMailer({ fakePort: closedPort, from: h.config.mailFrom }), log: createLogger(true), sessionSecret: 'another-secret-long-enough-for-the-config-check' });
+    const broken = createApp({
+      config: h.config,
+      orm: h.orm,
+      mailer: createMailer({ fakePort: closedPort, from: h.config.mailFrom }),
+      log: createLogger(true),
+      sessionSecret: 'another-secret-long-enough-for-the-config-check',
+    });
     broken.outbox.stop();
     try {
       const agent = request.agent(broken.app);
@@ -358,14 +396,24 @@ describe('drawing the plan', () => {
 
   it('drops outline points too fine to print and keeps every point of a coarse shape', () => {
     // A circle of 300 points, 50 pt across: most points are closer than 0.2 mm to the chord between their neighbours.
-    const circle = Array.from({ length: 300 }, (_, i): [number, number] => [50 * Math.cos((2 * Math.PI * i) / 300), 50 * Math.sin((2 * Math.PI * i) / 300)]);
+    const circle = Array.from({ length: 300 }, (_, i): [number, number] => [
+      50 * Math.cos((2 * Math.PI * i) / 300),
+      50 * Math.sin((2 * Math.PI * i) / 300),
+    ]);
     const simple = simplifyRing(circle, OUTLINE_TOLERANCE_PT);
     expect(simple.length).toBeLessThan(circle.length / 3);
     // No dropped point lies farther than the tolerance from the circle drawn through the kept ones (sagitta of the longest chord).
-    const longest = Math.max(...simple.map((p, i) => Math.hypot(p[0] - simple[(i + 1) % simple.length][0], p[1] - simple[(i + 1) % simple.length][1])));
+    const longest = Math.max(
+      ...simple.map((p, i) => Math.hypot(p[0] - simple[(i + 1) % simple.length][0], p[1] - simple[(i + 1) % simple.length][1])),
+    );
     expect(50 - Math.sqrt(50 ** 2 - (longest / 2) ** 2)).toBeLessThanOrEqual(OUTLINE_TOLERANCE_PT);
     expect(simplifyRing(circle, OUTLINE_TOLERANCE_PT)).toEqual(simple);
-    const square: [number, number][] = [[0, 0], [40, 0], [40, 40], [0, 40]];
+    const square: [number, number][] = [
+      [0, 0],
+      [40, 0],
+      [40, 40],
+      [0, 40],
+    ];
     // The shared simplification returns the ring closed (first point repeated).
     expect(simplifyRing(square, OUTLINE_TOLERANCE_PT)).toEqual([...square, square[0]]);
   });

@@ -112,19 +112,30 @@ describe('invitations', () => {
 
     const info = await request(h.app).get(`/api/invitations/${token}`);
     expect(info.status).toBe(200);
-    expect(info.body.invitation).toEqual({ email, name: 'Noor Newhire', organizationName: 'Harbourline Cold Storage (demo)', purpose: 'invite' });
+    expect(info.body.invitation).toEqual({
+      email,
+      name: 'Noor Newhire',
+      organizationName: 'Harbourline Cold Storage (demo)',
+      purpose: 'invite',
+    });
 
-    const mismatch = await request(h.app).post('/api/invitations/accept').send({ token, password: 'a-good-long-password', confirm: 'different' });
+    const mismatch = await request(h.app)
+      .post('/api/invitations/accept')
+      .send({ token, password: 'a-good-long-password', confirm: 'different' });
     expect(mismatch.status).toBe(400);
     expect(mismatch.body.fields.confirm).toBe('The two passwords are not the same.');
 
     const agent = request.agent(h.app);
-    const accepted = await agent.post('/api/invitations/accept').send({ token, password: 'a-good-long-password', confirm: 'a-good-long-password' });
+    const accepted = await agent
+      .post('/api/invitations/accept')
+      .send({ token, password: 'a-good-long-password', confirm: 'a-good-long-password' });
     expect(accepted.status).toBe(200);
     expect(accepted.body.user.hasPassword).toBe(true);
     expect((await agent.get('/api/auth/me')).body.user.email).toBe(email);
 
-    const again = await request(h.app).post('/api/invitations/accept').send({ token, password: 'another-long-password', confirm: 'another-long-password' });
+    const again = await request(h.app)
+      .post('/api/invitations/accept')
+      .send({ token, password: 'another-long-password', confirm: 'another-long-password' });
     expect(again.status).toBe(410);
     expect((await request(h.app).get(`/api/invitations/${token}`)).status).toBe(410);
 
@@ -159,7 +170,9 @@ describe('turning an account off', () => {
     expect(off.body.user.disabled).toBe(true);
 
     expect((await worker.get('/api/auth/me')).status).toBe(401);
-    const again = await request(h.app).post('/api/auth/sign-in').send({ email: 'temp.worker@sightfan-demo.example', password: 'temporary-password' });
+    const again = await request(h.app)
+      .post('/api/auth/sign-in')
+      .send({ email: 'temp.worker@sightfan-demo.example', password: 'temporary-password' });
     // Answered exactly like a wrong password, so the answer does not confirm the password.
     expect(again.status).toBe(401);
   });

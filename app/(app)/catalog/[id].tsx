@@ -19,7 +19,12 @@ export default function CatalogItemScreen() {
   const item = catalog.data?.find((c) => String(c.id) === id) ?? null;
   if (!user) return null;
   if (catalog.isPending) return <ActivityIndicator color={palette.glass} accessibilityLabel="Loading the catalogue" />;
-  if (catalog.isError) return <Screen title="Catalogue"><Notice tone="stop">{describeError(catalog.error)}</Notice></Screen>;
+  if (catalog.isError)
+    return (
+      <Screen title="Catalogue">
+        <Notice tone="stop">{describeError(catalog.error)}</Notice>
+      </Screen>
+    );
   if (!item) {
     return (
       <Screen title="Catalogue">
@@ -32,7 +37,11 @@ export default function CatalogItemScreen() {
   return (
     <Screen
       title={item.name}
-      lead={item.demo ? 'A demo item: invented for trying Sightfan, not a real product. The demo set is shared and read-only; add your own mirrors with “New mirror”.' : undefined}
+      lead={
+        item.demo
+          ? 'A demo item: invented for trying Sightfan, not a real product. The demo set is shared and read-only; add your own mirrors with “New mirror”.'
+          : undefined
+      }
       width="narrow"
     >
       <CatalogDetails item={item} units={units} />

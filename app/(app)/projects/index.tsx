@@ -11,7 +11,9 @@ export default function ProjectsScreen() {
     <Screen
       title="Projects"
       lead={installer ? 'Sites and vehicles you are fitting with mirrors.' : "Your organisation's sites and vehicles, to read and review."}
-      footer={installer ? <Button label="New project" testID="projects-new" onPress={() => router.push('/projects/new')} block /> : undefined}
+      footer={
+        installer ? <Button label="New project" testID="projects-new" onPress={() => router.push('/projects/new')} block /> : undefined
+      }
     >
       <ProjectsList role={user.role} />
     </Screen>

@@ -1,6 +1,13 @@
 import { Router, type Request } from 'express';
 import { RateLimiterMemory } from 'rate-limiter-flexible';
-import { changePasswordBody, FORGOT_PASSWORD_ANSWER, forgotPasswordBody, signInBody, updateMeBody, type ForgotPasswordResponse } from '../../../shared/schemas';
+import {
+  changePasswordBody,
+  FORGOT_PASSWORD_ANSWER,
+  forgotPasswordBody,
+  signInBody,
+  updateMeBody,
+  type ForgotPasswordResponse,
+} from '../../../shared/schemas';
 import type { Orm } from '../../db';
 import { HttpError } from '../../http-error';
 import { requireUser } from '../../middleware/auth';
@@ -86,16 +93,24 @@ export function authRoutes(deps: AuthDeps): Router {
     const body = parseOr400(changePasswordBody, req.body, 'The new password');
     const me = req.user!;
     const admission = await limiter.admit(me.email, req.ip ?? 'unknown');
-    if (!admission.ok) throw new HttpError(429, 'Too many password attempts for now.', undefined, { 'Retry-After': String(admission.retryAfterS) });
+    if (!admission.ok)
+      throw new HttpError(429, 'Too many password attempts for now.', undefined, { 'Retry-After': String(admission.retryAfterS) });
     const em = orm.em.fork();
     const user = await em.findOneOrFail(User, { id: me.id }, { populate: ['organization', 'passwordHash'] });
     if (!(await verifyPassword(body.currentPassword, user.passwordHash))) {
       await admission.release(false);
-      throw new HttpError(400, 'Your current password is not right; nothing was changed.', { currentPassword: 'This is not your current password.' });
+      throw new HttpError(400, 'Your current password is not right; nothing was changed.', {
+        currentPassword: 'This is not your current password.',
+      });
     }
     await admission.release(true);
     user.passwordHash = await hashPassword(body.password, deps.bcryptCost);
-    queueMail(em, { organizationId: user.organization.id, kind: 'password-changed', to: user.email, ...passwordChangedEmail({ name: user.name }) });
+    queueMail(em, {
+      organizationId: user.organization.id,
+      kind: 'password-changed',
+      to: user.email,
+      ...passwordChangedEmail({ name: user.name }),
+    });
     await em.flush();
     await deps.store.destroyForUser(user.id, req.sessionID);
     deps.outbox.kick();
@@ -120,7 +135,12 @@ export function authRoutes(deps: AuthDeps): Router {
       await em.nativeUpdate(Invitation, { user: user.id, purpose: 'reset', usedAt: null }, { usedAt: new Date() });
       const { token } = createInvitation(em, user, new Date(), 'reset');
       const link = `${deps.publicUrl(req.get('host') ?? 'localhost')}/set-password?token=${token}`;
-      queueMail(em, { organizationId: user.organization.id, kind: 'password-reset', to: user.email, ...resetEmail({ name: user.name, link }) });
+      queueMail(em, {
+        organizationId: user.organization.id,
+        kind: 'password-reset',
+        to: user.email,
+        ...resetEmail({ name: user.name, link }),
+      });
       await em.flush();
       deps.outbox.kick();
     }

@@ -105,7 +105,12 @@ export class SignInLimiter {
       ok: true,
       release: async (success) => {
         if (!success) return;
-        await Promise.all([this.byPair.delete(pairKey), this.byAddress.reward(address, 1), this.accountAttempts.delete(email), this.accountGate.delete(email)]);
+        await Promise.all([
+          this.byPair.delete(pairKey),
+          this.byAddress.reward(address, 1),
+          this.accountAttempts.delete(email),
+          this.accountGate.delete(email),
+        ]);
         this.remember(pairKey);
       },
     };

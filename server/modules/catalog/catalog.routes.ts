@@ -10,14 +10,19 @@ import { MirrorModel } from './mirror-model.entity';
 import { visibleCatalogue } from '../projects/project-access';
 import { onDuplicate, onStaleVersion } from '../../write-conflicts';
 
-onDuplicate('mirror_model.code', () => new HttpError(409, 'Another catalogue item already uses this code.', { code: 'This code is already in use.' }));
+onDuplicate(
+  'mirror_model.code',
+  () => new HttpError(409, 'Another catalogue item already uses this code.', { code: 'This code is already in use.' }),
+);
 onStaleVersion(MirrorModel, 'catalogue item', async (em, stale) => toCatalogueItemDto(await em.findOneOrFail(MirrorModel, stale.id)));
 
 export function catalogRoutes(orm: Orm): Router {
   const r = Router();
 
   r.get('/', requireUser, async (req, res) => {
-    const items = await orm.em.fork().find(MirrorModel, visibleCatalogue(req.user!.organization.id), { orderBy: { shape: 'asc', code: 'asc' } });
+    const items = await orm.em
+      .fork()
+      .find(MirrorModel, visibleCatalogue(req.user!.organization.id), { orderBy: { shape: 'asc', code: 'asc' } });
     res.json({ items: items.map(toCatalogueItemDto) });
   });
 
@@ -39,7 +44,10 @@ export function catalogRoutes(orm: Orm): Router {
     const item = await em.findOne(MirrorModel, { $and: [{ id }, visibleCatalogue(req.user!.organization.id)] });
     if (!item) throw notFound('That catalogue item');
     if (!item.organization) {
-      throw new HttpError(403, 'The demo catalogue is shared and read-only. Add the mirror to your own catalogue under a new code to change it.');
+      throw new HttpError(
+        403,
+        'The demo catalogue is shared and read-only. Add the mirror to your own catalogue under a new code to change it.',
+      );
     }
     await em.lock(item, LockMode.OPTIMISTIC, body.version);
     const { mirror, version: _v, ...rest } = body;

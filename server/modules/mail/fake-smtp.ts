@@ -41,7 +41,11 @@ export async function startFakeSmtp(orm: Orm, log: Logger, port: number): Promis
               toAddresses: envelopeTo.length ? envelopeTo : addresses(parsed.to),
               subject: parsed.subject ?? '(no subject)',
               text: parsed.text ?? '',
-              attachments: parsed.attachments.map((a) => ({ filename: a.filename ?? 'attachment', contentType: a.contentType, size: a.size })),
+              attachments: parsed.attachments.map((a) => ({
+                filename: a.filename ?? 'attachment',
+                contentType: a.contentType,
+                size: a.size,
+              })),
               raw: raw.toString('latin1'),
               receivedAt: new Date(),
             });

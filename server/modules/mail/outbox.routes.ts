@@ -25,7 +25,11 @@ export function outboxRoutes(orm: Orm, demoMode: boolean, from: string): Router 
         to: [m.toAddress],
         subject: m.subject,
         text: m.text,
-        attachments: m.attachments.map((a) => ({ filename: a.filename, contentType: a.contentType, size: Math.floor((a.content.length * 3) / 4) })),
+        attachments: m.attachments.map((a) => ({
+          filename: a.filename,
+          contentType: a.contentType,
+          size: Math.floor((a.content.length * 3) / 4),
+        })),
         receivedAt: m.createdAt.toISOString(),
         status: m.status,
         attempts: m.attempts,

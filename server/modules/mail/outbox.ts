@@ -29,7 +29,11 @@ export function queueMail(em: EntityManager, mail: QueuedMail): OutgoingMail {
     toAddress: mail.to,
     subject: mail.subject,
     text: mail.text,
-    attachments: (mail.attachments ?? []).map((a) => ({ filename: a.filename, contentType: a.contentType, content: a.content.toString('base64') })),
+    attachments: (mail.attachments ?? []).map((a) => ({
+      filename: a.filename,
+      contentType: a.contentType,
+      content: a.content.toString('base64'),
+    })),
     status: 'queued',
     attempts: 0,
     nextAttemptAt: new Date(),
@@ -54,7 +58,14 @@ export interface OutboxOptions {
   scrubAfterSend: boolean;
 }
 
-export const DEFAULT_OUTBOX_OPTIONS: OutboxOptions = { pollMs: 5000, firstRetryMs: 30_000, maxDelayMs: 60 * 60_000, maxAttempts: 10, leaseMs: 2 * 60_000, scrubAfterSend: true };
+export const DEFAULT_OUTBOX_OPTIONS: OutboxOptions = {
+  pollMs: 5000,
+  firstRetryMs: 30_000,
+  maxDelayMs: 60 * 60_000,
+  maxAttempts: 10,
+  leaseMs: 2 * 60_000,
+  scrubAfterSend: true,
+};
 export const SCRUBBED_TEXT = 'Delivered. The content was removed after sending, as it may hold a one-time link.';
 
 export type Delivery = 'sent' | 'queued' | 'failed';
@@ -107,11 +118,13 @@ export class MailDispatcher {
     if (this.running) return 0;
     let sent = 0;
     this.running = (async () => {
-      const due = await this.orm.em.fork().find(
-        OutgoingMail,
-        { status: { $in: ['queued', 'sending'] }, nextAttemptAt: { $lte: new Date() } },
-        { orderBy: { id: 'asc' }, limit: 50, fields: ['id'] },
-      );
+      const due = await this.orm.em
+        .fork()
+        .find(
+          OutgoingMail,
+          { status: { $in: ['queued', 'sending'] }, nextAttemptAt: { $lte: new Date() } },
+          { orderBy: { id: 'asc' }, limit: 50, fields: ['id'] },
+        );
       for (const row of due) {
         if (fromTimer && this.stopped) break;
         if ((await this.deliver(row.id)) === 'sent') sent++;
@@ -147,10 +160,18 @@ export class MailDispatcher {
         to: row.toAddress,
         subject: row.subject,
         text: row.text,
-        attachments: row.attachments.map((a) => ({ filename: a.filename, contentType: a.contentType, content: Buffer.from(a.content, 'base64') })),
+        attachments: row.attachments.map((a) => ({
+          filename: a.filename,
+          contentType: a.contentType,
+          content: Buffer.from(a.content, 'base64'),
+        })),
       });
       const scrub = this.options.scrubAfterSend ? { text: SCRUBBED_TEXT, attachments: [] } : {};
-      await em.nativeUpdate(OutgoingMail, { id }, { status: 'sent', sentAt: new Date(), attempts: row.attempts + 1, lastError: null, ...scrub });
+      await em.nativeUpdate(
+        OutgoingMail,
+        { id },
+        { status: 'sent', sentAt: new Date(), attempts: row.attempts + 1, lastError: null, ...scrub },
+      );
       return 'sent';
     } catch (e) {
       const attempts = row.attempts + 1;
@@ -158,12 +179,16 @@ export class MailDispatcher {
       // Duck-typed: errors from Node's sockets may come from another realm (Jest), failing instanceof.
       const err = (e ?? {}) as { code?: string; name?: string; message?: string };
       const reason = redact(`${err.code ?? err.name ?? 'Error'}: ${err.message ?? String(e)}`).slice(0, 300);
-      await em.nativeUpdate(OutgoingMail, { id }, {
-        status: failed ? 'failed' : 'queued',
-        attempts,
-        lastError: reason,
-        nextAttemptAt: new Date(Date.now() + this.retryDelayMs(attempts)),
-      });
+      await em.nativeUpdate(
+        OutgoingMail,
+        { id },
+        {
+          status: failed ? 'failed' : 'queued',
+          attempts,
+          lastError: reason,
+          nextAttemptAt: new Date(Date.now() + this.retryDelayMs(attempts)),
+        },
+      );
       this.log.warn(`outbox: mail ${id} not delivered (attempt ${attempts}${failed ? ', giving up' : ''}): ${reason}`);
       return failed ? 'failed' : 'queued';
     }

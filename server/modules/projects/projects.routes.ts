@@ -49,7 +49,10 @@ async function placementsOf(em: AnyEntityManager, project: Project): Promise<Pla
 /** Placement references must point at things that exist: a catalogue item, a viewer in the plan. */
 async function checkReferences(em: EntityManager, project: Project, body: { catalogueItemId?: number | null; viewerId?: string | null }) {
   const fields: Record<string, string> = {};
-  if (body.catalogueItemId != null && !(await em.count(MirrorModel, { $and: [{ id: body.catalogueItemId }, visibleCatalogue(project.organization.id)] }))) {
+  if (
+    body.catalogueItemId != null &&
+    !(await em.count(MirrorModel, { $and: [{ id: body.catalogueItemId }, visibleCatalogue(project.organization.id)] }))
+  ) {
     fields.catalogueItemId = 'That catalogue mirror does not exist; pick one from the catalogue.';
   }
   if (body.viewerId != null && !project.scene.viewers.some((v) => v.id === body.viewerId)) {
@@ -66,7 +69,16 @@ async function checkMount(
   em: EntityManager,
   user: User,
   project: Project,
-  p: { label: string; catalogueItemId: number | null; customMirror: MirrorSpec | null; positionM: [number, number]; heightM: number; azimuthRad: number; tiltDownRad: number; viewerId: string | null },
+  p: {
+    label: string;
+    catalogueItemId: number | null;
+    customMirror: MirrorSpec | null;
+    positionM: [number, number];
+    heightM: number;
+    azimuthRad: number;
+    tiltDownRad: number;
+    viewerId: string | null;
+  },
 ) {
   let spec = p.customMirror;
   if (!spec && p.catalogueItemId != null) {
@@ -74,16 +86,22 @@ async function checkMount(
     spec = model ? mirrorOfModel(model) : null;
   }
   if (!spec) return;
-  const problem = mountProblem({ label: p.label, mirror: mirrorOfSpec(spec), placement: p, scene: project.scene, units: resolveUnits(project.units, user.units) });
+  const problem = mountProblem({
+    label: p.label,
+    mirror: mirrorOfSpec(spec),
+    placement: p,
+    scene: project.scene,
+    units: resolveUnits(project.units, user.units),
+  });
   if (problem) throw new HttpError(400, problem.message, { positionM: problem.message });
 }
-
 
 /**
  * Touches the project's `updatedAt` without a new project version: a mirror's change is not a plan
  * change. Naming `version` (as itself) in the update stops MikroORM adding its `version + 1`.
  */
-const touch = (em: EntityManager, project: Project) => em.nativeUpdate(Project, { id: project.id }, { updatedAt: new Date(), version: raw<Project, number>('version') });
+const touch = (em: EntityManager, project: Project) =>
+  em.nativeUpdate(Project, { id: project.id }, { updatedAt: new Date(), version: raw<Project, number>('version') });
 
 export function projectsRoutes(orm: Orm): Router {
   const r = Router();
@@ -93,16 +111,29 @@ export function projectsRoutes(orm: Orm): Router {
     const q = parseOr400(listQuery, req.query, 'The search');
     const em = orm.em.fork();
     const where = q.q
-      ? { $and: [visibleProjects(req.user!), { $or: [{ name: { $like: `%${q.q}%` } }, { customer: { $like: `%${q.q}%` } }, { site: { $like: `%${q.q}%` } }] }] }
+      ? {
+          $and: [
+            visibleProjects(req.user!),
+            { $or: [{ name: { $like: `%${q.q}%` } }, { customer: { $like: `%${q.q}%` } }, { site: { $like: `%${q.q}%` } }] },
+          ],
+        }
       : visibleProjects(req.user!);
-    const orderBy = q.sort === 'name' ? { name: 'asc' as const } : q.sort === 'customer' ? { customer: 'asc' as const, name: 'asc' as const } : { updatedAt: 'desc' as const };
+    const orderBy =
+      q.sort === 'name'
+        ? { name: 'asc' as const }
+        : q.sort === 'customer'
+          ? { customer: 'asc' as const, name: 'asc' as const }
+          : { updatedAt: 'desc' as const };
     const projects = await em.find(Project, where, { populate: ['owner'], orderBy: { ...orderBy, id: 'asc' } });
     const counts = new Map<number, number>();
     if (projects.length) {
       const ids = projects.map((p) => p.id);
       const rows: { project_id: number; n: number }[] = await em
         .getConnection()
-        .execute(`select project_id, count(*) as n from placement where project_id in (${ids.map(() => '?').join(',')}) group by project_id`, ids);
+        .execute(
+          `select project_id, count(*) as n from placement where project_id in (${ids.map(() => '?').join(',')}) group by project_id`,
+          ids,
+        );
       for (const row of rows) counts.set(Number(row.project_id), Number(row.n));
     }
     res.json({ projects: projects.map((p) => toProjectSummaryDto(p, counts.get(p.id) ?? 0)) });
@@ -134,7 +165,10 @@ export function projectsRoutes(orm: Orm): Router {
       // A viewer still served by a mirror cannot vanish from the plan.
       const ids = new Set(changes.scene.viewers.map((v) => v.id));
       const orphan = (await placementsOf(em, project)).find((p) => p.viewerId && !ids.has(p.viewerId));
-      if (orphan) throw new HttpError(409, `Mirror "${orphan.label}" serves a viewer this change removes; move it to another viewer first.`, { scene: 'A viewer in use was removed.' });
+      if (orphan)
+        throw new HttpError(409, `Mirror "${orphan.label}" serves a viewer this change removes; move it to another viewer first.`, {
+          scene: 'A viewer in use was removed.',
+        });
     }
     em.assign(project, changes);
     await em.flush();
@@ -185,7 +219,12 @@ export function projectsRoutes(orm: Orm): Router {
     await checkReferences(em, project, body);
     const merged = {
       label: body.label ?? placement.label,
-      catalogueItemId: body.catalogueItemId !== undefined ? body.catalogueItemId : body.customMirror != null ? null : (placement.catalogueItem?.id ?? null),
+      catalogueItemId:
+        body.catalogueItemId !== undefined
+          ? body.catalogueItemId
+          : body.customMirror != null
+            ? null
+            : (placement.catalogueItem?.id ?? null),
       customMirror: body.customMirror !== undefined ? body.customMirror : body.catalogueItemId != null ? null : placement.customMirror,
       positionM: body.positionM ?? ([placement.xM, placement.yM] as [number, number]),
       heightM: body.heightM ?? placement.heightM,
@@ -200,7 +239,8 @@ export function projectsRoutes(orm: Orm): Router {
       placement.xM = positionM[0];
       placement.yM = positionM[1];
     }
-    if (catalogueItemId !== undefined) placement.catalogueItem = catalogueItemId === null ? null : em.getReference(MirrorModel, catalogueItemId);
+    if (catalogueItemId !== undefined)
+      placement.catalogueItem = catalogueItemId === null ? null : em.getReference(MirrorModel, catalogueItemId);
     if (body.catalogueItemId != null) placement.customMirror = null;
     if (body.customMirror != null) placement.catalogueItem = null;
     await em.flush();

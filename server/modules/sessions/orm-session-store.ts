@@ -14,7 +14,10 @@ const DAY_MS = 24 * 60 * 60 * 1000;
 export class OrmSessionStore extends session.Store {
   private pruneTimer?: NodeJS.Timeout;
 
-  constructor(private readonly orm: Orm, pruneEveryMs = 15 * 60 * 1000) {
+  constructor(
+    private readonly orm: Orm,
+    pruneEveryMs = 15 * 60 * 1000,
+  ) {
     super();
     this.pruneTimer = setInterval(() => void this.prune().catch(() => undefined), pruneEveryMs);
     this.pruneTimer.unref();

@@ -36,11 +36,22 @@ export function loadProject(em: EntityManager, user: User, rawId: unknown): Prom
 
 async function sheetInput(em: EntityManager, project: Project): Promise<SheetInput> {
   const placements = await em.find(Placement, { project: project.id }, { orderBy: { id: 'asc' } });
-  const catalogue = (await em.find(MirrorModel, visibleCatalogue(project.organization.id), { orderBy: { id: 'asc' } })).map(toCatalogueItemDto);
+  const catalogue = (await em.find(MirrorModel, visibleCatalogue(project.organization.id), { orderBy: { id: 'asc' } })).map(
+    toCatalogueItemDto,
+  );
   // Only the catalogue items placed here: other items' edits must not change this project's key.
   const used = new Set(placements.map((p) => p.catalogueItem?.id).filter((id) => id != null));
   return {
-    project: { id: project.id, name: project.name, customer: project.customer, site: project.site, kind: project.kind, notes: project.notes, units: project.units, scene: project.scene },
+    project: {
+      id: project.id,
+      name: project.name,
+      customer: project.customer,
+      site: project.site,
+      kind: project.kind,
+      notes: project.notes,
+      units: project.units,
+      scene: project.scene,
+    },
     owner: { name: project.owner.name, email: project.owner.email, units: project.owner.units },
     organization: project.organization.name,
     placements: placements.map(toPlacementDto),
@@ -71,7 +82,11 @@ async function storeEvaluation(em: EntityManager, key: string, contentJson: stri
     if (!(e instanceof UniqueConstraintViolationException)) throw e;
     return;
   }
-  const stale = await fork.find(SheetEvaluation, {}, { fields: ['inputHash'], orderBy: { usedAt: 'desc' }, offset: SHEET_CACHE_ROWS, limit: 1000 });
+  const stale = await fork.find(
+    SheetEvaluation,
+    {},
+    { fields: ['inputHash'], orderBy: { usedAt: 'desc' }, offset: SHEET_CACHE_ROWS, limit: 1000 },
+  );
   if (stale.length) await fork.nativeDelete(SheetEvaluation, { inputHash: { $in: stale.map((s) => s.inputHash) } });
 }
 
@@ -84,7 +99,11 @@ export const latestRevision = (em: EntityManager, project: Project) =>
   em.findOne(SheetRevision, { project: project.id }, { orderBy: { number: 'desc' }, populate: ['issuedBy'] });
 
 /** The latest revision if its content is the current content; otherwise a new revision n + 1. */
-export async function issueRevision(em: EntityManager, sheet: CurrentSheet, user: User): Promise<{ revision: SheetRevision; created: boolean }> {
+export async function issueRevision(
+  em: EntityManager,
+  sheet: CurrentSheet,
+  user: User,
+): Promise<{ revision: SheetRevision; created: boolean }> {
   for (let attempt = 0; attempt < 3; attempt++) {
     const latest = await latestRevision(em, sheet.project);
     if (latest && latest.contentHash === sheet.hash) return { revision: latest, created: false };
@@ -122,7 +141,13 @@ export interface RenderedSheet {
  * The PDF of an issued revision, from the content kept with it. A revision issued before content was
  * kept renders only while the project still has that content.
  */
-export async function renderRevision(em: EntityManager, project: Project, revision: SheetRevision, work: SheetWork, paper?: SheetPaper): Promise<RenderedSheet> {
+export async function renderRevision(
+  em: EntityManager,
+  project: Project,
+  revision: SheetRevision,
+  work: SheetWork,
+  paper?: SheetPaper,
+): Promise<RenderedSheet> {
   await em.populate(revision, ['content']);
   let contentJson: string;
   if (revision.content) {
@@ -130,11 +155,18 @@ export async function renderRevision(em: EntityManager, project: Project, revisi
   } else {
     const now = await currentContent(em, project, work);
     if (now.hash !== revision.contentHash) {
-      throw new HttpError(410, `Revision ${revision.number} was issued before Sightfan kept each revision's content, and the project has changed since, so it cannot be printed again. Issue a new revision.`);
+      throw new HttpError(
+        410,
+        `Revision ${revision.number} was issued before Sightfan kept each revision's content, and the project has changed since, so it cannot be printed again. Issue a new revision.`,
+      );
     }
     contentJson = now.contentJson;
   }
-  const pdf = await work.render(contentJson, { number: revision.number, contentHash: revision.contentHash, issuedAt: revision.issuedAt }, paper);
+  const pdf = await work.render(
+    contentJson,
+    { number: revision.number, contentHash: revision.contentHash, issuedAt: revision.issuedAt },
+    paper,
+  );
   return { revision, pdf, filename: sheetFilename(project.name, revision.number), projectName: project.name };
 }
 

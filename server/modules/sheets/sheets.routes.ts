@@ -1,5 +1,12 @@
 import { Router, type Response } from 'express';
-import { sheetEmailBody, sheetPdfQuery, sheetQuery, type SheetEmailResponse, type SheetIssueResponse, type SheetStatusDto } from '../../../shared/schemas';
+import {
+  sheetEmailBody,
+  sheetPdfQuery,
+  sheetQuery,
+  type SheetEmailResponse,
+  type SheetIssueResponse,
+  type SheetStatusDto,
+} from '../../../shared/schemas';
 import type { Orm } from '../../db';
 import { HttpError } from '../../http-error';
 import { requireUser } from '../../middleware/auth';
@@ -65,7 +72,12 @@ export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: She
       ? await em.findOne(SheetRevision, { project: project.id, number: q.revision }, { populate: ['issuedBy'] })
       : await latestRevision(em, project);
     if (!revision) {
-      throw new HttpError(404, q.revision ? `This project has no revision ${q.revision}.` : 'No sheet has been issued for this project yet. Issue one first (the app\u2019s Download sheet does).');
+      throw new HttpError(
+        404,
+        q.revision
+          ? `This project has no revision ${q.revision}.`
+          : 'No sheet has been issued for this project yet. Issue one first (the app\u2019s Download sheet does).',
+      );
     }
     const sheet = await renderRevision(em, project, revision, work, q.paper);
     sendPdf(res, sheet.pdf, sheet.filename, revision.number);
@@ -96,7 +108,12 @@ export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: She
     });
     await em.flush();
     const delivery = await outbox.deliver(mail.id);
-    const out: SheetEmailResponse = { revision: toRevisionDto(sheet.revision), to: body.to, filename: sheet.filename, delivery: delivery === 'sent' ? 'sent' : 'queued' };
+    const out: SheetEmailResponse = {
+      revision: toRevisionDto(sheet.revision),
+      to: body.to,
+      filename: sheet.filename,
+      delivery: delivery === 'sent' ? 'sent' : 'queued',
+    };
     res.json(out);
   });
 

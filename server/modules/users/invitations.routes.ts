@@ -13,9 +13,17 @@ import type { OrmSessionStore } from '../sessions/orm-session-store';
 
 async function usableInvitation(em: EntityManager, token: string): Promise<Invitation> {
   const inv = await em.findOne(Invitation, { tokenHash: hashToken(token) }, { populate: ['user', 'user.organization'] });
-  if (!inv) throw new HttpError(404, 'This link is not valid. Ask your administrator for a new invitation, or ask for a new password from the sign-in page.');
+  if (!inv)
+    throw new HttpError(
+      404,
+      'This link is not valid. Ask your administrator for a new invitation, or ask for a new password from the sign-in page.',
+    );
   const again = inv.purpose === 'reset' ? 'ask for a new link from the sign-in page' : 'ask your administrator for a new invitation';
-  if (inv.usedAt) throw new HttpError(410, `This link has already been used or replaced by a newer one. Sign in with the password you chose, or ${again}.`);
+  if (inv.usedAt)
+    throw new HttpError(
+      410,
+      `This link has already been used or replaced by a newer one. Sign in with the password you chose, or ${again}.`,
+    );
   if (inv.expiresAt.getTime() <= Date.now()) throw new HttpError(410, `This link has expired. Please ${again}.`);
   if (inv.user.disabled) throw new HttpError(410, 'This account has been turned off. Ask your administrator.');
   return inv;
@@ -27,7 +35,9 @@ export function invitationsRoutes(orm: Orm, bcryptCost: number, store: OrmSessio
   r.get('/:token', async (req, res) => {
     const token = parseOr400(invitationToken, req.params.token, 'The link');
     const inv = await usableInvitation(orm.em.fork(), token);
-    res.json({ invitation: { email: inv.user.email, name: inv.user.name, organizationName: inv.user.organization.name, purpose: inv.purpose } });
+    res.json({
+      invitation: { email: inv.user.email, name: inv.user.name, organizationName: inv.user.organization.name, purpose: inv.purpose },
+    });
   });
 
   r.post('/accept', async (req, res) => {

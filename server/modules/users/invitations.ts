@@ -10,7 +10,12 @@ export const RESET_LIFETIME_MS = 60 * 60 * 1000;
 export const hashToken = (token: string) => crypto.createHash('sha256').update(token).digest('hex');
 
 /** Makes a one-time token for a user; only its hash is stored, the token itself goes in the e-mail. */
-export function createInvitation(em: EntityManager, user: User, now = new Date(), purpose: LinkPurpose = 'invite'): { invitation: Invitation; token: string } {
+export function createInvitation(
+  em: EntityManager,
+  user: User,
+  now = new Date(),
+  purpose: LinkPurpose = 'invite',
+): { invitation: Invitation; token: string } {
   const token = crypto.randomBytes(32).toString('base64url');
   const invitation = em.create(Invitation, {
     user,
@@ -24,7 +29,10 @@ export function createInvitation(em: EntityManager, user: User, now = new Date()
   return { invitation, token };
 }
 
-export function invitationEmail(opts: { name: string; inviter: string; organization: string; link: string }): { subject: string; text: string } {
+export function invitationEmail(opts: { name: string; inviter: string; organization: string; link: string }): {
+  subject: string;
+  text: string;
+} {
   return {
     subject: `${opts.inviter} invited you to Sightfan`,
     text: [

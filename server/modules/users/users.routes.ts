@@ -13,7 +13,13 @@ import { Invitation } from './invitation.entity';
 import { User } from './user.entity';
 import { onDuplicate } from '../../write-conflicts';
 
-onDuplicate('user.email', () => new HttpError(409, 'Someone already has an account with this e-mail address.', { email: 'This e-mail address already has an account.' }));
+onDuplicate(
+  'user.email',
+  () =>
+    new HttpError(409, 'Someone already has an account with this e-mail address.', {
+      email: 'This e-mail address already has an account.',
+    }),
+);
 import { toUserDto } from './user.dto';
 
 /** Adds an invitation and the e-mail carrying its link to `em`'s unit of work. */
@@ -24,17 +30,24 @@ function queueInvitation(em: EntityManager, user: User, inviter: User, baseUrl: 
   queueMail(em, { organizationId: inviter.organization.id, kind: 'invitation', to: user.email, ...mail });
 }
 
-export function usersRoutes(deps: { orm: Orm; outbox: MailDispatcher; store: OrmSessionStore; publicUrl: (host: string) => string }): Router {
+export function usersRoutes(deps: {
+  orm: Orm;
+  outbox: MailDispatcher;
+  store: OrmSessionStore;
+  publicUrl: (host: string) => string;
+}): Router {
   const { orm, outbox, store } = deps;
   const r = Router();
   r.use(requireRole('admin'));
 
   r.get('/', async (req, res) => {
-    const users = await orm.em.fork().find(
-      User,
-      { organization: req.user!.organization.id },
-      { populate: ['organization', 'passwordHash'], orderBy: { name: 'asc', id: 'asc' } },
-    );
+    const users = await orm.em
+      .fork()
+      .find(
+        User,
+        { organization: req.user!.organization.id },
+        { populate: ['organization', 'passwordHash'], orderBy: { name: 'asc', id: 'asc' } },
+      );
     res.json({ users: users.map(toUserDto) });
   });
 
@@ -43,12 +56,18 @@ export function usersRoutes(deps: { orm: Orm; outbox: MailDispatcher; store: Orm
     const em = orm.em.fork();
     const existing = await em.findOne(User, { email: body.email }, { populate: ['passwordHash'] });
     if (existing && existing.organization.id === req.user!.organization.id && !existing.passwordHash && !existing.disabled) {
-      throw new HttpError(409, `${existing.name} is already invited and has not chosen a password yet. Use "Invite again" in the list to send a new link.`, {
-        email: 'Already invited: use "Invite again" in the list.',
-      });
+      throw new HttpError(
+        409,
+        `${existing.name} is already invited and has not chosen a password yet. Use "Invite again" in the list to send a new link.`,
+        {
+          email: 'Already invited: use "Invite again" in the list.',
+        },
+      );
     }
     if (existing) {
-      throw new HttpError(409, 'Someone already has an account with this e-mail address.', { email: 'This e-mail address already has an account.' });
+      throw new HttpError(409, 'Someone already has an account with this e-mail address.', {
+        email: 'This e-mail address already has an account.',
+      });
     }
     const user = em.create(User, {
       organization: req.user!.organization.id,
@@ -75,7 +94,10 @@ export function usersRoutes(deps: { orm: Orm; outbox: MailDispatcher; store: Orm
     const user = await em.findOne(User, { id, organization: req.user!.organization.id }, { populate: ['organization', 'passwordHash'] });
     if (!user) throw notFound('That user');
     if (user.passwordHash) {
-      throw new HttpError(409, `${user.name} has already chosen a password. If they forgot it, they can ask for a reset link on the sign-in page.`);
+      throw new HttpError(
+        409,
+        `${user.name} has already chosen a password. If they forgot it, they can ask for a reset link on the sign-in page.`,
+      );
     }
     if (user.disabled) throw new HttpError(409, `${user.name}'s account is turned off; turn it on before inviting them again.`);
     await em.nativeUpdate(Invitation, { user: user.id, usedAt: null }, { usedAt: new Date() });

@@ -11,7 +11,14 @@ import { chooseScaleBar, SCALE_BAR_COUNTS } from '../../../shared/units';
  */
 const coord = fc.double({ min: -50, max: 50, noNaN: true });
 const starRing = fc
-  .tuple(coord, coord, fc.array(fc.tuple(fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 0.05, max: 40, noNaN: true })), { minLength: 3, maxLength: 40 }))
+  .tuple(
+    coord,
+    coord,
+    fc.array(fc.tuple(fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 0.05, max: 40, noNaN: true })), {
+      minLength: 3,
+      maxLength: 40,
+    }),
+  )
   .map(([cx, cy, spokes]): Ring => {
     const angles = spokes.map(([a], i) => ((i + a) / spokes.length) * 2 * Math.PI);
     return spokes.map(([, r], i): Pair => [cx + r * Math.cos(angles[i]), cy + r * Math.sin(angles[i])]);
@@ -33,7 +40,19 @@ describe('Sutherland–Hodgman clipping (the one implementation)', () => {
     fc.assert(
       fc.property(starRing, box, (ring, [x0, y0, w, h]) => {
         const ours = Math.abs(signedRingArea(clipRingToBox(ring, x0, y0, x0 + w, y0 + h)));
-        const reference = referenceArea(() => intersection([ring], [[[x0, y0], [x0 + w, y0], [x0 + w, y0 + h], [x0, y0 + h]]]));
+        const reference = referenceArea(() =>
+          intersection(
+            [ring],
+            [
+              [
+                [x0, y0],
+                [x0 + w, y0],
+                [x0 + w, y0 + h],
+                [x0, y0 + h],
+              ],
+            ],
+          ),
+        );
         expect(ours).toBeCloseTo(reference, 6);
       }),
       { numRuns: 400 },
@@ -41,12 +60,18 @@ describe('Sutherland–Hodgman clipping (the one implementation)', () => {
   });
 
   it('cuts any simple star-shaped ring to a convex triangle with the same area polygon-clipping finds', () => {
-    const triangle = fc.tuple(coord, coord, coord, coord, coord, coord).map(([a, b, c, d, e, f]): Ring => {
-      const t: Ring = [[a, b], [c, d], [e, f]];
-      return signedRingArea(t) < 0 ? [t[0], t[2], t[1]] : t;
-    })
-    // The clip polygon must be a real (counter-clockwise, non-degenerate) convex polygon.
-    .filter((t) => signedRingArea(t) > 1e-6);
+    const triangle = fc
+      .tuple(coord, coord, coord, coord, coord, coord)
+      .map(([a, b, c, d, e, f]): Ring => {
+        const t: Ring = [
+          [a, b],
+          [c, d],
+          [e, f],
+        ];
+        return signedRingArea(t) < 0 ? [t[0], t[2], t[1]] : t;
+      })
+      // The clip polygon must be a real (counter-clockwise, non-degenerate) convex polygon.
+      .filter((t) => signedRingArea(t) > 1e-6);
     fc.assert(
       fc.property(starRing, triangle, (ring, tri) => {
         const ours = Math.abs(signedRingArea(clipRingToConvex(ring, tri)));
@@ -79,7 +104,12 @@ describe('bounds of points', () => {
       fc.property(fc.array(fc.tuple(coord, coord), { minLength: 1, maxLength: 50 }), (pts) => {
         const b = boundsOfPoints(pts)!;
         for (const [x, y] of pts) expect(x >= b.minX && x <= b.maxX && y >= b.minY && y <= b.maxY).toBe(true);
-        expect(pts.some(([x]) => x === b.minX) && pts.some(([x]) => x === b.maxX) && pts.some(([, y]) => y === b.minY) && pts.some(([, y]) => y === b.maxY)).toBe(true);
+        expect(
+          pts.some(([x]) => x === b.minX) &&
+            pts.some(([x]) => x === b.maxX) &&
+            pts.some(([, y]) => y === b.minY) &&
+            pts.some(([, y]) => y === b.maxY),
+        ).toBe(true);
       }),
     );
   });
@@ -112,7 +142,8 @@ describe('the scale bar length', () => {
       fc.property(units, perM, fc.double({ min: 1, max: 500, noNaN: true }), (u, s, atMost) => {
         const bar = chooseScaleBar(u, s, { atMost });
         const i = SCALE_BAR_COUNTS.findIndex((n) => Math.abs(n * unitM(u) - bar.lengthM) < 1e-9);
-        if (bar.lengthM * s <= atMost && i < SCALE_BAR_COUNTS.length - 1) expect(SCALE_BAR_COUNTS[i + 1] * unitM(u) * s).toBeGreaterThan(atMost);
+        if (bar.lengthM * s <= atMost && i < SCALE_BAR_COUNTS.length - 1)
+          expect(SCALE_BAR_COUNTS[i + 1] * unitM(u) * s).toBeGreaterThan(atMost);
         if (bar.lengthM * s > atMost) expect(i).toBe(0);
       }),
     );

@@ -11,8 +11,20 @@ import {
   type Ring,
 } from '../../../shared/geometry/polygon';
 
-const square: Ring = [[0, 0], [4, 0], [4, 3], [0, 3]];
-const ell: Ring = [[0, 0], [6, 0], [6, 2], [2, 2], [2, 5], [0, 5]];
+const square: Ring = [
+  [0, 0],
+  [4, 0],
+  [4, 3],
+  [0, 3],
+];
+const ell: Ring = [
+  [0, 0],
+  [6, 0],
+  [6, 2],
+  [2, 2],
+  [2, 5],
+  [0, 5],
+];
 
 describe('shoelace area and orientation', () => {
   it('gives a 4 × 3 rectangle an area of 12 m², positive counter-clockwise and negative clockwise', () => {
@@ -21,7 +33,17 @@ describe('shoelace area and orientation', () => {
   });
 
   it('subtracts holes from a polygon', () => {
-    expect(polygonArea([square, [[1, 1], [2, 1], [2, 2], [1, 2]]])).toBe(11);
+    expect(
+      polygonArea([
+        square,
+        [
+          [1, 1],
+          [2, 1],
+          [2, 2],
+          [1, 2],
+        ],
+      ]),
+    ).toBe(11);
   });
 
   it('ignores a repeated closing point', () => {
@@ -34,10 +56,45 @@ describe('simple polygon test', () => {
   it.each([
     ['a rectangle', square, true],
     ['an L shape', ell, true],
-    ['a bow-tie', [[0, 0], [2, 2], [2, 0], [0, 2]] as Ring, false],
-    ['two points', [[0, 0], [1, 1]] as Ring, false],
-    ['a ring that touches itself at a vertex', [[0, 0], [4, 0], [2, 2], [4, 4], [0, 4], [2, 2]] as Ring, false],
-    ['a ring with a NaN corner', [[0, 0], [1, NaN], [1, 1]] as Ring, false],
+    [
+      'a bow-tie',
+      [
+        [0, 0],
+        [2, 2],
+        [2, 0],
+        [0, 2],
+      ] as Ring,
+      false,
+    ],
+    [
+      'two points',
+      [
+        [0, 0],
+        [1, 1],
+      ] as Ring,
+      false,
+    ],
+    [
+      'a ring that touches itself at a vertex',
+      [
+        [0, 0],
+        [4, 0],
+        [2, 2],
+        [4, 4],
+        [0, 4],
+        [2, 2],
+      ] as Ring,
+      false,
+    ],
+    [
+      'a ring with a NaN corner',
+      [
+        [0, 0],
+        [1, NaN],
+        [1, 1],
+      ] as Ring,
+      false,
+    ],
   ])('calls %s simple: %s', (_label, ring, expected) => {
     expect(isSimpleRing(ring)).toBe(expected);
   });
@@ -49,7 +106,20 @@ describe('point in polygon', () => {
     expect(pointInPolygon([ell], [4, 4])).toBe(false);
   });
   it('treats points in a hole as outside', () => {
-    expect(pointInPolygon([square, [[1, 1], [2, 1], [2, 2], [1, 2]]], [1.5, 1.5])).toBe(false);
+    expect(
+      pointInPolygon(
+        [
+          square,
+          [
+            [1, 1],
+            [2, 1],
+            [2, 2],
+            [1, 2],
+          ],
+        ],
+        [1.5, 1.5],
+      ),
+    ).toBe(false);
   });
 });
 
@@ -78,15 +148,29 @@ describe('clipping a curve to a disc', () => {
   });
 
   it('returns the whole disc when the curve surrounds it, and nothing when it misses it', () => {
-    const big = toArrays([[-10, -10], [10, -10], [10, 10], [-10, 10]]);
-    const far = toArrays([[20, 20], [21, 20], [21, 21]]);
+    const big = toArrays([
+      [-10, -10],
+      [10, -10],
+      [10, 10],
+      [-10, 10],
+    ]);
+    const far = toArrays([
+      [20, 20],
+      [21, 20],
+      [21, 21],
+    ]);
     const disc = clipCurveToDisc(...big, 0, 0, 1, 0.01);
     expect(multiPolygonArea(disc)).toBeCloseTo(Math.PI, 3);
     expect(clipCurveToDisc(...far, 0, 0, 1, 0.01)).toEqual([]);
   });
 
   it('accepts a clockwise curve', () => {
-    const cw = toArrays([[-2, -0.5], [-2, 0.5], [2, 0.5], [2, -0.5]]);
+    const cw = toArrays([
+      [-2, -0.5],
+      [-2, 0.5],
+      [2, 0.5],
+      [2, -0.5],
+    ]);
     const out = clipCurveToDisc(...cw, 0, 0, 1, 1e-3);
     expect(out).toHaveLength(1);
     expect(signedRingArea(out[0][0])).toBeGreaterThan(0);
@@ -101,7 +185,15 @@ describe('area of a region inside a zone via triangles', () => {
   });
 
   it('matches polygon-clipping for a circle over an L shape with a hole', () => {
-    const zone = [ell, [[0.5, 3], [1.5, 3], [1.5, 4], [0.5, 4]] as Ring];
+    const zone = [
+      ell,
+      [
+        [0.5, 3],
+        [1.5, 3],
+        [1.5, 4],
+        [0.5, 4],
+      ] as Ring,
+    ];
     const region = [[circleRing([2, 2], 2.5, 300)]];
     const ref = multiPolygonArea(intersection(zone, region));
     expect(intersectionAreaWithPieces(region, signedPieces(zone))).toBeCloseTo(ref, 9);

@@ -33,16 +33,20 @@ describe('wall subtraction on nearly degenerate shadows', () => {
     const near = coverage({ mirror, pose, eyeM, maxRangeM: 30, walls });
     expect(far.areaM2).toBeGreaterThan(1);
     expect(Math.abs(far.areaM2 - near.areaM2) / near.areaM2).toBeLessThan(1e-3);
-    for (const poly of far.region) for (const [x, y] of poly[0]) {
-      expect(x).toBeGreaterThanOrEqual(-0.01);
-      expect(x).toBeLessThanOrEqual(40.01);
-      expect(y).toBeGreaterThanOrEqual(-0.01);
-      expect(y).toBeLessThanOrEqual(25.01);
-    }
+    for (const poly of far.region)
+      for (const [x, y] of poly[0]) {
+        expect(x).toBeGreaterThanOrEqual(-0.01);
+        expect(x).toBeLessThanOrEqual(40.01);
+        expect(y).toBeGreaterThanOrEqual(-0.01);
+        expect(y).toBeLessThanOrEqual(25.01);
+      }
   });
 
   it('ends, and quickly, on the hall region and wall shadows that made polygon-clipping loop forever', () => {
-    const f = JSON.parse(fs.readFileSync(path.join(__dirname, 'fixtures', 'polygon-clipping-hang.json'), 'utf8')) as { region: MultiPolygon; shadows: (Polygon | Polygon[0])[] };
+    const f = JSON.parse(fs.readFileSync(path.join(__dirname, 'fixtures', 'polygon-clipping-hang.json'), 'utf8')) as {
+      region: MultiPolygon;
+      shadows: (Polygon | Polygon[0])[];
+    };
     const shadows: Polygon[] = f.shadows.map((s) => (typeof (s as Polygon[0])[0][0] === 'number' ? [s as Polygon[0]] : (s as Polygon)));
     const t0 = Date.now();
     const out = robustDifference(f.region, ...shadows);
@@ -54,7 +58,17 @@ describe('wall subtraction on nearly degenerate shadows', () => {
   });
 
   it('moves no vertex by more than half a grid step on each axis', () => {
-    const square: MultiPolygon = [[[[0.12345678, 0.98765432], [5.00000004, 1.00000001], [5, 6], [0, 6], [0.12345678, 0.98765432]]]];
+    const square: MultiPolygon = [
+      [
+        [
+          [0.12345678, 0.98765432],
+          [5.00000004, 1.00000001],
+          [5, 6],
+          [0, 6],
+          [0.12345678, 0.98765432],
+        ],
+      ],
+    ];
     const out = robustUnion(square);
     expect(out).toHaveLength(1);
     for (const [x, y] of out[0][0]) {
@@ -64,18 +78,73 @@ describe('wall subtraction on nearly degenerate shadows', () => {
   });
 
   it('unions overlapping squares and intersects them, whatever the rings’ orientation', () => {
-    const a: Polygon = [[[0, 0], [4, 0], [4, 4], [0, 4]]];
-    const bCw: Polygon = [[[2, 2], [2, 6], [6, 6], [6, 2]]];
+    const a: Polygon = [
+      [
+        [0, 0],
+        [4, 0],
+        [4, 4],
+        [0, 4],
+      ],
+    ];
+    const bCw: Polygon = [
+      [
+        [2, 2],
+        [2, 6],
+        [6, 6],
+        [6, 2],
+      ],
+    ];
     // 16 + 16 − 4 and the 2 × 2 overlap: plain arithmetic.
     expect(multiPolygonArea(robustUnion(a, bCw))).toBeCloseTo(28, 9);
     expect(multiPolygonArea(robustIntersection(a, bCw))).toBeCloseTo(4, 9);
     // A square with a square hole, minus a bar across it: 64 − 16 − (8 × 1 − 4 × 1) = 44.
-    const framed: Polygon = [[[0, 0], [8, 0], [8, 8], [0, 8]], [[2, 2], [6, 2], [6, 6], [2, 6]]];
-    expect(multiPolygonArea(robustDifference(framed, [[[0, 3.5], [8, 3.5], [8, 4.5], [0, 4.5]]]))).toBeCloseTo(44, 9);
+    const framed: Polygon = [
+      [
+        [0, 0],
+        [8, 0],
+        [8, 8],
+        [0, 8],
+      ],
+      [
+        [2, 2],
+        [6, 2],
+        [6, 6],
+        [2, 6],
+      ],
+    ];
+    expect(
+      multiPolygonArea(
+        robustDifference(framed, [
+          [
+            [0, 3.5],
+            [8, 3.5],
+            [8, 4.5],
+            [0, 4.5],
+          ],
+        ]),
+      ),
+    ).toBeCloseTo(44, 9);
   });
 
   it('subtracts exactly when the input is well conditioned (10 × 10 minus 5 × 5 leaves 75 m²)', () => {
-    const out = robustDifference([[[0, 0], [10, 0], [10, 10], [0, 10]]], [[[0, 0], [5, 0], [5, 5], [0, 5]]]);
+    const out = robustDifference(
+      [
+        [
+          [0, 0],
+          [10, 0],
+          [10, 10],
+          [0, 10],
+        ],
+      ],
+      [
+        [
+          [0, 0],
+          [5, 0],
+          [5, 5],
+          [0, 5],
+        ],
+      ],
+    );
     expect(multiPolygonArea(out)).toBeCloseTo(75, 9);
   });
 });

@@ -7,7 +7,11 @@ const unit = (a: Vec3): Vec3 => {
   const n = norm(a);
   return [a[0] / n, a[1] / n, a[2] / n];
 };
-const vec = fc.tuple(fc.double({ min: -10, max: 10, noNaN: true }), fc.double({ min: -10, max: 10, noNaN: true }), fc.double({ min: -10, max: 10, noNaN: true }));
+const vec = fc.tuple(
+  fc.double({ min: -10, max: 10, noNaN: true }),
+  fc.double({ min: -10, max: 10, noNaN: true }),
+  fc.double({ min: -10, max: 10, noNaN: true }),
+);
 
 /**
  * Cases built forward so that a reflection certainly exists: an eye E outside the sphere, a
@@ -42,8 +46,16 @@ const forwardCase = fc
     const helper: Vec3 = Math.abs(e[2]) < 0.9 ? [0, 0, 1] : [1, 0, 0];
     const t1 = unit([e[1] * helper[2] - e[2] * helper[1], e[2] * helper[0] - e[0] * helper[2], e[0] * helper[1] - e[1] * helper[0]]);
     const t2: Vec3 = [e[1] * t1[2] - e[2] * t1[1], e[2] * t1[0] - e[0] * t1[2], e[0] * t1[1] - e[1] * t1[0]];
-    const g: Vec3 = [Math.cos(turn) * t1[0] + Math.sin(turn) * t2[0], Math.cos(turn) * t1[1] + Math.sin(turn) * t2[1], Math.cos(turn) * t1[2] + Math.sin(turn) * t2[2]];
-    const m: Vec3 = [Math.cos(a) * e[0] + Math.sin(a) * g[0], Math.cos(a) * e[1] + Math.sin(a) * g[1], Math.cos(a) * e[2] + Math.sin(a) * g[2]];
+    const g: Vec3 = [
+      Math.cos(turn) * t1[0] + Math.sin(turn) * t2[0],
+      Math.cos(turn) * t1[1] + Math.sin(turn) * t2[1],
+      Math.cos(turn) * t1[2] + Math.sin(turn) * t2[2],
+    ];
+    const m: Vec3 = [
+      Math.cos(a) * e[0] + Math.sin(a) * g[0],
+      Math.cos(a) * e[1] + Math.sin(a) * g[1],
+      Math.cos(a) * e[2] + Math.sin(a) * g[2],
+    ];
     const P: Vec3 = [C[0] + R * m[0], C[1] + R * m[1], C[2] + R * m[2]];
     const r = reflect(unit(sub(P, E)), m);
     const Q: Vec3 = [P[0] + along * R * r[0], P[1] + along * R * r[1], P[2] + along * R * r[2]];

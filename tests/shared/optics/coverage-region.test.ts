@@ -11,39 +11,84 @@ type Case = { mirror: Mirror; pose: Pose; eyeM: Vec3; maxRangeM: number };
 const cases: [string, Case][] = [
   [
     'a 600 mm round mirror (R 1.2 m) mounted level at 3 m, eye at 1.7 m and 0.5 m in front (every ray goes up)',
-    { mirror: { shape: 'round', diameterM: 0.6, radiusM: 1.2 }, pose: poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0, tiltDownRad: 0 }), eyeM: [0.5, 0, 1.7], maxRangeM: 10 },
+    {
+      mirror: { shape: 'round', diameterM: 0.6, radiusM: 1.2 },
+      pose: poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0, tiltDownRad: 0 }),
+      eyeM: [0.5, 0, 1.7],
+      maxRangeM: 10,
+    },
   ],
   [
     'a full dome turned to face sideways (tilt 0) at 3 m',
-    { mirror: { shape: 'dome', portion: 'full', diameterM: 0.8 }, pose: poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0.4, tiltDownRad: 0 }), eyeM: [4, 2.5, 1.6], maxRangeM: 12 },
+    {
+      mirror: { shape: 'dome', portion: 'full', diameterM: 0.8 },
+      pose: poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0.4, tiltDownRad: 0 }),
+      eyeM: [4, 2.5, 1.6],
+      maxRangeM: 12,
+    },
   ],
   [
     'a half dome mounted steeper than its mount tilt',
-    { mirror: { shape: 'dome', portion: 'half', diameterM: 1 }, pose: poseFromAim({ vertexM: [0, 0, 3.5], azimuthRad: -1, tiltDownRad: 1.2 }), eyeM: [2.5, -3, 1.7], maxRangeM: 12 },
+    {
+      mirror: { shape: 'dome', portion: 'half', diameterM: 1 },
+      pose: poseFromAim({ vertexM: [0, 0, 3.5], azimuthRad: -1, tiltDownRad: 1.2 }),
+      eyeM: [2.5, -3, 1.7],
+      maxRangeM: 12,
+    },
   ],
   [
     'a half dome tilted up',
-    { mirror: { shape: 'dome', portion: 'half', diameterM: 0.9 }, pose: poseFromAim({ vertexM: [0, 0, 2.5], azimuthRad: 0, tiltDownRad: -0.3 }), eyeM: [3, 0.5, 1.6], maxRangeM: 10 },
+    {
+      mirror: { shape: 'dome', portion: 'half', diameterM: 0.9 },
+      pose: poseFromAim({ vertexM: [0, 0, 2.5], azimuthRad: 0, tiltDownRad: -0.3 }),
+      eyeM: [3, 0.5, 1.6],
+      maxRangeM: 10,
+    },
   ],
   [
     'a round panel aimed 30° upward',
-    { mirror: { shape: 'round', diameterM: 0.8, radiusM: 1 }, pose: poseFromAim({ vertexM: [0, 0, 2.2], azimuthRad: 2, tiltDownRad: -Math.PI / 6 }), eyeM: [-2, 3.5, 1.7], maxRangeM: 10 },
+    {
+      mirror: { shape: 'round', diameterM: 0.8, radiusM: 1 },
+      pose: poseFromAim({ vertexM: [0, 0, 2.2], azimuthRad: 2, tiltDownRad: -Math.PI / 6 }),
+      eyeM: [-2, 3.5, 1.7],
+      maxRangeM: 10,
+    },
   ],
   [
     'a deep cap (diameter 98 % of 2R) aimed level',
-    { mirror: { shape: 'round', diameterM: 0.98, radiusM: 0.5 }, pose: poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0, tiltDownRad: 0.1 }), eyeM: [3, 1, 1.6], maxRangeM: 12 },
+    {
+      mirror: { shape: 'round', diameterM: 0.98, radiusM: 0.5 },
+      pose: poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0, tiltDownRad: 0.1 }),
+      eyeM: [3, 1, 1.6],
+      maxRangeM: 12,
+    },
   ],
   [
     'a rectangular panel seen from far off its axis',
-    { mirror: { shape: 'rect', widthM: 0.8, heightM: 0.6, radiusM: 0.6 }, pose: poseFromAim({ vertexM: [0, 0, 2.8], azimuthRad: 0, tiltDownRad: 0.2 }), eyeM: [0.4, 5, 1.7], maxRangeM: 12 },
+    {
+      mirror: { shape: 'rect', widthM: 0.8, heightM: 0.6, radiusM: 0.6 },
+      pose: poseFromAim({ vertexM: [0, 0, 2.8], azimuthRad: 0, tiltDownRad: 0.2 }),
+      eyeM: [0.4, 5, 1.7],
+      maxRangeM: 12,
+    },
   ],
   [
     'a full dome facing up like a ball on a post, eye above its centre (outline rays go down, the middle goes up)',
-    { mirror: { shape: 'dome', portion: 'full', diameterM: 1 }, pose: poseFromAim({ vertexM: [0, 0, 1.5], azimuthRad: 0, tiltDownRad: -Math.PI / 2 }), eyeM: [1.5, 0.3, 1.7], maxRangeM: 8 },
+    {
+      mirror: { shape: 'dome', portion: 'full', diameterM: 1 },
+      pose: poseFromAim({ vertexM: [0, 0, 1.5], azimuthRad: 0, tiltDownRad: -Math.PI / 2 }),
+      eyeM: [1.5, 0.3, 1.7],
+      maxRangeM: 8,
+    },
   ],
   [
     'a quarter dome at a level tilt',
-    { mirror: { shape: 'dome', portion: 'quarter', diameterM: 0.8 }, pose: poseFromAim({ vertexM: [0, 0, 3], azimuthRad: Math.PI / 4, tiltDownRad: 0 }), eyeM: [3, 2.5, 1.6], maxRangeM: 12 },
+    {
+      mirror: { shape: 'dome', portion: 'quarter', diameterM: 0.8 },
+      pose: poseFromAim({ vertexM: [0, 0, 3], azimuthRad: Math.PI / 4, tiltDownRad: 0 }),
+      eyeM: [3, 2.5, 1.6],
+      maxRangeM: 12,
+    },
   ],
 ];
 

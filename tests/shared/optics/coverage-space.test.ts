@@ -25,13 +25,20 @@ const mirrorArb: fc.Arbitrary<Mirror> = fc.oneof(
     const radiusM = Math.min(50, Math.max(0.05, d / (2 * (0.02 + 0.979 * q))));
     return { shape: 'round' as const, diameterM: Math.min(d, 1.998 * radiusM), radiusM };
   }),
-  fc.record({ w: fc.double({ min: 0.05, max: 3, noNaN: true }), h: fc.double({ min: 0.05, max: 3, noNaN: true }), q: unit }).map(({ w, h, q }) => {
-    const diag = Math.hypot(w, h);
-    const radiusM = Math.min(50, Math.max(0.05, diag / (2 * (0.02 + 0.979 * q))));
-    const k = Math.min(1, (1.998 * radiusM) / diag);
-    return { shape: 'rect' as const, widthM: w * k, heightM: h * k, radiusM };
-  }),
-  fc.record({ portion: fc.constantFrom('full' as const, 'half' as const, 'quarter' as const), diameterM: fc.double({ min: 0.1, max: 3, noNaN: true }) }).map((m) => ({ shape: 'dome' as const, ...m })),
+  fc
+    .record({ w: fc.double({ min: 0.05, max: 3, noNaN: true }), h: fc.double({ min: 0.05, max: 3, noNaN: true }), q: unit })
+    .map(({ w, h, q }) => {
+      const diag = Math.hypot(w, h);
+      const radiusM = Math.min(50, Math.max(0.05, diag / (2 * (0.02 + 0.979 * q))));
+      const k = Math.min(1, (1.998 * radiusM) / diag);
+      return { shape: 'rect' as const, widthM: w * k, heightM: h * k, radiusM };
+    }),
+  fc
+    .record({
+      portion: fc.constantFrom('full' as const, 'half' as const, 'quarter' as const),
+      diameterM: fc.double({ min: 0.1, max: 3, noNaN: true }),
+    })
+    .map((m) => ({ shape: 'dome' as const, ...m })),
 );
 
 const placementArb = fc.record({
@@ -54,7 +61,15 @@ const placementArb = fc.record({
  * standing between the eye and the mirror (hiding part of it from the eye).
  */
 const wallsArb = fc.array(
-  fc.record({ between: fc.boolean(), hU: unit, rU: unit, angleRad: fc.double({ min: -Math.PI, max: Math.PI, noNaN: true }), dirRad: fc.double({ min: 0, max: Math.PI, noNaN: true }), lenU: unit, heightM: fc.double({ min: 0.1, max: 6, noNaN: true }) }),
+  fc.record({
+    between: fc.boolean(),
+    hU: unit,
+    rU: unit,
+    angleRad: fc.double({ min: -Math.PI, max: Math.PI, noNaN: true }),
+    dirRad: fc.double({ min: 0, max: Math.PI, noNaN: true }),
+    lenU: unit,
+    heightM: fc.double({ min: 0.1, max: 6, noNaN: true }),
+  }),
   { minLength: 1, maxLength: 5 },
 );
 
@@ -69,7 +84,13 @@ function extentM(m: Mirror): number {
  * Walls from the random draws, kept out of the mirror's own body: a wall through the mirror is
  * geometry that cannot exist (refused elsewhere), not a question for the region.
  */
-function wallsFor(draws: { between: boolean; hU: number; rU: number; angleRad: number; dirRad: number; lenU: number; heightM: number }[], mirror: Mirror, maxRangeM: number, eyeM: Vec3, vertexZ: number): Wall[] {
+function wallsFor(
+  draws: { between: boolean; hU: number; rU: number; angleRad: number; dirRad: number; lenU: number; heightM: number }[],
+  mirror: Mirror,
+  maxRangeM: number,
+  eyeM: Vec3,
+  vertexZ: number,
+): Wall[] {
   const keepOut = extentM(mirror) + 0.05;
   const out: Wall[] = [];
   for (const d of draws) {

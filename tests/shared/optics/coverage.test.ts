@@ -19,11 +19,36 @@ const rect: Mirror = { shape: 'rect', widthM: 0.6, heightM: 0.4, radiusM: 1.0 };
 
 describe('coverage polygon and exact point test agree', () => {
   it.each([
-    ['a round aisle mirror seen from the side', round, poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0.3, tiltDownRad: 0.35 }), [5, 3, 1.6] as Vec3],
-    ['a rectangular blind-spot mirror', rect, poseFromAim({ vertexM: [0, 0, 2], azimuthRad: 2.2, tiltDownRad: 0.5 }), [-1.5, 1.2, 1.9] as Vec3],
-    ['a full dome under a ceiling', { shape: 'dome', portion: 'full', diameterM: 1 } as Mirror, poseFromAim({ vertexM: [0, 0, 3.5], azimuthRad: 0, tiltDownRad: domeMountTiltRad('full') }), [3, 1, 1.7] as Vec3],
-    ['a half dome on a wall', { shape: 'dome', portion: 'half', diameterM: 0.9 } as Mirror, poseFromAim({ vertexM: [0, 0, 3.2], azimuthRad: 1, tiltDownRad: domeMountTiltRad('half') }), [2, 4, 1.6] as Vec3],
-    ['a quarter dome in a corner', { shape: 'dome', portion: 'quarter', diameterM: 0.8 } as Mirror, poseFromAim({ vertexM: [0, 0, 3.2], azimuthRad: Math.PI / 4, tiltDownRad: domeMountTiltRad('quarter') }), [4, 1.5, 1.6] as Vec3],
+    [
+      'a round aisle mirror seen from the side',
+      round,
+      poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0.3, tiltDownRad: 0.35 }),
+      [5, 3, 1.6] as Vec3,
+    ],
+    [
+      'a rectangular blind-spot mirror',
+      rect,
+      poseFromAim({ vertexM: [0, 0, 2], azimuthRad: 2.2, tiltDownRad: 0.5 }),
+      [-1.5, 1.2, 1.9] as Vec3,
+    ],
+    [
+      'a full dome under a ceiling',
+      { shape: 'dome', portion: 'full', diameterM: 1 } as Mirror,
+      poseFromAim({ vertexM: [0, 0, 3.5], azimuthRad: 0, tiltDownRad: domeMountTiltRad('full') }),
+      [3, 1, 1.7] as Vec3,
+    ],
+    [
+      'a half dome on a wall',
+      { shape: 'dome', portion: 'half', diameterM: 0.9 } as Mirror,
+      poseFromAim({ vertexM: [0, 0, 3.2], azimuthRad: 1, tiltDownRad: domeMountTiltRad('half') }),
+      [2, 4, 1.6] as Vec3,
+    ],
+    [
+      'a quarter dome in a corner',
+      { shape: 'dome', portion: 'quarter', diameterM: 0.8 } as Mirror,
+      poseFromAim({ vertexM: [0, 0, 3.2], azimuthRad: Math.PI / 4, tiltDownRad: domeMountTiltRad('quarter') }),
+      [4, 1.5, 1.6] as Vec3,
+    ],
   ])('for %s, on random floor points away from the edge', (_label, mirror, pose, eyeM) => {
     const maxRangeM = 14;
     const { region, areaM2 } = coverage({ mirror, pose, eyeM, maxRangeM });
@@ -39,7 +64,18 @@ describe('coverage polygon and exact point test agree', () => {
     const pose = poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0.3, tiltDownRad: 0.35 });
     const eyeM: Vec3 = [5, 3, 1.6];
     const { region } = coverage({ mirror: round, pose, eyeM, maxRangeM: 12, planeHeightM: 1.1 });
-    const a = agreement({ region, mirror: round, pose, eyeM, maxRangeM: 12, planeHeightM: 1.1, halfBoxM: 13, n: 2000, marginM: 0.02, seed: 3 });
+    const a = agreement({
+      region,
+      mirror: round,
+      pose,
+      eyeM,
+      maxRangeM: 12,
+      planeHeightM: 1.1,
+      halfBoxM: 13,
+      n: 2000,
+      marginM: 0.02,
+      seed: 3,
+    });
     expect(a.inside).toBeGreaterThan(30);
     expect(a.disagree).toBe(0);
   });
@@ -97,14 +133,34 @@ describe('coverage region shape', () => {
     const xorM2 = multiPolygonArea(region) + multiPolygonArea(mirrored) - 2 * both;
     expect(multiPolygonArea(region)).toBeGreaterThan(5);
     expect(xorM2).toBeLessThan(perimeterM(region) * 0.008);
-    const a = agreement({ region: mirrored, mirror: rect, pose, eyeM: [4, 0, 1.6], maxRangeM: 10, halfBoxM: 11, n: 2000, marginM: 0.01, seed: 5 });
+    const a = agreement({
+      region: mirrored,
+      mirror: rect,
+      pose,
+      eyeM: [4, 0, 1.6],
+      maxRangeM: 10,
+      halfBoxM: 11,
+      n: 2000,
+      marginM: 0.01,
+      seed: 5,
+    });
     expect(a.disagree).toBe(0);
   });
 
   it('gives mirror-image regions for mirror-image placements (eye and aim reflected about a vertical plane)', () => {
     const eyeM: Vec3 = [4, 1.2, 1.6];
-    const a = coverage({ mirror: rect, pose: poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0.4, tiltDownRad: 0.3 }), eyeM, maxRangeM: 10 }).region;
-    const b = coverage({ mirror: rect, pose: poseFromAim({ vertexM: [0, 0, 3], azimuthRad: -0.4, tiltDownRad: 0.3 }), eyeM: [4, -1.2, 1.6], maxRangeM: 10 }).region;
+    const a = coverage({
+      mirror: rect,
+      pose: poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0.4, tiltDownRad: 0.3 }),
+      eyeM,
+      maxRangeM: 10,
+    }).region;
+    const b = coverage({
+      mirror: rect,
+      pose: poseFromAim({ vertexM: [0, 0, 3], azimuthRad: -0.4, tiltDownRad: 0.3 }),
+      eyeM: [4, -1.2, 1.6],
+      maxRangeM: 10,
+    }).region;
     const aMirrored = a.map((poly) => poly.map((ring) => ring.map(([x, y]) => [x, -y] as [number, number]).reverse()));
     const both = multiPolygonArea(robustIntersection(aMirrored, b));
     const xorM2 = multiPolygonArea(aMirrored) + multiPolygonArea(b) - 2 * both;

@@ -1,4 +1,14 @@
-import { coverage, convexImage, fieldOfView, OpticsInputError, poseFromAim, recognisableRange, visibleInMirror, zoneCoverage, type Mirror } from '../../../shared/optics';
+import {
+  coverage,
+  convexImage,
+  fieldOfView,
+  OpticsInputError,
+  poseFromAim,
+  recognisableRange,
+  visibleInMirror,
+  zoneCoverage,
+  type Mirror,
+} from '../../../shared/optics';
 
 function caught(fn: () => unknown): OpticsInputError {
   try {
@@ -43,7 +53,11 @@ describe('impossible input is refused with a sentence naming the field', () => {
     ['a negative radius', () => convexImage({ radiusM: -1, objectDistanceM: 2 }), 'radiusM'],
     ['a non-finite object distance', () => convexImage({ radiusM: 1, objectDistanceM: Infinity }), 'objectDistanceM'],
     ['a NaN angle', () => recognisableRange({ radiusM: 1, eyeDistanceM: 2, targetSizeM: 1, minAngleRad: NaN }), 'minAngleRad'],
-    ['a zero range', () => coverage({ mirror: { shape: 'round', diameterM: 0.6, radiusM: 1.2 }, pose, eyeM: [4, 0, 1.6], maxRangeM: 0 }), 'maxRangeM'],
+    [
+      'a zero range',
+      () => coverage({ mirror: { shape: 'round', diameterM: 0.6, radiusM: 1.2 }, pose, eyeM: [4, 0, 1.6], maxRangeM: 0 }),
+      'maxRangeM',
+    ],
   ])('refuses %s', (_label, fn, field) => {
     const e = caught(fn);
     expect(e.field).toBe(field);
@@ -52,7 +66,12 @@ describe('impossible input is refused with a sentence naming the field', () => {
   });
 
   it('refuses a zone that crosses itself', () => {
-    const bowtie: [number, number][] = [[0, 0], [2, 2], [2, 0], [0, 2]];
+    const bowtie: [number, number][] = [
+      [0, 0],
+      [2, 2],
+      [2, 0],
+      [0, 2],
+    ];
     const e = caught(() => zoneCoverage({ zone: [bowtie], regions: [] }));
     expect(e.field).toBe('zone');
     expect(e.message).toMatch(/crosses or touches itself/);

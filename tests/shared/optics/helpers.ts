@@ -40,7 +40,14 @@ export function agreement(args: {
   for (let i = 0; i < args.n; i++) {
     const p: Vec3 = [v[0] + (2 * r() - 1) * args.halfBoxM, v[1] + (2 * r() - 1) * args.halfBoxM, args.planeHeightM ?? 0];
     const inPoly = pointInMultiPolygon(args.region, [p[0], p[1]]);
-    const exact = visibleInMirror({ mirror: args.mirror, pose: args.pose, eyeM: args.eyeM, pointM: p, walls: args.walls, maxRangeM: args.maxRangeM }).visible;
+    const exact = visibleInMirror({
+      mirror: args.mirror,
+      pose: args.pose,
+      eyeM: args.eyeM,
+      pointM: p,
+      walls: args.walls,
+      maxRangeM: args.maxRangeM,
+    }).visible;
     if (inPoly !== exact) worstM = Math.max(worstM, distanceToBoundary(args.region, [p[0], p[1]]));
     if (distanceToBoundary(args.region, [p[0], p[1]]) < args.marginM) continue;
     checked++;

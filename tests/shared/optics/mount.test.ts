@@ -51,7 +51,11 @@ describe('walls through a mirror body', () => {
       { aM: [16, 10], bM: [4, 10], heightM: 6 },
     ];
     const pose = poseFromAim({ vertexM: [16.05, 10.05, 3], azimuthRad: -25 * deg, tiltDownRad: 25 * deg });
-    expect(wallsThroughMirror({ mirror: round600, pose, walls: rack }).map((h) => h.wallIndex).sort()).toEqual([0, 1]);
+    expect(
+      wallsThroughMirror({ mirror: round600, pose, walls: rack })
+        .map((h) => h.wallIndex)
+        .sort(),
+    ).toEqual([0, 1]);
     const move = moveOutOfWalls({ mirror: round600, pose, walls: rack, eyeM: [26, 6.5, 2.1] }) as [number, number];
     expect(move[0]).toBeGreaterThan(0.1);
     expect(move[1]).toBeCloseTo(0, 9);
@@ -104,7 +108,8 @@ describe('largest linear value over a ball cut by planes', () => {
           const x: Vec3 = [r() * 2 - 1, r() * 2 - 1, r() * 2 - 1];
           if (x[0] * x[0] + x[1] * x[1] + x[2] * x[2] > 1) continue;
           const p: Vec3 = [C[0] + R * x[0], C[1] + R * x[1], C[2] + R * x[2]];
-          if (planes.every((q) => q.k[0] * p[0] + q.k[1] * p[1] + q.k[2] * p[2] >= q.d)) sampled = Math.max(sampled, g[0] * p[0] + g[1] * p[1] + g[2] * p[2]);
+          if (planes.every((q) => q.k[0] * p[0] + q.k[1] * p[1] + q.k[2] * p[2] >= q.d))
+            sampled = Math.max(sampled, g[0] * p[0] + g[1] * p[1] + g[2] * p[2]);
         }
         if (exact) {
           const p = exact.pointM;

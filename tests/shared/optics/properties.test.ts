@@ -62,8 +62,14 @@ describe('properties of the field of view', () => {
       fc.property(pos(0.05, 1), pos(0.2, 10), pos(0.5, 20), pos(1.01, 3), (d, R0, D, k) => {
         const R = Math.max(R0, d); // keep the diameter below 2R
         const base = fieldOfView({ mirror: { shape: 'round', diameterM: d, radiusM: R }, eyeDistanceM: D }).horizontalRad;
-        const tighter = fieldOfView({ mirror: { shape: 'round', diameterM: d, radiusM: Math.max(R / k, d / 1.99) }, eyeDistanceM: D }).horizontalRad;
-        const wider = fieldOfView({ mirror: { shape: 'round', diameterM: Math.min(d * k, 1.99 * R), radiusM: R }, eyeDistanceM: D }).horizontalRad;
+        const tighter = fieldOfView({
+          mirror: { shape: 'round', diameterM: d, radiusM: Math.max(R / k, d / 1.99) },
+          eyeDistanceM: D,
+        }).horizontalRad;
+        const wider = fieldOfView({
+          mirror: { shape: 'round', diameterM: Math.min(d * k, 1.99 * R), radiusM: R },
+          eyeDistanceM: D,
+        }).horizontalRad;
         expect(tighter).toBeGreaterThanOrEqual(base - 1e-12);
         expect(wider).toBeGreaterThanOrEqual(base - 1e-12);
       }),
@@ -107,7 +113,17 @@ describe('properties of the traced coverage', () => {
         const mirror: Mirror = { shape: 'round', diameterM: p.d, radiusM: p.R };
         const { region } = coverage({ mirror, pose, eyeM, maxRangeM: 15 });
         const flipped = region.map((poly) => poly.map((ring) => ring.map(([x, y]) => [x, -y] as [number, number])));
-        const a = agreement({ region: flipped, mirror, pose, eyeM, maxRangeM: 15, halfBoxM: 16, n: 300, marginM: 0.02, seed: Math.round(p.z * 1000) });
+        const a = agreement({
+          region: flipped,
+          mirror,
+          pose,
+          eyeM,
+          maxRangeM: 15,
+          halfBoxM: 16,
+          n: 300,
+          marginM: 0.02,
+          seed: Math.round(p.z * 1000),
+        });
         expect(a.disagree).toBe(0);
       }),
       { numRuns: 25 },
@@ -120,9 +136,20 @@ describe('properties of the traced coverage', () => {
         const pose = poseFromAim({ vertexM: [0, 0, p.z], azimuthRad: p.az, tiltDownRad: p.tilt });
         const a = p.az + p.eyeOff;
         const eyeM: Vec3 = [p.eyeDist * Math.cos(a), p.eyeDist * Math.sin(a), p.eyeZ];
-        const mirror: Mirror = shape === 'round' ? { shape, diameterM: p.d, radiusM: p.R } : { shape, widthM: p.d, heightM: 0.6 * p.d, radiusM: p.R };
+        const mirror: Mirror =
+          shape === 'round' ? { shape, diameterM: p.d, radiusM: p.R } : { shape, widthM: p.d, heightM: 0.6 * p.d, radiusM: p.R };
         const { region } = coverage({ mirror, pose, eyeM, maxRangeM: 15 });
-        const res = agreement({ region, mirror, pose, eyeM, maxRangeM: 15, halfBoxM: 16, n: 300, marginM: 0.02, seed: Math.round(p.eyeDist * 1000) });
+        const res = agreement({
+          region,
+          mirror,
+          pose,
+          eyeM,
+          maxRangeM: 15,
+          halfBoxM: 16,
+          n: 300,
+          marginM: 0.02,
+          seed: Math.round(p.eyeDist * 1000),
+        });
         expect(res.disagree).toBe(0);
       }),
       { numRuns: 40 },
@@ -134,7 +161,12 @@ describe('properties of the traced coverage', () => {
       fc.property(placement, pos(-20, 20), pos(-20, 20), (p, x, y) => {
         const pose = poseFromAim({ vertexM: [0, 0, p.z], azimuthRad: p.az, tiltDownRad: p.tilt });
         const a = p.az + p.eyeOff;
-        const v = visibleInMirror({ mirror: { shape: 'round', diameterM: p.d, radiusM: p.R }, pose, eyeM: [p.eyeDist * Math.cos(a), p.eyeDist * Math.sin(a), p.eyeZ], pointM: [x, y, 0] });
+        const v = visibleInMirror({
+          mirror: { shape: 'round', diameterM: p.d, radiusM: p.R },
+          pose,
+          eyeM: [p.eyeDist * Math.cos(a), p.eyeDist * Math.sin(a), p.eyeZ],
+          pointM: [x, y, 0],
+        });
         if (v.reflectionPointM) for (const c of v.reflectionPointM) expect(Number.isFinite(c)).toBe(true);
       }),
     );

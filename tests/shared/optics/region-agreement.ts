@@ -36,7 +36,14 @@ export function regionAgreement(args: {
     if (edgeM < args.marginM) continue;
     checked++;
     const inRegion = pointInMultiPolygon(args.region, [p[0], p[1]]);
-    const exact = visibleInMirror({ mirror: args.mirror, pose: args.pose, eyeM: args.eyeM, pointM: p, walls: args.walls, maxRangeM: args.maxRangeM }).visible;
+    const exact = visibleInMirror({
+      mirror: args.mirror,
+      pose: args.pose,
+      eyeM: args.eyeM,
+      pointM: p,
+      walls: args.walls,
+      maxRangeM: args.maxRangeM,
+    }).visible;
     if (exact) seen++;
     if (inRegion !== exact) disagreements.push({ point: p, inRegion, seen: exact, edgeM });
   }

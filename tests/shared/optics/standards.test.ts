@@ -79,7 +79,14 @@ describe('US FMVSS No. 111 figures as check values', () => {
     const r = reflect(normalize([V[0] - eyeM[0], V[1] - eyeM[1], V[2] - eyeM[2]]), pose.axis);
     const across = normalize([r[1], -r[0], 0]);
     const angleAt = (t: number) =>
-      apparentAngle({ mirror, pose, eyeM, pointM: [V[0] + t * r[0], V[1] + t * r[1], V[2] + t * r[2]], targetSizeM: 0.3048, directionM: across });
+      apparentAngle({
+        mirror,
+        pose,
+        eyeM,
+        pointM: [V[0] + t * r[0], V[1] + t * r[1], V[2] + t * r[2]],
+        targetSizeM: 0.3048,
+        directionM: across,
+      });
     const ts = [0.5, 1, 2, 4, 8, 16, 32];
     const angles = ts.map((t) => angleAt(t) as number);
     angles.forEach((a, k) => {

@@ -26,7 +26,8 @@ function frame(axis) {
 function onMirror(mirror, R, f, m, inset = 0) {
   const mw = m.dot(f.w);
   if (mirror.shape === 'round') return mw > 0 && R * Math.sqrt(Math.max(0, 1 - mw * mw)) <= mirror.diameterM / 2 - inset;
-  if (mirror.shape === 'rect') return mw > 0 && Math.abs(R * m.dot(f.u)) <= mirror.widthM / 2 - inset && Math.abs(R * m.dot(f.v)) <= mirror.heightM / 2 - inset;
+  if (mirror.shape === 'rect')
+    return mw > 0 && Math.abs(R * m.dot(f.u)) <= mirror.widthM / 2 - inset && Math.abs(R * m.dot(f.v)) <= mirror.heightM / 2 - inset;
   // Domes: the half-spaces through the centre bounding a hemisphere, a quarter and an eighth sphere.
   const normals = [];
   if (mirror.portion === 'full') normals.push(f.w.clone());
@@ -34,7 +35,13 @@ function onMirror(mirror, R, f, m, inset = 0) {
   else
     for (const deg of [-90, 30, 150]) {
       const b = (deg * Math.PI) / 180;
-      normals.push(f.w.clone().addScaledVector(f.u, Math.SQRT2 * Math.cos(b)).addScaledVector(f.v, Math.SQRT2 * Math.sin(b)).normalize());
+      normals.push(
+        f.w
+          .clone()
+          .addScaledVector(f.u, Math.SQRT2 * Math.cos(b))
+          .addScaledVector(f.v, Math.SQRT2 * Math.sin(b))
+          .normalize(),
+      );
     }
   return normals.every((n) => R * m.dot(n) >= inset);
 }
@@ -49,7 +56,12 @@ const out = cases.map(({ mirror, vertex, axis, eye, planeHeight, maxRange, rings
   const floor = new Plane(new Vector3(0, 0, 1), -planeHeight);
   // Cap around the axis wide enough for the whole mirror: the rim's angle for a panel, a
   // hemisphere for a dome. SphereGeometry's pole is +y; turn it onto the axis.
-  const half = mirror.shape === 'round' ? Math.asin(Math.min(1, mirror.diameterM / (2 * R))) : mirror.shape === 'rect' ? Math.asin(Math.min(1, Math.hypot(mirror.widthM, mirror.heightM) / (2 * R))) : Math.PI / 2;
+  const half =
+    mirror.shape === 'round'
+      ? Math.asin(Math.min(1, mirror.diameterM / (2 * R)))
+      : mirror.shape === 'rect'
+        ? Math.asin(Math.min(1, Math.hypot(mirror.widthM, mirror.heightM) / (2 * R)))
+        : Math.PI / 2;
   const geo = new SphereGeometry(R, segments, rings, 0, 2 * Math.PI, 0, half);
   geo.applyQuaternion(new Quaternion().setFromUnitVectors(new Vector3(0, 1, 0), f.w));
   geo.translate(C.x, C.y, C.z);

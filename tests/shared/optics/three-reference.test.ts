@@ -2,7 +2,17 @@ import { execFileSync } from 'child_process';
 import * as path from 'path';
 import * as fc from 'fast-check';
 import { distanceToBoundary } from '../../../shared/geometry/polygon';
-import { coverage, OpticsInputError, pointInMultiPolygon, poseFromAim, visibleInMirror, type Mirror, type MultiPolygon, type Pose, type Vec3 } from '../../../shared/optics';
+import {
+  coverage,
+  OpticsInputError,
+  pointInMultiPolygon,
+  poseFromAim,
+  visibleInMirror,
+  type Mirror,
+  type MultiPolygon,
+  type Pose,
+  type Vec3,
+} from '../../../shared/optics';
 import { PLACEMENT_LIMITS } from '../../../shared/schemas/limits';
 
 /**
@@ -14,13 +24,31 @@ import { PLACEMENT_LIMITS } from '../../../shared/schemas/limits';
  */
 const unit = fc.double({ min: 0, max: 1, noNaN: true, maxExcluded: true });
 const mirrorArb: fc.Arbitrary<Mirror> = fc.oneof(
-  fc.record({ d: fc.double({ min: 0.1, max: 1.5, noNaN: true }), q: unit }).map(({ d, q }) => ({ shape: 'round' as const, diameterM: d, radiusM: d / (2 * (0.05 + 0.94 * q)) })),
-  fc.record({ w: fc.double({ min: 0.1, max: 1.2, noNaN: true }), h: fc.double({ min: 0.1, max: 1, noNaN: true }), q: unit }).map(({ w, h, q }) => ({ shape: 'rect' as const, widthM: w, heightM: h, radiusM: Math.hypot(w, h) / (2 * (0.05 + 0.94 * q)) })),
-  fc.record({ portion: fc.constantFrom('full' as const, 'half' as const, 'quarter' as const), diameterM: fc.double({ min: 0.2, max: 1.5, noNaN: true }) }).map((m) => ({ shape: 'dome' as const, ...m })),
+  fc
+    .record({ d: fc.double({ min: 0.1, max: 1.5, noNaN: true }), q: unit })
+    .map(({ d, q }) => ({ shape: 'round' as const, diameterM: d, radiusM: d / (2 * (0.05 + 0.94 * q)) })),
+  fc
+    .record({ w: fc.double({ min: 0.1, max: 1.2, noNaN: true }), h: fc.double({ min: 0.1, max: 1, noNaN: true }), q: unit })
+    .map(({ w, h, q }) => ({ shape: 'rect' as const, widthM: w, heightM: h, radiusM: Math.hypot(w, h) / (2 * (0.05 + 0.94 * q)) })),
+  fc
+    .record({
+      portion: fc.constantFrom('full' as const, 'half' as const, 'quarter' as const),
+      diameterM: fc.double({ min: 0.2, max: 1.5, noNaN: true }),
+    })
+    .map((m) => ({ shape: 'dome' as const, ...m })),
 );
 
 type Placement = { mirror: Mirror; pose: Pose; eyeM: Vec3; planeHeightM: number; maxRangeM: number };
-type RefCase = { mirror: Mirror; vertex: Vec3; axis: Vec3; eye: Vec3; planeHeight: number; maxRange: number; rings: number; segments: number };
+type RefCase = {
+  mirror: Mirror;
+  vertex: Vec3;
+  axis: Vec3;
+  eye: Vec3;
+  planeHeight: number;
+  maxRange: number;
+  rings: number;
+  segments: number;
+};
 type RefResult = { hits: [number, number, number, number, number, number][]; tiledArea: number };
 
 /** Floor points within this distance of the region's edge are not judged: see coverage-space.test.ts. */
@@ -60,9 +88,21 @@ fc.assert(
   ),
   { numRuns: 2000, seed: 20261202 },
 );
-const cases: RefCase[] = placements.map((p) => ({ mirror: p.mirror, vertex: p.pose.vertexM, axis: p.pose.axis, eye: p.eyeM, planeHeight: p.planeHeightM, maxRange: p.maxRangeM, rings: 60, segments: 120 }));
+const cases: RefCase[] = placements.map((p) => ({
+  mirror: p.mirror,
+  vertex: p.pose.vertexM,
+  axis: p.pose.axis,
+  eye: p.eyeM,
+  planeHeight: p.planeHeightM,
+  maxRange: p.maxRangeM,
+  rings: 60,
+  segments: 120,
+}));
 const refs = JSON.parse(
-  execFileSync(process.execPath, [path.join(__dirname, 'three-reference.mjs')], { input: JSON.stringify(cases), maxBuffer: 1 << 28 }).toString('utf8'),
+  execFileSync(process.execPath, [path.join(__dirname, 'three-reference.mjs')], {
+    input: JSON.stringify(cases),
+    maxBuffer: 1 << 28,
+  }).toString('utf8'),
 ) as RefResult[];
 
 describe('the coverage region agrees with three.js tracing its own rays over the mirror', () => {

@@ -53,41 +53,46 @@ describe('coverage with many walls agrees with the exact point test', () => {
   // are not judged; any other disagreement fails.
   it('on random floor points, except within 5 cm of the region’s edge', () => {
     fc.assert(
-      fc.property(fc.integer({ min: 1, max: 2 ** 31 - 1 }), fc.integer({ min: 20, max: 300 }), fc.constantFrom('round', 'rect', 'dome') as fc.Arbitrary<'round' | 'rect' | 'dome'>, (seed, nWalls, shape) => {
-        const r = rng(seed);
-        const mirror: Mirror =
-          shape === 'round'
-            ? { shape: 'round', diameterM: 0.3 + 0.7 * r(), radiusM: 1 + 2 * r() }
-            : shape === 'rect'
-              ? { shape: 'rect', widthM: 0.4 + 0.5 * r(), heightM: 0.3 + 0.3 * r(), radiusM: 1.2 + 2 * r() }
-              : { shape: 'dome', portion: 'half', diameterM: 0.45 + 0.5 * r() };
-        const az = 2 * Math.PI * r();
-        const tilt = shape === 'dome' ? Math.PI / 4 : (10 + 50 * r()) * (Math.PI / 180);
-        const pose = poseFromAim({ vertexM: [0, 0, 2.2 + 2.3 * r()], azimuthRad: az, tiltDownRad: tilt });
-        const side = az + (r() - 0.5) * 1.4;
-        const eyeDist = 3 + 12 * r();
-        const eyeM: Vec3 = [eyeDist * Math.cos(side), eyeDist * Math.sin(side), 1.2 + 1.2 * r()];
-        const candidates: Wall[] = [];
-        for (let i = 0; i < nWalls; i++) {
-          const x = -25 + 50 * r();
-          const y = -25 + 50 * r();
-          const a = Math.PI * r();
-          const len = 0.5 + 4 * r();
-          candidates.push({ aM: [x, y], bM: [x + len * Math.cos(a), y + len * Math.sin(a)], heightM: 0.3 + 7.7 * r() });
-        }
-        const through = new Set(wallsThroughMirror({ mirror, pose, walls: candidates }).map((h) => h.wallIndex));
-        const walls = candidates.filter((_, i) => !through.has(i));
-        const maxRangeM = 8 + 12 * r();
-        let region;
-        try {
-          region = coverage({ mirror, pose, eyeM, maxRangeM, walls }).region;
-        } catch (e) {
-          if (e instanceof OpticsInputError) return; // eye behind the mirror: not an accepted input
-          throw e;
-        }
-        const res = agreement({ region, mirror, pose, eyeM, maxRangeM, walls, halfBoxM: maxRangeM, n: 300, marginM: 0.05, seed });
-        expect(res.disagree).toBe(0);
-      }),
+      fc.property(
+        fc.integer({ min: 1, max: 2 ** 31 - 1 }),
+        fc.integer({ min: 20, max: 300 }),
+        fc.constantFrom('round', 'rect', 'dome') as fc.Arbitrary<'round' | 'rect' | 'dome'>,
+        (seed, nWalls, shape) => {
+          const r = rng(seed);
+          const mirror: Mirror =
+            shape === 'round'
+              ? { shape: 'round', diameterM: 0.3 + 0.7 * r(), radiusM: 1 + 2 * r() }
+              : shape === 'rect'
+                ? { shape: 'rect', widthM: 0.4 + 0.5 * r(), heightM: 0.3 + 0.3 * r(), radiusM: 1.2 + 2 * r() }
+                : { shape: 'dome', portion: 'half', diameterM: 0.45 + 0.5 * r() };
+          const az = 2 * Math.PI * r();
+          const tilt = shape === 'dome' ? Math.PI / 4 : (10 + 50 * r()) * (Math.PI / 180);
+          const pose = poseFromAim({ vertexM: [0, 0, 2.2 + 2.3 * r()], azimuthRad: az, tiltDownRad: tilt });
+          const side = az + (r() - 0.5) * 1.4;
+          const eyeDist = 3 + 12 * r();
+          const eyeM: Vec3 = [eyeDist * Math.cos(side), eyeDist * Math.sin(side), 1.2 + 1.2 * r()];
+          const candidates: Wall[] = [];
+          for (let i = 0; i < nWalls; i++) {
+            const x = -25 + 50 * r();
+            const y = -25 + 50 * r();
+            const a = Math.PI * r();
+            const len = 0.5 + 4 * r();
+            candidates.push({ aM: [x, y], bM: [x + len * Math.cos(a), y + len * Math.sin(a)], heightM: 0.3 + 7.7 * r() });
+          }
+          const through = new Set(wallsThroughMirror({ mirror, pose, walls: candidates }).map((h) => h.wallIndex));
+          const walls = candidates.filter((_, i) => !through.has(i));
+          const maxRangeM = 8 + 12 * r();
+          let region;
+          try {
+            region = coverage({ mirror, pose, eyeM, maxRangeM, walls }).region;
+          } catch (e) {
+            if (e instanceof OpticsInputError) return; // eye behind the mirror: not an accepted input
+            throw e;
+          }
+          const res = agreement({ region, mirror, pose, eyeM, maxRangeM, walls, halfBoxM: maxRangeM, n: 300, marginM: 0.05, seed });
+          expect(res.disagree).toBe(0);
+        },
+      ),
       { numRuns: 40 },
     );
   });

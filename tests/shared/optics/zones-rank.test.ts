@@ -1,13 +1,52 @@
 import { GRID_M } from '../../../shared/geometry/robust-boolean';
-import { coverage, defaultAims, OpticsInputError, poseFromAim, rankOptions, recognisableRange, sphereRadiusM, zoneCoverage, ARCMIN_RAD, type CatalogueItem, type Polygon, type Vec3, type Wall } from '../../../shared/optics';
+import {
+  coverage,
+  defaultAims,
+  OpticsInputError,
+  poseFromAim,
+  rankOptions,
+  recognisableRange,
+  sphereRadiusM,
+  zoneCoverage,
+  ARCMIN_RAD,
+  type CatalogueItem,
+  type Polygon,
+  type Vec3,
+  type Wall,
+} from '../../../shared/optics';
 import { circleRing } from '../../../shared/geometry/polygon';
 
 describe('zone coverage', () => {
-  const zone: Polygon = [[[0, 0], [4, 0], [4, 2], [0, 2]]];
+  const zone: Polygon = [
+    [
+      [0, 0],
+      [4, 0],
+      [4, 2],
+      [0, 2],
+    ],
+  ];
 
   it('counts overlapping regions once (union)', () => {
-    const left = [[[[-1, -1], [3, -1], [3, 3], [-1, 3]]]] as Polygon[];
-    const right = [[[[1, -1], [5, -1], [5, 3], [1, 3]]]] as Polygon[];
+    const left = [
+      [
+        [
+          [-1, -1],
+          [3, -1],
+          [3, 3],
+          [-1, 3],
+        ],
+      ],
+    ] as Polygon[];
+    const right = [
+      [
+        [
+          [1, -1],
+          [5, -1],
+          [5, 3],
+          [1, 3],
+        ],
+      ],
+    ] as Polygon[];
     const both = zoneCoverage({ zone, regions: [left, right] });
     expect(both.fraction).toBeCloseTo(1, 12);
     expect(both.coveredM2).toBeCloseTo(8, 12);
@@ -20,18 +59,32 @@ describe('zone coverage', () => {
 
   it('scores a traced mirror region against a zone', () => {
     const pose = poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0, tiltDownRad: 0.35 });
-    const { region, areaM2 } = coverage({ mirror: { shape: 'round', diameterM: 0.8, radiusM: 1.6 }, pose, eyeM: [5, 3, 1.6], maxRangeM: 12 });
+    const { region, areaM2 } = coverage({
+      mirror: { shape: 'round', diameterM: 0.8, radiusM: 1.6 },
+      pose,
+      eyeM: [5, 3, 1.6],
+      maxRangeM: 12,
+    });
     const huge: Polygon = [circleRing([0, 0], 13, 512)];
     // The zone step runs on the booleans' 0.1 mm grid: each vertex moves at most half a step per
     // axis, so the area moves at most perimeter × GRID_M.
     let perimeter = 0;
-    for (const poly of region) for (const ring of poly) for (let k = 0; k + 1 < ring.length; k++) perimeter += Math.hypot(ring[k + 1][0] - ring[k][0], ring[k + 1][1] - ring[k][1]);
+    for (const poly of region)
+      for (const ring of poly)
+        for (let k = 0; k + 1 < ring.length; k++) perimeter += Math.hypot(ring[k + 1][0] - ring[k][0], ring[k + 1][1] - ring[k][1]);
     expect(Math.abs(zoneCoverage({ zone: huge, regions: [region] }).coveredM2 - areaM2)).toBeLessThanOrEqual(perimeter * GRID_M);
   });
 });
 
 describe('ranking mirror options for a zone', () => {
-  const zone: Polygon = [[[3, -6], [9, -6], [9, -2], [3, -2]]];
+  const zone: Polygon = [
+    [
+      [3, -6],
+      [9, -6],
+      [9, -2],
+      [3, -2],
+    ],
+  ];
   const eyeM: Vec3 = [6, 2, 1.6];
   const mountPoints = [
     { id: 'corner', vertexM: [0, 0, 3] as Vec3 },
@@ -60,7 +113,13 @@ describe('ranking mirror options for a zone', () => {
   it('prefers the cheaper of two identical mirrors', () => {
     const ranked = rankOptions({ catalogue, mountPoints, eyeM, zone, target, limit: 20 });
     const twin = ranked.findIndex((o) => o.item.id === 'r800-twin');
-    const dear = ranked.findIndex((o) => o.item.id === 'r800' && o.mountPoint.id === ranked[twin].mountPoint.id && o.aim.azimuthRad === ranked[twin].aim.azimuthRad && o.aim.tiltDownRad === ranked[twin].aim.tiltDownRad);
+    const dear = ranked.findIndex(
+      (o) =>
+        o.item.id === 'r800' &&
+        o.mountPoint.id === ranked[twin].mountPoint.id &&
+        o.aim.azimuthRad === ranked[twin].aim.azimuthRad &&
+        o.aim.tiltDownRad === ranked[twin].aim.tiltDownRad,
+    );
     expect(twin).toBeGreaterThanOrEqual(0);
     if (dear >= 0) expect(twin).toBeLessThan(dear);
   });
@@ -74,14 +133,25 @@ describe('ranking against a brute-force search with walls', () => {
   // A 6 m × 8 m zone with a 5 m rack along its south side. The mount south of the rack sees the
   // whole zone when walls are ignored, but the rack hides the mirror from the driver and the
   // zone from the mirror; the mount 6 m north of the zone sees its north part only (range 8 m).
-  const zone: Polygon = [[[0, 0], [8, 0], [8, 6], [0, 6]]];
+  const zone: Polygon = [
+    [
+      [0, 0],
+      [8, 0],
+      [8, 6],
+      [0, 6],
+    ],
+  ];
   const eyeM: Vec3 = [4, 10, 1.6];
   const walls: Wall[] = [{ aM: [-2, -0.5], bM: [10, -0.5], heightM: 5 }];
   const mountPoints = [
     { id: 'behind-rack', vertexM: [4, -1, 3] as Vec3 },
     { id: 'north', vertexM: [4, 12, 3] as Vec3 },
   ];
-  const catalogue: CatalogueItem[] = [0.4, 0.5, 0.6, 0.7, 0.8].map((d) => ({ id: `r${Math.round(d * 1000)}`, mirror: { shape: 'round', diameterM: d, radiusM: 2 * d }, cost: 200 * d }));
+  const catalogue: CatalogueItem[] = [0.4, 0.5, 0.6, 0.7, 0.8].map((d) => ({
+    id: `r${Math.round(d * 1000)}`,
+    mirror: { shape: 'round', diameterM: d, radiusM: 2 * d },
+    cost: 200 * d,
+  }));
   // Target: a person, 1.7 m, at 5′ (common practice).
   const target = { sizeM: 1.7, minAngleRad: 5 * ARCMIN_RAD };
   const maxRangeM = 8;
@@ -93,7 +163,12 @@ describe('ranking against a brute-force search with walls', () => {
     for (const item of catalogue) {
       for (const mount of mountPoints) {
         const D = Math.hypot(eyeM[0] - mount.vertexM[0], eyeM[1] - mount.vertexM[1], eyeM[2] - mount.vertexM[2]);
-        const rangeM = recognisableRange({ radiusM: sphereRadiusM(item.mirror), eyeDistanceM: D, targetSizeM: target.sizeM, minAngleRad: target.minAngleRad }).rangeM;
+        const rangeM = recognisableRange({
+          radiusM: sphereRadiusM(item.mirror),
+          eyeDistanceM: D,
+          targetSizeM: target.sizeM,
+          minAngleRad: target.minAngleRad,
+        }).rangeM;
         for (const aim of defaultAims(mount.vertexM, zone)) {
           const pose = poseFromAim({ vertexM: mount.vertexM, ...aim });
           let region;
@@ -103,11 +178,22 @@ describe('ranking against a brute-force search with walls', () => {
             if (e instanceof OpticsInputError) continue; // eye behind the mirror: not an option
             throw e;
           }
-          all.push({ item: item.id, mount: mount.id, fraction: zoneCoverage({ zone, regions: [region] }).fraction, rangeM, cost: item.cost });
+          all.push({
+            item: item.id,
+            mount: mount.id,
+            fraction: zoneCoverage({ zone, regions: [region] }).fraction,
+            rangeM,
+            cost: item.cost,
+          });
         }
       }
     }
-    const key = (o: { fraction: number; rangeM: number; cost: number }) => [Math.floor(o.fraction / step + 1e-9), o.rangeM, -o.cost, o.fraction];
+    const key = (o: { fraction: number; rangeM: number; cost: number }) => [
+      Math.floor(o.fraction / step + 1e-9),
+      o.rangeM,
+      -o.cost,
+      o.fraction,
+    ];
     return all.sort((a, b) => {
       const ka = key(a);
       const kb = key(b);
@@ -131,6 +217,8 @@ describe('ranking against a brute-force search with walls', () => {
 
   it('returns the same top options as the brute-force search, in the same order', () => {
     const ranked = rankOptions({ catalogue, mountPoints, eyeM, zone, target, walls, maxRangeM, limit: 8 });
-    expect(ranked.map((o) => [o.item.id, o.mountPoint.id, o.fraction])).toEqual(brute.slice(0, 8).map((o) => [o.item, o.mount, o.fraction]));
+    expect(ranked.map((o) => [o.item.id, o.mountPoint.id, o.fraction])).toEqual(
+      brute.slice(0, 8).map((o) => [o.item, o.mount, o.fraction]),
+    );
   });
 });

@@ -12,14 +12,34 @@ const mirror: Mirror = { shape: 'round', diameterM: 0.4, radiusM: 0.6 };
 const catalogue = [{ id: 1, mirror }] as unknown as CatalogueItemDto[];
 const eyeM: Vec3 = [5, 1, 1.7];
 // A long aisle in front of a mirror tilted only a little, so the floor seen reaches past the recognise range.
-const ZONE: [number, number][] = [[1, -12], [45, -12], [45, 12], [1, 12]];
-const zone = (id: string, criterion?: 'detect' | 'recognise'): SceneZone => ({ id, name: id, polygonM: ZONE, target: { kind: 'adult' }, ...(criterion ? { criterion } : {}) });
+const ZONE: [number, number][] = [
+  [1, -12],
+  [45, -12],
+  [45, 12],
+  [1, 12],
+];
+const zone = (id: string, criterion?: 'detect' | 'recognise'): SceneZone => ({
+  id,
+  name: id,
+  polygonM: ZONE,
+  target: { kind: 'adult' },
+  ...(criterion ? { criterion } : {}),
+});
 const scene: Scene = {
   walls: [],
   zones: [zone('recognise', 'recognise'), zone('detect', 'detect'), zone('unsaid')],
   viewers: [{ id: 'v', name: 'Driver', positionM: [eyeM[0], eyeM[1]], eyeHeightM: eyeM[2] }],
 };
-const placement = { id: 1, catalogueItemId: 1, customMirror: null, positionM: [0, 0] as [number, number], heightM: 3, azimuthRad: 0.05, tiltDownRad: 0.12, viewerId: 'v' };
+const placement = {
+  id: 1,
+  catalogueItemId: 1,
+  customMirror: null,
+  positionM: [0, 0] as [number, number],
+  heightM: 3,
+  azimuthRad: 0.05,
+  tiltDownRad: 0.12,
+  viewerId: 'v',
+};
 const pose = poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0.05, tiltDownRad: 0.12 });
 
 /** Share of ZONE whose floor points the exact point test sees within `rangeM` of the point under the mirror. */

@@ -7,7 +7,17 @@ import fc from 'fast-check';
 import { poseFromAim, type MultiPolygon, type Pair } from '../../../shared/optics';
 
 const deg = (d: number) => (d * Math.PI) / 180;
-const square = (x0: number, y0: number, x1: number, y1: number): MultiPolygon => [[[[x0, y0], [x1, y0], [x1, y1], [x0, y1], [x0, y0]]]];
+const square = (x0: number, y0: number, x1: number, y1: number): MultiPolygon => [
+  [
+    [
+      [x0, y0],
+      [x1, y0],
+      [x1, y1],
+      [x0, y1],
+      [x0, y0],
+    ],
+  ],
+];
 /** An annular sector about the origin from angle a0 to a1 (radians), radii r0 < r1, one vertex per degree. */
 function sector(a0: number, a1: number, r0: number, r1: number): MultiPolygon {
   const steps = Math.round(((a1 - a0) * 180) / Math.PI);
@@ -51,7 +61,19 @@ describe('the floor seen, as figures around the mirror', () => {
   });
 
   it('gives a thin triangle the angle its near side subtends, 2·atan(10) ≈ 168.58° for a side from (1, −10) to (1, 10)', () => {
-    const f = floorSeenFigures([[[[1, -10], [1, 10], [1.5, 0], [1, -10]]]], [0, 0])!;
+    const f = floorSeenFigures(
+      [
+        [
+          [
+            [1, -10],
+            [1, 10],
+            [1.5, 0],
+            [1, -10],
+          ],
+        ],
+      ],
+      [0, 0],
+    )!;
     expect((f.spreadRad * 180) / Math.PI).toBeCloseTo(168.58, 2);
     expect(f.nearestM).toBeCloseTo(1, 12);
   });
@@ -81,7 +103,11 @@ describe('the floor-seen figures over any region', () => {
       cx: fc.double({ min: -1500, max: 1500, noNaN: true }),
       cy: fc.double({ min: -1500, max: 1500, noNaN: true }),
       r: fc.double({ min: 0.05, max: 200, noNaN: true }),
-      angles: fc.uniqueArray(fc.double({ min: 0, max: 2 * Math.PI - 1e-6, noNaN: true }), { minLength: 3, maxLength: 24, comparator: (a, b) => Math.abs(a - b) < 1e-3 }),
+      angles: fc.uniqueArray(fc.double({ min: 0, max: 2 * Math.PI - 1e-6, noNaN: true }), {
+        minLength: 3,
+        maxLength: 24,
+        comparator: (a, b) => Math.abs(a - b) < 1e-3,
+      }),
     })
     .map(({ cx, cy, r, angles }) => {
       const ring: Pair[] = [...angles].sort((a, b) => a - b).map((t) => [cx + r * Math.cos(t), cy + r * Math.sin(t)]);
@@ -133,12 +159,17 @@ describe('the floor-seen figures over any region', () => {
         return { cx, cy, inradius: r * Math.cos(Math.max(...gaps) / 2), ring: [...ring, ring[0]] };
       });
     fc.assert(
-      fc.property(spread, fc.double({ min: 0, max: 0.9, noNaN: true }), fc.double({ min: 0, max: 2 * Math.PI, noNaN: true }), ({ cx, cy, inradius, ring }, s, t) => {
-        const p: Pair = [cx + s * inradius * Math.cos(t), cy + s * inradius * Math.sin(t)];
-        const f = floorSeenFigures([[ring]], p)!;
-        expect(f.spreadRad).toBeCloseTo(2 * Math.PI, 12);
-        expect(f.nearestM).toBe(0);
-      }),
+      fc.property(
+        spread,
+        fc.double({ min: 0, max: 0.9, noNaN: true }),
+        fc.double({ min: 0, max: 2 * Math.PI, noNaN: true }),
+        ({ cx, cy, inradius, ring }, s, t) => {
+          const p: Pair = [cx + s * inradius * Math.cos(t), cy + s * inradius * Math.sin(t)];
+          const f = floorSeenFigures([[ring]], p)!;
+          expect(f.spreadRad).toBeCloseTo(2 * Math.PI, 12);
+          expect(f.nearestM).toBe(0);
+        },
+      ),
       { numRuns: 200 },
     );
   });

@@ -35,13 +35,21 @@ const demoPlacements = DEMO_PROJECT.placements.map((p, i) => ({
 }));
 
 describe('a mirror inside a wall or rack', () => {
-  const dock = { positionM: [16.05, 10.05] as [number, number], heightM: 3, azimuthRad: -25 * deg, tiltDownRad: 25 * deg, viewerId: 'v-dock' };
+  const dock = {
+    positionM: [16.05, 10.05] as [number, number],
+    heightM: 3,
+    azimuthRad: -25 * deg,
+    tiltDownRad: 25 * deg,
+    viewerId: 'v-dock',
+  };
   const mirror = mirrorOfSpec(itemOf('DEMO-R600').mirror);
 
   it('is refused with a sentence naming the rack and a position on its face', () => {
     const problem = mountProblem({ label: 'M2 dock corner', mirror, placement: dock, scene });
     expect(problem?.field).toBe('positionM');
-    expect(problem?.message).toMatch(/^“M2 dock corner” reaches 0\.\d\d m into rack “rack-sw-[ne]” \(and 1 more\); a mirror cannot hang inside a wall or rack\. Move it 0\.\d\d m, to x 16\.2\d m, y 10\.05 m, where it sits on the face\.$/);
+    expect(problem?.message).toMatch(
+      /^“M2 dock corner” reaches 0\.\d\d m into rack “rack-sw-[ne]” \(and 1 more\); a mirror cannot hang inside a wall or rack\. Move it 0\.\d\d m, to x 16\.2\d m, y 10\.05 m, where it sits on the face\.$/,
+    );
   });
 
   it('is accepted at the position the sentence offers', () => {
@@ -86,7 +94,19 @@ describe('the demo project', () => {
         for (let j = 0; j < N; j++) {
           const pointM: [number, number, number] = [x0 + ((x1 - x0) * (i + 0.5)) / N, y0 + ((y1 - y0) * (j + 0.5)) / N, 0];
           const hit = ev.placements.some(
-            (pl) => pl.mirror && pl.pose && pl.eyeM && pl.numbers && visibleInMirror({ mirror: pl.mirror, pose: pl.pose, eyeM: pl.eyeM, pointM, walls, maxRangeM: pl.numbers.rangesM[zoneCriterion(zone)].adult }).visible,
+            (pl) =>
+              pl.mirror &&
+              pl.pose &&
+              pl.eyeM &&
+              pl.numbers &&
+              visibleInMirror({
+                mirror: pl.mirror,
+                pose: pl.pose,
+                eyeM: pl.eyeM,
+                pointM,
+                walls,
+                maxRangeM: pl.numbers.rangesM[zoneCriterion(zone)].adult,
+              }).visible,
           );
           if (hit) seen++;
         }

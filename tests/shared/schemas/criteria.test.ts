@@ -35,12 +35,23 @@ describe('a project’s detect and recognise angles', () => {
 });
 
 describe('a zone’s criterion', () => {
-  const zone = { id: 'z', name: 'Crossing', polygonM: [[0, 0], [4, 0], [4, 3]], target: { kind: 'adult' } };
+  const zone = {
+    id: 'z',
+    name: 'Crossing',
+    polygonM: [
+      [0, 0],
+      [4, 0],
+      [4, 3],
+    ],
+    target: { kind: 'adult' },
+  };
   it.each(['detect', 'recognise'])('accepts "%s"', (criterion) => {
     expect(issues({ ...base, zones: [{ ...zone, criterion }] })).toEqual([]);
   });
 
   it('refuses any other word with a sentence', () => {
-    expect(issues({ ...base, zones: [{ ...zone, criterion: 'notice' }] })).toEqual([{ path: 'zones.0.criterion', message: 'Choose detect or recognise.' }]);
+    expect(issues({ ...base, zones: [{ ...zone, criterion: 'notice' }] })).toEqual([
+      { path: 'zones.0.criterion', message: 'Choose detect or recognise.' },
+    ]);
   });
 });

@@ -30,14 +30,14 @@ function metresOf(text: string, units: UnitSystem, kind: LengthKind = 'distance'
 
 describe('parseLength', () => {
   it.each([
-    ['24 in', 24 * INCH_MM / 1000],
-    ['24"', 24 * INCH_MM / 1000],
-    ['24 inches', 24 * INCH_MM / 1000],
-    ['2 ft 3 in', 2 * FOOT_M + 3 * INCH_MM / 1000],
-    ['2\'3"', 2 * FOOT_M + 3 * INCH_MM / 1000],
-    ["2' 3", 2 * FOOT_M + 3 * INCH_MM / 1000],
-    ['2′ 3″', 2 * FOOT_M + 3 * INCH_MM / 1000],
-    ['23 1/2 in', 23.5 * INCH_MM / 1000],
+    ['24 in', (24 * INCH_MM) / 1000],
+    ['24"', (24 * INCH_MM) / 1000],
+    ['24 inches', (24 * INCH_MM) / 1000],
+    ['2 ft 3 in', 2 * FOOT_M + (3 * INCH_MM) / 1000],
+    ['2\'3"', 2 * FOOT_M + (3 * INCH_MM) / 1000],
+    ["2' 3", 2 * FOOT_M + (3 * INCH_MM) / 1000],
+    ['2′ 3″', 2 * FOOT_M + (3 * INCH_MM) / 1000],
+    ['23 1/2 in', (23.5 * INCH_MM) / 1000],
     ['10 ft', 10 * FOOT_M],
     ['600 mm', 0.6],
     ['60 cm', 0.6],
@@ -54,28 +54,31 @@ describe('parseLength', () => {
     ['metric', 'distance', 3],
     ['metric', 'size', 0.003],
     ['imperial', 'distance', 3 * FOOT_M],
-    ['imperial', 'size', 3 * INCH_MM / 1000],
+    ['imperial', 'size', (3 * INCH_MM) / 1000],
   ])('reads a bare "3" in %s for a %s in that system’s default unit', (units, kind, expected) => {
     expect(metresOf('3', units, kind)).toBeCloseTo(expected, 12);
   });
 
-  it.each(['', 'abc', '3 apples', '2 ft 3 mm', '3 in 2 ft', '1 2 3', '1,200 mm', '3 4', '1/0 in'])('refuses "%s" with a sentence', (text) => {
-    const r = parseLength(text, 'metric');
-    expect(r.ok).toBe(false);
-    if (!r.ok) expect(r.message).toMatch(/^[A-Z"].*[.]$/);
-  });
+  it.each(['', 'abc', '3 apples', '2 ft 3 mm', '3 in 2 ft', '1 2 3', '1,200 mm', '3 4', '1/0 in'])(
+    'refuses "%s" with a sentence',
+    (text) => {
+      const r = parseLength(text, 'metric');
+      expect(r.ok).toBe(false);
+      if (!r.ok) expect(r.message).toMatch(/^[A-Z"].*[.]$/);
+    },
+  );
 });
 
 describe('formatLength', () => {
   it.each<[number, UnitSystem, LengthKind, string]>([
     [3.2, 'metric', 'distance', '3.20 m'],
     [0.6, 'metric', 'size', '600 mm'],
-    [10 * FOOT_M + 6 * INCH_MM / 1000, 'imperial', 'distance', '10 ft 6 in'],
-    [24 * INCH_MM / 1000, 'imperial', 'size', '24 in'],
+    [10 * FOOT_M + (6 * INCH_MM) / 1000, 'imperial', 'distance', '10 ft 6 in'],
+    [(24 * INCH_MM) / 1000, 'imperial', 'size', '24 in'],
     [10 * FOOT_M, 'imperial', 'distance', '10 ft'],
-    [6 * INCH_MM / 1000, 'imperial', 'distance', '6 in'],
+    [(6 * INCH_MM) / 1000, 'imperial', 'distance', '6 in'],
     // 11.8 in rounds to a whole foot, never "0 ft 12 in".
-    [11.8 * INCH_MM / 1000, 'imperial', 'distance', '1 ft'],
+    [(11.8 * INCH_MM) / 1000, 'imperial', 'distance', '1 ft'],
     [0.6, 'imperial', 'size', '23.6 in'],
     [-1.5, 'metric', 'distance', '−1.50 m'],
   ])('writes %f m in %s as a %s "%s"', (m, units, kind, text) => {

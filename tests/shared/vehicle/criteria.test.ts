@@ -16,7 +16,8 @@ describe('detect and recognise criteria over a field', () => {
   const field = vehicleFields(v).find((f) => f.id === 'un-iv-left')!;
   const mirrors = sixMirrors(v).filter((m) => m.id === 'iv-p');
   const score = (extra: Record<string, number>) =>
-    scoreVehicle({ vehicle: v, mirrors, fields: [field], mirrorsForField: { [field.id]: ['iv-p'] }, criteriaSamples: 400, ...extra }).fields[0];
+    scoreVehicle({ vehicle: v, mirrors, fields: [field], mirrorsForField: { [field.id]: ['iv-p'] }, criteriaSamples: 400, ...extra })
+      .fields[0];
 
   it('with zero angles finds the person wherever the field is seen, matching the traced share to the grid’s resolution', () => {
     const s = score({ fieldTargetHeightM: 1.7, detectAngleRad: 0, recogniseAngleRad: 0 });

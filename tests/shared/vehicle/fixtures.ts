@@ -31,11 +31,47 @@ export function sixMirrors(v: Vehicle): VehicleMirror[] {
   const d = -p;
   const out = v.widthM / 2 + 0.2;
   return [
-    { id: 'ii-d', label: 'Main mirror, driver', mirrorClass: 'II', mirror: { shape: 'rect', widthM: 0.2, heightM: 0.38, radiusM: 1.8 }, pose: aimBetween([-0.55, d * out, 2.35], e, [e[0] - 30, d * 2.3, 0]) },
-    { id: 'ii-p', label: 'Main mirror, passenger', mirrorClass: 'II', mirror: { shape: 'rect', widthM: 0.2, heightM: 0.38, radiusM: 1.8 }, pose: aimBetween([-0.55, p * out, 2.35], e, [e[0] - 30, p * 2.3, 0]) },
-    { id: 'iv-d', label: 'Wide-angle mirror, driver', mirrorClass: 'IV', mirror: { shape: 'rect', widthM: 0.2, heightM: 0.18, radiusM: 0.35 }, pose: aimBetween([-0.5, d * out, 2.05], e, [e[0] - 12, d * 8, 0]) },
-    { id: 'iv-p', label: 'Wide-angle mirror, passenger', mirrorClass: 'IV', mirror: { shape: 'rect', widthM: 0.2, heightM: 0.18, radiusM: 0.35 }, pose: aimBetween([-0.5, p * out, 2.05], e, [e[0] - 12, p * 8, 0]) },
-    { id: 'v-p', label: 'Close-proximity mirror', mirrorClass: 'V', mirror: { shape: 'rect', widthM: 0.24, heightM: 0.2, radiusM: 0.3 }, pose: aimBetween([-0.2, p * (v.widthM / 2 + 0.05), 2.7], e, [e[0] - 0.3, p * 2.2, 0]) },
-    { id: 'vi', label: 'Front mirror', mirrorClass: 'VI', mirror: { shape: 'rect', widthM: 0.25, heightM: 0.2, radiusM: 0.3 }, pose: aimBetween([0.15, p * 0.5, 2.95], e, [0.9, p * 0.6, 0]) },
+    {
+      id: 'ii-d',
+      label: 'Main mirror, driver',
+      mirrorClass: 'II',
+      mirror: { shape: 'rect', widthM: 0.2, heightM: 0.38, radiusM: 1.8 },
+      pose: aimBetween([-0.55, d * out, 2.35], e, [e[0] - 30, d * 2.3, 0]),
+    },
+    {
+      id: 'ii-p',
+      label: 'Main mirror, passenger',
+      mirrorClass: 'II',
+      mirror: { shape: 'rect', widthM: 0.2, heightM: 0.38, radiusM: 1.8 },
+      pose: aimBetween([-0.55, p * out, 2.35], e, [e[0] - 30, p * 2.3, 0]),
+    },
+    {
+      id: 'iv-d',
+      label: 'Wide-angle mirror, driver',
+      mirrorClass: 'IV',
+      mirror: { shape: 'rect', widthM: 0.2, heightM: 0.18, radiusM: 0.35 },
+      pose: aimBetween([-0.5, d * out, 2.05], e, [e[0] - 12, d * 8, 0]),
+    },
+    {
+      id: 'iv-p',
+      label: 'Wide-angle mirror, passenger',
+      mirrorClass: 'IV',
+      mirror: { shape: 'rect', widthM: 0.2, heightM: 0.18, radiusM: 0.35 },
+      pose: aimBetween([-0.5, p * out, 2.05], e, [e[0] - 12, p * 8, 0]),
+    },
+    {
+      id: 'v-p',
+      label: 'Close-proximity mirror',
+      mirrorClass: 'V',
+      mirror: { shape: 'rect', widthM: 0.24, heightM: 0.2, radiusM: 0.3 },
+      pose: aimBetween([-0.2, p * (v.widthM / 2 + 0.05), 2.7], e, [e[0] - 0.3, p * 2.2, 0]),
+    },
+    {
+      id: 'vi',
+      label: 'Front mirror',
+      mirrorClass: 'VI',
+      mirror: { shape: 'rect', widthM: 0.25, heightM: 0.2, radiusM: 0.3 },
+      pose: aimBetween([0.15, p * 0.5, 2.95], e, [0.9, p * 0.6, 0]),
+    },
   ];
 }

@@ -19,7 +19,10 @@ describe('mounting sentences', () => {
 
   it('finds a level round mirror’s lowest point half a diameter under its centre', () => {
     // A level mirror's rim circle lies in a vertical plane: its lowest point is exactly d/2 down.
-    expect(mirrorExtent({ shape: 'round', diameterM: 0.2, radiusM: 0.3 }, poseFromAim({ vertexM: [0, 2, 2.5], azimuthRad: 1, tiltDownRad: 0 })).lowestZ).toBeCloseTo(2.4, 12);
+    expect(
+      mirrorExtent({ shape: 'round', diameterM: 0.2, radiusM: 0.3 }, poseFromAim({ vertexM: [0, 2, 2.5], azimuthRad: 1, tiltDownRad: 0 }))
+        .lowestZ,
+    ).toBeCloseTo(2.4, 12);
   });
 
   it('says so when a close-proximity mirror reaches below 2 m, and not when it stays above', () => {

@@ -40,8 +40,18 @@ export const anyVehicle: fc.Arbitrary<VehicleInput> = fc
       ? { method: 'direct' as const, eyeBehindFrontM: behind, eyeFromCentreM: across, eyeHeightM: eyeH }
       : { method: 'seat' as const, rule: r.rule, seatBehindFrontM: behind, seatFromCentreM: across, seatHeightM: r.seatHeightM };
     const bodyBoxes = [
-      { id: 'cab', name: 'Cab', frontBehindM: cabFrontBehindM, rearBehindM: cabRear, widthM: cabWidthM, heightM: eyeH + 0.4, windowLineM: eyeH * 0.7 },
-      ...(cabRear + 0.1 < r.lengthM ? [{ id: 'body', name: 'Body', frontBehindM: cabRear + 0.05, rearBehindM: r.lengthM, widthM: r.widthM, heightM: r.bodyHeightM }] : []),
+      {
+        id: 'cab',
+        name: 'Cab',
+        frontBehindM: cabFrontBehindM,
+        rearBehindM: cabRear,
+        widthM: cabWidthM,
+        heightM: eyeH + 0.4,
+        windowLineM: eyeH * 0.7,
+      },
+      ...(cabRear + 0.1 < r.lengthM
+        ? [{ id: 'body', name: 'Body', frontBehindM: cabRear + 0.05, rearBehindM: r.lengthM, widthM: r.widthM, heightM: r.bodyHeightM }]
+        : []),
     ];
     return { kind: r.kind, driverSide: r.driverSide, lengthM: r.lengthM, widthM: r.widthM, cabWidthM, cabFrontBehindM, eye, bodyBoxes };
   });
@@ -77,7 +87,9 @@ describe('the vehicle model', () => {
     expect(messages({ ...base, eye: { ...base.eye, seatFromCentreM: 1.5 } })['eye.seatFromCentreM']).toMatch(/less than half its width\.$/);
     const closedCab = { ...base, bodyBoxes: base.bodyBoxes.map((b) => (b.id === 'cab' ? { ...b, windowLineM: null } : b)) };
     expect(messages(closedCab)['bodyBoxes.0.windowLineM']).toMatch(/^The driver’s eye is inside “Cab” below its window line/);
-    expect(messages({ ...base, bodyBoxes: [...base.bodyBoxes, { ...base.bodyBoxes[1] }] })['bodyBoxes.2.id']).toBe('Two body parts share an id.');
+    expect(messages({ ...base, bodyBoxes: [...base.bodyBoxes, { ...base.bodyBoxes[1] }] })['bodyBoxes.2.id']).toBe(
+      'Two body parts share an id.',
+    );
   });
 
   it('refuses a test cylinder whose required image length is below its required width', () => {
@@ -118,7 +130,12 @@ describe('the vehicle model', () => {
           widthM: fc.double(),
           cabWidthM: fc.double(),
           cabFrontBehindM: fc.double(),
-          eye: fc.record({ method: fc.constantFrom('seat', 'direct', 'x'), eyeBehindFrontM: fc.double(), eyeFromCentreM: fc.double(), eyeHeightM: fc.double() }),
+          eye: fc.record({
+            method: fc.constantFrom('seat', 'direct', 'x'),
+            eyeBehindFrontM: fc.double(),
+            eyeFromCentreM: fc.double(),
+            eyeHeightM: fc.double(),
+          }),
         }),
         (input) => {
           for (const message of Object.values(messages(input))) expect(message).toMatch(/^[A-Z].*[.]$/);

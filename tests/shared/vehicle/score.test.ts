@@ -103,7 +103,8 @@ describe('scoring a vehicle’s mirrors against its fields', () => {
     expect(s.share).toBeLessThan(0.95);
     expect(f.requiredShare).toBe(0.95);
     expect(s.verdict).toBe('short');
-    const asClassV = scoreVehicle({ vehicle: v, mirrors, fields: [{ ...f, requiredShare: 0.85 }], mirrorsForField: { [f.id]: ['iv-p'] } }).fields[0];
+    const asClassV = scoreVehicle({ vehicle: v, mirrors, fields: [{ ...f, requiredShare: 0.85 }], mirrorsForField: { [f.id]: ['iv-p'] } })
+      .fields[0];
     expect(asClassV.share).toBeCloseTo(s.share, 12);
     expect(asClassV.verdict).toBe('pass');
   });
@@ -140,7 +141,9 @@ describe('scoring a vehicle’s mirrors against its fields', () => {
     const base = sixMirrors(v).find((m) => m.id === 'v-p')!;
     const mirror = { shape: 'rect' as const, widthM: 0.2, heightM: 0.16, radiusM: 0.4 };
     const f = field(v, 'un-v-left');
-    const at = (dx: number) => scoreVehicle({ vehicle: v, mirrors: [{ ...base, mirror, pose: aimBetween(base.pose.vertexM, e, [e[0] + dx, 2.2, 0]) }], fields: [f] }).fields[0];
+    const at = (dx: number) =>
+      scoreVehicle({ vehicle: v, mirrors: [{ ...base, mirror, pose: aimBetween(base.pose.vertexM, e, [e[0] + dx, 2.2, 0]) }], fields: [f] })
+        .fields[0];
     const back = at(-1.5);
     const fixed = at(0);
     expect(f.requiredShare).toBe(0.85);
@@ -241,8 +244,17 @@ describe('scoring a vehicle’s mirrors against its fields', () => {
     const quads = g.ocularM.map((E) => {
       const k = 2 * ((E[0] - V[0]) * n[0] + (E[1] - V[1]) * n[1] + (E[2] - V[2]) * n[2]);
       const Ei: Vec3 = [E[0] - k * n[0], E[1] - k * n[1], E[2] - k * n[2]];
-      const ring: Pair[] = [[1, 1], [-1, 1], [-1, -1], [1, -1]].map(([a, b]) => {
-        const c: Vec3 = [V[0] + (a * W * u[0]) / 2 + (b * H * w[0]) / 2, V[1] + (a * W * u[1]) / 2 + (b * H * w[1]) / 2, V[2] + (a * W * u[2]) / 2 + (b * H * w[2]) / 2];
+      const ring: Pair[] = [
+        [1, 1],
+        [-1, 1],
+        [-1, -1],
+        [1, -1],
+      ].map(([a, b]) => {
+        const c: Vec3 = [
+          V[0] + (a * W * u[0]) / 2 + (b * H * w[0]) / 2,
+          V[1] + (a * W * u[1]) / 2 + (b * H * w[1]) / 2,
+          V[2] + (a * W * u[2]) / 2 + (b * H * w[2]) / 2,
+        ];
         expect(c[2]).toBeLessThan(Ei[2]); // every corner's ray goes down to the ground
         const t = Ei[2] / (Ei[2] - c[2]);
         return [Ei[0] + t * (c[0] - Ei[0]), Ei[1] + t * (c[1] - Ei[1])];
@@ -259,7 +271,9 @@ describe('scoring a vehicle’s mirrors against its fields', () => {
 
 function gapPerimeterM(gaps: readonly Polygon[]): number {
   let sum = 0;
-  for (const poly of gaps) for (const ring of poly) for (let k = 0; k + 1 < ring.length; k++) sum += Math.hypot(ring[k + 1][0] - ring[k][0], ring[k + 1][1] - ring[k][1]);
+  for (const poly of gaps)
+    for (const ring of poly)
+      for (let k = 0; k + 1 < ring.length; k++) sum += Math.hypot(ring[k + 1][0] - ring[k][0], ring[k + 1][1] - ring[k][1]);
   return sum;
 }
 
@@ -287,15 +301,32 @@ describe('scoring over the accepted vehicle space', () => {
             widthM: r.widthM,
             cabWidthM: r.widthM * r.cabShare,
             cabFrontBehindM: 0.1,
-            eye: { method: 'seat', rule: 'un-r46', seatBehindFrontM: r.seatBehindM, seatFromCentreM: r.seatAcrossM, seatHeightM: r.seatHeightM },
+            eye: {
+              method: 'seat',
+              rule: 'un-r46',
+              seatBehindFrontM: r.seatBehindM,
+              seatFromCentreM: r.seatAcrossM,
+              seatHeightM: r.seatHeightM,
+            },
             bodyBoxes: [
-              { id: 'cab', name: 'Cab', frontBehindM: 0.1, rearBehindM: 2.4, widthM: r.widthM * r.cabShare, heightM: eyeH + 0.5, windowLineM: eyeH * r.windowFrac },
+              {
+                id: 'cab',
+                name: 'Cab',
+                frontBehindM: 0.1,
+                rearBehindM: 2.4,
+                widthM: r.widthM * r.cabShare,
+                heightM: eyeH + 0.5,
+                windowLineM: eyeH * r.windowFrac,
+              },
               { id: 'body', name: 'Body', frontBehindM: 2.6, rearBehindM: r.lengthM, widthM: r.widthM, heightM: r.bodyHeightM },
             ],
           });
           const mirrors = sixMirrors(v);
           const s = scoreVehicle({ vehicle: v, mirrors });
-          const m = scoreVehicle({ vehicle: mirrorVehicleAcross(v), mirrors: mirrors.map((x) => ({ ...x, pose: mirrorPoseAcross(x.pose) })) });
+          const m = scoreVehicle({
+            vehicle: mirrorVehicleAcross(v),
+            mirrors: mirrors.map((x) => ({ ...x, pose: mirrorPoseAcross(x.pose) })),
+          });
           s.fields.forEach((f, i) => {
             expect(f.share).toBeGreaterThanOrEqual(0);
             expect(f.share).toBeLessThanOrEqual(1);

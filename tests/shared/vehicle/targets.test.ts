@@ -8,7 +8,16 @@ import { demoTruck, sixMirrors } from './fixtures';
 // detect 6′ and recognise 20′ of a target's height: engineering judgement, from memory [M].
 
 const cylinderP = (id: string, positionM: [number, number], extra: Record<string, unknown> = {}) =>
-  pointTarget.parse({ id, name: id, positionM, diameterM: 0.3048, heightM: 0.9144, minShortRad: 3 * ARCMIN_RAD, minLongRad: 9 * ARCMIN_RAD, ...extra });
+  pointTarget.parse({
+    id,
+    name: id,
+    positionM,
+    diameterM: 0.3048,
+    heightM: 0.9144,
+    minShortRad: 3 * ARCMIN_RAD,
+    minLongRad: 9 * ARCMIN_RAD,
+    ...extra,
+  });
 
 function truckWithTargets(targets: ReturnType<typeof cylinderP>[]): Vehicle {
   return { ...demoTruck(), targets };
@@ -79,7 +88,13 @@ describe('test cylinders seen in a vehicle’s mirrors', () => {
     const v = truckWithTargets([]);
     const g = vehicleGeometry(v);
     v.targets = [10, 20, 35, 50].map((d) => cylinderP(`at-${d}`, [g.eyeMidM[0] - d, 4]));
-    const ts = scoreVehicle({ vehicle: v, mirrors: sixMirrors(v).filter((m) => m.id === 'iv-p'), fields: [], detectAngleRad: 6 * ARCMIN_RAD, recogniseAngleRad: 20 * ARCMIN_RAD }).targets;
+    const ts = scoreVehicle({
+      vehicle: v,
+      mirrors: sixMirrors(v).filter((m) => m.id === 'iv-p'),
+      fields: [],
+      detectAngleRad: 6 * ARCMIN_RAD,
+      recogniseAngleRad: 20 * ARCMIN_RAD,
+    }).targets;
     for (const t of ts) {
       expect(t.visible).toBe(true);
       expect(t.detected).toBe(t.heightAngleRad! >= 6 * ARCMIN_RAD);
