@@ -107,10 +107,8 @@ export function errorHandler(log: Logger): ErrorRequestHandler {
     }
     log.error(`${req.method} ${safePath(req)} failed`, describeForLog(err));
     if (res.headersSent) return;
-    res
-      .status(500)
-      .json({
-        error: 'Sightfan hit an unexpected problem and saved nothing from this request. Try again; if it repeats, tell your administrator.',
-      });
+    res.status(500).json({
+      error: 'Sightfan hit an unexpected problem and saved nothing from this request. Try again; if it repeats, tell your administrator.',
+    });
   };
 }

@@ -21,13 +21,11 @@ describe('ChangePasswordForm', () => {
   });
 
   it("puts the server's word about the current password beside that field", async () => {
-    const onSubmit = jest
-      .fn()
-      .mockRejectedValue(
-        new ApiError(400, 'Your current password is not right; nothing was changed.', {
-          currentPassword: 'This is not your current password.',
-        }),
-      );
+    const onSubmit = jest.fn().mockRejectedValue(
+      new ApiError(400, 'Your current password is not right; nothing was changed.', {
+        currentPassword: 'This is not your current password.',
+      }),
+    );
     render(<ChangePasswordForm onSubmit={onSubmit} />);
     const user = userEvent.setup();
 

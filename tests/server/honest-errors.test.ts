@@ -95,15 +95,13 @@ const corpus = (): Case[] => [
   {
     name: 'NUL in a catalogue name',
     run: () =>
-      admin
-        .post('/api/catalog')
-        .send({
-          code: 'NUL-1',
-          name: `Dome${nul}`,
-          mirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 },
-          unitPriceMinor: 100,
-          currency: 'EUR',
-        }),
+      admin.post('/api/catalog').send({
+        code: 'NUL-1',
+        name: `Dome${nul}`,
+        mirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 },
+        unitPriceMinor: 100,
+        currency: 'EUR',
+      }),
   },
   {
     name: 'NUL in a sheet e-mail note',
@@ -133,18 +131,16 @@ const corpus = (): Case[] => [
   {
     name: 'a bell character in a mirror label',
     run: () =>
-      installer
-        .post(`/api/projects/${projectId}/placements`)
-        .send({
-          label: 'M\u0007',
-          customMirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 },
-          positionM: [0, 0],
-          heightM: 2.5,
-          azimuthRad: 0,
-          tiltDownRad: 0.2,
-          viewerId: null,
-          notes: '',
-        }),
+      installer.post(`/api/projects/${projectId}/placements`).send({
+        label: 'M\u0007',
+        customMirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 },
+        positionM: [0, 0],
+        heightM: 2.5,
+        azimuthRad: 0,
+        tiltDownRad: 0.2,
+        viewerId: null,
+        notes: '',
+      }),
   },
 ];
 

@@ -112,29 +112,25 @@ describe('a sheet with names in several scripts', () => {
   };
 
   beforeAll(async () => {
-    const created = await installer
-      .post('/api/projects')
-      .send({
-        name: names.project,
-        customer: names.customer,
-        site: names.site,
-        scene: { viewers: [{ id: 'v1', name: 'נהג', positionM: [0, 0], eyeHeightM: 2.2 }] },
-      });
+    const created = await installer.post('/api/projects').send({
+      name: names.project,
+      customer: names.customer,
+      site: names.site,
+      scene: { viewers: [{ id: 'v1', name: 'נהג', positionM: [0, 0], eyeHeightM: 2.2 }] },
+    });
     expect(created.status).toBe(201);
     const id = created.body.project.id as number;
     const catalogueItemId = ((await installer.get('/api/catalog')).body.items as CatalogueItemDto[])[0].id;
-    const placed = await installer
-      .post(`/api/projects/${id}/placements`)
-      .send({
-        label: names.mirror,
-        catalogueItemId,
-        positionM: [3, 4],
-        heightM: 2.6,
-        azimuthRad: -2.2,
-        tiltDownRad: 0.35,
-        viewerId: 'v1',
-        notes: names.note,
-      });
+    const placed = await installer.post(`/api/projects/${id}/placements`).send({
+      label: names.mirror,
+      catalogueItemId,
+      positionM: [3, 4],
+      heightM: 2.6,
+      azimuthRad: -2.2,
+      tiltDownRad: 0.35,
+      viewerId: 'v1',
+      notes: names.note,
+    });
     expect(placed.status).toBe(201);
     const issued = await installer.post(`/api/projects/${id}/sheet/revisions`);
     expect(issued.status).toBe(201);
