@@ -6,6 +6,7 @@ import { palette, radii, spacing } from '@/constants/theme';
 import { criteriaSentence, targetLabel, zoneCriterion, type EvaluatedPlacement, type EvaluatedZone } from '@/shared/project-optics';
 import type { Scene } from '@/shared/schemas';
 import { formatAngle, formatArea, formatLength, formatNumber, formatPercent, type UnitSystem } from '@/shared/units';
+import { formatCoveredShare } from '@/shared/zone-verdict';
 
 export interface PlacementNumbersPanelProps {
   evaluation: EvaluatedPlacement | null;
@@ -114,7 +115,7 @@ export function PlacementNumbersPanel({ evaluation, zones, scene, units }: Place
               : ev.problem
                 ? ev.problem
                 : Number.isFinite(ev.fraction)
-                  ? `${formatPercent(ev.fraction)} (${formatArea(ev.coveredM2, units)})`
+                  ? `${formatCoveredShare(ev.fraction)} (${formatArea(ev.coveredM2, units)})`
                   : '—';
             return (
               <Row

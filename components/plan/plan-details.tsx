@@ -13,10 +13,10 @@ import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
 import { adultRangesText, criteriaOf, criterionText, targetLabel, zoneCriterion } from '@/shared/project-optics';
 import type { CatalogueItemDto, CriteriaSettings, CriterionKind, PlacementDto, ProjectDto, Scene, SceneViewer } from '@/shared/schemas';
 import { CriteriaSettingsForm } from './criteria-settings';
-import { formatLength, formatPercent, type UnitSystem } from '@/shared/units';
+import { formatLength, type UnitSystem } from '@/shared/units';
 import { PlacementEditorSlot } from './placement-editor-slot';
 import type { PlanSelection } from './plan-types';
-import { bandColours, bandWords, zoneBand } from './zone-quality';
+import { bandColours, bandWords, formatCoveredShare, zoneBand } from './zone-quality';
 
 /** Eye heights offered for a viewer. 2.1 m for a seated forklift driver and 1.6 m for a standing pedestrian are round working figures, not from a standard; the installer measures on site. */
 export const EYE_HEIGHTS = { driver: 2.1, pedestrian: 1.6 } as const;
@@ -87,7 +87,7 @@ export function PlanDetails(p: PlanDetailsProps) {
             {`Must show a ${targetLabel(zone.target)} so that they are ${zoneCriterion(zone) === 'detect' ? 'detected' : 'recognised'}: ${criterionText(criteriaOf(p.scene), zoneCriterion(zone))} at the viewer's eye.`}
           </AppText>
           <AppText variant="bodyStrong" style={{ color: bandColours[band].text }}>
-            {ev?.problem ?? `${formatPercent(ev?.fraction ?? Number.NaN)} covered — ${bandWords[band]}`}
+            {ev?.problem ?? `${formatCoveredShare(ev?.fraction ?? Number.NaN)} covered — ${bandWords[band]}`}
           </AppText>
           <AppText variant="small" tone="muted">
             The hatched part of the zone on the plan is what no mirror shows.
@@ -172,7 +172,7 @@ function ProjectSummary(p: PlanDetailsProps) {
               </View>
               <View style={styles.rowEnd}>
                 <AppText variant="bodyStrong" style={{ color: bandColours[band].text }}>
-                  {formatPercent(ev?.fraction ?? Number.NaN)}
+                  {formatCoveredShare(ev?.fraction ?? Number.NaN)}
                 </AppText>
                 <Badge
                   label={bandWords[band]}

@@ -7,10 +7,9 @@ import { Circle, G, Line, Path, Rect, Text as SvgText, TSpan } from 'react-nativ
 import { fonts, palette } from '@/constants/theme';
 import type { EvaluatedPlacement } from '@/shared/project-optics';
 import type { PlacementDto, SceneViewer, SceneWall, SceneZone } from '@/shared/schemas';
-import { formatPercent } from '@/shared/units';
 import { alongAzimuth, multiPolygonToPath, ringsToPath } from './plan-geometry';
 import { AIM_HANDLE_PX, MARKER_RADIUS_PX, toScreen, type PairM, type PlanView } from './plan-view';
-import { bandColours, bandWords, zoneBand } from './zone-quality';
+import { bandColours, bandWords, formatCoveredShare, zoneBand } from './zone-quality';
 
 export const GAP_HATCH_ID = 'plan-gap-hatch';
 /** Pixels per metre from which viewer names are drawn. */
@@ -137,7 +136,7 @@ export function ZoneLabel({ zone, fraction, view }: { zone: SceneZone; fraction:
   const xs = zone.polygonM.map((p) => p[0]);
   const ys = zone.polygonM.map((p) => p[1]);
   const [cx, cy] = toScreen(view, [(Math.min(...xs) + Math.max(...xs)) / 2, (Math.min(...ys) + Math.max(...ys)) / 2]);
-  const pct = formatPercent(fraction);
+  const pct = formatCoveredShare(fraction);
   const name = zone.name.length > 28 ? `${zone.name.slice(0, 27)}…` : zone.name;
   const first = `${name} · ${pct}`;
   const second = bandWords[band];

@@ -9,7 +9,8 @@ import { layout, palette, radii, spacing } from '@/constants/theme';
 import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
 import { adultRangesText } from '@/shared/project-optics';
 import type { PlacementDto, Scene } from '@/shared/schemas';
-import { formatLength, formatPercent, type UnitSystem } from '@/shared/units';
+import { formatLength, type UnitSystem } from '@/shared/units';
+import { formatCoveredShare } from '@/shared/zone-verdict';
 import type { PlanSelection } from './plan-types';
 
 export interface PlanSheetProps {
@@ -31,7 +32,7 @@ export function sheetSummary(p: Pick<PlanSheetProps, 'selection' | 'placement' |
   const zones = p.scene.zones
     .map((z) => {
       const ev = p.evaluation?.zones.find((e) => e.zoneId === z.id);
-      return `${z.name} ${formatPercent(ev?.fraction ?? Number.NaN)}`;
+      return `${z.name} ${formatCoveredShare(ev?.fraction ?? Number.NaN)}`;
     })
     .join(' · ');
   if (p.selection?.kind === 'placement' && p.placement) {
@@ -46,7 +47,7 @@ export function sheetSummary(p: Pick<PlanSheetProps, 'selection' | 'placement' |
   if (p.selection?.kind === 'zone') {
     const z = p.scene.zones.find((x) => x.id === p.selection!.id);
     const ev = p.evaluation?.zones.find((e) => e.zoneId === p.selection!.id);
-    if (z) return { title: z.name, numbers: `${formatPercent(ev?.fraction ?? Number.NaN)} covered` };
+    if (z) return { title: z.name, numbers: `${formatCoveredShare(ev?.fraction ?? Number.NaN)} covered` };
   }
   return { title: 'Project summary', numbers: zones || 'No zones yet' };
 }

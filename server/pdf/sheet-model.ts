@@ -23,6 +23,7 @@ import {
 } from '../../shared/project-optics';
 import type { CatalogueItemDto, MirrorSpec, PlacementDto, Scene, UnitSystem } from '../../shared/schemas';
 import { formatAngle, formatArea, formatLength, formatMoney, formatNumber, formatPercent, resolveUnits } from '../../shared/units';
+import { formatCoveredShare } from '../../shared/zone-verdict';
 import { SHEET_CAUTIONS } from './cautions';
 
 export type SheetPlacementInput = Pick<
@@ -267,7 +268,7 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
       name: z.name,
       target: targetLabel(z.target),
       criterion: zoneCriterion(z),
-      covered: ok ? f.percent(ez.fraction) : '—',
+      covered: ok ? formatCoveredShare(ez.fraction) : '—',
       area: ok ? f.area(ez.coveredM2) : '—',
       problem: ok ? null : 'not computable',
     };

@@ -3,7 +3,8 @@ import { render, screen } from '@testing-library/react';
 import { PlacementNumbersPanel, rimSqueezeText } from '@/components/placement/numbers-panel';
 import { evaluateProject } from '@/shared/project-optics';
 import type { PlacementDto, Scene } from '@/shared/schemas';
-import { formatAngle, formatArea, formatLength, formatNumber, formatPercent, type UnitSystem } from '@/shared/units';
+import { formatAngle, formatArea, formatLength, formatNumber, type UnitSystem } from '@/shared/units';
+import { formatCoveredShare } from '@/shared/zone-verdict';
 import { TEST_CATALOGUE, testPlacement } from './fixtures';
 
 // An invented aisle: a viewer 6 m from a 600 mm round mirror on a 0.8 m sphere, mounted at 2.6 m.
@@ -64,7 +65,7 @@ describe('PlacementNumbersPanel', () => {
     }
     const zone = project.zones[0];
     expect(screen.getByTestId('numbers-zone-z1')).toHaveTextContent(
-      `${formatPercent(zone.fraction)} (${formatArea(zone.coveredM2, units)})`,
+      `${formatCoveredShare(zone.fraction)} (${formatArea(zone.coveredM2, units)})`,
     );
   });
 

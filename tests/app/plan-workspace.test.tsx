@@ -6,7 +6,7 @@ import { projectKeys, useProjectQuery } from '@/hooks/use-projects';
 import { sessionKeys } from '@/hooks/use-session';
 import { evaluateProject } from '@/shared/project-optics';
 import type { ProjectDto, UserDto } from '@/shared/schemas';
-import { formatPercent } from '@/shared/units';
+import { formatCoveredShare } from '@/shared/zone-verdict';
 import { DEMO_PROJECT } from '../../server/seeders/demo-project';
 import { demoCatalogueDtos, demoPlacementDtos } from './fixtures';
 import { makeTestQueryClient, renderWithQuery } from './render';
@@ -77,8 +77,8 @@ describe('the project plan', () => {
     renderProject(project);
     for (const zone of project.scene.zones) {
       const fraction = expected.zones.find((z) => z.zoneId === zone.id)!.fraction;
-      expect(screen.getByTestId(`zone-pct-${zone.id}`)).toHaveTextContent(formatPercent(fraction));
-      expect(screen.getByTestId(`zone-label-${zone.id}`)).toHaveTextContent(`${zone.name} · ${formatPercent(fraction)}`);
+      expect(screen.getByTestId(`zone-pct-${zone.id}`)).toHaveTextContent(formatCoveredShare(fraction));
+      expect(screen.getByTestId(`zone-label-${zone.id}`)).toHaveTextContent(`${zone.name} · ${formatCoveredShare(fraction)}`);
     }
   });
 

@@ -3,6 +3,7 @@
  * poppler (pdftotext, pdffonts, pdfinfo, pdftoppm), and the real fake SMTP server.
  * Check values are the engine's own numbers (evaluateProject), formatted with the sheet's formatters.
  */
+import { formatCoveredShare } from '../../shared/zone-verdict';
 import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -109,7 +110,7 @@ describe('the specification sheet PDF', () => {
       ];
       for (const value of expected) expect(text).toContain(value);
     });
-    project.scene.zones.forEach((z, i) => expect(text).toContain(`${z.name}: ${f.percent(evaluation.zones[i].fraction)} seen`));
+    project.scene.zones.forEach((z, i) => expect(text).toContain(`${z.name}: ${formatCoveredShare(evaluation.zones[i].fraction)} seen`));
     // Both criteria with their angles, each zone's own, and the on-axis figure named as such.
     expect(text).toContain("Detect: 6′ of the person's height; recognise: 20′ of the person's height");
     expect(text).toContain('T-junction cross traffic standing adult recognise');
