@@ -11,7 +11,7 @@ export const palette = {
   /** Warm off-white paper the screens sit on. */
   chalk: '#f4f1ea',
   /** Cards and inputs: plain white so entered values stand out from the page. */
-  sheet: '#ffffff',
+  card: '#ffffff',
   /** Hairlines and input borders; dark enough to see in sunlight. */
   rule: '#b9b2a3',
   ruleSoft: '#dcd6ca',

@@ -170,7 +170,7 @@ function Tags({ item }: { item: CatalogueItemDto }) {
 const styles = StyleSheet.create({
   column: { gap: spacing.lg },
   filter: { gap: spacing.xs },
-  table: { borderWidth: 1, borderColor: palette.ruleSoft, borderRadius: radii.lg, backgroundColor: palette.sheet, overflow: 'hidden' },
+  table: { borderWidth: 1, borderColor: palette.ruleSoft, borderRadius: radii.lg, backgroundColor: palette.card, overflow: 'hidden' },
   thead: { backgroundColor: palette.chalk, minHeight: 40 },
   tr: {
     flexDirection: 'row',
@@ -186,7 +186,7 @@ const styles = StyleSheet.create({
   card: {
     gap: spacing.xs,
     padding: spacing.lg,
-    backgroundColor: palette.sheet,
+    backgroundColor: palette.card,
     borderRadius: radii.lg,
     borderWidth: 1,
     borderColor: palette.ruleSoft,

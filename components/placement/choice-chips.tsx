@@ -78,7 +78,7 @@ const styles = StyleSheet.create({
     borderRadius: radii.pill,
     borderWidth: 2,
     borderColor: palette.asphalt,
-    backgroundColor: palette.sheet,
+    backgroundColor: palette.card,
     alignItems: 'center',
     justifyContent: 'center',
   },

@@ -137,7 +137,7 @@ export function ElevationView({ evaluation, units, testID = 'placement-elevation
           strokeWidth={1}
           strokeDasharray="2 3"
         />
-        <Circle cx={X(drawing.eye.s)} cy={Z(drawing.eye.z)} r={7} fill={palette.sheet} stroke={palette.glass} strokeWidth={3} />
+        <Circle cx={X(drawing.eye.s)} cy={Z(drawing.eye.z)} r={7} fill={palette.card} stroke={palette.glass} strokeWidth={3} />
         <Circle cx={X(drawing.eye.s)} cy={Z(drawing.eye.z)} r={2.5} fill={palette.glass} />
         <Rect
           x={X(drawing.mirror.s) - 4}

@@ -285,7 +285,7 @@ const styles = StyleSheet.create({
     borderRadius: radii.md,
     borderWidth: 2,
     borderColor: palette.ruleSoft,
-    backgroundColor: palette.sheet,
+    backgroundColor: palette.card,
     gap: spacing.xxs,
   },
   optionHover: { borderColor: palette.rule },

@@ -81,5 +81,5 @@ export function PlanCanvas(props: PlanCanvasProps) {
 
 const styles = StyleSheet.create({
   outer: { flex: 1 },
-  frame: { flex: 1, overflow: 'hidden', backgroundColor: palette.sheet, userSelect: 'none', touchAction: 'none' } as object,
+  frame: { flex: 1, overflow: 'hidden', backgroundColor: palette.card, userSelect: 'none', touchAction: 'none' } as object,
 });

@@ -1,5 +1,5 @@
 /**
- * What sits beside the plan (wide) or in the bottom sheet (phone): the selected item's details, or,
+ * What sits beside the plan (wide) or in the bottom drawer (phone): the selected item's details, or,
  * with nothing selected, the project summary with the safety cautions.
  */
 import type { ReactNode } from 'react';
@@ -278,7 +278,7 @@ const styles = StyleSheet.create({
     borderRadius: radii.sm,
     borderWidth: 1,
     borderColor: palette.ruleSoft,
-    backgroundColor: palette.sheet,
+    backgroundColor: palette.card,
   },
   listRowHover: { backgroundColor: palette.chalk },
   rowMain: { flex: 1, gap: 2 },

@@ -78,7 +78,7 @@ export function PlanDrawing({
           <Line x1={0} y1={0} x2={0} y2={9} stroke={palette.stop} strokeWidth={3} strokeOpacity={0.75} />
         </Pattern>
       </Defs>
-      <Rect x={0} y={0} width={size.width} height={size.height} fill={palette.sheet} />
+      <Rect x={0} y={0} width={size.width} height={size.height} fill={palette.card} />
       <Path pointerEvents="none" d={grid.minor} stroke={palette.ruleSoft} strokeWidth={1} />
       <Path pointerEvents="none" d={grid.major} stroke={palette.rule} strokeWidth={1.2} />
       {scene.zones.map((z) => (
@@ -128,7 +128,7 @@ export function PlanDrawing({
       ) : null}
       <DraftShape points={draftPoints} closed={draftClosed} view={view} />
       <G pointerEvents="none">
-        <Rect x={12} y={10} width={bar.lengthPx + 16} height={34} rx={6} fill={palette.sheet} fillOpacity={0.9} />
+        <Rect x={12} y={10} width={bar.lengthPx + 16} height={34} rx={6} fill={palette.card} fillOpacity={0.9} />
         <Path d={`M20 24V34H${20 + bar.lengthPx}V24`} stroke={palette.asphalt} strokeWidth={2.5} fill="none" />
         <SvgText testID="plan-scale-label" x={20} y={22} fontFamily={fonts.semibold} fontSize={12} fill={palette.asphalt}>
           {bar.label}

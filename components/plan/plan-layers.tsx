@@ -44,7 +44,7 @@ function LabelPlate({ x, y, width, lines, lineHeight = 16 }: { x: number; y: num
       width={width + 8}
       height={lines * lineHeight + 4}
       rx={4}
-      fill={palette.sheet}
+      fill={palette.card}
       fillOpacity={0.9}
     />
   );
@@ -84,7 +84,7 @@ export const WallsLayer = memo(function WallsLayer({
               strokeLinecap={w.kind === 'door' ? 'butt' : 'square'}
             />
             {w.kind === 'racking' ? (
-              <Line x1={ax} y1={ay} x2={bx} y2={by} stroke={palette.sheet} strokeWidth={1.5} strokeDasharray="2 6" />
+              <Line x1={ax} y1={ay} x2={bx} y2={by} stroke={palette.card} strokeWidth={1.5} strokeDasharray="2 6" />
             ) : null}
           </G>
         );
@@ -221,7 +221,7 @@ export const ViewerMarker = memo(function ViewerMarker({
         cx={x}
         cy={y}
         r={r}
-        fill={palette.sheet}
+        fill={palette.card}
         stroke={selected ? palette.beacon : palette.asphalt}
         strokeWidth={selected ? 4 : 2}
       />

@@ -150,7 +150,7 @@ function ToolButton({
 const styles = StyleSheet.create({
   wrap: { gap: spacing.sm },
   context: {
-    backgroundColor: palette.sheet,
+    backgroundColor: palette.card,
     borderRadius: radii.md,
     borderWidth: 1,
     borderColor: palette.rule,
@@ -178,7 +178,7 @@ const styles = StyleSheet.create({
   toolTextActive: { color: palette.asphalt },
   toolTextDanger: { color: palette.stopSoft },
   readOnly: {
-    backgroundColor: palette.sheet,
+    backgroundColor: palette.card,
     borderRadius: radii.md,
     borderWidth: 2,
     borderColor: palette.glass,

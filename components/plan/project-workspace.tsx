@@ -21,7 +21,7 @@ import { markRedrawEnd } from './perf-marks';
 import { PlanCanvas, type PlanDrag } from './plan-canvas';
 import { PlacementConflictNotice } from '@/components/placement/placement-conflict';
 import { PlanDetails } from './plan-details';
-import { PlanSheet } from './plan-sheet';
+import { PlanDrawer } from './plan-drawer';
 import { PlanToolbar } from './plan-toolbar';
 import type { PlanSelection, PlanTool } from './plan-types';
 import type { PairM } from './plan-view';
@@ -347,7 +347,7 @@ function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: Cat
       <PageTitle title={project.name} />
       {header}
       {plan}
-      <PlanSheet
+      <PlanDrawer
         open={sheetOpen}
         onToggle={() => setSheetOpen((o) => !o)}
         selection={selection}
@@ -357,7 +357,7 @@ function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: Cat
         units={units}
       >
         {details}
-      </PlanSheet>
+      </PlanDrawer>
     </View>
   );
 }

@@ -55,7 +55,7 @@ export function ZoneNamePrompt({
 
 const styles = StyleSheet.create({
   card: {
-    backgroundColor: palette.sheet,
+    backgroundColor: palette.card,
     borderRadius: radii.lg,
     borderWidth: 2,
     borderColor: palette.asphalt,

@@ -65,7 +65,7 @@ const styles = StyleSheet.create({
     gap: spacing.md,
     minHeight: layout.minTarget + 24,
     padding: spacing.lg,
-    backgroundColor: palette.sheet,
+    backgroundColor: palette.card,
     borderRadius: radii.lg,
     borderWidth: 1,
     borderColor: palette.ruleSoft,

@@ -43,7 +43,7 @@ function Bullet({ text }: { text: string }) {
 function PlanArt() {
   return (
     <Svg width={96} height={72} viewBox="0 0 96 72" aria-hidden>
-      <Rect x={4} y={4} width={88} height={64} rx={4} stroke={palette.rule} strokeWidth={3} fill={palette.sheet} strokeDasharray="6 5" />
+      <Rect x={4} y={4} width={88} height={64} rx={4} stroke={palette.rule} strokeWidth={3} fill={palette.card} strokeDasharray="6 5" />
       <Path d="M12 12 L84 30 A76 76 0 0 1 50 62 Z" fill={palette.beacon} fillOpacity={0.55} />
       <Path d="M6 8 Q16 12 10 18" stroke={palette.glass} strokeWidth={4} fill="none" strokeLinecap="round" />
     </Svg>

@@ -84,8 +84,8 @@ const styles = StyleSheet.create({
 
 const variantStyles = StyleSheet.create({
   primary: { backgroundColor: palette.beacon, borderColor: palette.asphalt },
-  secondary: { backgroundColor: palette.sheet, borderColor: palette.asphalt },
-  danger: { backgroundColor: palette.sheet, borderColor: palette.stop },
+  secondary: { backgroundColor: palette.card, borderColor: palette.asphalt },
+  danger: { backgroundColor: palette.card, borderColor: palette.stop },
   quiet: { backgroundColor: 'transparent', borderColor: 'transparent', paddingHorizontal: spacing.md },
 });
 

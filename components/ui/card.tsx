@@ -25,7 +25,7 @@ export function Card({ title, children, style, testID }: CardProps) {
 
 const styles = StyleSheet.create({
   card: {
-    backgroundColor: palette.sheet,
+    backgroundColor: palette.card,
     borderRadius: radii.lg,
     borderWidth: 1,
     borderColor: palette.ruleSoft,

@@ -193,7 +193,7 @@ const styles = StyleSheet.create({
     borderRadius: radii.md,
     borderWidth: 2,
     borderColor: palette.asphalt,
-    backgroundColor: palette.sheet,
+    backgroundColor: palette.card,
     alignItems: 'center',
     justifyContent: 'center',
   },

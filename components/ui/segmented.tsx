@@ -89,7 +89,7 @@ const styles = StyleSheet.create({
     borderColor: palette.asphalt,
     borderRadius: radii.md,
     overflow: 'hidden',
-    backgroundColor: palette.sheet,
+    backgroundColor: palette.card,
   },
   groupStretch: { alignSelf: 'stretch' },
   groupDisabled: { opacity: 0.6 },

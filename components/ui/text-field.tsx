@@ -76,7 +76,7 @@ const styles = StyleSheet.create({
     color: palette.asphalt,
     minHeight: layout.minTarget + 4,
     paddingHorizontal: spacing.md,
-    backgroundColor: palette.sheet,
+    backgroundColor: palette.card,
     borderWidth: 2,
     borderColor: palette.rule,
     borderRadius: radii.md,

@@ -42,7 +42,7 @@ function ListItem({ user, isSelf }: { user: UserDto; isSelf: boolean }) {
 const styles = StyleSheet.create({
   list: { gap: spacing.md },
   item: {
-    backgroundColor: palette.sheet,
+    backgroundColor: palette.card,
     borderRadius: radii.lg,
     borderWidth: 1,
     borderColor: palette.ruleSoft,

@@ -67,7 +67,7 @@ function TableRow({ user, isSelf }: { user: UserDto; isSelf: boolean }) {
 
 const styles = StyleSheet.create({
   table: {
-    backgroundColor: palette.sheet,
+    backgroundColor: palette.card,
     borderRadius: radii.lg,
     borderWidth: 1,
     borderColor: palette.ruleSoft,

@@ -17,7 +17,7 @@ export const GLASS_SOFT: string = palette.glassSoft;
 export const BEACON: string = palette.beaconPressed;
 export const BEACON_SOFT: string = palette.beaconSoft;
 export const STOP: string = palette.stop;
-export const PAPER: string = palette.sheet;
+export const PAPER: string = palette.card;
 
 export interface Column {
   title: string;

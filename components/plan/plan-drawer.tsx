@@ -1,5 +1,5 @@
 /**
- * The phone's bottom sheet. Collapsed: one strip with the selected item and its key numbers, in
+ * The phone's bottom drawer (not the PDF sheet). Collapsed: one strip with the selected item and its key numbers, in
  * thumb reach. Expanded: the details (editor or summary), scrolling, over the lower part of the plan.
  */
 import type { ReactNode } from 'react';
@@ -13,7 +13,7 @@ import { formatLength, type UnitSystem } from '@/shared/units';
 import { formatCoveredShare } from '@/shared/zone-verdict';
 import type { PlanSelection } from './plan-types';
 
-export interface PlanSheetProps {
+export interface PlanDrawerProps {
   open: boolean;
   onToggle: () => void;
   selection: PlanSelection;
@@ -25,7 +25,7 @@ export interface PlanSheetProps {
 }
 
 /** The collapsed strip's two lines: what is selected, and the numbers a person glances at. */
-export function sheetSummary(p: Pick<PlanSheetProps, 'selection' | 'placement' | 'scene' | 'evaluation' | 'units'>): {
+export function drawerSummary(p: Pick<PlanDrawerProps, 'selection' | 'placement' | 'scene' | 'evaluation' | 'units'>): {
   title: string;
   numbers: string;
 } {
@@ -52,13 +52,13 @@ export function sheetSummary(p: Pick<PlanSheetProps, 'selection' | 'placement' |
   return { title: 'Project summary', numbers: zones || 'No zones yet' };
 }
 
-export function PlanSheet(p: PlanSheetProps) {
+export function PlanDrawer(p: PlanDrawerProps) {
   const { height } = useWindowDimensions();
-  const { title, numbers } = sheetSummary(p);
+  const { title, numbers } = drawerSummary(p);
   return (
-    <View style={[styles.sheet, p.open && { height: Math.round(height * 0.58) }]} testID="plan-sheet">
+    <View style={[styles.drawer, p.open && { height: Math.round(height * 0.58) }]} testID="plan-drawer">
       <Pressable
-        testID="sheet-toggle"
+        testID="drawer-toggle"
         role="button"
         aria-expanded={p.open}
         aria-label={p.open ? 'Show more of the plan' : 'Show details'}
@@ -68,15 +68,15 @@ export function PlanSheet(p: PlanSheetProps) {
         <View style={styles.grip} />
         <View style={styles.stripRow}>
           <View style={styles.stripText}>
-            <AppText variant="label" numberOfLines={1} testID="sheet-title">
+            <AppText variant="label" numberOfLines={1} testID="drawer-title">
               {title}
             </AppText>
-            <AppText variant="small" tone="muted" numberOfLines={p.open ? 2 : 1} testID="sheet-numbers">
+            <AppText variant="small" tone="muted" numberOfLines={p.open ? 2 : 1} testID="drawer-numbers">
               {numbers}
             </AppText>
             {p.open ? null : (
               // The plan shows coverage, so the caution stays in view while the details are folded away.
-              <AppText variant="small" tone="stop" numberOfLines={2} testID="sheet-caution">
+              <AppText variant="small" tone="stop" numberOfLines={2} testID="drawer-caution">
                 Mirrors show things smaller and farther away than they are. Read the cautions under Details.
               </AppText>
             )}
@@ -87,7 +87,7 @@ export function PlanSheet(p: PlanSheetProps) {
         </View>
       </Pressable>
       {p.open ? (
-        <ScrollView style={styles.body} contentContainerStyle={styles.bodyContent} testID="plan-sheet-body">
+        <ScrollView style={styles.body} contentContainerStyle={styles.bodyContent} testID="plan-drawer-body">
           {p.children}
         </ScrollView>
       ) : null}
@@ -96,8 +96,8 @@ export function PlanSheet(p: PlanSheetProps) {
 }
 
 const styles = StyleSheet.create({
-  sheet: {
-    backgroundColor: palette.sheet,
+  drawer: {
+    backgroundColor: palette.card,
     borderTopLeftRadius: radii.lg,
     borderTopRightRadius: radii.lg,
     borderTopWidth: 2,
