@@ -161,15 +161,20 @@ function widthOf(doc: PDFKit.PDFDocument, size: number, chars: readonly Char[]):
 function tokens(chars: readonly Char[]): Char[][] {
   const out: Char[][] = [];
   let cur: Char[] = [];
+  // A combining mark belongs to the character before it: a break allowed after that character is
+  // allowed after its marks instead.
+  let base = '';
   chars.forEach((c, i) => {
     const next = chars[i + 1];
     if (c.ch === '\n') {
       out.push(cur, [c]);
       cur = [];
+      base = '';
       return;
     }
     cur.push(c);
-    const breakAfter = !next || SPACE.test(c.ch) || CJK.test(c.ch) || (next && CJK.test(next.ch) && !SPACE.test(next.ch));
+    if (!MARK.test(c.ch)) base = c.ch;
+    const breakAfter = !next || SPACE.test(base) || CJK.test(base) || (next && CJK.test(next.ch) && !SPACE.test(next.ch));
     if (breakAfter && !(next && MARK.test(next.ch))) {
       out.push(cur);
       cur = [];

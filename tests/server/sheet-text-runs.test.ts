@@ -63,6 +63,13 @@ describe('setting text in any accepted script', () => {
     );
   });
 
+  it('breaks after a CJK character that carries a combining mark, as after a bare one', () => {
+    // Found by the property below: a mark after the CJK character hid the break after it.
+    const lines = layout(doc, 'regular', 9, '\u3400\u0591D\u0606D\u05BE\u0626\u05D7', { width: 40 });
+    expect(lines.length).toBeGreaterThan(1);
+    expect(lines[0].pieces.map((p) => p.text).join('')).toBe('\u3400\u0591');
+  });
+
   it('keeps each line within the width it was given, unless the line is one piece that cannot be broken', () => {
     const CJK = /[\p{Script=Han}\p{Script=Hiragana}\p{Script=Katakana}]/gu;
     fc.assert(
