@@ -2,7 +2,6 @@ import { Formik } from 'formik';
 import { useRef } from 'react';
 import type { TextInput } from 'react-native';
 import * as yup from 'yup';
-import { Notice } from '@/components/ui/notice';
 import { FormFooter } from './form-footer';
 import { FormFrame } from './form-frame';
 import { FormikTextField } from './formik-text-field';
@@ -100,14 +99,9 @@ export function ChangePasswordForm({ onSubmit }: ChangePasswordFormProps) {
               submitLabel="Change password"
               submitTestID="change-password-submit"
               busy={form.isSubmitting}
+              doneTestID="change-password-done"
               onSubmit={() => handleSubmit()}
-            >
-              {status?.done ? (
-                <Notice tone="go" testID="change-password-done">
-                  {status.done}
-                </Notice>
-              ) : null}
-            </FormFooter>
+            />
           </FormFrame>
         );
       }}

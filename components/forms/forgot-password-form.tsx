@@ -1,6 +1,5 @@
 import { Formik } from 'formik';
 import * as yup from 'yup';
-import { Notice } from '@/components/ui/notice';
 import { FormFooter } from './form-footer';
 import { FormFrame } from './form-frame';
 import { FormikTextField } from './formik-text-field';
@@ -57,14 +56,9 @@ export function ForgotPasswordForm({ onSubmit }: ForgotPasswordFormProps) {
               submitLabel="E-mail me a link"
               submitTestID="forgot-password-submit"
               busy={form.isSubmitting}
+              doneTestID="forgot-password-done"
               onSubmit={() => handleSubmit()}
-            >
-              {status?.done ? (
-                <Notice tone="go" testID="forgot-password-done">
-                  {status.done}
-                </Notice>
-              ) : null}
-            </FormFooter>
+            />
           </FormFrame>
         );
       }}

@@ -2,7 +2,7 @@ import { Formik } from 'formik';
 import { useRef } from 'react';
 import { StyleSheet, View, type TextInput } from 'react-native';
 import * as yup from 'yup';
-import { Notice, Segmented, AppText } from '@/components/ui';
+import { Segmented, AppText } from '@/components/ui';
 import { roleOptions, shortRoleLabels } from '@/constants/navigation';
 import { spacing } from '@/constants/theme';
 import type { Role } from '@/shared/schemas';
@@ -114,14 +114,9 @@ export function InviteForm({ onSubmit, sentNote }: InviteFormProps) {
               submitLabel="Send invitation"
               submitTestID="invite-submit"
               busy={form.isSubmitting}
+              doneTestID="invite-sent"
               onSubmit={() => handleSubmit()}
-            >
-              {formStatus?.done ? (
-                <Notice tone="go" testID="invite-sent">
-                  {formStatus.done}
-                </Notice>
-              ) : null}
-            </FormFooter>
+            />
           </FormFrame>
         );
       }}
