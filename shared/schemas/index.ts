@@ -6,3 +6,4 @@ export * from './sheets';
 export * from './limits';
 export * from './criteria';
 export * from './rules';
+export * from './review';
