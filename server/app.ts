@@ -4,14 +4,16 @@
  */
 import fs from 'node:fs';
 import path from 'node:path';
+import { randomUUID } from 'node:crypto';
 import express, { type Express } from 'express';
+import { pinoHttp } from 'pino-http';
 import session from 'express-session';
 import helmet from 'helmet';
 import cors from 'cors';
 import type { AppConfig } from './config';
 import type { Orm } from './db';
 import type { Logger } from './logger';
-import { apiNotFound, errorHandler } from './middleware/errors';
+import { apiNotFound, errorHandler, safePath } from './middleware/errors';
 import { loadUser } from './middleware/auth';
 import { sameOriginOnly } from './middleware/same-origin';
 import { authRoutes } from './modules/auth/auth.routes';
@@ -44,8 +46,13 @@ export interface SightfanApp {
   app: Express;
   /** Delivers queued e-mail from the database; started with the app, stopped by close(). */
   outbox: MailDispatcher;
+  /** Turns readiness off (503 on /api/ready) so a proxy stops sending new work before the stop. */
+  drain(): void;
   close(): void;
 }
+
+/** A request id from the proxy is kept when it looks like one; otherwise a new one is made. */
+const INCOMING_REQUEST_ID = /^[A-Za-z0-9._:-]{8,64}$/;
 
 export const SESSION_COOKIE = 'sightfan.sid';
 const SESSION_DAYS = 14;
@@ -57,6 +64,26 @@ export function createApp(deps: AppDeps): SightfanApp {
   // A hop count, never `true`: with `true` Express takes the left-most X-Forwarded-For entry, which
   // the client writes itself.
   app.set('trust proxy', config.trustProxy);
+
+  // One JSON line per request with its id, method, route, status and time; never headers or bodies.
+  app.use(
+    pinoHttp({
+      logger: log.pino,
+      genReqId: (req, res) => {
+        const incoming = req.headers['x-request-id'];
+        const id = typeof incoming === 'string' && INCOMING_REQUEST_ID.test(incoming) ? incoming : randomUUID();
+        res.setHeader('X-Request-Id', id);
+        return id;
+      },
+      customProps: (req) => ({ reqId: req.id }),
+      customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info'),
+      serializers: {
+        req: (req: { method: string; raw: express.Request }) => ({ method: req.method, path: safePath(req.raw) }),
+        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
+      },
+      autoLogging: { ignore: (req) => req.url === '/api/health' || req.url === '/api/ready' },
+    }),
+  );
 
   app.use(
     helmet({
@@ -87,6 +114,26 @@ export function createApp(deps: AppDeps): SightfanApp {
   // First, before sessions and the database: "is the process up and answering".
   api.get('/health', (_req, res) => {
     res.set('Cache-Control', 'no-store').json({ ok: true });
+  });
+  // "Can this instance take work": the database answers and every migration is applied.
+  let draining = false;
+  api.get('/ready', async (_req, res) => {
+    res.set('Cache-Control', 'no-store');
+    if (draining) {
+      res.status(503).json({ ready: false, error: 'This instance is shutting down.' });
+      return;
+    }
+    try {
+      await orm.em.getConnection().execute('select 1');
+      const pending = await orm.getMigrator().getPendingMigrations();
+      if (pending.length) {
+        res.status(503).json({ ready: false, error: `${pending.length} database migration(s) not applied yet.` });
+        return;
+      }
+      res.json({ ready: true });
+    } catch {
+      res.status(503).json({ ready: false, error: 'The database is not reachable.' });
+    }
   });
   if (config.devOrigins.length) {
     api.use(cors({ origin: config.devOrigins, credentials: true }));
@@ -154,6 +201,9 @@ export function createApp(deps: AppDeps): SightfanApp {
   return {
     app,
     outbox,
+    drain: () => {
+      draining = true;
+    },
     close: () => {
       outbox.stop();
       store.close();

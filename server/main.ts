@@ -36,7 +36,7 @@ export async function startServer(config: AppConfig, log: Logger): Promise<Runni
   }
   const mailer = createMailer({ smtpUrl: config.smtpUrl, fakePort: fake?.port, from: config.mailFrom });
   const sessionSecret = config.sessionSecret ?? demoSessionSecret(config.databasePath);
-  const { app, close } = createApp({ config, orm, mailer, log, sessionSecret });
+  const { app, close, drain } = createApp({ config, orm, mailer, log, sessionSecret });
 
   const server: Server = await new Promise((resolve, reject) => {
     const s = app.listen(config.port, config.host, () => resolve(s));
@@ -54,8 +54,16 @@ export async function startServer(config: AppConfig, log: Logger): Promise<Runni
     async stop() {
       if (stopped) return;
       stopped = true;
+      // Readiness off first, then no new connections; requests already in flight run to the end.
+      drain();
       await new Promise<void>((resolve) => {
-        server.close(() => resolve());
+        // A keep-alive connection goes idle once its last answer is sent: close it then, rather than
+        // waiting out the keep-alive timeout.
+        const idle = setInterval(() => server.closeIdleConnections(), 50);
+        server.close(() => {
+          clearInterval(idle);
+          resolve();
+        });
         server.closeIdleConnections();
       });
       close();

@@ -3,6 +3,7 @@ import { DriverException } from '@mikro-orm/core';
 import { HttpError } from '../http-error';
 import type { Logger } from '../logger';
 import { writeConflict } from '../write-conflicts';
+import { redact } from '../redact';
 
 export const apiNotFound: RequestHandler = (req, _res, next) => {
   next(new HttpError(404, `There is no API route ${req.method} ${safePath(req)}.`));
@@ -61,15 +62,7 @@ export function safePath(req: Request): string {
   return redact(raw).slice(0, 200);
 }
 
-const TOKEN_LIKE = /[A-Za-z0-9_%+/=-]{24,}/g;
-const BCRYPT = /\$2[aby]\$\d\d\$[./A-Za-z0-9]{53}/g;
-const SQL = /\b(select|insert|update|delete|pragma|create|alter|drop)\b[\s\S]*\b(from|into|set|table|where|values)\b/i;
-
-/** Masks secrets a message may carry: bcrypt hashes, session ids and tokens, and whole SQL statements. */
-export function redact(text: string): string {
-  if (SQL.test(text)) return '[SQL statement withheld]';
-  return text.replace(BCRYPT, '[hash]').replace(TOKEN_LIKE, '[redacted]');
-}
+export { redact };
 
 /** What the log may keep of an unexpected error: its kind and where it happened, never data. */
 export function describeForLog(err: unknown): string {
@@ -105,7 +98,8 @@ export function errorHandler(log: Logger): ErrorRequestHandler {
       res.status(known[0]).json({ error: known[1] });
       return;
     }
-    log.error(`${req.method} ${safePath(req)} failed`, describeForLog(err));
+    const reqId = (req as { id?: unknown }).id;
+    (reqId === undefined ? log : log.child({ reqId })).error(`${req.method} ${safePath(req)} failed`, describeForLog(err));
     if (res.headersSent) return;
     res.status(500).json({
       error: 'Sightfan hit an unexpected problem and saved nothing from this request. Try again; if it repeats, tell your administrator.',

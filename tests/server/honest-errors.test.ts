@@ -7,6 +7,7 @@ import express from 'express';
 import fc from 'fast-check';
 import { DriverException } from '@mikro-orm/core';
 import { errorHandler } from '../../server/middleware/errors';
+import { createLogger } from '../../server/logger';
 import request from 'supertest';
 import type TestAgent from 'supertest/lib/agent';
 import { EMAIL, PASSWORD, startHarness, type Harness } from './harness';
@@ -203,13 +204,10 @@ describe('statuses that say what was wrong', () => {
 });
 
 describe('the log of an unexpected failure', () => {
+  /** The real JSON logger, writing into an array instead of stdout. */
   const capture = () => {
     const lines: string[] = [];
-    const log = {
-      info: (m: string) => lines.push(m),
-      warn: (m: string) => lines.push(m),
-      error: (m: string, e?: unknown) => lines.push(`${m} ${String(e)}`),
-    };
+    const log = createLogger(false, { write: (line: string) => void lines.push(line) });
     return { lines, log };
   };
   const token = 'Zq9'.repeat(15);
