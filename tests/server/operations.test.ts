@@ -13,7 +13,10 @@ import { createLogger } from '../../server/logger';
 import { startServer } from '../../server/main';
 import { backupDatabase, restoreDatabase } from '../../server/ops/backup';
 import { initORM } from '../../server/db';
+import type { SessionData } from 'express-session';
 import { Project } from '../../server/modules/projects/project.entity';
+import { OrmSessionStore, TOUCH_GRANULARITY_MS } from '../../server/modules/sessions/orm-session-store';
+import { SessionRecord } from '../../server/modules/sessions/session.entity';
 import { EMAIL, PASSWORD, startHarness, type Harness } from './harness';
 
 let h: Harness;
@@ -173,5 +176,30 @@ describe('backup and restore', () => {
     await expect(restoreDatabase(dir, target)).rejects.toThrow(/manifest says/);
     expect(fs.existsSync(target)).toBe(false);
     fs.rmSync(backupDir, { recursive: true, force: true });
+  });
+});
+
+describe('signed-in reads do not write the session row', () => {
+  const rowExpiry = async (): Promise<number[]> =>
+    (await h.orm.em.fork().find(SessionRecord, {}, { orderBy: { sid: 'asc' } })).map((r) => r.expiresAt.getTime());
+
+  it('leaves the stored expiry alone across many GETs within the hour, and the session still works', async () => {
+    const agent = await h.signedIn(EMAIL.reviewer);
+    const before = await rowExpiry();
+    for (let i = 0; i < 20; i++) expect((await agent.get('/api/projects')).status).toBe(200);
+    expect(await rowExpiry()).toEqual(before);
+  });
+
+  it('moves the stored expiry once it would move by more than the granularity, and not before', async () => {
+    const store = new OrmSessionStore(h.orm);
+    const start = Date.now() + 14 * 24 * 3600_000;
+    const sess = (expires: number) => ({ cookie: { expires: new Date(expires), originalMaxAge: 0 } }) as unknown as SessionData;
+    await new Promise<void>((r, j) => store.set('touch-test', sess(start), (e) => (e ? j(e) : r())));
+    const stored = async () => (await h.orm.em.fork().findOneOrFail(SessionRecord, { sid: 'touch-test' })).expiresAt.getTime();
+    await new Promise<void>((r) => store.touch('touch-test', sess(start + TOUCH_GRANULARITY_MS - 1000), () => r()));
+    expect(await stored()).toBe(start);
+    await new Promise<void>((r) => store.touch('touch-test', sess(start + TOUCH_GRANULARITY_MS + 1000), () => r()));
+    expect(await stored()).toBe(start + TOUCH_GRANULARITY_MS + 1000);
+    store.close();
   });
 });

@@ -4,6 +4,14 @@ import type { Orm } from '../../db';
 import { SessionRecord } from './session.entity';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
+/**
+ * Rolling sessions move their expiry on every request; writing that to the database each time made
+ * every signed-in GET a write (SQLite serialises writers). The row's expiry is written again only
+ * when it would move by more than this, so a 14-day session may end up to an hour early — never late.
+ */
+export const TOUCH_GRANULARITY_MS = 60 * 60 * 1000;
+/** Bounded memory of the expiry last read or written per session id: a cache that only saves writes. */
+const REMEMBERED_EXPIRIES = 10_000;
 
 /**
  * An express-session store over the app's own SQLite file, through the ORM, so sessions survive a
@@ -13,6 +21,13 @@ const DAY_MS = 24 * 60 * 60 * 1000;
  */
 export class OrmSessionStore extends session.Store {
   private pruneTimer?: NodeJS.Timeout;
+  private readonly storedExpiry = new Map<string, number>();
+
+  private remember(sid: string, expiresAt: number): void {
+    this.storedExpiry.delete(sid);
+    this.storedExpiry.set(sid, expiresAt);
+    if (this.storedExpiry.size > REMEMBERED_EXPIRIES) this.storedExpiry.delete(this.storedExpiry.keys().next().value as string);
+  }
 
   constructor(
     private readonly orm: Orm,
@@ -34,6 +49,7 @@ export class OrmSessionStore extends session.Store {
     em.findOne(SessionRecord, { sid })
       .then((row) => {
         if (!row || row.expiresAt.getTime() <= Date.now()) return cb(null, null);
+        this.remember(sid, row.expiresAt.getTime());
         cb(null, JSON.parse(row.data) as SessionData);
       })
       .catch((err) => cb(err));
@@ -41,19 +57,37 @@ export class OrmSessionStore extends session.Store {
 
   override set(sid: string, sess: SessionData, cb?: (err?: unknown) => void): void {
     const em = this.orm.em.fork();
-    em.upsert(SessionRecord, { sid, data: JSON.stringify(sess), userId: sess.userId ?? null, expiresAt: this.expiry(sess) })
-      .then(() => cb?.())
+    const expiresAt = this.expiry(sess);
+    em.upsert(SessionRecord, { sid, data: JSON.stringify(sess), userId: sess.userId ?? null, expiresAt })
+      .then(() => {
+        this.remember(sid, expiresAt.getTime());
+        cb?.();
+      })
       .catch((err) => cb?.(err));
   }
 
+  /** Counts the expiry writes that touch() made (for the tests and the load benchmark). */
+  touchWrites = 0;
+
   override touch(sid: string, sess: SessionData, cb?: () => void): void {
+    const expiresAt = this.expiry(sess);
+    const stored = this.storedExpiry.get(sid);
+    if (stored !== undefined && expiresAt.getTime() - stored < TOUCH_GRANULARITY_MS) {
+      cb?.();
+      return;
+    }
     const em = this.orm.em.fork();
-    em.nativeUpdate(SessionRecord, { sid }, { expiresAt: this.expiry(sess) })
-      .then(() => cb?.())
+    this.touchWrites++;
+    em.nativeUpdate(SessionRecord, { sid }, { expiresAt })
+      .then(() => {
+        this.remember(sid, expiresAt.getTime());
+        cb?.();
+      })
       .catch(() => cb?.());
   }
 
   override destroy(sid: string, cb?: (err?: unknown) => void): void {
+    this.storedExpiry.delete(sid);
     const em = this.orm.em.fork();
     em.nativeDelete(SessionRecord, { sid })
       .then(() => cb?.())
