@@ -4,12 +4,14 @@ import { runPlanBench } from './plan.bench';
 import { runSheetBench } from './sheet.bench';
 import { runVehicleBench } from './vehicle.bench';
 import { runBoundedBench } from './bounded.bench';
+import { runLoadBench } from './load.bench';
 
-const runners: Array<() => Promise<void>> = [runOpticsBench, runVehicleBench, runSheetBench, runBoundedBench, runPlanBench];
+const runners: Array<() => Promise<void>> = [runOpticsBench, runVehicleBench, runSheetBench, runBoundedBench, runPlanBench, runLoadBench];
 
 async function main(): Promise<void> {
   // BENCH_ONLY=walls: the optics engine's wall growth table alone.
   if (process.env.BENCH_ONLY === 'walls') return runOpticsBench();
+  if (process.env.BENCH_ONLY === 'load') return runLoadBench();
   for (const run of runners) await run();
 }
 
