@@ -1,5 +1,6 @@
 /** Masking for anything that may be written to a log. */
-const TOKEN_LIKE = /[A-Za-z0-9_%+/=-]{24,}/g;
+// No "/" in the class: a path such as /api/projects/1/sheet/revisions is not a token.
+const TOKEN_LIKE = /[A-Za-z0-9_%+=-]{24,}/g;
 const BCRYPT = /\$2[aby]\$\d\d\$[./A-Za-z0-9]{53}/g;
 const SQL = /\b(select|insert|update|delete|pragma|create|alter|drop)\b[\s\S]*\b(from|into|set|table|where|values)\b/i;
 

@@ -83,6 +83,7 @@ describe('request ids and structured logs', () => {
     expect(ok.status).toBe(200);
     const list = await agent.get('/api/projects');
     expect(list.status).toBe(200);
+    const sheet = await agent.get('/api/projects/987654/sheet/revisions-unknown');
     built.close();
 
     const records = lines.map(
@@ -91,6 +92,8 @@ describe('request ids and structured logs', () => {
     const forList = records.find((r) => r.reqId === list.headers['x-request-id']);
     expect(forList).toMatchObject({ level: 'info', req: { method: 'GET', path: '/api/projects' }, res: { status: 200 } });
     expect(records.find((r) => r.reqId === wrong.headers['x-request-id'])).toMatchObject({ level: 'warn', res: { status: 401 } });
+    const sheetPath = records.find((r) => r.reqId === sheet.headers['x-request-id'])?.req?.path;
+    expect(sheetPath).toMatch(/^\/api\/projects\//);
     const all = lines.join('\n');
     expect(all).not.toContain(secret);
     expect(all).not.toContain(PASSWORD);
