@@ -1,5 +1,5 @@
 /** What a tap on the plan does with each tool (components/plan/plan-tool-taps.ts), without a renderer. */
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { WALL_HEIGHT_M } from '@/components/plan/plan-edits';
 import { finishZoneSketch, MIN_WALL_LENGTH_M, TAP_SENTENCES, tapWithTool, type TapContext } from '@/components/plan/plan-tool-taps';
 import type { PairM } from '@/components/plan/plan-view';

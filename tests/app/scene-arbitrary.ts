@@ -3,7 +3,7 @@
  * the zod schemas take (items the schema refuses are filtered out, not avoided), with ids unique
  * across the scene. Used by the plan's pure-function tests.
  */
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { CRITERION_LIMITS_RAD, criteriaSettings, scene as sceneSchema, viewer, wall, wallKinds, zone, type Scene } from '@/shared/schemas';
 
 const coord = fc.double({ min: -2000, max: 2000, noNaN: true });

@@ -1,5 +1,5 @@
 /** The plan's scene edits (components/plan/scene-edits.ts), without a renderer. */
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import {
   addViewer,
   addWall,
