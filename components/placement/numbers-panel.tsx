@@ -10,7 +10,7 @@ import { formatCoveredShare } from '@/shared/zone-verdict';
 
 export interface PlacementNumbersPanelProps {
   evaluation: EvaluatedPlacement | null;
-  /** Zone fractions from evaluateProject run with this placement's current (draft) values. */
+  /** Zone fractions from evaluateProject run with this placement's current values, unsaved edits included. */
   zones: readonly EvaluatedZone[];
   scene: Scene;
   units: UnitSystem;

@@ -5,11 +5,13 @@
 import { PlacementEditor } from '@/components/placement/placement-editor';
 import type { PlacementWrites } from '@/hooks/use-placement-writes';
 import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
-import type { CatalogueItemDto, PlacementDto, ProjectDto } from '@/shared/schemas';
+import type { CatalogueItemDto, PlacementDto, ProjectDto, Scene } from '@/shared/schemas';
 import type { UnitSystem } from '@/shared/units';
 
 export interface PlacementEditorSlotProps {
   project: ProjectDto;
+  /** The plan's live scene. */
+  scene: Scene;
   placement: PlacementDto | null;
   writes: PlacementWrites;
   catalogue: readonly CatalogueItemDto[];

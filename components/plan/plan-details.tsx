@@ -48,6 +48,7 @@ export function PlanDetails(p: PlanDetailsProps) {
         <BackToSummary onPress={() => p.onSelect(null)} />
         <PlacementEditorSlot
           project={p.project}
+          scene={p.scene}
           placement={p.placements.find((x) => x.id === sel.id) ?? null}
           writes={p.writes}
           catalogue={p.catalogue}

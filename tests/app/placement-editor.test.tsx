@@ -69,6 +69,7 @@ function Fed({ project: p, onClose }: { project: ProjectDto; onClose?: () => voi
   return (
     <PlacementEditor
       project={p}
+      scene={p.scene}
       placement={live}
       writes={writes}
       evaluation={evaluation}

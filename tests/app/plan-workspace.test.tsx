@@ -1,17 +1,18 @@
 import '@testing-library/jest-dom';
-import { screen } from '@testing-library/react';
+import { fireEvent, screen } from '@testing-library/react';
 import { ProjectWorkspace } from '@/components/plan/project-workspace';
 import { catalogKeys, useCatalogQuery } from '@/hooks/use-catalog';
 import { projectKeys, useProjectQuery } from '@/hooks/use-projects';
 import { sessionKeys } from '@/hooks/use-session';
-import { evaluateProject } from '@/shared/project-optics';
+import { evaluateProject, ProjectEvaluator } from '@/shared/project-optics';
 import type { ProjectDto, UserDto } from '@/shared/schemas';
 import { formatCoveredShare } from '@/shared/zone-verdict';
 import { DEMO_PROJECT } from '../../server/seeders/demo-project';
 import { demoCatalogueDtos, demoPlacementDtos } from './fixtures';
 import { makeTestQueryClient, renderWithQuery } from './render';
 
-jest.mock('@/hooks/api', () => ({ api: {} }));
+// A save never answers here: the tests look at what the screen shows before anything is saved.
+jest.mock('@/hooks/api', () => ({ api: { projects: { updatePlacement: jest.fn(() => new Promise(() => undefined)) } } }));
 // The screen is rendered without a navigator: the tab title and links are not under test here.
 jest.mock('@/components/ui/page-title', () => ({ PageTitle: () => null }));
 jest.mock('@/components/ui/text-link', () => ({ TextLink: ({ label }: { label: string }) => label }));
@@ -103,5 +104,39 @@ describe('the project plan', () => {
     for (const tool of ['mirror', 'viewer', 'zone', 'wall']) expect(screen.queryByTestId(`plan-tool-${tool}`)).toBeNull();
     expect(screen.queryByTestId('plan-delete')).toBeNull();
     expect(screen.queryByTestId('aim-handle')).toBeNull();
+  });
+
+  it('feeds the editor the plan’s live mirror and evaluation: a typed height changes the plan’s zone figures at once, through one evaluator', () => {
+    const project = demoProject(true);
+    const mirror = project.placements[0];
+    const heightM = 4.5;
+    const before = evaluateProject({ scene: project.scene, placements: project.placements, catalogue });
+    const after = evaluateProject({
+      scene: project.scene,
+      placements: project.placements.map((p) => (p.id === mirror.id ? { ...p, heightM } : p)),
+      catalogue,
+    });
+    const figure = (ev: typeof before, zoneId: string) => formatCoveredShare(ev.zones.find((z) => z.zoneId === zoneId)!.fraction);
+    // The check means something only if the new height changes a figure the plan shows.
+    expect(project.scene.zones.some((z) => figure(before, z.id) !== figure(after, z.id))).toBe(true);
+
+    const evaluators = new Set<ProjectEvaluator>();
+    const evaluate = ProjectEvaluator.prototype.evaluate;
+    const spy = jest.spyOn(ProjectEvaluator.prototype, 'evaluate').mockImplementation(function (this: ProjectEvaluator, ...args) {
+      evaluators.add(this);
+      return evaluate.apply(this, args);
+    });
+    try {
+      renderProject(project);
+      // The test window is phone-sized: the details are in the bottom drawer.
+      fireEvent.click(screen.getByTestId('drawer-toggle'));
+      fireEvent.click(screen.getByTestId(`summary-placement-${mirror.id}`));
+      fireEvent.change(screen.getByTestId('placement-height'), { target: { value: `${heightM} m` } });
+
+      for (const zone of project.scene.zones) expect(screen.getByTestId(`zone-pct-${zone.id}`)).toHaveTextContent(figure(after, zone.id));
+      expect(evaluators.size).toBe(1);
+    } finally {
+      spy.mockRestore();
+    }
   });
 });

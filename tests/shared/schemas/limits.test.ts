@@ -30,12 +30,12 @@ describe('the project limits, as the plan tools and the API see them', () => {
       fc.property(
         fc.integer({ min: 0, max: Math.floor(SCENE_LIMITS.zoneCorners / SCENE_LIMITS.cornersPerZone) }),
         fc.integer({ min: 3, max: SCENE_LIMITS.cornersPerZone }),
-        (zones, draftCorners) => {
+        (zones, sketchCorners) => {
           const scene = heavyScene({ walls: 0, zones, cornersPerZone: SCENE_LIMITS.cornersPerZone, viewers: 0, mirrors: 0 });
-          const said = limitProblem('zoneCorner', scene, 0, draftCorners);
-          // The zone the API would get if the tool took one more corner: a round outline of draftCorners + 1 corners.
-          const next = heavyScene({ walls: 0, zones: 1, cornersPerZone: draftCorners + 1, viewers: 0, mirrors: 0 }).zones[0];
-          const withIt = { ...scene, zones: [...scene.zones, { ...next, id: 'draft' }] };
+          const said = limitProblem('zoneCorner', scene, 0, sketchCorners);
+          // The zone the API would get if the tool took one more corner: a round outline of sketchCorners + 1 corners.
+          const next = heavyScene({ walls: 0, zones: 1, cornersPerZone: sketchCorners + 1, viewers: 0, mirrors: 0 }).zones[0];
+          const withIt = { ...scene, zones: [...scene.zones, { ...next, id: 'sketch' }] };
           const refused = refusal(withIt);
           expect(said === null).toBe(refused.length === 0);
           if (said) expect(refused).toContain(said);
