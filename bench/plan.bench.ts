@@ -44,7 +44,7 @@ async function seedProject(base: string): Promise<{ cookie: string; project: Pro
   });
   if (!res.ok) throw new Error(`sign-in answered ${res.status}`);
   const cookie = (res.headers.get('set-cookie') ?? '').split(';')[0];
-  const { items } = await api<{ items: CatalogueItemDto[] }>(base, cookie, 'GET', '/api/catalog');
+  const { items } = await api<{ items: CatalogueItemDto[] }>(base, cookie, 'GET', '/api/catalogue');
   const item = items.find((i) => i.mirror.shape === 'round') ?? items[0];
   const { project } = await api<{ project: ProjectDto }>(base, cookie, 'POST', '/api/projects', {
     name: `Benchmark: ${PLACEMENTS} mirrors (demo)`,

@@ -22,7 +22,7 @@ import { DEFAULT_OUTBOX_OPTIONS, MailDispatcher, type OutboxOptions } from './mo
 import { OrmSessionStore } from './modules/sessions/orm-session-store';
 import { invitationsRoutes } from './modules/users/invitations.routes';
 import { usersRoutes } from './modules/users/users.routes';
-import { catalogRoutes } from './modules/catalog/catalog.routes';
+import { catalogueRoutes } from './modules/catalogue/catalogue.routes';
 import { projectsRoutes } from './modules/projects/projects.routes';
 import { sheetsRoutes } from './modules/sheets/sheets.routes';
 import { createSheetWork, type SheetWork } from './workers/sheet-pool';
@@ -123,7 +123,10 @@ export function createApp(deps: AppDeps): SightfanApp {
   api.use('/invitations', invitationsRoutes(orm, config.bcryptCost, store));
   api.use('/users', usersRoutes({ orm, outbox, store, publicUrl }));
   api.use('/outbox', outboxRoutes(orm, config.demoMode, config.mailFrom));
-  api.use('/catalog', catalogRoutes(orm));
+  const catalogue = catalogueRoutes(orm);
+  api.use('/catalogue', catalogue);
+  // The earlier spelling, kept so old clients and links still work: the same router.
+  api.use('/catalog', catalogue);
   api.use('/projects', projectsRoutes(orm));
   api.use('/projects', sheetsRoutes({ orm, outbox, work }));
   api.use(apiNotFound);

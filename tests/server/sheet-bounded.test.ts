@@ -32,7 +32,7 @@ const AT_LIMITS: HeavyCounts = {
 beforeAll(async () => {
   h = await startHarness();
   installer = await h.signedIn(EMAIL.installer);
-  catalogueItemId = ((await installer.get('/api/catalog')).body.items as CatalogueItemDto[])[0].id;
+  catalogueItemId = ((await installer.get('/api/catalogue')).body.items as CatalogueItemDto[])[0].id;
 });
 afterAll(async () => {
   await h.close();

@@ -12,7 +12,7 @@ import {
 } from '../../../shared/schemas';
 import { mirrorOfSpec, mountProblem } from '../../../shared/project-optics';
 import { resolveUnits } from '../../../shared/units';
-import { mirrorOfModel } from '../catalog/catalog.dto';
+import { mirrorOfModel } from '../catalogue/catalogue.dto';
 import { zodText } from '../../../shared/schemas/zod-rules';
 import { LIMIT_MESSAGES, SCENE_LIMITS } from '../../../shared/schemas/limits';
 import { z } from 'zod';
@@ -21,7 +21,7 @@ import { HttpError, notFound } from '../../http-error';
 import { requireRole, requireUser } from '../../middleware/auth';
 import { parseOr400 } from '../../middleware/validate';
 import type { User } from '../users/user.entity';
-import { MirrorModel } from '../catalog/mirror-model.entity';
+import { MirrorModel } from '../catalogue/mirror-model.entity';
 import { Placement } from './placement.entity';
 import { Project } from './project.entity';
 import { assertCanEdit, canEdit, findVisibleProject, visibleCatalogue, visibleProjects } from './project-access';

@@ -5,7 +5,7 @@ import type { Orm } from '../../db';
 import { HttpError, notFound } from '../../http-error';
 import { requireRole, requireUser } from '../../middleware/auth';
 import { parseOr400 } from '../../middleware/validate';
-import { assignMirror, toCatalogueItemDto } from './catalog.dto';
+import { assignMirror, toCatalogueItemDto } from './catalogue.dto';
 import { MirrorModel } from './mirror-model.entity';
 import { visibleCatalogue } from '../projects/project-access';
 import { onDuplicate, onStaleVersion } from '../../write-conflicts';
@@ -16,7 +16,7 @@ onDuplicate(
 );
 onStaleVersion(MirrorModel, 'catalogue item', async (em, stale) => toCatalogueItemDto(await em.findOneOrFail(MirrorModel, stale.id)));
 
-export function catalogRoutes(orm: Orm): Router {
+export function catalogueRoutes(orm: Orm): Router {
   const r = Router();
 
   r.get('/', requireUser, async (req, res) => {
