@@ -2,7 +2,7 @@ import { Formik } from 'formik';
 import * as yup from 'yup';
 import { FormFooter } from './form-footer';
 import { FormFrame } from './form-frame';
-import { FormikTextField } from './formik-text-field';
+import { EmailField } from './credential-fields';
 import { submitWithServerErrors, type FormStatus } from './server-errors';
 
 export interface ForgotPasswordValues {
@@ -36,17 +36,10 @@ export function ForgotPasswordForm({ onSubmit }: ForgotPasswordFormProps) {
         const status = form.status as FormStatus | undefined;
         return (
           <FormFrame label="Ask for a new password" onSubmit={handleSubmit} testID="forgot-password-form">
-            <FormikTextField
+            <EmailField
               form={form}
               name="email"
-              label="E-mail"
               testID="forgot-password-email"
-              autoComplete="email"
-              textContentType="username"
-              inputMode="email"
-              keyboardType="email-address"
-              autoCapitalize="none"
-              autoCorrect={false}
               enterKeyHint="send"
               onSubmitEditing={() => handleSubmit()}
             />

@@ -9,6 +9,7 @@ import type { Role } from '@/shared/schemas';
 import { emailRule, personNameRule, ROLE_MESSAGE } from '@/shared/schemas/rules';
 import { FormFooter } from './form-footer';
 import { FormFrame } from './form-frame';
+import { EmailField } from './credential-fields';
 import { FormikTextField } from './formik-text-field';
 import { fieldMessage, submitWithServerErrors, type FormStatus } from './server-errors';
 import { yupText } from './yup-rules';
@@ -62,16 +63,12 @@ export function InviteForm({ onSubmit, sentNote }: InviteFormProps) {
         const roleError = fieldMessage(form, 'role');
         return (
           <FormFrame label="Invite someone" onSubmit={handleSubmit} testID="invite-form">
-            <FormikTextField
+            <EmailField
               form={form}
               name="email"
               label="Their e-mail"
+              someoneElses
               testID="invite-email"
-              autoComplete="off"
-              inputMode="email"
-              keyboardType="email-address"
-              autoCapitalize="none"
-              autoCorrect={false}
               enterKeyHint="next"
               submitBehavior="submit"
               onSubmitEditing={() => nameRef.current?.focus()}

@@ -8,6 +8,7 @@ import { validateYupSchema, yupToFormErrors } from 'formik';
 import { ValidationError, type AnyObject, type ObjectSchema } from 'yup';
 import type { z } from 'zod';
 import { bodyOf, catalogueSchema, FORM_FIELDS, SERVER_TO_FORM, type CatalogueFormValues } from '@/components/catalogue/catalogue-form';
+import { changePasswordSchema, type ChangePasswordValues } from '@/components/forms/change-password-form';
 import { inviteBodyOf, inviteSchema, type InviteValues } from '@/components/forms/invite-form';
 import { setPasswordSchema, type SetPasswordValues } from '@/components/forms/set-password-form';
 import { signInSchema, type SignInValues } from '@/components/forms/sign-in-form';
@@ -15,6 +16,7 @@ import { projectSchema, toCreateBody, type ProjectFormValues } from '@/component
 import { sheetEmailBodyOf, sheetEmailSchema, type SheetEmailValues } from '@/components/sheet/sheet-actions';
 import {
   acceptInvitationBody,
+  changePasswordBody,
   createCatalogueItemBody,
   createProjectBody,
   fieldErrors,
@@ -124,6 +126,7 @@ describe('each form refuses what its route refuses, with the same sentence per f
     const password = fc.oneof(
       fc.string({ maxLength: 80 }),
       fc.string({ minLength: 8, maxLength: 12 }),
+      fc.string({ minLength: 198, maxLength: 202 }),
       fc.constantFrom('', ' '.repeat(10)),
     );
     const arb = fc.oneof(
@@ -135,6 +138,25 @@ describe('each form refuses what its route refuses, with the same sentence per f
       (v) => formErrors(setPasswordSchema, v),
       (v) => routeErrors(acceptInvitationBody, { token: 'x'.repeat(43), ...v }),
       ['password', 'confirm'],
+    );
+  });
+
+  it('change-password form and POST /auth/password', async () => {
+    const password = fc.oneof(
+      fc.string({ maxLength: 80 }),
+      fc.string({ minLength: 8, maxLength: 12 }),
+      fc.string({ minLength: 198, maxLength: 202 }),
+      fc.constantFrom('', ' '.repeat(10), 'the same long phrase'),
+    );
+    const arb = fc.oneof(
+      fc.record<ChangePasswordValues>({ currentPassword: password, password, confirm: password }),
+      fc.tuple(password, password).map(([currentPassword, p]) => ({ currentPassword, password: p, confirm: p })),
+    );
+    await expectSameVerdicts(
+      arb,
+      (v) => formErrors(changePasswordSchema, v),
+      (v) => routeErrors(changePasswordBody, v),
+      ['currentPassword', 'password', 'confirm'],
     );
   });
 
