@@ -23,7 +23,7 @@ import {
   sizeRule,
   type SizeLimit,
 } from '@/shared/schemas/rules';
-import { formatLength, minorToText, parseMoney, type UnitSystem } from '@/shared/units';
+import { minorToText, parseMoney, type UnitSystem } from '@/shared/units';
 
 type Shape = MirrorSpec['shape'];
 type Portion = 'full' | 'half' | 'quarter';
@@ -329,14 +329,7 @@ export function CatalogueForm({ item, units, submitLabel, onSubmit }: CatalogueF
                 ]}
               />
             </View>
-            <FormFooter
-              status={form.status}
-              errorTestID="catalogue-form-error"
-              submitLabel={submitLabel}
-              submitTestID="catalogue-form-submit"
-              busy={form.isSubmitting}
-              onSubmit={() => handleSubmit()}
-            />
+            <FormFooter form={form} testIDPrefix="catalogue-form" submitLabel={submitLabel} />
           </FormFrame>
         );
       }}

@@ -42,7 +42,6 @@ export function ChangePasswordForm({ onSubmit }: ChangePasswordFormProps) {
     >
       {(form) => {
         const { handleSubmit } = form;
-        const status = form.status as FormStatus | undefined;
         return (
           <FormFrame label="Change your password" onSubmit={handleSubmit} testID="change-password-form">
             <PasswordField
@@ -61,15 +60,7 @@ export function ChangePasswordForm({ onSubmit }: ChangePasswordFormProps) {
               hint="At least 10 characters."
               onDone={() => handleSubmit()}
             />
-            <FormFooter
-              status={status}
-              errorTestID="change-password-error"
-              submitLabel="Change password"
-              submitTestID="change-password-submit"
-              busy={form.isSubmitting}
-              doneTestID="change-password-done"
-              onSubmit={() => handleSubmit()}
-            />
+            <FormFooter form={form} testIDPrefix="change-password" submitLabel="Change password" />
           </FormFrame>
         );
       }}

@@ -33,7 +33,6 @@ export function ForgotPasswordForm({ onSubmit }: ForgotPasswordFormProps) {
     >
       {(form) => {
         const { handleSubmit } = form;
-        const status = form.status as FormStatus | undefined;
         return (
           <FormFrame label="Ask for a new password" onSubmit={handleSubmit} testID="forgot-password-form">
             <EmailField
@@ -43,15 +42,7 @@ export function ForgotPasswordForm({ onSubmit }: ForgotPasswordFormProps) {
               enterKeyHint="send"
               onSubmitEditing={() => handleSubmit()}
             />
-            <FormFooter
-              status={status}
-              errorTestID="forgot-password-error"
-              submitLabel="E-mail me a link"
-              submitTestID="forgot-password-submit"
-              busy={form.isSubmitting}
-              doneTestID="forgot-password-done"
-              onSubmit={() => handleSubmit()}
-            />
+            <FormFooter form={form} testIDPrefix="forgot-password" submitLabel="E-mail me a link" />
           </FormFrame>
         );
       }}

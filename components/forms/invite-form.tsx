@@ -59,7 +59,6 @@ export function InviteForm({ onSubmit, sentNote }: InviteFormProps) {
     >
       {(form) => {
         const { values, handleSubmit, setFieldValue, setFieldTouched } = form;
-        const formStatus = form.status as FormStatus | undefined;
         const roleError = fieldMessage(form, 'role');
         return (
           <FormFrame label="Invite someone" onSubmit={handleSubmit} testID="invite-form">
@@ -105,15 +104,7 @@ export function InviteForm({ onSubmit, sentNote }: InviteFormProps) {
                 </AppText>
               ) : null}
             </View>
-            <FormFooter
-              status={formStatus}
-              errorTestID="invite-error"
-              submitLabel="Send invitation"
-              submitTestID="invite-submit"
-              busy={form.isSubmitting}
-              doneTestID="invite-sent"
-              onSubmit={() => handleSubmit()}
-            />
+            <FormFooter form={form} testIDPrefix="invite" submitLabel="Send invitation" doneTestID="invite-sent" />
           </FormFrame>
         );
       }}

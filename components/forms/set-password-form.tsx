@@ -55,14 +55,7 @@ export function SetPasswordForm({ email, onSubmit }: SetPasswordFormProps) {
               hint="At least 10 characters. A short sentence is easy to remember and hard to guess."
               onDone={() => handleSubmit()}
             />
-            <FormFooter
-              status={form.status}
-              errorTestID="set-password-error"
-              submitLabel="Save password and sign in"
-              submitTestID="set-password-submit"
-              busy={form.isSubmitting}
-              onSubmit={() => handleSubmit()}
-            />
+            <FormFooter form={form} testIDPrefix="set-password" submitLabel="Save password and sign in" />
           </FormFrame>
         );
       }}

@@ -62,14 +62,7 @@ export function SignInForm({ onSubmit }: SignInFormProps) {
               testID="sign-in-password"
               onSubmitEditing={() => handleSubmit()}
             />
-            <FormFooter
-              status={form.status}
-              errorTestID="sign-in-error"
-              submitLabel="Sign in"
-              submitTestID="sign-in-submit"
-              busy={form.isSubmitting}
-              onSubmit={() => handleSubmit()}
-            />
+            <FormFooter form={form} testIDPrefix="sign-in" submitLabel="Sign in" />
           </FormFrame>
         );
       }}
