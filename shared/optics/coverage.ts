@@ -26,6 +26,7 @@ import { traceOutline, visibleOutline, type Outline, type TracedFan } from './tr
 import { checkWalls, wallShadowRing, type Wall } from './walls';
 import { eyeSideShadows } from './eye-side';
 import { wallsInBox } from './wall-index';
+import { OUTLINE_SIMPLIFY_M, SLIVER_AREA_M2 } from '../geometry/tolerance';
 
 export type CoverageInput = {
   mirror: Mirror;
@@ -161,7 +162,7 @@ export function coverage(input: CoverageInput): CoverageResult {
   if (!(arcStep > 0 && arcStep <= Math.PI / 4)) {
     throw new OpticsInputError('arcStepRad', 'The range circle step must be between 0 and 45°.');
   }
-  const simplifyM = input.simplifyM ?? 1e-3;
+  const simplifyM = input.simplifyM ?? OUTLINE_SIMPLIFY_M;
   if (!(simplifyM >= 0 && simplifyM <= 0.1)) {
     throw new OpticsInputError('simplifyM', 'The outline simplification must be between 0 and 0.1 m.');
   }
@@ -195,7 +196,7 @@ export function subtractWalls(p: PreparedCoverage, region: MultiPolygon, walls: 
   for (let j = 0; j < p.fan.count; j++) {
     reach = Math.max(reach, Math.hypot(p.fan.point[3 * j] - v[0], p.fan.point[3 * j + 1] - v[1], p.fan.point[3 * j + 2] - v[2]));
   }
-  const keepArea = (mp: MultiPolygon): MultiPolygon => mp.filter((poly) => polygonArea(poly) > 1e-6);
+  const keepArea = (mp: MultiPolygon): MultiPolygon => mp.filter((poly) => polygonArea(poly) > SLIVER_AREA_M2);
 
   // Eye → mirror leg first: a wall in front of the mirror can hide much of the fan at once.
   const leg = boundsOfPoints([[p.eyeM[0], p.eyeM[1]], ...packedPoints(p.fan.point, p.fan.count, 3)])!;
