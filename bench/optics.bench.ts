@@ -19,17 +19,7 @@ import {
   type Vec3,
   type Wall,
 } from '../shared/optics';
-
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { rng } from '../tests/shared/optics/helpers';
 
 const mirror: Mirror = { shape: 'round', diameterM: 0.8, radiusM: 1.6 };
 const pose = poseFromAim({ vertexM: [0, 0, 3], azimuthRad: 0.3, tiltDownRad: 0.35 });

@@ -11,14 +11,14 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { chromium, type Browser } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { parseConfig } from '../server/config';
 import { createLogger } from '../server/logger';
 import { startServer, type RunningServer } from '../server/main';
 import { DEMO_PASSWORD, DEMO_USERS } from '../server/seeders/demo';
 import { DEMO_PROJECT } from '../server/seeders/demo-project';
 import type { CatalogueItemDto, PlacementDto, ProjectDto } from '../shared/schemas';
-import { WIDE, byTestId, signIn } from '../tests/e2e/browser';
+import { byTestId, launchChromium, signIn, WIDE } from '../tests/e2e/browser';
 
 const PLACEMENTS = 30;
 const STEPS = 20;
@@ -44,7 +44,7 @@ async function seedProject(base: string): Promise<{ cookie: string; project: Pro
   });
   if (!res.ok) throw new Error(`sign-in answered ${res.status}`);
   const cookie = (res.headers.get('set-cookie') ?? '').split(';')[0];
-  const { items } = await api<{ items: CatalogueItemDto[] }>(base, cookie, 'GET', '/api/catalog');
+  const { items } = await api<{ items: CatalogueItemDto[] }>(base, cookie, 'GET', '/api/catalogue');
   const item = items.find((i) => i.mirror.shape === 'round') ?? items[0];
   const { project } = await api<{ project: ProjectDto }>(base, cookie, 'POST', '/api/projects', {
     name: `Benchmark: ${PLACEMENTS} mirrors (demo)`,
@@ -90,18 +90,7 @@ export async function runPlanBench(): Promise<void> {
     server = await startServer({ ...config, distDir }, createLogger(true));
     const base = server.url;
     const { project } = await seedProject(base);
-    browser = await chromium.launch({
-      executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-      args: [
-        '--no-sandbox',
-        '--disable-gpu',
-        '--disable-quic',
-        '--no-first-run',
-        '--disable-background-networking',
-        '--disable-component-update',
-        '--disable-sync',
-      ],
-    });
+    browser = await launchChromium();
     const page = await (await browser.newContext({ viewport: WIDE, deviceScaleFactor: 1 })).newPage();
     const installer = DEMO_USERS.find((u) => u.role === 'installer')!;
     await signIn(page, base, installer.email, DEMO_PASSWORD);

@@ -5,7 +5,7 @@
 import type { Href } from 'expo-router';
 import type { Role } from '@/shared/schemas';
 
-export type NavKey = 'projects' | 'catalog' | 'reviews' | 'users' | 'outbox' | 'account';
+export type NavKey = 'projects' | 'catalogue' | 'reviews' | 'users' | 'outbox' | 'account';
 
 export interface NavItem {
   key: NavKey;
@@ -19,7 +19,7 @@ export const navItems: readonly NavItem[] = [
   // Reviewers read the organisation's projects (read-only); the server enforces what each may change.
   { key: 'projects', label: 'Projects', href: '/projects', roles: ['installer', 'reviewer', 'admin'] },
   // Everyone reads the mirror catalogue; only the admin's screens offer editing.
-  { key: 'catalog', label: 'Catalogue', href: '/catalog', roles: ['installer', 'reviewer', 'admin'] },
+  { key: 'catalogue', label: 'Catalogue', href: '/catalogue', roles: ['installer', 'reviewer', 'admin'] },
   { key: 'reviews', label: 'Reviews', href: '/reviews', roles: ['reviewer'] },
   { key: 'users', label: 'Users', href: '/users', roles: ['admin'] },
   { key: 'outbox', label: 'Outbox', href: '/outbox', roles: ['admin'] },
@@ -28,9 +28,9 @@ export const navItems: readonly NavItem[] = [
 
 /** The order a role's tabs appear in: their daily work first, Account last. */
 const orderByRole: Record<Role, readonly NavKey[]> = {
-  installer: ['projects', 'catalog', 'account'],
-  reviewer: ['reviews', 'projects', 'catalog', 'account'],
-  admin: ['users', 'outbox', 'projects', 'catalog', 'account'],
+  installer: ['projects', 'catalogue', 'account'],
+  reviewer: ['reviews', 'projects', 'catalogue', 'account'],
+  admin: ['users', 'outbox', 'projects', 'catalogue', 'account'],
 };
 
 export function navItemsFor(role: Role): NavItem[] {

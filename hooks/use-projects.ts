@@ -59,17 +59,6 @@ export function useUpdateProjectMutation(id: number) {
   });
 }
 
-export function useDeleteProjectMutation() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (id: number) => api.projects.remove(id),
-    onSuccess: (_v, id) => {
-      qc.removeQueries({ queryKey: projectKeys.detail(id) });
-      void qc.invalidateQueries({ queryKey: [...projectKeys.all, 'list'] });
-    },
-  });
-}
-
 function replacePlacement(project: ProjectDto | undefined, placement: PlacementDto): ProjectDto | undefined {
   if (!project) return project;
   const exists = project.placements.some((p) => p.id === placement.id);

@@ -15,6 +15,7 @@ import type { Orm } from './db';
 import type { Logger } from './logger';
 import { apiNotFound, errorHandler, safePath } from './middleware/errors';
 import { loadUser } from './middleware/auth';
+import { requestContext } from './middleware/request-context';
 import { sameOriginOnly } from './middleware/same-origin';
 import { authRoutes } from './modules/auth/auth.routes';
 import { SignInLimiter, type SignInLimits, DEFAULT_SIGN_IN_LIMITS } from './modules/auth/sign-in-limiter';
@@ -24,7 +25,7 @@ import { DEFAULT_OUTBOX_OPTIONS, MailDispatcher, type OutboxOptions } from './mo
 import { OrmSessionStore } from './modules/sessions/orm-session-store';
 import { invitationsRoutes } from './modules/users/invitations.routes';
 import { usersRoutes } from './modules/users/users.routes';
-import { catalogRoutes } from './modules/catalog/catalog.routes';
+import { catalogueRoutes } from './modules/catalogue/catalogue.routes';
 import { projectsRoutes } from './modules/projects/projects.routes';
 import { sheetsRoutes } from './modules/sheets/sheets.routes';
 import { createSheetWork, type SheetWork } from './workers/sheet-pool';
@@ -158,7 +159,9 @@ export function createApp(deps: AppDeps): SightfanApp {
       },
     }),
   );
-  api.use(loadUser(orm));
+  // One entity manager per request from here on (requestEm()); loadUser's user belongs to it.
+  api.use(requestContext(orm));
+  api.use(loadUser());
   api.use((_req, res, next) => {
     res.set('Cache-Control', 'no-store');
     next();
@@ -166,13 +169,16 @@ export function createApp(deps: AppDeps): SightfanApp {
 
   const publicUrl = (host: string) => config.publicUrl ?? `http://${host}`;
   const limiter = new SignInLimiter(deps.signInLimits ?? DEFAULT_SIGN_IN_LIMITS);
-  api.use('/auth', authRoutes({ orm, limiter, store, outbox, bcryptCost: config.bcryptCost, publicUrl }));
-  api.use('/invitations', invitationsRoutes(orm, config.bcryptCost, store));
-  api.use('/users', usersRoutes({ orm, outbox, store, publicUrl }));
-  api.use('/outbox', outboxRoutes(orm, config.demoMode, config.mailFrom));
-  api.use('/catalog', catalogRoutes(orm));
-  api.use('/projects', projectsRoutes(orm));
-  api.use('/projects', sheetsRoutes({ orm, outbox, work }));
+  api.use('/auth', authRoutes({ limiter, store, outbox, bcryptCost: config.bcryptCost, publicUrl }));
+  api.use('/invitations', invitationsRoutes(config.bcryptCost, store));
+  api.use('/users', usersRoutes({ outbox, store, publicUrl }));
+  api.use('/outbox', outboxRoutes(config.demoMode, config.mailFrom));
+  const catalogue = catalogueRoutes();
+  api.use('/catalogue', catalogue);
+  // The earlier spelling, kept so old clients and links still work: the same router.
+  api.use('/catalog', catalogue);
+  api.use('/projects', projectsRoutes());
+  api.use('/projects', sheetsRoutes({ outbox, work }));
   api.use(apiNotFound);
   app.use('/api', api);
 

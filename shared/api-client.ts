@@ -150,10 +150,10 @@ export function createApiClient(options: ApiClientOptions = {}) {
     outbox: {
       list: () => request<OutboxResponse>('GET', '/outbox'),
     },
-    catalog: {
-      list: () => request<{ items: CatalogueItemDto[] }>('GET', '/catalog'),
-      create: (body: CreateCatalogueItemBody) => request<{ item: CatalogueItemDto }>('POST', '/catalog', body),
-      update: (id: number, body: PatchCatalogueItemBody) => request<{ item: CatalogueItemDto }>('PATCH', `/catalog/${id}`, body),
+    catalogue: {
+      list: () => request<{ items: CatalogueItemDto[] }>('GET', '/catalogue'),
+      create: (body: CreateCatalogueItemBody) => request<{ item: CatalogueItemDto }>('POST', '/catalogue', body),
+      update: (id: number, body: PatchCatalogueItemBody) => request<{ item: CatalogueItemDto }>('PATCH', `/catalogue/${id}`, body),
     },
     projects: {
       list: (params: { q?: string; sort?: 'updated' | 'name' | 'customer' } = {}) => {

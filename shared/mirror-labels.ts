@@ -1,5 +1,5 @@
 /** Names for mirror shapes and dome portions: one copy for the screens and the specification sheet. */
-import type { MirrorSpec } from './schemas/catalog';
+import type { MirrorSpec } from './schemas/catalogue';
 
 type Shape = MirrorSpec['shape'];
 type Portion = Extract<MirrorSpec, { shape: 'dome' }>['portion'];

@@ -4,9 +4,10 @@ import type { TextInput } from 'react-native';
 import * as yup from 'yup';
 import { FormFooter } from './form-footer';
 import { FormFrame } from './form-frame';
-import { FormikTextField } from './formik-text-field';
-import { setPasswordSchema } from './set-password-form';
+import { NewPasswordPair, PasswordField } from './credential-fields';
+import { yupText, yupTextComparedTo } from './yup-rules';
 import { submitWithServerErrors, type FormStatus } from './server-errors';
+import { newPasswordAgainRule, newPasswordRule, oldPasswordRule, PASSWORD_UNCHANGED, PASSWORDS_DIFFER } from '@/shared/schemas/rules';
 
 export interface ChangePasswordValues {
   currentPassword: string;
@@ -14,15 +15,11 @@ export interface ChangePasswordValues {
   confirm: string;
 }
 
-/** The new-password rules are the set-password form's (they mirror the server's `newPassword`). */
-export const changePasswordSchema = setPasswordSchema.shape({
-  currentPassword: yup.string().required('Enter your current password.'),
-  password: yup
-    .string()
-    .required('Choose a password.')
-    .min(10, 'Use at least 10 characters.')
-    .max(72, 'Use at most 72 characters.')
-    .notOneOf([yup.ref('currentPassword')], 'Choose a password different from the current one.'),
+/** The shared rules (shared/schemas/rules.ts), as POST /auth/password checks them. */
+export const changePasswordSchema = yup.object({
+  currentPassword: yupText(oldPasswordRule),
+  password: yupTextComparedTo(newPasswordRule, 'currentPassword', 'different', PASSWORD_UNCHANGED),
+  confirm: yupTextComparedTo(newPasswordAgainRule, 'password', 'same', PASSWORDS_DIFFER),
 });
 
 const initialValues: ChangePasswordValues = { currentPassword: '', password: '', confirm: '' };
@@ -34,7 +31,6 @@ export interface ChangePasswordFormProps {
 
 export function ChangePasswordForm({ onSubmit }: ChangePasswordFormProps) {
   const newRef = useRef<TextInput>(null);
-  const confirmRef = useRef<TextInput>(null);
   return (
     <Formik<ChangePasswordValues>
       initialValues={initialValues}
@@ -46,62 +42,25 @@ export function ChangePasswordForm({ onSubmit }: ChangePasswordFormProps) {
     >
       {(form) => {
         const { handleSubmit } = form;
-        const status = form.status as FormStatus | undefined;
         return (
           <FormFrame label="Change your password" onSubmit={handleSubmit} testID="change-password-form">
-            <FormikTextField
+            <PasswordField
               form={form}
               name="currentPassword"
+              purpose="current"
               label="Current password"
               testID="change-password-current"
-              secureTextEntry
-              autoComplete="current-password"
-              textContentType="password"
-              autoCapitalize="none"
-              autoCorrect={false}
-              enterKeyHint="next"
-              submitBehavior="submit"
-              onSubmitEditing={() => newRef.current?.focus()}
+              next={newRef}
             />
-            <FormikTextField
+            <NewPasswordPair
               form={form}
               inputRef={newRef}
-              name="password"
-              label="New password"
+              testIDs={{ password: 'change-password-new', confirm: 'change-password-confirm' }}
+              labels={{ password: 'New password', confirm: 'Type the new password again' }}
               hint="At least 10 characters."
-              testID="change-password-new"
-              secureTextEntry
-              autoComplete="new-password"
-              textContentType="newPassword"
-              autoCapitalize="none"
-              autoCorrect={false}
-              enterKeyHint="next"
-              submitBehavior="submit"
-              onSubmitEditing={() => confirmRef.current?.focus()}
+              onDone={() => handleSubmit()}
             />
-            <FormikTextField
-              form={form}
-              inputRef={confirmRef}
-              name="confirm"
-              label="Type the new password again"
-              testID="change-password-confirm"
-              secureTextEntry
-              autoComplete="new-password"
-              textContentType="newPassword"
-              autoCapitalize="none"
-              autoCorrect={false}
-              enterKeyHint="go"
-              onSubmitEditing={() => handleSubmit()}
-            />
-            <FormFooter
-              status={status}
-              errorTestID="change-password-error"
-              submitLabel="Change password"
-              submitTestID="change-password-submit"
-              busy={form.isSubmitting}
-              doneTestID="change-password-done"
-              onSubmit={() => handleSubmit()}
-            />
+            <FormFooter form={form} testIDPrefix="change-password" submitLabel="Change password" />
           </FormFrame>
         );
       }}

@@ -2,7 +2,7 @@ import { Formik } from 'formik';
 import * as yup from 'yup';
 import { FormFooter } from './form-footer';
 import { FormFrame } from './form-frame';
-import { FormikTextField } from './formik-text-field';
+import { EmailField } from './credential-fields';
 import { submitWithServerErrors, type FormStatus } from './server-errors';
 
 export interface ForgotPasswordValues {
@@ -33,32 +33,16 @@ export function ForgotPasswordForm({ onSubmit }: ForgotPasswordFormProps) {
     >
       {(form) => {
         const { handleSubmit } = form;
-        const status = form.status as FormStatus | undefined;
         return (
           <FormFrame label="Ask for a new password" onSubmit={handleSubmit} testID="forgot-password-form">
-            <FormikTextField
+            <EmailField
               form={form}
               name="email"
-              label="E-mail"
               testID="forgot-password-email"
-              autoComplete="email"
-              textContentType="username"
-              inputMode="email"
-              keyboardType="email-address"
-              autoCapitalize="none"
-              autoCorrect={false}
               enterKeyHint="send"
               onSubmitEditing={() => handleSubmit()}
             />
-            <FormFooter
-              status={status}
-              errorTestID="forgot-password-error"
-              submitLabel="E-mail me a link"
-              submitTestID="forgot-password-submit"
-              busy={form.isSubmitting}
-              doneTestID="forgot-password-done"
-              onSubmit={() => handleSubmit()}
-            />
+            <FormFooter form={form} testIDPrefix="forgot-password" submitLabel="E-mail me a link" />
           </FormFrame>
         );
       }}

@@ -9,6 +9,7 @@ import type { Role } from '@/shared/schemas';
 import { emailRule, personNameRule, ROLE_MESSAGE } from '@/shared/schemas/rules';
 import { FormFooter } from './form-footer';
 import { FormFrame } from './form-frame';
+import { EmailField } from './credential-fields';
 import { FormikTextField } from './formik-text-field';
 import { fieldMessage, submitWithServerErrors, type FormStatus } from './server-errors';
 import { yupText } from './yup-rules';
@@ -58,20 +59,15 @@ export function InviteForm({ onSubmit, sentNote }: InviteFormProps) {
     >
       {(form) => {
         const { values, handleSubmit, setFieldValue, setFieldTouched } = form;
-        const formStatus = form.status as FormStatus | undefined;
         const roleError = fieldMessage(form, 'role');
         return (
           <FormFrame label="Invite someone" onSubmit={handleSubmit} testID="invite-form">
-            <FormikTextField
+            <EmailField
               form={form}
               name="email"
               label="Their e-mail"
+              someoneElses
               testID="invite-email"
-              autoComplete="off"
-              inputMode="email"
-              keyboardType="email-address"
-              autoCapitalize="none"
-              autoCorrect={false}
               enterKeyHint="next"
               submitBehavior="submit"
               onSubmitEditing={() => nameRef.current?.focus()}
@@ -108,15 +104,7 @@ export function InviteForm({ onSubmit, sentNote }: InviteFormProps) {
                 </AppText>
               ) : null}
             </View>
-            <FormFooter
-              status={formStatus}
-              errorTestID="invite-error"
-              submitLabel="Send invitation"
-              submitTestID="invite-submit"
-              busy={form.isSubmitting}
-              doneTestID="invite-sent"
-              onSubmit={() => handleSubmit()}
-            />
+            <FormFooter form={form} testIDPrefix="invite" submitLabel="Send invitation" doneTestID="invite-sent" />
           </FormFrame>
         );
       }}

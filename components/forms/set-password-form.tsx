@@ -1,13 +1,11 @@
 import { Formik } from 'formik';
-import { useRef } from 'react';
-import type { TextInput } from 'react-native';
 import * as yup from 'yup';
 import { TextField } from '@/components/ui';
 import { FormFooter } from './form-footer';
 import { FormFrame } from './form-frame';
-import { FormikTextField } from './formik-text-field';
+import { NewPasswordPair } from './credential-fields';
 import { submitWithServerErrors } from './server-errors';
-import { yupText } from './yup-rules';
+import { yupText, yupTextComparedTo } from './yup-rules';
 import { newPasswordRule, passwordAgainRule, PASSWORDS_DIFFER } from '@/shared/schemas/rules';
 
 export interface SetPasswordValues {
@@ -18,7 +16,7 @@ export interface SetPasswordValues {
 /** The server's rules (shared/schemas/rules.ts): 10–72 characters, since bcrypt reads at most 72 bytes. */
 export const setPasswordSchema = yup.object({
   password: yupText(newPasswordRule),
-  confirm: yupText(passwordAgainRule).oneOf([yup.ref('password')], PASSWORDS_DIFFER),
+  confirm: yupTextComparedTo(passwordAgainRule, 'password', 'same', PASSWORDS_DIFFER),
 });
 
 export interface SetPasswordFormProps {
@@ -28,7 +26,6 @@ export interface SetPasswordFormProps {
 }
 
 export function SetPasswordForm({ email, onSubmit }: SetPasswordFormProps) {
-  const confirmRef = useRef<TextInput>(null);
   return (
     <Formik<SetPasswordValues>
       initialValues={{ password: '', confirm: '' }}
@@ -52,43 +49,13 @@ export function SetPasswordForm({ email, onSubmit }: SetPasswordFormProps) {
               autoComplete="username"
               textContentType="username"
             />
-            <FormikTextField
+            <NewPasswordPair
               form={form}
-              name="password"
-              label="New password"
+              testIDs={{ password: 'set-password-password', confirm: 'set-password-confirm' }}
               hint="At least 10 characters. A short sentence is easy to remember and hard to guess."
-              testID="set-password-password"
-              secureTextEntry
-              autoComplete="new-password"
-              textContentType="newPassword"
-              autoCapitalize="none"
-              autoCorrect={false}
-              enterKeyHint="next"
-              submitBehavior="submit"
-              onSubmitEditing={() => confirmRef.current?.focus()}
+              onDone={() => handleSubmit()}
             />
-            <FormikTextField
-              form={form}
-              inputRef={confirmRef}
-              name="confirm"
-              label="Type it again"
-              testID="set-password-confirm"
-              secureTextEntry
-              autoComplete="new-password"
-              textContentType="newPassword"
-              autoCapitalize="none"
-              autoCorrect={false}
-              enterKeyHint="go"
-              onSubmitEditing={() => handleSubmit()}
-            />
-            <FormFooter
-              status={form.status}
-              errorTestID="set-password-error"
-              submitLabel="Save password and sign in"
-              submitTestID="set-password-submit"
-              busy={form.isSubmitting}
-              onSubmit={() => handleSubmit()}
-            />
+            <FormFooter form={form} testIDPrefix="set-password" submitLabel="Save password and sign in" />
           </FormFrame>
         );
       }}

@@ -4,7 +4,7 @@ import type { TextInput } from 'react-native';
 import * as yup from 'yup';
 import { FormFooter } from './form-footer';
 import { FormFrame } from './form-frame';
-import { FormikTextField } from './formik-text-field';
+import { EmailField, PasswordField } from './credential-fields';
 import { submitWithServerErrors } from './server-errors';
 import { yupText } from './yup-rules';
 import { currentPasswordRule, emailRule } from '@/shared/schemas/rules';
@@ -42,17 +42,10 @@ export function SignInForm({ onSubmit }: SignInFormProps) {
         const { values, handleSubmit } = form;
         return (
           <FormFrame label="Sign in" onSubmit={handleSubmit} testID="sign-in-form">
-            <FormikTextField
+            <EmailField
               form={form}
               name="email"
-              label="E-mail"
               testID="sign-in-email"
-              autoComplete="email"
-              textContentType="username"
-              inputMode="email"
-              keyboardType="email-address"
-              autoCapitalize="none"
-              autoCorrect={false}
               enterKeyHint="next"
               onSubmitEditing={() => {
                 // Enter in the e-mail field moves on, unless a password manager already filled both.
@@ -61,28 +54,15 @@ export function SignInForm({ onSubmit }: SignInFormProps) {
               }}
               submitBehavior="submit"
             />
-            <FormikTextField
+            <PasswordField
               form={form}
               inputRef={passwordRef}
               name="password"
-              label="Password"
+              purpose="current"
               testID="sign-in-password"
-              secureTextEntry
-              autoComplete="current-password"
-              textContentType="password"
-              autoCapitalize="none"
-              autoCorrect={false}
-              enterKeyHint="go"
               onSubmitEditing={() => handleSubmit()}
             />
-            <FormFooter
-              status={form.status}
-              errorTestID="sign-in-error"
-              submitLabel="Sign in"
-              submitTestID="sign-in-submit"
-              busy={form.isSubmitting}
-              onSubmit={() => handleSubmit()}
-            />
+            <FormFooter form={form} testIDPrefix="sign-in" submitLabel="Sign in" />
           </FormFrame>
         );
       }}

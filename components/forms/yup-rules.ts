@@ -24,6 +24,20 @@ export function yupText(rule: TextRule): yup.StringSchema<string | undefined> {
   return s;
 }
 
+/**
+ * A text field that must be the same as another field (`same`: a password typed again) or differ
+ * from it (a new password and the current one). Checked after the field's own rule, as the route
+ * checks the pair after each field: yup's `oneOf` would run first and hide the rule's sentence.
+ */
+export function yupTextComparedTo(rule: TextRule, other: string, relation: 'same' | 'different', message: string) {
+  return yupText(rule).test('compared', message, function (value) {
+    const theirs: unknown = this.parent?.[other];
+    // Formik hands yup an empty field as undefined (footgun 26): compare them as empty text.
+    const equal = (value ?? '') === (theirs ?? '');
+    return relation === 'same' ? equal : !equal;
+  });
+}
+
 /** A number held as a number (or null while empty); a required rule refuses null. */
 export function yupNumber(rule: NumberRule) {
   return yup

@@ -113,14 +113,7 @@ export function ProjectForm({ onSubmit, myUnits }: ProjectFormProps) {
               />
             </View>
             <FormikTextField form={form} name="notes" label="Notes" testID="project-form-notes" multiline numberOfLines={4} />
-            <FormFooter
-              status={form.status}
-              errorTestID="project-form-error"
-              submitLabel="Create project"
-              submitTestID="project-form-submit"
-              busy={form.isSubmitting}
-              onSubmit={() => handleSubmit()}
-            />
+            <FormFooter form={form} testIDPrefix="project-form" submitLabel="Create project" />
           </FormFrame>
         );
       }}

@@ -33,7 +33,7 @@ export function NavIcon({ name, color, size = 24 }: { name: NavKey; color: strin
           <Path d="M3.5 6 L12 13 L20.5 6" {...stroke} />
         </>
       ) : null}
-      {name === 'catalog' ? (
+      {name === 'catalogue' ? (
         <>
           {/* A convex mirror on its bracket, beside catalogue lines. */}
           <Circle cx={8} cy={10} r={5} {...stroke} />

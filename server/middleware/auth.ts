@@ -1,18 +1,18 @@
 import type { RequestHandler } from 'express';
 import type { Role } from '../../shared/schemas';
-import type { Orm } from '../db';
 import { HttpError } from '../http-error';
 import { User } from '../modules/users/user.entity';
+import { requestEm } from './request-context';
 
 /**
  * Loads the signed-in user on every request, so a disabled account or a changed role takes
  * effect at once rather than when the cookie expires.
  */
-export function loadUser(orm: Orm): RequestHandler {
+export function loadUser(): RequestHandler {
   return async (req, _res, next) => {
     const id = req.session?.userId;
     if (!id) return next();
-    const user = await orm.em.fork().findOne(User, { id }, { populate: ['organization', 'passwordHash'] });
+    const user = await requestEm().findOne(User, { id }, { populate: ['organization', 'passwordHash'] });
     if (!user || user.disabled) {
       await new Promise<void>((resolve) => req.session.destroy(() => resolve()));
       return next();

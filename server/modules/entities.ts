@@ -8,7 +8,7 @@ import { User } from './users/user.entity';
 import { Invitation } from './users/invitation.entity';
 import { SessionRecord } from './sessions/session.entity';
 import { MailMessage } from './mail/mail-message.entity';
-import { MirrorModel } from './catalog/mirror-model.entity';
+import { MirrorModel } from './catalogue/mirror-model.entity';
 import { Project } from './projects/project.entity';
 import { Placement } from './projects/placement.entity';
 import { SheetRevision } from './sheets/sheet-revision.entity';

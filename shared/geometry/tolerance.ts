@@ -21,5 +21,11 @@ export const SOLVER_EPS_RAD = 1e-15;
  */
 export const EYE_MARGIN = 1e-9;
 
-// Still written inline, to move here once their files settle: shared/optics/coverage.ts (1e-3 m
-// outline simplification, 1e-6 m² sliver area), trace.ts (1e-12), walls.ts (1e-12), rank.ts (1e-9).
+/** Coverage outlines are simplified within this (metres) before they are drawn or compared: 1 mm. */
+export const OUTLINE_SIMPLIFY_M = 1e-3;
+
+/** Pieces of a region smaller than this (square metres: 1 mm²) are slivers of a boolean, not area. */
+export const SLIVER_AREA_M2 = 1e-6;
+
+/** Added before flooring a ratio that should be whole, so 0.3/0.1 lands on 3, not 2. */
+export const FLOOR_SLACK = 1e-9;

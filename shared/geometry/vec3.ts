@@ -19,11 +19,6 @@ export function scale(a: Vec3, k: number): Vec3 {
   return [a[0] * k, a[1] * k, a[2] * k];
 }
 
-/** a + k·b */
-export function addScaled(a: Vec3, b: Vec3, k: number): Vec3 {
-  return [a[0] + b[0] * k, a[1] + b[1] * k, a[2] + b[2] * k];
-}
-
 /** Dot product a·b. */
 export function dot(a: Vec3, b: Vec3): number {
   return a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
@@ -63,9 +58,4 @@ export function reflect(i: Vec3, n: Vec3): Vec3 {
 /** Angle between two non-zero vectors in radians, accurate also for nearly parallel vectors. */
 export function angleBetween(a: Vec3, b: Vec3): number {
   return Math.atan2(norm(cross(a, b)), dot(a, b));
-}
-
-/** True when every component is a finite number. */
-export function isFiniteVec3(a: unknown): a is Vec3 {
-  return Array.isArray(a) && a.length === 3 && a.every((c) => typeof c === 'number' && Number.isFinite(c));
 }

@@ -2,18 +2,21 @@ import {
   bbox,
   multiPolygonArea,
   pointInMultiPolygon,
+  pointSegmentDistance,
   polygonArea,
   ringLength,
   segmentsIntersect,
   windingNumber,
   type MultiPolygon,
+  type Pair,
   type Ring,
 } from '../geometry/polygon';
+import { boundsOfPoints, boxesMeet, packedPoints, segmentBounds } from '../geometry/bounds';
+import { clipRingToBox } from '../geometry/clip';
 import { clipOrientedCurvesToDisc } from '../geometry/clip-disc';
 import { simplifyMultiPolygon, simplifyRing } from '../geometry/simplify';
 import { robustDifference } from '../geometry/robust-boolean';
 import type { Vec3 } from '../geometry/vec3';
-import type { Pair } from '../geometry/polygon';
 import { OpticsInputError, requireNonNegative, requirePoint, requirePositive } from './errors';
 import { onPortion, placeMirror, type Mirror, type PlacedMirror } from './mirror';
 import { sphereReflectionPoint } from './alhazen';
@@ -23,6 +26,7 @@ import { traceOutline, visibleOutline, type Outline, type TracedFan } from './tr
 import { checkWalls, wallShadowRing, type Wall } from './walls';
 import { eyeSideShadows } from './eye-side';
 import { wallsInBox } from './wall-index';
+import { OUTLINE_SIMPLIFY_M, SLIVER_AREA_M2 } from '../geometry/tolerance';
 
 export type CoverageInput = {
   mirror: Mirror;
@@ -158,7 +162,7 @@ export function coverage(input: CoverageInput): CoverageResult {
   if (!(arcStep > 0 && arcStep <= Math.PI / 4)) {
     throw new OpticsInputError('arcStepRad', 'The range circle step must be between 0 and 45°.');
   }
-  const simplifyM = input.simplifyM ?? 1e-3;
+  const simplifyM = input.simplifyM ?? OUTLINE_SIMPLIFY_M;
   if (!(simplifyM >= 0 && simplifyM <= 0.1)) {
     throw new OpticsInputError('simplifyM', 'The outline simplification must be between 0 and 0.1 m.');
   }
@@ -192,20 +196,11 @@ export function subtractWalls(p: PreparedCoverage, region: MultiPolygon, walls: 
   for (let j = 0; j < p.fan.count; j++) {
     reach = Math.max(reach, Math.hypot(p.fan.point[3 * j] - v[0], p.fan.point[3 * j + 1] - v[1], p.fan.point[3 * j + 2] - v[2]));
   }
-  const keepArea = (mp: MultiPolygon): MultiPolygon => mp.filter((poly) => polygonArea(poly) > 1e-6);
+  const keepArea = (mp: MultiPolygon): MultiPolygon => mp.filter((poly) => polygonArea(poly) > SLIVER_AREA_M2);
 
   // Eye → mirror leg first: a wall in front of the mirror can hide much of the fan at once.
-  let ex0 = p.eyeM[0];
-  let ey0 = p.eyeM[1];
-  let ex1 = ex0;
-  let ey1 = ey0;
-  for (let j = 0; j < p.fan.count; j++) {
-    ex0 = Math.min(ex0, p.fan.point[3 * j]);
-    ey0 = Math.min(ey0, p.fan.point[3 * j + 1]);
-    ex1 = Math.max(ex1, p.fan.point[3 * j]);
-    ey1 = Math.max(ey1, p.fan.point[3 * j + 1]);
-  }
-  const eyeWalls = wallsInBox(walls, ex0, ey0, ex1, ey1).map((i) => walls[i]);
+  const leg = boundsOfPoints([[p.eyeM[0], p.eyeM[1]], ...packedPoints(p.fan.point, p.fan.count, 3)])!;
+  const eyeWalls = wallsInBox(walls, leg.minX, leg.minY, leg.maxX, leg.maxY).map((i) => walls[i]);
   const eyeShadows = eyeSideShadows(p.pm, p.eyeM, p.fan, eyeWalls, p.h0, p.farM, p.maxRangeM);
   // Slivers left where a shadow's traced edge runs along the region's own edge enclose no
   // meaningful area (below one square millimetre); drop them.
@@ -221,33 +216,29 @@ export function subtractWalls(p: PreparedCoverage, region: MultiPolygon, walls: 
     Math.max(maxX, v[0] + reach),
     Math.max(maxY, v[1] + reach),
   )
-    .map((i) => ({ w: walls[i], d: segmentDistance(v[0], v[1], walls[i]) }))
+    .map((i) => ({ w: walls[i], d: pointSegmentDistance([v[0], v[1]], walls[i].aM, walls[i].bM) }))
     .filter((c) => c.w.heightM > p.h0 && c.d < p.maxRangeM)
     .sort((a, b) => a.d - b.d);
   for (let k = 0; k < candidates.length && region.length > 0; k += WALL_BATCH) {
     const shadows: Ring[][] = [];
     for (const { w } of candidates.slice(k, k + WALL_BATCH)) {
       // Still able to stand between the mirror and what is left of the region?
-      const bx0 = Math.min(minX, v[0] - reach);
-      const by0 = Math.min(minY, v[1] - reach);
-      const bx1 = Math.max(maxX, v[0] + reach);
-      const by1 = Math.max(maxY, v[1] + reach);
-      if (
-        Math.max(w.aM[0], w.bM[0]) < bx0 ||
-        Math.min(w.aM[0], w.bM[0]) > bx1 ||
-        Math.max(w.aM[1], w.bM[1]) < by0 ||
-        Math.min(w.aM[1], w.bM[1]) > by1
-      )
-        continue;
+      const reachBox = {
+        minX: Math.min(minX, v[0] - reach),
+        minY: Math.min(minY, v[1] - reach),
+        maxX: Math.max(maxX, v[0] + reach),
+        maxY: Math.max(maxY, v[1] + reach),
+      };
+      if (!boxesMeet(segmentBounds(w.aM, w.bM), reachBox)) continue;
       const bound = shadowBound(w, v, reach, p.farM);
       if (bound) {
-        const cut = clipToBox(bound, minX, minY, maxX, maxY);
+        const cut = clipRingToBox(bound, minX, minY, maxX, maxY);
         if (cut.length < 4 || !overlaps(region, cut)) continue;
       }
       const ring = wallShadowRing(p.pm, p.eyeM, w, p.h0, p.farM, tolM);
       if (!ring) continue;
       // Cut to the region's box; a shadow that misses the region costs the grid sweep little.
-      const cut = clipToBox(ring, minX - 0.01, minY - 0.01, maxX + 0.01, maxY + 0.01);
+      const cut = clipRingToBox(ring, minX - 0.01, minY - 0.01, maxX + 0.01, maxY + 0.01);
       if (cut.length >= 4) shadows.push([simplifyRing(cut, tolM / 5)]);
     }
     if (shadows.length === 0) continue;
@@ -274,7 +265,7 @@ export function shadowBound(w: Wall, v: Vec3, reach: number, farM: number): Ring
   const by = B[1] - v[1];
   const la = Math.hypot(ax, ay);
   const lb = Math.hypot(bx, by);
-  if (la <= reach * 1.5 || lb <= reach * 1.5 || segmentDistance(v[0], v[1], w) <= reach * 1.5) return null;
+  if (la <= reach * 1.5 || lb <= reach * 1.5 || pointSegmentDistance([v[0], v[1]], w.aM, w.bM) <= reach * 1.5) return null;
   // Outward: away from the other end, seen from V.
   const side = ax * by - ay * bx >= 0 ? 1 : -1; // sign of the turn from A to B about V
   const da = -side * Math.asin(reach / la);
@@ -296,53 +287,12 @@ export function shadowBound(w: Wall, v: Vec3, reach: number, farM: number): Ring
 }
 
 /**
- * A shadow ring cut to a box around the region (Sutherland–Hodgman against the four sides):
- * nothing outside the box can change the difference, and the long far edges of shadows would
- * otherwise cross each other many times in the boolean sweep.
- */
-export function clipToBox(ring: Ring, x0: number, y0: number, x1: number, y1: number): Ring {
-  let pts: Ring = ring.slice(0, ringLength(ring));
-  const sides: [number, number, number][] = [
-    [1, 0, -x0],
-    [-1, 0, x1],
-    [0, 1, -y0],
-    [0, -1, y1],
-  ];
-  for (const [a, b, c] of sides) {
-    const out: Ring = [];
-    for (let i = 0; i < pts.length; i++) {
-      const p = pts[i];
-      const q = pts[(i + 1) % pts.length];
-      const fp = a * p[0] + b * p[1] + c;
-      const fq = a * q[0] + b * q[1] + c;
-      if (fp >= 0) out.push(p);
-      if (fp >= 0 !== fq >= 0) {
-        const t = fp / (fp - fq);
-        out.push([p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1])]);
-      }
-    }
-    pts = out;
-    if (pts.length === 0) break;
-  }
-  if (pts.length > 0) pts.push([pts[0][0], pts[0][1]]);
-  return pts;
-}
-
-/**
  * Exact test that a ring and a region share some area or boundary: an edge crossing, or one
  * inside the other. Used only to skip boolean work that could not change the result.
  */
 export function overlaps(region: MultiPolygon, ring: Ring): boolean {
-  let x0 = Infinity;
-  let y0 = Infinity;
-  let x1 = -Infinity;
-  let y1 = -Infinity;
-  for (const q of ring) {
-    if (q[0] < x0) x0 = q[0];
-    if (q[1] < y0) y0 = q[1];
-    if (q[0] > x1) x1 = q[0];
-    if (q[1] > y1) y1 = q[1];
-  }
+  const box = boundsOfPoints(ring);
+  if (!box) return false;
   const nr = ringLength(ring);
   for (const poly of region) {
     for (const rr of poly) {
@@ -350,21 +300,11 @@ export function overlaps(region: MultiPolygon, ring: Ring): boolean {
       for (let i = 0; i < n; i++) {
         const a = rr[i];
         const b = rr[(i + 1) % n];
-        if (Math.max(a[0], b[0]) < x0 || Math.min(a[0], b[0]) > x1 || Math.max(a[1], b[1]) < y0 || Math.min(a[1], b[1]) > y1) continue;
+        if (!boxesMeet(segmentBounds(a, b), box)) continue;
         for (let j = 0; j < nr; j++) if (segmentsIntersect(a, b, ring[j], ring[(j + 1) % nr])) return true;
       }
     }
     if (poly.length > 0 && windingNumber(ring, poly[0][0]) !== 0) return true;
   }
   return ring.length > 0 && pointInMultiPolygon(region, ring[0]);
-}
-
-function segmentDistance(px: number, py: number, w: Wall): number {
-  const ax = w.aM[0];
-  const ay = w.aM[1];
-  const dx = w.bM[0] - ax;
-  const dy = w.bM[1] - ay;
-  const l2 = dx * dx + dy * dy;
-  const t = Math.max(0, Math.min(1, ((px - ax) * dx + (py - ay) * dy) / l2));
-  return Math.hypot(px - ax - t * dx, py - ay - t * dy);
 }

@@ -1,4 +1,5 @@
 import { LENGTH_EPS_M } from '../geometry/tolerance';
+import { boundsOfPoints, boxesMeet, packedPoints, segmentBounds } from '../geometry/bounds';
 import { clipToSlab } from '../geometry/clip';
 import { robustIntersection } from '../geometry/robust-boolean';
 import { clipOrientedCurvesToDisc } from '../geometry/clip-disc';
@@ -50,10 +51,6 @@ export function eyeSideShadows(
   // Outline of the mirror in the image plane, and its nearest depth.
   const outline: Ring = [];
   let zmin = d0l;
-  let minX = Infinity;
-  let minY = Infinity;
-  let maxX = -Infinity;
-  let maxY = -Infinity;
   for (let j = 0; j < fan.count; j++) {
     const px = fan.point[3 * j];
     const py = fan.point[3 * j + 1];
@@ -66,30 +63,18 @@ export function eyeSideShadows(
       ((px - E[0]) * e2[0] + (py - E[1]) * e2[1] + (pz - E[2]) * e2[2]) / z,
     ];
     outline.push(g);
-    minX = Math.min(minX, g[0]);
-    minY = Math.min(minY, g[1]);
-    maxX = Math.max(maxX, g[0]);
-    maxY = Math.max(maxY, g[1]);
   }
+  const image = boundsOfPoints(outline)!;
   const back: Vec3 = [-d0[0], -d0[1], -d0[2]];
   const eC: Vec3 = [E[0] - pm.C[0], E[1] - pm.C[1], E[2] - pm.C[2]];
   if (onPortion(pm, back) && dot(back, eC) > pm.R) {
     zmin = Math.min(zmin, depth(pm.C[0] - pm.R * d0[0], pm.C[1] - pm.R * d0[1], pm.C[2] - pm.R * d0[2]));
   }
   outline.push([outline[0][0], outline[0][1]]);
-  const step = Math.hypot(maxX - minX, maxY - minY) / 64;
+  const step = Math.hypot(image.maxX - image.minX, image.maxY - image.minY) / 64;
 
   // A wall can stand between the eye and the mirror only if it meets the plan box of both.
-  let bx0 = E[0];
-  let by0 = E[1];
-  let bx1 = E[0];
-  let by1 = E[1];
-  for (let j = 0; j < fan.count; j++) {
-    bx0 = Math.min(bx0, fan.point[3 * j]);
-    by0 = Math.min(by0, fan.point[3 * j + 1]);
-    bx1 = Math.max(bx1, fan.point[3 * j]);
-    by1 = Math.max(by1, fan.point[3 * j + 1]);
-  }
+  const legBox = boundsOfPoints([[E[0], E[1]], ...packedPoints(fan.point, fan.count, 3)])!;
   const V2 = pm.pose.vertexM;
   const disc = { cx: V2[0], cy: V2[1], r: maxRangeM + 0.1 };
   // Chords of the shadow's circle stay within 5 cm of it, so outside the region's own circle.
@@ -97,14 +82,7 @@ export function eyeSideShadows(
   const sphereDir = (x: number, y: number): Vec3 => sphereDirection(pm, E, d0, e1, e2, x, y);
   const out: Polygon[] = [];
   for (const w of walls) {
-    if (
-      Math.max(w.aM[0], w.bM[0]) < bx0 ||
-      Math.min(w.aM[0], w.bM[0]) > bx1 ||
-      Math.max(w.aM[1], w.bM[1]) < by0 ||
-      Math.min(w.aM[1], w.bM[1]) > by1
-    ) {
-      continue;
-    }
+    if (!boxesMeet(segmentBounds(w.aM, w.bM), legBox)) continue;
     const quad: Vec3[] = [
       [w.aM[0], w.aM[1], 0],
       [w.bM[0], w.bM[1], 0],
@@ -120,17 +98,7 @@ export function eyeSideShadows(
         ((p[0] - E[0]) * e2[0] + (p[1] - E[1]) * e2[1] + (p[2] - E[2]) * e2[2]) / z,
       ];
     });
-    let ix0 = Infinity;
-    let iy0 = Infinity;
-    let ix1 = -Infinity;
-    let iy1 = -Infinity;
-    for (const q of img) {
-      ix0 = Math.min(ix0, q[0]);
-      iy0 = Math.min(iy0, q[1]);
-      ix1 = Math.max(ix1, q[0]);
-      iy1 = Math.max(iy1, q[1]);
-    }
-    if (ix0 > maxX || ix1 < minX || iy0 > maxY || iy1 < minY) continue;
+    if (!boxesMeet(boundsOfPoints(img)!, image)) continue;
     img.push([img[0][0], img[0][1]]);
     const hidden = robustIntersection([outline], [img]);
     for (const poly of hidden) {
@@ -227,29 +195,6 @@ function imageLoop(
     gy,
     run,
   };
-}
-
-/** Sutherland–Hodgman clip of a 3-D polygon to lo ≤ f(p) ≤ hi for an affine f. */
-function clipSlab(poly: Vec3[], f: (p: Vec3) => number, lo: number, hi: number): Vec3[] {
-  const half = (pts: Vec3[], g: (p: Vec3) => number): Vec3[] => {
-    const res: Vec3[] = [];
-    for (let i = 0; i < pts.length; i++) {
-      const p = pts[i];
-      const q = pts[(i + 1) % pts.length];
-      const gp = g(p);
-      const gq = g(q);
-      if (gp >= 0) res.push(p);
-      if (gp >= 0 !== gq >= 0) {
-        const t = gp / (gp - gq);
-        res.push([p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1]), p[2] + t * (q[2] - p[2])]);
-      }
-    }
-    return res;
-  };
-  return half(
-    half(poly, (p) => f(p) - lo),
-    (p) => hi - f(p),
-  );
 }
 
 /** Unit direction from the sphere's centre of the point where the eye ray of image-plane point (x, y) meets the sphere (the tangent point for a ray that just misses it). */

@@ -1,5 +1,5 @@
 import { EYE_MARGIN, REL_EPS } from '../geometry/tolerance';
-import { add, dot, norm, scale, sub, type Vec3 } from '../geometry/vec3';
+import { dot, norm, scale, sub, type Vec3 } from '../geometry/vec3';
 import { OpticsInputError, requirePositive } from './errors';
 import { checkPose, frameOf, type Frame, type Pose } from './pose';
 
@@ -200,9 +200,4 @@ export function checkEye(pm: PlacedMirror, eyeM: Vec3, field = 'eyeM'): Vec3 {
     }
   }
   return m;
-}
-
-/** Point C + R·m. */
-export function pointOnSphere(pm: PlacedMirror, m: Vec3): Vec3 {
-  return add(pm.C, scale(m, pm.R));
 }

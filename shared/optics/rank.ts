@@ -8,6 +8,7 @@ import { recognisableRange } from './paraxial';
 import { poseFromAim, type Pose } from './pose';
 import type { Wall } from './walls';
 import { checkZone, zoneCoverage } from './zones';
+import { FLOOR_SLACK } from '../geometry/tolerance';
 
 export type CatalogueItem = { id: string; name?: string; mirror: Mirror; cost: number };
 export type MountPoint = { id: string; vertexM: Vec3 };
@@ -172,7 +173,7 @@ export function rankOptions(input: RankInput): RankedOption[] {
     }
   }
   const key = (c: { fraction: number; rangeKey: number; item: CatalogueItem }) => [
-    Math.floor(c.fraction / step + 1e-9),
+    Math.floor(c.fraction / step + FLOOR_SLACK),
     c.rangeKey,
     -c.item.cost,
     c.fraction,

@@ -1,5 +1,6 @@
 import { dot, norm, sub, type Vec3 } from '../geometry/vec3';
 import { checkEye, type Constraint, type PlacedMirror } from './mirror';
+import { REL_EPS } from '../geometry/tolerance';
 
 /**
  * Forward ray tracing from the eye over the visible outline of a mirror.
@@ -170,7 +171,7 @@ function corners(cons: Constraint[]): Vec3[] {
       const b = cons[j];
       const G = dot(a.k, b.k);
       const den = 1 - G * G;
-      if (den < 1e-12) continue;
+      if (den < REL_EPS) continue;
       const al = (a.c - G * b.c) / den;
       const be = (b.c - G * a.c) / den;
       const base: Vec3 = [al * a.k[0] + be * b.k[0], al * a.k[1] + be * b.k[1], al * a.k[2] + be * b.k[2]];
@@ -182,7 +183,7 @@ function corners(cons: Constraint[]): Vec3[] {
         const p: Vec3 = [base[0] + s * g * cx[0], base[1] + s * g * cx[1], base[2] + s * g * cx[2]];
         let ok = true;
         for (let q = 0; q < cons.length && ok; q++) {
-          if (q !== i && q !== j && dot(p, cons[q].k) < cons[q].c - 1e-12) ok = false;
+          if (q !== i && q !== j && dot(p, cons[q].k) < cons[q].c - REL_EPS) ok = false;
         }
         if (ok) out.push(p);
       }

@@ -3,6 +3,7 @@ import type { Vec3 } from '../geometry/vec3';
 import { sphereReflectionPoint } from './alhazen';
 import { OpticsInputError } from './errors';
 import type { PlacedMirror } from './mirror';
+import { REL_EPS } from '../geometry/tolerance';
 
 /**
  * A wall, rack or other obstacle: a vertical rectangle standing on the floor (z = 0) over the
@@ -50,7 +51,7 @@ export function wallBlocks(wall: Wall, S: Vec3, T: Vec3): boolean {
   const ay = wall.aM[1] - S[1];
   const s = (ax * ey - ay * ex) / den;
   const t = (ax * dy - ay * dx) / den;
-  if (s <= 1e-12 || s >= 1 - 1e-12 || t < 0 || t > 1) return false;
+  if (s <= REL_EPS || s >= 1 - REL_EPS || t < 0 || t > 1) return false;
   const z = S[2] + s * (T[2] - S[2]);
   return z < wall.heightM;
 }

@@ -1,6 +1,6 @@
 /**
  * Evaluates a project's placements with the optics engine: one function used by the plan, the
- * placement editor and (later) the PDF sheet, so every number comes from the same place.
+ * placement editor and the PDF sheet, so every number comes from the same place.
  * Nothing here re-implements a formula; it only assembles engine inputs from a project.
  */
 import {

@@ -1,6 +1,13 @@
 import { z } from 'zod';
 import { email, newPassword, personName, role, unitSystem } from './common';
-import { currentPasswordRule, passwordAgainRule, PASSWORDS_DIFFER } from './rules';
+import {
+  currentPasswordRule,
+  newPasswordAgainRule,
+  oldPasswordRule,
+  passwordAgainRule,
+  PASSWORD_UNCHANGED,
+  PASSWORDS_DIFFER,
+} from './rules';
 import { zodText } from './zod-rules';
 
 export const signInBody = z.object({
@@ -86,16 +93,13 @@ export type OutboxResponse = z.infer<typeof outboxResponse>;
 /** Signed in: a new password, with the current one as proof. */
 export const changePasswordBody = z
   .object({
-    currentPassword: z
-      .string({ message: 'Enter your current password.' })
-      .min(1, 'Enter your current password.')
-      .max(200, 'That password is too long.'),
+    currentPassword: zodText(oldPasswordRule),
     password: newPassword,
-    confirm: z.string({ message: 'Type the new password again.' }),
+    confirm: zodText(newPasswordAgainRule),
   })
   .strict()
-  .refine((b) => b.password === b.confirm, { message: 'The two passwords are not the same.', path: ['confirm'] })
-  .refine((b) => b.password !== b.currentPassword, { message: 'Choose a password different from the current one.', path: ['password'] });
+  .refine((b) => b.password === b.confirm, { message: PASSWORDS_DIFFER, path: ['confirm'] })
+  .refine((b) => b.password !== b.currentPassword, { message: PASSWORD_UNCHANGED, path: ['password'] });
 export type ChangePasswordBody = z.infer<typeof changePasswordBody>;
 
 /** Signed out: ask for a one-time link to choose a new password. */

@@ -1,6 +1,6 @@
 export * from './common';
 export * from './auth';
-export * from './catalog';
+export * from './catalogue';
 export * from './projects';
 export * from './sheets';
 export * from './limits';

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { unitSystem } from './common';
-import { checkedMirrorSpec } from './catalog';
+import { checkedMirrorSpec } from './catalogue';
 import { isSimpleRing } from '../geometry/polygon';
 import { LIMIT_MESSAGES, PLACEMENT_LIMITS, SCENE_LIMITS } from './limits';
 import { criteriaSettings, criterionKind } from './criteria';

@@ -129,6 +129,12 @@ export const currentPasswordRule: TextRule = {
   maxLength: { value: 200, message: 'That password is too long.' },
 };
 
+/** The current password typed to change it: as at sign-in, asked for in other words. */
+export const oldPasswordRule: TextRule = { ...currentPasswordRule, required: 'Enter your current password.' };
+/** The new password typed again when changing it. */
+export const newPasswordAgainRule: TextRule = { ...passwordAgainRule, required: 'Type the new password again.' };
+export const PASSWORD_UNCHANGED = 'Choose a password different from the current one.';
+
 export const ROLE_MESSAGE = 'Choose a role: installer, reviewer or admin.';
 export const UNITS_MESSAGE = 'Choose metric or imperial units.';
 

@@ -7,7 +7,8 @@ import fc from 'fast-check';
 import { validateYupSchema, yupToFormErrors } from 'formik';
 import { ValidationError, type AnyObject, type ObjectSchema } from 'yup';
 import type { z } from 'zod';
-import { bodyOf, catalogSchema, FORM_FIELDS, SERVER_TO_FORM, type CatalogFormValues } from '@/components/catalog/catalog-form';
+import { bodyOf, catalogueSchema, FORM_FIELDS, SERVER_TO_FORM, type CatalogueFormValues } from '@/components/catalogue/catalogue-form';
+import { changePasswordSchema, type ChangePasswordValues } from '@/components/forms/change-password-form';
 import { inviteBodyOf, inviteSchema, type InviteValues } from '@/components/forms/invite-form';
 import { setPasswordSchema, type SetPasswordValues } from '@/components/forms/set-password-form';
 import { signInSchema, type SignInValues } from '@/components/forms/sign-in-form';
@@ -15,6 +16,7 @@ import { projectSchema, toCreateBody, type ProjectFormValues } from '@/component
 import { sheetEmailBodyOf, sheetEmailSchema, type SheetEmailValues } from '@/components/sheet/sheet-actions';
 import {
   acceptInvitationBody,
+  changePasswordBody,
   createCatalogueItemBody,
   createProjectBody,
   fieldErrors,
@@ -124,6 +126,7 @@ describe('each form refuses what its route refuses, with the same sentence per f
     const password = fc.oneof(
       fc.string({ maxLength: 80 }),
       fc.string({ minLength: 8, maxLength: 12 }),
+      fc.string({ minLength: 198, maxLength: 202 }),
       fc.constantFrom('', ' '.repeat(10)),
     );
     const arb = fc.oneof(
@@ -135,6 +138,25 @@ describe('each form refuses what its route refuses, with the same sentence per f
       (v) => formErrors(setPasswordSchema, v),
       (v) => routeErrors(acceptInvitationBody, { token: 'x'.repeat(43), ...v }),
       ['password', 'confirm'],
+    );
+  });
+
+  it('change-password form and POST /auth/password', async () => {
+    const password = fc.oneof(
+      fc.string({ maxLength: 80 }),
+      fc.string({ minLength: 8, maxLength: 12 }),
+      fc.string({ minLength: 198, maxLength: 202 }),
+      fc.constantFrom('', ' '.repeat(10), 'the same long phrase'),
+    );
+    const arb = fc.oneof(
+      fc.record<ChangePasswordValues>({ currentPassword: password, password, confirm: password }),
+      fc.tuple(password, password).map(([currentPassword, p]) => ({ currentPassword, password: p, confirm: p })),
+    );
+    await expectSameVerdicts(
+      arb,
+      (v) => formErrors(changePasswordSchema, v),
+      (v) => routeErrors(changePasswordBody, v),
+      ['currentPassword', 'password', 'confirm'],
     );
   });
 
@@ -167,7 +189,7 @@ describe('each form refuses what its route refuses, with the same sentence per f
     );
   });
 
-  it('catalogue form (metric) and POST /catalog', async () => {
+  it('catalogue form (metric) and POST /catalogue', async () => {
     // Every field the form shows except the switch the route does not take on create.
     const CATALOGUE_FIELDS = FORM_FIELDS.filter((f) => f !== 'active');
     const limits = Object.values(MIRROR_SIZES).flatMap((s) => [s.minM, s.maxM]);
@@ -186,7 +208,7 @@ describe('each form refuses what its route refuses, with the same sentence per f
       );
     const currency = fc.oneof(fc.constantFrom('EUR', 'usd', ' jpy ', 'GBP', 'EU', 'EURO', '', 'E1R'), fc.string({ maxLength: 4 }));
     const arb = fc
-      .record<Omit<CatalogFormValues, 'price'>>({
+      .record<Omit<CatalogueFormValues, 'price'>>({
         code: textFor(catalogueRules.code),
         name: textFor(catalogueRules.name),
         shape: fc.constantFrom('round', 'rect', 'dome'),
@@ -212,7 +234,7 @@ describe('each form refuses what its route refuses, with the same sentence per f
       );
     await expectSameVerdicts(
       arb,
-      (v) => formErrors(catalogSchema('metric'), v),
+      (v) => formErrors(catalogueSchema('metric'), v),
       (v) => routeErrors(createCatalogueItemBody, bodyOf(v), SERVER_TO_FORM),
       CATALOGUE_FIELDS,
       // A price the form cannot read is never sent as text: the form explains the reading, the route refuses the missing number.

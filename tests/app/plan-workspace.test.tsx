@@ -1,7 +1,7 @@
 import '@testing-library/jest-dom';
 import { fireEvent, screen } from '@testing-library/react';
 import { ProjectWorkspace } from '@/components/plan/project-workspace';
-import { catalogKeys, useCatalogQuery } from '@/hooks/use-catalog';
+import { catalogueKeys, useCatalogueQuery } from '@/hooks/use-catalogue';
 import { projectKeys, useProjectQuery } from '@/hooks/use-projects';
 import { sessionKeys } from '@/hooks/use-session';
 import { evaluateProject, ProjectEvaluator } from '@/shared/project-optics';
@@ -60,14 +60,14 @@ const user: UserDto = {
 };
 
 function Screen({ id }: { id: number }) {
-  return <ProjectWorkspace projectId={id} project={useProjectQuery(id)} catalogue={useCatalogQuery()} />;
+  return <ProjectWorkspace projectId={id} project={useProjectQuery(id)} catalogue={useCatalogueQuery()} />;
 }
 
 function renderProject(project: ProjectDto) {
   const client = makeTestQueryClient();
   client.setQueryData(sessionKeys.me(), user);
   client.setQueryData(projectKeys.detail(project.id), project);
-  client.setQueryData(catalogKeys.list(), catalogue);
+  client.setQueryData(catalogueKeys.list(), catalogue);
   return renderWithQuery(<Screen id={project.id} />, client);
 }
 

@@ -3,16 +3,16 @@ import type { Role } from '@/shared/schemas';
 
 describe('navigation with projects and the catalogue', () => {
   it.each<[Role, string[]]>([
-    ['installer', ['projects', 'catalog', 'account']],
-    ['reviewer', ['reviews', 'projects', 'catalog', 'account']],
-    ['admin', ['users', 'outbox', 'projects', 'catalog', 'account']],
+    ['installer', ['projects', 'catalogue', 'account']],
+    ['reviewer', ['reviews', 'projects', 'catalogue', 'account']],
+    ['admin', ['users', 'outbox', 'projects', 'catalogue', 'account']],
   ])('gives the %s the sections %j', (role, keys) => {
     expect(navItemsFor(role).map((item) => item.key)).toEqual(keys);
   });
 
   it.each<Role>(['installer', 'reviewer', 'admin'])('lets the %s open the catalogue and a project', (role) => {
-    expect(mayVisit(role, '/catalog')).toBe(true);
-    expect(mayVisit(role, '/catalog/3')).toBe(true);
+    expect(mayVisit(role, '/catalogue')).toBe(true);
+    expect(mayVisit(role, '/catalogue/3')).toBe(true);
     expect(mayVisit(role, '/projects/42')).toBe(true);
   });
 

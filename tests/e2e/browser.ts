@@ -14,6 +14,22 @@ export const ARTIFACTS = path.resolve(__dirname, 'artifacts');
 export const PHONE = { width: 390, height: 844 };
 export const WIDE = { width: 1440, height: 900 };
 
+/** Debian's Chromium (never a downloaded one), quiet: no sandbox, GPU, QUIC or background traffic. */
+export function launchChromium(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
+  });
+}
+
 export interface Product {
   server: RunningServer;
   browser: Browser;
@@ -35,18 +51,7 @@ export async function startProduct(): Promise<Product> {
     DATABASE_PATH: path.join(dir, 'e2e.sqlite'),
   });
   const server = await startServer(config, createLogger(true));
-  const browser = await chromium.launch({
-    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-    args: [
-      '--no-sandbox',
-      '--disable-gpu',
-      '--disable-quic',
-      '--no-first-run',
-      '--disable-background-networking',
-      '--disable-component-update',
-      '--disable-sync',
-    ],
-  });
+  const browser = await launchChromium();
   return {
     server,
     browser,

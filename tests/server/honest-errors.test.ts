@@ -68,7 +68,7 @@ const corpus = (): Case[] => [
   },
   { name: 'a cut percent-escape in a project id', run: () => installer.get('/api/projects/%E0%A4%A') },
   { name: 'an invalid percent-escape in an invitation token', run: () => request(h.app).get('/api/invitations/%ZZabc') },
-  { name: 'a lone percent sign in a catalogue id', run: () => admin.patch('/api/catalog/%').send({ version: 1 }) },
+  { name: 'a lone percent sign in a catalogue id', run: () => admin.patch('/api/catalogue/%').send({ version: 1 }) },
   { name: 'an invalid percent-escape in an app path', run: () => request(h.app).get('/projects/%E0') },
   { name: 'an invalid percent-escape in a placement id', run: () => installer.delete(`/api/projects/${projectId}/placements/%C0%AF%`) },
   { name: 'NUL in a project name', run: () => installer.post('/api/projects').send({ name: `Cold${nul}store` }) },
@@ -96,7 +96,7 @@ const corpus = (): Case[] => [
   {
     name: 'NUL in a catalogue name',
     run: () =>
-      admin.post('/api/catalog').send({
+      admin.post('/api/catalogue').send({
         code: 'NUL-1',
         name: `Dome${nul}`,
         mirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 },
@@ -257,7 +257,7 @@ describe('any text at all in stored and searched fields', () => {
       'a catalogue name',
       (t) =>
         admin
-          .post('/api/catalog')
+          .post('/api/catalogue')
           .send({ code: 'FUZZ', name: t, mirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 }, unitPriceMinor: 1, currency: 'EUR' }),
     ],
   ];

@@ -35,8 +35,8 @@ beforeAll(async () => {
   const installer = await h.signedIn(EMAIL.installer);
   demoProjectId = (await installer.get('/api/projects')).body.projects[0].id;
   demoUserId = (await installer.get('/api/auth/me')).body.user.id;
-  demoOwnItemId = (await demoAdmin.post('/api/catalog').send(item('HL-OWN-1'))).body.item.id;
-  sharedItemId = ((await demoAdmin.get('/api/catalog')).body.items as { id: number; demo: boolean }[]).find((i) => i.demo)!.id;
+  demoOwnItemId = (await demoAdmin.post('/api/catalogue').send(item('HL-OWN-1'))).body.item.id;
+  sharedItemId = ((await demoAdmin.get('/api/catalogue')).body.items as { id: number; demo: boolean }[]).find((i) => i.demo)!.id;
 });
 afterAll(async () => {
   await h.close();
@@ -83,26 +83,26 @@ describe('users of another organisation', () => {
 
 describe('the catalogue', () => {
   it('shows an organisation its own items and the shared demo set, not another organisation’s items', async () => {
-    const items = (await agents.installer.get('/api/catalog')).body.items as { id: number; demo: boolean }[];
+    const items = (await agents.installer.get('/api/catalogue')).body.items as { id: number; demo: boolean }[];
     expect(items.map((i) => i.id)).toContain(sharedItemId);
     expect(items.map((i) => i.id)).not.toContain(demoOwnItemId);
   });
 
   it('answers 404 when an outside admin edits another organisation’s item', async () => {
-    expect((await agents.admin.patch(`/api/catalog/${demoOwnItemId}`).send({ version: 1, unitPriceMinor: 1 })).status).toBe(404);
+    expect((await agents.admin.patch(`/api/catalogue/${demoOwnItemId}`).send({ version: 1, unitPriceMinor: 1 })).status).toBe(404);
   });
 
   it.each([
     ['the demo admin', () => demoAdmin],
     ['an outside admin', () => agents.admin],
   ])('keeps the shared demo set read-only for %s', async (_who, agent) => {
-    const res = await agent().patch(`/api/catalog/${sharedItemId}`).send({ version: 1, unitPriceMinor: 1 });
+    const res = await agent().patch(`/api/catalogue/${sharedItemId}`).send({ version: 1, unitPriceMinor: 1 });
     expect(res.status).toBe(403);
     expect(res.body.error).toMatch(/read-only/);
   });
 
   it('lets each organisation use the same code in its own catalogue', async () => {
-    expect((await agents.admin.post('/api/catalog').send(item('HL-OWN-1'))).status).toBe(201);
+    expect((await agents.admin.post('/api/catalogue').send(item('HL-OWN-1'))).status).toBe(201);
   });
 
   it('refuses a placement that points at another organisation’s catalogue item', async () => {

@@ -58,7 +58,7 @@ const newPlacement = (catalogueItemId: number) => ({
 });
 
 async function firstCatalogueId(): Promise<number> {
-  const res = await (await as('installerA')).get('/api/catalog');
+  const res = await (await as('installerA')).get('/api/catalogue');
   return res.body.items[0].id;
 }
 
@@ -249,9 +249,9 @@ describe('stale versions and bad bodies', () => {
       unitPriceMinor: 14900,
       currency: 'EUR',
     });
-    const first = (await admin.post('/api/catalog').send(own('OWN-1'))).body.item;
-    const second = (await admin.post('/api/catalog').send(own('OWN-2'))).body.item;
-    const res = await admin.patch(`/api/catalog/${second.id}`).send({ version: second.version, code: first.code });
+    const first = (await admin.post('/api/catalogue').send(own('OWN-1'))).body.item;
+    const second = (await admin.post('/api/catalogue').send(own('OWN-2'))).body.item;
+    const res = await admin.patch(`/api/catalogue/${second.id}`).send({ version: second.version, code: first.code });
     expect(res.status).toBe(409);
     expect(res.body.fields.code).toBe('This code is already in use.');
   });
@@ -352,7 +352,7 @@ describe('the demo project', () => {
     const list = await a.get('/api/projects?q=demo');
     const id = list.body.projects.find((p: { name: string }) => p.name === 'Cold store aisles and dock (demo)').id;
     const project = (await a.get(`/api/projects/${id}`)).body.project;
-    const catalogue = (await a.get('/api/catalog')).body.items;
+    const catalogue = (await a.get('/api/catalogue')).body.items;
     const ev = evaluateProject({ scene: project.scene, placements: project.placements, catalogue });
     expect(ev.placements.map((p) => p.problem)).toEqual([null, null]);
     const byId = Object.fromEntries(ev.zones.map((z) => [z.zoneId, z.fraction]));

@@ -11,6 +11,7 @@ import { createApp } from '../../server/app';
 import { createLogger } from '../../server/logger';
 import { createMailer } from '../../server/modules/mail/mailer';
 import { createSheetWork, type SheetWork } from '../../server/workers/sheet-pool';
+import { SheetRevision } from '../../server/modules/sheets/sheet-revision.entity';
 import { LIMIT_MESSAGES, SCENE_LIMITS, type CatalogueItemDto, type Scene } from '../../shared/schemas';
 import { heavyPlacements, heavyScene, type HeavyCounts } from '../../bench/heavy-project';
 import { EMAIL, startHarness, type Harness } from './harness';
@@ -32,7 +33,7 @@ const AT_LIMITS: HeavyCounts = {
 beforeAll(async () => {
   h = await startHarness();
   installer = await h.signedIn(EMAIL.installer);
-  catalogueItemId = ((await installer.get('/api/catalog')).body.items as CatalogueItemDto[])[0].id;
+  catalogueItemId = ((await installer.get('/api/catalogue')).body.items as CatalogueItemDto[])[0].id;
 });
 afterAll(async () => {
   await h.close();
@@ -227,6 +228,26 @@ describe('the evaluation cache', () => {
       ).toBe(200);
       expect((await agent.get(`/api/projects/${id}/sheet`)).body.current.changedSinceLast).toBe(true);
       expect(builds).toBe(2);
+    } finally {
+      app.close();
+      await real.close();
+    }
+  });
+
+  it('works out the project once when it e-mails the sheet, also for a revision issued before content was kept', async () => {
+    const real = createSheetWork({ budgetMs: 60_000, threads: 1 });
+    let hashes = 0;
+    const app = instance({ ...real, inputHash: (input) => ((hashes += 1), real.inputHash(input)) });
+    try {
+      const agent = await signIn(app.app);
+      const id = await newProject(agent, 'Mailed once (demo)');
+      expect((await agent.post(`/api/projects/${id}/sheet/revisions`)).status).toBe(201);
+      // As a revision issued by an older server reads: no kept content.
+      await h.orm.em.fork().nativeUpdate(SheetRevision, { project: id }, { content: null });
+      hashes = 0;
+      const sent = await agent.post(`/api/projects/${id}/sheet/email`).send({ to: 'once.buyer@purchasing-demo.example' });
+      expect([sent.status, sent.body.revision.number]).toEqual([200, 1]);
+      expect(hashes).toBe(1);
     } finally {
       app.close();
       await real.close();

@@ -120,7 +120,7 @@ describe('a sheet with names in several scripts', () => {
     });
     expect(created.status).toBe(201);
     const id = created.body.project.id as number;
-    const catalogueItemId = ((await installer.get('/api/catalog')).body.items as CatalogueItemDto[])[0].id;
+    const catalogueItemId = ((await installer.get('/api/catalogue')).body.items as CatalogueItemDto[])[0].id;
     const placed = await installer.post(`/api/projects/${id}/placements`).send({
       label: names.mirror,
       catalogueItemId,

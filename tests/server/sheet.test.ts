@@ -71,7 +71,7 @@ const pagesOf = (pdf: Buffer) => Number(/Pages:\s+(\d+)/.exec(tool('pdfinfo', pd
 
 async function engine() {
   const project = (await installer.get(`/api/projects/${projectId}`)).body.project as ProjectDto;
-  const catalogue = (await installer.get('/api/catalog')).body.items as CatalogueItemDto[];
+  const catalogue = (await installer.get('/api/catalogue')).body.items as CatalogueItemDto[];
   const me = (await installer.get('/api/auth/me')).body.user as { units: 'metric' | 'imperial' };
   const evaluation = evaluateProject({ scene: project.scene, placements: project.placements, catalogue });
   return { project, catalogue, evaluation, f: sheetFormat(resolveUnits(project.units, me.units)) };

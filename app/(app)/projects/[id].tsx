@@ -1,6 +1,6 @@
 import { useLocalSearchParams } from 'expo-router';
 import { ProjectWorkspace } from '@/components/plan/project-workspace';
-import { useCatalogQuery } from '@/hooks/use-catalog';
+import { useCatalogueQuery } from '@/hooks/use-catalogue';
 import { useProjectQuery } from '@/hooks/use-projects';
 
 /** One project: its live plan and details. */
@@ -8,6 +8,6 @@ export default function ProjectScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();
   const projectId = Number(id);
   const project = useProjectQuery(Number.isInteger(projectId) && projectId > 0 ? projectId : undefined);
-  const catalogue = useCatalogQuery();
+  const catalogue = useCatalogueQuery();
   return <ProjectWorkspace projectId={projectId} project={project} catalogue={catalogue} />;
 }

@@ -8,7 +8,6 @@ import {
   updateMeBody,
   type ForgotPasswordResponse,
 } from '../../../shared/schemas';
-import type { Orm } from '../../db';
 import { HttpError } from '../../http-error';
 import { requireUser } from '../../middleware/auth';
 import { parseOr400 } from '../../middleware/validate';
@@ -20,6 +19,7 @@ import type { OrmSessionStore } from '../sessions/orm-session-store';
 import { Invitation } from '../users/invitation.entity';
 import { createInvitation, passwordChangedEmail, resetEmail } from '../users/invitations';
 import type { SignInLimiter } from './sign-in-limiter';
+import { requestEm } from '../../middleware/request-context';
 
 const WRONG = 'That e-mail address and password do not match an account. Check both and try again.';
 
@@ -31,7 +31,6 @@ export async function startSession(req: Request, userId: number): Promise<void> 
 }
 
 export interface AuthDeps {
-  orm: Orm;
   limiter: SignInLimiter;
   store: OrmSessionStore;
   outbox: MailDispatcher;
@@ -40,7 +39,7 @@ export interface AuthDeps {
 }
 
 export function authRoutes(deps: AuthDeps): Router {
-  const { orm, limiter } = deps;
+  const { limiter } = deps;
   const r = Router();
   // "Forgot password" mail per address and per client: enough for a person, too few to mail-bomb anyone.
   const resetsPerEmail = new RateLimiterMemory({ keyPrefix: 'reset-mail', points: 3, duration: 60 * 60 });
@@ -54,7 +53,7 @@ export function authRoutes(deps: AuthDeps): Router {
     if (!admission.ok) {
       throw new HttpError(429, 'Too many sign-in attempts for now.', undefined, { 'Retry-After': String(admission.retryAfterS) });
     }
-    const em = orm.em.fork();
+    const em = requestEm();
     const user = await em.findOne(User, { email: body.email }, { populate: ['organization', 'passwordHash'] });
     const ok = await verifyPassword(body.password, user?.passwordHash);
     // A turned-off account answers exactly as a wrong password does, right password or not, so a
@@ -80,8 +79,9 @@ export function authRoutes(deps: AuthDeps): Router {
 
   r.patch('/me', requireUser, async (req, res) => {
     const body = parseOr400(updateMeBody, req.body, 'Your settings');
-    const em = orm.em.fork();
-    const user = await em.findOneOrFail(User, { id: req.user!.id }, { populate: ['organization', 'passwordHash'] });
+    const em = requestEm();
+    // loadUser found the user through this request's entity manager: change it and flush.
+    const user = req.user!;
     if (body.units) user.units = body.units;
     if (body.name) user.name = body.name;
     await em.flush();
@@ -95,8 +95,8 @@ export function authRoutes(deps: AuthDeps): Router {
     const admission = await limiter.admit(me.email, req.ip ?? 'unknown');
     if (!admission.ok)
       throw new HttpError(429, 'Too many password attempts for now.', undefined, { 'Retry-After': String(admission.retryAfterS) });
-    const em = orm.em.fork();
-    const user = await em.findOneOrFail(User, { id: me.id }, { populate: ['organization', 'passwordHash'] });
+    const em = requestEm();
+    const user = me;
     if (!(await verifyPassword(body.currentPassword, user.passwordHash))) {
       await admission.release(false);
       throw new HttpError(400, 'Your current password is not right; nothing was changed.', {
@@ -128,7 +128,7 @@ export function authRoutes(deps: AuthDeps): Router {
       () => true,
       () => false,
     );
-    const em = orm.em.fork();
+    const em = requestEm();
     const user = allowed ? await em.findOne(User, { email: body.email, disabled: false }, { populate: ['organization'] }) : null;
     if (user) {
       // Earlier reset links stop working; only the newest one counts.

@@ -1,22 +1,24 @@
 import { Router } from 'express';
-import type { Orm } from '../../db';
 import { HttpError } from '../../http-error';
 import { requireRole } from '../../middleware/auth';
 import { OutgoingMail } from './outgoing-mail.entity';
+import { requestEm } from '../../middleware/request-context';
 
 /**
  * Admin, demo mode only: the e-mail Sightfan owes or has sent for the admin's own organisation,
  * newest first, with its delivery status. Other organisations' mail (with live invitation links)
  * never shows here.
  */
-export function outboxRoutes(orm: Orm, demoMode: boolean, from: string): Router {
+export function outboxRoutes(demoMode: boolean, from: string): Router {
   const r = Router();
   r.use(requireRole('admin'));
   r.get('/', async (req, res) => {
     if (!demoMode) throw new HttpError(404, 'The outbox exists only in demo mode; real mail goes to your mail server.');
-    const rows = await orm.em
-      .fork()
-      .find(OutgoingMail, { organization: req.user!.organization.id }, { orderBy: { id: 'desc' }, limit: 200, populate: ['attachments'] });
+    const rows = await requestEm().find(
+      OutgoingMail,
+      { organization: req.user!.organization.id },
+      { orderBy: { id: 'desc' }, limit: 200, populate: ['attachments'] },
+    );
     res.json({
       demo: true,
       messages: rows.map((m) => ({

@@ -1,7 +1,7 @@
 import { defineEntity, type Opt } from '@mikro-orm/core';
 import type { MirrorSpec } from '../../../shared/schemas';
 import { BaseRecord, baseProperties } from '../base';
-import { MirrorModel } from '../catalog/mirror-model.entity';
+import { MirrorModel } from '../catalogue/mirror-model.entity';
 import { Project } from './project.entity';
 
 /** A mirror placed in a project: a catalogue item or a custom mirror, where and how it is mounted. */

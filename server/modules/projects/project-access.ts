@@ -15,7 +15,7 @@ import { idParam } from '../../../shared/schemas';
 import { HttpError, notFound } from '../../http-error';
 import { parseOr400 } from '../../middleware/validate';
 import type { User } from '../users/user.entity';
-import type { MirrorModel } from '../catalog/mirror-model.entity';
+import type { MirrorModel } from '../catalogue/mirror-model.entity';
 import { Project } from './project.entity';
 
 export function visibleProjects(user: User): FilterQuery<Project> {

@@ -12,21 +12,21 @@ import {
 } from '../../../shared/schemas';
 import { mirrorOfSpec, mountProblem } from '../../../shared/project-optics';
 import { resolveUnits } from '../../../shared/units';
-import { mirrorOfModel } from '../catalog/catalog.dto';
+import { mirrorOfModel } from '../catalogue/catalogue.dto';
 import { zodText } from '../../../shared/schemas/zod-rules';
 import { LIMIT_MESSAGES, SCENE_LIMITS } from '../../../shared/schemas/limits';
 import { z } from 'zod';
-import type { Orm } from '../../db';
 import { HttpError, notFound } from '../../http-error';
 import { requireRole, requireUser } from '../../middleware/auth';
 import { parseOr400 } from '../../middleware/validate';
 import type { User } from '../users/user.entity';
-import { MirrorModel } from '../catalog/mirror-model.entity';
+import { MirrorModel } from '../catalogue/mirror-model.entity';
 import { Placement } from './placement.entity';
 import { Project } from './project.entity';
 import { assertCanEdit, canEdit, findVisibleProject, visibleCatalogue, visibleProjects } from './project-access';
 import { toPlacementDto, toProjectDto, toProjectSummaryDto } from './project.dto';
 import { onStaleVersion } from '../../write-conflicts';
+import { requestEm } from '../../middleware/request-context';
 
 // A stale `version` fails in the ORM (optimistic locking); the error middleware answers 409 with these.
 onStaleVersion(Project, 'project', async (em, stale) => {
@@ -39,8 +39,6 @@ const listQuery = z.object({
   q: zodText(searchRule).optional(),
   sort: z.enum(['updated', 'name', 'customer'], { message: 'Sort by updated, name or customer.' }).default('updated'),
 });
-
-const loadVisible = findVisibleProject;
 
 async function placementsOf(em: AnyEntityManager, project: Project): Promise<Placement[]> {
   return em.find(Placement, { project: project.id }, { orderBy: { id: 'asc' } });
@@ -103,13 +101,13 @@ async function checkMount(
 const touch = (em: EntityManager, project: Project) =>
   em.nativeUpdate(Project, { id: project.id }, { updatedAt: new Date(), version: raw<Project, number>('version') });
 
-export function projectsRoutes(orm: Orm): Router {
+export function projectsRoutes(): Router {
   const r = Router();
   r.use(requireUser);
 
   r.get('/', async (req, res) => {
     const q = parseOr400(listQuery, req.query, 'The search');
-    const em = orm.em.fork();
+    const em = requestEm();
     const where = q.q
       ? {
           $and: [
@@ -141,7 +139,7 @@ export function projectsRoutes(orm: Orm): Router {
 
   r.post('/', requireRole('installer'), async (req, res) => {
     const body = parseOr400(createProjectBody, req.body, 'The project');
-    const em = orm.em.fork();
+    const em = requestEm();
     const project = em.create(Project, { ...body, owner: req.user!.id, organization: req.user!.organization.id });
     await em.flush();
     await em.populate(project, ['owner']);
@@ -149,14 +147,14 @@ export function projectsRoutes(orm: Orm): Router {
   });
 
   r.get('/:id', async (req, res) => {
-    const em = orm.em.fork();
-    const project = await loadVisible(em, req.user!, req.params.id);
+    const em = requestEm();
+    const project = await findVisibleProject(em, req.user!, req.params.id);
     res.json({ project: toProjectDto(project, await placementsOf(em, project), canEdit(req.user!, project)) });
   });
 
   r.patch('/:id', async (req, res) => {
-    const em = orm.em.fork();
-    const project = await loadVisible(em, req.user!, req.params.id);
+    const em = requestEm();
+    const project = await findVisibleProject(em, req.user!, req.params.id);
     assertCanEdit(req.user!, project);
     const body = parseOr400(patchProjectBody, req.body, 'The change');
     await em.lock(project, LockMode.OPTIMISTIC, body.version);
@@ -176,8 +174,8 @@ export function projectsRoutes(orm: Orm): Router {
   });
 
   r.delete('/:id', async (req, res) => {
-    const em = orm.em.fork();
-    const project = await loadVisible(em, req.user!, req.params.id);
+    const em = requestEm();
+    const project = await findVisibleProject(em, req.user!, req.params.id);
     assertCanEdit(req.user!, project);
     await em.nativeDelete(Placement, { project: project.id });
     em.remove(project);
@@ -186,8 +184,8 @@ export function projectsRoutes(orm: Orm): Router {
   });
 
   r.post('/:id/placements', async (req, res) => {
-    const em = orm.em.fork();
-    const project = await loadVisible(em, req.user!, req.params.id);
+    const em = requestEm();
+    const project = await findVisibleProject(em, req.user!, req.params.id);
     assertCanEdit(req.user!, project);
     const body = parseOr400(createPlacementBody, req.body, 'The mirror');
     // The mirror limit bounds the sheet's work (SCENE_LIMITS); counted before the body's references.
@@ -208,8 +206,8 @@ export function projectsRoutes(orm: Orm): Router {
   });
 
   r.patch('/:id/placements/:placementId', async (req, res) => {
-    const em = orm.em.fork();
-    const project = await loadVisible(em, req.user!, req.params.id);
+    const em = requestEm();
+    const project = await findVisibleProject(em, req.user!, req.params.id);
     assertCanEdit(req.user!, project);
     const placementId = parseOr400(idParam, req.params.placementId, 'The address');
     const body = parseOr400(patchPlacementBody, req.body, 'The mirror');
@@ -249,8 +247,8 @@ export function projectsRoutes(orm: Orm): Router {
   });
 
   r.delete('/:id/placements/:placementId', async (req, res) => {
-    const em = orm.em.fork();
-    const project = await loadVisible(em, req.user!, req.params.id);
+    const em = requestEm();
+    const project = await findVisibleProject(em, req.user!, req.params.id);
     assertCanEdit(req.user!, project);
     const placementId = parseOr400(idParam, req.params.placementId, 'The address');
     const deleted = await em.nativeDelete(Placement, { id: placementId, project: project.id });

@@ -6,14 +6,14 @@
 import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/sqlite';
 import type { SheetPaper, SheetRevisionDto } from '../../../shared/schemas';
-import { HttpError, notFound } from '../../http-error';
+import { HttpError } from '../../http-error';
 import { sheetFilename, type SheetInput } from '../../pdf/sheet-model';
 import type { SheetWork } from '../../workers/sheet-pool';
-import { toCatalogueItemDto } from '../catalog/catalog.dto';
-import { MirrorModel } from '../catalog/mirror-model.entity';
+import { toCatalogueItemDto } from '../catalogue/catalogue.dto';
+import { MirrorModel } from '../catalogue/mirror-model.entity';
 import { Placement } from '../projects/placement.entity';
 import { Project } from '../projects/project.entity';
-import { findVisibleProject, visibleCatalogue } from '../projects/project-access';
+import { visibleCatalogue } from '../projects/project-access';
 import { toPlacementDto } from '../projects/project.dto';
 import { User } from '../users/user.entity';
 import { SheetEvaluation } from './sheet-evaluation.entity';
@@ -27,11 +27,6 @@ export interface CurrentSheet {
   /** The SheetContent as JSON text: only worker threads parse it. */
   contentJson: string;
   hash: string;
-}
-
-/** The project if the user may see it (the one access service), else 404. */
-export function loadProject(em: EntityManager, user: User, rawId: unknown): Promise<Project> {
-  return findVisibleProject(em, user, rawId);
 }
 
 async function sheetInput(em: EntityManager, project: Project): Promise<SheetInput> {
@@ -139,7 +134,8 @@ export interface RenderedSheet {
 
 /**
  * The PDF of an issued revision, from the content kept with it. A revision issued before content was
- * kept renders only while the project still has that content.
+ * kept renders only while the project still has that content. `current`: the content the caller has
+ * just worked out (issuing does), used when it is the revision's, so nothing is read or evaluated twice.
  */
 export async function renderRevision(
   em: EntityManager,
@@ -147,11 +143,13 @@ export async function renderRevision(
   revision: SheetRevision,
   work: SheetWork,
   paper?: SheetPaper,
+  current?: CurrentSheet,
 ): Promise<RenderedSheet> {
-  await em.populate(revision, ['content']);
   let contentJson: string;
-  if (revision.content) {
-    contentJson = revision.content;
+  if (current && current.hash === revision.contentHash) {
+    contentJson = current.contentJson;
+  } else if ((await em.populate(revision, ['content'])).content) {
+    contentJson = revision.content!;
   } else {
     const now = await currentContent(em, project, work);
     if (now.hash !== revision.contentHash) {

@@ -7,7 +7,6 @@ import {
   type SheetIssueResponse,
   type SheetStatusDto,
 } from '../../../shared/schemas';
-import type { Orm } from '../../db';
 import { HttpError } from '../../http-error';
 import { requireUser } from '../../middleware/auth';
 import { parseOr400 } from '../../middleware/validate';
@@ -15,7 +14,9 @@ import { sheetFilename } from '../../pdf/sheet-model';
 import type { SheetWork } from '../../workers/sheet-pool';
 import { queueMail, type MailDispatcher } from '../mail/outbox';
 import { SheetRevision } from './sheet-revision.entity';
-import { currentContent, issueRevision, latestRevision, loadProject, renderRevision, toRevisionDto } from './sheet-service';
+import { findVisibleProject } from '../projects/project-access';
+import { currentContent, issueRevision, latestRevision, renderRevision, toRevisionDto } from './sheet-service';
+import { requestEm } from '../../middleware/request-context';
 
 function sendPdf(res: Response, pdf: Buffer, filename: string, revision: number): void {
   res.set({
@@ -33,14 +34,14 @@ function sendPdf(res: Response, pdf: Buffer, filename: string, revision: number)
  * of its organisation, an admin) can issue a revision, download an issued one or e-mail the sheet to
  * a buyer; others get 404. GET requests change nothing: a revision is issued only by POST.
  */
-export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: SheetWork }): Router {
-  const { orm, outbox, work } = deps;
+export function sheetsRoutes(deps: { outbox: MailDispatcher; work: SheetWork }): Router {
+  const { outbox, work } = deps;
   const r = Router();
   r.use(requireUser);
 
   r.get('/:id/sheet', async (req, res) => {
-    const em = orm.em.fork();
-    const project = await loadProject(em, req.user!, req.params.id);
+    const em = requestEm();
+    const project = await findVisibleProject(em, req.user!, req.params.id);
     const sheet = await currentContent(em, project, work);
     const revisions = await em.find(SheetRevision, { project: project.id }, { orderBy: { number: 'desc' }, populate: ['issuedBy'] });
     const latest = revisions[0];
@@ -56,8 +57,8 @@ export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: She
 
   /** Issues a revision holding the project's current content (or answers with the latest, if that already does). */
   r.post('/:id/sheet/revisions', async (req, res) => {
-    const em = orm.em.fork();
-    const project = await loadProject(em, req.user!, req.params.id);
+    const em = requestEm();
+    const project = await findVisibleProject(em, req.user!, req.params.id);
     const { revision, created } = await issueRevision(em, await currentContent(em, project, work), req.user!);
     const body: SheetIssueResponse = { revision: toRevisionDto(revision), created, filename: sheetFilename(project.name, revision.number) };
     res.status(created ? 201 : 200).json(body);
@@ -65,8 +66,8 @@ export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: She
 
   /** The PDF of an issued revision: `?revision=n`, or the latest issued. Never issues one. */
   r.get('/:id/sheet.pdf', async (req, res) => {
-    const em = orm.em.fork();
-    const project = await loadProject(em, req.user!, req.params.id);
+    const em = requestEm();
+    const project = await findVisibleProject(em, req.user!, req.params.id);
     const q = parseOr400(sheetPdfQuery, req.query, 'The address');
     const revision = q.revision
       ? await em.findOne(SheetRevision, { project: project.id, number: q.revision }, { populate: ['issuedBy'] })
@@ -84,13 +85,15 @@ export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: She
   });
 
   r.post('/:id/sheet/email', async (req, res) => {
-    const em = orm.em.fork();
+    const em = requestEm();
     // Check access before the body, so a stranger learns nothing about the project from a 400.
-    const project = await loadProject(em, req.user!, req.params.id);
+    const project = await findVisibleProject(em, req.user!, req.params.id);
     const body = parseOr400(sheetEmailBody, req.body, 'The e-mail');
     const q = parseOr400(sheetQuery, req.query, 'The address');
-    const { revision } = await issueRevision(em, await currentContent(em, project, work), req.user!);
-    const sheet = await renderRevision(em, project, revision, work, q.paper);
+    // The project is evaluated (or found in the cache) once: issuing and printing share it.
+    const current = await currentContent(em, project, work);
+    const { revision } = await issueRevision(em, current, req.user!);
+    const sheet = await renderRevision(em, project, revision, work, q.paper, current);
     const content = `${req.user!.name} sent you the Sightfan specification sheet for "${sheet.projectName}" (revision ${sheet.revision.number}), attached as a PDF.`;
     const note = body.message ? `\n\nTheir note:\n${body.message}` : '';
     const tail =

@@ -1,6 +1,5 @@
 import { Router } from 'express';
 import { acceptInvitationBody, invitationToken } from '../../../shared/schemas';
-import type { Orm } from '../../db';
 import { HttpError } from '../../http-error';
 import { parseOr400 } from '../../middleware/validate';
 import { hashPassword } from '../auth/passwords';
@@ -10,6 +9,7 @@ import { hashToken } from './invitations';
 import { toUserDto } from './user.dto';
 import type { EntityManager } from '@mikro-orm/sqlite';
 import type { OrmSessionStore } from '../sessions/orm-session-store';
+import { requestEm } from '../../middleware/request-context';
 
 async function usableInvitation(em: EntityManager, token: string): Promise<Invitation> {
   const inv = await em.findOne(Invitation, { tokenHash: hashToken(token) }, { populate: ['user', 'user.organization'] });
@@ -29,12 +29,12 @@ async function usableInvitation(em: EntityManager, token: string): Promise<Invit
   return inv;
 }
 
-export function invitationsRoutes(orm: Orm, bcryptCost: number, store: OrmSessionStore): Router {
+export function invitationsRoutes(bcryptCost: number, store: OrmSessionStore): Router {
   const r = Router();
 
   r.get('/:token', async (req, res) => {
     const token = parseOr400(invitationToken, req.params.token, 'The link');
-    const inv = await usableInvitation(orm.em.fork(), token);
+    const inv = await usableInvitation(requestEm(), token);
     res.json({
       invitation: { email: inv.user.email, name: inv.user.name, organizationName: inv.user.organization.name, purpose: inv.purpose },
     });
@@ -42,7 +42,7 @@ export function invitationsRoutes(orm: Orm, bcryptCost: number, store: OrmSessio
 
   r.post('/accept', async (req, res) => {
     const body = parseOr400(acceptInvitationBody, req.body, 'The new password');
-    const em = orm.em.fork();
+    const em = requestEm();
     const inv = await usableInvitation(em, body.token);
     const hash = await hashPassword(body.password, bcryptCost);
     // Mark used and set the password in one guarded update, so two clicks cannot both succeed.

@@ -1,7 +1,6 @@
 import { Router } from 'express';
 import type { EntityManager } from '@mikro-orm/sqlite';
 import { idParam, inviteBody, patchUserBody } from '../../../shared/schemas';
-import type { Orm } from '../../db';
 import { HttpError, notFound } from '../../http-error';
 import { requireRole } from '../../middleware/auth';
 import { parseOr400 } from '../../middleware/validate';
@@ -12,6 +11,8 @@ import { createInvitation, invitationEmail } from './invitations';
 import { Invitation } from './invitation.entity';
 import { User } from './user.entity';
 import { onDuplicate } from '../../write-conflicts';
+import { requestEm } from '../../middleware/request-context';
+import { toUserDto } from './user.dto';
 
 onDuplicate(
   'user.email',
@@ -20,7 +21,6 @@ onDuplicate(
       email: 'This e-mail address already has an account.',
     }),
 );
-import { toUserDto } from './user.dto';
 
 /** Adds an invitation and the e-mail carrying its link to `em`'s unit of work. */
 function queueInvitation(em: EntityManager, user: User, inviter: User, baseUrl: string): void {
@@ -30,30 +30,23 @@ function queueInvitation(em: EntityManager, user: User, inviter: User, baseUrl: 
   queueMail(em, { organizationId: inviter.organization.id, kind: 'invitation', to: user.email, ...mail });
 }
 
-export function usersRoutes(deps: {
-  orm: Orm;
-  outbox: MailDispatcher;
-  store: OrmSessionStore;
-  publicUrl: (host: string) => string;
-}): Router {
-  const { orm, outbox, store } = deps;
+export function usersRoutes(deps: { outbox: MailDispatcher; store: OrmSessionStore; publicUrl: (host: string) => string }): Router {
+  const { outbox, store } = deps;
   const r = Router();
   r.use(requireRole('admin'));
 
   r.get('/', async (req, res) => {
-    const users = await orm.em
-      .fork()
-      .find(
-        User,
-        { organization: req.user!.organization.id },
-        { populate: ['organization', 'passwordHash'], orderBy: { name: 'asc', id: 'asc' } },
-      );
+    const users = await requestEm().find(
+      User,
+      { organization: req.user!.organization.id },
+      { populate: ['organization', 'passwordHash'], orderBy: { name: 'asc', id: 'asc' } },
+    );
     res.json({ users: users.map(toUserDto) });
   });
 
   r.post('/', async (req, res) => {
     const body = parseOr400(inviteBody, req.body, 'The invitation');
-    const em = orm.em.fork();
+    const em = requestEm();
     const existing = await em.findOne(User, { email: body.email }, { populate: ['passwordHash'] });
     if (existing && existing.organization.id === req.user!.organization.id && !existing.passwordHash && !existing.disabled) {
       throw new HttpError(
@@ -90,7 +83,7 @@ export function usersRoutes(deps: {
   /** A new invitation for someone who has not set a password yet; earlier links stop working. */
   r.post('/:id/invitation', async (req, res) => {
     const id = parseOr400(idParam, req.params.id, 'The address');
-    const em = orm.em.fork();
+    const em = requestEm();
     const user = await em.findOne(User, { id, organization: req.user!.organization.id }, { populate: ['organization', 'passwordHash'] });
     if (!user) throw notFound('That user');
     if (user.passwordHash) {
@@ -110,7 +103,7 @@ export function usersRoutes(deps: {
   r.patch('/:id', async (req, res) => {
     const id = parseOr400(idParam, req.params.id, 'The address');
     const body = parseOr400(patchUserBody, req.body, 'The change');
-    const em = orm.em.fork();
+    const em = requestEm();
     const user = await em.findOne(User, { id, organization: req.user!.organization.id }, { populate: ['organization', 'passwordHash'] });
     if (!user) throw notFound('That user');
     if (user.id === req.user!.id && (body.disabled === true || (body.role && body.role !== 'admin'))) {

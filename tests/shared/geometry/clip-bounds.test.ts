@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { intersection } from 'polygon-clipping';
-import { boundsOfPoints } from '../../../shared/geometry/bounds';
+import { boundsOfPoints, boxesMeet, packedPoints, segmentBounds, type Bounds } from '../../../shared/geometry/bounds';
 import { clipRingToBox, clipRingToConvex, clipToSlab } from '../../../shared/geometry/clip';
 import { multiPolygonArea, signedRingArea, type MultiPolygon, type Pair, type Ring } from '../../../shared/geometry/polygon';
 import { chooseScaleBar, SCALE_BAR_COUNTS } from '../../../shared/units';
@@ -116,6 +116,49 @@ describe('bounds of points', () => {
 
   it('are null for no points', () => {
     expect(boundsOfPoints([])).toBeNull();
+  });
+
+  const anyCoord = fc.double({ noNaN: true, noDefaultInfinity: true });
+  const box = fc
+    .tuple(anyCoord, anyCoord, anyCoord, anyCoord)
+    .map(([a, b, c, d]): Bounds => ({ minX: Math.min(a, b), maxX: Math.max(a, b), minY: Math.min(c, d), maxY: Math.max(c, d) }));
+  const inside = (p: Pair, b: Bounds) => p[0] >= b.minX && p[0] <= b.maxX && p[1] >= b.minY && p[1] <= b.maxY;
+
+  it('of a segment hold both ends whichever way round the segment runs', () => {
+    fc.assert(
+      fc.property(fc.tuple(anyCoord, anyCoord), fc.tuple(anyCoord, anyCoord), (a, b) => {
+        expect(segmentBounds(a, b)).toEqual(segmentBounds(b, a));
+        expect(inside(a, segmentBounds(a, b)) && inside(b, segmentBounds(a, b))).toBe(true);
+      }),
+    );
+  });
+
+  it('of two boxes meet exactly when some point lies in both (corners and edges touching count)', () => {
+    fc.assert(
+      fc.property(box, box, fc.array(fc.tuple(anyCoord, anyCoord), { maxLength: 20 }), (a, b, probes) => {
+        expect(boxesMeet(a, b)).toBe(boxesMeet(b, a));
+        // A point in both proves they meet; when they meet, the corner of the overlap nearest the origin is such a point.
+        for (const p of probes) if (inside(p, a) && inside(p, b)) expect(boxesMeet(a, b)).toBe(true);
+        const corner: Pair = [Math.max(a.minX, b.minX), Math.max(a.minY, b.minY)];
+        expect(boxesMeet(a, b)).toBe(inside(corner, a) && inside(corner, b));
+      }),
+    );
+    expect(boxesMeet({ minX: 0, minY: 0, maxX: 1, maxY: 1 }, { minX: 1, minY: 1, maxX: 2, maxY: 2 })).toBe(true);
+    expect(boxesMeet({ minX: 0, minY: 0, maxX: 1, maxY: 1 }, { minX: 1.000001, minY: 0, maxX: 2, maxY: 1 })).toBe(false);
+  });
+
+  it('read from a packed coordinate array give back each point, whatever the stride', () => {
+    fc.assert(
+      fc.property(fc.array(fc.tuple(coord, coord), { maxLength: 30 }), fc.integer({ min: 2, max: 5 }), (pts, stride) => {
+        const packed = new Float64Array(pts.length * stride);
+        pts.forEach(([x, y], j) => {
+          packed[stride * j] = x;
+          packed[stride * j + 1] = y;
+          for (let k = 2; k < stride; k++) packed[stride * j + k] = Number.NaN;
+        });
+        expect([...packedPoints(packed, pts.length, stride)]).toEqual(pts);
+      }),
+    );
   });
 });
 

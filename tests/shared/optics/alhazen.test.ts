@@ -23,7 +23,7 @@ const vec = fc.tuple(
  */
 const forwardCase = fc
   .record({
-    // Catalogue radii (shared/schemas/catalog.ts: 0.05–50 m).
+    // Catalogue radii (shared/schemas/catalogue.ts: 0.05–50 m).
     R: fc.double({ min: 0.05, max: 50, noNaN: true }),
     // How far the eye is from the surface: 1 cm (closer than any viewer stands) to 1 km.
     eyeGapM: fc.oneof(fc.double({ min: 0.01, max: 0.05, noNaN: true }), fc.double({ min: 0.05, max: 1000, noNaN: true })),

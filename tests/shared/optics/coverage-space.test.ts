@@ -18,7 +18,7 @@ const EDGE_MARGIN_M = 0.02;
 
 const unit = fc.double({ min: 0, max: 1, noNaN: true, maxExcluded: true });
 
-/** Catalogue limits (shared/schemas/catalog.ts): sizes 0.05–3 m, R 0.05–50 m, size < 2R. */
+/** Catalogue limits (shared/schemas/catalogue.ts): sizes 0.05–3 m, R 0.05–50 m, size < 2R. */
 const mirrorArb: fc.Arbitrary<Mirror> = fc.oneof(
   fc.record({ d: fc.double({ min: 0.05, max: 3, noNaN: true }), q: unit }).map(({ d, q }) => {
     // q → how deep the cap is, up to 99.9 % of a hemisphere's width (diameter → 2R).

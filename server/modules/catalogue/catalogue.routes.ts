@@ -1,14 +1,14 @@
 import { Router } from 'express';
 import { LockMode } from '@mikro-orm/core';
 import { createCatalogueItemBody, idParam, patchCatalogueItemBody } from '../../../shared/schemas';
-import type { Orm } from '../../db';
 import { HttpError, notFound } from '../../http-error';
 import { requireRole, requireUser } from '../../middleware/auth';
 import { parseOr400 } from '../../middleware/validate';
-import { assignMirror, toCatalogueItemDto } from './catalog.dto';
+import { assignMirror, toCatalogueItemDto } from './catalogue.dto';
 import { MirrorModel } from './mirror-model.entity';
 import { visibleCatalogue } from '../projects/project-access';
 import { onDuplicate, onStaleVersion } from '../../write-conflicts';
+import { requestEm } from '../../middleware/request-context';
 
 onDuplicate(
   'mirror_model.code',
@@ -16,19 +16,19 @@ onDuplicate(
 );
 onStaleVersion(MirrorModel, 'catalogue item', async (em, stale) => toCatalogueItemDto(await em.findOneOrFail(MirrorModel, stale.id)));
 
-export function catalogRoutes(orm: Orm): Router {
+export function catalogueRoutes(): Router {
   const r = Router();
 
   r.get('/', requireUser, async (req, res) => {
-    const items = await orm.em
-      .fork()
-      .find(MirrorModel, visibleCatalogue(req.user!.organization.id), { orderBy: { shape: 'asc', code: 'asc' } });
+    const items = await requestEm().find(MirrorModel, visibleCatalogue(req.user!.organization.id), {
+      orderBy: { shape: 'asc', code: 'asc' },
+    });
     res.json({ items: items.map(toCatalogueItemDto) });
   });
 
   r.post('/', requireRole('admin'), async (req, res) => {
     const body = parseOr400(createCatalogueItemBody, req.body, 'The catalogue item');
-    const em = orm.em.fork();
+    const em = requestEm();
     const organization = req.user!.organization.id;
     const { mirror, ...rest } = body;
     const item = em.create(MirrorModel, { ...rest, organization, shape: mirror.shape });
@@ -40,7 +40,7 @@ export function catalogRoutes(orm: Orm): Router {
   r.patch('/:id', requireRole('admin'), async (req, res) => {
     const id = parseOr400(idParam, req.params.id, 'The address');
     const body = parseOr400(patchCatalogueItemBody, req.body, 'The catalogue item');
-    const em = orm.em.fork();
+    const em = requestEm();
     const item = await em.findOne(MirrorModel, { $and: [{ id }, visibleCatalogue(req.user!.organization.id)] });
     if (!item) throw notFound('That catalogue item');
     if (!item.organization) {

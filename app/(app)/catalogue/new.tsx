@@ -1,25 +1,25 @@
 import { Redirect, router } from 'expo-router';
-import { bodyOf, CatalogForm } from '@/components/catalog/catalog-form';
+import { bodyOf, CatalogueForm } from '@/components/catalogue/catalogue-form';
 import { useDisplayUnits } from '@/components/placement/use-display-units';
 import { Screen } from '@/components/ui';
-import { useCreateCatalogItemMutation } from '@/hooks/use-catalog';
+import { useCreateCatalogueItemMutation } from '@/hooks/use-catalogue';
 import { useSession } from '@/hooks/use-session';
 
-export default function NewCatalogItemScreen() {
+export default function NewCatalogueItemScreen() {
   const { user } = useSession();
   const units = useDisplayUnits();
-  const create = useCreateCatalogItemMutation();
+  const create = useCreateCatalogueItemMutation();
   if (!user) return null;
-  if (user.role !== 'admin') return <Redirect href="/catalog" />;
+  if (user.role !== 'admin') return <Redirect href="/catalogue" />;
   return (
     <Screen title="New mirror" lead="Sizes accept either system: type “600 mm” or “24 in”." width="narrow">
-      <CatalogForm
+      <CatalogueForm
         item={null}
         units={units}
         submitLabel="Add to catalogue"
         onSubmit={async (values) => {
           await create.mutateAsync(bodyOf(values));
-          router.replace('/catalog');
+          router.replace('/catalogue');
         }}
       />
     </Screen>

@@ -1,34 +1,34 @@
 import { router, useLocalSearchParams } from 'expo-router';
 import { ActivityIndicator } from 'react-native';
-import { bodyOf, CatalogForm } from '@/components/catalog/catalog-form';
-import { CatalogDetails } from '@/components/catalog/catalog-details';
+import { bodyOf, CatalogueForm } from '@/components/catalogue/catalogue-form';
+import { CatalogueDetails } from '@/components/catalogue/catalogue-details';
 import { useDisplayUnits } from '@/components/placement/use-display-units';
 import { Notice, Screen } from '@/components/ui';
 import { palette } from '@/constants/theme';
-import { useCatalogQuery, useUpdateCatalogItemMutation } from '@/hooks/use-catalog';
+import { useCatalogueQuery, useUpdateCatalogueItemMutation } from '@/hooks/use-catalogue';
 import { useSession } from '@/hooks/use-session';
 import { describeError } from '@/shared/errors';
 
 /** Everyone reads one mirror's details; the admin also edits their organisation's items here (the demo set is read-only). */
-export default function CatalogItemScreen() {
+export default function CatalogueItemScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();
   const { user } = useSession();
   const units = useDisplayUnits();
-  const catalog = useCatalogQuery();
-  const update = useUpdateCatalogItemMutation();
-  const item = catalog.data?.find((c) => String(c.id) === id) ?? null;
+  const catalogue = useCatalogueQuery();
+  const update = useUpdateCatalogueItemMutation();
+  const item = catalogue.data?.find((c) => String(c.id) === id) ?? null;
   if (!user) return null;
-  if (catalog.isPending) return <ActivityIndicator color={palette.glass} accessibilityLabel="Loading the catalogue" />;
-  if (catalog.isError)
+  if (catalogue.isPending) return <ActivityIndicator color={palette.glass} accessibilityLabel="Loading the catalogue" />;
+  if (catalogue.isError)
     return (
       <Screen title="Catalogue">
-        <Notice tone="stop">{describeError(catalog.error)}</Notice>
+        <Notice tone="stop">{describeError(catalogue.error)}</Notice>
       </Screen>
     );
   if (!item) {
     return (
       <Screen title="Catalogue">
-        <Notice tone="stop" testID="catalog-item-missing">
+        <Notice tone="stop" testID="catalogue-item-missing">
           There is no catalogue mirror with this number.
         </Notice>
       </Screen>
@@ -44,15 +44,15 @@ export default function CatalogItemScreen() {
       }
       width="narrow"
     >
-      <CatalogDetails item={item} units={units} />
+      <CatalogueDetails item={item} units={units} />
       {user.role === 'admin' && !item.demo ? (
-        <CatalogForm
+        <CatalogueForm
           item={item}
           units={units}
           submitLabel="Save changes"
           onSubmit={async (values) => {
             await update.mutateAsync({ id: item.id, body: { ...bodyOf(values), version: item.version } });
-            router.replace('/catalog');
+            router.replace('/catalogue');
           }}
         />
       ) : null}

@@ -1,10 +1,10 @@
 import { router } from 'expo-router';
-import { CatalogList } from '@/components/catalog/catalog-list';
+import { CatalogueList } from '@/components/catalogue/catalogue-list';
 import { useDisplayUnits } from '@/components/placement/use-display-units';
 import { Button, Screen } from '@/components/ui';
 import { useSession } from '@/hooks/use-session';
 
-export default function CatalogScreen() {
+export default function CatalogueScreen() {
   const { user } = useSession();
   const units = useDisplayUnits();
   if (!user) return null;
@@ -14,9 +14,11 @@ export default function CatalogScreen() {
       title="Catalogue"
       lead="Convex mirrors you can mount: size, radius of curvature, focal length and price. Demo items are invented and marked as such."
       width="full"
-      footer={isAdmin ? <Button label="New mirror" testID="catalog-new" onPress={() => router.push('/catalog/new')} block /> : undefined}
+      footer={
+        isAdmin ? <Button label="New mirror" testID="catalogue-new" onPress={() => router.push('/catalogue/new')} block /> : undefined
+      }
     >
-      <CatalogList units={units} isAdmin={isAdmin} />
+      <CatalogueList units={units} isAdmin={isAdmin} />
     </Screen>
   );
 }

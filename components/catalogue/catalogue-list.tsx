@@ -9,7 +9,7 @@ import { Segmented } from '@/components/ui/segmented';
 import { AppText } from '@/components/ui/text';
 import { focusRing, layout, palette, radii, spacing } from '@/constants/theme';
 import { useIsWide } from '@/hooks/use-breakpoint';
-import { useCatalogQuery } from '@/hooks/use-catalog';
+import { useCatalogueQuery } from '@/hooks/use-catalogue';
 import { useFocusVisible } from '@/hooks/use-focus-visible';
 import { describeError } from '@/shared/errors';
 import { focalLength, sphereRadiusM } from '@/shared/optics';
@@ -27,11 +27,11 @@ export function opticsOf(item: CatalogueItemDto): { radiusM: number; focalLength
 
 const size = (m: number, units: UnitSystem) => formatLength(m, units, { kind: 'size' });
 
-export function CatalogList({ units, isAdmin }: { units: UnitSystem; isAdmin: boolean }) {
+export function CatalogueList({ units, isAdmin }: { units: UnitSystem; isAdmin: boolean }) {
   const wide = useIsWide();
   const [shape, setShape] = useState<ShapeFilter>('all');
-  const catalog = useCatalogQuery();
-  const items = (catalog.data ?? []).filter((c) => shape === 'all' || c.mirror.shape === shape);
+  const catalogue = useCatalogueQuery();
+  const items = (catalogue.data ?? []).filter((c) => shape === 'all' || c.mirror.shape === shape);
   const sorted = [...items].sort(compareMirrorsBySize);
 
   return (
@@ -44,22 +44,22 @@ export function CatalogList({ units, isAdmin }: { units: UnitSystem; isAdmin: bo
           onChange={setShape}
           stretch={!wide}
           options={[
-            { value: 'all', label: 'All', testID: 'catalog-filter-all' },
-            ...SHAPE_ORDER.map((s) => ({ value: s, label: s === 'rect' ? 'Rect.' : SHAPE_LABELS[s], testID: `catalog-filter-${s}` })),
+            { value: 'all', label: 'All', testID: 'catalogue-filter-all' },
+            ...SHAPE_ORDER.map((s) => ({ value: s, label: s === 'rect' ? 'Rect.' : SHAPE_LABELS[s], testID: `catalogue-filter-${s}` })),
           ]}
         />
       </View>
-      {catalog.isPending ? <ActivityIndicator color={palette.glass} accessibilityLabel="Loading the catalogue" /> : null}
-      {catalog.isError ? (
+      {catalogue.isPending ? <ActivityIndicator color={palette.glass} accessibilityLabel="Loading the catalogue" /> : null}
+      {catalogue.isError ? (
         <View style={styles.column}>
-          <Notice tone="stop" testID="catalog-error">
-            {describeError(catalog.error)}
+          <Notice tone="stop" testID="catalogue-error">
+            {describeError(catalogue.error)}
           </Notice>
-          <Button label="Try again" testID="catalog-retry" variant="secondary" onPress={() => void catalog.refetch()} />
+          <Button label="Try again" testID="catalogue-retry" variant="secondary" onPress={() => void catalogue.refetch()} />
         </View>
       ) : null}
-      {catalog.data && sorted.length === 0 ? (
-        <AppText tone="muted" testID="catalog-empty">
+      {catalogue.data && sorted.length === 0 ? (
+        <AppText tone="muted" testID="catalogue-empty">
           {shape === 'all'
             ? isAdmin
               ? 'The catalogue is empty. Add the mirrors you sell with “New mirror”.'
@@ -78,13 +78,13 @@ export function CatalogList({ units, isAdmin }: { units: UnitSystem; isAdmin: bo
               ))}
             </View>
             {sorted.map((item) => (
-              <CatalogRow key={item.id} item={item} units={units} wide />
+              <CatalogueRow key={item.id} item={item} units={units} wide />
             ))}
           </View>
         ) : (
           <View style={styles.cards} role="list" aria-label="Mirror catalogue">
             {sorted.map((item) => (
-              <CatalogRow key={item.id} item={item} units={units} wide={false} />
+              <CatalogueRow key={item.id} item={item} units={units} wide={false} />
             ))}
           </View>
         )
@@ -104,7 +104,7 @@ const COLUMNS: readonly { key: ColumnKey; label: string; flex: number; right?: b
   { key: 'price', label: 'Price', flex: 1.1, right: true },
 ];
 
-function CatalogRow({ item, units, wide }: { item: CatalogueItemDto; units: UnitSystem; wide: boolean }) {
+function CatalogueRow({ item, units, wide }: { item: CatalogueItemDto; units: UnitSystem; wide: boolean }) {
   const { focusVisible, onFocus, onBlur } = useFocusVisible();
   const o = opticsOf(item);
   const cells: Record<ColumnKey, string> = {
@@ -118,9 +118,9 @@ function CatalogRow({ item, units, wide }: { item: CatalogueItemDto; units: Unit
   };
   return (
     <Pressable
-      testID={`catalog-row-${item.id}`}
+      testID={`catalogue-row-${item.id}`}
       role="link"
-      onPress={() => router.push(`/catalog/${item.id}`)}
+      onPress={() => router.push(`/catalogue/${item.id}`)}
       aria-label={`${item.name}, ${cells.size}, radius of curvature ${cells.radius}, ${cells.price}`}
       onFocus={onFocus}
       onBlur={onBlur}
@@ -161,7 +161,7 @@ function Tags({ item }: { item: CatalogueItemDto }) {
   if (!item.demo && item.active) return null;
   return (
     <View style={styles.tags}>
-      {item.demo ? <Badge label="Demo" tone="beacon" testID={`catalog-demo-${item.id}`} /> : null}
+      {item.demo ? <Badge label="Demo" tone="beacon" testID={`catalogue-demo-${item.id}`} /> : null}
       {!item.active ? <Badge label="Withdrawn" tone="stop" /> : null}
     </View>
   );

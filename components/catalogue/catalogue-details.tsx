@@ -5,10 +5,10 @@ import { AppText } from '@/components/ui/text';
 import { spacing } from '@/constants/theme';
 import type { CatalogueItemDto } from '@/shared/schemas';
 import { formatLength, formatPercent, type UnitSystem } from '@/shared/units';
-import { opticsOf } from './catalog-list';
+import { opticsOf } from './catalogue-list';
 
 /** One mirror's facts, read-only: what an installer or reviewer needs to choose it. */
-export function CatalogDetails({ item, units }: { item: CatalogueItemDto; units: UnitSystem }) {
+export function CatalogueDetails({ item, units }: { item: CatalogueItemDto; units: UnitSystem }) {
   const o = opticsOf(item);
   const size = (m: number) => formatLength(m, units, { kind: 'size' });
   const rows: [string, string][] = [
@@ -24,7 +24,7 @@ export function CatalogDetails({ item, units }: { item: CatalogueItemDto; units:
     ['Offered', item.active ? 'Yes' : 'No, withdrawn'],
   ];
   return (
-    <Card testID="catalog-details">
+    <Card testID="catalogue-details">
       {rows.map(([k, v]) => (
         <View key={k} style={styles.row}>
           <AppText tone="muted">{k}</AppText>

@@ -23,12 +23,12 @@ import {
   sizeRule,
   type SizeLimit,
 } from '@/shared/schemas/rules';
-import { formatLength, minorToText, parseMoney, type UnitSystem } from '@/shared/units';
+import { minorToText, parseMoney, type UnitSystem } from '@/shared/units';
 
 type Shape = MirrorSpec['shape'];
 type Portion = 'full' | 'half' | 'quarter';
 
-export interface CatalogFormValues {
+export interface CatalogueFormValues {
   code: string;
   name: string;
   shape: Shape;
@@ -66,7 +66,7 @@ export const FORM_FIELDS = [
   'active',
 ] as const;
 
-export function valuesOf(item: CatalogueItemDto | null): CatalogFormValues {
+export function valuesOf(item: CatalogueItemDto | null): CatalogueFormValues {
   const m = item?.mirror;
   return {
     code: item?.code ?? '',
@@ -88,7 +88,7 @@ export function valuesOf(item: CatalogueItemDto | null): CatalogFormValues {
 }
 
 /** Every limit and message comes from shared/schemas/rules.ts (the route's too); sizes are said in the person's units. */
-export function catalogSchema(units: UnitSystem) {
+export function catalogueSchema(units: UnitSystem) {
   const opt = yup.number().nullable();
   const size = (limit: SizeLimit) => yupNumber(sizeRule(limit, units));
   return yup.object({
@@ -106,7 +106,7 @@ export function catalogSchema(units: UnitSystem) {
       shape === 'dome'
         ? opt
         : size(MIRROR_SIZES.radius).test('cap-fits', function check(r) {
-            const { widthM: w, heightM: h, diameterM: d } = this.parent as CatalogFormValues;
+            const { widthM: w, heightM: h, diameterM: d } = this.parent as CatalogueFormValues;
             if (r == null) return true;
             const problem =
               shape === 'rect'
@@ -121,7 +121,7 @@ export function catalogSchema(units: UnitSystem) {
     currency: yupText(catalogueRules.currency),
     price: yup.string().test('price', function check(s) {
       // Formik hands yup an empty field as undefined.
-      const r = parseMoney(s ?? '', ((this.parent as Partial<CatalogFormValues>).currency ?? '').trim().toUpperCase());
+      const r = parseMoney(s ?? '', ((this.parent as Partial<CatalogueFormValues>).currency ?? '').trim().toUpperCase());
       // Reading the text is the form's own job (the request carries a number); the number's limits are the route's.
       const problem = r.ok ? numberProblem(catalogueRules.unitPriceMinor, r.minor) : r.message;
       return problem ? this.createError({ message: problem }) : true;
@@ -132,14 +132,14 @@ export function catalogSchema(units: UnitSystem) {
 }
 
 /** An empty size is sent as NaN, which the route refuses with the same "Enter the …" sentence. */
-export function mirrorOfValues(v: CatalogFormValues): MirrorSpec {
+export function mirrorOfValues(v: CatalogueFormValues): MirrorSpec {
   const m = (x: number | null) => x ?? Number.NaN;
   if (v.shape === 'rect') return { shape: 'rect', widthM: m(v.widthM), heightM: m(v.heightM), radiusM: m(v.radiusM) };
   if (v.shape === 'dome') return { shape: 'dome', portion: v.portion, diameterM: m(v.diameterM) };
   return { shape: 'round', diameterM: m(v.diameterM), radiusM: m(v.radiusM) };
 }
 
-export function bodyOf(v: CatalogFormValues): CreateCatalogueItemBody {
+export function bodyOf(v: CatalogueFormValues): CreateCatalogueItemBody {
   const currency = v.currency.trim().toUpperCase();
   const price = parseMoney(v.price, currency);
   return {
@@ -157,7 +157,7 @@ export function bodyOf(v: CatalogFormValues): CreateCatalogueItemBody {
 }
 
 /** The server names nested fields ("mirror.radiusM", "unitPriceMinor"); the form names them flat. */
-export const SERVER_TO_FORM: Record<string, keyof CatalogFormValues> = {
+export const SERVER_TO_FORM: Record<string, keyof CatalogueFormValues> = {
   'mirror.diameterM': 'diameterM',
   'mirror.widthM': 'widthM',
   'mirror.heightM': 'heightM',
@@ -174,15 +174,15 @@ export function remapServerFields(err: unknown): unknown {
   return new ApiError(err.status, err.message, fields, err.retryAfterS, err.current);
 }
 
-export interface CatalogFormProps {
+export interface CatalogueFormProps {
   item: CatalogueItemDto | null;
   units: UnitSystem;
   submitLabel: string;
-  onSubmit: (values: CatalogFormValues) => Promise<unknown>;
+  onSubmit: (values: CatalogueFormValues) => Promise<unknown>;
 }
 
-export function CatalogForm({ item, units, submitLabel, onSubmit }: CatalogFormProps) {
-  const submit = async (values: CatalogFormValues, helpers: FormikHelpers<CatalogFormValues>) => {
+export function CatalogueForm({ item, units, submitLabel, onSubmit }: CatalogueFormProps) {
+  const submit = async (values: CatalogueFormValues, helpers: FormikHelpers<CatalogueFormValues>) => {
     helpers.setStatus(undefined);
     try {
       await onSubmit(values);
@@ -195,13 +195,18 @@ export function CatalogForm({ item, units, submitLabel, onSubmit }: CatalogFormP
         } satisfies FormStatus);
         return;
       }
-      const { fieldErrors, status } = serverErrorsFor<CatalogFormValues>(remapServerFields(error), [...FORM_FIELDS], values);
+      const { fieldErrors, status } = serverErrorsFor<CatalogueFormValues>(remapServerFields(error), [...FORM_FIELDS], values);
       helpers.setErrors(fieldErrors);
       helpers.setStatus(status);
     }
   };
   return (
-    <Formik<CatalogFormValues> initialValues={valuesOf(item)} validationSchema={catalogSchema(units)} onSubmit={submit} enableReinitialize>
+    <Formik<CatalogueFormValues>
+      initialValues={valuesOf(item)}
+      validationSchema={catalogueSchema(units)}
+      onSubmit={submit}
+      enableReinitialize
+    >
       {(form) => {
         const { values, handleSubmit, setFieldValue, setFieldTouched } = form;
         const size = (name: 'diameterM' | 'widthM' | 'heightM' | 'radiusM', label: string, testID: string) => (
@@ -218,14 +223,14 @@ export function CatalogForm({ item, units, submitLabel, onSubmit }: CatalogFormP
           />
         );
         return (
-          <FormFrame label={submitLabel} onSubmit={handleSubmit} testID="catalog-form">
+          <FormFrame label={submitLabel} onSubmit={handleSubmit} testID="catalogue-form">
             <View style={styles.pair}>
               <View style={styles.flex}>
                 <FormikTextField
                   form={form}
                   name="code"
                   label="Code"
-                  testID="catalog-form-code"
+                  testID="catalogue-form-code"
                   autoCapitalize="characters"
                   autoCorrect={false}
                 />
@@ -235,13 +240,13 @@ export function CatalogForm({ item, units, submitLabel, onSubmit }: CatalogFormP
                   form={form}
                   name="currency"
                   label="Currency"
-                  testID="catalog-form-currency"
+                  testID="catalogue-form-currency"
                   autoCapitalize="characters"
                   maxLength={3}
                 />
               </View>
             </View>
-            <FormikTextField form={form} name="name" label="Name" testID="catalog-form-name" />
+            <FormikTextField form={form} name="name" label="Name" testID="catalogue-form-name" />
             <View style={styles.field}>
               <AppText variant="label">Shape</AppText>
               <Segmented<Shape>
@@ -249,7 +254,7 @@ export function CatalogForm({ item, units, submitLabel, onSubmit }: CatalogFormP
                 stretch
                 value={values.shape}
                 onChange={(s) => void setFieldValue('shape', s)}
-                options={SHAPE_ORDER.map((s) => ({ value: s, label: SHAPE_LABELS[s], testID: `catalog-form-shape-${s}` }))}
+                options={SHAPE_ORDER.map((s) => ({ value: s, label: SHAPE_LABELS[s], testID: `catalogue-form-shape-${s}` }))}
               />
             </View>
             {values.shape === 'dome' ? (
@@ -261,23 +266,23 @@ export function CatalogForm({ item, units, submitLabel, onSubmit }: CatalogFormP
                   value={values.portion}
                   onChange={(p) => void setFieldValue('portion', p)}
                   options={[
-                    { value: 'full', label: 'Full', testID: 'catalog-form-portion-full' },
-                    { value: 'half', label: 'Half', testID: 'catalog-form-portion-half' },
-                    { value: 'quarter', label: 'Quarter', testID: 'catalog-form-portion-quarter' },
+                    { value: 'full', label: 'Full', testID: 'catalogue-form-portion-full' },
+                    { value: 'half', label: 'Half', testID: 'catalogue-form-portion-half' },
+                    { value: 'quarter', label: 'Quarter', testID: 'catalogue-form-portion-quarter' },
                   ]}
                 />
               </View>
             ) : null}
             {values.shape === 'rect' ? (
               <View style={styles.pair}>
-                <View style={styles.flex}>{size('widthM', 'Width', 'catalog-form-width')}</View>
-                <View style={styles.flex}>{size('heightM', 'Height', 'catalog-form-height')}</View>
+                <View style={styles.flex}>{size('widthM', 'Width', 'catalogue-form-width')}</View>
+                <View style={styles.flex}>{size('heightM', 'Height', 'catalogue-form-height')}</View>
               </View>
             ) : (
-              size('diameterM', 'Diameter', 'catalog-form-diameter')
+              size('diameterM', 'Diameter', 'catalogue-form-diameter')
             )}
             {values.shape !== 'dome' ? (
-              size('radiusM', 'Radius of curvature', 'catalog-form-radius')
+              size('radiusM', 'Radius of curvature', 'catalogue-form-radius')
             ) : (
               <AppText variant="small" tone="muted">
                 A dome is part of a sphere whose radius of curvature is half its diameter.
@@ -289,29 +294,29 @@ export function CatalogForm({ item, units, submitLabel, onSubmit }: CatalogFormP
                   form={form}
                   name="price"
                   label={`Unit price (${values.currency.toUpperCase() || 'currency'})`}
-                  testID="catalog-form-price"
+                  testID="catalogue-form-price"
                   inputMode="decimal"
                 />
               </View>
               <View style={styles.flex}>
-                <FormikTextField form={form} name="massKg" label="Mass (kg)" testID="catalog-form-mass" inputMode="decimal" />
+                <FormikTextField form={form} name="massKg" label="Mass (kg)" testID="catalogue-form-mass" inputMode="decimal" />
               </View>
             </View>
             <View style={styles.pair}>
               <View style={styles.flex}>
-                <FormikTextField form={form} name="material" label="Material" testID="catalog-form-material" />
+                <FormikTextField form={form} name="material" label="Material" testID="catalogue-form-material" />
               </View>
               <View style={styles.flex}>
                 <FormikTextField
                   form={form}
                   name="reflectancePct"
                   label="Reflectance (%)"
-                  testID="catalog-form-reflectance"
+                  testID="catalogue-form-reflectance"
                   inputMode="decimal"
                 />
               </View>
             </View>
-            <FormikTextField form={form} name="notes" label="Notes" testID="catalog-form-notes" multiline numberOfLines={3} />
+            <FormikTextField form={form} name="notes" label="Notes" testID="catalogue-form-notes" multiline numberOfLines={3} />
             <View style={styles.field}>
               <AppText variant="label">Offered to installers</AppText>
               <Segmented<'yes' | 'no'>
@@ -319,19 +324,12 @@ export function CatalogForm({ item, units, submitLabel, onSubmit }: CatalogFormP
                 value={values.active ? 'yes' : 'no'}
                 onChange={(a) => void setFieldValue('active', a === 'yes')}
                 options={[
-                  { value: 'yes', label: 'Offered', testID: 'catalog-form-active-yes' },
-                  { value: 'no', label: 'Withdrawn', testID: 'catalog-form-active-no' },
+                  { value: 'yes', label: 'Offered', testID: 'catalogue-form-active-yes' },
+                  { value: 'no', label: 'Withdrawn', testID: 'catalogue-form-active-no' },
                 ]}
               />
             </View>
-            <FormFooter
-              status={form.status}
-              errorTestID="catalog-form-error"
-              submitLabel={submitLabel}
-              submitTestID="catalog-form-submit"
-              busy={form.isSubmitting}
-              onSubmit={() => handleSubmit()}
-            />
+            <FormFooter form={form} testIDPrefix="catalogue-form" submitLabel={submitLabel} />
           </FormFrame>
         );
       }}
