@@ -115,7 +115,11 @@ export function evaluateVehicleJob(input: {
     if (!out.mirror)
       return { ...out, problem: { field: 'catalogueItemId', message: 'Pick a mirror from the catalogue or describe a custom one.' } };
     try {
-      const pose = poseFromAim({ vertexM: [p.positionM[0], p.positionM[1], p.heightM], azimuthRad: p.azimuthRad, tiltDownRad: p.tiltDownRad });
+      const pose = poseFromAim({
+        vertexM: [p.positionM[0], p.positionM[1], p.heightM],
+        azimuthRad: p.azimuthRad,
+        tiltDownRad: p.tiltDownRad,
+      });
       out.pose = pose;
       const problem = vehicleMirrorProblem(input.scene, { ...p, servesFieldIds: null });
       if (problem) return { ...out, problem };
