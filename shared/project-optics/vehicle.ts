@@ -13,12 +13,14 @@ import {
   scoreVehicle,
   vehicleFields,
   vehicleGeometry,
+  type FieldCode,
   type FieldScore,
   type MountingNote,
   type RuleSetId,
   type TargetView,
   type VehicleField,
   type VehicleMirror,
+  type Verdict,
 } from '../vehicle';
 import { criteriaOf } from './criteria';
 import { mirrorOfPlacement, numbersFor, type EvaluatedPlacement } from './evaluate';
@@ -173,4 +175,42 @@ export function evaluateVehicleJob(input: {
     };
   }
   return { placements, vehicle };
+}
+
+/**
+ * A field's share as printed and shown: a percentage rounded DOWN to 0.1 % ("84.9 %"), so a share
+ * is never overstated and a field shown at the pass mark has reached it (the verdict is read from
+ * the exact share: a shown "85.0 %" is at least 85 %).
+ */
+export function formatFieldShare(share: number): string {
+  if (!Number.isFinite(share)) return '—';
+  // The billionth keeps a share computed as 0.84999999999 (a full 85 % in floating point) at 85.0.
+  return `${(Math.floor(Math.min(1, Math.max(0, share)) * 1000 + 1e-6) / 10).toFixed(1)} %`;
+}
+
+/** The words for a verdict on screens and sheets. */
+export function verdictText(v: Verdict): 'pass' | 'short' | 'no verdict' {
+  return v === 'no-verdict' ? 'no verdict' : v;
+}
+
+/** The regulation's class of a library field ("IV", "V extended"); "—" for other rules' fields, "own" for the installer's. */
+export function vehicleFieldClass(code: FieldCode): string {
+  switch (code) {
+    case 'un-ii':
+      return 'II';
+    case 'un-iii':
+      return 'III';
+    case 'un-iv':
+      return 'IV';
+    case 'un-v':
+      return 'V';
+    case 'un-v-extended':
+      return 'V extended';
+    case 'un-vi':
+      return 'VI';
+    case 'user':
+      return 'own';
+    default:
+      return '—';
+  }
 }
