@@ -7,11 +7,36 @@ import os from 'node:os';
 import { Bench } from 'tinybench';
 import { scoreVehicle, vehicleFields, vehicleGeometry, mirrorFootprint } from '../shared/vehicle';
 import { demoTruck, sixMirrors } from '../tests/shared/vehicle/fixtures';
-import { demoCatalogueDtos, demoPlacementDtos } from '../tests/app/fixtures';
+import { DEMO_CATALOGUE } from '../server/seeders/demo-catalogue';
 import { DEMO_PROJECT } from '../server/seeders/demo-project';
 import { DEMO_TRUCK } from '../server/seeders/demo-vehicles';
 import { evaluateVehicleJob, ProjectEvaluator } from '../shared/project-optics';
-import { scene as sceneSchema, type PlacementDto } from '../shared/schemas';
+import { scene as sceneSchema, type CatalogueItemDto, type PlacementDto } from '../shared/schemas';
+
+/** The demo cold store as the API lists it: catalogue ids in seed order, placements 1…n. */
+function demoSiteJob() {
+  const catalogue: CatalogueItemDto[] = DEMO_CATALOGUE.map((d, i) => ({
+    ...d,
+    id: i + 1,
+    currency: 'EUR',
+    notes: '',
+    active: true,
+    demo: true,
+    version: 1,
+    updatedAt: '2026-01-01T00:00:00.000Z',
+  }));
+  const placements = DEMO_PROJECT.placements.map((p, i) => ({
+    id: i + 1,
+    catalogueItemId: catalogue.find((c) => c.code === p.code)!.id,
+    customMirror: null,
+    positionM: p.positionM,
+    heightM: p.heightM,
+    azimuthRad: (p.azimuthDeg * Math.PI) / 180,
+    tiltDownRad: (p.tiltDownDeg * Math.PI) / 180,
+    viewerId: p.viewerId,
+  }));
+  return { scene: sceneSchema.parse(DEMO_PROJECT.scene), placements, catalogue };
+}
 
 /** The demo truck job as the API stores it: its scene and six placements (ids 1…6). */
 function demoTruckJob() {
@@ -46,7 +71,7 @@ export async function runVehicleBench(): Promise<void> {
   const fields = vehicleFields(truck);
   const g = vehicleGeometry(truck);
   const job = demoTruckJob();
-  const site = { scene: sceneSchema.parse(DEMO_PROJECT.scene), placements: demoPlacementDtos(1), catalogue: demoCatalogueDtos() };
+  const site = demoSiteJob();
   const siteName = `site job beside it: the demo cold store, through project-optics (${site.placements.length} mirrors, ${site.scene.zones.length} zones, ${site.scene.walls.length} walls)`;
   const budgets: Record<string, number | null> = {
     'truck, 6 mirrors × 6 fields × 2 eyes': 50,
