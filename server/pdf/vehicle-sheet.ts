@@ -35,6 +35,8 @@ export interface SheetVehicleField {
   needed: string;
   verdict: string;
   mirrors: string;
+  /** Where in the field a standing adult is detected and recognised (a sampled estimate), or null. */
+  criteria: string | null;
   /** Where the pass mark comes from, how far a field to the horizon is scored, what the figures rest on. */
   notes: string[];
 }
@@ -117,6 +119,9 @@ export function buildVehicleSheet(
     needed: s.field.requiredShare === null ? 'none stated' : `${Math.round(s.field.requiredShare * 100)} %`,
     verdict: verdictText(s.verdict),
     mirrors: s.mirrorIds.length ? s.mirrorIds.map((id) => labelOf.get(id) ?? id).join(', ') : 'no mirror serves it',
+    criteria: s.criteria
+      ? `A standing adult in it is detected over ${formatFieldShare(s.criteria.detectShare)} of it and recognised over ${formatFieldShare(s.criteria.recogniseShare)} (estimated at ${s.criteria.sampled} points).`
+      : null,
     notes: [s.field.requiredShareBasis, s.field.basis, ...(s.field.scoredToNote ? [s.field.scoredToNote] : [])],
   }));
 
@@ -444,7 +449,7 @@ export function vehiclePages(flow: Flow, content: SheetContent, sv: SheetVehicle
     );
     flow.gap(3);
     flow.paragraph(
-      `Status marks: ${sv.markMeanings.join('; ')}. Share seen: the part of the field some mirror chosen for it shows from either eye point where the rule counts both (one eye point where it names one), the body blocking sightlines; rounded down to 0.1 %.`,
+      `Status marks: ${sv.markMeanings.join('; ')}. Share seen: the part of the field some mirror chosen for it shows from either eye point where the rule counts both (one eye point where it names one), the body blocking sightlines; rounded down to 0.1 %. Detected and recognised: ${content.criteria.detect} and ${content.criteria.recognise} (${content.criteria.basis}).`,
       'regular',
       8,
       MUTED,
@@ -457,7 +462,7 @@ export function vehiclePages(flow: Flow, content: SheetContent, sv: SheetVehicle
         9,
         fl.verdict === 'short' ? STOP : INK,
       );
-      flow.paragraph(`Mirrors counted: ${fl.mirrors}. ${fl.notes.join(' ')}`, 'regular', 8, MUTED);
+      flow.paragraph(`Mirrors counted: ${fl.mirrors}. ${fl.criteria ? `${fl.criteria} ` : ''}${fl.notes.join(' ')}`, 'regular', 8, MUTED);
       flow.gap(3);
     }
   }

@@ -60,6 +60,20 @@ export function vehicleMirrorProblem(
   return null;
 }
 
+/**
+ * Exact point tests the detect / recognise estimate may spend on one job (fields × grid points ×
+ * mirrors × 2 eyes): the demo truck (6 × 100 × 6 × 2 = 7,200) keeps the full 100 points a field;
+ * a job at the limits (56 fields, 30 mirrors) drops to 16, which keeps its sheet within a few
+ * seconds (measured: 100 points a field there took about 12 s under load).
+ */
+export const CRITERIA_POINT_TESTS = 24_000;
+
+/** Grid points per field for the detect / recognise estimate: 100, fewer for big jobs, never under 16. */
+export function criteriaSamplesPerField(fields: number, mirrors: number): number {
+  const per = Math.floor(CRITERIA_POINT_TESTS / Math.max(1, fields * mirrors * 2));
+  return Math.max(16, Math.min(100, per));
+}
+
 /** A vehicle job's own results, beside each mirror's numbers in `ProjectEvaluation.placements`. */
 export interface VehicleJobEvaluation {
   ruleSet: RuleSetId;
@@ -154,7 +168,9 @@ export function evaluateVehicleJob(input: {
       mirrorsForField,
       detectAngleRad: criteria.detectRad,
       recogniseAngleRad: criteria.recogniseRad,
-      ...(input.fieldCriteria ? { fieldTargetHeightM: TARGET_HEIGHT_M.adult } : {}),
+      ...(input.fieldCriteria
+        ? { fieldTargetHeightM: TARGET_HEIGHT_M.adult, criteriaSamples: criteriaSamplesPerField(fields.length, fitted.length) }
+        : {}),
     });
     vehicle = { ruleSet, fields: score.fields, targets: score.targets, mounting: score.mounting, problem: null };
     for (const ev of placements) {
