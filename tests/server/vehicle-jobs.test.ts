@@ -6,7 +6,9 @@
 import request from 'supertest';
 import { evaluateVehicleJob, vehicleJobFields } from '../../shared/project-optics';
 import { vehiclePreset, type ProjectDto } from '../../shared/schemas';
-import { DEMO_TRUCK, DEMO_TRUCK_CLOSE_MIRROR } from '../../server/seeders/demo-vehicles';
+import { DEMO_SCHOOL_BUS, DEMO_TRUCK, DEMO_TRUCK_CLOSE_MIRROR } from '../../server/seeders/demo-vehicles';
+import { seedDemo } from '../../server/seeders/demo';
+import { Project } from '../../server/modules/projects/project.entity';
 import { EMAIL, startHarness, type Harness } from './harness';
 
 let h: Harness;
@@ -314,5 +316,22 @@ describe('the demo truck', () => {
   it('has every rule-set field of the truck in the evaluation, in order', () => {
     const ev = evaluateVehicleJob({ scene: truck.scene, placements: truck.placements, catalogue: [] });
     expect(ev.vehicle.fields.map((f) => f.field.id)).toEqual(vehicleJobFields(truck.scene).map((f) => f.id));
+  });
+});
+
+describe('seeding the demo vehicles', () => {
+  const demoVehicleNames = async () =>
+    (await h.orm.em.fork().find(Project, { demo: true, kind: 'vehicle' }, { orderBy: { id: 'asc' } })).map((p) => p.name);
+
+  it('adds them once to a demo made before vehicle jobs existed, and never twice', async () => {
+    expect(await demoVehicleNames()).toEqual([DEMO_TRUCK.name, DEMO_SCHOOL_BUS.name]);
+    expect(await seedDemo(h.orm, h.config.bcryptCost)).toBe(false);
+    expect(await demoVehicleNames()).toHaveLength(2);
+    // A demo database from before: no vehicle jobs at all.
+    const em = h.orm.em.fork();
+    const old = await em.find(Project, { demo: true, kind: 'vehicle' });
+    await em.remove(old).flush();
+    expect(await seedDemo(h.orm, h.config.bcryptCost)).toBe(true);
+    expect(await demoVehicleNames()).toEqual([DEMO_TRUCK.name, DEMO_SCHOOL_BUS.name]);
   });
 });
