@@ -11,7 +11,7 @@ import { NO_DEFAULT_FONT, registerSheetFonts } from './fonts';
 import { writeText } from './text-runs';
 import { BEACON, BEACON_SOFT, Flow, GLASS, INK, MUTED, RULE, STOP } from './layout';
 import { sheetFormat, type SheetContent, type SheetPlacement } from './sheet-model';
-import { vehiclePages } from './vehicle-sheet';
+import { vehiclePages, vehicleSummaryBlock } from './vehicle-sheet';
 
 export interface SheetRevisionInfo {
   number: number;
@@ -334,7 +334,8 @@ export async function renderSheet(content: SheetContent, rev: SheetRevisionInfo,
   headerBlock(flow, content, rev, paperSpec.name);
   cautionBox(flow, content.cautions, 'Read before relying on this sheet');
   flow.paragraph(SHEET_LIMITS, 'regular', 8.5, MUTED);
-  if (!content.vehicle) zonesBlock(flow, content);
+  if (content.vehicle) vehicleSummaryBlock(flow, content.vehicle);
+  else zonesBlock(flow, content);
   summaryBlock(flow, content);
   purchaseBlock(flow, content);
   approvalBlock(flow);

@@ -387,6 +387,27 @@ export function drawVehicleTop(
   return fit;
 }
 
+/** First page, in place of a site's zones: each field's share and verdict in one line, and the planning line. */
+export function vehicleSummaryBlock(flow: Flow, sv: SheetVehicle): void {
+  flow.heading(`Ground fields at a glance (${sv.ruleSet.title})`);
+  if (sv.problem) flow.paragraph(`The fields could not be scored: ${sv.problem}`, 'medium', 9.5, STOP);
+  if (!sv.fields.length)
+    flow.paragraph('These rules set no ground field for this kind of vehicle; see the test cylinders.', 'regular', 9, MUTED);
+  else
+    flow.table(
+      [
+        { title: 'Field', width: 0.46 },
+        { title: 'Class', width: 0.12 },
+        { title: 'Share seen', width: 0.14, align: 'right' },
+        { title: 'Needed', width: 0.14, align: 'right' },
+        { title: 'Verdict', width: 0.14 },
+      ],
+      sv.fields.map((fl) => [fl.name, fl.fieldClass, fl.share, fl.needed, fl.verdict]),
+    );
+  flow.gap(3);
+  flow.paragraph(sv.planningNote, 'semibold', 8.5, BEACON);
+}
+
 /** The vehicle pages: the top view, the fields, the test cylinders, the mounting sentences and the mirrors. */
 export function vehiclePages(flow: Flow, content: SheetContent, sv: SheetVehicle, paperName: string, cautions: (flow: Flow) => void): void {
   flow.newPage();
