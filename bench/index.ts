@@ -12,6 +12,8 @@ async function main(): Promise<void> {
   // BENCH_ONLY=walls: the optics engine's wall growth table alone.
   if (process.env.BENCH_ONLY === 'walls') return runOpticsBench();
   if (process.env.BENCH_ONLY === 'load') return runLoadBench();
+  // BENCH_ONLY=vehicle: vehicle scoring and the vehicle job beside the site job.
+  if (process.env.BENCH_ONLY === 'vehicle') return runVehicleBench();
   for (const run of runners) await run();
 }
 

@@ -7,9 +7,99 @@ import os from 'node:os';
 import { Bench } from 'tinybench';
 import { scoreVehicle, vehicleFields, vehicleGeometry, mirrorFootprint } from '../shared/vehicle';
 import { demoTruck, sixMirrors } from '../tests/shared/vehicle/fixtures';
+import { DEMO_CATALOGUE } from '../server/seeders/demo-catalogue';
+import { DEMO_PROJECT } from '../server/seeders/demo-project';
+import { DEMO_TRUCK } from '../server/seeders/demo-vehicles';
+import { evaluateProject, evaluateVehicleJob, ProjectEvaluator } from '../shared/project-optics';
+import { SCENE_LIMITS, VEHICLE_LIMITS, scene as sceneSchema, type CatalogueItemDto, type PlacementDto } from '../shared/schemas';
+
+/** The demo cold store as the API lists it: catalogue ids in seed order, placements 1…n. */
+function demoSiteJob() {
+  const catalogue: CatalogueItemDto[] = DEMO_CATALOGUE.map((d, i) => ({
+    ...d,
+    id: i + 1,
+    currency: 'EUR',
+    notes: '',
+    active: true,
+    demo: true,
+    version: 1,
+    updatedAt: '2026-01-01T00:00:00.000Z',
+  }));
+  const placements = DEMO_PROJECT.placements.map((p, i) => ({
+    id: i + 1,
+    catalogueItemId: catalogue.find((c) => c.code === p.code)!.id,
+    customMirror: null,
+    positionM: p.positionM,
+    heightM: p.heightM,
+    azimuthRad: (p.azimuthDeg * Math.PI) / 180,
+    tiltDownRad: (p.tiltDownDeg * Math.PI) / 180,
+    viewerId: p.viewerId,
+  }));
+  return { scene: sceneSchema.parse(DEMO_PROJECT.scene), placements, catalogue };
+}
+
+/** The demo truck job as the API stores it: its scene and six placements (ids 1…6). */
+function demoTruckJob() {
+  const scene = sceneSchema.parse(DEMO_TRUCK.scene);
+  const placements: PlacementDto[] = DEMO_TRUCK.placements.map((p, i) => ({
+    id: i + 1,
+    projectId: 1,
+    label: p.label,
+    catalogueItemId: null,
+    customMirror: p.mirror,
+    positionM: p.positionM,
+    heightM: p.heightM,
+    azimuthRad: (p.azimuthDeg * Math.PI) / 180,
+    tiltDownRad: (p.tiltDownDeg * Math.PI) / 180,
+    viewerId: null,
+    notes: '',
+    mirrorClass: p.mirrorClass,
+    servesFieldIds: p.servesFieldIds,
+    version: 1,
+    updatedAt: '2026-01-01T00:00:00.000Z',
+  }));
+  return { scene, placements };
+}
 
 function fmt(ms: number): string {
   return ms < 1 ? `${(ms * 1000).toFixed(1)} µs` : `${ms.toFixed(2)} ms`;
+}
+
+/**
+ * The heaviest vehicle job the API accepts (VEHICLE_LIMITS, SCENE_LIMITS.mirrors): the demo truck
+ * with 50 own ground fields of 200 corners, 50 test cylinders and 30 mirrors serving every field.
+ */
+function heaviestVehicleJob() {
+  const { scene, placements } = demoTruckJob();
+  const v = scene.vehicle!;
+  const groundFields = Array.from({ length: VEHICLE_LIMITS.groundFields }, (_, i) => {
+    const x0 = -2 - (i % 10) * 3;
+    const y0 = (i < 25 ? 1 : -1) * (1.4 + Math.floor((i % 25) / 10) * 2);
+    const ring = Array.from({ length: VEHICLE_LIMITS.cornersPerField }, (_, k) => {
+      const a = (2 * Math.PI * k) / VEHICLE_LIMITS.cornersPerField;
+      return [x0 + 1.2 * Math.cos(a), y0 + 0.9 * Math.sin(a)] as [number, number];
+    });
+    return { id: `g${i}`, name: `Field ${i}`, polygonM: ring };
+  });
+  const targets = Array.from({ length: VEHICLE_LIMITS.targets }, (_, i) => ({
+    id: `t${i}`,
+    name: `T${i}`,
+    positionM: [-1 - (i % 10), (i < 25 ? 1 : -1) * (1.6 + (i % 3))] as [number, number],
+    diameterM: 0.3,
+    heightM: 0.3,
+  }));
+  const heavy = sceneSchema.parse({ ...scene, vehicle: { ...v, groundFields, targets } });
+  const many = Array.from({ length: SCENE_LIMITS.mirrors }, (_, i) => {
+    const p = placements[i % placements.length];
+    return {
+      ...p,
+      id: i + 1,
+      label: `M${i + 1}`,
+      positionM: [p.positionM[0] - Math.floor(i / 6) * 0.3, p.positionM[1]] as [number, number],
+      servesFieldIds: null,
+    };
+  });
+  return { scene: heavy, placements: many, catalogue: [] };
 }
 
 export async function runVehicleBench(): Promise<void> {
@@ -17,9 +107,14 @@ export async function runVehicleBench(): Promise<void> {
   const mirrors = sixMirrors(truck);
   const fields = vehicleFields(truck);
   const g = vehicleGeometry(truck);
+  const job = demoTruckJob();
+  const site = demoSiteJob();
+  const siteName = `site job beside it: the demo cold store, through project-optics (${site.placements.length} mirrors, ${site.scene.zones.length} zones, ${site.scene.walls.length} walls)`;
   const budgets: Record<string, number | null> = {
     'truck, 6 mirrors × 6 fields × 2 eyes': 50,
     'the 12 footprints alone (6 mirrors × 2 eyes, body as walls)': null,
+    'vehicle job: the demo truck as stored, through project-optics (6 mirrors, 6 fields, 2 eyes)': 50,
+    [siteName]: null,
   };
   let sink = 0;
   const bench = new Bench({ name: 'vehicle', time: 3000, warmupTime: 500 });
@@ -29,6 +124,13 @@ export async function runVehicleBench(): Promise<void> {
     })
     .add('the 12 footprints alone (6 mirrors × 2 eyes, body as walls)', () => {
       for (const m of mirrors) for (const e of g.ocularM) sink += mirrorFootprint(m, e, 70, g).length;
+    })
+    .add('vehicle job: the demo truck as stored, through project-optics (6 mirrors, 6 fields, 2 eyes)', () => {
+      sink += evaluateVehicleJob({ ...job, catalogue: [] }).vehicle.fields.reduce((a, f) => a + f.share, 0);
+    })
+    .add(siteName, () => {
+      // A fresh evaluator each time: no cached placement, as for the sheet.
+      sink += new ProjectEvaluator().evaluate(site).zones.reduce((a, z) => a + z.fraction, 0);
     });
   await bench.run();
 
@@ -65,6 +167,19 @@ export async function runVehicleBench(): Promise<void> {
   }
   console.log(
     `  truck, CPU time per scoring: median ${fmt(cpuMs[cpuMs.length >> 1])} (load average ${load1.toFixed(1)} on ${os.cpus().length} cores while measured)`,
+  );
+  // The heaviest accepted vehicle job as the sheet evaluates it (with the detect / recognise estimate), CPU time.
+  const heaviest = heaviestVehicleJob();
+  const heavyCpu: number[] = [];
+  for (let i = 0; i < 3; i++) {
+    const t0 = process.cpuUsage();
+    sink += evaluateProject(heaviest).vehicle?.fields.length ?? 0;
+    const d = process.cpuUsage(t0);
+    heavyCpu.push((d.user + d.system) / 1000);
+  }
+  heavyCpu.sort((a, b) => a - b);
+  console.log(
+    `  heaviest accepted vehicle job (${heaviest.placements.length} mirrors, ${heaviest.scene.vehicle!.groundFields.length} own fields of ${VEHICLE_LIMITS.cornersPerField} corners + the rule's, ${heaviest.scene.vehicle!.targets.length} cylinders), as the sheet evaluates it: median CPU ${fmt(heavyCpu[1])} of 3 (the sheet task's budget is 20 s)`,
   );
   if (!allMet) process.exitCode = 1;
 }

@@ -1,7 +1,8 @@
-/** A demo right-hand-drive rigid truck (fictional) with six mirrors, shared by tests and the bench. */
+/** A demo right-hand-drive rigid truck (fictional) with six mirrors, shared by tests and the bench; any accepted vehicle for property tests. */
 import type { Vec3 } from '../../../shared/geometry/vec3';
 import type { Pose } from '../../../shared/optics';
-import { vehiclePreset, type Vehicle } from '../../../shared/schemas/vehicle';
+import fc from 'fast-check';
+import { vehicleKinds, vehiclePreset, type Vehicle, type VehicleInput } from '../../../shared/schemas/vehicle';
 import { vehicleGeometry, type VehicleMirror } from '../../../shared/vehicle';
 
 /** Aims a mirror so that a ray from the eye to its vertex reflects toward `lookAtM` (the axis bisects the two directions). */
@@ -75,3 +76,47 @@ export function sixMirrors(v: Vehicle): VehicleMirror[] {
     },
   ];
 }
+
+/** Any vehicle the schema should accept: dimensions drawn over the whole accepted ranges, the cab holding the driver. */
+export const anyVehicle: fc.Arbitrary<VehicleInput> = fc
+  .record({
+    kind: fc.constantFrom(...vehicleKinds),
+    driverSide: fc.constantFrom('left' as const, 'right' as const),
+    lengthM: fc.double({ min: 2, max: 40, noNaN: true }),
+    widthM: fc.double({ min: 1, max: 3.5, noNaN: true }),
+    cabShare: fc.double({ min: 0.3, max: 1, noNaN: true }),
+    cabFront: fc.double({ min: 0, max: 1, noNaN: true }),
+    cabLen: fc.double({ min: 0.8, max: 3, noNaN: true }),
+    seatFrac: fc.double({ min: 0.1, max: 0.9, noNaN: true }),
+    acrossFrac: fc.double({ min: 0, max: 0.9, noNaN: true }),
+    seatHeightM: fc.double({ min: 0.3, max: 2.5, noNaN: true }),
+    rule: fc.constantFrom('un-r46' as const, 'iso-5006' as const),
+    direct: fc.boolean(),
+    bodyHeightM: fc.double({ min: 0.5, max: 6, noNaN: true }),
+  })
+  .map((r) => {
+    const cabWidthM = r.widthM * r.cabShare;
+    const cabFrontBehindM = Math.min(r.cabFront, r.lengthM * 0.3);
+    const cabRear = Math.min(cabFrontBehindM + r.cabLen, r.lengthM);
+    const behind = cabFrontBehindM + r.seatFrac * (cabRear - cabFrontBehindM);
+    const across = (r.acrossFrac * cabWidthM) / 2;
+    const eyeH = r.direct ? r.seatHeightM + 0.6 : r.seatHeightM + (r.rule === 'un-r46' ? 0.635 : 0.68);
+    const eye = r.direct
+      ? { method: 'direct' as const, eyeBehindFrontM: behind, eyeFromCentreM: across, eyeHeightM: eyeH }
+      : { method: 'seat' as const, rule: r.rule, seatBehindFrontM: behind, seatFromCentreM: across, seatHeightM: r.seatHeightM };
+    const bodyBoxes = [
+      {
+        id: 'cab',
+        name: 'Cab',
+        frontBehindM: cabFrontBehindM,
+        rearBehindM: cabRear,
+        widthM: cabWidthM,
+        heightM: eyeH + 0.4,
+        windowLineM: eyeH * 0.7,
+      },
+      ...(cabRear + 0.1 < r.lengthM
+        ? [{ id: 'body', name: 'Body', frontBehindM: cabRear + 0.05, rearBehindM: r.lengthM, widthM: r.widthM, heightM: r.bodyHeightM }]
+        : []),
+    ];
+    return { kind: r.kind, driverSide: r.driverSide, lengthM: r.lengthM, widthM: r.widthM, cabWidthM, cabFrontBehindM, eye, bodyBoxes };
+  });

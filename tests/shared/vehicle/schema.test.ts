@@ -1,7 +1,8 @@
 import fc from 'fast-check';
 import { polygonArea } from '../../../shared/geometry/polygon';
 import { checkZone } from '../../../shared/optics';
-import { vehicle, vehicleKinds, vehiclePreset, type VehicleInput } from '../../../shared/schemas/vehicle';
+import { vehicle, vehicleKinds, vehiclePreset } from '../../../shared/schemas/vehicle';
+import { anyVehicle } from './fixtures';
 import { mirrorVehicleAcross, vehicleFields, vehicleGeometry } from '../../../shared/vehicle';
 
 // Preset figures are trade practice [M?] (docs/vehicle-sources.md); eye offsets UN R46 635 mm [P], ISO 5006 680 mm / 20 mm [P].
@@ -11,50 +12,6 @@ const messages = (input: unknown): Record<string, string> => {
   if (r.success) return {};
   return Object.fromEntries(r.error.issues.map((i) => [i.path.join('.'), i.message]));
 };
-
-/** Any vehicle the schema should accept: dimensions drawn over the whole accepted ranges, the cab holding the driver. */
-export const anyVehicle: fc.Arbitrary<VehicleInput> = fc
-  .record({
-    kind: fc.constantFrom(...vehicleKinds),
-    driverSide: fc.constantFrom('left' as const, 'right' as const),
-    lengthM: fc.double({ min: 2, max: 40, noNaN: true }),
-    widthM: fc.double({ min: 1, max: 3.5, noNaN: true }),
-    cabShare: fc.double({ min: 0.3, max: 1, noNaN: true }),
-    cabFront: fc.double({ min: 0, max: 1, noNaN: true }),
-    cabLen: fc.double({ min: 0.8, max: 3, noNaN: true }),
-    seatFrac: fc.double({ min: 0.1, max: 0.9, noNaN: true }),
-    acrossFrac: fc.double({ min: 0, max: 0.9, noNaN: true }),
-    seatHeightM: fc.double({ min: 0.3, max: 2.5, noNaN: true }),
-    rule: fc.constantFrom('un-r46' as const, 'iso-5006' as const),
-    direct: fc.boolean(),
-    bodyHeightM: fc.double({ min: 0.5, max: 6, noNaN: true }),
-  })
-  .map((r) => {
-    const cabWidthM = r.widthM * r.cabShare;
-    const cabFrontBehindM = Math.min(r.cabFront, r.lengthM * 0.3);
-    const cabRear = Math.min(cabFrontBehindM + r.cabLen, r.lengthM);
-    const behind = cabFrontBehindM + r.seatFrac * (cabRear - cabFrontBehindM);
-    const across = (r.acrossFrac * cabWidthM) / 2;
-    const eyeH = r.direct ? r.seatHeightM + 0.6 : r.seatHeightM + (r.rule === 'un-r46' ? 0.635 : 0.68);
-    const eye = r.direct
-      ? { method: 'direct' as const, eyeBehindFrontM: behind, eyeFromCentreM: across, eyeHeightM: eyeH }
-      : { method: 'seat' as const, rule: r.rule, seatBehindFrontM: behind, seatFromCentreM: across, seatHeightM: r.seatHeightM };
-    const bodyBoxes = [
-      {
-        id: 'cab',
-        name: 'Cab',
-        frontBehindM: cabFrontBehindM,
-        rearBehindM: cabRear,
-        widthM: cabWidthM,
-        heightM: eyeH + 0.4,
-        windowLineM: eyeH * 0.7,
-      },
-      ...(cabRear + 0.1 < r.lengthM
-        ? [{ id: 'body', name: 'Body', frontBehindM: cabRear + 0.05, rearBehindM: r.lengthM, widthM: r.widthM, heightM: r.bodyHeightM }]
-        : []),
-    ];
-    return { kind: r.kind, driverSide: r.driverSide, lengthM: r.lengthM, widthM: r.widthM, cabWidthM, cabFrontBehindM, eye, bodyBoxes };
-  });
 
 describe('the vehicle model', () => {
   it.each(vehicleKinds)('offers a valid %s preset for both driving sides with the driver inside it', (kind) => {
