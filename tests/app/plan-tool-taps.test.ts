@@ -4,7 +4,7 @@ import { WALL_HEIGHT_M } from '@/components/plan/plan-edits';
 import { finishZoneSketch, MIN_WALL_LENGTH_M, TAP_SENTENCES, tapWithTool, type TapContext } from '@/components/plan/plan-tool-taps';
 import type { PairM } from '@/components/plan/plan-view';
 import { LIMIT_MESSAGES, scene as sceneSchema, SCENE_LIMITS, wallKinds, type Scene } from '@/shared/schemas';
-import { heavyScene } from '../../bench/heavy-project';
+import { heavyScene } from '../../bench/heavy-scene';
 import { TEST_CATALOGUE } from './fixtures';
 import { anyPointM, anyScene } from './scene-arbitrary';
 
