@@ -122,6 +122,17 @@ async function sheetPages(agent: Agent, id: number, query = ''): Promise<{ pages
   return { pages: pagesText(pdf.body as Buffer), revision: issued.body.revision.number, created: issued.body.created };
 }
 
+describe('the demo', () => {
+  it('seeds one demo job waiting for the demo safety officer, with its trail, so the queue is not empty', async () => {
+    // Read before the other tests add jobs of their own.
+    const list = (await agents.reviewer.get('/api/projects')).body.projects as ProjectDto[];
+    const waiting = list.filter((p) => p.state === 'with_reviewer');
+    expect(waiting).toEqual([expect.objectContaining({ name: expect.stringContaining('(demo)'), reviewerId, placementCount: 1 })]);
+    expect(Date.parse(waiting[0].sentAt!)).toBeLessThan(Date.now() - 3600_000);
+    expect((await events(waiting[0].id)).map((e) => e.kind)).toEqual(['created', 'placement_added', 'sent']);
+  });
+});
+
 describe('who may use each review route', () => {
   // 401 signed out; 404 for a job one cannot see; 403 for a role that may not act; 409 for a state that does not allow it.
   const cases: { route: string; expect: Record<Who, number>; run: (agent: Agent) => Promise<request.Response> }[] = [
