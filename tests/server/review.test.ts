@@ -443,6 +443,37 @@ describe('approval on the sheet and its withdrawal', () => {
   });
 });
 
+describe('a catalogue change and approved jobs', () => {
+  it("withdraws an approved job's approval when its catalogue mirror's optics change, not when only the price does", async () => {
+    const created = await agents.admin.post('/api/catalog').send({
+      code: 'REV-700',
+      name: 'Review round 700 (test)',
+      mirror: { shape: 'round', diameterM: 0.7, radiusM: 1.4 },
+      material: 'acrylic',
+      reflectance: 0.8,
+      massKg: 4,
+      unitPriceMinor: 14900,
+      currency: 'EUR',
+    });
+    const item = created.body.item;
+    const { project, placementId } = await job('Catalogue mirror');
+    const pl = (await get(project.id)).placements[0];
+    await agents.installerA
+      .patch(`/api/projects/${project.id}/placements/${placementId}`)
+      .send({ version: pl.version, catalogueItemId: item.id });
+    const sent = await agents.installerA.post(`/api/projects/${project.id}/send`).send({ version: (await get(project.id)).version });
+    await agents.reviewer.post(`/api/projects/${project.id}/approve`).send({ version: sent.body.project.version });
+
+    const priced = await agents.admin.patch(`/api/catalog/${item.id}`).send({ version: item.version, unitPriceMinor: 15900 });
+    expect((await get(project.id)).state).toBe('approved');
+    await agents.admin
+      .patch(`/api/catalog/${item.id}`)
+      .send({ version: priced.body.item.version, mirror: { shape: 'round', diameterM: 0.7, radiusM: 1.6 } });
+    expect((await get(project.id)).state).toBe('drawing_up');
+    expect((await events(project.id)).at(-1)).toMatchObject({ kind: 'approval_withdrawn', summary: expect.stringContaining('REV-700') });
+  });
+});
+
 describe('notices', () => {
   it('mails every reviewer when a job is sent to no one in particular, with a link to the job', async () => {
     const { project } = await job('Notice to all');
