@@ -124,8 +124,8 @@ export function createApp(deps: AppDeps): SightfanApp {
   api.use('/invitations', invitationsRoutes(orm, config.bcryptCost, store));
   api.use('/users', usersRoutes({ orm, outbox, store, publicUrl }));
   api.use('/outbox', outboxRoutes(orm, config.demoMode, config.mailFrom));
-  api.use('/catalog', catalogRoutes(orm));
-  api.use('/projects', projectsRoutes(orm));
+  api.use('/catalog', catalogRoutes(orm, work));
+  api.use('/projects', projectsRoutes(orm, work));
   api.use('/projects', sheetsRoutes({ orm, outbox, work, outsidePerHour: config.sheetOutsideEmailsPerHour }));
   api.use('/projects', reviewRoutes({ orm, work, publicUrl }));
   api.use('/reviewers', reviewersRoutes(orm));

@@ -4,7 +4,8 @@ import { Migration } from '@mikro-orm/migrations';
  * The review loop: a job's `state` replaces `status` (every existing job, all 'draft', becomes
  * 'drawing_up'), the reviewer it was sent to and its approval; comments; the append-only audit log,
  * which the database itself refuses to change or delete (triggers); the outbox learns the 'review'
- * kind of e-mail (its check is rebuilt: no table refers to outgoing_mail, so the copy is safe).
+ * kind of e-mail (its check is rebuilt: no table refers to outgoing_mail, so the copy is safe); a
+ * revision records the units its kept content is printed in.
  */
 export class Migration20261202160000 extends Migration {
   override async up(): Promise<void> {
@@ -28,6 +29,8 @@ export class Migration20261202160000 extends Migration {
     this.addSql(`create index \`project_reviewer_id_index\` on \`project\` (\`reviewer_id\`);`);
     this.addSql(`create index \`project_approved_by_id_index\` on \`project\` (\`approved_by_id\`);`);
     this.addSql(`create index \`project_state_index\` on \`project\` (\`state\`);`);
+
+    this.addSql(`alter table \`sheet_revision\` add column \`units\` text check (\`units\` in ('metric', 'imperial')) null;`);
 
     this.addSql(
       `create table \`project_comment\` (\`id\` integer not null primary key autoincrement, \`created_at\` datetime not null, \`updated_at\` datetime not null, \`project_id\` integer not null, \`parent_id\` integer null, \`author_id\` integer not null, \`body\` text not null, \`pin\` json not null, \`is_return_reason\` integer not null default false, \`resolved\` integer not null default false, constraint \`project_comment_project_id_foreign\` foreign key(\`project_id\`) references \`project\`(\`id\`) on delete cascade on update cascade, constraint \`project_comment_parent_id_foreign\` foreign key(\`parent_id\`) references \`project_comment\`(\`id\`) on delete cascade on update cascade, constraint \`project_comment_author_id_foreign\` foreign key(\`author_id\`) references \`user\`(\`id\`) on update cascade);`,

@@ -13,6 +13,7 @@ import { visibleCatalogue } from '../projects/project-access';
 import { onDuplicate, onStaleVersion } from '../../write-conflicts';
 import { withdrawApprovalsUsing } from '../review/review-service';
 import type { User } from '../users/user.entity';
+import type { SheetWork } from '../../workers/sheet-pool';
 
 onDuplicate(
   'mirror_model.code',
@@ -20,7 +21,7 @@ onDuplicate(
 );
 onStaleVersion(MirrorModel, 'catalogue item', async (em, stale) => toCatalogueItemDto(await em.findOneOrFail(MirrorModel, stale.id)));
 
-export function catalogRoutes(orm: Orm): Router {
+export function catalogRoutes(orm: Orm, work: SheetWork): Router {
   const r = Router();
 
   r.get('/', requireUser, async (req, res) => {
@@ -71,7 +72,7 @@ export function catalogRoutes(orm: Orm): Router {
     em.assign(item, rest);
     if (mirror) assignMirror(item, mirror);
     await em.flush();
-    await withdrawApprovalsUsing(em, item, user);
+    await withdrawApprovalsUsing(em, item, user, work);
     return item;
   }
 

@@ -27,6 +27,7 @@ import { Project } from './project.entity';
 import { assertCanEdit, canEdit, findVisibleProject, visibleCatalogue, visibleProjects } from './project-access';
 import { toPlacementDto, toProjectDto, toProjectSummaryDto } from './project.dto';
 import { onStaleVersion } from '../../write-conflicts';
+import type { SheetWork } from '../../workers/sheet-pool';
 import { factChanges, placementFacts, projectChanges, recordEvent } from '../review/audit';
 import { afterPlacementWrite, openCommentCount, openCommentCounts, withdrawalIfChanged } from '../review/review-service';
 
@@ -104,7 +105,7 @@ async function factsOf(em: EntityManager, p: Placement): Promise<Record<string, 
   return placementFacts(p);
 }
 
-export function projectsRoutes(orm: Orm): Router {
+export function projectsRoutes(orm: Orm, work: SheetWork): Router {
   const r = Router();
   r.use(requireUser);
 
@@ -205,7 +206,7 @@ export function projectsRoutes(orm: Orm): Router {
         summary: `Changed ${changed.map((c) => c.field).join(', ')}.`,
         changes: changed,
       });
-    const withdrawn = await withdrawalIfChanged(em, project, user);
+    const withdrawn = await withdrawalIfChanged(em, project, user, work);
     if (withdrawn) em.assign(project, withdrawn);
     await em.flush();
     return project;
@@ -248,7 +249,7 @@ export function projectsRoutes(orm: Orm): Router {
         changes: factChanges({}, after),
         detail: { placementId: placement.id },
       });
-      const projectVersion = await afterPlacementWrite(em, project, req.user!);
+      const projectVersion = await afterPlacementWrite(em, project, req.user!, work);
       return { placement: toPlacementDto(placement), projectVersion };
     });
     res.status(201).json(out);
@@ -302,7 +303,7 @@ export function projectsRoutes(orm: Orm): Router {
           changes,
           detail: { placementId: placement.id },
         });
-      const projectVersion = await afterPlacementWrite(em, project, req.user!);
+      const projectVersion = await afterPlacementWrite(em, project, req.user!, work);
       return { placement: toPlacementDto(placement), projectVersion };
     });
     res.json(out);
@@ -326,7 +327,7 @@ export function projectsRoutes(orm: Orm): Router {
         changes: factChanges(before, Object.fromEntries(Object.keys(before).map((k) => [k, '']))),
         detail: { placementId },
       });
-      return { projectVersion: await afterPlacementWrite(em, project, req.user!) };
+      return { projectVersion: await afterPlacementWrite(em, project, req.user!, work) };
     });
     res.json(out);
   });

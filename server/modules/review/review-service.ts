@@ -9,6 +9,7 @@ import { Placement } from '../projects/placement.entity';
 import { Project } from '../projects/project.entity';
 import { currentHash } from '../sheets/sheet-service';
 import type { User } from '../users/user.entity';
+import type { SheetWork } from '../../workers/sheet-pool';
 import { recordEvent } from './audit';
 
 /** The approval columns cleared, the job back to being drawn up. */
@@ -31,10 +32,11 @@ export async function withdrawalIfChanged(
   em: EntityManager,
   project: Project,
   actor: User,
+  work: SheetWork,
   because = 'the job changed after it was approved',
 ): Promise<typeof WITHDRAWN | null> {
   if (project.state !== 'approved' || !project.approvedHash) return null;
-  const hash = await currentHash(em, project);
+  const hash = await currentHash(em, project, work);
   if (hash === project.approvedHash) return null;
   recordEvent(em, {
     projectId: project.id,
@@ -51,8 +53,8 @@ export async function withdrawalIfChanged(
  * changed, and raises the project's version atomically (`version = version + 1`), so two writes to
  * two different mirrors never conflict on the project. Returns the project's new version.
  */
-export async function afterPlacementWrite(em: EntityManager, project: Project, actor: User): Promise<number> {
-  const withdrawn = await withdrawalIfChanged(em, project, actor);
+export async function afterPlacementWrite(em: EntityManager, project: Project, actor: User, work: SheetWork): Promise<number> {
+  const withdrawn = await withdrawalIfChanged(em, project, actor, work);
   await em.flush();
   await em.nativeUpdate(
     Project,
@@ -67,13 +69,13 @@ export async function afterPlacementWrite(em: EntityManager, project: Project, a
  * A catalogue item's optics are part of every job that uses it: after a change to the item (flushed
  * in this transaction), each approved job whose content hash moved is withdrawn and its version raised.
  */
-export async function withdrawApprovalsUsing(em: EntityManager, item: MirrorModel, actor: User): Promise<void> {
+export async function withdrawApprovalsUsing(em: EntityManager, item: MirrorModel, actor: User, work: SheetWork): Promise<void> {
   const uses = await em.find(Placement, { catalogueItem: item.id }, { fields: ['project'] });
   const ids = [...new Set(uses.map((p) => p.project.id))];
   if (!ids.length) return;
   const approved = await em.find(Project, { id: { $in: ids }, state: 'approved' }, { populate: ['owner', 'organization'] });
   for (const project of approved) {
-    const withdrawn = await withdrawalIfChanged(em, project, actor, `catalogue item ${item.code} changed`);
+    const withdrawn = await withdrawalIfChanged(em, project, actor, work, `catalogue item ${item.code} changed`);
     if (!withdrawn) continue;
     await em.flush();
     await em.nativeUpdate(

@@ -6,10 +6,10 @@
 import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/sqlite';
 import { PROJECT_STATE_LABELS, type ProjectState, type SheetPaper, type SheetRevisionDto } from '../../../shared/schemas';
+import { resolveUnits } from '../../../shared/units';
 import { HttpError } from '../../http-error';
 import type { SheetApproval } from '../../pdf/approval-mark';
 import { sheetFilename, type SheetInput } from '../../pdf/sheet-model';
-import { engineeringHash } from '../review/content-hash';
 import { roleWords } from '../review/notices';
 import type { SheetWork } from '../../workers/sheet-pool';
 import { toCatalogueItemDto } from '../catalog/catalog.dto';
@@ -67,8 +67,7 @@ export async function sheetInput(em: EntityManager, project: Project): Promise<S
 /** The project's sheet content as it stands: from the cache when its input was evaluated before. */
 export async function currentContent(em: EntityManager, project: Project, work: SheetWork): Promise<CurrentSheet> {
   const input = await sheetInput(em, project);
-  const key = await work.inputHash(input);
-  const hash = engineeringHash(input);
+  const { inputHash: key, contentHash: hash } = await work.hashes(input);
   const hit = await em.fork().findOne(SheetEvaluation, { inputHash: key });
   if (hit) {
     await em.nativeUpdate(SheetEvaluation, { inputHash: key }, { usedAt: new Date() });
@@ -79,9 +78,9 @@ export async function currentContent(em: EntityManager, project: Project, work: 
   return { project, contentJson: built.contentJson, hash };
 }
 
-/** The project's content hash as it stands (cheap: no evaluation). */
-export async function currentHash(em: EntityManager, project: Project): Promise<string> {
-  return engineeringHash(await sheetInput(em, project));
+/** The project's content hash as it stands (no evaluation; hashed on the worker pool). */
+export async function currentHash(em: EntityManager, project: Project, work: SheetWork): Promise<string> {
+  return work.contentHash(await sheetInput(em, project));
 }
 
 /**
@@ -154,6 +153,7 @@ export async function issueRevision(
       issuedAt,
       issuedBy: em.getReference(User, user.id),
       content: sheet.contentJson,
+      units: resolveUnits(sheet.project.units, sheet.project.owner.units),
     });
     try {
       await em.flush();
@@ -190,7 +190,13 @@ export async function renderRevision(
   let contentJson: string;
   // The revision that holds the current engineering content prints as the job stands now (its units):
   // switching units is not a new revision, and its sheet follows the switch.
-  const now = (await currentHash(em, project)) === revision.contentHash ? await currentContent(em, project, work) : null;
+  // Only when the units differ from the kept content's: the common path reads nothing more.
+  const unitsNow = resolveUnits(project.units, project.owner.units);
+  const now =
+    (!revision.content || (revision.units !== null && revision.units !== unitsNow)) &&
+    (await currentHash(em, project, work)) === revision.contentHash
+      ? await currentContent(em, project, work)
+      : null;
   if (now) {
     contentJson = now.contentJson;
   } else if (revision.content) {
