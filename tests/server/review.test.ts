@@ -350,6 +350,34 @@ describe('the audit trail', () => {
     expect(log.every((e) => e.actorName.length > 0 && !Number.isNaN(Date.parse(e.at)))).toBe(true);
   });
 
+  it("records a change of the job's own fields and plan counts with before → after, and nothing for a units switch", async () => {
+    const { project } = await job('Renamed job');
+    const renamed = await agents.installerA.patch(`/api/projects/${project.id}`).send({
+      version: project.version,
+      name: 'Renamed job, bay 2',
+      scene: { ...scene, walls: [...scene.walls, { id: 'w2', kind: 'wall', aM: [0, 9], bM: [10, 9], heightM: 4 }] },
+    });
+    expect(renamed.status).toBe(200);
+    await agents.installerA.patch(`/api/projects/${project.id}`).send({ version: renamed.body.project.version, units: 'imperial' });
+    const log = await events(project.id);
+    expect(log.map((e) => e.kind)).toEqual(['created', 'placement_added', 'changed']);
+    expect(log[2].changes).toEqual([
+      { field: 'name', before: 'Renamed job', after: 'Renamed job, bay 2' },
+      { field: 'walls', before: '1', after: '2' },
+    ]);
+  });
+
+  it('records a reassignment by an admin and mails the new reviewer', async () => {
+    const { project } = await job('Reassigned', { sent: true });
+    const rosa = ((await agents.admin.get('/api/reviewers')).body.reviewers as { id: number; name: string }[]).find((r) =>
+      r.name.startsWith('rosa.reviewer'),
+    )!;
+    const res = await agents.admin.post(`/api/projects/${project.id}/send`).send({ version: project.version, reviewerId: rosa.id });
+    expect(res.body.project).toMatchObject({ state: 'with_reviewer', reviewerId: rosa.id, reviewerName: rosa.name });
+    expect((await events(project.id)).at(-1)).toMatchObject({ kind: 'reassigned', detail: { reviewerId: rosa.id } });
+    await mailTo(SECOND_REVIEWER, 'Job waiting for your review: Reassigned');
+  });
+
   it('has no route that changes or deletes an event', async () => {
     const { project } = await job('Untouchable');
     const [first] = await events(project.id);
@@ -438,6 +466,8 @@ describe('approval on the sheet and its withdrawal', () => {
     const sheet = await sheetPages(agents.installerA, project.id);
     expect(sheet).toMatchObject({ created: false, revision: approved.approval.revision });
     expect(sheet.pages[0]).toContain('imperial');
+    const status = (await agents.installerA.get(`/api/projects/${project.id}/sheet`)).body;
+    expect(status.current).toMatchObject({ number: approved.approval.revision, changedSinceLast: false, approved: true });
     expect(sheet.pages.some((p) => p.includes('NOT APPROVED'))).toBe(false);
     expect((await events(project.id)).map((e) => e.kind)).not.toContain('approval_withdrawn');
   });
