@@ -4,12 +4,15 @@ import { runPlanBench } from './plan.bench';
 import { runSheetBench } from './sheet.bench';
 import { runVehicleBench } from './vehicle.bench';
 import { runBoundedBench } from './bounded.bench';
+import { runReviewBench } from './review.bench';
 
-const runners: Array<() => Promise<void>> = [runOpticsBench, runVehicleBench, runSheetBench, runBoundedBench, runPlanBench];
+const runners: Array<() => Promise<void>> = [runOpticsBench, runVehicleBench, runSheetBench, runBoundedBench, runReviewBench, runPlanBench];
 
 async function main(): Promise<void> {
   // BENCH_ONLY=walls: the optics engine's wall growth table alone.
   if (process.env.BENCH_ONLY === 'walls') return runOpticsBench();
+  // BENCH_ONLY=review: the content hash alone.
+  if (process.env.BENCH_ONLY === 'review') return runReviewBench();
   for (const run of runners) await run();
 }
 
