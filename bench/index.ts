@@ -5,8 +5,9 @@ import { runSheetBench } from './sheet.bench';
 import { runVehicleBench } from './vehicle.bench';
 import { runBoundedBench } from './bounded.bench';
 import { runLoadBench } from './load.bench';
+import { runReviewBench } from './review.bench';
 
-const runners: Array<() => Promise<void>> = [runOpticsBench, runVehicleBench, runSheetBench, runBoundedBench, runPlanBench, runLoadBench];
+const runners: Array<() => Promise<void>> = [runOpticsBench, runVehicleBench, runSheetBench, runBoundedBench, runReviewBench, runPlanBench, runLoadBench];
 
 async function main(): Promise<void> {
   // BENCH_ONLY=walls: the optics engine's wall growth table alone.
@@ -14,6 +15,8 @@ async function main(): Promise<void> {
   if (process.env.BENCH_ONLY === 'load') return runLoadBench();
   // BENCH_ONLY=vehicle: vehicle scoring and the vehicle job beside the site job.
   if (process.env.BENCH_ONLY === 'vehicle') return runVehicleBench();
+  // BENCH_ONLY=review: the content hash alone.
+  if (process.env.BENCH_ONLY === 'review') return runReviewBench();
   for (const run of runners) await run();
 }
 

@@ -28,6 +28,7 @@ import { usersRoutes } from './modules/users/users.routes';
 import { catalogueRoutes } from './modules/catalogue/catalogue.routes';
 import { projectsRoutes } from './modules/projects/projects.routes';
 import { sheetsRoutes } from './modules/sheets/sheets.routes';
+import { reviewRoutes, reviewersRoutes } from './modules/review/review.routes';
 import { createSheetWork, type SheetWork } from './workers/sheet-pool';
 
 export interface AppDeps {
@@ -173,12 +174,14 @@ export function createApp(deps: AppDeps): SightfanApp {
   api.use('/invitations', invitationsRoutes(config.bcryptCost, store));
   api.use('/users', usersRoutes({ outbox, store, publicUrl }));
   api.use('/outbox', outboxRoutes(config.demoMode, config.mailFrom));
-  const catalogue = catalogueRoutes();
+  const catalogue = catalogueRoutes(work);
   api.use('/catalogue', catalogue);
   // The earlier spelling, kept so old clients and links still work: the same router.
   api.use('/catalog', catalogue);
-  api.use('/projects', projectsRoutes());
-  api.use('/projects', sheetsRoutes({ outbox, work }));
+  api.use('/projects', projectsRoutes(work));
+  api.use('/projects', sheetsRoutes({ outbox, work, outsidePerHour: config.sheetOutsideEmailsPerHour }));
+  api.use('/projects', reviewRoutes({ orm, work, publicUrl }));
+  api.use('/reviewers', reviewersRoutes(orm));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -10,9 +10,10 @@ import path from 'node:path';
 import Piscina from 'piscina';
 import type { SheetPaper } from '../../shared/schemas';
 import { HttpError } from '../http-error';
+import type { SheetApproval } from '../pdf/approval-mark';
 import type { SheetRevisionInfo } from '../pdf/render-sheet';
 import type { SheetInput } from '../pdf/sheet-model';
-import type { BuiltContent, RenderTask } from './sheet-tasks';
+import type { BuiltContent, InputHashes, RenderTask } from './sheet-tasks';
 
 export interface SheetWorkOptions {
   /** Milliseconds one task may take, waiting in the queue included. */
@@ -24,9 +25,13 @@ export interface SheetWorkOptions {
 export interface SheetWork {
   /** The SHA-256 that keys the evaluation cache (hashing the largest input takes ~0.1 s, so not on the request thread). */
   inputHash(input: SheetInput): Promise<string>;
+  /** The cache key and the content hash together (the input is copied to the thread once). */
+  hashes(input: SheetInput): Promise<InputHashes>;
+  /** The content hash (engineering content only); ~0.1 s for the largest job, so not on the request thread. */
+  contentHash(input: SheetInput): Promise<string>;
   build(input: SheetInput): Promise<BuiltContent>;
   /** `paper` unset: the content's default (US Letter for imperial, else A4). */
-  render(contentJson: string, rev: SheetRevisionInfo, paper?: SheetPaper): Promise<Buffer>;
+  render(contentJson: string, rev: SheetRevisionInfo, paper?: SheetPaper, approval?: SheetApproval): Promise<Buffer>;
   close(): Promise<void>;
 }
 
@@ -54,7 +59,7 @@ export function createSheetWork(opts: SheetWorkOptions): SheetWork {
   });
   const seconds = Math.round(opts.budgetMs / 1000);
 
-  async function run<T>(name: 'inputHash' | 'build' | 'render', arg: unknown): Promise<T> {
+  async function run<T>(name: 'inputHash' | 'hashes' | 'engineeringHashTask' | 'build' | 'render', arg: unknown): Promise<T> {
     const abort = new AbortController();
     const timer = setTimeout(() => abort.abort(), opts.budgetMs);
     try {
@@ -80,9 +85,11 @@ export function createSheetWork(opts: SheetWorkOptions): SheetWork {
 
   return {
     inputHash: (input) => run<string>('inputHash', input),
+    hashes: (input) => run<InputHashes>('hashes', input),
+    contentHash: (input) => run<string>('engineeringHashTask', input),
     build: (input) => run<BuiltContent>('build', input),
-    async render(contentJson, rev, paper) {
-      const bytes = await run<Uint8Array>('render', { contentJson, rev, paper } satisfies RenderTask);
+    async render(contentJson, rev, paper, approval) {
+      const bytes = await run<Uint8Array>('render', { contentJson, rev, paper, approval } satisfies RenderTask);
       return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
     },
     close: () => pool.destroy(),

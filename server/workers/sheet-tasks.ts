@@ -6,7 +6,9 @@
  */
 import { createHash } from 'node:crypto';
 import type { SheetPaper } from '../../shared/schemas';
+import type { SheetApproval } from '../pdf/approval-mark';
 import { defaultPaper, renderSheet, type SheetRevisionInfo } from '../pdf/render-sheet';
+import { engineeringHash } from '../modules/review/content-hash';
 import { buildSheetContent, canonicalJson, contentHash, type SheetContent, type SheetInput } from '../pdf/sheet-model';
 
 /**
@@ -19,6 +21,23 @@ export function inputHash(input: SheetInput): string {
   return createHash('sha256')
     .update(canonicalJson({ v: SHEET_MODEL_VERSION, input }))
     .digest('hex');
+}
+
+export interface InputHashes {
+  /** Keys the evaluation cache (everything the sheet is built from, units included). */
+  inputHash: string;
+  /** The content hash: the engineering content only (review/content-hash.ts). */
+  contentHash: string;
+}
+
+/** Both hashes of one input in one task: the input crosses to the thread once. */
+export function hashes(input: SheetInput): InputHashes {
+  return { inputHash: inputHash(input), contentHash: engineeringHash(input) };
+}
+
+/** The content hash alone (the withdrawal check of a write to an approved job). */
+export function engineeringHashTask(input: SheetInput): string {
+  return engineeringHash(input);
 }
 
 export interface BuiltContent {
@@ -35,9 +54,10 @@ export interface RenderTask {
   contentJson: string;
   rev: SheetRevisionInfo;
   paper?: SheetPaper;
+  approval?: SheetApproval;
 }
 
 export async function render(task: RenderTask): Promise<Uint8Array> {
   const content = JSON.parse(task.contentJson) as SheetContent;
-  return renderSheet(content, task.rev, task.paper ?? defaultPaper(content.units));
+  return renderSheet(content, task.rev, task.paper ?? defaultPaper(content.units), task.approval);
 }

@@ -50,8 +50,10 @@ export type SendProjectBody = z.input<typeof sendProjectBody>;
 export const approveProjectBody = z.object({ version }).strict();
 export type ApproveProjectBody = z.input<typeof approveProjectBody>;
 
-/** `POST /api/projects/:id/return` — at least one reason. */
-export const returnProjectBody = z.object({ version, reason: zodText(reviewRules.reason) }).strict();
+/** `POST /api/projects/:id/return` — at least one reason; it may be pinned like any comment (default: the job). */
+export const returnProjectBody = z
+  .object({ version, reason: zodText(reviewRules.reason), pin: z.lazy(() => commentPin).optional() })
+  .strict();
 export type ReturnProjectBody = z.input<typeof returnProjectBody>;
 
 /** Where a comment is pinned: the job as a whole, one mirror, or a point on the plan (metres). */
@@ -149,3 +151,18 @@ export const reviewFieldsDto = z.object({
   openCommentCount: z.number(),
 });
 export type ReviewFieldsDto = z.infer<typeof reviewFieldsDto>;
+
+/** `GET /api/reviewers`: the people of the caller's organisation a job can be sent to (reviewers and admins). */
+export const reviewerDto = z.object({ id: z.number(), name: z.string(), role: z.string() });
+export type ReviewerDto = z.infer<typeof reviewerDto>;
+export const reviewersResponse = z.object({ reviewers: z.array(reviewerDto) });
+export type ReviewersResponse = z.infer<typeof reviewersResponse>;
+
+export const commentsResponse = z.object({ comments: z.array(commentDto) });
+export type CommentsResponse = z.infer<typeof commentsResponse>;
+export const commentResponse = z.object({ comment: commentDto });
+export type CommentResponse = z.infer<typeof commentResponse>;
+
+/** `GET /api/projects/:id/events`: oldest first. */
+export const projectEventsResponse = z.object({ events: z.array(projectEventDto) });
+export type ProjectEventsResponse = z.infer<typeof projectEventsResponse>;

@@ -1,4 +1,5 @@
-import { defineEntity } from '@mikro-orm/core';
+import { defineEntity, type Opt } from '@mikro-orm/core';
+import type { UnitSystem } from '../../../shared/schemas';
 import { Project } from '../projects/project.entity';
 import { User } from '../users/user.entity';
 
@@ -17,6 +18,8 @@ export class SheetRevision {
   issuedAt!: Date;
   issuedBy!: User;
   content?: string | null;
+  /** The units the kept content is printed in (null: issued before this was recorded). */
+  units: Opt<UnitSystem> | null = null;
 
   static readonly schema = defineEntity({
     class: SheetRevision,
@@ -30,6 +33,7 @@ export class SheetRevision {
       issuedAt: p.datetime(),
       issuedBy: p.manyToOne(User.schema),
       content: p.text().nullable().lazy(true, false),
+      units: p.enum(['metric', 'imperial']).nullable(),
     }),
   });
 }
