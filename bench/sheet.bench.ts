@@ -5,11 +5,10 @@
  */
 import PDFDocument from 'pdfkit';
 import { Bench } from 'tinybench';
-import type { CatalogueItemDto } from '../shared/schemas';
 import { buildSheetContent, contentHash, type SheetInput } from '../server/pdf/sheet-model';
 import { renderSheet } from '../server/pdf/render-sheet';
 import { NO_DEFAULT_FONT, registerSheetFonts } from '../server/pdf/fonts';
-import { DEMO_CATALOGUE } from '../server/seeders/demo-catalogue';
+import { demoCatalogueDtos } from '../server/seeders/demo-catalogue';
 import { DEMO_PROJECT } from '../server/seeders/demo-project';
 
 const RENDER_BUDGET_MS = 300;
@@ -17,22 +16,7 @@ const SIZE_BUDGET_BYTES = 500 * 1024;
 const DEG = Math.PI / 180;
 
 export function tenPlacementInput(): SheetInput {
-  const catalogue: CatalogueItemDto[] = DEMO_CATALOGUE.map((c, i) => ({
-    id: i + 1,
-    code: c.code,
-    name: c.name,
-    mirror: c.mirror,
-    material: c.material,
-    reflectance: null,
-    massKg: null,
-    unitPriceMinor: c.unitPriceMinor,
-    currency: 'EUR',
-    notes: '',
-    active: true,
-    demo: true,
-    version: 1,
-    updatedAt: '2026-01-01T00:00:00.000Z',
-  }));
+  const catalogue = demoCatalogueDtos();
   const viewers = DEMO_PROJECT.scene.viewers;
   const placements = Array.from({ length: 10 }, (_, i) => {
     const viewer = viewers[i % viewers.length];

@@ -4,13 +4,16 @@ import { FormFooter } from './form-footer';
 import { FormFrame } from './form-frame';
 import { EmailField } from './credential-fields';
 import { submitWithServerErrors, type FormStatus } from './server-errors';
+import { yupText } from './yup-rules';
+import { emailRule } from '@/shared/schemas/rules';
 
 export interface ForgotPasswordValues {
   email: string;
 }
 
+/** The route's rule for the address (shared/schemas/rules.ts). */
 export const forgotPasswordSchema = yup.object({
-  email: yup.string().trim().required('Enter your e-mail address.').email('Enter a full e-mail address, like name@company.com.'),
+  email: yupText(emailRule),
 });
 
 export interface ForgotPasswordFormProps {

@@ -1,4 +1,4 @@
-import type { MirrorSpec } from '../../shared/schemas';
+import type { CatalogueItemDto, MirrorSpec } from '../../shared/schemas';
 
 /**
  * DEMO DATA — an invented catalogue for the demo organisation. Codes, names, prices, masses and
@@ -68,3 +68,20 @@ export const DEMO_CATALOGUE: DemoItem[] = [
 ];
 // The stainless 600 mm needs its own code.
 DEMO_CATALOGUE[4] = { ...DEMO_CATALOGUE[4], code: 'DEMO-R600-SS', name: 'Round convex mirror 600 mm, stainless steel (demo)' };
+
+/**
+ * The demo catalogue as the API lists it, numbered 1…n as a fresh database numbers it: for code
+ * that needs catalogue items without a database (benches, engine and sheet tests).
+ */
+export function demoCatalogueDtos(items: readonly DemoItem[] = DEMO_CATALOGUE): CatalogueItemDto[] {
+  return items.map((c, i) => ({
+    ...c,
+    id: i + 1,
+    currency: 'EUR',
+    notes: '',
+    active: true,
+    demo: true,
+    version: 1,
+    updatedAt: '2026-01-01T00:00:00.000Z',
+  }));
+}

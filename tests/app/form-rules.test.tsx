@@ -9,6 +9,7 @@ import { ValidationError, type AnyObject, type ObjectSchema } from 'yup';
 import type { z } from 'zod';
 import { bodyOf, catalogueSchema, FORM_FIELDS, SERVER_TO_FORM, type CatalogueFormValues } from '@/components/catalogue/catalogue-form';
 import { changePasswordSchema, type ChangePasswordValues } from '@/components/forms/change-password-form';
+import { forgotPasswordSchema, type ForgotPasswordValues } from '@/components/forms/forgot-password-form';
 import { inviteBodyOf, inviteSchema, type InviteValues } from '@/components/forms/invite-form';
 import { setPasswordSchema, type SetPasswordValues } from '@/components/forms/set-password-form';
 import { signInSchema, type SignInValues } from '@/components/forms/sign-in-form';
@@ -20,6 +21,7 @@ import {
   createCatalogueItemBody,
   createProjectBody,
   fieldErrors,
+  forgotPasswordBody,
   inviteBody,
   roles,
   sheetEmailBody,
@@ -105,6 +107,15 @@ describe('each form refuses what its route refuses, with the same sentence per f
       (v) => formErrors(signInSchema, v),
       (v) => routeErrors(signInBody, { email: v.email.trim(), password: v.password }),
       ['email', 'password'],
+    );
+  });
+
+  it('forgot-password form and POST /auth/password-reset', async () => {
+    await expectSameVerdicts(
+      fc.record<ForgotPasswordValues>({ email: emailText }),
+      (v) => formErrors(forgotPasswordSchema, v),
+      (v) => routeErrors(forgotPasswordBody, { email: v.email.trim() }),
+      ['email'],
     );
   });
 

@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { EMAIL, startHarness, type Harness } from './harness';
+import { catalogueItemBody, EMAIL, startHarness, type Harness } from './harness';
 
 let h: Harness;
 beforeAll(async () => {
@@ -9,16 +9,7 @@ afterAll(async () => {
   await h.close();
 });
 
-const item = (code: string) => ({
-  code,
-  name: 'Test round 700',
-  mirror: { shape: 'round', diameterM: 0.7, radiusM: 1.4 },
-  material: 'acrylic',
-  reflectance: 0.8,
-  massKg: 4,
-  unitPriceMinor: 14900,
-  currency: 'EUR',
-});
+const item = (code: string) => catalogueItemBody(code, 'Test round 700');
 
 describe('the catalogue', () => {
   it('is readable by every signed-in role and by nobody signed out', async () => {

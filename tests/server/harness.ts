@@ -29,6 +29,18 @@ export const EMAIL = {
   admin: DEMO_USERS[2].email,
 };
 
+/** A catalogue item an admin may add to their organisation's own catalogue (a 700 mm round acrylic mirror). */
+export const catalogueItemBody = (code: string, name = `Test round ${code}`) => ({
+  code,
+  name,
+  mirror: { shape: 'round', diameterM: 0.7, radiusM: 1.4 },
+  material: 'acrylic',
+  reflectance: 0.8,
+  massKg: 4,
+  unitPriceMinor: 14900,
+  currency: 'EUR',
+});
+
 export interface Harness {
   app: Express;
   /** The app's outbox worker (delivers queued e-mail through the fake SMTP server). */

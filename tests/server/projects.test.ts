@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { evaluateProject } from '../../shared/project-optics';
-import { EMAIL, startHarness, type Harness } from './harness';
+import { catalogueItemBody, EMAIL, startHarness, type Harness } from './harness';
 
 let h: Harness;
 const OTHER_INSTALLER = 'otto.other@sightfan-demo.example';
@@ -263,16 +263,7 @@ describe('stale versions and bad bodies', () => {
   it('answers 409 for a duplicate catalogue code found only by the database, naming the field', async () => {
     const admin = await as('admin');
     // The organisation's own items (the shared demo set is read-only).
-    const own = (code: string) => ({
-      code,
-      name: `Own round ${code}`,
-      mirror: { shape: 'round', diameterM: 0.7, radiusM: 1.4 },
-      material: 'acrylic',
-      reflectance: 0.8,
-      massKg: 4,
-      unitPriceMinor: 14900,
-      currency: 'EUR',
-    });
+    const own = (code: string) => catalogueItemBody(code, `Own round ${code}`);
     const first = (await admin.post('/api/catalogue').send(own('OWN-1'))).body.item;
     const second = (await admin.post('/api/catalogue').send(own('OWN-2'))).body.item;
     const res = await admin.patch(`/api/catalogue/${second.id}`).send({ version: second.version, code: first.code });

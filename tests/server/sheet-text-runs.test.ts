@@ -12,8 +12,7 @@ import { layout } from '../../server/pdf/text-runs';
 import { renderSheet } from '../../server/pdf/render-sheet';
 import { buildSheetContent } from '../../server/pdf/sheet-model';
 import { heavySheetInput } from '../../bench/heavy-project';
-import { DEMO_CATALOGUE } from '../../server/seeders/demo-catalogue';
-import type { CatalogueItemDto } from '../../shared/schemas';
+import { DEMO_CATALOGUE, demoCatalogueDtos } from '../../server/seeders/demo-catalogue';
 
 const printable: number[] = [];
 for (let cp = 0x20; cp <= 0x3ffff; cp++) if (isPrintable(cp)) printable.push(cp);
@@ -90,18 +89,7 @@ describe('setting text in any accepted script', () => {
   });
 
   it('prints a catalogue code with "--" or ".." in the mono face as typed (fontkit failed on the face\'s ligatures)', async () => {
-    const catalogue: CatalogueItemDto[] = DEMO_CATALOGUE.slice(0, 2).map((c, i) => ({
-      ...c,
-      id: i + 1,
-      reflectance: null,
-      massKg: null,
-      currency: 'EUR',
-      notes: '',
-      active: true,
-      demo: true,
-      version: 1,
-      updatedAt: '2026-01-01T00:00:00.000Z',
-    }));
+    const catalogue = demoCatalogueDtos(DEMO_CATALOGUE.slice(0, 2));
     const input = heavySheetInput({ walls: 2, zones: 1, cornersPerZone: 4, viewers: 2, mirrors: 2 }, catalogue);
     const { content } = buildSheetContent({ ...input, placements: input.placements.map((p, i) => ({ ...p, catalogueItemId: i + 1 })) });
     expect(content.purchase.lines.length).toBeGreaterThanOrEqual(2);

@@ -13,12 +13,8 @@ export function rng(seed: number): () => number {
   };
 }
 
-/**
- * Compares the coverage polygon with the exact point test at random plan points in a box,
- * skipping points within `marginM` of the polygon's edge. Returns counts and the largest
- * distance from the edge of any disagreeing point (over all points, margin or not).
- */
-export function agreement(args: {
+/** What both region checks need: the scene and the region traced for it. */
+export interface RegionCase {
   region: MultiPolygon;
   mirror: Mirror;
   pose: Pose;
@@ -26,11 +22,27 @@ export function agreement(args: {
   maxRangeM: number;
   walls?: Wall[];
   planeHeightM?: number;
-  halfBoxM: number;
-  n: number;
-  marginM: number;
-  seed: number;
-}): { checked: number; inside: number; disagree: number; worstM: number } {
+}
+
+/** The exact point test (visibleInMirror) for plan point p of a region check, and whether the region holds p. */
+export function regionVersusExact(c: RegionCase, p: Vec3): { inRegion: boolean; exact: boolean } {
+  const { visible } = visibleInMirror({ mirror: c.mirror, pose: c.pose, eyeM: c.eyeM, pointM: p, walls: c.walls, maxRangeM: c.maxRangeM });
+  return { inRegion: pointInMultiPolygon(c.region, [p[0], p[1]]), exact: visible };
+}
+
+/**
+ * Compares the coverage polygon with the exact point test at random plan points in a box,
+ * skipping points within `marginM` of the polygon's edge. Returns counts and the largest
+ * distance from the edge of any disagreeing point (over all points, margin or not).
+ */
+export function agreement(
+  args: RegionCase & {
+    halfBoxM: number;
+    n: number;
+    marginM: number;
+    seed: number;
+  },
+): { checked: number; inside: number; disagree: number; worstM: number } {
   const r = rng(args.seed);
   const v = args.pose.vertexM;
   let checked = 0;
@@ -39,15 +51,7 @@ export function agreement(args: {
   let worstM = 0;
   for (let i = 0; i < args.n; i++) {
     const p: Vec3 = [v[0] + (2 * r() - 1) * args.halfBoxM, v[1] + (2 * r() - 1) * args.halfBoxM, args.planeHeightM ?? 0];
-    const inPoly = pointInMultiPolygon(args.region, [p[0], p[1]]);
-    const exact = visibleInMirror({
-      mirror: args.mirror,
-      pose: args.pose,
-      eyeM: args.eyeM,
-      pointM: p,
-      walls: args.walls,
-      maxRangeM: args.maxRangeM,
-    }).visible;
+    const { inRegion: inPoly, exact } = regionVersusExact(args, p);
     if (inPoly !== exact) worstM = Math.max(worstM, distanceToBoundary(args.region, [p[0], p[1]]));
     if (distanceToBoundary(args.region, [p[0], p[1]]) < args.marginM) continue;
     checked++;

@@ -1,6 +1,6 @@
-import { distanceToBoundary, pointInMultiPolygon, type MultiPolygon } from '../../../shared/geometry/polygon';
-import { visibleInMirror, type Mirror, type Pose, type Vec3, type Wall } from '../../../shared/optics';
-import { rng } from './helpers';
+import { distanceToBoundary } from '../../../shared/geometry/polygon';
+import type { Vec3 } from '../../../shared/optics';
+import { regionVersusExact, rng, type RegionCase } from './helpers';
 
 export type Disagreement = { point: Vec3; inRegion: boolean; seen: boolean; edgeM: number };
 
@@ -10,18 +10,13 @@ export type Disagreement = { point: Vec3; inRegion: boolean; seen: boolean; edge
  * of the range circle (whose chords lie up to 5 mm inside it). Returns how many points were
  * compared, how many of them the point test sees, and every disagreement found.
  */
-export function regionAgreement(args: {
-  region: MultiPolygon;
-  mirror: Mirror;
-  pose: Pose;
-  eyeM: Vec3;
-  maxRangeM: number;
-  walls?: Wall[];
-  planeHeightM?: number;
-  n: number;
-  marginM: number;
-  seed: number;
-}): { checked: number; seen: number; disagreements: Disagreement[] } {
+export function regionAgreement(
+  args: RegionCase & {
+    n: number;
+    marginM: number;
+    seed: number;
+  },
+): { checked: number; seen: number; disagreements: Disagreement[] } {
   const r = rng(args.seed);
   const v = args.pose.vertexM;
   let checked = 0;
@@ -35,15 +30,7 @@ export function regionAgreement(args: {
     const edgeM = distanceToBoundary(args.region, [p[0], p[1]]);
     if (edgeM < args.marginM) continue;
     checked++;
-    const inRegion = pointInMultiPolygon(args.region, [p[0], p[1]]);
-    const exact = visibleInMirror({
-      mirror: args.mirror,
-      pose: args.pose,
-      eyeM: args.eyeM,
-      pointM: p,
-      walls: args.walls,
-      maxRangeM: args.maxRangeM,
-    }).visible;
+    const { inRegion, exact } = regionVersusExact(args, p);
     if (exact) seen++;
     if (inRegion !== exact) disagreements.push({ point: p, inRegion, seen: exact, edgeM });
   }

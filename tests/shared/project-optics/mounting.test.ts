@@ -2,26 +2,11 @@ import { evaluateProject, mountProblem, mirrorOfSpec, zoneCriterion } from '../.
 import { visibleInMirror } from '../../../shared/optics';
 import type { CatalogueItemDto, Scene } from '../../../shared/schemas';
 import { DEMO_PROJECT } from '../../../server/seeders/demo-project';
-import { DEMO_CATALOGUE } from '../../../server/seeders/demo-catalogue';
+import { demoCatalogueDtos } from '../../../server/seeders/demo-catalogue';
 
 const deg = Math.PI / 180;
 const scene = DEMO_PROJECT.scene as Scene;
-const catalogue: CatalogueItemDto[] = DEMO_CATALOGUE.map((c, i) => ({
-  id: i + 1,
-  code: c.code,
-  name: c.name,
-  mirror: c.mirror,
-  material: c.material,
-  reflectance: c.reflectance,
-  massKg: c.massKg,
-  unitPriceMinor: c.unitPriceMinor,
-  currency: 'EUR',
-  notes: '',
-  active: true,
-  demo: true,
-  version: 1,
-  updatedAt: '2026-01-01T00:00:00.000Z',
-}));
+const catalogue = demoCatalogueDtos();
 const itemOf = (code: string) => catalogue.find((c) => c.code === code) as CatalogueItemDto;
 const demoPlacements = DEMO_PROJECT.placements.map((p, i) => ({
   id: i + 1,
