@@ -3,7 +3,7 @@
  * arbitrary inputs (any text, any finite numbers, any units): presentation never moves the hash,
  * and every engineering field does.
  */
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import type { CatalogueItemDto, MirrorSpec } from '../../shared/schemas';
 import type { SheetInput, SheetPlacementInput } from '../../server/pdf/sheet-model';
 import { engineeringHash } from '../../server/modules/review/content-hash';
