@@ -1,5 +1,5 @@
 /**
- * Edits made on the plan: the live draft while a finger drags, the scene's saves (walls, zones,
+ * Edits made on the plan: the drag preview while a finger drags (drawn, not saved), the scene's saves (walls, zones,
  * viewers: one project PATCH at a time, each with the version the one before produced), and the
  * placements' writes through the one placement write path (use-placement-writes.ts), which the
  * placement editor shares.
@@ -14,7 +14,8 @@ import { projectKeys, useUpdateProjectMutation } from './use-projects';
 
 export type PlacementPatch = Partial<Pick<PlacementDto, 'positionM' | 'azimuthRad' | 'heightM' | 'tiltDownRad' | 'viewerId' | 'label'>>;
 
-export type LiveDraft =
+/** A drag in progress, drawn over the saved values until the finger lifts. */
+export type DragPreview =
   { kind: 'placement'; id: number; patch: PlacementPatch } | { kind: 'viewer'; id: string; positionM: [number, number] } | null;
 
 export interface PlanSaveProblem {
@@ -34,7 +35,7 @@ export function usePlanEdits(project: ProjectDto) {
   const updateProject = useUpdateProjectMutation(project.id);
   const writes = usePlacementWrites(project);
 
-  const [live, setLive] = useState<LiveDraft>(null);
+  const [dragPreview, setDragPreview] = useState<DragPreview>(null);
   const [localScene, setLocalScene] = useState<Scene | null>(null);
   const [problem, setProblem] = useState<PlanSaveProblem | null>(null);
   const [pending, setPending] = useState(0);
@@ -119,22 +120,25 @@ export function usePlanEdits(project: ProjectDto) {
 
   /** Placements with the unsaved edits (shared with the editor) and the live drag on top. */
   const placements = useMemo(
-    () => writes.placements.map((p) => (live?.kind === 'placement' && live.id === p.id ? { ...p, ...live.patch } : p)),
-    [writes.placements, live],
+    () => writes.placements.map((p) => (dragPreview?.kind === 'placement' && dragPreview.id === p.id ? { ...p, ...dragPreview.patch } : p)),
+    [writes.placements, dragPreview],
   );
 
   const liveScene = useMemo(() => {
-    if (live?.kind !== 'viewer') return scene;
-    return { ...scene, viewers: scene.viewers.map((v) => (v.id === live.id ? { ...v, positionM: live.positionM } : v)) };
-  }, [scene, live]);
+    if (dragPreview?.kind !== 'viewer') return scene;
+    return {
+      ...scene,
+      viewers: scene.viewers.map((v) => (v.id === dragPreview.id ? { ...v, positionM: dragPreview.positionM } : v)),
+    };
+  }, [scene, dragPreview]);
 
   return {
     scene: liveScene,
     /** The scene without the live drag: what a scene edit starts from. */
     baseScene: scene,
     placements,
-    live,
-    setLive,
+    dragPreview,
+    setDragPreview,
     saveScene,
     savePlacement,
     createPlacement,

@@ -34,14 +34,14 @@ export interface PlanCanvasProps {
   /** A tap with a placing tool (mirror, viewer, zone corner, wall end), in plan metres. */
   onTapPlan: (pointM: PairM) => void;
   onDrag: (drag: PlanDrag) => void;
-  draftPoints: readonly PairM[];
-  draftClosed: boolean;
+  sketchPoints: readonly PairM[];
+  sketchClosed: boolean;
   /** Pixels at the bottom covered by the floating toolbar; "fit" keeps the plan above them. */
   reserveBottom?: number;
 }
 
 export function PlanCanvas(props: PlanCanvasProps) {
-  const { scene, placements, evaluation, units, tool, canEdit, selection, draftPoints, draftClosed, reserveBottom = 0 } = props;
+  const { scene, placements, evaluation, units, tool, canEdit, selection, sketchPoints, sketchClosed, reserveBottom = 0 } = props;
   const frameRef = useRef<View>(null);
 
   const planBounds = useMemo(() => {
@@ -72,7 +72,7 @@ export function PlanCanvas(props: PlanCanvasProps) {
         role="img"
         aria-label="Site plan: walls, zones, viewers and mirrors with their coverage"
       >
-        <PlanDrawing {...{ scene, placements, evaluation, units, canEdit, selection, draftPoints, draftClosed, view, size, tool }} />
+        <PlanDrawing {...{ scene, placements, evaluation, units, canEdit, selection, sketchPoints, sketchClosed, view, size, tool }} />
       </View>
       <ZoomControls onZoomIn={() => viewport.zoomBy(1.4)} onZoomOut={() => viewport.zoomBy(1 / 1.4)} onFit={viewport.fit} />
     </View>

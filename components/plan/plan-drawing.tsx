@@ -13,7 +13,7 @@ import type { UnitSystem } from '@/shared/units';
 import {
   AimHandle,
   CoverageLayer,
-  DraftShape,
+  SketchShape,
   GAP_HATCH_ID,
   PlacementMarker,
   Sightline,
@@ -35,8 +35,8 @@ export interface DrawingProps {
   canEdit: boolean;
   tool: PlanTool;
   selection: PlanSelection;
-  draftPoints: readonly PairM[];
-  draftClosed: boolean;
+  sketchPoints: readonly PairM[];
+  sketchClosed: boolean;
   view: PlanView;
   size: Size;
 }
@@ -48,8 +48,8 @@ export function PlanDrawing({
   units,
   canEdit,
   selection,
-  draftPoints,
-  draftClosed,
+  sketchPoints,
+  sketchClosed,
   view,
   size,
 }: DrawingProps) {
@@ -126,7 +126,7 @@ export function PlanDrawing({
       {selectedPlacement && canEdit ? (
         <AimHandle from={toScreen(view, selectedPlacement.positionM)} azimuthRad={selectedPlacement.azimuthRad} />
       ) : null}
-      <DraftShape points={draftPoints} closed={draftClosed} view={view} />
+      <SketchShape points={sketchPoints} closed={sketchClosed} view={view} />
       <G pointerEvents="none">
         <Rect x={12} y={10} width={bar.lengthPx + 16} height={34} rx={6} fill={palette.card} fillOpacity={0.9} />
         <Path d={`M20 24V34H${20 + bar.lengthPx}V24`} stroke={palette.asphalt} strokeWidth={2.5} fill="none" />

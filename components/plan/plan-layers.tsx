@@ -355,13 +355,13 @@ export function Sightline({ from, to }: { from: PairM; to: PairM }) {
   );
 }
 
-/** Points of a zone or wall being drawn, joined in order. */
-export function DraftShape({ points, closed, view }: { points: readonly PairM[]; closed: boolean; view: PlanView }) {
+/** The sketch: points of a zone or wall being drawn, joined in order (not saved until finished). */
+export function SketchShape({ points, closed, view }: { points: readonly PairM[]; closed: boolean; view: PlanView }) {
   if (points.length === 0) return null;
   const screen = points.map((p) => toScreen(view, p));
   const d = screen.map((p, i) => `${i === 0 ? 'M' : 'L'}${p[0]} ${p[1]}`).join('') + (closed && points.length > 2 ? 'Z' : '');
   return (
-    <G testID="plan-draft" pointerEvents="none">
+    <G testID="plan-sketch" pointerEvents="none">
       <Path
         d={d}
         fill={closed ? palette.beaconSoft : 'none'}

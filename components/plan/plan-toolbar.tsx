@@ -33,7 +33,8 @@ export interface PlanToolbarProps {
   onDelete: () => void;
   zonePoints: number;
   onFinishZone: () => void;
-  onCancelDraft: () => void;
+  /** Drops the corners placed so far. */
+  onCancelSketch: () => void;
   wallKind: SceneWall['kind'];
   onWallKind: (kind: SceneWall['kind']) => void;
   busy: boolean;
@@ -63,7 +64,7 @@ export function PlanToolbar(p: PlanToolbarProps) {
           {p.tool === 'zone' ? (
             <View style={styles.row}>
               <Button label="Finish zone" testID="plan-zone-finish" onPress={p.onFinishZone} disabled={p.zonePoints < 3} />
-              {p.zonePoints > 0 ? <Button label="Cancel" variant="quiet" testID="plan-draft-cancel" onPress={p.onCancelDraft} /> : null}
+              {p.zonePoints > 0 ? <Button label="Cancel" variant="quiet" testID="plan-sketch-cancel" onPress={p.onCancelSketch} /> : null}
             </View>
           ) : null}
           {p.tool === 'wall' ? (

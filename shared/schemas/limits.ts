@@ -41,13 +41,13 @@ export type LimitedThing = 'wall' | 'zone' | 'zoneCorner' | 'viewer' | 'mirror';
 
 /**
  * What the plan's tools check before adding one more thing: the sentence to show instead of sending a
- * change the API would refuse, or null when there is room. `draftCorners` is the zone being drawn.
+ * change the API would refuse, or null when there is room. `sketchCorners`: the corners of the zone being drawn.
  */
 export function limitProblem(
   thing: LimitedThing,
   scene: { walls: readonly unknown[]; zones: readonly { polygonM: readonly unknown[] }[]; viewers: readonly unknown[] },
   mirrors: number,
-  draftCorners = 0,
+  sketchCorners = 0,
 ): string | null {
   switch (thing) {
     case 'wall':
@@ -59,9 +59,9 @@ export function limitProblem(
     case 'zone':
       return scene.zones.length >= SCENE_LIMITS.zones ? LIMIT_MESSAGES.zones : null;
     case 'zoneCorner': {
-      if (draftCorners >= SCENE_LIMITS.cornersPerZone) return LIMIT_MESSAGES.cornersPerZone;
+      if (sketchCorners >= SCENE_LIMITS.cornersPerZone) return LIMIT_MESSAGES.cornersPerZone;
       const used = scene.zones.reduce((sum, z) => sum + z.polygonM.length, 0);
-      return used + draftCorners >= SCENE_LIMITS.zoneCorners ? LIMIT_MESSAGES.zoneCorners : null;
+      return used + sketchCorners >= SCENE_LIMITS.zoneCorners ? LIMIT_MESSAGES.zoneCorners : null;
     }
   }
 }

@@ -1,0 +1,181 @@
+/**
+ * The project's live plan and its details, put together: the plan's edits (usePlanEdits), the tool
+ * state (usePlanTool), the evaluation, and the selection, arranged by WideWorkspace or PhoneWorkspace.
+ * Scene changes are the pure functions of scene-edits.ts.
+ */
+import { useCallback, useLayoutEffect, useState } from 'react';
+import { useDisplayUnits } from '@/components/placement/use-display-units';
+import { useIsWide } from '@/hooks/use-breakpoint';
+import { usePlanEdits } from '@/hooks/use-plan-edits';
+import { usePlanEvaluation } from '@/hooks/use-plan-evaluation';
+import type { CatalogueItemDto, CriteriaSettings, CriterionKind, ProjectDto } from '@/shared/schemas';
+import { markRedrawEnd } from './perf-marks';
+import { PlanCanvas, type PlanDrag } from './plan-canvas';
+import { PlanDetails } from './plan-details';
+import { PlanDrawer } from './plan-drawer';
+import { roundM } from './plan-edits';
+import { PlanNotices } from './plan-notices';
+import { PlanToolbar } from './plan-toolbar';
+import type { PlanSelection } from './plan-types';
+import type { PairM } from './plan-view';
+import { moveViewer, removeSceneItem, setCriteria, setViewerEyeHeight, setZoneCriterion } from './scene-edits';
+import { usePlanTool } from './use-plan-tool';
+import { PhoneWorkspace, WideWorkspace } from './workspace-layouts';
+import { WorkspaceHeader } from './workspace-header';
+import { ZoneNamePrompt } from './zone-name-prompt';
+
+export function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: CatalogueItemDto[] }) {
+  const wide = useIsWide();
+  const units = useDisplayUnits(project);
+  const edits = usePlanEdits(project);
+  const [selection, setSelection] = useState<PlanSelection>(null);
+  const [drawerOpen, setDrawerOpen] = useState(false);
+  const selectedPlacementId = selection?.kind === 'placement' ? selection.id : null;
+  const evaluation = usePlanEvaluation(edits.scene, edits.placements, catalogue, selectedPlacementId);
+  const canEdit = project.canEdit;
+  const base = edits.baseScene;
+  const tools = usePlanTool({
+    baseScene: base,
+    mirrorCount: edits.placements.length,
+    catalogue,
+    saveScene: edits.saveScene,
+    createPlacement: edits.createPlacement,
+    select: setSelection,
+    onMirrorPlaced: () => setDrawerOpen(true),
+  });
+
+  // Closes the performance measure of a live drag frame once React has committed it.
+  useLayoutEffect(() => {
+    if (edits.dragPreview) markRedrawEnd();
+  }, [edits.dragPreview]);
+
+  const onDrag = useCallback(
+    (d: PlanDrag) => {
+      if (d.kind === 'viewer-move') {
+        if (!d.done) return edits.setDragPreview({ kind: 'viewer', id: d.id, positionM: d.positionM });
+        edits.setDragPreview(null);
+        const positionM: PairM = [roundM(d.positionM[0]), roundM(d.positionM[1])];
+        void edits.saveScene(moveViewer(edits.baseScene, d.id, positionM));
+        return;
+      }
+      const patch =
+        d.kind === 'placement-move'
+          ? { positionM: [roundM(d.positionM[0]), roundM(d.positionM[1])] as PairM }
+          : { azimuthRad: Math.round(d.azimuthRad * 1e4) / 1e4 };
+      if (!d.done) return edits.setDragPreview({ kind: 'placement', id: d.id, patch });
+      edits.setDragPreview(null);
+      void edits.savePlacement(d.id, patch);
+    },
+    [edits],
+  );
+
+  const deleteSelected = () => {
+    const s = selection;
+    if (!s) return;
+    setSelection(null);
+    if (s.kind === 'placement') void edits.deletePlacement(s.id);
+    else void edits.saveScene(removeSceneItem(base, s.kind, s.id));
+  };
+
+  const select = (s: PlanSelection) => {
+    setSelection(s);
+    if (s?.kind === 'placement' && !wide) setDrawerOpen(true);
+  };
+
+  const tool = canEdit ? tools.tool : 'select';
+
+  const details = (
+    <PlanDetails
+      project={project}
+      scene={edits.scene}
+      placements={edits.placements}
+      writes={edits.writes}
+      evaluation={evaluation}
+      catalogue={catalogue}
+      units={units}
+      canEdit={canEdit}
+      selection={selection}
+      onSelect={setSelection}
+      onViewerEyeHeight={(id: string, eyeHeightM: number) => void edits.saveScene(setViewerEyeHeight(base, id, eyeHeightM))}
+      onZoneCriterion={(id: string, criterion: CriterionKind) => void edits.saveScene(setZoneCriterion(base, id, criterion))}
+      onCriteria={(criteria: CriteriaSettings | undefined) => void edits.saveScene(setCriteria(base, criteria))}
+    />
+  );
+
+  const parts = {
+    title: project.name,
+    header: <WorkspaceHeader project={project} wide={wide} saving={edits.saving} failed={edits.problem !== null} unsaved={edits.unsaved} />,
+    canvas: (
+      <PlanCanvas
+        scene={edits.scene}
+        placements={edits.placements}
+        evaluation={evaluation}
+        units={units}
+        tool={tool}
+        canEdit={canEdit}
+        selection={selection}
+        onSelect={select}
+        onTapPlan={tools.tap}
+        onDrag={onDrag}
+        sketchPoints={tools.zoneToName ?? tools.sketch}
+        sketchClosed={tools.tool === 'zone'}
+        reserveBottom={90}
+      />
+    ),
+    overPlan: (
+      <>
+        <PlanNotices
+          saveProblem={edits.problem}
+          onDismissSaveProblem={edits.dismissProblem}
+          writes={edits.writes}
+          placements={edits.placements}
+          editorOpenFor={selectedPlacementId}
+          toolProblem={tools.problem}
+          catalogue={catalogue}
+          units={units}
+        />
+        {tools.zoneToName ? (
+          <ZoneNamePrompt defaultName={`Zone ${base.zones.length + 1}`} onSave={tools.nameZone} onCancel={tools.cancelZoneName} />
+        ) : null}
+      </>
+    ),
+    toolbar: (
+      <PlanToolbar
+        tool={tool}
+        onTool={tools.setTool}
+        canEdit={canEdit}
+        canDelete={selection !== null}
+        onDelete={deleteSelected}
+        zonePoints={tools.sketch.length}
+        onFinishZone={tools.finishZone}
+        onCancelSketch={tools.cancelSketch}
+        wallKind={tools.wallKind}
+        onWallKind={tools.setWallKind}
+        busy={edits.saving}
+      />
+    ),
+  };
+
+  if (wide) return <WideWorkspace {...parts} details={details} />;
+
+  const selectedPlacement = selectedPlacementId !== null ? edits.placements.find((p) => p.id === selectedPlacementId) : undefined;
+  return (
+    <PhoneWorkspace
+      {...parts}
+      drawerOpen={drawerOpen}
+      drawer={
+        <PlanDrawer
+          open={drawerOpen}
+          onToggle={() => setDrawerOpen((o) => !o)}
+          selection={selection}
+          placement={selectedPlacement}
+          scene={edits.scene}
+          evaluation={evaluation}
+          units={units}
+        >
+          {details}
+        </PlanDrawer>
+      }
+    />
+  );
+}
