@@ -10,7 +10,8 @@ import type {
   PatchCatalogueItemBody,
   PatchPlacementBody,
   PatchProjectBody,
-  PlacementDto,
+  PlacementRemoveResponse,
+  PlacementWriteResponse,
   ProjectDto,
   ProjectSummaryDto,
   AcceptInvitationBody,
@@ -31,6 +32,15 @@ import type {
   SheetIssueResponse,
   SheetPaper,
   SheetStatusDto,
+  ApproveProjectBody,
+  CommentResponse,
+  CommentsResponse,
+  CreateCommentBody,
+  PatchCommentBody,
+  ProjectEventsResponse,
+  ReturnProjectBody,
+  ReviewersResponse,
+  SendProjectBody,
 } from './schemas';
 
 /** An answer from the API that was not a success, carrying the server's sentence and field messages. */
@@ -167,11 +177,30 @@ export function createApiClient(options: ApiClientOptions = {}) {
       create: (body: CreateProjectBody) => request<{ project: ProjectDto }>('POST', '/projects', body),
       update: (id: number, body: PatchProjectBody) => request<{ project: ProjectDto }>('PATCH', `/projects/${id}`, body),
       remove: (id: number) => request<void>('DELETE', `/projects/${id}`),
-      addPlacement: (id: number, body: CreatePlacementBody) =>
-        request<{ placement: PlacementDto }>('POST', `/projects/${id}/placements`, body),
+      addPlacement: (id: number, body: CreatePlacementBody) => request<PlacementWriteResponse>('POST', `/projects/${id}/placements`, body),
       updatePlacement: (id: number, placementId: number, body: PatchPlacementBody) =>
-        request<{ placement: PlacementDto }>('PATCH', `/projects/${id}/placements/${placementId}`, body),
-      removePlacement: (id: number, placementId: number) => request<void>('DELETE', `/projects/${id}/placements/${placementId}`),
+        request<PlacementWriteResponse>('PATCH', `/projects/${id}/placements/${placementId}`, body),
+      removePlacement: (id: number, placementId: number) =>
+        request<PlacementRemoveResponse>('DELETE', `/projects/${id}/placements/${placementId}`),
+      /** The owning installer sends the job for review (optionally to a named reviewer); an admin reassigns a job waiting for review. */
+      send: (id: number, body: SendProjectBody) => request<{ project: ProjectDto }>('POST', `/projects/${id}/send`, body),
+      /** A reviewer or admin approves the version they loaded (a stale version is 409). */
+      approve: (id: number, body: ApproveProjectBody) => request<{ project: ProjectDto }>('POST', `/projects/${id}/approve`, body),
+      /** A reviewer or admin returns the job with a reason (kept as a comment). */
+      return: (id: number, body: ReturnProjectBody) => request<{ project: ProjectDto }>('POST', `/projects/${id}/return`, body),
+      /** The read-only audit trail, oldest first. */
+      events: (id: number) => request<ProjectEventsResponse>('GET', `/projects/${id}/events`),
+    },
+    comments: {
+      list: (projectId: number) => request<CommentsResponse>('GET', `/projects/${projectId}/comments`),
+      create: (projectId: number, body: CreateCommentBody) => request<CommentResponse>('POST', `/projects/${projectId}/comments`, body),
+      /** The owning installer marks a thread resolved (or open again). */
+      patch: (projectId: number, commentId: number, body: PatchCommentBody) =>
+        request<CommentResponse>('PATCH', `/projects/${projectId}/comments/${commentId}`, body),
+    },
+    reviewers: {
+      /** Reviewers and admins of the caller's organisation (whom a job can be sent to). */
+      list: () => request<ReviewersResponse>('GET', '/reviewers'),
     },
     sheets: {
       status: (projectId: number) => request<SheetStatusDto>('GET', `/projects/${projectId}/sheet`),

@@ -4,10 +4,8 @@ import { AppText } from '@/components/ui/text';
 import { Badge } from '@/components/ui/badge';
 import { focusRing, layout, palette, radii, spacing } from '@/constants/theme';
 import { useFocusVisible } from '@/hooks/use-focus-visible';
-import type { ProjectSummaryDto } from '@/shared/schemas';
+import { PROJECT_STATE_LABELS, type ProjectSummaryDto } from '@/shared/schemas';
 import { lastChangeText } from './relative-time';
-
-export const STATUS_LABELS: Record<ProjectSummaryDto['status'], string> = { draft: 'Draft' };
 
 export function mirrorsText(n: number): string {
   return n === 0 ? 'No mirrors yet' : n === 1 ? '1 mirror' : `${n} mirrors`;
@@ -32,7 +30,7 @@ export function ProjectRow({ project, showOwner }: { project: ProjectSummaryDto;
           <AppText variant="bodyStrong" style={styles.name} numberOfLines={2}>
             {project.name}
           </AppText>
-          <Badge label={STATUS_LABELS[project.status]} tone="neutral" testID={`project-status-${project.id}`} />
+          <Badge label={PROJECT_STATE_LABELS[project.state]} tone="neutral" testID={`project-status-${project.id}`} />
         </View>
         <AppText tone="muted" numberOfLines={2}>
           {where || 'No customer or site given'}

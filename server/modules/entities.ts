@@ -14,6 +14,8 @@ import { Placement } from './projects/placement.entity';
 import { SheetRevision } from './sheets/sheet-revision.entity';
 import { OutgoingMail } from './mail/outgoing-mail.entity';
 import { SheetEvaluation } from './sheets/sheet-evaluation.entity';
+import { ProjectComment } from './review/comment.entity';
+import { ProjectEvent } from './review/project-event.entity';
 
 export const entities = [
   Organization.schema,
@@ -27,4 +29,6 @@ export const entities = [
   SheetRevision.schema,
   OutgoingMail.schema,
   SheetEvaluation.schema,
+  ProjectComment.schema,
+  ProjectEvent.schema,
 ];

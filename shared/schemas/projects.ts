@@ -6,6 +6,7 @@ import { LIMIT_MESSAGES, PLACEMENT_LIMITS, SCENE_LIMITS } from './limits';
 import { criteriaSettings, criterionKind } from './criteria';
 import { labelRule, placementRules, projectRules } from './rules';
 import { zodText } from './zod-rules';
+import { reviewFieldsDto } from './review';
 
 const MAX_SITE_M = 2000;
 const coord = z
@@ -102,7 +103,6 @@ export type SceneZone = z.infer<typeof zone>;
 export type SceneViewer = z.infer<typeof viewer>;
 
 export const projectKinds = ['site', 'vehicle'] as const;
-export const projectStatuses = ['draft'] as const;
 
 const projectFields = {
   name: zodText(projectRules.name),
@@ -194,20 +194,27 @@ export const placementDto = z.object({
 });
 export type PlacementDto = z.infer<typeof placementDto>;
 
-export const projectSummaryDto = z.object({
-  id: z.number(),
-  name: z.string(),
-  customer: z.string(),
-  site: z.string(),
-  kind: z.enum(projectKinds),
-  status: z.enum(projectStatuses),
-  ownerId: z.number(),
-  ownerName: z.string(),
-  placementCount: z.number(),
-  version: z.number(),
-  createdAt: z.string(),
-  updatedAt: z.string(),
-});
+/** A placement write's answer: the placement and the project's version after it (every mirror change counts on the job). */
+export const placementWriteResponse = z.object({ placement: placementDto, projectVersion: z.number() });
+export type PlacementWriteResponse = z.infer<typeof placementWriteResponse>;
+export const placementRemoveResponse = z.object({ projectVersion: z.number() });
+export type PlacementRemoveResponse = z.infer<typeof placementRemoveResponse>;
+
+export const projectSummaryDto = z
+  .object({
+    id: z.number(),
+    name: z.string(),
+    customer: z.string(),
+    site: z.string(),
+    kind: z.enum(projectKinds),
+    ownerId: z.number(),
+    ownerName: z.string(),
+    placementCount: z.number(),
+    version: z.number(),
+    createdAt: z.string(),
+    updatedAt: z.string(),
+  })
+  .extend(reviewFieldsDto.shape);
 export type ProjectSummaryDto = z.infer<typeof projectSummaryDto>;
 
 export const projectDto = projectSummaryDto.extend({

@@ -149,3 +149,18 @@ export const reviewFieldsDto = z.object({
   openCommentCount: z.number(),
 });
 export type ReviewFieldsDto = z.infer<typeof reviewFieldsDto>;
+
+/** `GET /api/reviewers`: the people of the caller's organisation a job can be sent to (reviewers and admins). */
+export const reviewerDto = z.object({ id: z.number(), name: z.string(), role: z.string() });
+export type ReviewerDto = z.infer<typeof reviewerDto>;
+export const reviewersResponse = z.object({ reviewers: z.array(reviewerDto) });
+export type ReviewersResponse = z.infer<typeof reviewersResponse>;
+
+export const commentsResponse = z.object({ comments: z.array(commentDto) });
+export type CommentsResponse = z.infer<typeof commentsResponse>;
+export const commentResponse = z.object({ comment: commentDto });
+export type CommentResponse = z.infer<typeof commentResponse>;
+
+/** `GET /api/projects/:id/events`: oldest first. */
+export const projectEventsResponse = z.object({ events: z.array(projectEventDto) });
+export type ProjectEventsResponse = z.infer<typeof projectEventsResponse>;

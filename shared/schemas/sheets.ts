@@ -38,7 +38,13 @@ export type SheetRevisionDto = z.infer<typeof sheetRevisionDto>;
 
 export const sheetStatusDto = z.object({
   revisions: z.array(sheetRevisionDto),
-  current: z.object({ number: z.number(), contentHash: z.string(), changedSinceLast: z.boolean() }),
+  current: z.object({
+    number: z.number(),
+    contentHash: z.string(),
+    changedSinceLast: z.boolean(),
+    /** true when the job is approved and the current content is the approved content (the sheet carries no not-approved band). */
+    approved: z.boolean(),
+  }),
   filename: z.string(),
 });
 export type SheetStatusDto = z.infer<typeof sheetStatusDto>;
@@ -53,5 +59,9 @@ export const sheetEmailResponse = z.object({
   to: z.string(),
   filename: z.string(),
   delivery: z.enum(['sent', 'queued']),
+  /** Whether the sheet sent carries the approval (false: every page says it is not approved). */
+  approved: z.boolean(),
+  /** The address is not a user of the organisation (these sendings are limited per hour). */
+  outsideOrganisation: z.boolean(),
 });
 export type SheetEmailResponse = z.infer<typeof sheetEmailResponse>;

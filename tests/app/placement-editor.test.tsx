@@ -24,7 +24,12 @@ const project: ProjectDto = {
   customer: '',
   site: '',
   kind: 'site',
-  status: 'draft',
+  state: 'drawing_up',
+  reviewerId: null,
+  reviewerName: null,
+  sentAt: null,
+  approval: null,
+  openCommentCount: 0,
   ownerId: 1,
   ownerName: 'Ines',
   placementCount: 1,
@@ -107,7 +112,9 @@ describe('PlacementEditor', () => {
   });
 
   it('saves a metric value typed in imperial mode, in metres, with the version it edits', async () => {
-    jest.mocked(api.projects.updatePlacement).mockResolvedValue({ placement: { ...placement, heightM: 3.2, version: 5 } });
+    jest
+      .mocked(api.projects.updatePlacement)
+      .mockResolvedValue({ placement: { ...placement, heightM: 3.2, version: 5 }, projectVersion: 9 });
     renderEditor();
 
     fireEvent.change(screen.getByTestId('placement-height'), { target: { value: '3.2 m' } });
@@ -133,7 +140,9 @@ describe('PlacementEditor', () => {
     expect(screen.getByTestId('placement-conflict-theirs-values')).toHaveTextContent(`height ${formatLength(2.4384, 'imperial')}`);
     expect(screen.getByTestId('placement-height')).toHaveValue('10 ft');
 
-    jest.mocked(api.projects.updatePlacement).mockResolvedValue({ placement: { ...placement, heightM: 10 * 0.3048, version: 6 } });
+    jest
+      .mocked(api.projects.updatePlacement)
+      .mockResolvedValue({ placement: { ...placement, heightM: 10 * 0.3048, version: 6 }, projectVersion: 9 });
     fireEvent.click(screen.getByTestId('placement-conflict-keep'));
     await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenLastCalledWith(3, 7, { heightM: 10 * 0.3048, version: 5 }));
   });
@@ -148,7 +157,10 @@ describe('PlacementEditor', () => {
 
     jest
       .mocked(api.projects.updatePlacement)
-      .mockResolvedValue({ placement: { ...theirs, heightM: 10 * 0.3048, tiltDownRad: (20 * Math.PI) / 180, version: 6 } });
+      .mockResolvedValue({
+        placement: { ...theirs, heightM: 10 * 0.3048, tiltDownRad: (20 * Math.PI) / 180, version: 6 },
+        projectVersion: 9,
+      });
     fireEvent.click(screen.getByTestId('placement-conflict-keep'));
     await waitFor(() =>
       expect(api.projects.updatePlacement).toHaveBeenLastCalledWith(3, 7, {

@@ -34,11 +34,11 @@ beforeEach(() => jest.clearAllMocks());
 
 describe('usePlacementWrites', () => {
   it('sends a second save only after the first, with the version the first produced', async () => {
-    let finishFirst: (v: { placement: PlacementDto }) => void = () => undefined;
+    let finishFirst: (v: { placement: PlacementDto; projectVersion: number }) => void = () => undefined;
     jest
       .mocked(api.projects.updatePlacement)
       .mockImplementationOnce(() => new Promise((resolve) => (finishFirst = resolve)))
-      .mockResolvedValueOnce({ placement: { ...placement, heightM: 3, tiltDownRad: 0.2, version: 6 } });
+      .mockResolvedValueOnce({ placement: { ...placement, heightM: 3, tiltDownRad: 0.2, version: 6 }, projectVersion: 9 });
     const { result } = setup();
 
     act(() => result.current.change(7, { heightM: 3 }));
@@ -46,7 +46,7 @@ describe('usePlacementWrites', () => {
     await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenCalledTimes(1));
     expect(api.projects.updatePlacement).toHaveBeenLastCalledWith(3, 7, { heightM: 3, version: 4 });
 
-    await act(async () => finishFirst({ placement: { ...placement, heightM: 3, version: 5 } }));
+    await act(async () => finishFirst({ placement: { ...placement, heightM: 3, version: 5 }, projectVersion: 9 }));
     await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenCalledTimes(2));
     expect(api.projects.updatePlacement).toHaveBeenLastCalledWith(3, 7, { heightM: 3, tiltDownRad: 0.2, version: 5 });
     await waitFor(() => expect(result.current.unsaved[7]).toBeUndefined());

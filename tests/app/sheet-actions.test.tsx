@@ -29,7 +29,11 @@ function revision(number: number, overrides: Partial<SheetRevisionDto> = {}): Sh
 function status(revisions: SheetRevisionDto[], changedSinceLast: boolean): SheetStatusDto {
   const last = revisions[0];
   const next = last ? (changedSinceLast ? last.number + 1 : last.number) : 1;
-  return { revisions, current: { number: next, contentHash: 'f'.repeat(64), changedSinceLast }, filename: `sightfan-demo-rev${next}.pdf` };
+  return {
+    revisions,
+    current: { number: next, contentHash: 'f'.repeat(64), changedSinceLast, approved: false },
+    filename: `sightfan-demo-rev${next}.pdf`,
+  };
 }
 
 /** A client already holding the sheet's status, so the component renders without asking the (mocked) API. */
@@ -94,7 +98,14 @@ describe('SheetActions', () => {
   it('sends the address and note, then says which revision went to whom and clears the form', async () => {
     const to = 'buyer.desk@purchasing-demo.example';
     const note = 'For the purchase request, please.';
-    const sent: SheetEmailResponse = { revision: revision(5), to, filename: 'sightfan-demo-rev5.pdf', delivery: 'sent' };
+    const sent: SheetEmailResponse = {
+      revision: revision(5),
+      to,
+      filename: 'sightfan-demo-rev5.pdf',
+      delivery: 'sent',
+      approved: false,
+      outsideOrganisation: true,
+    };
     jest.mocked(api.sheets.email).mockResolvedValue(sent);
     renderWithStatus(status([revision(4)], true));
     const user = userEvent.setup();

@@ -2,7 +2,7 @@ import { defineEntity, type Opt } from '@mikro-orm/core';
 import { BaseRecord, baseProperties } from '../base';
 import { Organization } from '../users/organization.entity';
 
-export const outgoingMailKinds = ['invitation', 'password-reset', 'password-changed', 'sheet'] as const;
+export const outgoingMailKinds = ['invitation', 'password-reset', 'password-changed', 'sheet', 'review'] as const;
 export type OutgoingMailKind = (typeof outgoingMailKinds)[number];
 export const outgoingMailStatuses = ['queued', 'sending', 'sent', 'failed'] as const;
 export type OutgoingMailStatus = (typeof outgoingMailStatuses)[number];

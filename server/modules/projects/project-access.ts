@@ -26,7 +26,7 @@ export function visibleProjects(user: User): FilterQuery<Project> {
 /** The project with the id in the path, if this person may read it; otherwise 404 (400 for a malformed id). */
 export async function findVisibleProject(em: EntityManager, user: User, rawId: unknown): Promise<Project> {
   const id = parseOr400(idParam, rawId, 'The address');
-  const project = await em.findOne(Project, { $and: [{ id }, visibleProjects(user)] }, { populate: ['owner', 'organization'] });
+  const project = await em.findOne(Project, { $and: [{ id }, visibleProjects(user)] }, { populate: ['owner', 'organization', 'reviewer'] });
   if (!project) throw notFound('That project');
   return project;
 }

@@ -1,4 +1,4 @@
-import type { PlacementDto, ProjectDto, ProjectSummaryDto } from '../../../shared/schemas';
+import type { PlacementDto, ProjectDto, ProjectSummaryDto, ReviewFieldsDto } from '../../../shared/schemas';
 import type { Placement } from './placement.entity';
 import type { Project } from './project.entity';
 
@@ -20,14 +20,36 @@ export function toPlacementDto(p: Placement): PlacementDto {
   };
 }
 
-export function toProjectSummaryDto(p: Project, placementCount: number): ProjectSummaryDto {
+/** The review fields of a project (the reviewer must be populated when set). */
+export function toReviewFields(p: Project, openCommentCount: number): ReviewFieldsDto {
+  const approved = p.state === 'approved' && p.approvedAt && p.approvedRevision != null && p.approvedHash;
   return {
+    state: p.state,
+    reviewerId: p.reviewer?.id ?? null,
+    reviewerName: p.reviewer?.name ?? null,
+    sentAt: p.sentAt?.toISOString() ?? null,
+    approval: approved
+      ? {
+          reviewerId: p.approvedBy?.id ?? 0,
+          reviewerName: p.approvedByName ?? '',
+          reviewerRole: p.approvedByRole ?? '',
+          approvedAt: p.approvedAt!.toISOString(),
+          revision: p.approvedRevision!,
+          contentHash: p.approvedHash!,
+        }
+      : null,
+    openCommentCount,
+  };
+}
+
+export function toProjectSummaryDto(p: Project, placementCount: number, openCommentCount = 0): ProjectSummaryDto {
+  return {
+    ...toReviewFields(p, openCommentCount),
     id: p.id,
     name: p.name,
     customer: p.customer,
     site: p.site,
     kind: p.kind,
-    status: p.status,
     ownerId: p.owner.id,
     ownerName: p.owner.name,
     placementCount,
@@ -37,9 +59,9 @@ export function toProjectSummaryDto(p: Project, placementCount: number): Project
   };
 }
 
-export function toProjectDto(p: Project, placements: Placement[], canEdit: boolean): ProjectDto {
+export function toProjectDto(p: Project, placements: Placement[], canEdit: boolean, openCommentCount = 0): ProjectDto {
   return {
-    ...toProjectSummaryDto(p, placements.length),
+    ...toProjectSummaryDto(p, placements.length, openCommentCount),
     units: p.units,
     notes: p.notes,
     scene: p.scene,

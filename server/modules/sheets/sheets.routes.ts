@@ -48,7 +48,7 @@ export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: She
     const number = changed ? (latest?.number ?? 0) + 1 : latest.number;
     const body: SheetStatusDto = {
       revisions: revisions.map(toRevisionDto),
-      current: { number, contentHash: sheet.hash, changedSinceLast: changed },
+      current: { number, contentHash: sheet.hash, changedSinceLast: changed, approved: project.state === 'approved' && project.approvedHash === sheet.hash },
       filename: sheetFilename(project.name, number),
     };
     res.json(body);
@@ -113,6 +113,8 @@ export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: She
       to: body.to,
       filename: sheet.filename,
       delivery: delivery === 'sent' ? 'sent' : 'queued',
+      approved: project.state === 'approved' && project.approvedHash === revision.contentHash,
+      outsideOrganisation: false,
     };
     res.json(out);
   });
