@@ -3,6 +3,7 @@ import { StyleSheet, View } from 'react-native';
 import { AppText, Badge, TextLink } from '@/components/ui';
 import { layout, palette, spacing } from '@/constants/theme';
 import type { ProjectDto } from '@/shared/schemas';
+import { StateBadge } from '@/components/review/state-badge';
 
 export interface WorkspaceHeaderProps {
   project: ProjectDto;
@@ -28,6 +29,7 @@ export function WorkspaceHeader({ project, wide, saving, failed, unsaved }: Work
           </AppText>
         ) : null}
       </View>
+      <StateBadge state={project.state} testID="project-state" />
       {!project.canEdit ? <Badge label="Read only" tone="glass" testID="project-read-only" /> : null}
       <AppText variant="small" tone={failed ? 'stop' : 'muted'} testID="plan-save-status" aria-live="polite">
         {saving ? 'Saving…' : failed && unsaved ? 'Not saved' : ''}

@@ -17,13 +17,29 @@ export function CommentMarkers({
   threads,
   placements,
   view,
+  pendingPointM = null,
 }: {
   threads: readonly CommentThread[];
   placements: readonly Pick<PlacementDto, 'id' | 'positionM'>[];
   view: PlanView;
+  /** The point chosen for a comment not yet posted: a dashed ring. */
+  pendingPointM?: readonly [number, number] | null;
 }) {
+  const pending = pendingPointM ? toScreen(view, pendingPointM) : null;
   return (
     <G pointerEvents="none" testID="comment-markers">
+      {pending ? (
+        <Circle
+          testID="comment-marker-pending"
+          cx={pending[0]}
+          cy={pending[1]}
+          r={R}
+          fill="none"
+          stroke={palette.asphalt}
+          strokeWidth={2}
+          strokeDasharray="4 3"
+        />
+      ) : null}
       {threads.map((t) => {
         const at = pinPointM(t.root.pin, placements);
         if (!at) return null;
