@@ -25,6 +25,7 @@ import { usersRoutes } from './modules/users/users.routes';
 import { catalogRoutes } from './modules/catalog/catalog.routes';
 import { projectsRoutes } from './modules/projects/projects.routes';
 import { sheetsRoutes } from './modules/sheets/sheets.routes';
+import { reviewRoutes, reviewersRoutes } from './modules/review/review.routes';
 import { createSheetWork, type SheetWork } from './workers/sheet-pool';
 
 export interface AppDeps {
@@ -125,7 +126,9 @@ export function createApp(deps: AppDeps): SightfanApp {
   api.use('/outbox', outboxRoutes(orm, config.demoMode, config.mailFrom));
   api.use('/catalog', catalogRoutes(orm));
   api.use('/projects', projectsRoutes(orm));
-  api.use('/projects', sheetsRoutes({ orm, outbox, work }));
+  api.use('/projects', sheetsRoutes({ orm, outbox, work, outsidePerHour: config.sheetOutsideEmailsPerHour }));
+  api.use('/projects', reviewRoutes({ orm, work, publicUrl }));
+  api.use('/reviewers', reviewersRoutes(orm));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -36,6 +36,13 @@ const envSchema = z.object({
   SHEET_BUDGET_MS: z.coerce.number().int().min(100, 'SHEET_BUDGET_MS must be at least 100.').max(600_000).default(20_000),
   /** Worker threads for sheets; unset: one fewer than the cores, at least one. */
   SHEET_WORKERS: z.coerce.number().int().min(1, 'SHEET_WORKERS must be at least 1.').max(64).optional(),
+  /** Sheet e-mails one person may send per hour to addresses that are not users of their organisation. */
+  SHEET_OUTSIDE_EMAILS_PER_HOUR: z.coerce
+    .number()
+    .int()
+    .min(1, 'SHEET_OUTSIDE_EMAILS_PER_HOUR must be at least 1.')
+    .max(10_000)
+    .default(20),
 });
 
 export interface AppConfig {
@@ -57,6 +64,8 @@ export interface AppConfig {
   distDir: string;
   sheetBudgetMs: number;
   sheetWorkers?: number;
+  /** Sheet e-mails per person per hour to addresses outside their organisation (counted in the database). */
+  sheetOutsideEmailsPerHour: number;
 }
 
 export class ConfigError extends Error {}
@@ -93,6 +102,7 @@ export function parseConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     bcryptCost: e.BCRYPT_COST,
     sheetBudgetMs: e.SHEET_BUDGET_MS,
     sheetWorkers: e.SHEET_WORKERS,
+    sheetOutsideEmailsPerHour: e.SHEET_OUTSIDE_EMAILS_PER_HOUR,
     distDir: path.resolve(__dirname, '..', 'dist'),
   };
 }

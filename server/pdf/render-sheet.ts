@@ -11,6 +11,7 @@ import { NO_DEFAULT_FONT, registerSheetFonts } from './fonts';
 import { writeText } from './text-runs';
 import { BEACON, BEACON_SOFT, Flow, GLASS, INK, MUTED, RULE, STOP } from './layout';
 import { sheetFormat, type SheetContent, type SheetPlacement } from './sheet-model';
+import { drawApproval, drawNotApprovedBand, type SheetApproval } from './approval-mark';
 
 export interface SheetRevisionInfo {
   number: number;
@@ -90,39 +91,6 @@ function headerBlock(flow: Flow, content: SheetContent, rev: SheetRevisionInfo, 
     .strokeColor(INK)
     .stroke();
   flow.y += 8;
-}
-
-function approvalBlock(flow: Flow): void {
-  const doc = flow.doc;
-  const h = 112;
-  flow.ensure(h + 26);
-  flow.heading('Approval by the safety officer', h);
-  doc.rect(flow.left, flow.y, flow.width, h).lineWidth(0.8).strokeColor(INK).stroke();
-  flow.style('bold', 11, STOP).text('Not yet reviewed', flow.left + 10, flow.y + 9, { lineBreak: false });
-  flow
-    .style('regular', 8.5, MUTED)
-    .text(
-      'No safety officer has reviewed this revision. Do not treat it as approved until this block is completed and signed.',
-      flow.left + 10,
-      flow.y + 25,
-      {
-        width: flow.width - 20,
-      },
-    );
-  const fields = ['Reviewer', 'Decision', 'Date', 'Signature'];
-  const colW = (flow.width - 20) / 2;
-  fields.forEach((f, i) => {
-    const x = flow.left + 10 + (i % 2) * colW;
-    const y = flow.y + 58 + Math.floor(i / 2) * 26;
-    flow.style('regular', 8.5, MUTED).text(f, x, y, { lineBreak: false });
-    doc
-      .moveTo(x + 52, y + 10)
-      .lineTo(x + colW - 16, y + 10)
-      .lineWidth(0.6)
-      .strokeColor(RULE)
-      .stroke();
-  });
-  flow.y += h + 8;
 }
 
 function purchaseBlock(flow: Flow, content: SheetContent): void {
@@ -306,7 +274,15 @@ function placementPage(flow: Flow, content: SheetContent, p: SheetPlacement, ind
   cautionBox(flow, content.cautions, 'Read with these numbers', 8);
 }
 
-export async function renderSheet(content: SheetContent, rev: SheetRevisionInfo, paper: SheetPaper): Promise<Buffer> {
+/** A sheet rendered without an approval says it is not approved, on every page. */
+const NO_APPROVAL: SheetApproval = { approved: false, reason: 'no safety officer has approved this job.' };
+
+export async function renderSheet(
+  content: SheetContent,
+  rev: SheetRevisionInfo,
+  paper: SheetPaper,
+  approval: SheetApproval = NO_APPROVAL,
+): Promise<Buffer> {
   const issued = new Date(Math.floor(rev.issuedAt.getTime() / 1000) * 1000);
   const paperSpec = PAPER_SIZES[paper];
   const doc = new PDFDocument({
@@ -336,13 +312,14 @@ export async function renderSheet(content: SheetContent, rev: SheetRevisionInfo,
   zonesBlock(flow, content);
   summaryBlock(flow, content);
   purchaseBlock(flow, content);
-  approvalBlock(flow);
+  drawApproval(flow, approval);
   planPage(flow, content, paperSpec.name);
   content.placements.forEach((p, i) => placementPage(flow, content, p, i));
 
   const range = doc.bufferedPageRange();
   for (let i = range.start; i < range.start + range.count; i++) {
     doc.switchToPage(i);
+    drawNotApprovedBand(doc, approval);
     const bottom = doc.page.margins.bottom;
     // Writing inside the bottom margin would make pdfkit start a new page.
     doc.page.margins.bottom = 0;

@@ -10,6 +10,7 @@ import path from 'node:path';
 import Piscina from 'piscina';
 import type { SheetPaper } from '../../shared/schemas';
 import { HttpError } from '../http-error';
+import type { SheetApproval } from '../pdf/approval-mark';
 import type { SheetRevisionInfo } from '../pdf/render-sheet';
 import type { SheetInput } from '../pdf/sheet-model';
 import type { BuiltContent, RenderTask } from './sheet-tasks';
@@ -26,7 +27,7 @@ export interface SheetWork {
   inputHash(input: SheetInput): Promise<string>;
   build(input: SheetInput): Promise<BuiltContent>;
   /** `paper` unset: the content's default (US Letter for imperial, else A4). */
-  render(contentJson: string, rev: SheetRevisionInfo, paper?: SheetPaper): Promise<Buffer>;
+  render(contentJson: string, rev: SheetRevisionInfo, paper?: SheetPaper, approval?: SheetApproval): Promise<Buffer>;
   close(): Promise<void>;
 }
 
@@ -81,8 +82,8 @@ export function createSheetWork(opts: SheetWorkOptions): SheetWork {
   return {
     inputHash: (input) => run<string>('inputHash', input),
     build: (input) => run<BuiltContent>('build', input),
-    async render(contentJson, rev, paper) {
-      const bytes = await run<Uint8Array>('render', { contentJson, rev, paper } satisfies RenderTask);
+    async render(contentJson, rev, paper, approval) {
+      const bytes = await run<Uint8Array>('render', { contentJson, rev, paper, approval } satisfies RenderTask);
       return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
     },
     close: () => pool.destroy(),

@@ -6,6 +6,7 @@
  */
 import { createHash } from 'node:crypto';
 import type { SheetPaper } from '../../shared/schemas';
+import type { SheetApproval } from '../pdf/approval-mark';
 import { defaultPaper, renderSheet, type SheetRevisionInfo } from '../pdf/render-sheet';
 import { buildSheetContent, canonicalJson, contentHash, type SheetContent, type SheetInput } from '../pdf/sheet-model';
 
@@ -13,7 +14,7 @@ import { buildSheetContent, canonicalJson, contentHash, type SheetContent, type 
  * Part of every evaluation cache key. Raise it whenever the sheet model or the engine changes what a
  * sheet says for the same input (the cache is also emptied when the server starts).
  */
-export const SHEET_MODEL_VERSION = 2;
+export const SHEET_MODEL_VERSION = 3;
 
 export function inputHash(input: SheetInput): string {
   return createHash('sha256')
@@ -35,9 +36,10 @@ export interface RenderTask {
   contentJson: string;
   rev: SheetRevisionInfo;
   paper?: SheetPaper;
+  approval?: SheetApproval;
 }
 
 export async function render(task: RenderTask): Promise<Uint8Array> {
   const content = JSON.parse(task.contentJson) as SheetContent;
-  return renderSheet(content, task.rev, task.paper ?? defaultPaper(content.units));
+  return renderSheet(content, task.rev, task.paper ?? defaultPaper(content.units), task.approval);
 }

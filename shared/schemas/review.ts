@@ -50,8 +50,10 @@ export type SendProjectBody = z.input<typeof sendProjectBody>;
 export const approveProjectBody = z.object({ version }).strict();
 export type ApproveProjectBody = z.input<typeof approveProjectBody>;
 
-/** `POST /api/projects/:id/return` — at least one reason. */
-export const returnProjectBody = z.object({ version, reason: zodText(reviewRules.reason) }).strict();
+/** `POST /api/projects/:id/return` — at least one reason; it may be pinned like any comment (default: the job). */
+export const returnProjectBody = z
+  .object({ version, reason: zodText(reviewRules.reason), pin: z.lazy(() => commentPin).optional() })
+  .strict();
 export type ReturnProjectBody = z.input<typeof returnProjectBody>;
 
 /** Where a comment is pinned: the job as a whole, one mirror, or a point on the plan (metres). */

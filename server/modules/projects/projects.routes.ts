@@ -27,11 +27,13 @@ import { Project } from './project.entity';
 import { assertCanEdit, canEdit, findVisibleProject, visibleCatalogue, visibleProjects } from './project-access';
 import { toPlacementDto, toProjectDto, toProjectSummaryDto } from './project.dto';
 import { onStaleVersion } from '../../write-conflicts';
+import { factChanges, placementFacts, projectChanges, recordEvent } from '../review/audit';
+import { afterPlacementWrite, openCommentCount, openCommentCounts, withdrawalIfChanged } from '../review/review-service';
 
 // A stale `version` fails in the ORM (optimistic locking); the error middleware answers 409 with these.
 onStaleVersion(Project, 'project', async (em, stale) => {
-  const project = await em.findOneOrFail(Project, stale.id, { populate: ['owner', 'organization'] });
-  return toProjectDto(project, await placementsOf(em, project), true);
+  const project = await em.findOneOrFail(Project, stale.id, { populate: ['owner', 'organization', 'reviewer'] });
+  return toProjectDto(project, await placementsOf(em, project), true, await openCommentCount(em as EntityManager, project.id));
 });
 onStaleVersion(Placement, 'mirror', async (em, stale) => toPlacementDto(await em.findOneOrFail(Placement, stale.id)));
 
@@ -96,12 +98,11 @@ async function checkMount(
   if (problem) throw new HttpError(400, problem.message, { positionM: problem.message });
 }
 
-/**
- * Touches the project's `updatedAt` without a new project version: a mirror's change is not a plan
- * change. Naming `version` (as itself) in the update stops MikroORM adding its `version + 1`.
- */
-const touch = (em: EntityManager, project: Project) =>
-  em.nativeUpdate(Project, { id: project.id }, { updatedAt: new Date(), version: raw<Project, number>('version') });
+/** A placement's facts for the audit log, its catalogue item's code loaded. */
+async function factsOf(em: EntityManager, p: Placement): Promise<Record<string, string>> {
+  if (p.catalogueItem) await em.populate(p, ['catalogueItem']);
+  return placementFacts(p);
+}
 
 export function projectsRoutes(orm: Orm): Router {
   const r = Router();
@@ -124,7 +125,7 @@ export function projectsRoutes(orm: Orm): Router {
         : q.sort === 'customer'
           ? { customer: 'asc' as const, name: 'asc' as const }
           : { updatedAt: 'desc' as const };
-    const projects = await em.find(Project, where, { populate: ['owner'], orderBy: { ...orderBy, id: 'asc' } });
+    const projects = await em.find(Project, where, { populate: ['owner', 'reviewer'], orderBy: { ...orderBy, id: 'asc' } });
     const counts = new Map<number, number>();
     if (projects.length) {
       const ids = projects.map((p) => p.id);
@@ -136,14 +137,22 @@ export function projectsRoutes(orm: Orm): Router {
         );
       for (const row of rows) counts.set(Number(row.project_id), Number(row.n));
     }
-    res.json({ projects: projects.map((p) => toProjectSummaryDto(p, counts.get(p.id) ?? 0)) });
+    const open = await openCommentCounts(
+      em,
+      projects.map((p) => p.id),
+    );
+    res.json({ projects: projects.map((p) => toProjectSummaryDto(p, counts.get(p.id) ?? 0, open.get(p.id) ?? 0)) });
   });
 
   r.post('/', requireRole('installer'), async (req, res) => {
     const body = parseOr400(createProjectBody, req.body, 'The project');
     const em = orm.em.fork();
-    const project = em.create(Project, { ...body, owner: req.user!.id, organization: req.user!.organization.id });
-    await em.flush();
+    const project = await em.transactional(async (tx) => {
+      const created = tx.create(Project, { ...body, owner: req.user!.id, organization: req.user!.organization.id });
+      await tx.flush();
+      recordEvent(tx, { projectId: created.id, kind: 'created', actor: req.user!, summary: `Created "${created.name}".` });
+      return created;
+    });
     await em.populate(project, ['owner']);
     res.status(201).json({ project: toProjectDto(project, [], true) });
   });
@@ -151,16 +160,32 @@ export function projectsRoutes(orm: Orm): Router {
   r.get('/:id', async (req, res) => {
     const em = orm.em.fork();
     const project = await loadVisible(em, req.user!, req.params.id);
-    res.json({ project: toProjectDto(project, await placementsOf(em, project), canEdit(req.user!, project)) });
+    res.json({
+      project: toProjectDto(project, await placementsOf(em, project), canEdit(req.user!, project), await openCommentCount(em, project.id)),
+    });
   });
 
   r.patch('/:id', async (req, res) => {
     const em = orm.em.fork();
-    const project = await loadVisible(em, req.user!, req.params.id);
-    assertCanEdit(req.user!, project);
-    const body = parseOr400(patchProjectBody, req.body, 'The change');
+    await em.begin();
+    try {
+      const project = await patchProject(em, req.user!, req.params.id, req.body);
+      await em.commit();
+      res.json({ project: toProjectDto(project, await placementsOf(em, project), true, await openCommentCount(em, project.id)) });
+    } catch (e) {
+      await em.rollback();
+      throw e;
+    }
+  });
+
+  /** The job's fields and plan; in the caller's transaction with its `changed` event and the withdrawal rule. */
+  async function patchProject(em: EntityManager, user: User, rawId: unknown, rawBody: unknown): Promise<Project> {
+    const project = await loadVisible(em, user, rawId);
+    assertCanEdit(user, project);
+    const body = parseOr400(patchProjectBody, rawBody, 'The change');
     await em.lock(project, LockMode.OPTIMISTIC, body.version);
     const { version: _v, ...changes } = body;
+    const before = { name: project.name, customer: project.customer, site: project.site, notes: project.notes, scene: project.scene };
     if (changes.scene) {
       // A viewer still served by a mirror cannot vanish from the plan.
       const ids = new Set(changes.scene.viewers.map((v) => v.id));
@@ -171,9 +196,20 @@ export function projectsRoutes(orm: Orm): Router {
         });
     }
     em.assign(project, changes);
+    const changed = projectChanges(before, project);
+    if (changed.length)
+      recordEvent(em, {
+        projectId: project.id,
+        kind: 'changed',
+        actor: user,
+        summary: `Changed ${changed.map((c) => c.field).join(', ')}.`,
+        changes: changed,
+      });
+    const withdrawn = await withdrawalIfChanged(em, project, user);
+    if (withdrawn) em.assign(project, withdrawn);
     await em.flush();
-    res.json({ project: toProjectDto(project, await placementsOf(em, project), true) });
-  });
+    return project;
+  }
 
   r.delete('/:id', async (req, res) => {
     const em = orm.em.fork();
@@ -186,77 +222,113 @@ export function projectsRoutes(orm: Orm): Router {
   });
 
   r.post('/:id/placements', async (req, res) => {
-    const em = orm.em.fork();
-    const project = await loadVisible(em, req.user!, req.params.id);
-    assertCanEdit(req.user!, project);
-    const body = parseOr400(createPlacementBody, req.body, 'The mirror');
-    // The mirror limit bounds the sheet's work (SCENE_LIMITS); counted before the body's references.
-    if ((await em.count(Placement, { project: project.id })) >= SCENE_LIMITS.mirrors) throw new HttpError(409, LIMIT_MESSAGES.mirrors);
-    await checkReferences(em, project, body);
-    await checkMount(em, req.user!, project, body);
-    const { positionM, catalogueItemId, ...rest } = body;
-    const placement = em.create(Placement, {
-      ...rest,
-      project,
-      catalogueItem: catalogueItemId,
-      xM: positionM[0],
-      yM: positionM[1],
+    const out = await orm.em.fork().transactional(async (em) => {
+      const project = await loadVisible(em, req.user!, req.params.id);
+      assertCanEdit(req.user!, project);
+      const body = parseOr400(createPlacementBody, req.body, 'The mirror');
+      // The mirror limit bounds the sheet's work (SCENE_LIMITS); counted before the body's references.
+      if ((await em.count(Placement, { project: project.id })) >= SCENE_LIMITS.mirrors) throw new HttpError(409, LIMIT_MESSAGES.mirrors);
+      await checkReferences(em, project, body);
+      await checkMount(em, req.user!, project, body);
+      const { positionM, catalogueItemId, ...rest } = body;
+      const placement = em.create(Placement, {
+        ...rest,
+        project,
+        catalogueItem: catalogueItemId,
+        xM: positionM[0],
+        yM: positionM[1],
+      });
+      await em.flush();
+      const after = await factsOf(em, placement);
+      recordEvent(em, {
+        projectId: project.id,
+        kind: 'placement_added',
+        actor: req.user!,
+        summary: `Added mirror "${placement.label}".`,
+        changes: factChanges({}, after),
+        detail: { placementId: placement.id },
+      });
+      const projectVersion = await afterPlacementWrite(em, project, req.user!);
+      return { placement: toPlacementDto(placement), projectVersion };
     });
-    await em.flush();
-    await touch(em, project);
-    res.status(201).json({ placement: toPlacementDto(placement) });
+    res.status(201).json(out);
   });
 
   r.patch('/:id/placements/:placementId', async (req, res) => {
-    const em = orm.em.fork();
-    const project = await loadVisible(em, req.user!, req.params.id);
-    assertCanEdit(req.user!, project);
-    const placementId = parseOr400(idParam, req.params.placementId, 'The address');
-    const body = parseOr400(patchPlacementBody, req.body, 'The mirror');
-    const placement = await em.findOne(Placement, { id: placementId, project: project.id });
-    if (!placement) throw notFound('That mirror');
-    await em.lock(placement, LockMode.OPTIMISTIC, body.version);
-    await checkReferences(em, project, body);
-    const merged = {
-      label: body.label ?? placement.label,
-      catalogueItemId:
-        body.catalogueItemId !== undefined
-          ? body.catalogueItemId
-          : body.customMirror != null
-            ? null
-            : (placement.catalogueItem?.id ?? null),
-      customMirror: body.customMirror !== undefined ? body.customMirror : body.catalogueItemId != null ? null : placement.customMirror,
-      positionM: body.positionM ?? ([placement.xM, placement.yM] as [number, number]),
-      heightM: body.heightM ?? placement.heightM,
-      azimuthRad: body.azimuthRad ?? placement.azimuthRad,
-      tiltDownRad: body.tiltDownRad ?? placement.tiltDownRad,
-      viewerId: body.viewerId !== undefined ? body.viewerId : placement.viewerId,
-    };
-    await checkMount(em, req.user!, project, merged);
-    const { version: _v, positionM, catalogueItemId, ...rest } = body;
-    em.assign(placement, rest);
-    if (positionM) {
-      placement.xM = positionM[0];
-      placement.yM = positionM[1];
-    }
-    if (catalogueItemId !== undefined)
-      placement.catalogueItem = catalogueItemId === null ? null : em.getReference(MirrorModel, catalogueItemId);
-    if (body.catalogueItemId != null) placement.customMirror = null;
-    if (body.customMirror != null) placement.catalogueItem = null;
-    await em.flush();
-    await touch(em, project);
-    res.json({ placement: toPlacementDto(placement) });
+    const out = await orm.em.fork().transactional(async (em) => {
+      const project = await loadVisible(em, req.user!, req.params.id);
+      assertCanEdit(req.user!, project);
+      const placementId = parseOr400(idParam, req.params.placementId, 'The address');
+      const body = parseOr400(patchPlacementBody, req.body, 'The mirror');
+      const placement = await em.findOne(Placement, { id: placementId, project: project.id });
+      if (!placement) throw notFound('That mirror');
+      await em.lock(placement, LockMode.OPTIMISTIC, body.version);
+      const before = await factsOf(em, placement);
+      await checkReferences(em, project, body);
+      const merged = {
+        label: body.label ?? placement.label,
+        catalogueItemId:
+          body.catalogueItemId !== undefined
+            ? body.catalogueItemId
+            : body.customMirror != null
+              ? null
+              : (placement.catalogueItem?.id ?? null),
+        customMirror: body.customMirror !== undefined ? body.customMirror : body.catalogueItemId != null ? null : placement.customMirror,
+        positionM: body.positionM ?? ([placement.xM, placement.yM] as [number, number]),
+        heightM: body.heightM ?? placement.heightM,
+        azimuthRad: body.azimuthRad ?? placement.azimuthRad,
+        tiltDownRad: body.tiltDownRad ?? placement.tiltDownRad,
+        viewerId: body.viewerId !== undefined ? body.viewerId : placement.viewerId,
+      };
+      await checkMount(em, req.user!, project, merged);
+      const { version: _v, positionM, catalogueItemId, ...rest } = body;
+      em.assign(placement, rest);
+      if (positionM) {
+        placement.xM = positionM[0];
+        placement.yM = positionM[1];
+      }
+      if (catalogueItemId !== undefined)
+        placement.catalogueItem = catalogueItemId === null ? null : em.getReference(MirrorModel, catalogueItemId);
+      if (body.catalogueItemId != null) placement.customMirror = null;
+      if (body.customMirror != null) placement.catalogueItem = null;
+      await em.flush();
+      const changes = factChanges(before, await factsOf(em, placement));
+      if (changes.length)
+        recordEvent(em, {
+          projectId: project.id,
+          kind: 'placement_changed',
+          actor: req.user!,
+          summary: `Changed mirror "${placement.label}": ${changes.map((c) => c.field).join(', ')}.`,
+          changes,
+          detail: { placementId: placement.id },
+        });
+      const projectVersion = await afterPlacementWrite(em, project, req.user!);
+      return { placement: toPlacementDto(placement), projectVersion };
+    });
+    res.json(out);
   });
 
   r.delete('/:id/placements/:placementId', async (req, res) => {
-    const em = orm.em.fork();
-    const project = await loadVisible(em, req.user!, req.params.id);
-    assertCanEdit(req.user!, project);
-    const placementId = parseOr400(idParam, req.params.placementId, 'The address');
-    const deleted = await em.nativeDelete(Placement, { id: placementId, project: project.id });
-    if (!deleted) throw notFound('That mirror');
-    await touch(em, project);
-    res.status(204).end();
+    const out = await orm.em.fork().transactional(async (em) => {
+      const project = await loadVisible(em, req.user!, req.params.id);
+      assertCanEdit(req.user!, project);
+      const placementId = parseOr400(idParam, req.params.placementId, 'The address');
+      const placement = await em.findOne(Placement, { id: placementId, project: project.id });
+      if (!placement) throw notFound('That mirror');
+      const before = await factsOf(em, placement);
+      em.remove(placement);
+      await em.flush();
+      recordEvent(em, {
+        projectId: project.id,
+        kind: 'placement_removed',
+        actor: req.user!,
+        summary: `Removed mirror "${placement.label}".`,
+        changes: factChanges(before, Object.fromEntries(Object.keys(before).map((k) => [k, '']))),
+        detail: { placementId },
+      });
+      return { projectVersion: await afterPlacementWrite(em, project, req.user!) };
+    });
+    res.json(out);
   });
 
   return r;

@@ -7,7 +7,11 @@ import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/sqlite';
 import type { SheetPaper, SheetRevisionDto } from '../../../shared/schemas';
 import { HttpError, notFound } from '../../http-error';
+import type { SheetApproval } from '../../pdf/approval-mark';
 import { sheetFilename, type SheetInput } from '../../pdf/sheet-model';
+import { PROJECT_STATE_LABELS, type ProjectState } from '../../../shared/schemas';
+import { engineeringHash } from '../review/content-hash';
+import { roleWords } from '../review/notices';
 import type { SheetWork } from '../../workers/sheet-pool';
 import { toCatalogueItemDto } from '../catalog/catalog.dto';
 import { MirrorModel } from '../catalog/mirror-model.entity';
@@ -26,6 +30,7 @@ export interface CurrentSheet {
   project: Project;
   /** The SheetContent as JSON text: only worker threads parse it. */
   contentJson: string;
+  /** The content hash: the engineering content only (review/content-hash.ts), not units or paper. */
   hash: string;
 }
 
@@ -34,7 +39,8 @@ export function loadProject(em: EntityManager, user: User, rawId: unknown): Prom
   return findVisibleProject(em, user, rawId);
 }
 
-async function sheetInput(em: EntityManager, project: Project): Promise<SheetInput> {
+/** What the sheet is built from: the project, its placements and the catalogue items they use. */
+export async function sheetInput(em: EntityManager, project: Project): Promise<SheetInput> {
   const placements = await em.find(Placement, { project: project.id }, { orderBy: { id: 'asc' } });
   const catalogue = (await em.find(MirrorModel, visibleCatalogue(project.organization.id), { orderBy: { id: 'asc' } })).map(
     toCatalogueItemDto,
@@ -63,14 +69,47 @@ async function sheetInput(em: EntityManager, project: Project): Promise<SheetInp
 export async function currentContent(em: EntityManager, project: Project, work: SheetWork): Promise<CurrentSheet> {
   const input = await sheetInput(em, project);
   const key = await work.inputHash(input);
+  const hash = engineeringHash(input);
   const hit = await em.fork().findOne(SheetEvaluation, { inputHash: key });
   if (hit) {
     await em.nativeUpdate(SheetEvaluation, { inputHash: key }, { usedAt: new Date() });
-    return { project, contentJson: hit.content, hash: hit.contentHash };
+    return { project, contentJson: hit.content, hash };
   }
   const built = await work.build(input);
-  await storeEvaluation(em, key, built.contentJson, built.hash);
-  return { project, contentJson: built.contentJson, hash: built.hash };
+  await storeEvaluation(em, key, built.contentJson, hash);
+  return { project, contentJson: built.contentJson, hash };
+}
+
+/** The project's content hash as it stands (cheap: no evaluation). */
+export async function currentHash(em: EntityManager, project: Project): Promise<string> {
+  return engineeringHash(await sheetInput(em, project));
+}
+
+/**
+ * What a revision's sheet says about approval: the approval when the job is approved and this
+ * revision holds the approved content; otherwise the reason it is not the approved version.
+ */
+export function approvalFor(project: Project, revision: { number: number; contentHash: string }): SheetApproval {
+  if (project.state === 'approved' && project.approvedHash && project.approvedAt && project.approvedRevision != null) {
+    if (project.approvedHash === revision.contentHash) {
+      return {
+        approved: true,
+        reviewerName: project.approvedByName ?? '',
+        reviewerRole: roleWords(project.approvedByRole ?? ''),
+        approvedAt: project.approvedAt.toISOString(),
+        revision: project.approvedRevision,
+        contentHash: project.approvedHash,
+      };
+    }
+    return {
+      approved: false,
+      reason: `revision ${revision.number} differs from the approved revision ${project.approvedRevision} (hash ${project.approvedHash.slice(0, 12)}). Do not install from it.`,
+    };
+  }
+  return {
+    approved: false,
+    reason: `no safety officer has approved this job (${PROJECT_STATE_LABELS[project.state as ProjectState].toLowerCase()}). Do not install from it.`,
+  };
 }
 
 async function storeEvaluation(em: EntityManager, key: string, contentJson: string, hash: string): Promise<void> {
@@ -150,22 +189,24 @@ export async function renderRevision(
 ): Promise<RenderedSheet> {
   await em.populate(revision, ['content']);
   let contentJson: string;
-  if (revision.content) {
+  // The revision that holds the current engineering content prints as the job stands now (its units):
+  // switching units is not a new revision, and its sheet follows the switch.
+  const now = (await currentHash(em, project)) === revision.contentHash ? await currentContent(em, project, work) : null;
+  if (now) {
+    contentJson = now.contentJson;
+  } else if (revision.content) {
     contentJson = revision.content;
   } else {
-    const now = await currentContent(em, project, work);
-    if (now.hash !== revision.contentHash) {
-      throw new HttpError(
-        410,
-        `Revision ${revision.number} was issued before Sightfan kept each revision's content, and the project has changed since, so it cannot be printed again. Issue a new revision.`,
-      );
-    }
-    contentJson = now.contentJson;
+    throw new HttpError(
+      410,
+      `Revision ${revision.number} was issued before Sightfan kept each revision's content, and the project has changed since, so it cannot be printed again. Issue a new revision.`,
+    );
   }
   const pdf = await work.render(
     contentJson,
     { number: revision.number, contentHash: revision.contentHash, issuedAt: revision.issuedAt },
     paper,
+    approvalFor(project, revision),
   );
   return { revision, pdf, filename: sheetFilename(project.name, revision.number), projectName: project.name };
 }

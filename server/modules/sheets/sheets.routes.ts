@@ -14,6 +14,8 @@ import { parseOr400 } from '../../middleware/validate';
 import { sheetFilename } from '../../pdf/sheet-model';
 import type { SheetWork } from '../../workers/sheet-pool';
 import { queueMail, type MailDispatcher } from '../mail/outbox';
+import { recordEvent } from '../review/audit';
+import { User } from '../users/user.entity';
 import { SheetRevision } from './sheet-revision.entity';
 import { currentContent, issueRevision, latestRevision, loadProject, renderRevision, toRevisionDto } from './sheet-service';
 
@@ -33,7 +35,7 @@ function sendPdf(res: Response, pdf: Buffer, filename: string, revision: number)
  * of its organisation, an admin) can issue a revision, download an issued one or e-mail the sheet to
  * a buyer; others get 404. GET requests change nothing: a revision is issued only by POST.
  */
-export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: SheetWork }): Router {
+export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: SheetWork; outsidePerHour: number }): Router {
   const { orm, outbox, work } = deps;
   const r = Router();
   r.use(requireUser);
@@ -48,7 +50,12 @@ export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: She
     const number = changed ? (latest?.number ?? 0) + 1 : latest.number;
     const body: SheetStatusDto = {
       revisions: revisions.map(toRevisionDto),
-      current: { number, contentHash: sheet.hash, changedSinceLast: changed, approved: project.state === 'approved' && project.approvedHash === sheet.hash },
+      current: {
+        number,
+        contentHash: sheet.hash,
+        changedSinceLast: changed,
+        approved: project.state === 'approved' && project.approvedHash === sheet.hash,
+      },
       filename: sheetFilename(project.name, number),
     };
     res.json(body);
@@ -59,6 +66,10 @@ export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: She
     const em = orm.em.fork();
     const project = await loadProject(em, req.user!, req.params.id);
     const { revision, created } = await issueRevision(em, await currentContent(em, project, work), req.user!);
+    if (created) {
+      issuedEvent(em, project.id, req.user!, revision);
+      await em.flush();
+    }
     const body: SheetIssueResponse = { revision: toRevisionDto(revision), created, filename: sheetFilename(project.name, revision.number) };
     res.status(created ? 201 : 200).json(body);
   });
@@ -89,8 +100,25 @@ export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: She
     const project = await loadProject(em, req.user!, req.params.id);
     const body = parseOr400(sheetEmailBody, req.body, 'The e-mail');
     const q = parseOr400(sheetQuery, req.query, 'The address');
-    const { revision } = await issueRevision(em, await currentContent(em, project, work), req.user!);
+    // An address that is not a user of the organisation is limited per sender and hour (counted in the audit log).
+    const outside = !(await em.count(User, { email: body.to.toLowerCase(), organization: project.organization.id }));
+    if (outside) {
+      const rows = await em.execute<{ n: number }[]>(
+        `select count(*) as n from project_event where kind = 'sheet_emailed' and actor_id = ? and at > ? and json_extract(detail, '$.outside') = 1`,
+        [req.user!.id, new Date(Date.now() - 3600_000).getTime()],
+      );
+      if (Number(rows[0].n) >= deps.outsidePerHour) {
+        throw new HttpError(
+          429,
+          `You have sent ${deps.outsidePerHour} sheets to addresses outside your organisation in the last hour, the most Sightfan allows. Try again later, or send it to a colleague's address.`,
+          undefined,
+          { 'Retry-After': '3600' },
+        );
+      }
+    }
+    const { revision, created } = await issueRevision(em, await currentContent(em, project, work), req.user!);
     const sheet = await renderRevision(em, project, revision, work, q.paper);
+    const approved = project.state === 'approved' && project.approvedHash === revision.contentHash;
     const content = `${req.user!.name} sent you the Sightfan specification sheet for "${sheet.projectName}" (revision ${sheet.revision.number}), attached as a PDF.`;
     const note = body.message ? `\n\nTheir note:\n${body.message}` : '';
     const tail =
@@ -106,6 +134,14 @@ export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: She
       text: content + note + tail,
       attachments: [{ filename: sheet.filename, content: sheet.pdf, contentType: 'application/pdf' }],
     });
+    if (created) issuedEvent(em, project.id, req.user!, revision);
+    recordEvent(em, {
+      projectId: project.id,
+      kind: 'sheet_emailed',
+      actor: req.user!,
+      summary: `E-mailed sheet revision ${revision.number} to ${body.to}${approved ? '' : ' (not approved)'}.`,
+      detail: { to: body.to, revision: revision.number, outside: outside ? 1 : 0, approved: approved ? 1 : 0 },
+    });
     await em.flush();
     const delivery = await outbox.deliver(mail.id);
     const out: SheetEmailResponse = {
@@ -113,11 +149,21 @@ export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: She
       to: body.to,
       filename: sheet.filename,
       delivery: delivery === 'sent' ? 'sent' : 'queued',
-      approved: project.state === 'approved' && project.approvedHash === revision.contentHash,
-      outsideOrganisation: false,
+      approved,
+      outsideOrganisation: outside,
     };
     res.json(out);
   });
 
   return r;
+}
+
+function issuedEvent(em: Parameters<typeof recordEvent>[0], projectId: number, user: User, revision: SheetRevision): void {
+  recordEvent(em, {
+    projectId,
+    kind: 'sheet_issued',
+    actor: user,
+    summary: `Issued sheet revision ${revision.number}.`,
+    detail: { revision: revision.number, contentHash: revision.contentHash },
+  });
 }

@@ -1,0 +1,73 @@
+/**
+ * The review rules that other modules call inside their own transactions: the one withdrawal rule,
+ * the project version bump for mirror writes, and the open-comment counts the project DTOs carry.
+ */
+import { raw } from '@mikro-orm/core';
+import type { EntityManager } from '@mikro-orm/sqlite';
+import { Project } from '../projects/project.entity';
+import { currentHash } from '../sheets/sheet-service';
+import type { User } from '../users/user.entity';
+import { recordEvent } from './audit';
+
+/** The approval columns cleared, the job back to being drawn up. */
+export const WITHDRAWN = {
+  state: 'drawing_up' as const,
+  approvedBy: null,
+  approvedByName: null,
+  approvedByRole: null,
+  approvedAt: null,
+  approvedRevision: null,
+  approvedHash: null,
+};
+
+/**
+ * The one withdrawal rule: an approved job whose content hash (as it stands in this unit of work)
+ * no longer equals the approved hash goes back to being drawn up, with an `approval_withdrawn`
+ * event in the same transaction. Returns the columns to write, or null when nothing is withdrawn.
+ */
+export async function withdrawalIfChanged(em: EntityManager, project: Project, actor: User): Promise<typeof WITHDRAWN | null> {
+  if (project.state !== 'approved' || !project.approvedHash) return null;
+  const hash = await currentHash(em, project);
+  if (hash === project.approvedHash) return null;
+  recordEvent(em, {
+    projectId: project.id,
+    kind: 'approval_withdrawn',
+    actor,
+    summary: `The approval of revision ${project.approvedRevision} was withdrawn: the job changed after it was approved.`,
+    detail: { revision: project.approvedRevision, approvedHash: project.approvedHash, contentHash: hash },
+  });
+  return WITHDRAWN;
+}
+
+/**
+ * After a mirror write (already flushed in this transaction): withdraws the approval if the content
+ * changed, and raises the project's version atomically (`version = version + 1`), so two writes to
+ * two different mirrors never conflict on the project. Returns the project's new version.
+ */
+export async function afterPlacementWrite(em: EntityManager, project: Project, actor: User): Promise<number> {
+  const withdrawn = await withdrawalIfChanged(em, project, actor);
+  await em.flush();
+  await em.nativeUpdate(
+    Project,
+    { id: project.id },
+    { ...(withdrawn ?? {}), updatedAt: new Date(), version: raw<Project, number>('version + 1') },
+  );
+  const rows = await em.execute<{ version: number }[]>('select version from project where id = ?', [project.id]);
+  return Number(rows[0].version);
+}
+
+/** Open (unresolved) comment threads per project. */
+export async function openCommentCounts(em: EntityManager, ids: number[]): Promise<Map<number, number>> {
+  const counts = new Map<number, number>();
+  if (!ids.length) return counts;
+  const rows = await em.execute<{ project_id: number; n: number }[]>(
+    `select project_id, count(*) as n from project_comment where parent_id is null and resolved = 0 and project_id in (${ids.map(() => '?').join(',')}) group by project_id`,
+    ids,
+  );
+  for (const row of rows) counts.set(Number(row.project_id), Number(row.n));
+  return counts;
+}
+
+export async function openCommentCount(em: EntityManager, id: number): Promise<number> {
+  return (await openCommentCounts(em, [id])).get(id) ?? 0;
+}
