@@ -28,8 +28,10 @@ export function WorkspaceHeader({ project, wide, saving, failed, unsaved }: Work
             {[project.customer, project.site].filter(Boolean).join(' · ')}
           </AppText>
         ) : null}
+        {/* On a phone the state goes under the name, so a long state never squeezes the name away. */}
+        {wide ? null : <StateBadge state={project.state} testID="project-state" />}
       </View>
-      <StateBadge state={project.state} testID="project-state" />
+      {wide ? <StateBadge state={project.state} testID="project-state" /> : null}
       {!project.canEdit ? <Badge label="Read only" tone="glass" testID="project-read-only" /> : null}
       <AppText variant="small" tone={failed ? 'stop' : 'muted'} testID="plan-save-status" aria-live="polite">
         {saving ? 'Saving…' : failed && unsaved ? 'Not saved' : ''}

@@ -6,7 +6,8 @@ import { FormikTextField } from '@/components/forms/formik-text-field';
 import { submitWithServerErrors, type FormStatus } from '@/components/forms/server-errors';
 import { AppText, Badge, Button, Notice } from '@/components/ui';
 import { palette, radii, spacing } from '@/constants/theme';
-import type { CommentDto, PlacementDto } from '@/shared/schemas';
+import { shortRoleLabels } from '@/constants/navigation';
+import type { CommentDto, PlacementDto, Role } from '@/shared/schemas';
 import { commentSchema, type CommentValues } from './comment-form';
 import { pinText, type CommentThread } from './comment-threads';
 import { eventTime } from './review-timeline';
@@ -102,11 +103,14 @@ function Thread({
   );
 }
 
+/** The role in the words the rest of the app uses ("Reviewer"), whatever the DTO's string. */
+export const roleWord = (role: string) => (role in shortRoleLabels ? shortRoleLabels[role as Role] : role);
+
 function Entry({ comment }: { comment: CommentDto }) {
   return (
     <View style={styles.entry}>
       <AppText variant="small" tone="muted">
-        {`${comment.authorName} (${comment.authorRole}) · ${eventTime(comment.createdAt)}`}
+        {`${comment.authorName} · ${roleWord(comment.authorRole)} · ${eventTime(comment.createdAt)}`}
       </AppText>
       {/* Plain text: React escapes it; nothing is parsed as markup or links. */}
       <AppText selectable testID={`comment-body-${comment.id}`}>

@@ -2,6 +2,7 @@ import { StyleSheet, View } from 'react-native';
 import { AppText } from '@/components/ui';
 import { spacing } from '@/constants/theme';
 import type { ReviewFieldsDto } from '@/shared/schemas';
+import { roleWord } from './comment-list';
 import { eventTime } from './review-timeline';
 import { StateBadge } from './state-badge';
 
@@ -17,7 +18,7 @@ export function reviewSentence(job: ReviewFieldsDto): string {
     case 'approved': {
       const a = job.approval;
       return a
-        ? `Approved by ${a.reviewerName} (${a.reviewerRole}) on ${eventTime(a.approvedAt)}: revision ${a.revision}, content ${a.contentHash.slice(0, 12)}….`
+        ? `Approved by ${a.reviewerName} (${roleWord(a.reviewerRole)}) on ${eventTime(a.approvedAt)}: revision ${a.revision}, content hash ${a.contentHash.slice(0, 12)}…`
         : 'Approved.';
     }
   }

@@ -4,6 +4,7 @@ import userEvent from '@testing-library/user-event';
 import { ReturnForm } from '@/components/review/return-form';
 import { ReviewActions } from '@/components/review/review-actions';
 import { reviewActionsFor, type ReviewAction } from '@/components/review/review-rules';
+import { reviewSentence } from '@/components/review/review-summary';
 import { StateBadge } from '@/components/review/state-badge';
 import { ApiError } from '@/shared/api-client';
 import { PROJECT_STATE_LABELS, projectStates, reviewRules, type ProjectState, type Role } from '@/shared/schemas';
@@ -14,6 +15,36 @@ describe('the state badge', () => {
   it.each(projectStates)('shows the words for %s', (state) => {
     render(<StateBadge state={state} testID="badge" />);
     expect(screen.getByTestId('badge')).toHaveTextContent(PROJECT_STATE_LABELS[state]);
+  });
+});
+
+describe('the review sentence', () => {
+  const fields = { reviewerId: null, reviewerName: null, sentAt: null, approval: null, openCommentCount: 0 };
+
+  it('names who approved, in the app’s word for their role, with the revision and the start of the hash', () => {
+    const hash = 'c8330a1e4103' + '0'.repeat(52);
+    const sentence = reviewSentence({
+      ...fields,
+      state: 'approved',
+      approval: {
+        reviewerId: 4,
+        reviewerName: 'Rosa Demo',
+        reviewerRole: 'reviewer',
+        approvedAt: '2026-12-02T16:19:00.000Z',
+        revision: 3,
+        contentHash: hash,
+      },
+    });
+    expect(sentence).toContain('Approved by Rosa Demo (Reviewer)');
+    expect(sentence).toContain('revision 3');
+    expect(sentence).toContain('content hash c8330a1e4103…');
+  });
+
+  it('names the reviewer a job was sent to, or says any reviewer may take it', () => {
+    expect(reviewSentence({ ...fields, state: 'with_reviewer', reviewerId: 4, reviewerName: 'Rosa Demo' })).toBe(
+      'Sent to Rosa Demo for review.',
+    );
+    expect(reviewSentence({ ...fields, state: 'with_reviewer' })).toContain('any reviewer');
   });
 });
 
