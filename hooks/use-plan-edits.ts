@@ -50,7 +50,6 @@ export function usePlanEdits(project: ProjectDto) {
   }, []);
 
   const scene = localScene ?? project.scene;
-  const projectVersion = project.version;
   const { change, create, remove } = writes;
   const { mutateAsync: patchProject } = updateProject;
 
@@ -67,9 +66,9 @@ export function usePlanEdits(project: ProjectDto) {
       setLocalScene(next);
       setProblem(null);
       return enqueue(async () => {
-        const version = qc.getQueryData<ProjectDto>(key)?.version ?? projectVersion;
         try {
-          await patchProject({ version, scene: next });
+          // The version is read when the save runs, after the mirror writes queued before it.
+          await patchProject({ scene: next });
           setLocalScene((current) => (current === next ? null : current));
           return true;
         } catch (e) {
@@ -82,7 +81,7 @@ export function usePlanEdits(project: ProjectDto) {
         }
       });
     },
-    [enqueue, projectVersion, patchProject, qc, key],
+    [enqueue, patchProject, qc, key],
   );
 
   /** A placement change from the plan (the end of a drag): saved at once through the shared path. */

@@ -44,11 +44,20 @@ export function useCreateProjectMutation() {
   });
 }
 
-/** A 409 replaces the cached project with the server's current one, so the screen shows what is true. */
+/**
+ * A 409 replaces the cached project with the server's current one, so the screen shows what is true.
+ * It runs in the project's write scope, after the mirror writes queued before it, and reads the
+ * project's version when it runs (a mirror write before it raised it).
+ */
 export function useUpdateProjectMutation(id: number) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: PatchProjectBody) => api.projects.update(id, body),
+    scope: placementScope(id),
+    mutationFn: (body: Omit<PatchProjectBody, 'version'>) => {
+      const version = qc.getQueryData<ProjectDto>(projectKeys.detail(id))?.version;
+      if (version === undefined) throw new Error('This project is not loaded; open it again.');
+      return api.projects.update(id, { ...body, version });
+    },
     onSuccess: ({ project }) => {
       qc.setQueryData(projectKeys.detail(id), project);
       void qc.invalidateQueries({ queryKey: [...projectKeys.all, 'list'] });
@@ -70,19 +79,21 @@ export function useDeleteProjectMutation() {
   });
 }
 
-function replacePlacement(project: ProjectDto | undefined, placement: PlacementDto): ProjectDto | undefined {
+/** The cached project with a placement saved and the project's version the server answered with. */
+function replacePlacement(project: ProjectDto | undefined, placement: PlacementDto, projectVersion?: number): ProjectDto | undefined {
   if (!project) return project;
   const exists = project.placements.some((p) => p.id === placement.id);
   return {
     ...project,
+    version: projectVersion ?? project.version,
     placements: exists ? project.placements.map((p) => (p.id === placement.id ? placement : p)) : [...project.placements, placement],
   };
 }
 
 /**
- * Every write to a project's placements shares one mutation scope, so TanStack Query runs them one
- * after another in the order they were made; each update reads the version when it runs, which is
- * the version the write before it produced.
+ * Every write to a project (its plan and its placements) shares one mutation scope, so TanStack
+ * Query runs them one after another in the order they were made; each reads the version when it
+ * runs, which is the version the write before it produced (a mirror write raises the project's).
  */
 export const placementScope = (projectId: number) => ({ id: `project-${projectId}-placements` });
 
@@ -98,8 +109,8 @@ export function useAddPlacementMutation(projectId: number) {
   return useMutation({
     scope: placementScope(projectId),
     mutationFn: (body: CreatePlacementBody) => api.projects.addPlacement(projectId, body),
-    onSuccess: ({ placement }) => {
-      qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) => replacePlacement(old, placement));
+    onSuccess: ({ placement, projectVersion }) => {
+      qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) => replacePlacement(old, placement, projectVersion));
       void qc.invalidateQueries({ queryKey: [...projectKeys.all, 'list'] });
     },
   });
@@ -114,7 +125,8 @@ export function useUpdatePlacementMutation(projectId: number) {
       if (version === undefined) throw new Error('This mirror is no longer in the project; it may have been removed.');
       return api.projects.updatePlacement(projectId, placementId, { ...edits, version });
     },
-    onSuccess: ({ placement }) => qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) => replacePlacement(old, placement)),
+    onSuccess: ({ placement, projectVersion }) =>
+      qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) => replacePlacement(old, placement, projectVersion)),
     onError: (err) => {
       if (err instanceof ApiError && err.status === 409 && err.current) {
         qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) => replacePlacement(old, err.current as PlacementDto));
@@ -128,9 +140,9 @@ export function useRemovePlacementMutation(projectId: number) {
   return useMutation({
     scope: placementScope(projectId),
     mutationFn: (placementId: number) => api.projects.removePlacement(projectId, placementId),
-    onSuccess: (_v, placementId) => {
+    onSuccess: ({ projectVersion }, placementId) => {
       qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) =>
-        old ? { ...old, placements: old.placements.filter((p) => p.id !== placementId) } : old,
+        old ? { ...old, version: projectVersion, placements: old.placements.filter((p) => p.id !== placementId) } : old,
       );
       void qc.invalidateQueries({ queryKey: [...projectKeys.all, 'list'] });
     },

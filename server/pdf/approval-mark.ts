@@ -32,7 +32,11 @@ export function drawApproval(flow: Flow, approval: SheetApproval): void {
   const h = 112;
   flow.ensure(h + 26);
   flow.heading('Approval by the safety officer', h);
-  doc.rect(flow.left, flow.y, flow.width, h).lineWidth(0.8).strokeColor(approval.approved ? INK : STOP).stroke();
+  doc
+    .rect(flow.left, flow.y, flow.width, h)
+    .lineWidth(0.8)
+    .strokeColor(approval.approved ? INK : STOP)
+    .stroke();
   const x = flow.left + 10;
   const w = flow.width - 20;
   if (approval.approved) {
@@ -48,7 +52,11 @@ export function drawApproval(flow: Flow, approval: SheetApproval): void {
       const y = flow.y + 28 + i * 15;
       flow.style('regular', 8.5, MUTED).text(label, x, y, { lineBreak: false });
       doc.fillColor(INK);
-      writeText(doc, label === 'Content hash' ? 'mono' : 'regular', 8.5, value, x + 90, y, { width: w - 90, lineBreak: false, ellipsis: true });
+      writeText(doc, label === 'Content hash' ? 'mono' : 'regular', 8.5, value, x + 90, y, {
+        width: w - 90,
+        lineBreak: false,
+        ellipsis: true,
+      });
     });
   } else {
     flow.style('bold', 11, STOP).text('Not approved', x, flow.y + 9, { lineBreak: false });

@@ -155,12 +155,10 @@ describe('PlacementEditor', () => {
     expect(screen.getByTestId('placement-save-status')).toHaveTextContent('Not saved: changed elsewhere.');
     expect(api.projects.updatePlacement).toHaveBeenCalledTimes(1);
 
-    jest
-      .mocked(api.projects.updatePlacement)
-      .mockResolvedValue({
-        placement: { ...theirs, heightM: 10 * 0.3048, tiltDownRad: (20 * Math.PI) / 180, version: 6 },
-        projectVersion: 9,
-      });
+    jest.mocked(api.projects.updatePlacement).mockResolvedValue({
+      placement: { ...theirs, heightM: 10 * 0.3048, tiltDownRad: (20 * Math.PI) / 180, version: 6 },
+      projectVersion: 9,
+    });
     fireEvent.click(screen.getByTestId('placement-conflict-keep'));
     await waitFor(() =>
       expect(api.projects.updatePlacement).toHaveBeenLastCalledWith(3, 7, {
@@ -183,7 +181,7 @@ describe('PlacementEditor', () => {
   });
 
   it('asks before removing the mirror, then removes it', async () => {
-    jest.mocked(api.projects.removePlacement).mockResolvedValue(undefined as never);
+    jest.mocked(api.projects.removePlacement).mockResolvedValue({ projectVersion: 9 });
     const onClose = jest.fn();
     renderEditor(onClose);
 

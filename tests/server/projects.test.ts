@@ -68,7 +68,7 @@ describe('projects: create, read, change, delete', () => {
     const created = await a.post('/api/projects').send(newProject());
     expect(created.status).toBe(201);
     const p = created.body.project;
-    expect(p).toMatchObject({ name: 'Aisle 7 crossing', kind: 'site', status: 'draft', version: 1, canEdit: true, placements: [] });
+    expect(p).toMatchObject({ name: 'Aisle 7 crossing', kind: 'site', state: 'drawing_up', version: 1, canEdit: true, placements: [] });
 
     const read = await a.get(`/api/projects/${p.id}`);
     expect(read.body.project.scene.zones[0].name).toBe('Crossing');
@@ -213,14 +213,38 @@ describe('stale versions and bad bodies', () => {
     expect(stale.body.current).toMatchObject({ heightM: 4, version: 2 });
   });
 
-  it("keeps the project's version when a mirror is added, changed or removed, so the plan's next save is not refused", async () => {
+  it("counts every mirror write on the project's version and answers with it, so the plan saves with the version it was given", async () => {
     const a = await as('installerA');
     const p = (await a.post('/api/projects').send(newProject('Mirror edits beside plan edits'))).body.project;
-    const pl = (await a.post(`/api/projects/${p.id}/placements`).send(newPlacement(await firstCatalogueId()))).body.placement;
-    await a.patch(`/api/projects/${p.id}/placements/${pl.id}`).send({ version: pl.version, heightM: 3.4 });
-    await a.delete(`/api/projects/${p.id}/placements/${pl.id}`);
-    const planSave = await a.patch(`/api/projects/${p.id}`).send({ version: p.version, notes: 'Plan edited after the mirror changes' });
+    const added = await a.post(`/api/projects/${p.id}/placements`).send(newPlacement(await firstCatalogueId()));
+    expect(added.body.projectVersion).toBe(p.version + 1);
+    const pl = added.body.placement;
+    const changed = await a.patch(`/api/projects/${p.id}/placements/${pl.id}`).send({ version: pl.version, heightM: 3.4 });
+    expect(changed.body.projectVersion).toBe(p.version + 2);
+    const removed = await a.delete(`/api/projects/${p.id}/placements/${pl.id}`);
+    expect(removed.status).toBe(200);
+    expect(removed.body.projectVersion).toBe(p.version + 3);
+    const stalePlan = await a.patch(`/api/projects/${p.id}`).send({ version: p.version, notes: 'Plan edited with the old version' });
+    expect(stalePlan.status).toBe(409);
+    const planSave = await a
+      .patch(`/api/projects/${p.id}`)
+      .send({ version: removed.body.projectVersion, notes: 'Plan edited after the mirror changes' });
     expect(planSave.status).toBe(200);
+  });
+
+  it('lets two simultaneous saves of two different mirrors of one job both through', async () => {
+    const a = await as('installerA');
+    const p = (await a.post('/api/projects').send(newProject('Two mirrors at once'))).body.project;
+    const catalogueId = await firstCatalogueId();
+    const one = (await a.post(`/api/projects/${p.id}/placements`).send(newPlacement(catalogueId))).body.placement;
+    const two = (await a.post(`/api/projects/${p.id}/placements`).send({ ...newPlacement(catalogueId), label: 'M2', positionM: [4, 4] }))
+      .body.placement;
+    const [r1, r2] = await Promise.all([
+      a.patch(`/api/projects/${p.id}/placements/${one.id}`).send({ version: one.version, heightM: 3.1 }),
+      a.patch(`/api/projects/${p.id}/placements/${two.id}`).send({ version: two.version, heightM: 3.2 }),
+    ]);
+    expect([r1.status, r2.status]).toEqual([200, 200]);
+    expect(new Set([r1.body.projectVersion, r2.body.projectVersion]).size).toBe(2);
   });
 
   it('lets only one of two simultaneous edits of the same version through, and tells the other what was saved', async () => {

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { LockMode, raw, type EntityManager as AnyEntityManager } from '@mikro-orm/core';
+import { LockMode, type EntityManager as AnyEntityManager } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/sqlite';
 import {
   createPlacementBody,

@@ -5,11 +5,10 @@
  */
 import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/sqlite';
-import type { SheetPaper, SheetRevisionDto } from '../../../shared/schemas';
+import { PROJECT_STATE_LABELS, type ProjectState, type SheetPaper, type SheetRevisionDto } from '../../../shared/schemas';
 import { HttpError, notFound } from '../../http-error';
 import type { SheetApproval } from '../../pdf/approval-mark';
 import { sheetFilename, type SheetInput } from '../../pdf/sheet-model';
-import { PROJECT_STATE_LABELS, type ProjectState } from '../../../shared/schemas';
 import { engineeringHash } from '../review/content-hash';
 import { roleWords } from '../review/notices';
 import type { SheetWork } from '../../workers/sheet-pool';
