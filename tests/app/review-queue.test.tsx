@@ -4,10 +4,17 @@ import userEvent from '@testing-library/user-event';
 import fc from 'fast-check';
 import { router } from 'expo-router';
 import { ReviewQueueTable, StateCounts } from '@/components/review/review-queue';
+import { ReviewQueuePanel } from '@/components/review/review-queue-panel';
+import { renderWithQuery } from './render';
 import { countByState, DEFAULT_QUEUE_SORT, nextSort, sortQueue, waitedMs, type QueueJob } from '@/components/review/review-queue-order';
 import { projectStates } from '@/shared/schemas';
 
+import { api } from '@/hooks/api';
+import { useIsWide } from '@/hooks/use-breakpoint';
+
 jest.mock('expo-router', () => ({ router: { push: jest.fn() } }));
+jest.mock('@/hooks/api', () => ({ api: { projects: { list: jest.fn() } } }));
+jest.mock('@/hooks/use-breakpoint', () => ({ useIsWide: jest.fn() }));
 
 const NOW = Date.parse('2026-12-02T12:00:00.000Z');
 const hoursAgo = (h: number) => new Date(NOW - h * 3_600_000).toISOString();
@@ -133,5 +140,40 @@ describe('the reviewer’s queue', () => {
     expect(nextSort(DEFAULT_QUEUE_SORT, 'site')).toEqual({ key: 'site', direction: 'ascending' });
     expect(nextSort({ key: 'site', direction: 'ascending' }, 'site')).toEqual({ key: 'site', direction: 'descending' });
     expect(nextSort({ key: 'site', direction: 'ascending' }, 'waiting')).toEqual({ key: 'waiting', direction: 'descending' });
+  });
+});
+
+describe('the reviews screen', () => {
+  const summary = (id: number, state: QueueJob['state']) => ({
+    ...job(id, { state }),
+    kind: 'site' as const,
+    ownerId: 1,
+    placementCount: 1,
+    version: 1,
+    createdAt: hoursAgo(40),
+    approval: null,
+  });
+
+  beforeEach(() => {
+    jest.mocked(api.projects.list).mockResolvedValue({
+      projects: [summary(1, 'with_reviewer'), summary(2, 'approved'), summary(3, 'drawing_up'), summary(4, 'with_reviewer')],
+    });
+  });
+
+  it('lists only the jobs waiting for review and counts every state, as a table when wide', async () => {
+    jest.mocked(useIsWide).mockReturnValue(true);
+    renderWithQuery(<ReviewQueuePanel />);
+    await screen.findByTestId('queue-table');
+    expect(rowIds().sort()).toEqual(['queue-row-1', 'queue-row-4']);
+    expect(screen.getByTestId('queue-count-approved')).toHaveTextContent('1');
+    expect(screen.getByTestId('queue-count-with_reviewer')).toHaveTextContent('2');
+  });
+
+  it('shows the same jobs as a list on a phone', async () => {
+    jest.mocked(useIsWide).mockReturnValue(false);
+    renderWithQuery(<ReviewQueuePanel />);
+    const list = await screen.findByTestId('queue-list');
+    expect(within(list).getAllByRole('link')).toHaveLength(2);
+    expect(screen.queryByTestId('queue-table')).not.toBeInTheDocument();
   });
 });
