@@ -1,7 +1,7 @@
 import '@testing-library/jest-dom';
 import { fireEvent, render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { router } from 'expo-router';
 import { ReviewQueueTable, StateCounts } from '@/components/review/review-queue';
 import { ReviewQueuePanel } from '@/components/review/review-queue-panel';

@@ -72,7 +72,6 @@ describe('two people close the review loop', () => {
   let phoneErrors: string[];
   let wideErrors: string[];
   let projectId = 0;
-  let mirrorId = 0;
 
   beforeAll(async () => {
     ({ page: phone, errors: phoneErrors } = await openPage(product, PHONE));
@@ -125,7 +124,8 @@ describe('two people close the review loop', () => {
   it('lets the reviewer pin a comment to a mirror and another to a point, both shown on the plan', async () => {
     const row = wide.locator('[data-testid^="summary-placement-"]').first();
     await row.waitFor();
-    mirrorId = Number((await row.getAttribute('data-testid'))!.replace('summary-placement-', ''));
+    const mirrorId = Number((await row.getAttribute('data-testid'))!.replace('summary-placement-', ''));
+    const mirrorLabel = (await projectAsSeenBy(wide, projectId)).placements.find((p) => p.id === mirrorId)!.label;
     await row.click();
     await byTestId(wide, 'comment-pin-placement').click();
     await byTestId(wide, 'comment-body').fill('This mirror shows the racking end, not the crossing. Aim it 10° further left.');
@@ -140,7 +140,7 @@ describe('two people close the review loop', () => {
     await byTestId(wide, 'comment-body').fill('A pedestrian door opens here; check it is seen.');
     await byTestId(wide, 'comment-submit').click();
     await byTestId(wide, 'comment-marker-2').waitFor({ state: 'attached' });
-    await expect(byTestId(wide, 'comment-thread-1').textContent()).resolves.toContain('On mirror');
+    await expect(byTestId(wide, 'comment-thread-1').textContent()).resolves.toContain(`On mirror ${mirrorLabel}`);
     await expect(byTestId(wide, 'comment-thread-2').textContent()).resolves.toContain('At a point on the plan');
     await shot(wide, 'review-wide-comments');
   });
