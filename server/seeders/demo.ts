@@ -8,6 +8,8 @@ import { Project } from '../modules/projects/project.entity';
 import { Placement } from '../modules/projects/placement.entity';
 import { DEMO_CATALOGUE } from './demo-catalogue';
 import { DEMO_PROJECT } from './demo-project';
+import { DEMO_REVIEW_JOB } from './demo-review-job';
+import { ProjectEvent } from '../modules/review/project-event.entity';
 
 /** Demo only: listed in README.md. Never use these anywhere real. */
 export const DEMO_PASSWORD = 'demo-password-1';
@@ -19,7 +21,7 @@ export const DEMO_USERS = [
 
 /**
  * Seeds the invented demo organisation, one user per role, the demo catalogue and the demo
- * project, once: if the demo organisation is
+ * project (being drawn up) and a small job waiting for the demo reviewer, once: if the demo organisation is
  * already there, nothing changes (so a restart keeps whatever people did).
  */
 export async function seedDemo(orm: Orm, bcryptCost: number): Promise<boolean> {
@@ -56,6 +58,45 @@ export async function seedDemo(orm: Orm, bcryptCost: number): Promise<boolean> {
       viewerId: p.viewerId,
     });
   }
+  // Sent earlier, so it is older than the cold-store project and waits in the reviewer's queue.
+  const sentAt = new Date(Date.now() - DEMO_REVIEW_JOB.sentHoursAgo * 3600_000);
+  const { placement: rp, sentHoursAgo: _h, ...reviewFields } = DEMO_REVIEW_JOB;
+  const waiting = em.create(Project, {
+    ...reviewFields,
+    owner: users[0],
+    organization: org,
+    demo: true,
+    state: 'with_reviewer',
+    reviewer: users[1],
+    sentAt,
+  });
+  em.create(Placement, {
+    project: waiting,
+    label: rp.label,
+    catalogueItem: byCode.get(DEMO_CATALOGUE[0].code)!,
+    xM: rp.positionM[0],
+    yM: rp.positionM[1],
+    heightM: rp.heightM,
+    azimuthRad: (rp.azimuthDeg * Math.PI) / 180,
+    tiltDownRad: (rp.tiltDownDeg * Math.PI) / 180,
+    viewerId: rp.viewerId,
+  });
   await em.flush();
+  for (const [kind, summary] of [
+    ['created', `Created "${waiting.name}".`],
+    ['placement_added', `Added mirror "${rp.label}".`],
+    ['sent', `Sent to ${users[1].name} for review.`],
+  ] as const) {
+    em.create(ProjectEvent, { projectId: waiting.id, kind, actorId: users[0].id, actorName: users[0].name, at: sentAt, summary });
+  }
+  em.create(ProjectEvent, {
+    projectId: project.id,
+    kind: 'created',
+    actorId: users[0].id,
+    actorName: users[0].name,
+    summary: `Created "${project.name}".`,
+  });
+  await em.flush();
+  await em.nativeUpdate(Project, { id: waiting.id }, { createdAt: sentAt, updatedAt: sentAt });
   return true;
 }

@@ -3,14 +3,14 @@ import { QueryClientProvider } from '@tanstack/react-query';
 import type { ReactNode } from 'react';
 import { api } from '@/hooks/api';
 import { usePlacementWrites } from '@/hooks/use-placement-writes';
-import { projectKeys, useProjectQuery } from '@/hooks/use-projects';
+import { projectKeys, useProjectQuery, useUpdateProjectMutation } from '@/hooks/use-projects';
 import { ApiError } from '@/shared/api-client';
 import type { PlacementDto, ProjectDto } from '@/shared/schemas';
 import { testPlacement } from './fixtures';
 import { makeTestQueryClient } from './render';
 
 jest.mock('@/hooks/api', () => ({
-  api: { projects: { get: jest.fn(), updatePlacement: jest.fn(), removePlacement: jest.fn(), addPlacement: jest.fn() } },
+  api: { projects: { get: jest.fn(), update: jest.fn(), updatePlacement: jest.fn(), removePlacement: jest.fn(), addPlacement: jest.fn() } },
 }));
 
 const placement: PlacementDto = testPlacement({ viewerId: null });
@@ -70,5 +70,31 @@ describe('usePlacementWrites', () => {
     act(() => result.current.useTheirs(7));
     expect(result.current.placements[0]).toMatchObject({ heightM: 2.4, notes: '' });
     expect(result.current.conflicts[7]).toBeUndefined();
+  });
+
+  it("runs a plan save after a mirror save queued before it, with the project's version that mirror save answered", async () => {
+    let finishMirror: (v: { placement: PlacementDto; projectVersion: number }) => void = () => undefined;
+    jest.mocked(api.projects.updatePlacement).mockImplementationOnce(() => new Promise((resolve) => (finishMirror = resolve)));
+    jest.mocked(api.projects.update).mockResolvedValue({ project: { ...project, version: 3 } });
+    const client = makeTestQueryClient();
+    client.setQueryData(projectKeys.detail(3), project);
+    jest.mocked(api.projects.get).mockResolvedValue({ project });
+    const wrapper = ({ children }: { children: ReactNode }) => <QueryClientProvider client={client}>{children}</QueryClientProvider>;
+    const { result } = renderHook(
+      () => {
+        const q = useProjectQuery(3);
+        return { writes: usePlacementWrites(q.data ?? project), plan: useUpdateProjectMutation(3) };
+      },
+      { wrapper },
+    );
+
+    act(() => result.current.writes.change(7, { heightM: 3 }));
+    await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenCalledTimes(1));
+    act(() => result.current.plan.mutate({ notes: 'After the mirror' }));
+    await new Promise((r) => setTimeout(r, 50));
+    expect(api.projects.update).not.toHaveBeenCalled();
+
+    await act(async () => finishMirror({ placement: { ...placement, heightM: 3, version: 5 }, projectVersion: 2 }));
+    await waitFor(() => expect(api.projects.update).toHaveBeenCalledWith(3, { notes: 'After the mirror', version: 2 }));
   });
 });

@@ -63,3 +63,42 @@ it('gives an admin-made catalogue item to the organisation that existed, keeps t
   ).rejects.toThrow(/UNIQUE/);
   expect(await sql.execute('select count(*) as n from outgoing_mail')).toEqual([{ n: 0 }]);
 });
+
+it('carries jobs forward into the review loop: every job is being drawn up, its mirrors and queued mail kept, the event log append-only', async () => {
+  const old = await MikroORM.init(ormOptions(path.join(dir, 'before-review.sqlite')));
+  try {
+    const migrator = old.getMigrator();
+    await migrator.up({ to: 'Migration20261202140000' });
+    const sql = old.em.getConnection();
+    await sql.execute(
+      `insert into organization (id, created_at, updated_at, name, demo) values (1, ${now}, ${now}, 'Old Works (test)', 0)`,
+    );
+    await sql.execute(
+      `insert into user (id, created_at, updated_at, organization_id, email, name, role, disabled, units) values (1, ${now}, ${now}, 1, 'inst@works.test', 'Inst', 'installer', 0, 'metric')`,
+    );
+    await sql.execute(
+      `insert into project (id, created_at, updated_at, owner_id, organization_id, name, status, scene, version) values (7, ${now}, ${now}, 1, 1, 'Dock 2', 'draft', '{"walls":[],"zones":[],"viewers":[]}', 4)`,
+    );
+    await sql.execute(
+      `insert into placement (created_at, updated_at, project_id, label, custom_mirror, x_m, y_m, height_m, azimuth_rad, tilt_down_rad) values (${now}, ${now}, 7, 'M1', '{"shape":"round","diameterM":0.6,"radiusM":0.8}', 1, 2, 3, 0, 0.2)`,
+    );
+    await sql.execute(
+      `insert into outgoing_mail (created_at, updated_at, organization_id, kind, to_address, subject, text, attachments, next_attempt_at) values (${now}, ${now}, 1, 'sheet', 'buyer@works.test', 'Sheet', 'Hello', '[]', ${now})`,
+    );
+
+    await migrator.up();
+
+    expect(await sql.execute('select id, name, state, version, reviewer_id, approved_hash from project')).toEqual([
+      { id: 7, name: 'Dock 2', state: 'drawing_up', version: 4, reviewer_id: null, approved_hash: null },
+    ]);
+    expect(await sql.execute('select label from placement where project_id = 7')).toEqual([{ label: 'M1' }]);
+    expect(await sql.execute('select kind, to_address from outgoing_mail')).toEqual([{ kind: 'sheet', to_address: 'buyer@works.test' }]);
+    await sql.execute(
+      `insert into project_event (project_id, kind, actor_id, actor_name, at, summary, changes, detail) values (7, 'created', 1, 'Inst', ${now}, 'Created.', '[]', '{}')`,
+    );
+    await expect(sql.execute(`update project_event set summary = 'Rewritten.'`)).rejects.toThrow(/append-only/);
+    await expect(sql.execute('delete from project_event')).rejects.toThrow(/append-only/);
+  } finally {
+    await old.close(true);
+  }
+});

@@ -121,7 +121,7 @@ describe('the specification sheet PDF', () => {
     expect(text).toContain(`Total ${f.money(totalMinor, used[0].currency)}`);
   });
 
-  it('states the four cautions, the limits of what it promises and an approval block that is not yet reviewed', async () => {
+  it('states the four cautions, the limits of what it promises and an approval block that says the job is not approved', async () => {
     const text = textOf((await fetchSheet(installer)).pdf);
     // The four cautions the product always carries, by a phrase of each written here, not read
     // from the list the sheet prints: a caution dropped from that list fails this test.
@@ -135,7 +135,8 @@ describe('the specification sheet PDF', () => {
     }
     // The app's caution block and the sheet show the same sentences, whole.
     for (const caution of SAFETY_CAUTIONS) expect(text).toContain(caution.text);
-    expect(text).toContain('Not yet reviewed');
+    expect(text).toContain('Not approved');
+    expect(text).toContain('NOT APPROVED — no safety officer has approved this job');
     expect(text).toContain('not a certificate of compliance');
     for (const field of ['Reviewer', 'Decision', 'Date', 'Signature']) expect(text).toContain(field);
   });

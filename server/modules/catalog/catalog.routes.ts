@@ -1,5 +1,7 @@
 import { Router } from 'express';
 import { LockMode } from '@mikro-orm/core';
+import type { EntityManager } from '@mikro-orm/sqlite';
+import type { z } from 'zod';
 import { createCatalogueItemBody, idParam, patchCatalogueItemBody } from '../../../shared/schemas';
 import type { Orm } from '../../db';
 import { HttpError, notFound } from '../../http-error';
@@ -9,6 +11,8 @@ import { assignMirror, toCatalogueItemDto } from './catalog.dto';
 import { MirrorModel } from './mirror-model.entity';
 import { visibleCatalogue } from '../projects/project-access';
 import { onDuplicate, onStaleVersion } from '../../write-conflicts';
+import { withdrawApprovalsUsing } from '../review/review-service';
+import type { User } from '../users/user.entity';
 
 onDuplicate(
   'mirror_model.code',
@@ -41,7 +45,20 @@ export function catalogRoutes(orm: Orm): Router {
     const id = parseOr400(idParam, req.params.id, 'The address');
     const body = parseOr400(patchCatalogueItemBody, req.body, 'The catalogue item');
     const em = orm.em.fork();
-    const item = await em.findOne(MirrorModel, { $and: [{ id }, visibleCatalogue(req.user!.organization.id)] });
+    await em.begin();
+    try {
+      const item = await patchItem(em, req.user!, id, body);
+      await em.commit();
+      res.json({ item: toCatalogueItemDto(item) });
+    } catch (e) {
+      await em.rollback();
+      throw e;
+    }
+  });
+
+  /** The change, and in the same transaction the withdrawal rule for every approved job that uses the item. */
+  async function patchItem(em: EntityManager, user: User, id: number, body: z.output<typeof patchCatalogueItemBody>) {
+    const item = await em.findOne(MirrorModel, { $and: [{ id }, visibleCatalogue(user.organization.id)] });
     if (!item) throw notFound('That catalogue item');
     if (!item.organization) {
       throw new HttpError(
@@ -54,8 +71,9 @@ export function catalogRoutes(orm: Orm): Router {
     em.assign(item, rest);
     if (mirror) assignMirror(item, mirror);
     await em.flush();
-    res.json({ item: toCatalogueItemDto(item) });
-  });
+    await withdrawApprovalsUsing(em, item, user);
+    return item;
+  }
 
   return r;
 }

@@ -4,6 +4,8 @@
  */
 import { raw } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/sqlite';
+import type { MirrorModel } from '../catalog/mirror-model.entity';
+import { Placement } from '../projects/placement.entity';
 import { Project } from '../projects/project.entity';
 import { currentHash } from '../sheets/sheet-service';
 import type { User } from '../users/user.entity';
@@ -25,7 +27,12 @@ export const WITHDRAWN = {
  * no longer equals the approved hash goes back to being drawn up, with an `approval_withdrawn`
  * event in the same transaction. Returns the columns to write, or null when nothing is withdrawn.
  */
-export async function withdrawalIfChanged(em: EntityManager, project: Project, actor: User): Promise<typeof WITHDRAWN | null> {
+export async function withdrawalIfChanged(
+  em: EntityManager,
+  project: Project,
+  actor: User,
+  because = 'the job changed after it was approved',
+): Promise<typeof WITHDRAWN | null> {
   if (project.state !== 'approved' || !project.approvedHash) return null;
   const hash = await currentHash(em, project);
   if (hash === project.approvedHash) return null;
@@ -33,7 +40,7 @@ export async function withdrawalIfChanged(em: EntityManager, project: Project, a
     projectId: project.id,
     kind: 'approval_withdrawn',
     actor,
-    summary: `The approval of revision ${project.approvedRevision} was withdrawn: the job changed after it was approved.`,
+    summary: `The approval of revision ${project.approvedRevision} was withdrawn: ${because}.`,
     detail: { revision: project.approvedRevision, approvedHash: project.approvedHash, contentHash: hash },
   });
   return WITHDRAWN;
@@ -54,6 +61,28 @@ export async function afterPlacementWrite(em: EntityManager, project: Project, a
   );
   const rows = await em.execute<{ version: number }[]>('select version from project where id = ?', [project.id]);
   return Number(rows[0].version);
+}
+
+/**
+ * A catalogue item's optics are part of every job that uses it: after a change to the item (flushed
+ * in this transaction), each approved job whose content hash moved is withdrawn and its version raised.
+ */
+export async function withdrawApprovalsUsing(em: EntityManager, item: MirrorModel, actor: User): Promise<void> {
+  const uses = await em.find(Placement, { catalogueItem: item.id }, { fields: ['project'] });
+  const ids = [...new Set(uses.map((p) => p.project.id))];
+  if (!ids.length) return;
+  const approved = await em.find(Project, { id: { $in: ids }, state: 'approved' }, { populate: ['owner', 'organization'] });
+  for (const project of approved) {
+    const withdrawn = await withdrawalIfChanged(em, project, actor, `catalogue item ${item.code} changed`);
+    if (!withdrawn) continue;
+    await em.flush();
+    await em.nativeUpdate(
+      Project,
+      { id: project.id },
+      { ...withdrawn, updatedAt: new Date(), version: raw<Project, number>('version + 1') },
+    );
+  }
+  await em.flush();
 }
 
 /** Open (unresolved) comment threads per project. */

@@ -6,7 +6,7 @@
 import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/sqlite';
 import { PROJECT_STATE_LABELS, type ProjectState, type SheetPaper, type SheetRevisionDto } from '../../../shared/schemas';
-import { HttpError, notFound } from '../../http-error';
+import { HttpError } from '../../http-error';
 import type { SheetApproval } from '../../pdf/approval-mark';
 import { sheetFilename, type SheetInput } from '../../pdf/sheet-model';
 import { engineeringHash } from '../review/content-hash';
