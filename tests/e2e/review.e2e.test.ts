@@ -10,6 +10,8 @@ import path from 'node:path';
 import type { Page } from 'playwright-core';
 import sqlite3 from 'sqlite3';
 import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seeders/demo';
+import { DEMO_PROJECT } from '../../server/seeders/demo-project';
+import { DEMO_REVIEW_JOB } from '../../server/seeders/demo-review-job';
 import type { ProjectDto } from '../../shared/schemas';
 import { PHONE, WIDE, byTestId, openPage, shot, signIn, startProduct, type Product } from './browser';
 
@@ -82,10 +84,13 @@ describe('two people close the review loop', () => {
 
   it('shows the installer each job’s state in the project list', async () => {
     await phone.goto(`${product.server.url}/projects`);
-    const row = phone.locator('[data-testid^="project-row-"]').first();
+    const row = phone.locator('[data-testid^="project-row-"]', { hasText: DEMO_PROJECT.name });
     await row.waitFor();
     projectId = Number((await row.getAttribute('data-testid'))!.replace('project-row-', ''));
     await expect(byTestId(phone, `project-status-${projectId}`).textContent()).resolves.toBe('Being drawn up');
+    // The demo's second job was seeded as sent, so the list shows more than one state.
+    const other = phone.locator('[data-testid^="project-row-"]', { hasText: DEMO_REVIEW_JOB.name });
+    await expect(other.locator('[data-testid^="project-status-"]').textContent()).resolves.toBe('Waiting for a reviewer');
     await shot(phone, 'review-phone-projects');
   });
 
@@ -104,17 +109,21 @@ describe('two people close the review loop', () => {
   it('puts the job in the reviewer’s queue, reached and opened with the keyboard', async () => {
     await wide.goto(`${product.server.url}/reviews`);
     await byTestId(wide, `queue-row-${projectId}`).waitFor();
-    await expect(byTestId(wide, 'queue-count-with_reviewer').textContent()).resolves.toMatch(/^1/);
-    // Tab from the last sort button lands on the first row; Enter opens it.
+    const rows = await wide.locator('[data-testid="queue-table"] [role="row"][data-testid^="queue-row-"]').count();
+    await expect(byTestId(wide, 'queue-count-with_reviewer').textContent()).resolves.toMatch(new RegExp(`^${rows}`));
+    // Tab from the last sort button lands on the first row (the longest waiting); ↓ moves on until
+    // ours (sent just now, so last); Enter opens it.
     await byTestId(wide, 'queue-sort-installer').focus();
     await wide.keyboard.press('Tab');
-    await expect(
+    const focused = () =>
       wide.evaluate(() =>
         (
           globalThis as unknown as { document: { activeElement: { getAttribute(n: string): string | null } } }
         ).document.activeElement.getAttribute('data-testid'),
-      ),
-    ).resolves.toBe(`queue-row-${projectId}`);
+      );
+    expect(await focused()).toMatch(/^queue-row-/);
+    for (let i = 1; i < rows && (await focused()) !== `queue-row-${projectId}`; i++) await wide.keyboard.press('ArrowDown');
+    expect(await focused()).toBe(`queue-row-${projectId}`);
     await shot(wide, 'review-wide-queue');
     await wide.keyboard.press('Enter');
     await wide.waitForURL(`**/projects/${projectId}`);
