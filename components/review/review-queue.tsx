@@ -64,7 +64,7 @@ export function ReviewQueueTable({ jobs, nowMs }: ReviewQueueProps) {
         ))}
         <View role="columnheader" style={styles.stateCol}>
           <AppText variant="caps" tone="muted">
-            State
+            Sent to
           </AppText>
         </View>
       </View>
@@ -137,7 +137,7 @@ function QueueRow({
       role="row"
       tabIndex={tabbable ? 0 : -1}
       testID={`queue-row-${job.id}`}
-      aria-label={`${job.name}, ${site}, by ${job.ownerName}, waiting ${waitingText(waitedMs(job, nowMs))}`}
+      aria-label={`${job.name}, ${site}, by ${job.ownerName}, waiting ${waitingText(waitedMs(job, nowMs))}, sent to ${job.reviewerName ?? 'any reviewer'}`}
       onPress={() => openJob(job.id)}
       onFocus={onFocus}
       onBlur={onBlur}
@@ -160,7 +160,7 @@ function QueueRow({
         <AppText numberOfLines={1}>{job.ownerName}</AppText>
       </View>
       <View role="cell" style={styles.stateCol}>
-        <StateBadge state={job.state} />
+        <AppText numberOfLines={1}>{job.reviewerName ?? 'Any reviewer'}</AppText>
         {job.openCommentCount > 0 ? (
           <AppText
             variant="small"
