@@ -3,10 +3,12 @@
  * one-shot "tap the plan to pin a comment" mode, and the review panel for the details column.
  * The workspace only passes `pinning`, `onPinTap` and `overlay` to the canvas and places `panel`.
  */
-import { useMemo, useState } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import type { PlanView } from '@/components/plan/plan-view';
 import type { PlanSelection } from '@/components/plan/plan-types';
-import { useCommentsQuery } from '@/hooks/use-review';
+import { projectKeys } from '@/hooks/use-projects';
+import { reviewKeys, useCommentsQuery } from '@/hooks/use-review';
 import type { PlacementDto, ProjectDto } from '@/shared/schemas';
 import type { PinChoice } from './comment-form';
 import { CommentMarkers } from './comment-markers';
@@ -25,6 +27,7 @@ export function useReviewPlan({
   wide: boolean;
 }) {
   const comments = useCommentsQuery(project.id);
+  useFollowWithdrawal(project);
   const threads = useMemo(() => threadsOf(comments.data ?? []), [comments.data]);
   const [pinChoice, setPinChoice] = useState<PinChoice>('job');
   const [pinning, setPinning] = useState(false);
@@ -60,4 +63,21 @@ export function useReviewPlan({
     />
   );
   return { pinning, onPinTap, overlay, panel };
+}
+
+/**
+ * A mirror write answers with the project's new version but not its state, while the server
+ * withdraws an approval on any change to the content. So when the version moves on an approved
+ * job, fetch the job again (the badge, the sentence and the sheet must stop saying "Approved"),
+ * and the trail, which has a new event.
+ */
+function useFollowWithdrawal(project: ProjectDto) {
+  const qc = useQueryClient();
+  const seen = useRef(project.version);
+  useEffect(() => {
+    if (project.version === seen.current) return;
+    seen.current = project.version;
+    void qc.invalidateQueries({ queryKey: reviewKeys.events(project.id) });
+    if (project.state === 'approved') void qc.invalidateQueries({ queryKey: projectKeys.detail(project.id) });
+  }, [project.id, project.version, project.state, qc]);
 }

@@ -4,6 +4,7 @@ import type { ReactNode } from 'react';
 import { api } from '@/hooks/api';
 import { projectKeys } from '@/hooks/use-projects';
 import { useTransitionMutation } from '@/hooks/use-review';
+import { useReviewPlan } from '@/components/review/use-review-plan';
 import { ApiError } from '@/shared/api-client';
 import type { ProjectDto } from '@/shared/schemas';
 import { makeTestQueryClient } from './render';
@@ -12,6 +13,8 @@ jest.mock('@/hooks/api', () => ({
   api: {
     projects: { approve: jest.fn(), send: jest.fn(), return: jest.fn(), get: jest.fn(), list: jest.fn(), events: jest.fn() },
     comments: { list: jest.fn() },
+    auth: { me: jest.fn() },
+    reviewers: { list: jest.fn() },
     sheets: { status: jest.fn() },
   },
 }));
@@ -55,5 +58,34 @@ describe('review transitions', () => {
     expect(api.projects.return).toHaveBeenCalledWith(3, { version: 7, reason: 'Aim M2 lower.' });
     await act(() => result.current.mutateAsync({ action: 'send', reviewerId: 12 }));
     expect(api.projects.send).toHaveBeenCalledWith(3, { version: 7, reviewerId: 12 });
+  });
+});
+
+describe('an approved job changed by a mirror write', () => {
+  function renderPlan(project: ProjectDto) {
+    const client = makeTestQueryClient();
+    jest.mocked(api.comments.list).mockResolvedValue({ comments: [] });
+    const spy = jest.spyOn(client, 'invalidateQueries');
+    const wrapper = ({ children }: { children: ReactNode }) => <QueryClientProvider client={client}>{children}</QueryClientProvider>;
+    const hook = renderHook((p: ProjectDto) => useReviewPlan({ project: p, placements: [], selection: null, wide: true }), {
+      wrapper,
+      initialProps: project,
+    });
+    return { spy, ...hook };
+  }
+
+  it('fetches the job again when its version moves on while it shows Approved, so a withdrawal shows', () => {
+    const approved = { ...loaded, state: 'approved' } as ProjectDto;
+    const { spy, rerender } = renderPlan(approved);
+    expect(spy).not.toHaveBeenCalledWith({ queryKey: projectKeys.detail(3) });
+    rerender({ ...approved, version: 8 });
+    expect(spy).toHaveBeenCalledWith({ queryKey: projectKeys.detail(3) });
+  });
+
+  it('does not fetch the job again for a version change while it is being drawn up', () => {
+    const drawing = { ...loaded, state: 'drawing_up' } as ProjectDto;
+    const { spy, rerender } = renderPlan(drawing);
+    rerender({ ...drawing, version: 8 });
+    expect(spy).not.toHaveBeenCalledWith({ queryKey: projectKeys.detail(3) });
   });
 });
