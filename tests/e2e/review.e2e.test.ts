@@ -225,6 +225,24 @@ describe('two people close the review loop', () => {
     expect(attachments.some((a) => a.contentType === 'application/pdf')).toBe(true);
   });
 
+  it('withdraws the approval when the installer then changes a mirror: the screen and the sheet say so', async () => {
+    // The round panel on the rack's end face takes a new height within the mounting rule (as in the conflict test).
+    const row = phone.locator('[data-testid^="summary-placement-"]', { hasText: 'M2 dock corner' }).first();
+    await row.click();
+    await byTestId(phone, 'placement-height').fill('3.35 m');
+    await byTestId(phone, 'placement-height').press('Tab');
+    await byTestId(phone, 'placement-save').click();
+    await byTestId(phone, 'placement-save-status').filter({ hasText: 'All changes saved.' }).waitFor();
+    await stateIs(phone, 'Being drawn up');
+    await shot(phone, 'review-phone-withdrawn');
+
+    const issued = await phone.request.post(`${product.server.url}/api/projects/${projectId}/sheet/revisions`);
+    const { revision } = (await issued.json()) as { revision: { number: number } };
+    const pdf = await phone.request.get(`${product.server.url}/api/projects/${projectId}/sheet.pdf?revision=${revision.number}`);
+    const text = execFileSync('/usr/bin/pdftotext', ['-', '-'], { input: await pdf.body(), encoding: 'utf8' });
+    expect(text).toContain('NOT APPROVED');
+  });
+
   // A 401 from /api/auth/me before signing in is how the app learns it is signed out; the browser logs it.
   it('raised no error in either browser', () => {
     expect(phoneErrors.filter((e) => !/Failed to load resource/.test(e))).toEqual([]);
