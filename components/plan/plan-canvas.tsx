@@ -6,7 +6,7 @@
  * The parts: usePlanViewport (size, view, zoom), usePlanGestures over the pure machine in
  * plan-gesture.ts (with hit-testing in plan-hit-test.ts), and PlanDrawing.
  */
-import { useMemo, useRef } from 'react';
+import { useMemo, useRef, type ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { palette } from '@/constants/theme';
 import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
@@ -14,7 +14,7 @@ import type { PlacementDto, Scene } from '@/shared/schemas';
 import type { UnitSystem } from '@/shared/units';
 import { PlanDrawing } from './plan-drawing';
 import type { PlanDrag } from './plan-gesture';
-import { boundsOf, type PairM } from './plan-view';
+import { boundsOf, type PairM, type PlanView } from './plan-view';
 import type { PlanSelection, PlanTool } from './plan-types';
 import { usePlanGestures } from './use-plan-gestures';
 import { usePlanViewport } from './use-plan-viewport';
@@ -36,6 +36,10 @@ export interface PlanCanvasProps {
   onDrag: (drag: PlanDrag) => void;
   sketchPoints: readonly PairM[];
   sketchClosed: boolean;
+  /** The next tap gives a point for a comment (any role); see GestureContext.pinning. */
+  pinning?: boolean;
+  /** Drawn over the plan in screen pixels for the current view (the review's comment markers). */
+  overlay?: (view: PlanView) => ReactNode;
   /** Pixels at the bottom covered by the floating toolbar; "fit" keeps the plan above them. */
   reserveBottom?: number;
 }
@@ -56,7 +60,7 @@ export function PlanCanvas(props: PlanCanvasProps) {
   const viewport = usePlanViewport(frameRef, planBounds, reserveBottom);
   const { size, view } = viewport;
   const responder = usePlanGestures(frameRef, viewport.originRef, viewport.viewRef, viewport.setViewByPerson, {
-    context: { scene, placements, selection, canEdit, tool },
+    context: { scene, placements, selection, canEdit, tool, pinning: props.pinning },
     onSelect: props.onSelect,
     onTapPlan: props.onTapPlan,
     onDrag: props.onDrag,
@@ -72,7 +76,9 @@ export function PlanCanvas(props: PlanCanvasProps) {
         role="img"
         aria-label="Site plan: walls, zones, viewers and mirrors with their coverage"
       >
-        <PlanDrawing {...{ scene, placements, evaluation, units, canEdit, selection, sketchPoints, sketchClosed, view, size, tool }} />
+        <PlanDrawing {...{ scene, placements, evaluation, units, canEdit, selection, sketchPoints, sketchClosed, view, size, tool }}>
+          {props.overlay?.(view)}
+        </PlanDrawing>
       </View>
       <ZoomControls onZoomIn={() => viewport.zoomBy(1.4)} onZoomOut={() => viewport.zoomBy(1 / 1.4)} onFit={viewport.fit} />
     </View>

@@ -3,7 +3,7 @@
  * selected mirror's sightline, labels, markers, the aim handle, the shape being drawn and the
  * scale bar. Draws only; the canvas owns gestures and the view.
  */
-import { useMemo } from 'react';
+import { useMemo, type ReactNode } from 'react';
 import { StyleSheet } from 'react-native';
 import Svg, { Defs, G, Line, Path, Pattern, Rect, Text as SvgText } from 'react-native-svg';
 import { fonts, palette } from '@/constants/theme';
@@ -39,6 +39,8 @@ export interface DrawingProps {
   sketchClosed: boolean;
   view: PlanView;
   size: Size;
+  /** Drawn above the plan's own marks, below the scale bar (comment markers). */
+  children?: ReactNode;
 }
 
 export function PlanDrawing({
@@ -52,6 +54,7 @@ export function PlanDrawing({
   sketchClosed,
   view,
   size,
+  children,
 }: DrawingProps) {
   const grid = useMemo(() => gridLines(view, size, units), [view, size, units]);
   const bar = scaleBar(view, units);
@@ -127,6 +130,7 @@ export function PlanDrawing({
         <AimHandle from={toScreen(view, selectedPlacement.positionM)} azimuthRad={selectedPlacement.azimuthRad} />
       ) : null}
       <SketchShape points={sketchPoints} closed={sketchClosed} view={view} />
+      {children}
       <G pointerEvents="none">
         <Rect x={12} y={10} width={bar.lengthPx + 16} height={34} rx={6} fill={palette.card} fillOpacity={0.9} />
         <Path d={`M20 24V34H${20 + bar.lengthPx}V24`} stroke={palette.asphalt} strokeWidth={2.5} fill="none" />

@@ -38,6 +38,8 @@ export interface GestureContext {
   selection: PlanSelection;
   canEdit: boolean;
   tool: PlanTool;
+  /** A comment's point is being chosen: the next tap anywhere gives a point, for any role. */
+  pinning?: boolean;
 }
 
 export interface Step {
@@ -50,7 +52,8 @@ export function startGesture(ctx: GestureContext, points: readonly PairM[]): Ste
   if (points.length >= 2) return { gesture: pinchFrom(ctx.view, points), effects: [] };
   const pt = points[0];
   const { hit, aim } = hitTest(ctx, ctx.view, pt);
-  const selecting = ctx.tool === 'select' || !ctx.canEdit;
+  const selecting = !ctx.pinning && (ctx.tool === 'select' || !ctx.canEdit);
+  if (ctx.pinning) return { gesture: { mode: 'pan', start: pt, startView: ctx.view, moved: false, tapSelection: 'none' }, effects: [] };
   if (aim && hit?.kind === 'placement') return { gesture: { mode: 'aim', id: hit.id, moved: false }, effects: [] };
   if (selecting && (hit?.kind === 'placement' || hit?.kind === 'viewer')) {
     const at =
@@ -97,7 +100,7 @@ export function endGesture(ctx: GestureContext, g: Gesture, pt: PairM): GestureE
     // Apply the final position so a release between frames is not lost.
     if (g.moved) return [{ kind: 'view', view: panBy(g.startView, pt[0] - g.start[0], pt[1] - g.start[1]) }];
     if (g.tapSelection !== 'none') return [{ kind: 'select', selection: g.tapSelection }];
-    return ctx.canEdit ? [{ kind: 'tap', pointM: toPlan(ctx.view, pt[0], pt[1]) }] : [];
+    return ctx.canEdit || ctx.pinning ? [{ kind: 'tap', pointM: toPlan(ctx.view, pt[0], pt[1]) }] : [];
   }
   if (!g.moved || !ctx.canEdit) return [];
   if (g.mode === 'aim') {

@@ -3,6 +3,7 @@ import { StyleSheet, View } from 'react-native';
 import { AppText, Badge, TextLink } from '@/components/ui';
 import { layout, palette, spacing } from '@/constants/theme';
 import type { ProjectDto } from '@/shared/schemas';
+import { StateBadge } from '@/components/review/state-badge';
 
 export interface WorkspaceHeaderProps {
   project: ProjectDto;
@@ -27,7 +28,10 @@ export function WorkspaceHeader({ project, wide, saving, failed, unsaved }: Work
             {[project.customer, project.site].filter(Boolean).join(' · ')}
           </AppText>
         ) : null}
+        {/* On a phone the state goes under the name, so a long state never squeezes the name away. */}
+        {wide ? null : <StateBadge state={project.state} testID="project-state" />}
       </View>
+      {wide ? <StateBadge state={project.state} testID="project-state" /> : null}
       {!project.canEdit ? <Badge label="Read only" tone="glass" testID="project-read-only" /> : null}
       <AppText variant="small" tone={failed ? 'stop' : 'muted'} testID="plan-save-status" aria-live="polite">
         {saving ? 'Saving…' : failed && unsaved ? 'Not saved' : ''}

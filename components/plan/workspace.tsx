@@ -23,6 +23,7 @@ import { usePlanTool } from './use-plan-tool';
 import { PhoneWorkspace, WideWorkspace } from './workspace-layouts';
 import { WorkspaceHeader } from './workspace-header';
 import { ZoneNamePrompt } from './zone-name-prompt';
+import { useReviewPlan } from '@/components/review/use-review-plan';
 
 export function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: CatalogueItemDto[] }) {
   const wide = useIsWide();
@@ -83,23 +84,28 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
   };
 
   const tool = canEdit ? tools.tool : 'select';
+  // The review (state, steps, comments, trail) sits above the details; its markers are drawn on the plan.
+  const review = useReviewPlan({ project, placements: edits.placements, selection, wide });
 
   const details = (
-    <PlanDetails
-      project={project}
-      scene={edits.scene}
-      placements={edits.placements}
-      writes={edits.writes}
-      evaluation={evaluation}
-      catalogue={catalogue}
-      units={units}
-      canEdit={canEdit}
-      selection={selection}
-      onSelect={setSelection}
-      onViewerEyeHeight={(id: string, eyeHeightM: number) => void edits.saveScene(setViewerEyeHeight(base, id, eyeHeightM))}
-      onZoneCriterion={(id: string, criterion: CriterionKind) => void edits.saveScene(setZoneCriterion(base, id, criterion))}
-      onCriteria={(criteria: CriteriaSettings | undefined) => void edits.saveScene(setCriteria(base, criteria))}
-    />
+    <>
+      {review.panel}
+      <PlanDetails
+        project={project}
+        scene={edits.scene}
+        placements={edits.placements}
+        writes={edits.writes}
+        evaluation={evaluation}
+        catalogue={catalogue}
+        units={units}
+        canEdit={canEdit}
+        selection={selection}
+        onSelect={setSelection}
+        onViewerEyeHeight={(id: string, eyeHeightM: number) => void edits.saveScene(setViewerEyeHeight(base, id, eyeHeightM))}
+        onZoneCriterion={(id: string, criterion: CriterionKind) => void edits.saveScene(setZoneCriterion(base, id, criterion))}
+        onCriteria={(criteria: CriteriaSettings | undefined) => void edits.saveScene(setCriteria(base, criteria))}
+      />
+    </>
   );
 
   const parts = {
@@ -115,7 +121,9 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
         canEdit={canEdit}
         selection={selection}
         onSelect={select}
-        onTapPlan={tools.tap}
+        onTapPlan={review.pinning ? review.onPinTap : tools.tap}
+        pinning={review.pinning}
+        overlay={review.overlay}
         onDrag={onDrag}
         sketchPoints={tools.zoneToName ?? tools.sketch}
         sketchClosed={tools.tool === 'zone'}

@@ -1,7 +1,7 @@
 import { router } from 'expo-router';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { AppText } from '@/components/ui/text';
-import { Badge } from '@/components/ui/badge';
+import { StateBadge } from '@/components/review/state-badge';
 import { focusRing, layout, palette, radii, spacing } from '@/constants/theme';
 import { useFocusVisible } from '@/hooks/use-focus-visible';
 import { PROJECT_STATE_LABELS, type ProjectSummaryDto } from '@/shared/schemas';
@@ -20,7 +20,7 @@ export function ProjectRow({ project, showOwner }: { project: ProjectSummaryDto;
       testID={`project-row-${project.id}`}
       role="link"
       onPress={() => router.push(`/projects/${project.id}`)}
-      aria-label={`${project.name}${where ? `, ${where}` : ''}, ${mirrorsText(project.placementCount)}`}
+      aria-label={`${project.name}${where ? `, ${where}` : ''}, ${PROJECT_STATE_LABELS[project.state]}, ${mirrorsText(project.placementCount)}`}
       onFocus={onFocus}
       onBlur={onBlur}
       style={({ hovered, pressed }) => [styles.row, (hovered || pressed) && styles.rowHover, focusVisible && focusRing]}
@@ -30,7 +30,7 @@ export function ProjectRow({ project, showOwner }: { project: ProjectSummaryDto;
           <AppText variant="bodyStrong" style={styles.name} numberOfLines={2}>
             {project.name}
           </AppText>
-          <Badge label={PROJECT_STATE_LABELS[project.state]} tone="neutral" testID={`project-status-${project.id}`} />
+          <StateBadge state={project.state} testID={`project-status-${project.id}`} />
         </View>
         <AppText tone="muted" numberOfLines={2}>
           {where || 'No customer or site given'}

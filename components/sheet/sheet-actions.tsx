@@ -1,4 +1,5 @@
 import { Formik } from 'formik';
+import { useRef, useState } from 'react';
 import { Linking, StyleSheet, View } from 'react-native';
 import * as yup from 'yup';
 import { AppText, Button, Notice, TextField } from '@/components/ui';
@@ -11,6 +12,8 @@ import { useDownloadSheetMutation, useEmailSheetMutation, useIssueSheetMutation,
 import { describeError } from '@/shared/errors';
 import type { SheetEmailBody, SheetStatusDto } from '@/shared/schemas';
 import { sheetEmailRules } from '@/shared/schemas/rules';
+import { useSession } from '@/hooks/use-session';
+import { needsSendConfirmation, outsideWarning } from './outside-address';
 import { canSaveFiles, saveFile } from './save-file';
 
 export interface SheetEmailValues {
@@ -54,6 +57,10 @@ export function SheetActions({ projectId, canEdit }: SheetActionsProps) {
   const download = useDownloadSheetMutation(projectId, saveFile);
   const issue = useIssueSheetMutation(projectId);
   const email = useEmailSheetMutation(projectId);
+  const { user } = useSession();
+  // The address the person has agreed to send an unapproved sheet to; a changed address asks again.
+  const confirmedFor = useRef<string | null>(null);
+  const [confirming, setConfirming] = useState<string | null>(null);
   const preparing = download.isPending || issue.isPending;
   const failed = download.error ?? issue.error;
 
@@ -91,6 +98,13 @@ export function SheetActions({ projectId, canEdit }: SheetActionsProps) {
         validationSchema={sheetEmailSchema}
         onSubmit={async (values, helpers) => {
           helpers.setStatus(undefined);
+          const to = values.to.trim();
+          if (needsSendConfirmation(to, user?.email, status.data?.current.approved) && confirmedFor.current !== to) {
+            setConfirming(to);
+            return;
+          }
+          setConfirming(null);
+          confirmedFor.current = null;
           try {
             const sent = await email.mutateAsync(sheetEmailBodyOf(values));
             helpers.resetForm();
@@ -139,6 +153,25 @@ export function SheetActions({ projectId, canEdit }: SheetActionsProps) {
                 multiline
                 numberOfLines={3}
               />
+              {confirming && confirming === form.values.to.trim() ? (
+                <Notice tone="stop" testID="sheet-email-confirm">
+                  <AppText variant="bodyStrong" tone="stop">
+                    {outsideWarning(confirming)}
+                  </AppText>
+                  <View style={styles.confirmRow}>
+                    <Button
+                      label="Send it anyway"
+                      variant="danger"
+                      testID="sheet-email-confirm-send"
+                      onPress={() => {
+                        confirmedFor.current = confirming;
+                        form.handleSubmit();
+                      }}
+                    />
+                    <Button label="Don't send" variant="quiet" testID="sheet-email-confirm-cancel" onPress={() => setConfirming(null)} />
+                  </View>
+                </Notice>
+              ) : null}
               {formStatus?.formError ? (
                 <Notice tone="stop" testID="sheet-email-error">
                   {formStatus.formError}
@@ -165,4 +198,5 @@ export function SheetActions({ projectId, canEdit }: SheetActionsProps) {
 
 const styles = StyleSheet.create({
   column: { gap: spacing.sm },
+  confirmRow: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.sm, marginTop: spacing.xs },
 });

@@ -166,3 +166,29 @@ describe('the plan gesture machine', () => {
     expect(fx.kind === 'view' ? (300 - fx.view.offsetX) / fx.view.scale : NaN).toBeCloseTo(10, 9);
   });
 });
+
+describe('choosing a point for a review comment', () => {
+  it('gives a reader (who cannot edit) the tapped point in plan metres, even on a mirror, and moves nothing', () => {
+    const c = ctx({ canEdit: false, pinning: true });
+    const onMirror = toScreen(view, [5, 2]);
+    const start = startGesture(c, [onMirror]);
+    expect(start.effects).toEqual([]);
+    expect(endGesture(c, start.gesture!, onMirror)).toEqual([{ kind: 'tap', pointM: [5, 2] }]);
+  });
+
+  it('without the pinning mode a reader’s tap on empty floor gives no point', () => {
+    const c = ctx({ canEdit: false });
+    const empty = toScreen(view, [20, 20]);
+    const start = startGesture(c, [empty]);
+    expect(endGesture(c, start.gesture!, empty)).toEqual([{ kind: 'select', selection: null }]);
+  });
+
+  it('a drag while pinning still pans the plan instead of giving a point', () => {
+    const c = ctx({ canEdit: false, pinning: true });
+    const a = toScreen(view, [20, 20]);
+    const b: PairM = [a[0] + TAP_SLOP_PX * 4, a[1]];
+    const start = startGesture(c, [a]);
+    const moved = moveGesture(c, start.gesture!, [b]);
+    expect(endGesture(c, moved.gesture!, b).map((e) => e.kind)).toEqual(['view']);
+  });
+});

@@ -6,15 +6,34 @@ import { api } from '@/hooks/api';
 import { saveFile } from '@/components/sheet/save-file';
 import { sheetKeys } from '@/hooks/use-sheet';
 import { ApiError } from '@/shared/api-client';
-import type { SheetEmailResponse, SheetRevisionDto, SheetStatusDto } from '@/shared/schemas';
+import { sessionKeys } from '@/hooks/use-session';
+import type { SheetEmailResponse, SheetRevisionDto, SheetStatusDto, UserDto } from '@/shared/schemas';
 import { makeTestQueryClient, renderWithQuery } from './render';
 
 jest.mock('@/hooks/api', () => ({
-  api: { sheets: { status: jest.fn(), issue: jest.fn(), pdfPath: jest.fn(), download: jest.fn(), email: jest.fn() } },
+  api: {
+    auth: { me: jest.fn() },
+    sheets: { status: jest.fn(), issue: jest.fn(), pdfPath: jest.fn(), download: jest.fn(), email: jest.fn() },
+  },
 }));
 jest.mock('@/components/sheet/save-file', () => ({ canSaveFiles: true, saveFile: jest.fn() }));
 
 const PROJECT_ID = 7;
+
+/** An invented installer at the invented domain fitters-demo.example. */
+const INSTALLER: UserDto = {
+  id: 3,
+  email: 'ines@fitters-demo.example',
+  name: 'Ines Okafor',
+  role: 'installer',
+  disabled: false,
+  units: 'metric',
+  organizationId: 1,
+  organizationName: 'Fitters (demo)',
+  hasPassword: true,
+  createdAt: '2026-01-01T00:00:00.000Z',
+  updatedAt: '2026-01-01T00:00:00.000Z',
+};
 
 function revision(number: number, overrides: Partial<SheetRevisionDto> = {}): SheetRevisionDto {
   return {
@@ -26,21 +45,23 @@ function revision(number: number, overrides: Partial<SheetRevisionDto> = {}): Sh
   };
 }
 
-function status(revisions: SheetRevisionDto[], changedSinceLast: boolean): SheetStatusDto {
+function status(revisions: SheetRevisionDto[], changedSinceLast: boolean, approved = false): SheetStatusDto {
   const last = revisions[0];
   const next = last ? (changedSinceLast ? last.number + 1 : last.number) : 1;
   return {
     revisions,
-    current: { number: next, contentHash: 'f'.repeat(64), changedSinceLast, approved: false },
+    current: { number: next, contentHash: 'f'.repeat(64), changedSinceLast, approved },
     filename: `sightfan-demo-rev${next}.pdf`,
   };
 }
 
 /** A client already holding the sheet's status, so the component renders without asking the (mocked) API. */
-function renderWithStatus(s: SheetStatusDto) {
+function renderWithStatus(s: SheetStatusDto, signedIn: UserDto = INSTALLER) {
   jest.mocked(api.sheets.status).mockResolvedValue(s);
+  jest.mocked(api.auth.me).mockResolvedValue({ user: signedIn });
   const client = makeTestQueryClient();
   client.setQueryData(sheetKeys.status(PROJECT_ID), s);
+  client.setQueryData(sessionKeys.me(), signedIn);
   return renderWithQuery(<SheetActions projectId={PROJECT_ID} canEdit />, client);
 }
 
@@ -85,7 +106,7 @@ describe('SheetActions', () => {
   it("shows the server's objection to the address beside the address field", async () => {
     const objection = 'The mail server refused this address; check the spelling.';
     jest.mocked(api.sheets.email).mockRejectedValue(new ApiError(400, 'Check the highlighted field.', { to: objection }));
-    renderWithStatus(status([revision(1)], false));
+    renderWithStatus(status([revision(1)], false, true));
     const user = userEvent.setup();
 
     await user.type(screen.getByTestId('sheet-email-to'), 'buyer@purchasing-demo.example');
@@ -107,7 +128,7 @@ describe('SheetActions', () => {
       outsideOrganisation: true,
     };
     jest.mocked(api.sheets.email).mockResolvedValue(sent);
-    renderWithStatus(status([revision(4)], true));
+    renderWithStatus(status([revision(4)], true, true));
     const user = userEvent.setup();
 
     await user.type(screen.getByTestId('sheet-email-to'), to);
@@ -148,5 +169,72 @@ describe('SheetActions', () => {
 
     expect(await screen.findByTestId('sheet-download-error')).toHaveTextContent('took longer than 20 s');
     expect(api.sheets.download).not.toHaveBeenCalled();
+  });
+
+  describe('e-mailing a sheet that is not approved', () => {
+    const sentTo = (to: string): SheetEmailResponse => ({
+      revision: revision(2),
+      to,
+      filename: 'sightfan-demo-rev2.pdf',
+      delivery: 'sent',
+      approved: false,
+      outsideOrganisation: true,
+    });
+
+    it('warns and sends nothing until the person confirms an address outside the organisation, then sends it', async () => {
+      const to = 'buyer@purchasing-demo.example';
+      jest.mocked(api.sheets.email).mockResolvedValue(sentTo(to));
+      renderWithStatus(status([revision(2)], false, false));
+      const user = userEvent.setup();
+
+      await user.type(screen.getByTestId('sheet-email-to'), to);
+      await user.click(screen.getByTestId('sheet-email-submit'));
+
+      expect(await screen.findByTestId('sheet-email-confirm')).toHaveTextContent(`not approved, and ${to} is outside your organisation`);
+      expect(api.sheets.email).not.toHaveBeenCalled();
+
+      await user.click(screen.getByTestId('sheet-email-confirm-send'));
+      await waitFor(() => expect(api.sheets.email).toHaveBeenCalledWith(PROJECT_ID, { to, message: undefined }));
+      expect(await screen.findByTestId('sheet-email-sent')).toHaveTextContent(to);
+    });
+
+    it("sends nothing when the person answers Don't send", async () => {
+      renderWithStatus(status([revision(2)], false, false));
+      const user = userEvent.setup();
+
+      await user.type(screen.getByTestId('sheet-email-to'), 'buyer@purchasing-demo.example');
+      await user.click(screen.getByTestId('sheet-email-submit'));
+      await user.click(await screen.findByTestId('sheet-email-confirm-cancel'));
+
+      expect(screen.queryByTestId('sheet-email-confirm')).not.toBeInTheDocument();
+      expect(api.sheets.email).not.toHaveBeenCalled();
+    });
+
+    it('sends to an address of the signed-in person’s own domain without asking', async () => {
+      const to = 'stores@fitters-demo.example';
+      jest.mocked(api.sheets.email).mockResolvedValue(sentTo(to));
+      renderWithStatus(status([revision(2)], false, false));
+      const user = userEvent.setup();
+
+      await user.type(screen.getByTestId('sheet-email-to'), to);
+      await user.click(screen.getByTestId('sheet-email-submit'));
+
+      await waitFor(() => expect(api.sheets.email).toHaveBeenCalledTimes(1));
+      expect(screen.queryByTestId('sheet-email-confirm')).not.toBeInTheDocument();
+    });
+
+    it("shows the server's sentence and the wait when outside e-mails are over the hourly limit (429)", async () => {
+      const limit = 'You have e-mailed 20 sheets outside your organisation in the last hour, which is the limit.';
+      jest.mocked(api.sheets.email).mockRejectedValue(new ApiError(429, limit, {}, 1800));
+      renderWithStatus(status([revision(2)], false, true));
+      const user = userEvent.setup();
+
+      await user.type(screen.getByTestId('sheet-email-to'), 'buyer@purchasing-demo.example');
+      await user.click(screen.getByTestId('sheet-email-submit'));
+
+      const error = await screen.findByTestId('sheet-email-error');
+      expect(error).toHaveTextContent(limit);
+      expect(error).toHaveTextContent('Try again in 30 minutes.');
+    });
   });
 });

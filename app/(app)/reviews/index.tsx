@@ -1,10 +1,10 @@
-import { ReviewsEmpty } from '@/components/reviews/reviews-empty';
+import { ReviewQueuePanel } from '@/components/review/review-queue-panel';
 import { Screen } from '@/components/ui';
 
 export default function ReviewsScreen() {
   return (
-    <Screen title="Reviews" lead="Jobs installers have sent you to check and approve.">
-      <ReviewsEmpty />
+    <Screen title="Reviews" lead="Jobs installers have sent for checking, longest waiting first." width="full">
+      <ReviewQueuePanel />
     </Screen>
   );
 }

@@ -4,7 +4,7 @@
  */
 import { raw } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/sqlite';
-import type { MirrorModel } from '../catalog/mirror-model.entity';
+import type { MirrorModel } from '../catalogue/mirror-model.entity';
 import { Placement } from '../projects/placement.entity';
 import { Project } from '../projects/project.entity';
 import { currentHash } from '../sheets/sheet-service';
