@@ -10,6 +10,7 @@ import { Migration20261202133000 } from './Migration20261202133000';
 import { Migration20261202134000 } from './Migration20261202134000';
 import { Migration20261202135000 } from './Migration20261202135000';
 import { Migration20261202140000 } from './Migration20261202140000';
+import { Migration20261202161000 } from './Migration20261202161000';
 
 export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261202022227', class: Migration20261202022227 },
@@ -19,4 +20,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261202134000', class: Migration20261202134000 },
   { name: 'Migration20261202135000', class: Migration20261202135000 },
   { name: 'Migration20261202140000', class: Migration20261202140000 },
+  { name: 'Migration20261202161000', class: Migration20261202161000 },
 ];

@@ -4,3 +4,4 @@ export * from './targets';
 export * from './mounting';
 export * from './criteria';
 export * from './figures';
+export * from './vehicle';

@@ -7,3 +7,4 @@ export * from './limits';
 export * from './criteria';
 export * from './rules';
 export * from './review';
+export * from './vehicle';

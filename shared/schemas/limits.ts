@@ -24,6 +24,17 @@ export const SCENE_LIMITS = {
   mirrors: 30,
 } as const;
 
+/**
+ * How much one vehicle may hold (its body, the installer's own ground fields and test cylinders);
+ * with `SCENE_LIMITS.mirrors` these bound a vehicle job's scoring (`npm run bench`).
+ */
+export const VEHICLE_LIMITS = {
+  bodyBoxes: 12,
+  groundFields: 50,
+  cornersPerField: 200,
+  targets: 50,
+} as const;
+
 /** "1,000" — limits are printed in messages the way people write them. */
 export const limitText = (n: number) => n.toLocaleString('en');
 

@@ -6,6 +6,7 @@ import { LIMIT_MESSAGES, PLACEMENT_LIMITS, SCENE_LIMITS } from './limits';
 import { criteriaSettings, criterionKind } from './criteria';
 import { labelRule, placementRules, projectRules } from './rules';
 import { zodText } from './zod-rules';
+import { mirrorClass, vehicle, vehicleRuleSet } from './vehicle';
 
 const MAX_SITE_M = 2000;
 const coord = z
@@ -80,8 +81,19 @@ export const scene = z
     viewers: z.array(viewer).max(SCENE_LIMITS.viewers, LIMIT_MESSAGES.viewers).default([]),
     /** The project's detect and recognise angles; absent means the defaults (shared/project-optics/criteria.ts). */
     criteria: criteriaSettings.optional(),
+    /** A vehicle job's vehicle (its body, eye, own ground fields and test cylinders); only in projects of kind 'vehicle'. */
+    vehicle: vehicle.optional(),
+    /** The rules a vehicle job is scored by; absent means the vehicle kind's default (`defaultRuleSet`). */
+    ruleSet: vehicleRuleSet.optional(),
   })
   .superRefine((s, ctx) => {
+    if (s.vehicle && (s.walls.length || s.zones.length || s.viewers.length)) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['vehicle'],
+        message: 'A vehicle job has no walls, zones or viewers: describe the body with boxes and add ground fields to the vehicle instead.',
+      });
+    }
     const corners = s.zones.reduce((sum, z) => sum + z.polygonM.length, 0);
     if (corners > SCENE_LIMITS.zoneCorners) ctx.addIssue({ code: 'custom', path: ['zones'], message: LIMIT_MESSAGES.zoneCorners });
     const seen = new Set<string>();
@@ -102,6 +114,27 @@ export type SceneZone = z.infer<typeof zone>;
 export type SceneViewer = z.infer<typeof viewer>;
 
 export const projectKinds = ['site', 'vehicle'] as const;
+export type ProjectKind = (typeof projectKinds)[number];
+
+/**
+ * A scene must suit its project's kind: a vehicle job carries its vehicle, a site job none. The
+ * create schema and the PATCH route (which knows the stored kind) both ask this.
+ */
+export function sceneKindProblem(
+  kind: ProjectKind,
+  s: { vehicle?: unknown; ruleSet?: unknown },
+): { path: ['scene', 'vehicle' | 'ruleSet']; message: string } | null {
+  if (kind === 'vehicle' && !s.vehicle)
+    return {
+      path: ['scene', 'vehicle'],
+      message: 'A vehicle job needs its vehicle: choose a kind of vehicle and adjust its measurements.',
+    };
+  if (kind === 'site' && s.vehicle)
+    return { path: ['scene', 'vehicle'], message: 'A site job has no vehicle; start a vehicle job for a vehicle.' };
+  if (kind === 'site' && s.ruleSet)
+    return { path: ['scene', 'ruleSet'], message: 'Only a vehicle job is scored by vehicle rules; a site job has no rule set.' };
+  return null;
+}
 export const projectStatuses = ['draft'] as const;
 
 const projectFields = {
@@ -114,7 +147,13 @@ const projectFields = {
   scene: scene.default({ walls: [], zones: [], viewers: [] }),
 };
 
-export const createProjectBody = z.object(projectFields).strict();
+export const createProjectBody = z
+  .object(projectFields)
+  .strict()
+  .superRefine((b, ctx) => {
+    const problem = sceneKindProblem(b.kind, b.scene);
+    if (problem) ctx.addIssue({ code: 'custom', ...problem });
+  });
 export type CreateProjectBody = z.input<typeof createProjectBody>;
 
 export const patchProjectBody = z
@@ -126,6 +165,8 @@ export const patchProjectBody = z
     units: unitSystem.nullable().optional(),
     notes: zodText(projectRules.notes).optional(),
     scene: scene.optional(),
+    /** Present only to refuse it with a sentence: a site stays a site and a vehicle a vehicle. */
+    kind: z.never({ message: 'A project’s kind cannot change; start a new project for a site or a vehicle.' }).optional(),
   })
   .strict();
 export type PatchProjectBody = z.input<typeof patchProjectBody>;
@@ -151,6 +192,16 @@ const placementFields = {
   tiltDownRad: angle('tilt', PLACEMENT_LIMITS.tiltDownRad.min, PLACEMENT_LIMITS.tiltDownRad.max),
   viewerId: sceneId.nullable(),
   notes: zodText(placementRules.notes),
+  /** Vehicle jobs only: the class it is fitted as (for the mounting checks), or none. */
+  mirrorClass: mirrorClass.nullable(),
+  /**
+   * Vehicle jobs only: the ids of the fields this mirror counts toward (library fields such as
+   * `un-v-left`, or the installer's own); null counts it toward every field.
+   */
+  servesFieldIds: z
+    .array(sceneId, { message: 'List the fields this mirror serves.' })
+    .max(60, 'A mirror can serve at most 60 fields.')
+    .nullable(),
 };
 
 const oneMirror = (b: { catalogueItemId?: number | null; customMirror?: unknown }) =>
@@ -164,6 +215,8 @@ export const createPlacementBody = z
     customMirror: placementFields.customMirror.default(null),
     viewerId: placementFields.viewerId.default(null),
     notes: placementFields.notes.default(''),
+    mirrorClass: placementFields.mirrorClass.default(null),
+    servesFieldIds: placementFields.servesFieldIds.default(null),
   })
   .strict()
   .refine(oneMirror, oneMirrorMessage);
@@ -189,6 +242,9 @@ export const placementDto = z.object({
   tiltDownRad: z.number(),
   viewerId: z.string().nullable(),
   notes: z.string(),
+  /** Vehicle mirrors' class and served fields; the server always sends them (null on a site), absent reads as null. */
+  mirrorClass: mirrorClass.nullable().optional(),
+  servesFieldIds: z.array(z.string()).nullable().optional(),
   version: z.number(),
   updatedAt: z.string(),
 });

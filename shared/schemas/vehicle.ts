@@ -1,6 +1,6 @@
 /**
- * The vehicle model of a vehicle job (zod; SI: metres, radians). Not yet part of the project
- * scene: the lead wires `vehicle` into the scene of projects of kind 'vehicle'.
+ * The vehicle model of a vehicle job (zod; SI: metres, radians): `scene.vehicle` of a project of
+ * kind 'vehicle' (shared/schemas/projects.ts), with `scene.ruleSet` naming the rules it is scored by.
  *
  * Frames. An installer measures with a tape from the front of the vehicle and from its
  * centreline, so distances "behind the front" and "from the centre" are typed as positive
@@ -12,6 +12,7 @@
 import { z } from 'zod';
 import { isSimpleRing } from '../geometry/polygon';
 import { eyeMidpointM } from '../vehicle/eye';
+import { VEHICLE_LIMITS } from './limits';
 
 /** One arc minute in radians (kept here so the schema needs nothing from the engine). */
 const ARCMIN = Math.PI / 10800;
@@ -23,6 +24,16 @@ export const driverSides = ['left', 'right'] as const;
 export type DriverSide = (typeof driverSides)[number];
 /** Which rule's offset turns the seat point into the eye point (see shared/vehicle/geometry.ts). */
 export const eyeOffsetRules = ['un-r46', 'iso-5006'] as const;
+/** The rule sets a vehicle job can be scored by (shared/vehicle/fields.ts `RULE_SETS`). */
+export const vehicleRuleSets = ['eu-retrofit', 'un-r46', 'fmvss-111', 'iso-5006'] as const;
+export type VehicleRuleSet = (typeof vehicleRuleSets)[number];
+export const vehicleRuleSet = z.enum(vehicleRuleSets, {
+  message: 'Choose the rules to score against: EU retrofit, UN R46, US FMVSS 111 or ISO 5006.',
+});
+/** The mirror classes of UN R46 an installer can fit a vehicle mirror as (for the mounting checks). */
+export const mirrorClasses = ['II', 'III', 'IV', 'V', 'VI'] as const;
+export type MirrorClass = (typeof mirrorClasses)[number];
+export const mirrorClass = z.enum(mirrorClasses, { message: 'Choose the mirror’s class: II, III, IV, V or VI.' });
 
 const metres = (what: string, min: number, max: number) =>
   z
@@ -111,7 +122,7 @@ export const userGroundField = z.object({
   polygonM: z
     .array(planPoint)
     .min(3, 'A ground field needs at least three corners.')
-    .max(200, 'A ground field may have at most 200 corners.')
+    .max(VEHICLE_LIMITS.cornersPerField, `A ground field may have at most ${VEHICLE_LIMITS.cornersPerField} corners.`)
     .refine((ring) => isSimpleRing(ring), 'The ground field’s outline crosses or touches itself; redraw it as one simple outline.'),
   requiredShare: z
     .number({ message: 'Enter the share that must be seen (0 to 1).' })
@@ -151,9 +162,15 @@ export const vehicle = z
     cabWidthM: positiveMetres('cab width', 3.5),
     cabFrontBehindM: metres('cab front’s distance behind the front bumper', 0, 10),
     eye: vehicleEye,
-    bodyBoxes: z.array(bodyBox).max(12, 'Describe the body with at most 12 boxes.').default([]),
-    groundFields: z.array(userGroundField).max(50, 'At most 50 ground fields per vehicle.').default([]),
-    targets: z.array(pointTarget).max(50, 'At most 50 test cylinders per vehicle.').default([]),
+    bodyBoxes: z
+      .array(bodyBox)
+      .max(VEHICLE_LIMITS.bodyBoxes, `Describe the body with at most ${VEHICLE_LIMITS.bodyBoxes} boxes.`)
+      .default([]),
+    groundFields: z
+      .array(userGroundField)
+      .max(VEHICLE_LIMITS.groundFields, `At most ${VEHICLE_LIMITS.groundFields} ground fields per vehicle.`)
+      .default([]),
+    targets: z.array(pointTarget).max(VEHICLE_LIMITS.targets, `At most ${VEHICLE_LIMITS.targets} test cylinders per vehicle.`).default([]),
   })
   .superRefine((v, ctx) => {
     const say = (path: (string | number)[], message: string) => ctx.addIssue({ code: 'custom', path, message });

@@ -9,7 +9,7 @@
  * u ≥ 0 outboard from a side line (the vehicle's outer side or the cab's side).
  */
 import type { Pair, Polygon, Ring } from '../geometry/polygon';
-import type { Vehicle, VehicleKind } from '../schemas/vehicle';
+import type { Vehicle, VehicleKind, VehicleRuleSet } from '../schemas/vehicle';
 import { otherSide, sideSign, vehicleGeometry, type Side, type VehicleGeometry } from './geometry';
 
 export type StatusMark = 'P' | 'M' | 'M?' | 'D';
@@ -326,7 +326,7 @@ export function libraryField(g: VehicleGeometry, choice: FieldChoice, opts: Fiel
   };
 }
 
-export type RuleSetId = 'eu-retrofit' | 'un-r46' | 'fmvss-111' | 'iso-5006';
+export type RuleSetId = VehicleRuleSet;
 
 export const RULE_SETS: Record<RuleSetId, { title: string; description: string }> = {
   'eu-retrofit': {

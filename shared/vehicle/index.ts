@@ -4,7 +4,7 @@
  */
 export { EYE_OFFSETS, OCULAR_SEPARATION_M, eyeMidpointM } from './eye';
 export type { Side, VehicleGeometry } from './geometry';
-export { bodyWalls, otherSide, sideSign, vehicleGeometry } from './geometry';
+export { bodyWalls, boxAt, otherSide, sideSign, vehicleGeometry } from './geometry';
 export type { FieldChoice, FieldCode, FieldOptions, FieldSpec, RuleSetId, StatusMark, VehicleField } from './fields';
 export {
   FIELD_SPECS,

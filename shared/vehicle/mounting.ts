@@ -5,10 +5,10 @@
  */
 import { dot, norm, sub, type Vec3 } from '../geometry/vec3';
 import type { Mirror, Pose } from '../optics';
-import type { Vehicle } from '../schemas/vehicle';
+import type { MirrorClass, Vehicle } from '../schemas/vehicle';
 import type { VehicleGeometry } from './geometry';
 
-export type MirrorClass = 'II' | 'III' | 'IV' | 'V' | 'VI';
+export type { MirrorClass };
 
 /** Least radius of curvature per class, metres: III 1,200 mm [P]; II 1,200 mm, IV and V 300 mm [M]; VI 200 mm [M?] (200 or 300 mm). */
 export const MIN_RADIUS_M: Record<MirrorClass, number> = { II: 1.2, III: 1.2, IV: 0.3, V: 0.3, VI: 0.2 };

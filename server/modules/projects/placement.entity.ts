@@ -1,10 +1,13 @@
 import { defineEntity, type Opt } from '@mikro-orm/core';
-import type { MirrorSpec } from '../../../shared/schemas';
+import { mirrorClasses, type MirrorClass, type MirrorSpec } from '../../../shared/schemas';
 import { BaseRecord, baseProperties } from '../base';
 import { MirrorModel } from '../catalog/mirror-model.entity';
 import { Project } from './project.entity';
 
-/** A mirror placed in a project: a catalogue item or a custom mirror, where and how it is mounted. */
+/**
+ * A mirror placed in a project: a catalogue item or a custom mirror, where and how it is mounted.
+ * On a vehicle the position is in the vehicle's plan frame (x forward from the front bumper, y left).
+ */
 export class Placement extends BaseRecord {
   project!: Project;
   label!: string;
@@ -17,6 +20,9 @@ export class Placement extends BaseRecord {
   tiltDownRad!: number;
   viewerId: Opt<string> | null = null;
   notes: Opt<string> = '';
+  /** Vehicle jobs: the class it is fitted as, and the fields it counts toward (null: every field). */
+  mirrorClass: Opt<MirrorClass> | null = null;
+  servesFieldIds: Opt<string[]> | null = null;
   version: Opt<number> = 1;
 
   static readonly schema = defineEntity({
@@ -35,6 +41,8 @@ export class Placement extends BaseRecord {
       tiltDownRad: p.float(),
       viewerId: p.string().length(40).nullable(),
       notes: p.text().default(''),
+      mirrorClass: p.enum([...mirrorClasses]).nullable(),
+      servesFieldIds: p.json<string[]>().nullable(),
       version: p.integer().version().default(1),
     }),
   });

@@ -15,6 +15,8 @@ export function toPlacementDto(p: Placement): PlacementDto {
     tiltDownRad: p.tiltDownRad,
     viewerId: p.viewerId,
     notes: p.notes,
+    mirrorClass: p.mirrorClass,
+    servesFieldIds: p.servesFieldIds,
     version: p.version,
     updatedAt: p.updatedAt.toISOString(),
   };

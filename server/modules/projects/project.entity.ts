@@ -4,7 +4,7 @@ import { BaseRecord, baseProperties } from '../base';
 import { Organization } from '../users/organization.entity';
 import { User } from '../users/user.entity';
 
-/** A job: a site (or, later, a vehicle) with its plan. `version` guards against silent overwrites. */
+/** A job: a site or a vehicle (`scene.vehicle`) with its plan. `version` guards against silent overwrites. */
 export class Project extends BaseRecord {
   owner!: User;
   organization!: Organization;

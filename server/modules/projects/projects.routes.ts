@@ -8,8 +8,10 @@ import {
   patchPlacementBody,
   searchRule,
   patchProjectBody,
+  sceneKindProblem,
   type MirrorSpec,
 } from '../../../shared/schemas';
+import { checkVehiclePlacement } from './vehicle-placement';
 import { mirrorOfSpec, mountProblem } from '../../../shared/project-optics';
 import { resolveUnits } from '../../../shared/units';
 import { mirrorOfModel } from '../catalog/catalog.dto';
@@ -160,8 +162,10 @@ export function projectsRoutes(orm: Orm): Router {
     assertCanEdit(req.user!, project);
     const body = parseOr400(patchProjectBody, req.body, 'The change');
     await em.lock(project, LockMode.OPTIMISTIC, body.version);
-    const { version: _v, ...changes } = body;
+    const { version: _v, kind: _k, ...changes } = body;
     if (changes.scene) {
+      const problem = sceneKindProblem(project.kind, changes.scene);
+      if (problem) throw new HttpError(400, `The change has a problem: ${problem.message}`, { [problem.path.join('.')]: problem.message });
       // A viewer still served by a mirror cannot vanish from the plan.
       const ids = new Set(changes.scene.viewers.map((v) => v.id));
       const orphan = (await placementsOf(em, project)).find((p) => p.viewerId && !ids.has(p.viewerId));
@@ -194,6 +198,7 @@ export function projectsRoutes(orm: Orm): Router {
     if ((await em.count(Placement, { project: project.id })) >= SCENE_LIMITS.mirrors) throw new HttpError(409, LIMIT_MESSAGES.mirrors);
     await checkReferences(em, project, body);
     await checkMount(em, req.user!, project, body);
+    checkVehiclePlacement(project, body);
     const { positionM, catalogueItemId, ...rest } = body;
     const placement = em.create(Placement, {
       ...rest,
@@ -231,8 +236,11 @@ export function projectsRoutes(orm: Orm): Router {
       azimuthRad: body.azimuthRad ?? placement.azimuthRad,
       tiltDownRad: body.tiltDownRad ?? placement.tiltDownRad,
       viewerId: body.viewerId !== undefined ? body.viewerId : placement.viewerId,
+      mirrorClass: body.mirrorClass !== undefined ? body.mirrorClass : placement.mirrorClass,
+      servesFieldIds: body.servesFieldIds !== undefined ? body.servesFieldIds : placement.servesFieldIds,
     };
     await checkMount(em, req.user!, project, merged);
+    checkVehiclePlacement(project, merged);
     const { version: _v, positionM, catalogueItemId, ...rest } = body;
     em.assign(placement, rest);
     if (positionM) {
