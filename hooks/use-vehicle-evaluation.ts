@@ -5,14 +5,19 @@
  * as its viewer and the body as walls). Nothing here computes optics.
  */
 import { useMemo } from 'react';
-import { evaluatePlacement, mirrorOfPlacement, criteriaOf, type EvaluatedPlacement } from '@/shared/project-optics';
+import {
+  criteriaOf,
+  evaluatePlacement,
+  mirrorOfPlacement,
+  ruleSetOf,
+  vehicleJobFields,
+  type EvaluatedPlacement,
+} from '@/shared/project-optics';
 import { poseFromAim, OpticsInputError } from '@/shared/optics';
 import type { CatalogueItemDto, PlacementDto, Scene } from '@/shared/schemas';
 import type { Vehicle } from '@/shared/schemas/vehicle';
 import {
-  defaultRuleSet,
   scoreVehicle,
-  vehicleFields,
   vehicleGeometry,
   type RuleSetId,
   type VehicleField,
@@ -49,18 +54,24 @@ export interface VehicleEvaluation {
 
 const DRIVER_ID = 'driver';
 
+/** Null for a scene without a vehicle (a site). */
 export function evaluateVehicleJob(
-  vehicle: Vehicle,
   scene: Scene,
   placements: readonly VehiclePlacement[],
   catalogue: readonly CatalogueItemDto[],
-): VehicleEvaluation {
-  const ruleSet = scene.ruleSet ?? defaultRuleSet(vehicle.kind);
+): VehicleEvaluation | null {
+  const vehicle = scene.vehicle;
+  const ruleSet = ruleSetOf(scene);
+  if (!vehicle || !ruleSet) return null;
   const geometry = vehicleGeometry(vehicle);
-  const fields = vehicleFields(vehicle, ruleSet);
+  const fields = vehicleJobFields(scene);
   const criteria = criteriaOf(scene);
   const eye = geometry.eyeMidM;
-  const driverScene: Scene = { walls: [], zones: [], viewers: [{ id: DRIVER_ID, name: 'Driver', positionM: [eye[0], eye[1]], eyeHeightM: eye[2] }] };
+  const driverScene: Scene = {
+    walls: [],
+    zones: [],
+    viewers: [{ id: DRIVER_ID, name: 'Driver', positionM: [eye[0], eye[1]], eyeHeightM: eye[2] }],
+  };
   const mirrors = new Map<number, EvaluatedPlacement>();
   const fitted: VehicleMirror[] = [];
   for (const p of placements) {
@@ -74,12 +85,16 @@ export function evaluateVehicleJob(
     mirrors.set(p.id, ev);
     const mirror = mirrorOfPlacement(p, catalogue);
     if (!mirror) continue;
-    const pose = poseFromAim({ vertexM: [p.positionM[0], p.positionM[1], p.heightM], azimuthRad: p.azimuthRad, tiltDownRad: p.tiltDownRad });
-    fitted.push({ id: String(p.id), label: p.label, mirror, pose, mirrorClass: p.mirrorClass });
+    const pose = poseFromAim({
+      vertexM: [p.positionM[0], p.positionM[1], p.heightM],
+      azimuthRad: p.azimuthRad,
+      tiltDownRad: p.tiltDownRad,
+    });
+    fitted.push({ id: String(p.id), label: p.label, mirror, pose, mirrorClass: p.mirrorClass ?? null });
   }
   const mirrorsForField: Record<string, string[]> = {};
   for (const f of fields) {
-    const serving = placements.filter((p) => p.servesFieldIds === null || p.servesFieldIds.includes(f.id)).map((p) => String(p.id));
+    const serving = placements.filter((p) => p.servesFieldIds == null || p.servesFieldIds.includes(f.id)).map((p) => String(p.id));
     if (serving.length !== placements.length) mirrorsForField[f.id] = serving.filter((id) => fitted.some((m) => m.id === id));
   }
   try {
@@ -97,8 +112,5 @@ export function useVehicleEvaluation(
   placements: readonly VehiclePlacement[],
   catalogue: readonly CatalogueItemDto[],
 ): VehicleEvaluation | null {
-  return useMemo(
-    () => (scene.vehicle ? evaluateVehicleJob(scene.vehicle, scene, placements, catalogue) : null),
-    [scene, placements, catalogue],
-  );
+  return useMemo(() => evaluateVehicleJob(scene, placements, catalogue), [scene, placements, catalogue]);
 }

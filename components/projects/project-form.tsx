@@ -14,7 +14,13 @@ import { spacing } from '@/constants/theme';
 import type { CreateProjectBody } from '@/shared/schemas';
 import type { UnitSystem } from '@/shared/units';
 import { VehicleSetupFields } from '@/components/vehicle/vehicle-setup-fields';
-import { presetValues, VEHICLE_FIELDS, vehicleOfValues, vehicleSchemaFields, type VehicleSetupValues } from '@/components/vehicle/vehicle-setup';
+import {
+  presetValues,
+  VEHICLE_FIELDS,
+  vehicleOfValues,
+  vehicleSchemaFields,
+  type VehicleSetupValues,
+} from '@/components/vehicle/vehicle-setup';
 
 export type UnitsChoice = 'mine' | UnitSystem;
 
@@ -28,6 +34,8 @@ export interface ProjectFormValues extends VehicleSetupValues {
   units: UnitsChoice;
   notes: string;
 }
+
+const KIND_MESSAGE = 'Choose a site or a vehicle.';
 
 /** The server's rules (shared/schemas/rules.ts), so mistakes are caught before sending, in the same words. */
 export const projectSchema = yup.object({
@@ -69,7 +77,6 @@ export interface ProjectFormProps {
 }
 
 const FIELDS = ['kind', 'name', 'customer', 'site', 'units', 'notes', ...VEHICLE_FIELDS] as const;
-const KIND_MESSAGE = 'Choose a site or a vehicle.';
 
 export function ProjectForm({ onSubmit, myUnits }: ProjectFormProps) {
   const customerRef = useRef<TextInput>(null);

@@ -7,8 +7,8 @@
 import { useCallback, useMemo, useRef } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { palette } from '@/constants/theme';
-import type { VehicleEvaluation, VehiclePlacement } from '@/hooks/use-vehicle-evaluation';
-import type { Scene } from '@/shared/schemas';
+import type { VehicleEvaluation } from '@/hooks/use-vehicle-evaluation';
+import type { PlacementDto, Scene } from '@/shared/schemas';
 import type { UnitSystem } from '@/shared/units';
 import type { PlanDrag } from '@/components/plan/plan-gesture';
 import type { PairM } from '@/components/plan/plan-view';
@@ -20,12 +20,11 @@ import { VehicleDrawing } from './vehicle-drawing';
 
 /** A drag in the vehicle's plan frame. */
 export type VehicleDrag =
-  | { kind: 'move'; id: number; positionM: PairM; done: boolean }
-  | { kind: 'aim'; id: number; azimuthRad: number; done: boolean };
+  { kind: 'move'; id: number; positionM: PairM; done: boolean } | { kind: 'aim'; id: number; azimuthRad: number; done: boolean };
 
 export interface VehicleCanvasProps {
   evaluation: VehicleEvaluation;
-  placements: readonly VehiclePlacement[];
+  placements: readonly PlacementDto[];
   units: UnitSystem;
   adding: boolean;
   canEdit: boolean;

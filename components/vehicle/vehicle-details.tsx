@@ -83,7 +83,10 @@ export function VehicleDetails(p: VehicleDetailsProps) {
           onChange={p.onRuleSet}
           options={RULE_SET_ORDER.map((r) => ({ value: r, label: RULE_SET_SHORT[r], testID: `vehicle-rule-${r}` }))}
         />
-        <AppText variant="small" tone="muted">{`${RULE_SETS[evaluation.ruleSet].title}: ${RULE_SETS[evaluation.ruleSet].description}`}</AppText>
+        <AppText
+          variant="small"
+          tone="muted"
+        >{`${RULE_SETS[evaluation.ruleSet].title}: ${RULE_SETS[evaluation.ruleSet].description}`}</AppText>
       </View>
       <VehicleFieldList evaluation={evaluation} />
       <VehicleSideView evaluation={evaluation} placements={p.placements} selectedId={p.selectedId} units={units} />
@@ -110,7 +113,7 @@ function MirrorEditor(p: VehicleDetailsProps & { placement: VehiclePlacement }) 
       </View>
       <ChoiceChips<MirrorClass>
         label="Fitted as class"
-        value={cls}
+        value={cls ?? null}
         disabled={!p.canEdit}
         onChange={(c) => change({ mirrorClass: c })}
         options={MIRROR_CLASS_ORDER.map((c) => ({ value: c, label: `Class ${c}`, testID: `vehicle-mirror-class-${c}` }))}
@@ -139,7 +142,9 @@ function MirrorEditor(p: VehicleDetailsProps & { placement: VehiclePlacement }) 
       />
       {ev ? <PlacementNumbersPanel evaluation={ev} zones={[]} scene={EMPTY_SCENE} units={p.units} /> : null}
       {ev ? <ElevationView evaluation={ev} units={p.units} testID="vehicle-mirror-elevation" /> : null}
-      {p.canEdit ? <Button label="Remove this mirror" variant="danger" testID="vehicle-mirror-delete" onPress={() => p.onDeleteMirror(m.id)} /> : null}
+      {p.canEdit ? (
+        <Button label="Remove this mirror" variant="danger" testID="vehicle-mirror-delete" onPress={() => p.onDeleteMirror(m.id)} />
+      ) : null}
     </View>
   );
 }

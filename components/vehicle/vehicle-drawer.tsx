@@ -55,8 +55,8 @@ export function VehicleDrawer(p: VehicleDrawerProps) {
             </AppText>
             {p.open ? null : (
               <AppText variant="small" tone="stop" numberOfLines={3} testID="vehicle-drawer-caution">
-                For planning only: type approval and local rules decide. Mirrors show things smaller and farther away than they are;
-                read the cautions under Details.
+                For planning only: type approval and local rules decide. Mirrors show things smaller and farther away than they are; read
+                the cautions under Details.
               </AppText>
             )}
           </View>

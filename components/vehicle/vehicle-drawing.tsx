@@ -75,7 +75,9 @@ export function VehicleDrawing({ evaluation, placements, selectedId, canEdit, un
             strokeDasharray="7 4"
           />
         ))}
-        {gapsD.map(({ id, d }) => (d ? <Path key={id} testID={`vehicle-gap-${id}`} d={d} fillRule="evenodd" fill={`url(#${HATCH_ID})`} /> : null))}
+        {gapsD.map(({ id, d }) =>
+          d ? <Path key={id} testID={`vehicle-gap-${id}`} d={d} fillRule="evenodd" fill={`url(#${HATCH_ID})`} /> : null,
+        )}
         {g.boxes.map((b) => (
           <Path
             key={b.box.id}
@@ -95,7 +97,15 @@ export function VehicleDrawing({ evaluation, placements, selectedId, canEdit, un
           const text = `${FIELD_CLASS[f.code]} ${s ? formatCoveredShare(s.share) : '—'}`;
           return (
             <G key={f.id}>
-              <Rect x={x - 4 - text.length * 3.4} y={y - 11} width={text.length * 6.8 + 8} height={20} rx={4} fill={palette.card} fillOpacity={0.92} />
+              <Rect
+                x={x - 4 - text.length * 3.4}
+                y={y - 11}
+                width={text.length * 6.8 + 8}
+                height={20}
+                rx={4}
+                fill={palette.card}
+                fillOpacity={0.92}
+              />
               <SvgText
                 testID={`vehicle-field-label-${f.id}`}
                 x={x}
@@ -151,7 +161,17 @@ function EyePoints({ evaluation, view }: { evaluation: VehicleEvaluation; view: 
 }
 
 /** A mirror as a short bar across its aim with a notch toward where it looks; red when it cannot be computed. */
-function MirrorMarker({ placement, view, selected, problem }: { placement: VehiclePlacement; view: PlanView; selected: boolean; problem: string | null }) {
+function MirrorMarker({
+  placement,
+  view,
+  selected,
+  problem,
+}: {
+  placement: VehiclePlacement;
+  view: PlanView;
+  selected: boolean;
+  problem: string | null;
+}) {
   const c = toScreen(view, toDisplay(placement.positionM));
   const az = azimuthToDisplay(placement.azimuthRad);
   const across = alongAzimuth([0, 0], az + Math.PI / 2, MARKER_PX);
@@ -159,8 +179,24 @@ function MirrorMarker({ placement, view, selected, problem }: { placement: Vehic
   const colour = problem ? palette.stop : palette.glass;
   return (
     <G testID={`vehicle-mirror-${placement.id}`} pointerEvents="none">
-      <Circle cx={c[0]} cy={c[1]} r={MARKER_PX + 5} fill={selected ? palette.beaconSoft : palette.card} fillOpacity={0.85} stroke={selected ? palette.beaconPressed : 'none'} strokeWidth={2} />
-      <Line x1={c[0] - across[0]} y1={c[1] - across[1]} x2={c[0] + across[0]} y2={c[1] + across[1]} stroke={colour} strokeWidth={5} strokeLinecap="round" />
+      <Circle
+        cx={c[0]}
+        cy={c[1]}
+        r={MARKER_PX + 5}
+        fill={selected ? palette.beaconSoft : palette.card}
+        fillOpacity={0.85}
+        stroke={selected ? palette.beaconPressed : 'none'}
+        strokeWidth={2}
+      />
+      <Line
+        x1={c[0] - across[0]}
+        y1={c[1] - across[1]}
+        x2={c[0] + across[0]}
+        y2={c[1] + across[1]}
+        stroke={colour}
+        strokeWidth={5}
+        strokeLinecap="round"
+      />
       <Line x1={c[0]} y1={c[1]} x2={ahead[0]} y2={ahead[1]} stroke={colour} strokeWidth={2.5} />
       <SvgText x={c[0]} y={c[1] + MARKER_PX + 18} textAnchor="middle" fontFamily={fonts.semibold} fontSize={12} fill={palette.asphalt}>
         {placement.label}

@@ -26,7 +26,9 @@ export function VehicleFieldList({ evaluation }: { evaluation: VehicleEvaluation
     <View style={styles.list} testID="vehicle-fields">
       <AppText variant="caps">Ground fields</AppText>
       {evaluation.fields.length === 0 ? (
-        <AppText tone="muted">This rule set asks no ground field of this kind of vehicle; add test cylinders or own fields instead.</AppText>
+        <AppText tone="muted">
+          This rule set asks no ground field of this kind of vehicle; add test cylinders or own fields instead.
+        </AppText>
       ) : null}
       {evaluation.fields.map((f) => {
         const s = scores.get(f.id);
@@ -41,7 +43,9 @@ export function VehicleFieldList({ evaluation }: { evaluation: VehicleEvaluation
                 <AppText variant="heading" testID={`vehicle-field-share-${f.id}`}>
                   {s ? formatCoveredShare(s.share) : '—'}
                 </AppText>
-                {s ? <Badge label={VERDICT_WORDS[s.verdict]} tone={VERDICT_TONE[s.verdict]} testID={`vehicle-field-verdict-${f.id}`} /> : null}
+                {s ? (
+                  <Badge label={VERDICT_WORDS[s.verdict]} tone={VERDICT_TONE[s.verdict]} testID={`vehicle-field-verdict-${f.id}`} />
+                ) : null}
               </View>
             </View>
             <AppText variant="small">{`${thresholdText(f)}: ${f.requiredShareBasis}`}</AppText>

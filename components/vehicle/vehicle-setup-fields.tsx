@@ -16,7 +16,6 @@ import { RULE_SETS, type RuleSetId } from '@/shared/vehicle';
 import { followDimensions, presetValues, type EyeMethod, type EyeRule, type VehicleSetupValues } from './vehicle-setup';
 import { KIND_LABELS, RULE_SET_ORDER, RULE_SET_SHORT } from './vehicle-words';
 
-
 type DimName = 'lengthM' | 'widthM' | 'cabWidthM' | 'cabFrontBehindM';
 type NumName = DimName | 'eyeBehindFrontM' | 'eyeFromCentreM' | 'eyeHeightM';
 

@@ -105,7 +105,13 @@ const n = (x: number | null) => x ?? Number.NaN;
 export function vehicleOfValues(v: VehicleSetupValues): VehicleInput {
   const eye: VehicleInput['eye'] =
     v.eyeMethod === 'seat'
-      ? { method: 'seat', rule: v.eyeRule, seatBehindFrontM: n(v.eyeBehindFrontM), seatFromCentreM: n(v.eyeFromCentreM), seatHeightM: n(v.eyeHeightM) }
+      ? {
+          method: 'seat',
+          rule: v.eyeRule,
+          seatBehindFrontM: n(v.eyeBehindFrontM),
+          seatFromCentreM: n(v.eyeFromCentreM),
+          seatHeightM: n(v.eyeHeightM),
+        }
       : { method: 'direct', eyeBehindFrontM: n(v.eyeBehindFrontM), eyeFromCentreM: n(v.eyeFromCentreM), eyeHeightM: n(v.eyeHeightM) };
   return {
     kind: v.vehicleKind,
@@ -157,11 +163,14 @@ export function vehicleProblems(v: VehicleSetupValues): Partial<Record<VehicleFi
  */
 export function vehicleSchemaFields(): Record<VehicleFieldName, yup.MixedSchema> {
   const check = (name: VehicleFieldName) =>
-    yup.mixed().test('vehicle', function check() {
-      const parent = this.parent as VehicleSetupValues & { kind?: string };
-      if (parent.kind !== 'vehicle') return true;
-      const problem = vehicleProblems(parent)[name];
-      return problem ? this.createError({ message: problem }) : true;
-    });
+    yup
+      .mixed()
+      .nullable()
+      .test('vehicle', function check() {
+        const parent = this.parent as VehicleSetupValues & { kind?: string };
+        if (parent.kind !== 'vehicle') return true;
+        const problem = vehicleProblems(parent)[name];
+        return problem ? this.createError({ message: problem }) : true;
+      });
   return Object.fromEntries(VEHICLE_FIELDS.map((f) => [f, check(f)])) as Record<VehicleFieldName, yup.MixedSchema>;
 }

@@ -42,7 +42,15 @@ export function VehicleSideView({ evaluation, placements, selectedId, units }: V
       <AppText variant="caps">From the side, front to the right</AppText>
       <Svg width={width} height={height} role="img" aria-label="Vehicle from the side with the driver's eye and the mirrors' heights">
         <Line x1={0} y1={sz(0)} x2={width} y2={sz(0)} stroke={palette.asphalt} strokeWidth={2} />
-        <Line x1={sx(rear)} y1={sz(LOW_MIRROR_M)} x2={sx(front)} y2={sz(LOW_MIRROR_M)} stroke={palette.stop} strokeWidth={1} strokeDasharray="5 4" />
+        <Line
+          x1={sx(rear)}
+          y1={sz(LOW_MIRROR_M)}
+          x2={sx(front)}
+          y2={sz(LOW_MIRROR_M)}
+          stroke={palette.stop}
+          strokeWidth={1}
+          strokeDasharray="5 4"
+        />
         <SvgText x={sx(rear) + 2} y={sz(LOW_MIRROR_M) - 4} fontFamily={fonts.medium} fontSize={11} fill={palette.stop}>
           {`${len(LOW_MIRROR_M)}: lowest edge of class V and VI`}
         </SvgText>
@@ -102,7 +110,14 @@ export function VehicleSideView({ evaluation, placements, selectedId, units }: V
                 strokeLinecap="round"
               />
               {on ? (
-                <SvgText x={sx(p.positionM[0]) - 6} y={sz(p.heightM) + 4} textAnchor="end" fontFamily={fonts.semibold} fontSize={11} fill={palette.asphalt}>
+                <SvgText
+                  x={sx(p.positionM[0]) - 6}
+                  y={sz(p.heightM) + 4}
+                  textAnchor="end"
+                  fontFamily={fonts.semibold}
+                  fontSize={11}
+                  fill={palette.asphalt}
+                >
                   {`${p.label} ${len(p.heightM)}`}
                 </SvgText>
               ) : null}

@@ -41,7 +41,11 @@ export function VehicleToolbar(p: VehicleToolbarProps) {
             label="Class of the new mirror"
             value={p.addClass}
             onChange={p.onAddClass}
-            options={MIRROR_CLASS_ORDER.filter((c) => c !== 'III').map((c) => ({ value: c, label: `${MIRROR_TEMPLATES[c].name} ${c}`, testID: `vehicle-add-class-${c}` }))}
+            options={MIRROR_CLASS_ORDER.filter((c) => c !== 'III').map((c) => ({
+              value: c,
+              label: `${MIRROR_TEMPLATES[c].name} ${c}`,
+              testID: `vehicle-add-class-${c}`,
+            }))}
           />
         </>
       ) : null}

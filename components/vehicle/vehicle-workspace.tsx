@@ -58,7 +58,8 @@ export function VehicleWorkspace({ project, catalogue }: { project: ProjectDto; 
   const { setDragPreview, savePlacement } = edits;
   const onDrag = useCallback(
     (d: VehicleDrag) => {
-      const patch = d.kind === 'move' ? { positionM: [round3(d.positionM[0]), round3(d.positionM[1])] as PairM } : { azimuthRad: round4(d.azimuthRad) };
+      const patch =
+        d.kind === 'move' ? { positionM: [round3(d.positionM[0]), round3(d.positionM[1])] as PairM } : { azimuthRad: round4(d.azimuthRad) };
       if (!d.done) return setDragPreview({ kind: 'placement', id: d.id, patch });
       setDragPreview(null);
       void savePlacement(d.id, patch);
