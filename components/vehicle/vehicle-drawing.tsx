@@ -178,7 +178,7 @@ function MirrorMarker({
   const ahead = alongAzimuth(c, az, MARKER_PX * 0.9);
   const colour = problem ? palette.stop : palette.glass;
   return (
-    <G testID={`vehicle-mirror-${placement.id}`} pointerEvents="none">
+    <G testID={`vehicle-marker-${placement.id}`} pointerEvents="none">
       <Circle
         cx={c[0]}
         cy={c[1]}
