@@ -8,6 +8,8 @@ import { Project } from '../modules/projects/project.entity';
 import { Placement } from '../modules/projects/placement.entity';
 import { DEMO_CATALOGUE } from './demo-catalogue';
 import { DEMO_PROJECT } from './demo-project';
+import { DEMO_VEHICLE_JOBS } from './demo-vehicles';
+import type { EntityManager } from '@mikro-orm/sqlite';
 
 /** Demo only: listed in README.md. Never use these anywhere real. */
 export const DEMO_PASSWORD = 'demo-password-1';
@@ -24,7 +26,7 @@ export const DEMO_USERS = [
  */
 export async function seedDemo(orm: Orm, bcryptCost: number): Promise<boolean> {
   const em = orm.em.fork();
-  if (await em.count(Organization, { demo: true })) return false;
+  if (await em.count(Organization, { demo: true })) return seedMissingDemoVehicles(em);
   const org = em.create(Organization, { name: 'Harbourline Cold Storage (demo)', demo: true });
   const hash = await hashPassword(DEMO_PASSWORD, bcryptCost);
   const users = DEMO_USERS.map((u) => em.create(User, { ...u, organization: org, passwordHash: hash, disabled: false, units: 'metric' }));
@@ -56,6 +58,54 @@ export async function seedDemo(orm: Orm, bcryptCost: number): Promise<boolean> {
       viewerId: p.viewerId,
     });
   }
+  addDemoVehicles(em, users[0], org);
+  await em.flush();
+  return true;
+}
+
+/** The demo vehicle jobs (a truck and a school bus), owned by the demo installer. */
+function addDemoVehicles(em: EntityManager, installer: User, org: Organization): void {
+  // A minute older than the demo cold store, so that site stays first in the list (newest first).
+  const stamp = new Date(Date.now() - 60_000);
+  for (const job of DEMO_VEHICLE_JOBS) {
+    const { placements, ...fields } = job;
+    const project = em.create(Project, {
+      ...fields,
+      kind: 'vehicle',
+      owner: installer,
+      organization: org,
+      demo: true,
+      createdAt: stamp,
+      updatedAt: stamp,
+    });
+    for (const p of placements) {
+      em.create(Placement, {
+        project,
+        label: p.label,
+        customMirror: p.mirror,
+        xM: p.positionM[0],
+        yM: p.positionM[1],
+        heightM: p.heightM,
+        azimuthRad: (p.azimuthDeg * Math.PI) / 180,
+        tiltDownRad: (p.tiltDownDeg * Math.PI) / 180,
+        mirrorClass: p.mirrorClass,
+        servesFieldIds: p.servesFieldIds,
+      });
+    }
+  }
+}
+
+/**
+ * A demo database seeded before vehicle jobs existed gets the demo vehicles once: only when the
+ * demo organisation has never had a demo vehicle job (a deleted demo project is not brought back
+ * while the other demo vehicle remains).
+ */
+async function seedMissingDemoVehicles(em: EntityManager): Promise<boolean> {
+  const org = await em.findOne(Organization, { demo: true });
+  if (!org || (await em.count(Project, { organization: org.id, demo: true, kind: 'vehicle' }))) return false;
+  const installer = await em.findOne(User, { organization: org.id, email: DEMO_USERS[0].email });
+  if (!installer) return false;
+  addDemoVehicles(em, installer, org);
   await em.flush();
   return true;
 }

@@ -26,6 +26,7 @@ import { criterionAngleRad, type CriterionKind } from './criteria';
 import { eyeOffAxisRad, floorSeenFigures, type FloorSeenFigures } from './figures';
 import { mountProblem } from './mounting';
 import { targetHeightM } from './targets';
+import type { VehicleJobEvaluation } from './vehicle';
 
 /** Reference object distances (m) at which the sheet and editor compare true and apparent distance. */
 export const REFERENCE_DISTANCES_M = [3, 10, 20] as const;
@@ -92,6 +93,8 @@ export interface EvaluatedZone {
 export interface ProjectEvaluation {
   placements: EvaluatedPlacement[];
   zones: EvaluatedZone[];
+  /** A vehicle job's fields, test cylinders and mounting sentences (absent for a site). */
+  vehicle?: VehicleJobEvaluation;
 }
 
 export function mirrorOfSpec(spec: MirrorSpec): Mirror {
@@ -123,7 +126,8 @@ export function criterionRangeM(
   return recognisableRange({ radiusM: n.radiusM, eyeDistanceM: n.eyeDistanceM, targetSizeM: targetHeightM(t), minAngleRad }).rangeM;
 }
 
-function numbersFor(mirror: Mirror, pose: Pose, eyeM: Vec3, eyeDistanceM: number, criteria: CriteriaSettings): PlacementNumbers {
+/** A mirror's numbers for one eye point (the site's viewer, or a vehicle driver's eyes). */
+export function numbersFor(mirror: Mirror, pose: Pose, eyeM: Vec3, eyeDistanceM: number, criteria: CriteriaSettings): PlacementNumbers {
   const radiusM = sphereRadiusM(mirror);
   const base = { radiusM, eyeDistanceM, criteria };
   const ranges = (kind: CriterionKind): TargetRangesM => ({

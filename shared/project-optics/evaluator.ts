@@ -9,6 +9,7 @@ import { zoneCoverage, type MultiPolygon } from '../optics';
 import { robustUnion } from '../geometry/robust-boolean';
 import type { CatalogueItemDto, CriteriaSettings, PlacementDto, Scene, SceneZone, ZoneTarget } from '../schemas';
 import { criteriaOf, zoneCriterion, type CriterionKind } from './criteria';
+import { evaluateVehicleJob } from './vehicle';
 import {
   criterionRangeM,
   evaluatePlacement,
@@ -21,7 +22,8 @@ import {
 export type PlacementInput = Pick<
   PlacementDto,
   'id' | 'catalogueItemId' | 'customMirror' | 'positionM' | 'heightM' | 'azimuthRad' | 'tiltDownRad' | 'viewerId'
->;
+> &
+  Partial<Pick<PlacementDto, 'label' | 'mirrorClass' | 'servesFieldIds'>>;
 
 interface CacheEntry {
   /** Walls are what make a placement's evaluation expensive; viewers are part of each key instead. */
@@ -80,6 +82,26 @@ function unionAll(regions: readonly MultiPolygon[]): MultiPolygon {
 export class ProjectEvaluator {
   private cache: CacheEntry | null = null;
   private unions = new Map<string, UnionCache>();
+  /** A vehicle job's last evaluation and what it was made from (scoring is one call; no finer cache). */
+  private lastVehicle: { key: string; catalogue: readonly CatalogueItemDto[]; result: ProjectEvaluation } | null = null;
+
+  /** Options: `fieldCriteria` also estimates detect / recognise shares per vehicle field (the sheet asks for it). */
+  constructor(private readonly options: { fieldCriteria?: boolean } = {}) {}
+
+  /** A vehicle job (the scene has a vehicle): through shared/vehicle's scoring, once per distinct input. */
+  private evaluateVehicle(input: {
+    scene: Scene;
+    placements: readonly PlacementInput[];
+    catalogue: readonly CatalogueItemDto[];
+  }): ProjectEvaluation {
+    const key = JSON.stringify([input.scene, input.placements]);
+    if (this.lastVehicle && this.lastVehicle.key === key && this.lastVehicle.catalogue === input.catalogue) return this.lastVehicle.result;
+    const placements = input.placements.map((p) => ({ ...p, label: p.label ?? `#${p.id}` }));
+    const { placements: evaluated, vehicle } = evaluateVehicleJob({ ...input, placements, fieldCriteria: this.options.fieldCriteria });
+    const result: ProjectEvaluation = { placements: evaluated, zones: [], vehicle };
+    this.lastVehicle = { key, catalogue: input.catalogue, result };
+    return result;
+  }
 
   /**
    * The union of all regions for one target. While a single mirror moves, the others' union is
@@ -119,6 +141,7 @@ export class ProjectEvaluator {
   }
 
   evaluate(input: { scene: Scene; placements: readonly PlacementInput[]; catalogue: readonly CatalogueItemDto[] }): ProjectEvaluation {
+    if (input.scene.vehicle) return this.evaluateVehicle(input);
     const criteria = criteriaOf(input.scene);
     if (this.cache && this.cache.walls !== input.scene.walls) {
       const json = JSON.stringify(input.scene.walls);
@@ -187,7 +210,8 @@ export class ProjectEvaluator {
 }
 
 /**
- * Every placement's numbers and coverage, and each zone's covered fraction. A zone counts the
+ * Every placement's numbers and coverage, and each zone's covered fraction; for a vehicle job,
+ * each field's share and verdict, the test cylinders and the mounting sentences (`vehicle`). A zone counts the
  * union of all placements' regions, each clipped at the range where the zone's target meets the
  * zone's criterion (detect or recognise, at the angles in the scene's `criteria`).
  * Throws when a zone's share cannot be computed (a sheet must never show a blank share).
@@ -197,8 +221,9 @@ export function evaluateProject(input: {
   placements: readonly PlacementInput[];
   catalogue: readonly CatalogueItemDto[];
 }): ProjectEvaluation {
-  const evaluation = new ProjectEvaluator().evaluate(input);
+  const evaluation = new ProjectEvaluator({ fieldCriteria: true }).evaluate(input);
   const failed = evaluation.zones.find((z) => z.problem);
   if (failed) throw new Error(`Zone ${failed.zoneId}: ${failed.problem}`);
+  if (evaluation.vehicle?.problem) throw new Error(`Vehicle fields: ${evaluation.vehicle.problem}`);
   return evaluation;
 }

@@ -86,6 +86,8 @@ export type VehicleScore = {
   fields: FieldScore[];
   targets: TargetView[];
   mounting: MountingNote[];
+  /** Every footprint traced for the fields (one per mirror and eye point used), for drawing. */
+  footprints: { mirrorId: string; eyeM: Vec3; region: MultiPolygon }[];
 };
 
 /** Pass when the share reaches the pass mark; no verdict when the rule gives none. */
@@ -144,15 +146,15 @@ export function scoreVehicle(input: ScoreInput): VehicleScore {
   for (const f of fields) {
     for (const m of chosen(f.id)) rangeFor.set(m.id, Math.max(rangeFor.get(m.id) ?? 0, farthestM(m.pose.vertexM, f) + 1));
   }
-  const cache = new Map<string, MultiPolygon>();
+  const cache = new Map<string, { mirrorId: string; eyeM: Vec3; region: MultiPolygon }>();
   const footprint = (m: VehicleMirror, eyeM: Vec3): MultiPolygon => {
     const key = `${m.id}@${eyeM.join(',')}`;
-    let region = cache.get(key);
-    if (!region) {
-      region = mirrorFootprint(m, eyeM, rangeFor.get(m.id) ?? 1, g, accuracy);
-      cache.set(key, region);
+    let hit = cache.get(key);
+    if (!hit) {
+      hit = { mirrorId: m.id, eyeM, region: mirrorFootprint(m, eyeM, rangeFor.get(m.id) ?? 1, g, accuracy) };
+      cache.set(key, hit);
     }
-    return region;
+    return hit.region;
   };
 
   const scores = fields.map((field): FieldScore => {
@@ -210,7 +212,7 @@ export function scoreVehicle(input: ScoreInput): VehicleScore {
       recogniseAngleRad: input.recogniseAngleRad,
     }),
   );
-  return { fields: scores, targets, mounting: mountingNotes(v, g, input.mirrors) };
+  return { fields: scores, targets, mounting: mountingNotes(v, g, input.mirrors), footprints: [...cache.values()] };
 }
 
 /**
