@@ -54,9 +54,8 @@ export function VehicleDrawer(p: VehicleDrawerProps) {
               {fieldsSummary(p.evaluation)}
             </AppText>
             {p.open ? null : (
-              <AppText variant="small" tone="stop" numberOfLines={3} testID="vehicle-drawer-caution">
-                For planning only: type approval and local rules decide. Mirrors show things smaller and farther away than they are; read
-                the cautions under Details.
+              <AppText variant="small" tone="stop" testID="vehicle-drawer-caution">
+                Planning only: type approval and local rules decide. Mirrors show things smaller and farther away. Cautions under Details.
               </AppText>
             )}
           </View>

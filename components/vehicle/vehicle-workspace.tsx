@@ -73,10 +73,9 @@ export function VehicleWorkspace({ project, catalogue }: { project: ProjectDto; 
     setSelectedId(null);
     void edits.deletePlacement(id);
   };
-  const select = (id: number | null) => {
-    setSelectedId(id);
-    if (id !== null && !wide) setDrawerOpen(true);
-  };
+  // On a phone the drawer stays folded when a mirror is picked: its strip names the mirror and the
+  // verdicts, and the top view stays clear for the drag that usually follows.
+  const select = (id: number | null) => setSelectedId(id);
 
   if (!evaluation) {
     return (
