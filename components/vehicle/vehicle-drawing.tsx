@@ -9,6 +9,7 @@ import Svg, { Circle, Defs, G, Line, Path, Pattern, Rect, Text as SvgText } from
 import { fonts, palette } from '@/constants/theme';
 import type { VehicleEvaluation, VehiclePlacement } from '@/hooks/use-vehicle-evaluation';
 import type { MultiPolygon } from '@/shared/geometry/polygon';
+import type { FieldScore } from '@/shared/vehicle';
 import type { UnitSystem } from '@/shared/units';
 import { formatCoveredShare } from '@/shared/zone-verdict';
 import { alongAzimuth, gridLines, multiPolygonToPath, ringsToPath, scaleBar } from '@/components/plan/plan-geometry';
@@ -47,6 +48,11 @@ export function VehicleDrawing({ evaluation, placements, selectedId, canEdit, un
       })),
     [evaluation.score, view],
   );
+  // What the selected mirror shows the driver on the ground (from either eye), under the gaps.
+  const footprintD = useMemo(() => {
+    const region = selectedId === null ? null : evaluation.mirrors.get(selectedId)?.coverage?.region;
+    return region ? multiPolygonToPath(view, region.map((p) => polygonToDisplay(p)) as MultiPolygon) : '';
+  }, [evaluation.mirrors, selectedId, view]);
   const g = evaluation.geometry;
   const outline = ringsToPath(view, [ringToDisplay(g.outline)]);
   const selected = placements.find((p) => p.id === selectedId);
@@ -75,6 +81,17 @@ export function VehicleDrawing({ evaluation, placements, selectedId, canEdit, un
             strokeDasharray="7 4"
           />
         ))}
+        {footprintD ? (
+          <Path
+            testID="vehicle-footprint"
+            d={footprintD}
+            fillRule="evenodd"
+            fill={palette.glass}
+            fillOpacity={0.22}
+            stroke={palette.glass}
+            strokeWidth={1}
+          />
+        ) : null}
         {gapsD.map(({ id, d }) =>
           d ? <Path key={id} testID={`vehicle-gap-${id}`} d={d} fillRule="evenodd" fill={`url(#${HATCH_ID})`} /> : null,
         )}
@@ -90,36 +107,22 @@ export function VehicleDrawing({ evaluation, placements, selectedId, canEdit, un
         ))}
         <Path d={outline} fill="none" stroke={palette.asphalt} strokeWidth={2} />
         <EyePoints evaluation={evaluation} view={view} />
-        {fieldsD.map(({ f }) => {
-          const s = scores.get(f.id);
-          const anchor = f.polygonM.length > 1 ? f.polygonM[0][0] : ringCentroid(f.polygonM[0]);
-          const [x, y] = toScreen(view, toDisplay(anchor));
-          const text = `${FIELD_CLASS[f.code]} ${s ? formatCoveredShare(s.share) : '—'}`;
-          return (
-            <G key={f.id}>
-              <Rect
-                x={x - 4 - text.length * 3.4}
-                y={y - 11}
-                width={text.length * 6.8 + 8}
-                height={20}
-                rx={4}
-                fill={palette.card}
-                fillOpacity={0.92}
-              />
-              <SvgText
-                testID={`vehicle-field-label-${f.id}`}
-                x={x}
-                y={y + 4}
-                textAnchor="middle"
-                fontFamily={fonts.semibold}
-                fontSize={12}
-                fill={verdictColour(s?.verdict)}
-              >
-                {text}
-              </SvgText>
-            </G>
-          );
-        })}
+        {fieldLabels(evaluation, scores, view).map(({ id, text, x, y, w, verdict }) => (
+          <G key={id}>
+            <Rect x={x - w / 2} y={y - 11} width={w} height={20} rx={4} fill={palette.card} fillOpacity={0.92} />
+            <SvgText
+              testID={`vehicle-field-label-${id}`}
+              x={x}
+              y={y + 4}
+              textAnchor="middle"
+              fontFamily={fonts.semibold}
+              fontSize={12}
+              fill={verdictColour(verdict)}
+            >
+              {text}
+            </SvgText>
+          </G>
+        ))}
       </G>
       {placements.map((p) => (
         <MirrorMarker
@@ -140,6 +143,33 @@ export function VehicleDrawing({ evaluation, placements, selectedId, canEdit, un
       </G>
     </Svg>
   );
+}
+
+/**
+ * Each field's label ("V 81 %") at the middle of its area (a ring with a hole: at its outer
+ * corner), in screen pixels; a label that would sit on one placed before it moves down a line.
+ */
+export function fieldLabels(
+  evaluation: Pick<VehicleEvaluation, 'fields'>,
+  scores: ReadonlyMap<string, FieldScore>,
+  view: PlanView,
+): { id: string; text: string; x: number; y: number; w: number; verdict: FieldScore['verdict'] | undefined }[] {
+  const placed: { id: string; text: string; x: number; y: number; w: number; verdict: FieldScore['verdict'] | undefined }[] = [];
+  for (const f of evaluation.fields) {
+    const s = scores.get(f.id);
+    const anchor = f.polygonM.length > 1 ? f.polygonM[0][0] : ringCentroid(f.polygonM[0]);
+    const [x, y0] = toScreen(view, toDisplay(anchor));
+    const text = `${FIELD_CLASS[f.code]} ${s ? formatCoveredShare(s.share) : '—'}`;
+    const w = text.length * 6.8 + 8;
+    let y = y0;
+    for (let tries = 0; tries < 6; tries++) {
+      const clash = placed.find((p) => Math.abs(p.y - y) < 21 && Math.abs(p.x - x) < (p.w + w) / 2);
+      if (!clash) break;
+      y = clash.y + 22;
+    }
+    placed.push({ id: f.id, text, x, y, w, verdict: s?.verdict });
+  }
+  return placed;
 }
 
 function EyePoints({ evaluation, view }: { evaluation: VehicleEvaluation; view: PlanView }) {
