@@ -10,6 +10,8 @@ const runners: Array<() => Promise<void>> = [runOpticsBench, runVehicleBench, ru
 async function main(): Promise<void> {
   // BENCH_ONLY=walls: the optics engine's wall growth table alone.
   if (process.env.BENCH_ONLY === 'walls') return runOpticsBench();
+  // BENCH_ONLY=vehicle: vehicle scoring and the vehicle job beside the site job.
+  if (process.env.BENCH_ONLY === 'vehicle') return runVehicleBench();
   for (const run of runners) await run();
 }
 

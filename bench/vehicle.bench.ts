@@ -7,6 +7,59 @@ import os from 'node:os';
 import { Bench } from 'tinybench';
 import { scoreVehicle, vehicleFields, vehicleGeometry, mirrorFootprint } from '../shared/vehicle';
 import { demoTruck, sixMirrors } from '../tests/shared/vehicle/fixtures';
+import { DEMO_CATALOGUE } from '../server/seeders/demo-catalogue';
+import { DEMO_PROJECT } from '../server/seeders/demo-project';
+import { DEMO_TRUCK } from '../server/seeders/demo-vehicles';
+import { evaluateVehicleJob, ProjectEvaluator } from '../shared/project-optics';
+import { scene as sceneSchema, type CatalogueItemDto, type PlacementDto } from '../shared/schemas';
+
+/** The demo cold store as the API lists it: catalogue ids in seed order, placements 1…n. */
+function demoSiteJob() {
+  const catalogue: CatalogueItemDto[] = DEMO_CATALOGUE.map((d, i) => ({
+    ...d,
+    id: i + 1,
+    currency: 'EUR',
+    notes: '',
+    active: true,
+    demo: true,
+    version: 1,
+    updatedAt: '2026-01-01T00:00:00.000Z',
+  }));
+  const placements = DEMO_PROJECT.placements.map((p, i) => ({
+    id: i + 1,
+    catalogueItemId: catalogue.find((c) => c.code === p.code)!.id,
+    customMirror: null,
+    positionM: p.positionM,
+    heightM: p.heightM,
+    azimuthRad: (p.azimuthDeg * Math.PI) / 180,
+    tiltDownRad: (p.tiltDownDeg * Math.PI) / 180,
+    viewerId: p.viewerId,
+  }));
+  return { scene: sceneSchema.parse(DEMO_PROJECT.scene), placements, catalogue };
+}
+
+/** The demo truck job as the API stores it: its scene and six placements (ids 1…6). */
+function demoTruckJob() {
+  const scene = sceneSchema.parse(DEMO_TRUCK.scene);
+  const placements: PlacementDto[] = DEMO_TRUCK.placements.map((p, i) => ({
+    id: i + 1,
+    projectId: 1,
+    label: p.label,
+    catalogueItemId: null,
+    customMirror: p.mirror,
+    positionM: p.positionM,
+    heightM: p.heightM,
+    azimuthRad: (p.azimuthDeg * Math.PI) / 180,
+    tiltDownRad: (p.tiltDownDeg * Math.PI) / 180,
+    viewerId: null,
+    notes: '',
+    mirrorClass: p.mirrorClass,
+    servesFieldIds: p.servesFieldIds,
+    version: 1,
+    updatedAt: '2026-01-01T00:00:00.000Z',
+  }));
+  return { scene, placements };
+}
 
 function fmt(ms: number): string {
   return ms < 1 ? `${(ms * 1000).toFixed(1)} µs` : `${ms.toFixed(2)} ms`;
@@ -17,9 +70,14 @@ export async function runVehicleBench(): Promise<void> {
   const mirrors = sixMirrors(truck);
   const fields = vehicleFields(truck);
   const g = vehicleGeometry(truck);
+  const job = demoTruckJob();
+  const site = demoSiteJob();
+  const siteName = `site job beside it: the demo cold store, through project-optics (${site.placements.length} mirrors, ${site.scene.zones.length} zones, ${site.scene.walls.length} walls)`;
   const budgets: Record<string, number | null> = {
     'truck, 6 mirrors × 6 fields × 2 eyes': 50,
     'the 12 footprints alone (6 mirrors × 2 eyes, body as walls)': null,
+    'vehicle job: the demo truck as stored, through project-optics (6 mirrors, 6 fields, 2 eyes)': 50,
+    [siteName]: null,
   };
   let sink = 0;
   const bench = new Bench({ name: 'vehicle', time: 3000, warmupTime: 500 });
@@ -29,6 +87,13 @@ export async function runVehicleBench(): Promise<void> {
     })
     .add('the 12 footprints alone (6 mirrors × 2 eyes, body as walls)', () => {
       for (const m of mirrors) for (const e of g.ocularM) sink += mirrorFootprint(m, e, 70, g).length;
+    })
+    .add('vehicle job: the demo truck as stored, through project-optics (6 mirrors, 6 fields, 2 eyes)', () => {
+      sink += evaluateVehicleJob({ ...job, catalogue: [] }).vehicle.fields.reduce((a, f) => a + f.share, 0);
+    })
+    .add(siteName, () => {
+      // A fresh evaluator each time: no cached placement, as for the sheet.
+      sink += new ProjectEvaluator().evaluate(site).zones.reduce((a, z) => a + z.fraction, 0);
     });
   await bench.run();
 

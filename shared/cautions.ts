@@ -26,3 +26,10 @@ export type SafetyCaution = (typeof SAFETY_CAUTIONS)[number];
 
 /** The same four sentences as plain strings, in the same order. */
 export const CAUTION_SENTENCES: readonly string[] = SAFETY_CAUTIONS.map((c) => c.text);
+
+/**
+ * Said with every coverage of a vehicle's ground fields (screens and sheet), beside the cautions:
+ * the encoded fields carry marks of how sure their figures are (docs/vehicle-sources.md).
+ */
+export const VEHICLE_FIELDS_NOTE =
+  'The ground fields shown are for planning: type approval and local rules decide whether a vehicle’s mirrors comply.';

@@ -11,6 +11,7 @@ import { NO_DEFAULT_FONT, registerSheetFonts } from './fonts';
 import { writeText } from './text-runs';
 import { BEACON, BEACON_SOFT, Flow, GLASS, INK, MUTED, RULE, STOP } from './layout';
 import { sheetFormat, type SheetContent, type SheetPlacement } from './sheet-model';
+import { vehiclePages } from './vehicle-sheet';
 
 export interface SheetRevisionInfo {
   number: number;
@@ -333,11 +334,13 @@ export async function renderSheet(content: SheetContent, rev: SheetRevisionInfo,
   headerBlock(flow, content, rev, paperSpec.name);
   cautionBox(flow, content.cautions, 'Read before relying on this sheet');
   flow.paragraph(SHEET_LIMITS, 'regular', 8.5, MUTED);
-  zonesBlock(flow, content);
+  if (!content.vehicle) zonesBlock(flow, content);
   summaryBlock(flow, content);
   purchaseBlock(flow, content);
   approvalBlock(flow);
-  planPage(flow, content, paperSpec.name);
+  if (content.vehicle)
+    vehiclePages(flow, content, content.vehicle, paperSpec.name, (fl) => cautionBox(fl, content.cautions, 'Read with these fields', 8));
+  else planPage(flow, content, paperSpec.name);
   content.placements.forEach((p, i) => placementPage(flow, content, p, i));
 
   const range = doc.bufferedPageRange();

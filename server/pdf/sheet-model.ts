@@ -25,11 +25,13 @@ import type { CatalogueItemDto, MirrorSpec, PlacementDto, Scene, UnitSystem } fr
 import { formatAngle, formatArea, formatLength, formatMoney, formatNumber, formatPercent, resolveUnits } from '../../shared/units';
 import { formatCoveredShare } from '../../shared/zone-verdict';
 import { SHEET_CAUTIONS } from './cautions';
+import { buildVehicleSheet, type SheetVehicle } from './vehicle-sheet';
 
 export type SheetPlacementInput = Pick<
   PlacementDto,
   'id' | 'label' | 'catalogueItemId' | 'customMirror' | 'positionM' | 'heightM' | 'azimuthRad' | 'tiltDownRad' | 'viewerId' | 'notes'
->;
+> &
+  Partial<Pick<PlacementDto, 'mirrorClass' | 'servesFieldIds'>>;
 
 export interface SheetInput {
   project: {
@@ -129,6 +131,8 @@ export interface SheetContent {
   placements: SheetPlacement[];
   plan: SheetPlan;
   purchase: { lines: SheetPurchaseLine[]; totals: { currency: string; total: string }[]; onRequest: number };
+  /** A vehicle job's pages (server/pdf/vehicle-sheet.ts); absent for a site, so a site's content is unchanged. */
+  vehicle?: SheetVehicle;
 }
 
 /** The formatters the sheet uses for each kind of number; tests format engine values with these too. */
@@ -224,7 +228,9 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
       ['Height of the mirror centre', f.dist(p.heightM)],
       ['Aim (azimuth from plan x toward y)', f.fine(p.azimuthRad)],
       ['Tilt down from level', f.fine(p.tiltDownRad)],
-      ['Viewer served', viewer ? `${viewer.name}, eye at ${f.dist(viewer.eyeHeightM)}` : 'none chosen'],
+      scene.vehicle
+        ? ['Viewer served', `the driver’s eyes, ${f.dist(ev.eyeM?.[2] ?? 0)} up`]
+        : ['Viewer served', viewer ? `${viewer.name}, eye at ${f.dist(viewer.eyeHeightM)}` : 'none chosen'],
     ];
     const n = ev.numbers;
     const numbers: SheetNumbers | null = n
@@ -306,6 +312,7 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
     placements: sheetPlacements,
     plan,
     purchase,
+    vehicle: buildVehicleSheet(scene, evaluation, placements, f),
   };
   return { content, evaluation, placements };
 }

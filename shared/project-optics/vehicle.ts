@@ -13,12 +13,14 @@ import {
   scoreVehicle,
   vehicleFields,
   vehicleGeometry,
+  type FieldCode,
   type FieldScore,
   type MountingNote,
   type RuleSetId,
   type TargetView,
   type VehicleField,
   type VehicleMirror,
+  type Verdict,
 } from '../vehicle';
 import { criteriaOf } from './criteria';
 import { mirrorOfPlacement, numbersFor, type EvaluatedPlacement } from './evaluate';
@@ -56,6 +58,20 @@ export function vehicleMirrorProblem(
       return { field: 'servesFieldIds', message: `This vehicle has no field “${unknown}” under its rules; choose among its fields.` };
   }
   return null;
+}
+
+/**
+ * Exact point tests the detect / recognise estimate may spend on one job (fields × grid points ×
+ * mirrors × 2 eyes): the demo truck (6 × 100 × 6 × 2 = 7,200) keeps the full 100 points a field;
+ * a job at the limits (56 fields, 30 mirrors) drops to 16, which keeps its sheet within a few
+ * seconds (measured: 100 points a field there took about 12 s under load).
+ */
+export const CRITERIA_POINT_TESTS = 24_000;
+
+/** Grid points per field for the detect / recognise estimate: 100, fewer for big jobs, never under 16. */
+export function criteriaSamplesPerField(fields: number, mirrors: number): number {
+  const per = Math.floor(CRITERIA_POINT_TESTS / Math.max(1, fields * mirrors * 2));
+  return Math.max(16, Math.min(100, per));
 }
 
 /** A vehicle job's own results, beside each mirror's numbers in `ProjectEvaluation.placements`. */
@@ -152,7 +168,9 @@ export function evaluateVehicleJob(input: {
       mirrorsForField,
       detectAngleRad: criteria.detectRad,
       recogniseAngleRad: criteria.recogniseRad,
-      ...(input.fieldCriteria ? { fieldTargetHeightM: TARGET_HEIGHT_M.adult } : {}),
+      ...(input.fieldCriteria
+        ? { fieldTargetHeightM: TARGET_HEIGHT_M.adult, criteriaSamples: criteriaSamplesPerField(fields.length, fitted.length) }
+        : {}),
     });
     vehicle = { ruleSet, fields: score.fields, targets: score.targets, mounting: score.mounting, problem: null };
     for (const ev of placements) {
@@ -173,4 +191,42 @@ export function evaluateVehicleJob(input: {
     };
   }
   return { placements, vehicle };
+}
+
+/**
+ * A field's share as printed and shown: a percentage rounded DOWN to 0.1 % ("84.9 %"), so a share
+ * is never overstated and a field shown at the pass mark has reached it (the verdict is read from
+ * the exact share: a shown "85.0 %" is at least 85 %).
+ */
+export function formatFieldShare(share: number): string {
+  if (!Number.isFinite(share)) return '—';
+  // The billionth keeps a share computed as 0.84999999999 (a full 85 % in floating point) at 85.0.
+  return `${(Math.floor(Math.min(1, Math.max(0, share)) * 1000 + 1e-6) / 10).toFixed(1)} %`;
+}
+
+/** The words for a verdict on screens and sheets. */
+export function verdictText(v: Verdict): 'pass' | 'short' | 'no verdict' {
+  return v === 'no-verdict' ? 'no verdict' : v;
+}
+
+/** The regulation's class of a library field ("IV", "V extended"); "—" for other rules' fields, "own" for the installer's. */
+export function vehicleFieldClass(code: FieldCode): string {
+  switch (code) {
+    case 'un-ii':
+      return 'II';
+    case 'un-iii':
+      return 'III';
+    case 'un-iv':
+      return 'IV';
+    case 'un-v':
+      return 'V';
+    case 'un-v-extended':
+      return 'V extended';
+    case 'un-vi':
+      return 'VI';
+    case 'user':
+      return 'own';
+    default:
+      return '—';
+  }
 }
