@@ -8,8 +8,8 @@ import { Pressable, ScrollView, StyleSheet, View, useWindowDimensions } from 're
 import { AppText } from '@/components/ui/text';
 import { layout, palette, radii, spacing } from '@/constants/theme';
 import type { VehicleEvaluation, VehiclePlacement } from '@/hooks/use-vehicle-evaluation';
-import { formatCoveredShare } from '@/shared/zone-verdict';
-import { FIELD_CLASS, VERDICT_WORDS } from './vehicle-words';
+import { formatFieldShare, verdictText } from '@/shared/project-optics';
+import { fieldLabel } from './vehicle-words';
 
 /** "V right 81 % short · IV right 97 % passes": the fields that have a verdict first. */
 export function fieldsSummary(e: VehicleEvaluation | null): string {
@@ -19,7 +19,7 @@ export function fieldsSummary(e: VehicleEvaluation | null): string {
   return e.score.fields
     .map((s) => {
       const side = s.field.side === null ? '' : s.field.side === e.geometry.passengerSide ? ' passenger' : ' driver';
-      return `${FIELD_CLASS[s.field.code]}${side} ${formatCoveredShare(s.share)} ${VERDICT_WORDS[s.verdict].toLowerCase()}`;
+      return `${fieldLabel(s.field.code)}${side} ${formatFieldShare(s.share)} ${verdictText(s.verdict)}`;
     })
     .join(' · ');
 }

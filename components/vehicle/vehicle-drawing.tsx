@@ -10,12 +10,12 @@ import { fonts, palette } from '@/constants/theme';
 import type { VehicleEvaluation, VehiclePlacement } from '@/hooks/use-vehicle-evaluation';
 import type { MultiPolygon } from '@/shared/geometry/polygon';
 import type { FieldScore } from '@/shared/vehicle';
+import { formatFieldShare } from '@/shared/project-optics';
 import type { UnitSystem } from '@/shared/units';
-import { formatCoveredShare } from '@/shared/zone-verdict';
 import { alongAzimuth, gridLines, multiPolygonToPath, ringsToPath, scaleBar } from '@/components/plan/plan-geometry';
 import { AIM_HANDLE_PX, toScreen, type PlanView, type Size } from '@/components/plan/plan-view';
 import { azimuthToDisplay, polygonToDisplay, ringCentroid, ringToDisplay, toDisplay } from './vehicle-frame';
-import { FIELD_CLASS } from './vehicle-words';
+import { fieldLabel } from './vehicle-words';
 
 const HATCH_ID = 'vehicle-gap-hatch';
 const MARKER_PX = 13;
@@ -159,7 +159,7 @@ export function fieldLabels(
     const s = scores.get(f.id);
     const anchor = f.polygonM.length > 1 ? f.polygonM[0][0] : ringCentroid(f.polygonM[0]);
     const [x, y0] = toScreen(view, toDisplay(anchor));
-    const text = `${FIELD_CLASS[f.code]} ${s ? formatCoveredShare(s.share) : '—'}`;
+    const text = `${fieldLabel(f.code)} ${s ? formatFieldShare(s.share) : '—'}`;
     const w = text.length * 6.8 + 8;
     let y = y0;
     for (let tries = 0; tries < 6; tries++) {

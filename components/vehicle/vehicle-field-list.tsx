@@ -8,16 +8,15 @@ import { AppText } from '@/components/ui/text';
 import { Badge, type BadgeTone } from '@/components/ui/badge';
 import { palette, radii, spacing } from '@/constants/theme';
 import type { VehicleEvaluation } from '@/hooks/use-vehicle-evaluation';
-import { formatArcmin } from '@/shared/project-optics';
+import { formatArcmin, formatFieldShare, vehicleFieldClass } from '@/shared/project-optics';
 import { STATUS_MARK_MEANING, type FieldScore, type VehicleField } from '@/shared/vehicle';
-import { formatCoveredShare } from '@/shared/zone-verdict';
-import { FIELD_CLASS, VERDICT_WORDS } from './vehicle-words';
+import { verdictWord } from './vehicle-words';
 
 const VERDICT_TONE: Record<FieldScore['verdict'], BadgeTone> = { pass: 'go', short: 'stop', 'no-verdict': 'neutral' };
 
 /** "Needs 85 %" or the rule's reason for giving none. */
 export function thresholdText(f: VehicleField): string {
-  return f.requiredShare === null ? 'No pass mark' : `Needs ${formatCoveredShare(f.requiredShare)}`;
+  return f.requiredShare === null ? 'No pass mark' : `Needs ${formatFieldShare(f.requiredShare)}`;
 }
 
 export function VehicleFieldList({ evaluation }: { evaluation: VehicleEvaluation }) {
@@ -37,14 +36,14 @@ export function VehicleFieldList({ evaluation }: { evaluation: VehicleEvaluation
             <View style={styles.head}>
               <View style={styles.title}>
                 <AppText variant="label">{f.name}</AppText>
-                <AppText variant="small" tone="muted">{`${f.rule} · class ${FIELD_CLASS[f.code]}`}</AppText>
+                <AppText variant="small" tone="muted">{`${f.rule} · class ${vehicleFieldClass(f.code)}`}</AppText>
               </View>
               <View style={styles.figure}>
                 <AppText variant="heading" testID={`vehicle-field-share-${f.id}`}>
-                  {s ? formatCoveredShare(s.share) : '—'}
+                  {s ? formatFieldShare(s.share) : '—'}
                 </AppText>
                 {s ? (
-                  <Badge label={VERDICT_WORDS[s.verdict]} tone={VERDICT_TONE[s.verdict]} testID={`vehicle-field-verdict-${f.id}`} />
+                  <Badge label={verdictWord(s.verdict)} tone={VERDICT_TONE[s.verdict]} testID={`vehicle-field-verdict-${f.id}`} />
                 ) : null}
               </View>
             </View>

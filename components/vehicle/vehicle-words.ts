@@ -1,5 +1,6 @@
 /** Words the vehicle screens print: kinds, verdicts, and the line every vehicle view carries. */
 import type { VehicleKind } from '@/shared/schemas/vehicle';
+import { vehicleFieldClass, verdictText } from '@/shared/project-optics';
 import type { FieldCode, RuleSetId, Verdict } from '@/shared/vehicle';
 
 export const KIND_LABELS: Record<VehicleKind, string> = {
@@ -11,29 +12,25 @@ export const KIND_LABELS: Record<VehicleKind, string> = {
   'site-machine': 'Site machine',
 };
 
-export const VERDICT_WORDS: Record<Verdict, string> = {
-  pass: 'Passes',
-  short: 'Short',
-  'no-verdict': 'No verdict',
+/** The shared verdict words (shared/project-optics verdictText), capitalised for a badge. */
+export const verdictWord = (v: Verdict): string => {
+  const t = verdictText(v);
+  return t.charAt(0).toUpperCase() + t.slice(1);
 };
 
-/** The regulation's class for a field (the open standard's term), or what stands in for it. */
-export const FIELD_CLASS: Record<FieldCode, string> = {
-  'un-ii': 'II',
-  'un-iii': 'III',
-  'un-iv': 'IV',
-  'un-v': 'V',
-  'un-v-extended': 'V (extended)',
-  'un-vi': 'VI',
-  'us-driver-strip': 'Driver side',
-  'iso-boundary-1m': '1 m boundary',
-  'iso-circle-12m': '12 m circle',
-  user: 'Own field',
+/** Short names for fields that have no regulation class, for labels on the top view. */
+const NO_CLASS_LABEL: Partial<Record<FieldCode, string>> = {
+  'us-driver-strip': 'Strip',
+  'iso-boundary-1m': '1 m band',
+  'iso-circle-12m': '12 m ring',
+  user: 'Own',
 };
 
-/** Shown with the cautions wherever vehicle fields are shown (product decision). */
-export const PLANNING_LINE =
-  'The fields shown are for planning: the vehicle’s type approval and the local rules decide which fields a mirror must show and whether it does.';
+/** A field's short label: its regulation class (shared vehicleFieldClass), else our short name. */
+export const fieldLabel = (code: FieldCode): string => NO_CLASS_LABEL[code] ?? vehicleFieldClass(code);
+
+/** Shown with the cautions wherever vehicle fields are shown: the sheet's sentence (shared/cautions.ts). */
+export { VEHICLE_FIELDS_NOTE as PLANNING_LINE } from '@/shared/cautions';
 
 export const RULE_SET_ORDER: readonly RuleSetId[] = ['eu-retrofit', 'un-r46', 'fmvss-111', 'iso-5006'];
 /** Short names for the rule-set chips; the full title and description come from RULE_SETS. */

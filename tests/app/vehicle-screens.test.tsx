@@ -6,15 +6,14 @@ import '@testing-library/jest-dom';
 import { fireEvent, render, screen, waitFor } from '@testing-library/react';
 import { ProjectWorkspace } from '@/components/plan/project-workspace';
 import { ProjectForm } from '@/components/projects/project-form';
-import { FIELD_CLASS } from '@/components/vehicle/vehicle-words';
+import { fieldLabel } from '@/components/vehicle/vehicle-words';
 import { useIsWide } from '@/hooks/use-breakpoint';
 import { catalogKeys, useCatalogQuery } from '@/hooks/use-catalog';
 import { projectKeys, useProjectQuery } from '@/hooks/use-projects';
 import { sessionKeys } from '@/hooks/use-session';
-import { CAUTION_SENTENCES } from '@/shared/cautions';
-import { evaluateVehicleJob } from '@/shared/project-optics';
+import { CAUTION_SENTENCES, VEHICLE_FIELDS_NOTE } from '@/shared/cautions';
+import { evaluateVehicleJob, formatFieldShare } from '@/shared/project-optics';
 import type { CreateProjectBody, PlacementDto, ProjectDto, UserDto } from '@/shared/schemas';
-import { formatCoveredShare } from '@/shared/zone-verdict';
 import { DEMO_TRUCK } from '../../server/seeders/demo-vehicles';
 import { demoCatalogueDtos } from './fixtures';
 import { makeTestQueryClient, renderWithQuery } from './render';
@@ -106,7 +105,7 @@ describe('a vehicle job’s screen', () => {
     );
     for (const s of expected.fields) {
       expect(screen.getByTestId(`vehicle-field-label-${s.field.id}`)).toHaveTextContent(
-        `${FIELD_CLASS[s.field.code]} ${formatCoveredShare(s.share)}`,
+        `${fieldLabel(s.field.code)} ${formatFieldShare(s.share)}`,
       );
     }
   });
@@ -123,15 +122,15 @@ describe('a vehicle job’s screen', () => {
     expect(row).toHaveTextContent('UN Regulation No. 46 · class V');
     expect(row).toHaveTextContent('[M] from memory, fairly sure');
     // The EU retrofit rule (Directive 2007/38/EC): at least 85 % of the class V field.
-    expect(row).toHaveTextContent('Needs 85 %');
-    expect(screen.getByTestId('vehicle-field-share-un-v-left')).toHaveTextContent(formatCoveredShare(v.share));
+    expect(row).toHaveTextContent('Needs 85.0 %');
+    expect(screen.getByTestId('vehicle-field-share-un-v-left')).toHaveTextContent(formatFieldShare(v.share));
     // The demo truck's close-proximity mirror is fitted too flat on purpose (its seeder's note): short.
     expect(screen.getByTestId('vehicle-field-verdict-un-v-left')).toHaveTextContent('Short');
   });
 
   it('shows the planning line and all four cautions in the details beside the top view on a wide screen', () => {
     renderJob(project);
-    expect(screen.getByTestId('vehicle-planning-line')).toHaveTextContent(/type approval and the local rules decide/);
+    expect(screen.getByTestId('vehicle-planning-line')).toHaveTextContent(VEHICLE_FIELDS_NOTE);
     for (const sentence of CAUTION_SENTENCES) expect(screen.getByTestId('safety-cautions')).toHaveTextContent(sentence);
   });
 
@@ -140,7 +139,7 @@ describe('a vehicle job’s screen', () => {
     renderJob(project);
     expect(screen.getByTestId('vehicle-drawer-caution')).toHaveTextContent(/type approval and local rules decide/);
     const v = expected.fields.find((f) => f.field.id === 'un-v-left')!;
-    expect(screen.getByTestId('vehicle-drawer-numbers')).toHaveTextContent(`V passenger ${formatCoveredShare(v.share)} short`);
+    expect(screen.getByTestId('vehicle-drawer-numbers')).toHaveTextContent(`V passenger ${formatFieldShare(v.share)} short`);
   });
 });
 
