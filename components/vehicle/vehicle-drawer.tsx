@@ -11,12 +11,16 @@ import type { VehicleEvaluation, VehiclePlacement } from '@/hooks/use-vehicle-ev
 import { formatFieldShare, verdictText } from '@/shared/project-optics';
 import { fieldLabel } from './vehicle-words';
 
-/** "V right 81 % short · IV right 97 % passes": the fields that have a verdict first. */
+/**
+ * "V passenger 98.5 % pass · IV passenger 5.4 % short · …": the fields the mirrors show most of
+ * first, so the ones being worked on stay in the folded strip's lines.
+ */
 export function fieldsSummary(e: VehicleEvaluation | null): string {
   if (!e) return '';
   if (!e.score) return e.problem ?? '';
   if (e.score.fields.length === 0) return 'No ground fields under this rule set';
-  return e.score.fields
+  return [...e.score.fields]
+    .sort((a, b) => b.share - a.share)
     .map((s) => {
       const side = s.field.side === null ? '' : s.field.side === e.geometry.passengerSide ? ' passenger' : ' driver';
       return `${fieldLabel(s.field.code)}${side} ${formatFieldShare(s.share)} ${verdictText(s.verdict)}`;
@@ -50,7 +54,7 @@ export function VehicleDrawer(p: VehicleDrawerProps) {
             <AppText variant="label" numberOfLines={1} testID="vehicle-drawer-title">
               {p.selected ? `Mirror ${p.selected.label}` : 'Fields and verdicts'}
             </AppText>
-            <AppText variant="small" tone="muted" numberOfLines={p.open ? 3 : 2} testID="vehicle-drawer-numbers">
+            <AppText variant="small" tone="muted" numberOfLines={3} testID="vehicle-drawer-numbers">
               {fieldsSummary(p.evaluation)}
             </AppText>
             {p.open ? null : (

@@ -135,6 +135,10 @@ describe('an installer on a phone fits a truck with a close-proximity mirror', (
     await expect(byTestId(page, 'vehicle-planning-line').isVisible()).resolves.toBe(true);
     await expect(byTestId(page, 'safety-cautions').isVisible()).resolves.toBe(true);
     await shot(page, 'vehicle-phone-drawer');
+    await byTestId(page, 'vehicle-mirror-editor').scrollIntoViewIfNeeded();
+    await shot(page, 'vehicle-phone-mirror');
+    await byTestId(page, 'vehicle-side-view').scrollIntoViewIfNeeded();
+    await shot(page, 'vehicle-phone-side');
   });
 
   it('finds the class V field, its share and its verdict in the sheet’s text', async () => {
