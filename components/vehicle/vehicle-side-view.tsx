@@ -51,9 +51,7 @@ export function VehicleSideView({ evaluation, placements, selectedId, units }: V
           strokeWidth={1}
           strokeDasharray="5 4"
         />
-        <SvgText x={sx(rear) + 2} y={sz(LOW_MIRROR_M) - 4} fontFamily={fonts.medium} fontSize={11} fill={palette.stop}>
-          {`${len(LOW_MIRROR_M)}: lowest edge of class V and VI`}
-        </SvgText>
+
         {g.boxes.map((b) => {
           const x0 = sx(-b.box.rearBehindM);
           const x1 = sx(-b.box.frontBehindM);
@@ -93,9 +91,11 @@ export function VehicleSideView({ evaluation, placements, selectedId, units }: V
           />
         ) : null}
         <Circle cx={sx(eye[0])} cy={sz(eye[2])} r={4.5} fill={palette.beacon} stroke={palette.asphalt} strokeWidth={1.5} />
-        <SvgText x={sx(eye[0])} y={sz(eye[2]) - 8} textAnchor="middle" fontFamily={fonts.semibold} fontSize={11} fill={palette.asphalt}>
+        {/* Labels sit in the strips above the body and below the ground, where nothing else is drawn. */}
+        <SvgText x={sx(eye[0])} y={PAD.top - 3} textAnchor="middle" fontFamily={fonts.semibold} fontSize={11} fill={palette.asphalt}>
           {`eye ${len(eye[2])}`}
         </SvgText>
+        <Line x1={sx(eye[0])} y1={PAD.top} x2={sx(eye[0])} y2={sz(eye[2]) - 5} stroke={palette.haze} strokeWidth={1} />
         {placements.map((p) => {
           const on = p.id === selectedId;
           return (
@@ -125,6 +125,9 @@ export function VehicleSideView({ evaluation, placements, selectedId, units }: V
           );
         })}
       </Svg>
+      <AppText variant="small" tone="muted">
+        {`Dashed red line: ${len(LOW_MIRROR_M)}, under which no part of a class V or VI mirror should hang (UN R46). Shaded blue: glass.`}
+      </AppText>
     </View>
   );
 }
