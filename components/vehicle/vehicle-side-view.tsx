@@ -111,8 +111,8 @@ export function VehicleSideView({ evaluation, placements, selectedId, units }: V
               />
               {on ? (
                 <SvgText
-                  x={sx(p.positionM[0]) - 6}
-                  y={sz(p.heightM) + 4}
+                  x={Math.min(width - 4, sx(p.positionM[0]) + 4)}
+                  y={sz(0) + 15}
                   textAnchor="end"
                   fontFamily={fonts.semibold}
                   fontSize={11}
