@@ -80,6 +80,8 @@ describe('an installer on a phone fits a truck with a close-proximity mirror', (
     // The preset's length, as the installer would check it with a tape.
     expect(await byTestId(page, 'vehicle-lengthM').inputValue()).toMatch(/^10(\.0+)? m$/);
     await shot(page, 'vehicle-phone-form');
+    await byTestId(page, 'vehicle-eyeHeightM').scrollIntoViewIfNeeded();
+    await shot(page, 'vehicle-phone-form-eye');
     await byTestId(page, 'project-form-submit').click();
     await page.waitForURL(/\/projects\/\d+$/);
     projectId = page.url().match(/projects\/(\d+)/)![1];
