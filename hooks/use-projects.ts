@@ -89,7 +89,17 @@ export const placementScope = (projectId: number) => ({ id: `project-${projectId
 /** The fields of a placement a person edits; a save sends only those that changed. */
 export type EditableFields = Pick<
   PlacementDto,
-  'label' | 'catalogueItemId' | 'customMirror' | 'positionM' | 'heightM' | 'azimuthRad' | 'tiltDownRad' | 'viewerId' | 'notes'
+  | 'label'
+  | 'catalogueItemId'
+  | 'customMirror'
+  | 'positionM'
+  | 'heightM'
+  | 'azimuthRad'
+  | 'tiltDownRad'
+  | 'viewerId'
+  | 'notes'
+  | 'mirrorClass'
+  | 'servesFieldIds'
 >;
 export type PlacementEdits = Partial<EditableFields>;
 

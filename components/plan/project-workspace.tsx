@@ -8,6 +8,7 @@ import { Button, CenteredMessage, TextLink } from '@/components/ui';
 import { ApiError } from '@/shared/api-client';
 import { describeError } from '@/shared/errors';
 import type { CatalogueItemDto, ProjectDto } from '@/shared/schemas';
+import { VehicleWorkspace } from '@/components/vehicle/vehicle-workspace';
 import { Workspace } from './workspace';
 
 export interface ProjectWorkspaceProps {
@@ -46,5 +47,6 @@ export function ProjectWorkspace({ projectId, project, catalogue }: ProjectWorks
     );
   }
   if (!project.data || !catalogue.data) return <CenteredMessage loading title="Opening the plan…" testID="project-loading" />;
+  if (project.data.kind === 'vehicle') return <VehicleWorkspace key={project.data.id} project={project.data} catalogue={catalogue.data} />;
   return <Workspace key={project.data.id} project={project.data} catalogue={catalogue.data} />;
 }

@@ -13,16 +13,29 @@ import { AppText } from '@/components/ui/text';
 import { spacing } from '@/constants/theme';
 import type { CreateProjectBody } from '@/shared/schemas';
 import type { UnitSystem } from '@/shared/units';
+import { VehicleSetupFields } from '@/components/vehicle/vehicle-setup-fields';
+import {
+  presetValues,
+  VEHICLE_FIELDS,
+  vehicleOfValues,
+  vehicleSchemaFields,
+  type VehicleSetupValues,
+} from '@/components/vehicle/vehicle-setup';
 
 export type UnitsChoice = 'mine' | UnitSystem;
 
-export interface ProjectFormValues {
+export type ProjectKindChoice = 'site' | 'vehicle';
+
+export interface ProjectFormValues extends VehicleSetupValues {
+  kind: ProjectKindChoice;
   name: string;
   customer: string;
   site: string;
   units: UnitsChoice;
   notes: string;
 }
+
+const KIND_MESSAGE = 'Choose a site or a vehicle.';
 
 /** The server's rules (shared/schemas/rules.ts), so mistakes are caught before sending, in the same words. */
 export const projectSchema = yup.object({
@@ -31,17 +44,31 @@ export const projectSchema = yup.object({
   site: yupText(projectRules.site),
   units: yup.string().oneOf(['mine', 'metric', 'imperial'], UNITS_MESSAGE).required(UNITS_MESSAGE),
   notes: yupText(projectRules.notes),
+  kind: yup.string().oneOf(['site', 'vehicle'], KIND_MESSAGE).required(KIND_MESSAGE),
+  ...vehicleSchemaFields(),
 });
 
 export function toCreateBody(v: ProjectFormValues): CreateProjectBody {
-  return {
+  const common = {
     name: v.name.trim(),
     customer: v.customer.trim(),
     site: v.site.trim(),
     units: v.units === 'mine' ? null : v.units,
     notes: v.notes,
   };
+  if (v.kind === 'site') return common;
+  return { ...common, kind: 'vehicle', scene: { walls: [], zones: [], viewers: [], vehicle: vehicleOfValues(v), ruleSet: v.ruleSet } };
 }
+
+export const initialProjectValues = (): ProjectFormValues => ({
+  kind: 'site',
+  name: '',
+  customer: '',
+  site: '',
+  units: 'mine',
+  notes: '',
+  ...presetValues('rigid-truck', 'left'),
+});
 
 export interface ProjectFormProps {
   /** Resolves with the new project's id; rejects with the server's error. */
@@ -49,14 +76,14 @@ export interface ProjectFormProps {
   myUnits: UnitSystem;
 }
 
-const FIELDS = ['name', 'customer', 'site', 'units', 'notes'] as const;
+const FIELDS = ['kind', 'name', 'customer', 'site', 'units', 'notes', ...VEHICLE_FIELDS] as const;
 
 export function ProjectForm({ onSubmit, myUnits }: ProjectFormProps) {
   const customerRef = useRef<TextInput>(null);
   const siteRef = useRef<TextInput>(null);
   return (
     <Formik<ProjectFormValues>
-      initialValues={{ name: '', customer: '', site: '', units: 'mine', notes: '' }}
+      initialValues={initialProjectValues()}
       validationSchema={projectSchema}
       onSubmit={async (values, helpers) => {
         await submitWithServerErrors(helpers, FIELDS, values, () => onSubmit(toCreateBody(values)));
@@ -66,6 +93,19 @@ export function ProjectForm({ onSubmit, myUnits }: ProjectFormProps) {
         const { values, handleSubmit, setFieldValue } = form;
         return (
           <FormFrame label="New project" onSubmit={handleSubmit} testID="project-form">
+            <View style={styles.field}>
+              <AppText variant="label">What the mirrors are for</AppText>
+              <Segmented<ProjectKindChoice>
+                label="What the mirrors are for"
+                stretch
+                value={values.kind}
+                onChange={(k) => void setFieldValue('kind', k)}
+                options={[
+                  { value: 'site', label: 'A site or building', testID: 'project-form-kind-site' },
+                  { value: 'vehicle', label: 'A vehicle', testID: 'project-form-kind-vehicle' },
+                ]}
+              />
+            </View>
             <FormikTextField
               form={form}
               name="name"
@@ -95,6 +135,7 @@ export function ProjectForm({ onSubmit, myUnits }: ProjectFormProps) {
               placeholder="Address, building, or the vehicle's fleet number"
               enterKeyHint="done"
             />
+            {values.kind === 'vehicle' ? <VehicleSetupFields form={form} units={values.units === 'mine' ? myUnits : values.units} /> : null}
             <View style={styles.field}>
               <AppText variant="label">Units for this project</AppText>
               <AppText variant="small" tone="muted">

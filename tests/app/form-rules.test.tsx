@@ -13,7 +13,9 @@ import { forgotPasswordSchema, type ForgotPasswordValues } from '@/components/fo
 import { inviteBodyOf, inviteSchema, type InviteValues } from '@/components/forms/invite-form';
 import { setPasswordSchema, type SetPasswordValues } from '@/components/forms/set-password-form';
 import { signInSchema, type SignInValues } from '@/components/forms/sign-in-form';
-import { projectSchema, toCreateBody, type ProjectFormValues } from '@/components/projects/project-form';
+import { initialProjectValues, projectSchema, toCreateBody, type ProjectFormValues } from '@/components/projects/project-form';
+import { formFieldOf, presetValues, VEHICLE_FIELDS } from '@/components/vehicle/vehicle-setup';
+import { vehicleKinds, type DriverSide } from '@/shared/schemas/vehicle';
 import { sheetEmailBodyOf, sheetEmailSchema, type SheetEmailValues } from '@/components/sheet/sheet-actions';
 import {
   acceptInvitationBody,
@@ -31,6 +33,12 @@ import { catalogueRules, emailRule, MIRROR_SIZES, type TextRule } from '@/shared
 import { minorToText } from '@/shared/units';
 
 const RUNS = 300;
+
+/** The vehicle part of the project form, held at a preset (the site case leaves it untouched). */
+const presetRecord = Object.fromEntries(Object.entries(presetValues('rigid-truck', 'left')).map(([k, v]) => [k, fc.constant(v)])) as {
+  [K in keyof ReturnType<typeof presetValues>]: fc.Arbitrary<ReturnType<typeof presetValues>[K]>;
+};
+const VEHICLE_NUMBERS = ['lengthM', 'widthM', 'cabWidthM', 'cabFrontBehindM', 'eyeBehindFrontM', 'eyeFromCentreM', 'eyeHeightM'] as const;
 
 async function formErrors<V extends object>(schema: ObjectSchema<AnyObject>, values: V): Promise<Record<string, string>> {
   try {
@@ -173,6 +181,8 @@ describe('each form refuses what its route refuses, with the same sentence per f
 
   it('new-project form and POST /projects', async () => {
     const arb = fc.record<ProjectFormValues>({
+      ...presetRecord,
+      kind: fc.constant('site'),
       name: textFor({ trim: true, maxLength: { value: 80, message: '' } }),
       customer: textFor({ trim: true, maxLength: { value: 160, message: '' } }),
       site: textFor({ trim: true, maxLength: { value: 200, message: '' } }),
@@ -184,6 +194,49 @@ describe('each form refuses what its route refuses, with the same sentence per f
       (v) => formErrors(projectSchema, v),
       (v) => routeErrors(createProjectBody, toCreateBody(v)),
       ['name', 'customer', 'site', 'units', 'notes'],
+    );
+  });
+
+  it('new-project form for a vehicle and POST /projects: each measurement refused by both with the same sentence', async () => {
+    // Lengths across and past the schema's ranges (0–40 m, negative, empty) on any kind's preset and either drive side.
+    const length = fc.oneof(
+      fc.constant(null),
+      fc.double({ min: -1, max: 45, noNaN: true }),
+      fc.constantFrom(0, 0.05, 0.5, 2, 3.5, 3.6, 10, 30, 40, 40.01),
+    );
+    const arb = fc
+      .record({
+        kind: fc.constantFrom(...vehicleKinds),
+        side: fc.constantFrom<DriverSide>('left', 'right'),
+        eyeMethod: fc.constantFrom<'seat' | 'direct'>('seat', 'direct'),
+        change: fc.array(fc.tuple(fc.constantFrom(...VEHICLE_NUMBERS), length), { maxLength: 3 }),
+      })
+      .map(({ kind, side, eyeMethod, change }): ProjectFormValues => {
+        const values: ProjectFormValues = {
+          ...initialProjectValues(),
+          kind: 'vehicle',
+          name: 'Truck 7',
+          ...presetValues(kind, side),
+          eyeMethod,
+        };
+        for (const [field, value] of change) values[field] = value;
+        return values;
+      });
+    await expectSameVerdicts(
+      arb,
+      (v) => formErrors(projectSchema, v),
+      (v) => {
+        const r = createProjectBody.safeParse(toCreateBody(v));
+        if (r.success) return {};
+        const out: Record<string, string> = {};
+        for (const issue of r.error.issues) {
+          const [head, sub, ...rest] = issue.path;
+          if (head !== 'scene' || sub !== 'vehicle') throw new Error(`unexpected route error at ${issue.path.join('.')}`);
+          out[formFieldOf(rest)] ??= issue.message;
+        }
+        return out;
+      },
+      VEHICLE_FIELDS,
     );
   });
 

@@ -1,0 +1,251 @@
+/**
+ * The vehicle's top view for one view, forward up: the ground fields as outlined areas with their
+ * share, the parts no mirror shows hatched, the body boxes, the driver's two eye points, the
+ * mirrors with their aim, and a scale bar. Draws only; the canvas owns gestures and the view.
+ */
+import { useMemo } from 'react';
+import { StyleSheet } from 'react-native';
+import Svg, { Circle, Defs, G, Line, Path, Pattern, Rect, Text as SvgText } from 'react-native-svg';
+import { fonts, palette } from '@/constants/theme';
+import type { VehicleEvaluation, VehiclePlacement } from '@/hooks/use-vehicle-evaluation';
+import type { MultiPolygon } from '@/shared/geometry/polygon';
+import type { FieldScore } from '@/shared/vehicle';
+import { formatFieldShare } from '@/shared/project-optics';
+import type { UnitSystem } from '@/shared/units';
+import { alongAzimuth, gridLines, multiPolygonToPath, ringsToPath, scaleBar } from '@/components/plan/plan-geometry';
+import { AIM_HANDLE_PX, toScreen, type PlanView, type Size } from '@/components/plan/plan-view';
+import { azimuthToDisplay, polygonToDisplay, ringCentroid, ringToDisplay, toDisplay } from './vehicle-frame';
+import { fieldLabel } from './vehicle-words';
+
+const HATCH_ID = 'vehicle-gap-hatch';
+const MARKER_PX = 13;
+
+export interface VehicleDrawingProps {
+  evaluation: VehicleEvaluation;
+  placements: readonly VehiclePlacement[];
+  selectedId: number | null;
+  canEdit: boolean;
+  units: UnitSystem;
+  view: PlanView;
+  size: Size;
+}
+
+const verdictColour = (v: string | undefined) => (v === 'pass' ? palette.go : v === 'short' ? palette.stop : palette.glass);
+
+export function VehicleDrawing({ evaluation, placements, selectedId, canEdit, units, view, size }: VehicleDrawingProps) {
+  const grid = useMemo(() => gridLines(view, size, units), [view, size, units]);
+  const bar = scaleBar(view, units);
+  const scores = useMemo(() => new Map((evaluation.score?.fields ?? []).map((s) => [s.field.id, s])), [evaluation.score]);
+  const fieldsD = useMemo(
+    () => evaluation.fields.map((f) => ({ f, d: ringsToPath(view, polygonToDisplay(f.polygonM)) })),
+    [evaluation.fields, view],
+  );
+  const gapsD = useMemo(
+    () =>
+      (evaluation.score?.fields ?? []).map((s) => ({
+        id: s.field.id,
+        d: multiPolygonToPath(view, s.gapsM.map((p) => polygonToDisplay(p)) as MultiPolygon),
+      })),
+    [evaluation.score, view],
+  );
+  // What the selected mirror shows the driver on the ground (from either eye), under the gaps.
+  const footprintD = useMemo(() => {
+    const region = selectedId === null ? null : evaluation.mirrors.get(selectedId)?.coverage?.region;
+    return region ? multiPolygonToPath(view, region.map((p) => polygonToDisplay(p)) as MultiPolygon) : '';
+  }, [evaluation.mirrors, selectedId, view]);
+  const g = evaluation.geometry;
+  const outline = ringsToPath(view, [ringToDisplay(g.outline)]);
+  const selected = placements.find((p) => p.id === selectedId);
+
+  return (
+    <Svg testID="vehicle-canvas" width={size.width} height={size.height} style={styles.svg}>
+      <Defs>
+        <Pattern id={HATCH_ID} patternUnits="userSpaceOnUse" width={8} height={8} patternTransform="rotate(-35)">
+          <Line x1={0} y1={0} x2={0} y2={8} stroke={palette.stop} strokeWidth={2.5} strokeOpacity={0.7} />
+        </Pattern>
+      </Defs>
+      <Rect x={0} y={0} width={size.width} height={size.height} fill={palette.card} />
+      <Path pointerEvents="none" d={grid.minor} stroke={palette.ruleSoft} strokeWidth={1} />
+      <Path pointerEvents="none" d={grid.major} stroke={palette.rule} strokeWidth={1.2} />
+      <G pointerEvents="none">
+        {fieldsD.map(({ f, d }) => (
+          <Path
+            key={f.id}
+            testID={`vehicle-field-${f.id}`}
+            d={d}
+            fillRule="evenodd"
+            fill={palette.glassSoft}
+            fillOpacity={0.45}
+            stroke={verdictColour(scores.get(f.id)?.verdict)}
+            strokeWidth={2}
+            strokeDasharray="7 4"
+          />
+        ))}
+        {footprintD ? (
+          <Path
+            testID="vehicle-footprint"
+            d={footprintD}
+            fillRule="evenodd"
+            fill={palette.glass}
+            fillOpacity={0.22}
+            stroke={palette.glass}
+            strokeWidth={1}
+          />
+        ) : null}
+        {gapsD.map(({ id, d }) =>
+          d ? <Path key={id} testID={`vehicle-gap-${id}`} d={d} fillRule="evenodd" fill={`url(#${HATCH_ID})`} /> : null,
+        )}
+        {g.boxes.map((b) => (
+          <Path
+            key={b.box.id}
+            d={ringsToPath(view, [ringToDisplay(b.ring)])}
+            fill={b.box.windowLineM !== null ? palette.asphaltRaised : palette.rule}
+            fillOpacity={b.box.windowLineM !== null ? 0.85 : 0.9}
+            stroke={palette.asphalt}
+            strokeWidth={1.5}
+          />
+        ))}
+        <Path d={outline} fill="none" stroke={palette.asphalt} strokeWidth={2} />
+        <EyePoints evaluation={evaluation} view={view} />
+        {fieldLabels(evaluation, scores, view).map(({ id, text, x, y, w, verdict }) => (
+          <G key={id}>
+            <Rect x={x - w / 2} y={y - 11} width={w} height={20} rx={4} fill={palette.card} fillOpacity={0.92} />
+            <SvgText
+              testID={`vehicle-field-label-${id}`}
+              x={x}
+              y={y + 4}
+              textAnchor="middle"
+              fontFamily={fonts.semibold}
+              fontSize={12}
+              fill={verdictColour(verdict)}
+            >
+              {text}
+            </SvgText>
+          </G>
+        ))}
+      </G>
+      {placements.map((p) => (
+        <MirrorMarker
+          key={p.id}
+          placement={p}
+          view={view}
+          selected={p.id === selectedId}
+          problem={evaluation.mirrors.get(p.id)?.problem?.message ?? null}
+        />
+      ))}
+      {selected && canEdit ? <AimHandle placement={selected} view={view} /> : null}
+      <G pointerEvents="none">
+        <Rect x={12} y={10} width={bar.lengthPx + 16} height={34} rx={6} fill={palette.card} fillOpacity={0.9} />
+        <Path d={`M20 24V34H${20 + bar.lengthPx}V24`} stroke={palette.asphalt} strokeWidth={2.5} fill="none" />
+        <SvgText testID="vehicle-scale-label" x={20} y={22} fontFamily={fonts.semibold} fontSize={12} fill={palette.asphalt}>
+          {bar.label}
+        </SvgText>
+      </G>
+    </Svg>
+  );
+}
+
+/**
+ * Each field's label ("V 81 %") at the middle of its area (a ring with a hole: at its outer
+ * corner), in screen pixels; a label that would sit on one placed before it moves down a line.
+ */
+export function fieldLabels(
+  evaluation: Pick<VehicleEvaluation, 'fields'>,
+  scores: ReadonlyMap<string, FieldScore>,
+  view: PlanView,
+): { id: string; text: string; x: number; y: number; w: number; verdict: FieldScore['verdict'] | undefined }[] {
+  const placed: { id: string; text: string; x: number; y: number; w: number; verdict: FieldScore['verdict'] | undefined }[] = [];
+  for (const f of evaluation.fields) {
+    const s = scores.get(f.id);
+    const anchor = f.polygonM.length > 1 ? f.polygonM[0][0] : ringCentroid(f.polygonM[0]);
+    const [x, y0] = toScreen(view, toDisplay(anchor));
+    const text = `${fieldLabel(f.code)} ${s ? formatFieldShare(s.share) : '—'}`;
+    const w = text.length * 6.8 + 8;
+    let y = y0;
+    for (let tries = 0; tries < 6; tries++) {
+      const clash = placed.find((p) => Math.abs(p.y - y) < 21 && Math.abs(p.x - x) < (p.w + w) / 2);
+      if (!clash) break;
+      y = clash.y + 22;
+    }
+    placed.push({ id: f.id, text, x, y, w, verdict: s?.verdict });
+  }
+  return placed;
+}
+
+function EyePoints({ evaluation, view }: { evaluation: VehicleEvaluation; view: PlanView }) {
+  const [a, b] = evaluation.geometry.ocularM;
+  const pa = toScreen(view, toDisplay([a[0], a[1]]));
+  const pb = toScreen(view, toDisplay([b[0], b[1]]));
+  // The two points are 65 mm apart: drawn at least 8 px apart so both stay visible at any zoom.
+  const mid: [number, number] = [(pa[0] + pb[0]) / 2, (pa[1] + pb[1]) / 2];
+  const half = Math.max(4, Math.hypot(pa[0] - pb[0], pa[1] - pb[1]) / 2);
+  return (
+    <G testID="vehicle-eyes">
+      <Circle cx={mid[0] - half} cy={mid[1]} r={3.5} fill={palette.beacon} stroke={palette.asphalt} strokeWidth={1.2} />
+      <Circle cx={mid[0] + half} cy={mid[1]} r={3.5} fill={palette.beacon} stroke={palette.asphalt} strokeWidth={1.2} />
+      <SvgText x={mid[0]} y={mid[1] - 8} textAnchor="middle" fontFamily={fonts.semibold} fontSize={11} fill={palette.onAsphalt}>
+        eyes
+      </SvgText>
+    </G>
+  );
+}
+
+/** A mirror as a short bar across its aim with a notch toward where it looks; red when it cannot be computed. */
+function MirrorMarker({
+  placement,
+  view,
+  selected,
+  problem,
+}: {
+  placement: VehiclePlacement;
+  view: PlanView;
+  selected: boolean;
+  problem: string | null;
+}) {
+  const c = toScreen(view, toDisplay(placement.positionM));
+  const az = azimuthToDisplay(placement.azimuthRad);
+  const across = alongAzimuth([0, 0], az + Math.PI / 2, MARKER_PX);
+  const ahead = alongAzimuth(c, az, MARKER_PX * 0.9);
+  const colour = problem ? palette.stop : palette.glass;
+  return (
+    <G testID={`vehicle-marker-${placement.id}`} pointerEvents="none">
+      <Circle
+        cx={c[0]}
+        cy={c[1]}
+        r={MARKER_PX + 5}
+        fill={selected ? palette.beaconSoft : palette.card}
+        fillOpacity={0.85}
+        stroke={selected ? palette.beaconPressed : 'none'}
+        strokeWidth={2}
+      />
+      <Line
+        x1={c[0] - across[0]}
+        y1={c[1] - across[1]}
+        x2={c[0] + across[0]}
+        y2={c[1] + across[1]}
+        stroke={colour}
+        strokeWidth={5}
+        strokeLinecap="round"
+      />
+      <Line x1={c[0]} y1={c[1]} x2={ahead[0]} y2={ahead[1]} stroke={colour} strokeWidth={2.5} />
+      <SvgText x={c[0]} y={c[1] + MARKER_PX + 18} textAnchor="middle" fontFamily={fonts.semibold} fontSize={12} fill={palette.asphalt}>
+        {placement.label}
+      </SvgText>
+    </G>
+  );
+}
+
+function AimHandle({ placement, view }: { placement: VehiclePlacement; view: PlanView }) {
+  const c = toScreen(view, toDisplay(placement.positionM));
+  const end = alongAzimuth(c, azimuthToDisplay(placement.azimuthRad), AIM_HANDLE_PX);
+  return (
+    <G testID="vehicle-aim-handle" pointerEvents="none">
+      <Line x1={c[0]} y1={c[1]} x2={end[0]} y2={end[1]} stroke={palette.beaconPressed} strokeWidth={2.5} strokeDasharray="4 3" />
+      <Circle cx={end[0]} cy={end[1]} r={11} fill={palette.beacon} stroke={palette.asphalt} strokeWidth={2} />
+    </G>
+  );
+}
+
+const styles = StyleSheet.create({
+  svg: { position: 'absolute', left: 0, top: 0 },
+});

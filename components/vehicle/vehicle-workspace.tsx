@@ -1,0 +1,166 @@
+/**
+ * A vehicle job's screen. Phone: the top view fills the screen with the tools at the bottom and the
+ * details in a drawer whose folded strip keeps the verdicts and the planning line in view. Wide:
+ * the top view left, details right. Edits go through the plan's edit hook and the one placement
+ * write path (hooks/use-placement-writes.ts), as on a site plan.
+ */
+import { useCallback, useLayoutEffect, useState } from 'react';
+import { useDisplayUnits } from '@/components/placement/use-display-units';
+import { markRedrawEnd } from '@/components/plan/perf-marks';
+import { PlanNotices } from '@/components/plan/plan-notices';
+import type { PairM } from '@/components/plan/plan-view';
+import { WorkspaceHeader } from '@/components/plan/workspace-header';
+import { PhoneWorkspace, WideWorkspace } from '@/components/plan/workspace-layouts';
+import { Notice } from '@/components/ui';
+import { useIsWide } from '@/hooks/use-breakpoint';
+import { usePlanEdits } from '@/hooks/use-plan-edits';
+import { useVehicleEvaluation } from '@/hooks/use-vehicle-evaluation';
+import type { CatalogueItemDto, MirrorClass, ProjectDto } from '@/shared/schemas';
+import { SCENE_LIMITS, LIMIT_MESSAGES } from '@/shared/schemas/limits';
+import type { RuleSetId } from '@/shared/vehicle';
+import { VehicleCanvas, type VehicleDrag } from './vehicle-canvas';
+import { VehicleDetails } from './vehicle-details';
+import { VehicleDrawer } from './vehicle-drawer';
+import { newVehicleMirrorBody } from './vehicle-mirrors';
+import { VehicleToolbar } from './vehicle-toolbar';
+
+const round3 = (m: number) => Math.round(m * 1000) / 1000;
+const round4 = (r: number) => Math.round(r * 1e4) / 1e4;
+
+export function VehicleWorkspace({ project, catalogue }: { project: ProjectDto; catalogue: CatalogueItemDto[] }) {
+  const wide = useIsWide();
+  const units = useDisplayUnits(project);
+  const edits = usePlanEdits(project);
+  const evaluation = useVehicleEvaluation(edits.scene, edits.placements, catalogue);
+  const canEdit = project.canEdit;
+  const [selectedId, setSelectedId] = useState<number | null>(null);
+  const [adding, setAdding] = useState(false);
+  const [addClass, setAddClass] = useState<MirrorClass>('V');
+  const [localProblem, setLocalProblem] = useState<string | null>(null);
+  const [drawerOpen, setDrawerOpen] = useState(false);
+
+  useLayoutEffect(() => {
+    if (edits.dragPreview) markRedrawEnd();
+  }, [edits.dragPreview]);
+
+  const onTapPlan = (pointM: PairM) => {
+    setLocalProblem(null);
+    if (!adding || !evaluation) return;
+    if (edits.placements.length >= SCENE_LIMITS.mirrors) return setLocalProblem(LIMIT_MESSAGES.mirrors);
+    const body = newVehicleMirrorBody(pointM, addClass, evaluation.geometry, evaluation.fields, edits.placements.length);
+    void edits.createPlacement(body).then((created) => {
+      if (!created) return;
+      setSelectedId(created.id);
+      setAdding(false);
+    });
+  };
+
+  const { setDragPreview, savePlacement } = edits;
+  const onDrag = useCallback(
+    (d: VehicleDrag) => {
+      const patch =
+        d.kind === 'move' ? { positionM: [round3(d.positionM[0]), round3(d.positionM[1])] as PairM } : { azimuthRad: round4(d.azimuthRad) };
+      if (!d.done) return setDragPreview({ kind: 'placement', id: d.id, patch });
+      setDragPreview(null);
+      void savePlacement(d.id, patch);
+    },
+    [setDragPreview, savePlacement],
+  );
+
+  const base = edits.baseScene;
+  const onRuleSet = (ruleSet: RuleSetId) => void edits.saveScene({ ...base, ruleSet });
+  const deleteMirror = (id: number) => {
+    setSelectedId(null);
+    void edits.deletePlacement(id);
+  };
+  // On a phone the drawer stays folded when a mirror is picked: its strip names the mirror and the
+  // verdicts, and the top view stays clear for the drag that usually follows.
+  const select = (id: number | null) => setSelectedId(id);
+
+  if (!evaluation) {
+    return (
+      <Notice tone="stop" testID="vehicle-missing">
+        This vehicle job has no vehicle in its plan; start a new vehicle job.
+      </Notice>
+    );
+  }
+
+  const banner = (
+    <PlanNotices
+      saveProblem={edits.problem}
+      onDismissSaveProblem={edits.dismissProblem}
+      writes={edits.writes}
+      placements={edits.placements}
+      editorOpenFor={null}
+      toolProblem={localProblem}
+      catalogue={catalogue}
+      units={units}
+    />
+  );
+
+  const details = (
+    <VehicleDetails
+      projectId={project.id}
+      canEdit={canEdit}
+      evaluation={evaluation}
+      placements={edits.placements}
+      selectedId={selectedId}
+      units={units}
+      onRuleSet={onRuleSet}
+      onChangeMirror={(id, patch, autosaveMs) => edits.writes.change(id, patch, autosaveMs)}
+      onDeleteMirror={deleteMirror}
+      onDeselect={() => setSelectedId(null)}
+    />
+  );
+
+  const toolbar = (
+    <VehicleToolbar
+      canEdit={canEdit}
+      adding={adding}
+      onAdding={(a) => {
+        setAdding(a);
+        setLocalProblem(null);
+      }}
+      addClass={addClass}
+      onAddClass={setAddClass}
+      canDelete={selectedId !== null}
+      onDelete={() => selectedId !== null && deleteMirror(selectedId)}
+    />
+  );
+
+  const canvas = (
+    <VehicleCanvas
+      evaluation={evaluation}
+      placements={edits.placements}
+      units={units}
+      adding={adding}
+      canEdit={canEdit}
+      selectedId={selectedId}
+      onSelect={select}
+      onTapPlan={onTapPlan}
+      onDrag={onDrag}
+      reserveBottom={adding ? 170 : 80}
+    />
+  );
+  const header = (
+    <WorkspaceHeader project={project} wide={wide} saving={edits.saving} failed={edits.problem !== null} unsaved={edits.unsaved} />
+  );
+  const parts = { title: project.name, header, canvas, overPlan: banner, toolbar };
+  if (wide) return <WideWorkspace {...parts} details={details} />;
+  return (
+    <PhoneWorkspace
+      {...parts}
+      drawerOpen={drawerOpen}
+      drawer={
+        <VehicleDrawer
+          open={drawerOpen}
+          onToggle={() => setDrawerOpen((o) => !o)}
+          evaluation={evaluation}
+          selected={edits.placements.find((p) => p.id === selectedId)}
+        >
+          {details}
+        </VehicleDrawer>
+      }
+    />
+  );
+}
