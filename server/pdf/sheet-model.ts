@@ -22,7 +22,7 @@ import {
   type ProjectEvaluation,
 } from '../../shared/project-optics';
 import type { CatalogueItemDto, MirrorSpec, PlacementDto, Scene, UnitSystem } from '../../shared/schemas';
-import { formatAngle, formatArea, formatLength, formatMoney, formatNumber, formatPercent, resolveUnits } from '../../shared/units';
+import { formatAngle, formatArea, formatLength, formatMoney, formatNumber, formatPercent, formatRange, resolveUnits } from '../../shared/units';
 import { formatCoveredShare } from '../../shared/zone-verdict';
 import { SHEET_CAUTIONS } from './cautions';
 
@@ -135,6 +135,8 @@ export interface SheetContent {
 export function sheetFormat(units: UnitSystem) {
   return {
     dist: (m: number) => formatLength(m, units, { kind: 'distance' }),
+    /** A detect / recognise range: down to a tape step (shared/units/tape.ts). */
+    range: (m: number) => formatRange(m, units),
     size: (m: number) => formatLength(m, units, { kind: 'size' }),
     angle: (rad: number) => formatAngle(rad),
     fine: (rad: number) => formatAngle(rad, { precision: 1 }),
@@ -240,10 +242,10 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
             sizeCueDistance: f.dist(r.sizeCueDistanceM),
             ratio: f.ratio(r.ratio),
           })),
-          rangeAdultDetect: f.dist(n.rangesM.detect.adult),
-          rangeAdultRecognise: f.dist(n.rangesM.recognise.adult),
-          rangeChildDetect: f.dist(n.rangesM.detect.child),
-          rangeChildRecognise: f.dist(n.rangesM.recognise.child),
+          rangeAdultDetect: f.range(n.rangesM.detect.adult),
+          rangeAdultRecognise: f.range(n.rangesM.recognise.adult),
+          rangeChildDetect: f.range(n.rangesM.detect.child),
+          rangeChildRecognise: f.range(n.rangesM.recognise.child),
           rimSqueeze: n.rimSqueeze > 0 ? f.percent(n.rimSqueeze) : 'rim out of sight',
           floorArea: ev.coverage ? f.area(ev.coverage.areaM2) : '—',
           floorSpread: n.floorSeen ? f.angle(n.floorSeen.spreadRad) : 'no floor seen',

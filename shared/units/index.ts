@@ -303,3 +303,4 @@ export function minorToText(minor: number, currency: string): string {
 }
 
 export { chooseScaleBar, SCALE_BAR_COUNTS, type ScaleBar } from './scale-bar';
+export { formatRange, rangeStepM, roundRangeDown, METRIC_FINE_BELOW_M, IMPERIAL_FINE_BELOW_M } from './tape';
