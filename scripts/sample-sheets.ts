@@ -43,7 +43,16 @@ export function demoSheetInput(units: UnitSystem): SheetInput {
     notes: '',
   }));
   return {
-    project: { id: 1, name: DEMO_PROJECT.name, customer: DEMO_PROJECT.customer, site: DEMO_PROJECT.site, kind: 'site', notes: DEMO_PROJECT.notes, units, scene: DEMO_PROJECT.scene },
+    project: {
+      id: 1,
+      name: DEMO_PROJECT.name,
+      customer: DEMO_PROJECT.customer,
+      site: DEMO_PROJECT.site,
+      kind: 'site',
+      notes: DEMO_PROJECT.notes,
+      units,
+      scene: DEMO_PROJECT.scene,
+    },
     owner: { name: 'Ines Installer (demo)', email: 'ines.installer@sightfan-demo.example', units },
     organization: 'Harbourline Mirrors (demo)',
     placements,
