@@ -21,9 +21,11 @@ import {
   zoneCriterion,
   type ProjectEvaluation,
 } from '../../shared/project-optics';
-import type { CatalogueItemDto, MirrorSpec, PlacementDto, Scene, UnitSystem } from '../../shared/schemas';
+import type { CatalogueItemDto, MirrorSpec, PlacementDto, Scene, SheetPaper, UnitSystem } from '../../shared/schemas';
 import { formatAngle, formatArea, formatLength, formatMoney, formatNumber, formatPercent, formatRange, resolveUnits } from '../../shared/units';
-import { formatCoveredShare } from '../../shared/zone-verdict';
+import { formatCoveredShare, zoneBand, type ZoneBand } from '../../shared/zone-verdict';
+import { describeDimension, locate, wallNames, type Dimension } from '../../shared/datum';
+import { uncoveredPart } from '../../shared/geometry/uncovered';
 import { SHEET_CAUTIONS } from './cautions';
 
 export type SheetPlacementInput = Pick<
@@ -99,11 +101,20 @@ export interface SheetPlacement {
   notes: string;
 }
 
+/** One dimension that sets a mirror out on site (shared/datum.ts), drawn from the mirror to `toM`. */
+export interface SheetDimension {
+  text: string;
+  toM: [number, number];
+  /** The wall's name ("W3") when measured from a wall; null from a grid line. */
+  wall: string | null;
+}
+
 export interface SheetPlan {
-  walls: { kind: string; a: [number, number]; b: [number, number] }[];
-  zones: { name: string; ring: [number, number][]; covered: string }[];
+  walls: { kind: string; a: [number, number]; b: [number, number]; name?: string | null }[];
+  /** `band` and `gap` are absent in content issued before they were kept (older revisions). */
+  zones: { name: string; ring: [number, number][]; covered: string; band?: ZoneBand; gap?: MultiPolygon | null }[];
   viewers: { name: string; at: [number, number] }[];
-  mirrors: { label: string; at: [number, number]; azimuthRad: number }[];
+  mirrors: { label: string; at: [number, number]; azimuthRad: number; dimensions?: SheetDimension[] }[];
   coverage: MultiPolygon[];
 }
 
@@ -206,6 +217,15 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
   const placements = [...input.placements].sort((a, b) => a.label.localeCompare(b.label, 'en') || a.id - b.id);
   const evaluation = evaluateProject({ scene, placements, catalogue: input.catalogue });
   const criteria = criteriaOf(scene);
+  const names = wallNames(scene.walls);
+  const dimensions: SheetDimension[][] = placements.map((p) =>
+    locate(p.positionM, scene.walls).map((d: Dimension) => ({
+      text: describeDimension(d, f.dist),
+      toM: pt(d.footM),
+      wall: d.kind === 'wall' ? d.name : null,
+    })),
+  );
+  const measuredFrom = new Set(dimensions.flat().map((d) => d.wall));
 
   const sheetPlacements: SheetPlacement[] = placements.map((p, i) => {
     const ev = evaluation.placements[i];
@@ -222,6 +242,7 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
         ]
       : [['Mirror', 'No mirror chosen']];
     const mounting: Row[] = [
+      ...dimensions[i].map((d, k): Row => [k === 0 ? 'Set out on site from' : 'and from', d.text]),
       ['Position on the plan', `x ${f.dist(p.positionM[0])}, y ${f.dist(p.positionM[1])}`],
       ['Height of the mirror centre', f.dist(p.heightM)],
       ['Aim (azimuth from plan x toward y)', f.fine(p.azimuthRad)],
@@ -277,10 +298,21 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
   });
 
   const plan: SheetPlan = {
-    walls: scene.walls.map((w) => ({ kind: w.kind, a: pt(w.aM), b: pt(w.bM) })),
-    zones: scene.zones.map((z, i) => ({ name: z.name, ring: z.polygonM.map(pt), covered: zones[i].covered })),
+    // Only the walls a dimension is taken from are named on the plan: a thousand names would hide it.
+    walls: scene.walls.map((w, i) => ({ kind: w.kind, a: pt(w.aM), b: pt(w.bM), name: measuredFrom.has(names[i]) ? names[i] : null })),
+    zones: scene.zones.map((z, i) => {
+      const ez = evaluation.zones[i];
+      const gap = ez.problem ? null : uncoveredPart(z.polygonM, [ez.covered], z.name);
+      return {
+        name: z.name,
+        ring: z.polygonM.map(pt),
+        covered: zones[i].covered,
+        band: zoneBand(ez.fraction),
+        gap: gap?.ok ? gap.region.map((poly) => poly.map((ring) => ring.map(pt))) : null,
+      };
+    }),
     viewers: scene.viewers.map((v) => ({ name: v.name, at: pt(v.positionM) })),
-    mirrors: placements.map((p) => ({ label: p.label, at: pt(p.positionM), azimuthRad: round3(p.azimuthRad) })),
+    mirrors: placements.map((p, i) => ({ label: p.label, at: pt(p.positionM), azimuthRad: round3(p.azimuthRad), dimensions: dimensions[i] })),
     coverage: evaluation.placements.map((ev) => (ev.coverage ? ev.coverage.region.map((poly) => poly.map((ring) => ring.map(pt))) : [])),
   };
 
@@ -389,4 +421,6 @@ export function slugOf(name: string): string {
   return slug || 'project';
 }
 
-export const sheetFilename = (projectName: string, revision: number) => `sightfan-${slugOf(projectName)}-rev${revision}.pdf`;
+/** "sightfan-cold-store-rev3-a4.pdf": the paper is in the name, so an A4 and a Letter copy never pass for each other. */
+export const sheetFilename = (projectName: string, revision: number, paper: SheetPaper) =>
+  `sightfan-${slugOf(projectName)}-rev${revision}-${paper}.pdf`;

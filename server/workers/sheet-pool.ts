@@ -12,7 +12,7 @@ import type { SheetPaper } from '../../shared/schemas';
 import { HttpError } from '../http-error';
 import type { SheetRevisionInfo } from '../pdf/render-sheet';
 import type { SheetInput } from '../pdf/sheet-model';
-import type { BuiltContent, RenderTask } from './sheet-tasks';
+import type { BuiltContent, RenderTask, RenderedPdf } from './sheet-tasks';
 
 export interface SheetWorkOptions {
   /** Milliseconds one task may take, waiting in the queue included. */
@@ -26,7 +26,7 @@ export interface SheetWork {
   inputHash(input: SheetInput): Promise<string>;
   build(input: SheetInput): Promise<BuiltContent>;
   /** `paper` unset: the content's default (US Letter for imperial, else A4). */
-  render(contentJson: string, rev: SheetRevisionInfo, paper?: SheetPaper): Promise<Buffer>;
+  render(contentJson: string, rev: SheetRevisionInfo, paper?: SheetPaper): Promise<{ pdf: Buffer; paper: SheetPaper }>;
   close(): Promise<void>;
 }
 
@@ -82,8 +82,8 @@ export function createSheetWork(opts: SheetWorkOptions): SheetWork {
     inputHash: (input) => run<string>('inputHash', input),
     build: (input) => run<BuiltContent>('build', input),
     async render(contentJson, rev, paper) {
-      const bytes = await run<Uint8Array>('render', { contentJson, rev, paper } satisfies RenderTask);
-      return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+      const out = await run<RenderedPdf>('render', { contentJson, rev, paper } satisfies RenderTask);
+      return { pdf: Buffer.from(out.pdf.buffer, out.pdf.byteOffset, out.pdf.byteLength), paper: out.paper };
     },
     close: () => pool.destroy(),
   };

@@ -37,7 +37,14 @@ export interface RenderTask {
   paper?: SheetPaper;
 }
 
-export async function render(task: RenderTask): Promise<Uint8Array> {
+export interface RenderedPdf {
+  pdf: Uint8Array;
+  /** The paper printed on: the one asked for, else the content's default. */
+  paper: SheetPaper;
+}
+
+export async function render(task: RenderTask): Promise<RenderedPdf> {
   const content = JSON.parse(task.contentJson) as SheetContent;
-  return renderSheet(content, task.rev, task.paper ?? defaultPaper(content.units));
+  const paper = task.paper ?? defaultPaper(content.units);
+  return { pdf: await renderSheet(content, task.rev, paper), paper };
 }

@@ -179,7 +179,7 @@ describe('the specification sheet PDF', () => {
     expect(a.res.headers['x-sheet-revision']).toBe(b.res.headers['x-sheet-revision']);
     expect(Buffer.compare(a.pdf, b.pdf)).toBe(0);
     expect(a.res.headers['content-disposition']).toBe(
-      `attachment; filename="sightfan-cold-store-aisles-and-dock-demo-rev${a.res.headers['x-sheet-revision']}.pdf"`,
+      `attachment; filename="sightfan-cold-store-aisles-and-dock-demo-rev${a.res.headers['x-sheet-revision']}-a4.pdf"`,
     );
   });
 
@@ -311,6 +311,21 @@ describe('e-mailing the sheet', () => {
     expect(att.filename).toBe(sent.body.filename);
     const { pdf } = await fetchSheet(installer);
     expect(Buffer.compare(att.content, pdf)).toBe(0);
+  });
+
+  it('names the project and the revision in the subject, so a buyer can tell one job\u2019s sheet from another', async () => {
+    const to = 'subject.check@purchasing-demo.example';
+    const sent = await installer.post(`/api/projects/${projectId}/sheet/email`).send({ to });
+    const parsed = await simpleParser((await h.waitForMail(to)).raw);
+    const project = (await installer.get(`/api/projects/${projectId}`)).body.project as ProjectDto;
+    expect(parsed.subject).toBe(`Mirror specification sheet: ${project.name}, revision ${sent.body.revision.number}`);
+  });
+
+  it('puts the paper size in the file name of the attachment and the download', async () => {
+    const a4 = await fetchSheet(installer, '?paper=a4');
+    const letter = await fetchSheet(installer, '?paper=letter');
+    expect(a4.res.headers['content-disposition']).toMatch(/-rev\d+-a4\.pdf"$/);
+    expect(letter.res.headers['content-disposition']).toMatch(/-rev\d+-letter\.pdf"$/);
   });
 
   it('refuses an address that is not one with 400 and a sentence for the field', async () => {

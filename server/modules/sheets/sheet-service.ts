@@ -7,7 +7,9 @@ import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/sqlite';
 import type { SheetPaper, SheetRevisionDto } from '../../../shared/schemas';
 import { HttpError, notFound } from '../../http-error';
+import { defaultPaper } from '../../pdf/render-sheet';
 import { sheetFilename, type SheetInput } from '../../pdf/sheet-model';
+import { resolveUnits } from '../../../shared/units';
 import type { SheetWork } from '../../workers/sheet-pool';
 import { toCatalogueItemDto } from '../catalog/catalog.dto';
 import { MirrorModel } from '../catalog/mirror-model.entity';
@@ -133,6 +135,7 @@ export async function issueRevision(
 export interface RenderedSheet {
   revision: SheetRevision;
   pdf: Buffer;
+  paper: SheetPaper;
   filename: string;
   projectName: string;
 }
@@ -162,13 +165,16 @@ export async function renderRevision(
     }
     contentJson = now.contentJson;
   }
-  const pdf = await work.render(
+  const out = await work.render(
     contentJson,
     { number: revision.number, contentHash: revision.contentHash, issuedAt: revision.issuedAt },
     paper,
   );
-  return { revision, pdf, filename: sheetFilename(project.name, revision.number), projectName: project.name };
+  return { revision, pdf: out.pdf, paper: out.paper, filename: sheetFilename(project.name, revision.number, out.paper), projectName: project.name };
 }
+
+/** The paper a sheet of the project's current content prints on by default (its units: imperial → US Letter). */
+export const currentPaper = (project: Project): SheetPaper => defaultPaper(resolveUnits(project.units, project.owner.units));
 
 export function toRevisionDto(r: SheetRevision): SheetRevisionDto {
   return { number: r.number, contentHash: r.contentHash, issuedAt: r.issuedAt.toISOString(), issuedBy: r.issuedBy.name };

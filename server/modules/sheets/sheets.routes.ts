@@ -15,7 +15,16 @@ import { sheetFilename } from '../../pdf/sheet-model';
 import type { SheetWork } from '../../workers/sheet-pool';
 import { queueMail, type MailDispatcher } from '../mail/outbox';
 import { SheetRevision } from './sheet-revision.entity';
-import { currentContent, issueRevision, latestRevision, loadProject, renderRevision, toRevisionDto } from './sheet-service';
+import { currentContent, currentPaper, issueRevision, latestRevision, loadProject, renderRevision, toRevisionDto } from './sheet-service';
+
+/**
+ * "Mirror specification sheet: Cold store aisles (demo), revision 3". A buyer's inbox holds sheets
+ * of many jobs; the project and the revision say which one this is. Line breaks and tabs in a name
+ * would break the header, so any run of whitespace becomes one space.
+ */
+export function sheetMailSubject(projectName: string, revision: number): string {
+  return `Mirror specification sheet: ${projectName.replace(/\s+/g, ' ').trim()}, revision ${revision}`;
+}
 
 function sendPdf(res: Response, pdf: Buffer, filename: string, revision: number): void {
   res.set({
@@ -49,7 +58,7 @@ export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: She
     const body: SheetStatusDto = {
       revisions: revisions.map(toRevisionDto),
       current: { number, contentHash: sheet.hash, changedSinceLast: changed },
-      filename: sheetFilename(project.name, number),
+      filename: sheetFilename(project.name, number, currentPaper(project)),
     };
     res.json(body);
   });
@@ -59,7 +68,7 @@ export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: She
     const em = orm.em.fork();
     const project = await loadProject(em, req.user!, req.params.id);
     const { revision, created } = await issueRevision(em, await currentContent(em, project, work), req.user!);
-    const body: SheetIssueResponse = { revision: toRevisionDto(revision), created, filename: sheetFilename(project.name, revision.number) };
+    const body: SheetIssueResponse = { revision: toRevisionDto(revision), created, filename: sheetFilename(project.name, revision.number, currentPaper(project)) };
     res.status(created ? 201 : 200).json(body);
   });
 
@@ -102,7 +111,7 @@ export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: She
       organizationId: req.user!.organization.id,
       kind: 'sheet',
       to: body.to,
-      subject: `Mirror specification sheet, revision ${sheet.revision.number}`,
+      subject: sheetMailSubject(sheet.projectName, sheet.revision.number),
       text: content + note + tail,
       attachments: [{ filename: sheet.filename, content: sheet.pdf, contentType: 'application/pdf' }],
     });
