@@ -22,7 +22,16 @@ import {
   type ProjectEvaluation,
 } from '../../shared/project-optics';
 import type { CatalogueItemDto, MirrorSpec, PlacementDto, Scene, SheetPaper, UnitSystem } from '../../shared/schemas';
-import { formatAngle, formatArea, formatLength, formatMoney, formatNumber, formatPercent, formatRange, resolveUnits } from '../../shared/units';
+import {
+  formatAngle,
+  formatArea,
+  formatLength,
+  formatMoney,
+  formatNumber,
+  formatPercent,
+  formatRange,
+  resolveUnits,
+} from '../../shared/units';
 import { formatCoveredShare, zoneBand, type ZoneBand } from '../../shared/zone-verdict';
 import { describeDimension, locate, wallNames, type Dimension } from '../../shared/datum';
 import { uncoveredPart } from '../../shared/geometry/uncovered';
@@ -142,6 +151,9 @@ export interface SheetContent {
   purchase: { lines: SheetPurchaseLine[]; totals: { currency: string; total: string }[]; onRequest: number };
 }
 
+/** The mounting row the summary table reads the height from. */
+export const MOUNT_HEIGHT_LABEL = 'Height of the mirror centre';
+
 /** The formatters the sheet uses for each kind of number; tests format engine values with these too. */
 export function sheetFormat(units: UnitSystem) {
   return {
@@ -244,7 +256,7 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
     const mounting: Row[] = [
       ...dimensions[i].map((d, k): Row => [k === 0 ? 'Set out on site from' : 'and from', d.text]),
       ['Position on the plan', `x ${f.dist(p.positionM[0])}, y ${f.dist(p.positionM[1])}`],
-      ['Height of the mirror centre', f.dist(p.heightM)],
+      [MOUNT_HEIGHT_LABEL, f.dist(p.heightM)],
       ['Aim (azimuth from plan x toward y)', f.fine(p.azimuthRad)],
       ['Tilt down from level', f.fine(p.tiltDownRad)],
       ['Viewer served', viewer ? `${viewer.name}, eye at ${f.dist(viewer.eyeHeightM)}` : 'none chosen'],
@@ -312,7 +324,12 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
       };
     }),
     viewers: scene.viewers.map((v) => ({ name: v.name, at: pt(v.positionM) })),
-    mirrors: placements.map((p, i) => ({ label: p.label, at: pt(p.positionM), azimuthRad: round3(p.azimuthRad), dimensions: dimensions[i] })),
+    mirrors: placements.map((p, i) => ({
+      label: p.label,
+      at: pt(p.positionM),
+      azimuthRad: round3(p.azimuthRad),
+      dimensions: dimensions[i],
+    })),
     coverage: evaluation.placements.map((ev) => (ev.coverage ? ev.coverage.region.map((poly) => poly.map((ring) => ring.map(pt))) : [])),
   };
 

@@ -10,7 +10,8 @@
  * A range ("recognised up to") is rounded DOWN to its step, so the printed figure never promises
  * more than the engine found; the same rule as a zone's share (shared/zone-verdict.ts).
  */
-import { M_PER_FT, M_PER_IN, formatLength, type UnitSystem } from './index';
+import { M_PER_FT, M_PER_IN } from './factors';
+import { formatLength, type UnitSystem } from './index';
 
 export const METRIC_FINE_BELOW_M = 10;
 export const IMPERIAL_FINE_BELOW_M = 30 * M_PER_FT;

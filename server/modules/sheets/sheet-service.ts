@@ -170,7 +170,13 @@ export async function renderRevision(
     { number: revision.number, contentHash: revision.contentHash, issuedAt: revision.issuedAt },
     paper,
   );
-  return { revision, pdf: out.pdf, paper: out.paper, filename: sheetFilename(project.name, revision.number, out.paper), projectName: project.name };
+  return {
+    revision,
+    pdf: out.pdf,
+    paper: out.paper,
+    filename: sheetFilename(project.name, revision.number, out.paper),
+    projectName: project.name,
+  };
 }
 
 /** The paper a sheet of the project's current content prints on by default (its units: imperial → US Letter). */

@@ -68,7 +68,11 @@ export function sheetsRoutes(deps: { orm: Orm; outbox: MailDispatcher; work: She
     const em = orm.em.fork();
     const project = await loadProject(em, req.user!, req.params.id);
     const { revision, created } = await issueRevision(em, await currentContent(em, project, work), req.user!);
-    const body: SheetIssueResponse = { revision: toRevisionDto(revision), created, filename: sheetFilename(project.name, revision.number, currentPaper(project)) };
+    const body: SheetIssueResponse = {
+      revision: toRevisionDto(revision),
+      created,
+      filename: sheetFilename(project.name, revision.number, currentPaper(project)),
+    };
     res.status(created ? 201 : 200).json(body);
   });
 
