@@ -7,6 +7,7 @@ import { boundsOfPoints } from '../../shared/geometry/bounds';
 import { simplifyRing } from '../../shared/geometry/simplify';
 import { chooseScaleBar, type ScaleBar } from '../../shared/units';
 import type { MultiPolygon } from '../../shared/geometry/polygon';
+import { placeLabel, type LabelBox, type Segment } from '../../shared/label-placement';
 import { palette } from '../../shared/palette';
 import { bandColours, bandWords } from '../../shared/zone-verdict';
 import { GLASS, INK, MUTED, PAPER, RULE, STOP } from './layout';
@@ -339,7 +340,12 @@ export function drawScaleBar(doc: PDFKit.PDFDocument, fit: PlanFit, bar: ScaleBa
  * Side view of one mirror, unfolded about the mirror: the viewer's eye on the left at its horizontal
  * distance and height, what the mirror shows on the right, drawn at one scale in both directions.
  */
-export function drawElevation(doc: PDFKit.PDFDocument, el: SheetElevation, box: Box, fmt: { dist: (m: number) => string }): void {
+export function drawElevation(
+  doc: PDFKit.PDFDocument,
+  el: SheetElevation,
+  box: Box,
+  fmt: { dist: (m: number) => string; range: (m: number) => string },
+): void {
   const rightM = Math.max(el.rangeM, ...el.rays.map((r) => r.reachM), 1);
   const leftM = Math.max(el.eye.distanceM, 0.5);
   const topM = Math.max(el.eye.heightM, el.mirrorHeightM, ...el.rays.map((r) => r.fromHeightM)) + 0.6;
@@ -409,17 +415,44 @@ export function drawElevation(doc: PDFKit.PDFDocument, el: SheetElevation, box: 
     .strokeColor(STOP)
     .stroke();
 
-  doc.font('regular').fontSize(7).fillColor(INK);
-  doc.text(`eye ${fmt.dist(el.eye.heightM)} high`, X(-el.eye.distanceM) + 5, Y(el.eye.heightM) - 10, { lineBreak: false });
-  doc.text(`mirror ${fmt.dist(el.mirrorHeightM)} high`, X(0) + 5, Y(el.mirrorHeightM) - 12, { lineBreak: false });
-  doc.fillColor(MUTED).text(`${fmt.dist(el.eye.distanceM)} across the floor`, X(-el.eye.distanceM), floorY + 5, { lineBreak: false });
-  doc
-    .fillColor(STOP)
-    .text(
-      el.rangeCapped ? `view drawn to ${fmt.dist(el.rangeM)}` : `adult recognised to ${fmt.dist(el.rangeM)}`,
-      Math.max(rx - 140, X(0) + 4),
-      floorY + 13,
-      { width: 140, align: 'right', lineBreak: false },
-    );
+  // Labels beside the symbols they name, clear of every line drawn (shared/label-placement.ts).
+  const eyeAt: [number, number] = [X(-el.eye.distanceM), Y(el.eye.heightM)];
+  const mirrorAt: [number, number] = [X(0), Y(el.mirrorHeightM)];
+  const segments: Segment[] = [
+    [eyeAt, mirrorAt],
+    [
+      [box.x + 4, floorY],
+      [box.x + box.w - 4, floorY],
+    ],
+    [[eyeAt[0], floorY], eyeAt],
+    [
+      [mirrorAt[0], floorY],
+      [mirrorAt[0], mirrorAt[1] - 5],
+    ],
+    ...el.rays.map((r): Segment => [
+      [X(0), Y(r.fromHeightM)],
+      [X(r.reachM), Y(r.endHeightM)],
+    ]),
+    [
+      [rx, floorY - 8],
+      [rx, floorY + 4],
+    ],
+  ];
+  const taken: LabelBox[] = [
+    { x: eyeAt[0] - 3, y: eyeAt[1] - 3, w: 6, h: 6 },
+    { x: mirrorAt[0] - 2, y: mirrorAt[1] - 5, w: 4, h: 10 },
+  ];
+  const bounds = { x: box.x + 2, y: box.y + 2, w: box.w - 4, h: box.h - 4 };
+  const put = (text: string, anchor: [number, number], color: string) => {
+    const size = { w: textWidth(doc, 'regular', 7, text), h: 8.5 };
+    const spot = placeLabel(anchor, size, { segments, boxes: taken }, bounds, 4);
+    taken.push(spot);
+    doc.fillColor(color);
+    writeText(doc, 'regular', 7, text, spot.x, spot.y + 0.5, { lineBreak: false });
+  };
+  put(`eye ${fmt.dist(el.eye.heightM)} high`, eyeAt, INK);
+  put(`mirror ${fmt.dist(el.mirrorHeightM)} high`, mirrorAt, INK);
+  put(`${fmt.dist(el.eye.distanceM)} across the floor`, [(eyeAt[0] + mirrorAt[0]) / 2, floorY], MUTED);
+  put(el.rangeCapped ? `view drawn to ${fmt.range(el.rangeM)}` : `adult recognised to ${fmt.range(el.rangeM)}`, [rx, floorY], STOP);
   doc.restore();
 }

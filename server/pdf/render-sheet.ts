@@ -547,8 +547,9 @@ function placementPage(flow: Flow, content: SheetContent, p: SheetPlacement, ind
     const caption =
       'Drawn unfolded about the mirror: the viewer on the left, the reflected rays from the nearest and farthest edge of the view on the right. One scale both ways.';
     const captionH = flow.textHeight(caption, 'regular', 7.5, flow.width) + 3;
+    // At least 110 pt of drawing here, or a new page (where it may grow to 170 pt).
+    flow.ensure(28 + 110 + captionH + cautionsH);
     const h = Math.min(170, Math.max(110, flow.room - 28 - captionH - cautionsH));
-    flow.ensure(28 + h + captionH + cautionsH);
     flow.heading('Side view: eye, mirror and sightlines', h + captionH);
     const box = { x: flow.left, y: flow.y, w: flow.width, h };
     flow.tag('Figure', () => drawElevation(flow.doc, p.elevation!, box, f), { alt: elevationAlt(p.elevation, f) });
