@@ -149,6 +149,8 @@ export function createApiClient(options: ApiClientOptions = {}) {
     },
     outbox: {
       list: () => request<OutboxResponse>('GET', '/outbox'),
+      /** An attachment of a message in the outbox (a sheet PDF), as a file. */
+      attachment: (id: number, index: number) => download(`/outbox/${id}/attachments/${index}`, `attachment-${id}-${index}.pdf`),
     },
     catalog: {
       list: () => request<{ items: CatalogueItemDto[] }>('GET', '/catalog'),

@@ -321,6 +321,25 @@ describe('e-mailing the sheet', () => {
     expect(parsed.subject).toBe(`Mirror specification sheet: ${project.name}, revision ${sent.body.revision.number}`);
   });
 
+  it("lets the admin open a sent sheet's PDF from the outbox, byte for byte what the buyer got", async () => {
+    const to = 'outbox.open@purchasing-demo.example';
+    const sent = await installer.post(`/api/projects/${projectId}/sheet/email`).send({ to });
+    const parsed = await simpleParser((await h.waitForMail(to)).raw);
+    const admin = await h.signedIn(EMAIL.admin);
+    const message = (await admin.get('/api/outbox')).body.messages.find((m: { to: string[] }) => m.to.includes(to));
+    expect(message.attachments[0].filename).toBe(sent.body.filename);
+    const res = await admin.get(`/api/outbox/${message.id}/attachments/0`).buffer(true).parse(binary);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toBe('application/pdf');
+    expect(Buffer.compare(res.body as Buffer, parsed.attachments[0].content)).toBe(0);
+    expect((await admin.get(`/api/outbox/${message.id}/attachments/1`)).status).toBe(404);
+    const bad = await admin.get(`/api/outbox/${message.id}/attachments/first`);
+    expect(bad.status).toBe(400);
+    expect(bad.body.fields.index).toMatch(/numbered from 0/);
+    // The installer is not the admin: the outbox is not theirs to read.
+    expect((await installer.get(`/api/outbox/${message.id}/attachments/0`)).status).toBe(403);
+  });
+
   it('puts the paper size in the file name of the attachment and the download', async () => {
     const a4 = await fetchSheet(installer, '?paper=a4');
     const letter = await fetchSheet(installer, '?paper=letter');
