@@ -427,12 +427,18 @@ function planAlt(content: SheetContent, denominator: number): string {
   return `Site plan at 1:${denominator} with ${content.plan.mirrors.length} mirror(s) and the floor each shows${zones ? `; zones: ${zones}` : ''}. Each mirror's place is given in words in the setting-out table.`;
 }
 
+const SETTING_OUT_NOTE =
+  'Each dimension is taken square to the named face of a wall (W) or racking (R) numbered on the plan, or from a grid line through the origin; heights are to the mirror\u2019s centre, above the floor.';
+
 function planPage(flow: Flow, content: SheetContent, paperName: string): void {
   flow.newPage();
   flow.heading('Plan: what each mirror shows on the floor', 200);
   const rows = settingOutRows(content);
-  const tableH = rows.length ? 30 + flow.tableHeight(SETTING_OUT_COLUMNS, rows) : 0;
-  const below = 30 + legendHeight(flow) + tableH + cautionBoxHeight(flow, content.cautions, 8);
+  const note = SETTING_OUT_NOTE;
+  // Heading, table, gap and note, as written below.
+  const tableH = rows.length ? 28 + flow.tableHeight(SETTING_OUT_COLUMNS, rows) + 3 + flow.textHeight(note, 'regular', 7.5, flow.width) : 0;
+  // Plan gap and scale line (8 + 26), legend, table, gap and the cautions (with the room their `ensure` asks).
+  const below = 34 + legendHeight(flow) + tableH + 6 + cautionBoxHeight(flow, content.cautions, 8) + 4;
   // The plan takes what the rest leaves, but never less than 40 % of the page (the rest then flows on).
   const pageH = flow.bottom - flow.doc.page.margins.top;
   const most = { x: flow.left, y: flow.y, w: flow.width, h: Math.min(Math.max(flow.room - below, pageH * 0.4), flow.width * 1.1) };
@@ -462,12 +468,7 @@ function planPage(flow: Flow, content: SheetContent, paperName: string): void {
     flow.heading('Setting out: where each mirror goes', 40);
     flow.table(SETTING_OUT_COLUMNS, rows);
     flow.gap(3);
-    flow.paragraph(
-      'Each dimension is taken square to the named face of a wall (W) or racking (R) numbered on the plan, or from a grid line through the origin; heights are to the mirror\u2019s centre, above the floor.',
-      'regular',
-      7.5,
-      MUTED,
-    );
+    flow.paragraph(note, 'regular', 7.5, MUTED);
   }
   flow.gap(6);
   cautionBox(flow, content.cautions, 'Read with this plan', 8);
