@@ -76,14 +76,22 @@ export function PlacementNumbersPanel({ evaluation, zones, scene, units }: Place
           </Group>
 
           <Group title="Detect and recognise">
-            <Row label="Standing adult detected up to" value={formatRange(n.rangesM.detect.adult, units)} testID="numbers-range-adult-detect" />
+            <Row
+              label="Standing adult detected up to"
+              value={formatRange(n.rangesM.detect.adult, units)}
+              testID="numbers-range-adult-detect"
+            />
             <Row
               label="Standing adult recognised up to"
               value={formatRange(n.rangesM.recognise.adult, units)}
               testID="numbers-range-adult-recognise"
             />
             <Row label="Child detected up to" value={formatRange(n.rangesM.detect.child, units)} testID="numbers-range-child-detect" />
-            <Row label="Child recognised up to" value={formatRange(n.rangesM.recognise.child, units)} testID="numbers-range-child-recognise" />
+            <Row
+              label="Child recognised up to"
+              value={formatRange(n.rangesM.recognise.child, units)}
+              testID="numbers-range-child-recognise"
+            />
             <AppText variant="small" tone="muted" testID="numbers-criteria-basis">
               {criteriaSentence(n.criteria)}
             </AppText>
