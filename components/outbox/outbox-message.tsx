@@ -80,7 +80,7 @@ const styles = StyleSheet.create({
   subject: { flexShrink: 1 },
   meta: { gap: spacing.xxs },
   metaLine: { flexDirection: 'row', gap: spacing.sm, alignItems: 'baseline' },
-  metaLabel: { width: 48 },
+  metaLabel: { width: 76 },
   metaValue: { flex: 1 },
   body: {
     ...typeScale.body,
