@@ -1,5 +1,5 @@
 /** Demo mode keeps the mail the server "sent"; the admin reads it here (invitation links included). */
-import { useQuery } from '@tanstack/react-query';
+import { useMutation, useQuery } from '@tanstack/react-query';
 import { api } from './api';
 
 export const OUTBOX_STALE_MS = 5_000;
@@ -17,5 +17,13 @@ export function useOutboxQuery() {
     queryFn: () => api.outbox.list(),
     staleTime: OUTBOX_STALE_MS,
     refetchInterval: OUTBOX_REFETCH_MS,
+  });
+}
+
+/** Fetches one attachment of an outbox message (a sheet PDF) and hands it to `save`, which opens it for the person. */
+export function useOpenAttachmentMutation(save: (file: { blob: Blob; filename: string }) => void) {
+  return useMutation({
+    mutationFn: ({ messageId, index }: { messageId: number; index: number }) => api.outbox.attachment(messageId, index),
+    onSuccess: (file) => save(file),
   });
 }

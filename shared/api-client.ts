@@ -159,6 +159,8 @@ export function createApiClient(options: ApiClientOptions = {}) {
     },
     outbox: {
       list: () => request<OutboxResponse>('GET', '/outbox'),
+      /** An attachment of a message in the outbox (a sheet PDF), as a file. */
+      attachment: (id: number, index: number) => download(`/outbox/${id}/attachments/${index}`, `attachment-${id}-${index}.pdf`),
     },
     catalogue: {
       list: () => request<{ items: CatalogueItemDto[] }>('GET', '/catalogue'),

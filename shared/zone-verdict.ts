@@ -7,6 +7,8 @@
  * covered, 60–94 % as partly covered, below that as a large gap. The thresholds are a product
  * choice (common practice for "nearly all of it"), not taken from a standard.
  */
+import { palette } from './palette';
+
 export type ZoneBand = 'good' | 'partial' | 'poor' | 'unknown';
 
 export const COVERED_FROM_PERCENT = 95;
@@ -38,4 +40,12 @@ export const bandWords: Record<ZoneBand, string> = {
   partial: 'partly covered',
   poor: 'large gap',
   unknown: 'not computed',
+};
+
+/** Stroke (strong), fill (soft) and text colour per band, from the one palette: the plan and the sheet. */
+export const bandColours: Record<ZoneBand, { stroke: string; fill: string; text: string }> = {
+  good: { stroke: palette.go, fill: palette.goSoft, text: palette.go },
+  partial: { stroke: palette.beaconPressed, fill: palette.beaconSoft, text: palette.asphalt },
+  poor: { stroke: palette.stop, fill: palette.stopSoft, text: palette.stop },
+  unknown: { stroke: palette.haze, fill: palette.ruleSoft, text: palette.haze },
 };

@@ -1,9 +1,10 @@
 import { Link, type Href } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
-import { AppText, Badge, Card } from '@/components/ui';
+import { AppText, Card } from '@/components/ui';
 import { palette, spacing, type as typeScale } from '@/constants/theme';
 import type { OutboxMessageDto } from '@/shared/schemas';
 import { splitLinks } from './link-text';
+import { OutboxAttachment } from './outbox-attachment';
 
 const timeFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 
@@ -52,8 +53,8 @@ export function OutboxMessage({ message }: { message: OutboxMessageDto }) {
       </AppText>
       {message.attachments.length > 0 ? (
         <View style={styles.attachments}>
-          {message.attachments.map((file) => (
-            <Badge key={file.filename} label={`${file.filename} · ${Math.ceil(file.size / 1024)} KB`} tone="glass" />
+          {message.attachments.map((file, i) => (
+            <OutboxAttachment key={`${i}-${file.filename}`} messageId={message.id} index={i} file={file} />
           ))}
         </View>
       ) : null}
@@ -79,7 +80,7 @@ const styles = StyleSheet.create({
   subject: { flexShrink: 1 },
   meta: { gap: spacing.xxs },
   metaLine: { flexDirection: 'row', gap: spacing.sm, alignItems: 'baseline' },
-  metaLabel: { width: 48 },
+  metaLabel: { width: 76 },
   metaValue: { flex: 1 },
   body: {
     ...typeScale.body,
@@ -89,5 +90,5 @@ const styles = StyleSheet.create({
     borderRadius: 6,
   },
   link: { color: palette.glass, textDecorationLine: 'underline', fontFamily: typeScale.bodyStrong.fontFamily },
-  attachments: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.sm },
+  attachments: { gap: spacing.sm, alignItems: 'flex-start' },
 });

@@ -34,7 +34,7 @@ export function OutboxPanel() {
         <EmptyState
           testID="outbox-empty"
           title="No e-mail yet"
-          body="Invitations, password notices and specification sheets appear here as they are sent."
+          body="Invitations, password notices and specification sheets e-mailed to buyers appear here as they are sent."
           next={<TextLink href="/users" testID="outbox-go-users" label="Invite someone on the Users screen" />}
         />
       ) : (

@@ -5,6 +5,7 @@ import { AppText } from '@/components/ui/text';
 import { fonts, palette, spacing } from '@/constants/theme';
 import { fanRays, type FanRay } from '@/shared/optics';
 import { drawnRangeM, type EvaluatedPlacement } from '@/shared/project-optics';
+import { placeLabel, type LabelBox, type Segment } from '@/shared/label-placement';
 import { formatLength, type UnitSystem } from '@/shared/units';
 
 export interface ElevationViewProps {
@@ -81,6 +82,19 @@ export function ElevationView({ evaluation, units, testID = 'placement-elevation
   const floorY = Z(0);
   const label = (m: number) => formatLength(m, units);
   const sightline = `M${X(drawing.eye.s)} ${Z(drawing.eye.z)} L${X(drawing.mirror.s)} ${Z(drawing.mirror.z)}`;
+  const labels = sideViewLabels(
+    {
+      eye: [X(drawing.eye.s), Z(drawing.eye.z)],
+      mirror: [X(drawing.mirror.s), Z(drawing.mirror.z)],
+      floorY,
+      rays: drawing.rayEnds.map((r): Segment => [
+        [X(r.from.s), Z(r.from.z)],
+        [X(r.to.s), Z(r.to.z)],
+      ]),
+      width,
+    },
+    { eye: `eye ${label(drawing.eye.z)}`, mirror: `mirror ${label(drawing.mirror.z)}`, apart: `${label(drawing.horizontal)} apart` },
+  );
 
   return (
     <View onLayout={onLayout} testID={testID} style={styles.box}>
@@ -149,29 +163,19 @@ export function ElevationView({ evaluation, units, testID = 'placement-elevation
           stroke={palette.asphalt}
           strokeWidth={1.5}
         />
-        <SvgText x={X(drawing.eye.s) + 10} y={Z(drawing.eye.z) - 10} fontSize={13} fontFamily={fonts.semibold} fill={palette.asphalt}>
-          {`eye ${label(drawing.eye.z)}`}
-        </SvgText>
-        <SvgText
-          x={X(drawing.mirror.s) + (drawing.mirror.s > drawing.eye.s ? -10 : 10)}
-          y={Z(drawing.mirror.z) - 12}
-          fontSize={13}
-          fontFamily={fonts.semibold}
-          fill={palette.asphalt}
-          textAnchor={drawing.mirror.s > drawing.eye.s ? 'end' : 'start'}
-        >
-          {`mirror ${label(drawing.mirror.z)}`}
-        </SvgText>
-        <SvgText
-          x={(X(drawing.eye.s) + X(drawing.mirror.s)) / 2}
-          y={floorY + 18}
-          fontSize={13}
-          fontFamily={fonts.medium}
-          fill={palette.asphalt}
-          textAnchor="middle"
-        >
-          {`${label(drawing.horizontal)} apart`}
-        </SvgText>
+        {labels.map((l) => (
+          <SvgText
+            key={l.key}
+            testID={`${testID}-label-${l.key}`}
+            x={l.box.x}
+            y={l.box.y + LABEL_SIZE_PX}
+            fontSize={LABEL_SIZE_PX}
+            fontFamily={l.key === 'apart' ? fonts.medium : fonts.semibold}
+            fill={palette.asphalt}
+          >
+            {l.text}
+          </SvgText>
+        ))}
       </Svg>
       <AppText variant="small" tone="muted" testID={`${testID}-caption`}>
         {`Seen from the side, looking across the line from the eye to the mirror. The dashed line is the sightline; amber lines are the reflected edge rays, the thick amber band is the floor they reach.${
@@ -180,6 +184,56 @@ export function ElevationView({ evaluation, units, testID = 'placement-elevation
       </AppText>
     </View>
   );
+}
+
+const LABEL_SIZE_PX = 13;
+/** Average advance of a character of the label face, as a share of its size (Barlow semibold, measured by eye). */
+const CHAR_WIDTH = 0.56;
+
+export interface SideViewLabel {
+  key: 'eye' | 'mirror' | 'apart';
+  text: string;
+  /** Top-left and size, pixels. */
+  box: LabelBox;
+}
+
+/**
+ * The three labels of the side view, beside the eye, the mirror and the floor between them, clear of
+ * the sightline, the rays, the height ticks and the floor (the sheet's rule: shared/label-placement.ts).
+ */
+export function sideViewLabels(
+  g: { eye: [number, number]; mirror: [number, number]; floorY: number; rays: readonly Segment[]; width: number },
+  text: { eye: string; mirror: string; apart: string },
+): SideViewLabel[] {
+  const segments: Segment[] = [
+    [g.eye, g.mirror],
+    [
+      [0, g.floorY],
+      [g.width, g.floorY],
+    ],
+    [[g.eye[0], g.floorY], g.eye],
+    [[g.mirror[0], g.floorY], g.mirror],
+    ...g.rays,
+  ];
+  const taken: LabelBox[] = [
+    { x: g.eye[0] - 7, y: g.eye[1] - 7, w: 14, h: 14 },
+    { x: g.mirror[0] - 4, y: g.mirror[1] - 9, w: 8, h: 18 },
+  ];
+  const bounds = { x: 0, y: 0, w: g.width, h: HEIGHT_PX };
+  const out: SideViewLabel[] = [];
+  const anchors: Record<SideViewLabel['key'], [number, number]> = {
+    eye: g.eye,
+    mirror: g.mirror,
+    apart: [(g.eye[0] + g.mirror[0]) / 2, g.floorY],
+  };
+  for (const key of ['eye', 'mirror', 'apart'] as const) {
+    const size = { w: text[key].length * LABEL_SIZE_PX * CHAR_WIDTH, h: LABEL_SIZE_PX + 3 };
+    // The symbols are larger on screen than on paper: keep 10 px clear of them.
+    const box = placeLabel(anchors[key], size, { segments, boxes: taken }, bounds, 10);
+    taken.push(box);
+    out.push({ key, text: text[key], box });
+  }
+  return out;
 }
 
 function unitOf(x: number, y: number): [number, number] {

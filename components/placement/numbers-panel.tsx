@@ -5,7 +5,7 @@ import { Notice } from '@/components/ui/notice';
 import { palette, radii, spacing } from '@/constants/theme';
 import { criteriaSentence, targetLabel, zoneCriterion, type EvaluatedPlacement, type EvaluatedZone } from '@/shared/project-optics';
 import type { Scene } from '@/shared/schemas';
-import { formatAngle, formatArea, formatLength, formatNumber, formatPercent, type UnitSystem } from '@/shared/units';
+import { formatAngle, formatArea, formatLength, formatNumber, formatPercent, formatRange, type UnitSystem } from '@/shared/units';
 import { formatCoveredShare } from '@/shared/zone-verdict';
 
 export interface PlacementNumbersPanelProps {
@@ -76,14 +76,22 @@ export function PlacementNumbersPanel({ evaluation, zones, scene, units }: Place
           </Group>
 
           <Group title="Detect and recognise">
-            <Row label="Standing adult detected up to" value={dist(n.rangesM.detect.adult, units)} testID="numbers-range-adult-detect" />
+            <Row
+              label="Standing adult detected up to"
+              value={formatRange(n.rangesM.detect.adult, units)}
+              testID="numbers-range-adult-detect"
+            />
             <Row
               label="Standing adult recognised up to"
-              value={dist(n.rangesM.recognise.adult, units)}
+              value={formatRange(n.rangesM.recognise.adult, units)}
               testID="numbers-range-adult-recognise"
             />
-            <Row label="Child detected up to" value={dist(n.rangesM.detect.child, units)} testID="numbers-range-child-detect" />
-            <Row label="Child recognised up to" value={dist(n.rangesM.recognise.child, units)} testID="numbers-range-child-recognise" />
+            <Row label="Child detected up to" value={formatRange(n.rangesM.detect.child, units)} testID="numbers-range-child-detect" />
+            <Row
+              label="Child recognised up to"
+              value={formatRange(n.rangesM.recognise.child, units)}
+              testID="numbers-range-child-recognise"
+            />
             <AppText variant="small" tone="muted" testID="numbers-criteria-basis">
               {criteriaSentence(n.criteria)}
             </AppText>

@@ -3,7 +3,6 @@
  * pure arithmetic on the view: grid lines, the scale bar, the uncovered part of a zone.
  */
 import type { MultiPolygon, Ring } from '@/shared/geometry/polygon';
-import { robustDifference, robustUnion } from '@/shared/geometry/robust-boolean';
 import { chooseScaleBar, M_PER_FT, type UnitSystem } from '@/shared/units';
 import { toScreen, type PairM, type PlanView, type Size } from './plan-view';
 
@@ -25,26 +24,8 @@ export function ringsToPath(v: PlanView, rings: readonly (readonly (readonly [nu
 
 export const multiPolygonToPath = (v: PlanView, mp: MultiPolygon): string => ringsToPath(v, mp.flat());
 
-export type UncoveredPart = { ok: true; region: MultiPolygon } | { ok: false; problem: string };
-
-/**
- * The part of a zone no placement covers: zone minus the union of all coverage regions, in metres.
- * Drawn hatched so the gap is plain to see. Through the robust booleans (shared/geometry); if even
- * those fail, a sentence says the gap could not be drawn rather than the plan showing no gap.
- */
-export function uncoveredPart(zone: Ring, regions: readonly MultiPolygon[], zoneName: string): UncoveredPart {
-  const nonEmpty = regions.filter((r) => r.length > 0);
-  try {
-    if (nonEmpty.length === 0) return { ok: true, region: [[zone]] };
-    const merged = nonEmpty.length === 1 ? nonEmpty[0] : robustUnion(nonEmpty[0], ...nonEmpty.slice(1));
-    return { ok: true, region: robustDifference([zone], merged) };
-  } catch {
-    return {
-      ok: false,
-      problem: `The uncovered part of “${zoneName}” could not be drawn (its outline and the coverage meet at odd angles); its percentage still stands.`,
-    };
-  }
-}
+// The uncovered part of a zone is one rule for the plan and the sheet (shared/geometry/uncovered.ts).
+export { uncoveredPart, type UncoveredPart } from '@/shared/geometry/uncovered';
 
 export interface GridLines {
   minor: string;

@@ -16,15 +16,24 @@ export interface ScreenProps {
   footer?: ReactNode;
   /** 'narrow' for forms and reading, 'full' for tables beside a form; default suits most screens. */
   width?: 'narrow' | 'default' | 'full';
+  /**
+   * Names the scrolling area and lets the keyboard reach it (Tab, then arrow keys), for screens whose
+   * content may hold nothing focusable to scroll to (a list of e-mails).
+   */
+  scrollLabel?: string;
 }
 
 /** Every signed-in screen's frame: heading (test id `screen-title`), scrolling content, optional footer. */
-export function Screen({ title, lead, children, footer, width = 'default' }: ScreenProps) {
+export function Screen({ title, lead, children, footer, width = 'default', scrollLabel }: ScreenProps) {
   const wide = useIsWide();
   const columnStyle = [styles.column, width === 'narrow' && styles.narrow, width === 'full' && styles.full];
   return (
     <View style={styles.root}>
-      <ScrollView contentContainerStyle={[styles.scroll, wide && styles.scrollWide]} keyboardShouldPersistTaps="handled">
+      <ScrollView
+        contentContainerStyle={[styles.scroll, wide && styles.scrollWide]}
+        keyboardShouldPersistTaps="handled"
+        {...(scrollLabel ? { focusable: true, role: 'region' as const, 'aria-label': scrollLabel, testID: 'screen-scroll' } : {})}
+      >
         <View style={columnStyle}>
           <ScreenHeading title={title} lead={lead} />
           {children}

@@ -6,6 +6,10 @@ import type { UnitSystem } from '../../shared/schemas';
 import { boundsOfPoints } from '../../shared/geometry/bounds';
 import { simplifyRing } from '../../shared/geometry/simplify';
 import { chooseScaleBar, type ScaleBar } from '../../shared/units';
+import type { MultiPolygon } from '../../shared/geometry/polygon';
+import { placeLabel, type LabelBox, type Segment } from '../../shared/label-placement';
+import { palette } from '../../shared/palette';
+import { bandColours, bandWords } from '../../shared/zone-verdict';
 import { GLASS, INK, MUTED, PAPER, RULE, STOP } from './layout';
 import type { SheetElevation, SheetPlan } from './sheet-model';
 import { textWidth, writeText } from './text-runs';
@@ -33,14 +37,31 @@ export interface PlanFit {
   heightPt: number;
 }
 
-/** The largest round scale at which the scene (walls, zones, viewers, mirrors, plus a margin) fits the box. */
-export function fitPlan(plan: SheetPlan, box: Box, marginM = 1): PlanFit {
-  const points = [
+/**
+ * Whether the plan's origin is drawn: always when a mirror is set out from a grid line through it,
+ * else when it lies near the scene (within the scene's own span), so a far-off origin does not
+ * shrink the plan to a speck.
+ */
+export function showsOrigin(plan: SheetPlan): boolean {
+  if (plan.mirrors.some((m) => m.dimensions?.some((d) => d.wall === null))) return true;
+  const b = boundsOfPoints(scenePoints(plan));
+  if (!b) return true;
+  const span = Math.max(b.maxX - b.minX, b.maxY - b.minY, 1);
+  return b.minX - span <= 0 && 0 <= b.maxX + span && b.minY - span <= 0 && 0 <= b.maxY + span;
+}
+
+function scenePoints(plan: SheetPlan): [number, number][] {
+  return [
     ...plan.walls.flatMap((w) => [w.a, w.b]),
     ...plan.zones.flatMap((z) => z.ring),
     ...plan.viewers.map((v) => v.at),
     ...plan.mirrors.map((m) => m.at),
   ];
+}
+
+/** The largest round scale at which the scene (walls, zones, viewers, mirrors, the origin when shown, plus a margin) fits the box. */
+export function fitPlan(plan: SheetPlan, box: Box, marginM = 1): PlanFit {
+  const points = [...scenePoints(plan), ...(showsOrigin(plan) ? [[0, 0] as [number, number]] : [])];
   const b = boundsOfPoints(points) ?? { minX: 0, minY: 0, maxX: 0, maxY: 0 };
   const minX = b.minX - marginM;
   const maxX = b.maxX + marginM;
@@ -126,9 +147,12 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): Pl
     doc.lineWidth(0.4).strokeColor(GLASS).stroke();
   }
 
+  // What no mirror shows of each zone, hatched as on screen.
+  for (const z of plan.zones) if (z.gap?.length) hatch(doc, z.gap, at);
+
   for (const z of plan.zones) {
     ringPath(doc, z.ring, at);
-    doc.lineWidth(1.1).dash(4, { space: 2.5 }).strokeColor(STOP).stroke();
+    doc.lineWidth(1.3).dash(4, { space: 2.5 }).strokeColor(zoneColour(z).stroke).stroke();
     doc.undash();
   }
 
@@ -144,11 +168,31 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): Pl
         .stroke();
   }
 
+  // Setting out: each mirror's dimensions as thin lines to the faces (or grid lines) they are taken from.
+  for (const m of plan.mirrors) {
+    const [mx, my] = at(m.at);
+    for (const d of m.dimensions ?? []) {
+      const [fx, fy] = at(d.toM);
+      const len = Math.hypot(fx - mx, fy - my);
+      if (len < 0.5) continue;
+      doc.moveTo(mx, my).lineTo(fx, fy).lineWidth(0.5).dash(1.5, { space: 1.5 }).strokeColor(INK).stroke().undash();
+      // A short tick across the line where the tape meets the face.
+      const ux = (fx - mx) / len;
+      const uy = (fy - my) / len;
+      doc
+        .moveTo(fx - uy * 3, fy + ux * 3)
+        .lineTo(fx + uy * 3, fy - ux * 3)
+        .lineWidth(0.8)
+        .strokeColor(INK)
+        .stroke();
+    }
+  }
+
   for (const z of plan.zones) {
     const cx = z.ring.reduce((s, p) => s + p[0], 0) / z.ring.length;
     const cy = z.ring.reduce((s, p) => s + p[1], 0) / z.ring.length;
     const [x, y] = at([cx, cy]);
-    const label = `${z.name}: ${z.covered} seen`;
+    const label = z.band ? `${z.name}: ${z.covered} seen, ${bandWords[z.band]}` : `${z.name}: ${z.covered} seen`;
     const w = textWidth(doc, 'semibold', 7, label) + 4;
     doc
       .rect(x - w / 2, y - 5, w, 10)
@@ -156,7 +200,7 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): Pl
       .fillColor(PAPER)
       .fill()
       .fillOpacity(1);
-    doc.fillColor(STOP);
+    doc.fillColor(zoneColour(z).text);
     writeText(doc, 'semibold', 7, label, x - w / 2 + 2, y - 3.5, { lineBreak: false });
     taken.push({ x: x - w / 2, y: y - 5, w, h: 10 });
   }
@@ -193,6 +237,26 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): Pl
     taken.push({ x: left, y: top, w: Math.max(x + 3, tipX) - left, h: Math.max(y + 3, tipY) - top });
     return { x, y, dx, dy };
   });
+  // Wall names and the origin after the mirrors' marks, so they move off them.
+  for (const w of plan.walls) {
+    if (!w.name) continue;
+    const [x, y] = at([(w.a[0] + w.b[0]) / 2, (w.a[1] + w.b[1]) / 2]);
+    const tw = textWidth(doc, 'bold', 6.8, w.name) + 4;
+    const spot = labelSpot({ x: x - tw / 2, y: y - 4.5, w: tw, h: LABEL_LINE_PT }, taken);
+    taken.push(spot);
+    doc.rect(spot.x, spot.y, spot.w, 9).lineWidth(0.6).fillColor(PAPER).strokeColor(INK).fillAndStroke();
+    doc.fillColor(INK);
+    writeText(doc, 'bold', 6.8, w.name, spot.x + 2, spot.y + 1.2, { lineBreak: false });
+  }
+
+  if (showsOrigin(plan)) {
+    const [ox, oy] = at([0, 0]);
+    drawOriginMark(doc, ox, oy);
+    doc.fillColor(INK);
+    writeText(doc, 'semibold', 6.8, 'Origin 0, 0', ox + 7, oy + 2, { lineBreak: false });
+    taken.push({ x: ox - 6, y: oy - 6, w: 12 + 7 + textWidth(doc, 'semibold', 6.8, 'Origin 0, 0'), h: 12 });
+  }
+
   plan.mirrors.forEach((m, i) => {
     const { x, y, dx, dy } = glyphs[i];
     const w = textWidth(doc, 'bold', 7.2, m.label);
@@ -209,6 +273,43 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): Pl
   });
   doc.restore();
   return fit;
+}
+
+/** The band's colours (shared/zone-verdict.ts); content issued before bands were kept draws as before, in red. */
+function zoneColour(z: SheetPlan['zones'][number]): { stroke: string; text: string } {
+  return z.band ? bandColours[z.band] : { stroke: STOP, text: STOP };
+}
+
+/** Diagonal hatching inside a region (even-odd), 45° lines every `spacing` points, as the screen's gap pattern. */
+export function hatch(doc: PDFKit.PDFDocument, region: MultiPolygon, at: (p: readonly number[]) => [number, number], spacing = 3.5): void {
+  const pts = region.flatMap((poly) => poly.flatMap((ring) => ring.map(at)));
+  if (!pts.length) return;
+  const xs = pts.map((p) => p[0]);
+  const ys = pts.map((p) => p[1]);
+  const minX = Math.min(...xs);
+  const maxX = Math.max(...xs);
+  const minY = Math.min(...ys);
+  const maxY = Math.max(...ys);
+  doc.save();
+  for (const poly of region) poly.forEach((ring) => ringPath(doc, ring, at));
+  doc.clip('even-odd');
+  for (let c = minX - (maxY - minY); c <= maxX; c += spacing) doc.moveTo(c, maxY).lineTo(c + (maxY - minY), minY);
+  doc.lineWidth(0.7).strokeColor(palette.stop).strokeOpacity(0.75).stroke().strokeOpacity(1);
+  doc.restore();
+}
+
+/** The setting-out datum: a circle with two opposite quarters filled, as on survey drawings. */
+export function drawOriginMark(doc: PDFKit.PDFDocument, x: number, y: number, r = 4.5): void {
+  doc.circle(x, y, r).lineWidth(0.8).fillColor(PAPER).strokeColor(INK).fillAndStroke();
+  // Upper-right and lower-left quarters (page y runs down).
+  doc
+    .path(`M ${x} ${y} L ${x + r} ${y} A ${r} ${r} 0 0 0 ${x} ${y - r} Z`)
+    .fillColor(INK)
+    .fill();
+  doc
+    .path(`M ${x} ${y} L ${x - r} ${y} A ${r} ${r} 0 0 0 ${x} ${y + r} Z`)
+    .fillColor(INK)
+    .fill();
 }
 
 export type { ScaleBar };
@@ -239,7 +340,12 @@ export function drawScaleBar(doc: PDFKit.PDFDocument, fit: PlanFit, bar: ScaleBa
  * Side view of one mirror, unfolded about the mirror: the viewer's eye on the left at its horizontal
  * distance and height, what the mirror shows on the right, drawn at one scale in both directions.
  */
-export function drawElevation(doc: PDFKit.PDFDocument, el: SheetElevation, box: Box, fmt: { dist: (m: number) => string }): void {
+export function drawElevation(
+  doc: PDFKit.PDFDocument,
+  el: SheetElevation,
+  box: Box,
+  fmt: { dist: (m: number) => string; range: (m: number) => string },
+): void {
   const rightM = Math.max(el.rangeM, ...el.rays.map((r) => r.reachM), 1);
   const leftM = Math.max(el.eye.distanceM, 0.5);
   const topM = Math.max(el.eye.heightM, el.mirrorHeightM, ...el.rays.map((r) => r.fromHeightM)) + 0.6;
@@ -309,17 +415,44 @@ export function drawElevation(doc: PDFKit.PDFDocument, el: SheetElevation, box: 
     .strokeColor(STOP)
     .stroke();
 
-  doc.font('regular').fontSize(7).fillColor(INK);
-  doc.text(`eye ${fmt.dist(el.eye.heightM)} high`, X(-el.eye.distanceM) + 5, Y(el.eye.heightM) - 10, { lineBreak: false });
-  doc.text(`mirror ${fmt.dist(el.mirrorHeightM)} high`, X(0) + 5, Y(el.mirrorHeightM) - 12, { lineBreak: false });
-  doc.fillColor(MUTED).text(`${fmt.dist(el.eye.distanceM)} across the floor`, X(-el.eye.distanceM), floorY + 5, { lineBreak: false });
-  doc
-    .fillColor(STOP)
-    .text(
-      el.rangeCapped ? `view drawn to ${fmt.dist(el.rangeM)}` : `adult recognised to ${fmt.dist(el.rangeM)}`,
-      Math.max(rx - 140, X(0) + 4),
-      floorY + 13,
-      { width: 140, align: 'right', lineBreak: false },
-    );
+  // Labels beside the symbols they name, clear of every line drawn (shared/label-placement.ts).
+  const eyeAt: [number, number] = [X(-el.eye.distanceM), Y(el.eye.heightM)];
+  const mirrorAt: [number, number] = [X(0), Y(el.mirrorHeightM)];
+  const segments: Segment[] = [
+    [eyeAt, mirrorAt],
+    [
+      [box.x + 4, floorY],
+      [box.x + box.w - 4, floorY],
+    ],
+    [[eyeAt[0], floorY], eyeAt],
+    [
+      [mirrorAt[0], floorY],
+      [mirrorAt[0], mirrorAt[1] - 5],
+    ],
+    ...el.rays.map((r): Segment => [
+      [X(0), Y(r.fromHeightM)],
+      [X(r.reachM), Y(r.endHeightM)],
+    ]),
+    [
+      [rx, floorY - 8],
+      [rx, floorY + 4],
+    ],
+  ];
+  const taken: LabelBox[] = [
+    { x: eyeAt[0] - 3, y: eyeAt[1] - 3, w: 6, h: 6 },
+    { x: mirrorAt[0] - 2, y: mirrorAt[1] - 5, w: 4, h: 10 },
+  ];
+  const bounds = { x: box.x + 2, y: box.y + 2, w: box.w - 4, h: box.h - 4 };
+  const put = (text: string, anchor: [number, number], color: string) => {
+    const size = { w: textWidth(doc, 'regular', 7, text), h: 8.5 };
+    const spot = placeLabel(anchor, size, { segments, boxes: taken }, bounds, 4);
+    taken.push(spot);
+    doc.fillColor(color);
+    writeText(doc, 'regular', 7, text, spot.x, spot.y + 0.5, { lineBreak: false });
+  };
+  put(`eye ${fmt.dist(el.eye.heightM)} high`, eyeAt, INK);
+  put(`mirror ${fmt.dist(el.mirrorHeightM)} high`, mirrorAt, INK);
+  put(`${fmt.dist(el.eye.distanceM)} across the floor`, [(eyeAt[0] + mirrorAt[0]) / 2, floorY], MUTED);
+  put(el.rangeCapped ? `view drawn to ${fmt.range(el.rangeM)}` : `adult recognised to ${fmt.range(el.rangeM)}`, [rx, floorY], STOP);
   doc.restore();
 }

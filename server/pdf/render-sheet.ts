@@ -6,11 +6,12 @@
 import PDFDocument from 'pdfkit';
 import type { SheetPaper } from '../../shared/schemas';
 import { SHEET_LIMITS } from './cautions';
-import { drawElevation, drawPlan, drawScaleBar, fitPlan, scaleBarFor } from './draw-plan';
+import { drawElevation, drawOriginMark, drawPlan, drawScaleBar, fitPlan, hatch, scaleBarFor } from './draw-plan';
+import { COVERED_FROM_PERCENT, PARTLY_FROM_PERCENT, bandColours, bandWords } from '../../shared/zone-verdict';
 import { NO_DEFAULT_FONT, registerSheetFonts } from './fonts';
-import { writeText } from './text-runs';
-import { BEACON, BEACON_SOFT, Flow, GLASS, INK, MUTED, RULE, STOP } from './layout';
-import { sheetFormat, type SheetContent, type SheetPlacement } from './sheet-model';
+import { textWidth, writeText } from './text-runs';
+import { BEACON, BEACON_SOFT, Flow, GLASS, INK, MUTED, PAPER, RULE, STOP, type Column } from './layout';
+import { MOUNT_HEIGHT_LABEL, sheetFormat, type SheetContent, type SheetPlacement } from './sheet-model';
 import { vehiclePages, vehicleSummaryBlock } from './vehicle-sheet';
 import { drawApproval, drawNotApprovedBand, type SheetApproval } from './approval-mark';
 
@@ -40,6 +41,17 @@ function collect(doc: PDFKit.PDFDocument): Promise<Buffer> {
   });
 }
 
+/** The height `cautionBox` takes, gap included. */
+function cautionBoxHeight(flow: Flow, cautions: readonly string[], size = 9): number {
+  const textW = flow.width - 2 * 8 - 14;
+  return 2 * 8 + 14 + cautions.reduce((sum, c) => sum + flow.textHeight(c, 'regular', size, textW) + 3, 0) + 10;
+}
+
+/** The side view in words, for a screen reader. */
+function elevationAlt(el: NonNullable<SheetPlacement['elevation']>, f: ReturnType<typeof sheetFormat>): string {
+  return `Side view: the viewer's eye ${f.dist(el.eye.heightM)} high and ${f.dist(el.eye.distanceM)} from the mirror, the mirror ${f.dist(el.mirrorHeightM)} high, floor seen ${el.rangeCapped ? 'drawn to' : 'to where a standing adult is still recognised,'} ${f.range(el.rangeM)}.`;
+}
+
 function cautionBox(flow: Flow, cautions: readonly string[], title: string, size = 9): void {
   const doc = flow.doc;
   const pad = 8;
@@ -47,33 +59,58 @@ function cautionBox(flow: Flow, cautions: readonly string[], title: string, size
   const heights = cautions.map((c) => flow.textHeight(c, 'regular', size, textW) + 3);
   const h = 2 * pad + 14 + heights.reduce((a, b) => a + b, 0);
   flow.ensure(h + 4);
-  doc.rect(flow.left, flow.y, flow.width, h).fillColor(BEACON_SOFT).fill();
-  doc.rect(flow.left, flow.y, 3, h).fillColor(BEACON).fill();
-  let y = flow.y + pad;
-  flow.style('semibold', 9.5, INK).text(title, flow.left + pad + 2, y, { lineBreak: false });
-  y += 14;
-  cautions.forEach((c, i) => {
-    flow.style('bold', size, INK).text(`${i + 1}`, flow.left + pad + 2, y, { lineBreak: false });
-    flow.style('regular', size, INK).text(c, flow.left + pad + 16, y, { width: textW, lineGap: 1 });
-    y += heights[i];
+  flow.artifact(() => {
+    doc.rect(flow.left, flow.y, flow.width, h).fillColor(BEACON_SOFT).fill();
+    doc.rect(flow.left, flow.y, 3, h).fillColor(BEACON).fill();
   });
+  let y = flow.y + pad;
+  flow.tag('H2', () => flow.style('semibold', 9.5, INK).text(title, flow.left + pad + 2, y, { lineBreak: false }));
+  y += 14;
+  // A numbered list to a screen reader: label and body of each item.
+  flow.group('L', () =>
+    cautions.forEach((c, i) => {
+      flow.group('LI', () => {
+        flow.tag('Lbl', () => flow.style('bold', size, INK).text(`${i + 1}`, flow.left + pad + 2, y, { lineBreak: false }));
+        flow.tag('LBody', () => flow.style('regular', size, INK).text(c, flow.left + pad + 16, y, { width: textW, lineGap: 1 }));
+      });
+      y += heights[i];
+    }),
+  );
   flow.y += h + 6;
+}
+
+/**
+ * An e-mail address as lines that break only before "@" or a dot, never at a hyphen (a reader would
+ * copy "sightfan-" and "demo.example" as two words, and extraction drops the hyphen). A part longer
+ * than the width stays whole on its own line.
+ */
+export function addressLines(address: string, width: number, measure: (text: string) => number): string[] {
+  const parts = address.split(/(?=[@.])/);
+  const lines: string[] = [];
+  for (const part of parts) {
+    const last = lines.length - 1;
+    if (last >= 0 && measure(lines[last] + part) <= width) lines[last] += part;
+    else lines.push(part);
+  }
+  return lines;
 }
 
 function headerBlock(flow: Flow, content: SheetContent, rev: SheetRevisionInfo, paperName: string): void {
   const doc = flow.doc;
-  flow
-    .style('semibold', 8.5, GLASS)
-    .text('SIGHTFAN  ·  MIRROR SPECIFICATION SHEET', flow.left, flow.y, { characterSpacing: 1, lineBreak: false });
+  // Letters are not spaced out: extraction would read each letter as a word and "specification" could not be found.
+  flow.tag('P', () =>
+    flow.style('semibold', 8.5, GLASS).text('SIGHTFAN  ·  MIRROR SPECIFICATION SHEET', flow.left, flow.y, { lineBreak: false }),
+  );
   flow.y += 14;
-  flow.paragraph(content.project.name, 'bold', 19, INK);
+  const titleH = flow.textHeight(content.project.name, 'bold', 19, flow.width);
+  flow.tag('H1', () => flow.write('bold', 19, INK, content.project.name, flow.left, flow.y, { width: flow.width, lineGap: 1 }));
+  flow.y += titleH;
   flow.gap(6);
   const colW = (flow.width - 18) / 2;
   const left: [string, string][] = [
     ['Customer', content.project.customer || 'not stated'],
     ['Site', content.project.site || 'not stated'],
     ['Installer', `${content.installer.name}, ${content.installer.organization}`],
-    ['Installer e-mail', content.installer.email],
   ];
   const right: [string, string][] = [
     ['Revision', `${rev.number}`],
@@ -84,34 +121,58 @@ function headerBlock(flow: Flow, content: SheetContent, rev: SheetRevisionInfo, 
   const h = Math.max(flow.rowsHeight(left, colW, 0.34), flow.rowsHeight(right, colW, 0.34));
   flow.rowsAt(left, flow.left, flow.y, colW, 0.34);
   flow.rowsAt(right, flow.left + colW + 18, flow.y, colW, 0.34);
-  flow.y += h + 4;
-  doc
-    .moveTo(flow.left, flow.y)
-    .lineTo(flow.left + flow.width, flow.y)
-    .lineWidth(1.2)
-    .strokeColor(INK)
-    .stroke();
+  flow.y += h;
+  // The address across the full width, broken (if at all) only before "@" or a dot.
+  const labelW = colW * 0.34;
+  const valueW = flow.width - labelW - 6;
+  const address = addressLines(content.installer.email, valueW, (t) => textWidth(doc, 'medium', 9.5, t)).join('\n');
+  flow.y += flow.rowsAt([['Installer e-mail', address]], flow.left, flow.y, labelW + 6 + valueW, labelW / (labelW + 6 + valueW));
+  flow.y += 4;
+  flow.artifact(() =>
+    doc
+      .moveTo(flow.left, flow.y)
+      .lineTo(flow.left + flow.width, flow.y)
+      .lineWidth(1.2)
+      .strokeColor(INK)
+      .stroke(),
+  );
   flow.y += 8;
+}
+
+/** Room the approval block takes with its heading (drawApproval in approval-mark.ts: a 112 pt box, its heading and gaps). */
+const APPROVAL_BLOCK_PT = 150;
+const PURCHASE_COLUMNS: Column[] = [
+  { title: 'Catalogue code', width: 0.17, font: 'mono' },
+  { title: 'Description', width: 0.35 },
+  { title: 'Qty', width: 0.07, align: 'right' },
+  { title: 'Unit price', width: 0.15, align: 'right' },
+  { title: 'Line total', width: 0.16, align: 'right' },
+  { title: 'Currency', width: 0.1 },
+];
+
+function purchaseRows(content: SheetContent): string[][] {
+  const p = content.purchase;
+  const rows = p.lines.map((l) => [l.code, l.description, `${l.quantity}`, l.unitPrice, l.lineTotal, l.currency]);
+  for (const t of p.totals) rows.push(['', p.totals.length > 1 ? `Total in ${t.currency}` : 'Total', '', '', t.total, t.currency]);
+  if (!p.totals.length) rows.push(['', 'Total', '', '', 'nothing priced', '']);
+  return rows;
+}
+
+/**
+ * The approval block never stands alone on a page: when the purchase lines fit this page but the
+ * approval block after them would not, both start on the next page together.
+ */
+function keepPurchaseWithApproval(flow: Flow, content: SheetContent): void {
+  const rows = purchaseRows(content);
+  const purchaseH = 28 + flow.tableHeight(PURCHASE_COLUMNS, rows, { boldLast: content.purchase.totals.length <= 1 }) + 16;
+  const pageH = flow.bottom - flow.doc.page.margins.top;
+  if (purchaseH <= flow.room && purchaseH + APPROVAL_BLOCK_PT > flow.room && purchaseH + APPROVAL_BLOCK_PT <= pageH) flow.newPage();
 }
 
 function purchaseBlock(flow: Flow, content: SheetContent): void {
   const p = content.purchase;
   flow.heading('Purchase lines');
-  const rows = p.lines.map((l) => [l.code, l.description, `${l.quantity}`, l.unitPrice, l.lineTotal, l.currency]);
-  for (const t of p.totals) rows.push(['', p.totals.length > 1 ? `Total in ${t.currency}` : 'Total', '', '', t.total, t.currency]);
-  if (!p.totals.length) rows.push(['', 'Total', '', '', 'nothing priced', '']);
-  flow.table(
-    [
-      { title: 'Catalogue code', width: 0.17, font: 'mono' },
-      { title: 'Description', width: 0.35 },
-      { title: 'Qty', width: 0.07, align: 'right' },
-      { title: 'Unit price', width: 0.15, align: 'right' },
-      { title: 'Line total', width: 0.16, align: 'right' },
-      { title: 'Currency', width: 0.1 },
-    ],
-    rows,
-    { boldLast: p.totals.length <= 1 },
-  );
+  flow.table(PURCHASE_COLUMNS, purchaseRows(content), { boldLast: p.totals.length <= 1 });
   if (p.onRequest > 0) {
     flow.gap(3);
     flow.paragraph(
@@ -162,7 +223,7 @@ function summaryBlock(flow: Flow, content: SheetContent): void {
     content.placements.map((p) => [
       p.label,
       p.mirror[0][1],
-      p.mounting[1][1],
+      (p.mounting.find(([label]) => label === MOUNT_HEIGHT_LABEL) ?? p.mounting[1])[1],
       p.numbers ? `${p.numbers.floorArea}, ${p.numbers.floorSpread}` : '—',
       p.numbers?.rangeAdultDetect ?? '—',
       p.numbers?.rangeAdultRecognise ?? '—',
@@ -170,41 +231,233 @@ function summaryBlock(flow: Flow, content: SheetContent): void {
   );
 }
 
+const SETTING_OUT_COLUMNS: Column[] = [
+  { title: 'Mirror', width: 0.18 },
+  { title: 'Set out from', width: 0.33 },
+  { title: 'and from', width: 0.33 },
+  { title: 'Height of centre', width: 0.16, align: 'right' },
+];
+
+/** Each mirror's two setting-out dimensions and height; empty for content issued before they were kept. */
+function settingOutRows(content: SheetContent): string[][] {
+  return content.plan.mirrors.flatMap((m, i) => {
+    const dims = m.dimensions;
+    if (!dims?.length) return [];
+    const height = content.placements[i]?.mounting.find(([label]) => label === MOUNT_HEIGHT_LABEL)?.[1] ?? '—';
+    return [[m.label, dims[0]?.text ?? '—', dims[1]?.text ?? '—', height]];
+  });
+}
+
+interface LegendItem {
+  text: string;
+  swatch: (doc: PDFKit.PDFDocument, x: number, y: number) => void;
+}
+
+function legendItems(): LegendItem[] {
+  const line = (color: string, width: number, dash?: number) => (doc: PDFKit.PDFDocument, x: number, y: number) => {
+    doc
+      .moveTo(x, y + 4.5)
+      .lineTo(x + 18, y + 4.5)
+      .lineWidth(width);
+    if (dash) doc.dash(dash, { space: dash * 0.6 });
+    doc.strokeColor(color).stroke().undash();
+  };
+  const zone = (band: 'good' | 'partial' | 'poor') => line(bandColours[band].stroke, 1.3, 4);
+  return [
+    {
+      text: 'Floor seen in a mirror, out to where a standing adult is still recognised',
+      swatch: (doc, x, y) => doc.rect(x, y, 18, 9).fillOpacity(0.2).fillColor(GLASS).fill().fillOpacity(1),
+    },
+    {
+      text: 'Part of a zone no mirror shows (gap)',
+      swatch: (doc, x, y) =>
+        hatch(
+          doc,
+          [
+            [
+              [
+                [0, 0],
+                [18, 0],
+                [18, 9],
+                [0, 9],
+              ],
+            ],
+          ],
+          (p) => [x + p[0], y + p[1]],
+          3,
+        ),
+    },
+    { text: `Zone ${bandWords.good}: ${COVERED_FROM_PERCENT} % or more seen`, swatch: zone('good') },
+    { text: `Zone ${bandWords.partial}: ${PARTLY_FROM_PERCENT}–${COVERED_FROM_PERCENT - 1} % seen`, swatch: zone('partial') },
+    { text: `Zone with a ${bandWords.poor}: under ${PARTLY_FROM_PERCENT} % seen`, swatch: zone('poor') },
+    { text: 'Wall', swatch: line(INK, 2) },
+    { text: 'Racking', swatch: line(MUTED, 1) },
+    { text: 'Doorway', swatch: line(MUTED, 1, 2) },
+    {
+      text: 'Mirror, with a tick toward its aim',
+      swatch: (doc, x, y) => {
+        doc
+          .rect(x + 3, y + 1.5, 6, 6)
+          .fillColor(GLASS)
+          .fill();
+        doc
+          .moveTo(x + 6, y + 4.5)
+          .lineTo(x + 18, y + 4.5)
+          .lineWidth(0.9)
+          .strokeColor(GLASS)
+          .stroke();
+      },
+    },
+    {
+      text: 'Viewer\u2019s eye position',
+      swatch: (doc, x, y) => {
+        doc
+          .circle(x + 9, y + 4.5, 3.2)
+          .lineWidth(1)
+          .fillColor(PAPER)
+          .strokeColor(INK)
+          .fillAndStroke();
+        doc
+          .circle(x + 9, y + 4.5, 1.2)
+          .fillColor(INK)
+          .fill();
+      },
+    },
+    {
+      text: 'Origin 0, 0 of the plan: x to the east (right), y to the north (up)',
+      swatch: (doc, x, y) => drawOriginMark(doc, x + 9, y + 4.5),
+    },
+    {
+      text: 'Setting-out dimension, square to a named face (W wall, R racking) or a grid line through the origin',
+      swatch: (doc, x, y) => {
+        doc
+          .moveTo(x, y + 4.5)
+          .lineTo(x + 18, y + 4.5)
+          .lineWidth(0.5)
+          .dash(1.5, { space: 1.5 })
+          .strokeColor(INK)
+          .stroke()
+          .undash();
+        doc
+          .moveTo(x + 18, y + 1.5)
+          .lineTo(x + 18, y + 7.5)
+          .lineWidth(0.8)
+          .strokeColor(INK)
+          .stroke();
+      },
+    },
+  ];
+}
+
+const LEGEND_TEXT_PT = 7.5;
+
+function legendHeight(flow: Flow): number {
+  const colW = (flow.width - 16) / 2;
+  const items = legendItems();
+  let h = 14;
+  for (let i = 0; i < items.length; i += 2) {
+    const a = flow.textHeight(items[i].text, 'regular', LEGEND_TEXT_PT, colW - 24);
+    const b = items[i + 1] ? flow.textHeight(items[i + 1].text, 'regular', LEGEND_TEXT_PT, colW - 24) : 0;
+    h += Math.max(a, b, 9) + 3;
+  }
+  return h;
+}
+
+/** The plan's legend: a swatch drawn as on the plan beside each item, in two columns, read row by row. */
+function legendBlock(flow: Flow): void {
+  const doc = flow.doc;
+  const colW = (flow.width - 16) / 2;
+  flow.ensure(legendHeight(flow));
+  flow.tag('H3', () => flow.style('semibold', 8.5, INK).text('Legend', flow.left, flow.y, { lineBreak: false }));
+  flow.y += 14;
+  const items = legendItems();
+  flow.group('L', () => {
+    for (let i = 0; i < items.length; i += 2) {
+      const pair = items.slice(i, i + 2);
+      const h = Math.max(9, ...pair.map((it) => flow.textHeight(it.text, 'regular', LEGEND_TEXT_PT, colW - 24)));
+      pair.forEach((it, k) => {
+        const x = flow.left + k * (colW + 16);
+        const y = flow.y;
+        flow.artifact(() => {
+          doc.save();
+          it.swatch(doc, x, y);
+          doc.restore();
+        });
+        flow.tag('LI', () => flow.write('regular', LEGEND_TEXT_PT, INK, it.text, x + 24, y + 0.5, { width: colW - 24, lineGap: 1 }));
+      });
+      flow.y += h + 3;
+    }
+  });
+}
+
+/** The plan in words, for a screen reader. */
+function planAlt(content: SheetContent, denominator: number): string {
+  const zones = content.plan.zones.map((z) => `${z.name}, ${z.covered} seen`).join('; ');
+  return `Site plan at 1:${denominator} with ${content.plan.mirrors.length} mirror(s) and the floor each shows${zones ? `; zones: ${zones}` : ''}. Each mirror's place is given in words in the setting-out table.`;
+}
+
+const SETTING_OUT_NOTE =
+  'Each dimension is taken square to the named face of a wall (W) or racking (R) numbered on the plan, or from a grid line through the origin; heights are to the mirror\u2019s centre, above the floor.';
+
 function planPage(flow: Flow, content: SheetContent, paperName: string): void {
   flow.newPage();
   flow.heading('Plan: what each mirror shows on the floor', 200);
-  const legendH = 58;
-  const most = { x: flow.left, y: flow.y, w: flow.width, h: Math.min(flow.room - legendH, flow.width * 1.1) };
+  const rows = settingOutRows(content);
+  const note = SETTING_OUT_NOTE;
+  // Heading, table, gap and note, as written below.
+  const tableH = rows.length ? 28 + flow.tableHeight(SETTING_OUT_COLUMNS, rows) + 3 + flow.textHeight(note, 'regular', 7.5, flow.width) : 0;
+  // Plan gap and scale line (8 + 26), legend, table, gap and the cautions (with the room their `ensure` asks).
+  const below = 34 + legendHeight(flow) + tableH + 6 + cautionBoxHeight(flow, content.cautions, 8) + 4;
+  // The plan takes what the rest leaves, but never less than 40 % of the page (the rest then flows on).
+  const pageH = flow.bottom - flow.doc.page.margins.top;
+  const most = { x: flow.left, y: flow.y, w: flow.width, h: Math.min(Math.max(flow.room - below, pageH * 0.4), flow.width * 1.1) };
   // Frame only the drawn scene: the box shrinks to the scene's height at the chosen scale.
   const box = { ...most, h: Math.min(most.h, fitPlan(content.plan, most).heightPt + 24) };
-  const fit = drawPlan(flow.doc, content.plan, box);
+  let fit = fitPlan(content.plan, box);
+  flow.tag('Figure', () => (fit = drawPlan(flow.doc, content.plan, box)), { alt: planAlt(content, fit.denominator) });
   flow.y += box.h + 8;
   const bar = scaleBarFor(fit, content.units, flow.width * 0.28);
-  const barLen = drawScaleBar(flow.doc, fit, bar, flow.left + 2, flow.y + 2);
-  flow
-    .style('semibold', 9, INK)
-    .text(`Scale 1:${fit.denominator} on ${paperName} printed at 100 %`, flow.left + barLen + 24, flow.y, { lineBreak: false });
-  flow
-    .style('regular', 7.5, MUTED)
-    .text('Plan x to the right, plan y up; positions in the tables are in these coordinates.', flow.left + barLen + 24, flow.y + 12, {
-      lineBreak: false,
-    });
+  let barLen = 0;
+  flow.artifact(() => (barLen = drawScaleBar(flow.doc, fit, bar, flow.left + 2, flow.y + 2)));
+  flow.tag('P', () =>
+    flow
+      .style('semibold', 9, INK)
+      .text(`Scale 1:${fit.denominator} on ${paperName} printed at 100 %`, flow.left + barLen + 24, flow.y, { lineBreak: false }),
+  );
+  flow.tag('P', () =>
+    flow
+      .style('regular', 7.5, MUTED)
+      .text('Plan x to the right (east), plan y up (north), from the origin mark.', flow.left + barLen + 24, flow.y + 12, {
+        lineBreak: false,
+      }),
+  );
   flow.y += 26;
-  const legend =
-    'Legend: blue shading — floor seen in a mirror, within the distance at which a standing adult is still recognised; red dashed outline — zone that must be seen, with its share seen; thick black line — wall; grey line — racking; blue square with a tick — mirror and its aim; ringed dot — viewer\u2019s eye position.';
-  flow.paragraph(legend, 'regular', 8, INK);
+  legendBlock(flow);
+  if (rows.length) {
+    flow.heading('Setting out: where each mirror goes', 40);
+    flow.table(SETTING_OUT_COLUMNS, rows);
+    flow.gap(3);
+    flow.paragraph(note, 'regular', 7.5, MUTED);
+  }
+  flow.gap(6);
+  cautionBox(flow, content.cautions, 'Read with this plan', 8);
 }
 
 function placementPage(flow: Flow, content: SheetContent, p: SheetPlacement, index: number): void {
   const f = sheetFormat(content.units);
   flow.newPage();
-  flow
-    .style('semibold', 8.5, GLASS)
-    .text(`MIRROR ${index + 1} OF ${content.placements.length}`, flow.left, flow.y, { characterSpacing: 1, lineBreak: false });
+  flow.tag('P', () =>
+    flow.style('semibold', 8.5, GLASS).text(`MIRROR ${index + 1} OF ${content.placements.length}`, flow.left, flow.y, { lineBreak: false }),
+  );
   flow.y += 13;
-  flow.paragraph(p.label, 'bold', 16, INK);
+  const titleH = flow.textHeight(p.label, 'bold', 16, flow.width);
+  flow.tag('H2', () => flow.write('bold', 16, INK, p.label, flow.left, flow.y, { width: flow.width, lineGap: 1 }));
+  flow.y += titleH;
   flow.gap(6);
-  flow.twoBlocks({ title: 'The mirror', rows: p.mirror }, { title: 'Where it goes', rows: p.mounting });
+  flow.stackedBlocks([
+    { title: 'Where it goes', rows: p.mounting },
+    { title: 'The mirror', rows: p.mirror },
+  ]);
   if (p.notes) flow.paragraph(`Installer's note: ${p.notes}`, 'regular', 8.5, MUTED);
 
   flow.heading('What it shows (computed)');
@@ -258,18 +511,22 @@ function placementPage(flow: Flow, content: SheetContent, p: SheetPlacement, ind
     );
   }
 
+  // The side view and the cautions stay together, so the cautions never stand alone on a page.
+  const cautionsH = cautionBoxHeight(flow, content.cautions, 8) + 10;
   if (p.elevation) {
-    flow.heading('Side view: eye, mirror and sightlines', 150);
-    const h = Math.min(170, Math.max(110, flow.room - 150));
-    flow.ensure(h + 14);
-    drawElevation(flow.doc, p.elevation, { x: flow.left, y: flow.y, w: flow.width, h }, f);
+    const caption =
+      'Drawn unfolded about the mirror: the viewer on the left, the reflected rays from the nearest and farthest edge of the view on the right. One scale both ways.';
+    const captionH = flow.textHeight(caption, 'regular', 7.5, flow.width) + 3;
+    // At least 110 pt of drawing here, or a new page (where it may grow to 170 pt).
+    flow.ensure(28 + 110 + captionH + cautionsH);
+    const h = Math.min(170, Math.max(110, flow.room - 28 - captionH - cautionsH));
+    flow.heading('Side view: eye, mirror and sightlines', h + captionH);
+    const box = { x: flow.left, y: flow.y, w: flow.width, h };
+    flow.tag('Figure', () => drawElevation(flow.doc, p.elevation!, box, f), { alt: elevationAlt(p.elevation, f) });
     flow.y += h + 3;
-    flow.paragraph(
-      'Drawn unfolded about the mirror: the viewer on the left, the reflected rays from the nearest and farthest edge of the view on the right. One scale both ways.',
-      'regular',
-      7.5,
-      MUTED,
-    );
+    flow.paragraph(caption, 'regular', 7.5, MUTED);
+  } else {
+    flow.ensure(cautionsH);
   }
   flow.gap(6);
   cautionBox(flow, content.cautions, 'Read with these numbers', 8);
@@ -293,6 +550,10 @@ export async function renderSheet(
     autoFirstPage: true,
     pdfVersion: '1.7',
     font: NO_DEFAULT_FONT,
+    // Tagged PDF with a language, and viewers show the title rather than the file name.
+    tagged: true,
+    lang: 'en',
+    displayTitle: true,
     info: {
       Title: `Specification sheet — ${content.project.name} — revision ${rev.number}`,
       Author: content.installer.name,
@@ -305,7 +566,9 @@ export async function renderSheet(
   });
   const done = collect(doc);
   registerSheetFonts(doc);
-  const flow = new Flow(doc, () => undefined);
+  const root = doc.struct('Document');
+  doc.addStructure(root);
+  const flow = new Flow(doc, () => undefined, root);
 
   headerBlock(flow, content, rev, paperSpec.name);
   cautionBox(flow, content.cautions, 'Read before relying on this sheet');
@@ -313,6 +576,7 @@ export async function renderSheet(
   if (content.vehicle) vehicleSummaryBlock(flow, content.vehicle);
   else zonesBlock(flow, content);
   summaryBlock(flow, content);
+  keepPurchaseWithApproval(flow, content);
   purchaseBlock(flow, content);
   drawApproval(flow, approval);
   if (content.vehicle)
@@ -327,6 +591,8 @@ export async function renderSheet(
     const bottom = doc.page.margins.bottom;
     // Writing inside the bottom margin would make pdfkit start a new page.
     doc.page.margins.bottom = 0;
+    // The running footer is pagination, not content: an artifact a screen reader skips.
+    doc.markContent('Artifact', { type: 'Pagination' });
     const y = doc.page.height - 34;
     const left = doc.page.margins.left;
     const width = doc.page.width - left - doc.page.margins.right;
@@ -351,8 +617,10 @@ export async function renderSheet(
       .fontSize(8)
       .fillColor(INK)
       .text(`Page ${i - range.start + 1} of ${range.count}`, left + width - 90, y, { width: 90, align: 'right', lineBreak: false });
+    doc.endMarkedContent();
     doc.page.margins.bottom = bottom;
   }
+  root.end();
   doc.end();
   return done;
 }

@@ -21,9 +21,20 @@ import {
   zoneCriterion,
   type ProjectEvaluation,
 } from '../../shared/project-optics';
-import type { CatalogueItemDto, MirrorSpec, PlacementDto, Scene, UnitSystem } from '../../shared/schemas';
-import { formatAngle, formatArea, formatLength, formatMoney, formatNumber, formatPercent, resolveUnits } from '../../shared/units';
-import { formatCoveredShare } from '../../shared/zone-verdict';
+import type { CatalogueItemDto, MirrorSpec, PlacementDto, Scene, SheetPaper, UnitSystem } from '../../shared/schemas';
+import {
+  formatAngle,
+  formatArea,
+  formatLength,
+  formatMoney,
+  formatNumber,
+  formatPercent,
+  formatRange,
+  resolveUnits,
+} from '../../shared/units';
+import { formatCoveredShare, zoneBand, type ZoneBand } from '../../shared/zone-verdict';
+import { describeDimension, locate, wallNames, type Dimension } from '../../shared/datum';
+import { uncoveredPart } from '../../shared/geometry/uncovered';
 import { SHEET_CAUTIONS } from './cautions';
 import { buildVehicleSheet, type SheetVehicle } from './vehicle-sheet';
 
@@ -101,11 +112,20 @@ export interface SheetPlacement {
   notes: string;
 }
 
+/** One dimension that sets a mirror out on site (shared/datum.ts), drawn from the mirror to `toM`. */
+export interface SheetDimension {
+  text: string;
+  toM: [number, number];
+  /** The wall's name ("W3") when measured from a wall; null from a grid line. */
+  wall: string | null;
+}
+
 export interface SheetPlan {
-  walls: { kind: string; a: [number, number]; b: [number, number] }[];
-  zones: { name: string; ring: [number, number][]; covered: string }[];
+  walls: { kind: string; a: [number, number]; b: [number, number]; name?: string | null }[];
+  /** `band` and `gap` are absent in content issued before they were kept (older revisions). */
+  zones: { name: string; ring: [number, number][]; covered: string; band?: ZoneBand; gap?: MultiPolygon | null }[];
   viewers: { name: string; at: [number, number] }[];
-  mirrors: { label: string; at: [number, number]; azimuthRad: number }[];
+  mirrors: { label: string; at: [number, number]; azimuthRad: number; dimensions?: SheetDimension[] }[];
   coverage: MultiPolygon[];
 }
 
@@ -135,10 +155,15 @@ export interface SheetContent {
   vehicle?: SheetVehicle;
 }
 
+/** The mounting row the summary table reads the height from. */
+export const MOUNT_HEIGHT_LABEL = 'Height of the mirror centre';
+
 /** The formatters the sheet uses for each kind of number; tests format engine values with these too. */
 export function sheetFormat(units: UnitSystem) {
   return {
     dist: (m: number) => formatLength(m, units, { kind: 'distance' }),
+    /** A detect / recognise range: down to a tape step (shared/units/tape.ts). */
+    range: (m: number) => formatRange(m, units),
     size: (m: number) => formatLength(m, units, { kind: 'size' }),
     angle: (rad: number) => formatAngle(rad),
     fine: (rad: number) => formatAngle(rad, { precision: 1 }),
@@ -208,6 +233,15 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
   const placements = [...input.placements].sort((a, b) => a.label.localeCompare(b.label, 'en') || a.id - b.id);
   const evaluation = evaluateProject({ scene, placements, catalogue: input.catalogue });
   const criteria = criteriaOf(scene);
+  const names = wallNames(scene.walls);
+  const dimensions: SheetDimension[][] = placements.map((p) =>
+    locate(p.positionM, scene.walls).map((d: Dimension) => ({
+      text: describeDimension(d, f.dist),
+      toM: pt(d.footM),
+      wall: d.kind === 'wall' ? d.name : null,
+    })),
+  );
+  const measuredFrom = new Set(dimensions.flat().map((d) => d.wall));
 
   const sheetPlacements: SheetPlacement[] = placements.map((p, i) => {
     const ev = evaluation.placements[i];
@@ -224,8 +258,9 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
         ]
       : [['Mirror', 'No mirror chosen']];
     const mounting: Row[] = [
+      ...dimensions[i].map((d, k): Row => [k === 0 ? 'Set out on site from' : 'and from', d.text]),
       ['Position on the plan', `x ${f.dist(p.positionM[0])}, y ${f.dist(p.positionM[1])}`],
-      ['Height of the mirror centre', f.dist(p.heightM)],
+      [MOUNT_HEIGHT_LABEL, f.dist(p.heightM)],
       ['Aim (azimuth from plan x toward y)', f.fine(p.azimuthRad)],
       ['Tilt down from level', f.fine(p.tiltDownRad)],
       scene.vehicle
@@ -246,10 +281,10 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
             sizeCueDistance: f.dist(r.sizeCueDistanceM),
             ratio: f.ratio(r.ratio),
           })),
-          rangeAdultDetect: f.dist(n.rangesM.detect.adult),
-          rangeAdultRecognise: f.dist(n.rangesM.recognise.adult),
-          rangeChildDetect: f.dist(n.rangesM.detect.child),
-          rangeChildRecognise: f.dist(n.rangesM.recognise.child),
+          rangeAdultDetect: f.range(n.rangesM.detect.adult),
+          rangeAdultRecognise: f.range(n.rangesM.recognise.adult),
+          rangeChildDetect: f.range(n.rangesM.detect.child),
+          rangeChildRecognise: f.range(n.rangesM.recognise.child),
           rimSqueeze: n.rimSqueeze > 0 ? f.percent(n.rimSqueeze) : 'rim out of sight',
           floorArea: ev.coverage ? f.area(ev.coverage.areaM2) : '—',
           floorSpread: n.floorSeen ? f.angle(n.floorSeen.spreadRad) : 'no floor seen',
@@ -281,10 +316,26 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
   });
 
   const plan: SheetPlan = {
-    walls: scene.walls.map((w) => ({ kind: w.kind, a: pt(w.aM), b: pt(w.bM) })),
-    zones: scene.zones.map((z, i) => ({ name: z.name, ring: z.polygonM.map(pt), covered: zones[i].covered })),
+    // Only the walls a dimension is taken from are named on the plan: a thousand names would hide it.
+    walls: scene.walls.map((w, i) => ({ kind: w.kind, a: pt(w.aM), b: pt(w.bM), name: measuredFrom.has(names[i]) ? names[i] : null })),
+    zones: scene.zones.map((z, i) => {
+      const ez = evaluation.zones[i];
+      const gap = ez.problem ? null : uncoveredPart(z.polygonM, [ez.covered], z.name);
+      return {
+        name: z.name,
+        ring: z.polygonM.map(pt),
+        covered: zones[i].covered,
+        band: zoneBand(ez.fraction),
+        gap: gap?.ok ? gap.region.map((poly) => poly.map((ring) => ring.map(pt))) : null,
+      };
+    }),
     viewers: scene.viewers.map((v) => ({ name: v.name, at: pt(v.positionM) })),
-    mirrors: placements.map((p) => ({ label: p.label, at: pt(p.positionM), azimuthRad: round3(p.azimuthRad) })),
+    mirrors: placements.map((p, i) => ({
+      label: p.label,
+      at: pt(p.positionM),
+      azimuthRad: round3(p.azimuthRad),
+      dimensions: dimensions[i],
+    })),
     coverage: evaluation.placements.map((ev) => (ev.coverage ? ev.coverage.region.map((poly) => poly.map((ring) => ring.map(pt))) : [])),
   };
 
@@ -394,4 +445,6 @@ export function slugOf(name: string): string {
   return slug || 'project';
 }
 
-export const sheetFilename = (projectName: string, revision: number) => `sightfan-${slugOf(projectName)}-rev${revision}.pdf`;
+/** "sightfan-cold-store-rev3-a4.pdf": the paper is in the name, so an A4 and a Letter copy never pass for each other. */
+export const sheetFilename = (projectName: string, revision: number, paper: SheetPaper) =>
+  `sightfan-${slugOf(projectName)}-rev${revision}-${paper}.pdf`;

@@ -13,7 +13,7 @@ import { HttpError } from '../http-error';
 import type { SheetApproval } from '../pdf/approval-mark';
 import type { SheetRevisionInfo } from '../pdf/render-sheet';
 import type { SheetInput } from '../pdf/sheet-model';
-import type { BuiltContent, InputHashes, RenderTask } from './sheet-tasks';
+import type { BuiltContent, InputHashes, RenderTask, RenderedPdf } from './sheet-tasks';
 
 export interface SheetWorkOptions {
   /** Milliseconds one task may take, waiting in the queue included. */
@@ -31,7 +31,12 @@ export interface SheetWork {
   contentHash(input: SheetInput): Promise<string>;
   build(input: SheetInput): Promise<BuiltContent>;
   /** `paper` unset: the content's default (US Letter for imperial, else A4). */
-  render(contentJson: string, rev: SheetRevisionInfo, paper?: SheetPaper, approval?: SheetApproval): Promise<Buffer>;
+  render(
+    contentJson: string,
+    rev: SheetRevisionInfo,
+    paper?: SheetPaper,
+    approval?: SheetApproval,
+  ): Promise<{ pdf: Buffer; paper: SheetPaper }>;
   close(): Promise<void>;
 }
 
@@ -89,8 +94,8 @@ export function createSheetWork(opts: SheetWorkOptions): SheetWork {
     contentHash: (input) => run<string>('engineeringHashTask', input),
     build: (input) => run<BuiltContent>('build', input),
     async render(contentJson, rev, paper, approval) {
-      const bytes = await run<Uint8Array>('render', { contentJson, rev, paper, approval } satisfies RenderTask);
-      return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+      const out = await run<RenderedPdf>('render', { contentJson, rev, paper, approval } satisfies RenderTask);
+      return { pdf: Buffer.from(out.pdf.buffer, out.pdf.byteOffset, out.pdf.byteLength), paper: out.paper };
     },
     close: () => pool.destroy(),
   };

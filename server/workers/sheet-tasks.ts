@@ -15,7 +15,7 @@ import { buildSheetContent, canonicalJson, contentHash, type SheetContent, type 
  * Part of every evaluation cache key. Raise it whenever the sheet model or the engine changes what a
  * sheet says for the same input (the cache is also emptied when the server starts).
  */
-export const SHEET_MODEL_VERSION = 3;
+export const SHEET_MODEL_VERSION = 4;
 
 export function inputHash(input: SheetInput): string {
   return createHash('sha256')
@@ -57,7 +57,14 @@ export interface RenderTask {
   approval?: SheetApproval;
 }
 
-export async function render(task: RenderTask): Promise<Uint8Array> {
+export interface RenderedPdf {
+  pdf: Uint8Array;
+  /** The paper printed on: the one asked for, else the content's default. */
+  paper: SheetPaper;
+}
+
+export async function render(task: RenderTask): Promise<RenderedPdf> {
   const content = JSON.parse(task.contentJson) as SheetContent;
-  return renderSheet(content, task.rev, task.paper ?? defaultPaper(content.units), task.approval);
+  const paper = task.paper ?? defaultPaper(content.units);
+  return { pdf: await renderSheet(content, task.rev, paper, task.approval), paper };
 }

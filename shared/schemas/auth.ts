@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { email, newPassword, personName, role, unitSystem } from './common';
+import { email, idParam, newPassword, personName, role, unitSystem } from './common';
 import {
   currentPasswordRule,
   newPasswordAgainRule,
@@ -89,6 +89,15 @@ export const outboxMessageDto = z.object({
 export type OutboxMessageDto = z.infer<typeof outboxMessageDto>;
 export const outboxResponse = z.object({ messages: z.array(outboxMessageDto), demo: z.boolean() });
 export type OutboxResponse = z.infer<typeof outboxResponse>;
+
+/** `/outbox/:id/attachments/:index`: a message's attachment, by its place in the list (0 first). */
+export const outboxAttachmentParams = z.object({
+  id: idParam,
+  index: z
+    .string({ message: 'Say which attachment.' })
+    .regex(/^(0|[1-9][0-9]{0,2})$/, 'An attachment is numbered from 0 with digits only, like 0 or 1.')
+    .transform((s) => Number(s)),
+});
 
 /** Signed in: a new password, with the current one as proof. */
 export const changePasswordBody = z

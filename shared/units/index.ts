@@ -14,9 +14,9 @@ export type UnitSystem = 'metric' | 'imperial';
  */
 export type LengthKind = 'size' | 'distance';
 
-export const M_PER_IN = 0.0254;
-export const M_PER_FT = 0.3048;
-export const M2_PER_FT2 = M_PER_FT * M_PER_FT;
+import { M2_PER_FT2, M_PER_FT, M_PER_IN } from './factors';
+
+export { M2_PER_FT2, M_PER_FT, M_PER_IN };
 const IN_PER_FT = 12;
 
 /** The project's own choice wins; otherwise the person's preference; metric if neither is known. */
@@ -303,3 +303,4 @@ export function minorToText(minor: number, currency: string): string {
 }
 
 export { chooseScaleBar, SCALE_BAR_COUNTS, type ScaleBar } from './scale-bar';
+export { formatRange, rangeStepM, roundRangeDown, METRIC_FINE_BELOW_M, IMPERIAL_FINE_BELOW_M } from './tape';

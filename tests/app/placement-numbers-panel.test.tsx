@@ -3,7 +3,7 @@ import { render, screen } from '@testing-library/react';
 import { PlacementNumbersPanel, rimSqueezeText } from '@/components/placement/numbers-panel';
 import { evaluateProject } from '@/shared/project-optics';
 import type { PlacementDto, Scene } from '@/shared/schemas';
-import { formatAngle, formatArea, formatLength, formatNumber, type UnitSystem } from '@/shared/units';
+import { formatAngle, formatArea, formatLength, formatNumber, formatRange, type UnitSystem } from '@/shared/units';
 import { formatCoveredShare } from '@/shared/zone-verdict';
 import { TEST_CATALOGUE, testPlacement } from './fixtures';
 
@@ -49,10 +49,10 @@ describe('PlacementNumbersPanel', () => {
     expect(screen.getByTestId('numbers-field-of-view')).toHaveTextContent(
       `${formatAngle(n.onAxisFieldOfView.horizontalRad)} × ${formatAngle(n.onAxisFieldOfView.verticalRad)}`,
     );
-    expect(screen.getByTestId('numbers-range-adult-detect')).toHaveTextContent(dist(n.rangesM.detect.adult));
-    expect(screen.getByTestId('numbers-range-adult-recognise')).toHaveTextContent(dist(n.rangesM.recognise.adult));
-    expect(screen.getByTestId('numbers-range-child-detect')).toHaveTextContent(dist(n.rangesM.detect.child));
-    expect(screen.getByTestId('numbers-range-child-recognise')).toHaveTextContent(dist(n.rangesM.recognise.child));
+    expect(screen.getByTestId('numbers-range-adult-detect')).toHaveTextContent(formatRange(n.rangesM.detect.adult, units));
+    expect(screen.getByTestId('numbers-range-adult-recognise')).toHaveTextContent(formatRange(n.rangesM.recognise.adult, units));
+    expect(screen.getByTestId('numbers-range-child-detect')).toHaveTextContent(formatRange(n.rangesM.detect.child, units));
+    expect(screen.getByTestId('numbers-range-child-recognise')).toHaveTextContent(formatRange(n.rangesM.recognise.child, units));
     expect(screen.getByTestId('numbers-eye-off-axis')).toHaveTextContent(formatAngle(n.eyeOffAxisRad));
     expect(screen.getByTestId('numbers-floor-spread')).toHaveTextContent(formatAngle(n.floorSeen!.spreadRad));
     expect(screen.getByTestId('numbers-area')).toHaveTextContent(formatArea(evaluation.coverage!.areaM2, units));

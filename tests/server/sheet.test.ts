@@ -95,10 +95,10 @@ describe('the specification sheet PDF', () => {
         `${f.angle(n.onAxisFieldOfView.horizontalRad)} × ${f.angle(n.onAxisFieldOfView.verticalRad)}`,
         f.dist(n.eyeDistanceM),
         f.angle(n.eyeOffAxisRad),
-        f.dist(n.rangesM.detect.adult),
-        f.dist(n.rangesM.recognise.adult),
-        f.dist(n.rangesM.detect.child),
-        f.dist(n.rangesM.recognise.child),
+        f.range(n.rangesM.detect.adult),
+        f.range(n.rangesM.recognise.adult),
+        f.range(n.rangesM.detect.child),
+        f.range(n.rangesM.recognise.child),
         ...(n.rimSqueeze > 0 ? [f.percent(n.rimSqueeze)] : []),
         ...n.references.flatMap((r) => [
           f.dist(r.objectDistanceM),
@@ -180,7 +180,7 @@ describe('the specification sheet PDF', () => {
     expect(a.res.headers['x-sheet-revision']).toBe(b.res.headers['x-sheet-revision']);
     expect(Buffer.compare(a.pdf, b.pdf)).toBe(0);
     expect(a.res.headers['content-disposition']).toBe(
-      `attachment; filename="sightfan-cold-store-aisles-and-dock-demo-rev${a.res.headers['x-sheet-revision']}.pdf"`,
+      `attachment; filename="sightfan-cold-store-aisles-and-dock-demo-rev${a.res.headers['x-sheet-revision']}-a4.pdf"`,
     );
   });
 
@@ -312,6 +312,40 @@ describe('e-mailing the sheet', () => {
     expect(att.filename).toBe(sent.body.filename);
     const { pdf } = await fetchSheet(installer);
     expect(Buffer.compare(att.content, pdf)).toBe(0);
+  });
+
+  it('names the project and the revision in the subject, so a buyer can tell one job\u2019s sheet from another', async () => {
+    const to = 'subject.check@purchasing-demo.example';
+    const sent = await installer.post(`/api/projects/${projectId}/sheet/email`).send({ to });
+    const parsed = await simpleParser((await h.waitForMail(to)).raw);
+    const project = (await installer.get(`/api/projects/${projectId}`)).body.project as ProjectDto;
+    expect(parsed.subject).toBe(`Mirror specification sheet: ${project.name}, revision ${sent.body.revision.number}`);
+  });
+
+  it("lets the admin open a sent sheet's PDF from the outbox, byte for byte what the buyer got", async () => {
+    const to = 'outbox.open@purchasing-demo.example';
+    const sent = await installer.post(`/api/projects/${projectId}/sheet/email`).send({ to });
+    const parsed = await simpleParser((await h.waitForMail(to)).raw);
+    const admin = await h.signedIn(EMAIL.admin);
+    const message = (await admin.get('/api/outbox')).body.messages.find((m: { to: string[] }) => m.to.includes(to));
+    expect(message.attachments[0].filename).toBe(sent.body.filename);
+    const res = await admin.get(`/api/outbox/${message.id}/attachments/0`).buffer(true).parse(binary);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toBe('application/pdf');
+    expect(Buffer.compare(res.body as Buffer, parsed.attachments[0].content)).toBe(0);
+    expect((await admin.get(`/api/outbox/${message.id}/attachments/1`)).status).toBe(404);
+    const bad = await admin.get(`/api/outbox/${message.id}/attachments/first`);
+    expect(bad.status).toBe(400);
+    expect(bad.body.fields.index).toMatch(/numbered from 0/);
+    // The installer is not the admin: the outbox is not theirs to read.
+    expect((await installer.get(`/api/outbox/${message.id}/attachments/0`)).status).toBe(403);
+  });
+
+  it('puts the paper size in the file name of the attachment and the download', async () => {
+    const a4 = await fetchSheet(installer, '?paper=a4');
+    const letter = await fetchSheet(installer, '?paper=letter');
+    expect(a4.res.headers['content-disposition']).toMatch(/-rev\d+-a4\.pdf"$/);
+    expect(letter.res.headers['content-disposition']).toMatch(/-rev\d+-letter\.pdf"$/);
   });
 
   it('refuses an address that is not one with 400 and a sentence for the field', async () => {

@@ -8,6 +8,7 @@ import type { EntityManager } from '@mikro-orm/sqlite';
 import { PROJECT_STATE_LABELS, type ProjectState, type SheetPaper, type SheetRevisionDto } from '../../../shared/schemas';
 import { resolveUnits } from '../../../shared/units';
 import { HttpError } from '../../http-error';
+import { defaultPaper } from '../../pdf/render-sheet';
 import type { SheetApproval } from '../../pdf/approval-mark';
 import { sheetFilename, type SheetInput } from '../../pdf/sheet-model';
 import { roleWords } from '../review/notices';
@@ -166,6 +167,7 @@ export async function issueRevision(
 export interface RenderedSheet {
   revision: SheetRevision;
   pdf: Buffer;
+  paper: SheetPaper;
   filename: string;
   projectName: string;
 }
@@ -207,14 +209,23 @@ export async function renderRevision(
       `Revision ${revision.number} was issued before Sightfan kept each revision's content, and the project has changed since, so it cannot be printed again. Issue a new revision.`,
     );
   }
-  const pdf = await work.render(
+  const out = await work.render(
     contentJson,
     { number: revision.number, contentHash: revision.contentHash, issuedAt: revision.issuedAt },
     paper,
     approvalFor(project, revision),
   );
-  return { revision, pdf, filename: sheetFilename(project.name, revision.number), projectName: project.name };
+  return {
+    revision,
+    pdf: out.pdf,
+    paper: out.paper,
+    filename: sheetFilename(project.name, revision.number, out.paper),
+    projectName: project.name,
+  };
 }
+
+/** The paper a sheet of the project's current content prints on by default (its units: imperial → US Letter). */
+export const currentPaper = (project: Project): SheetPaper => defaultPaper(resolveUnits(project.units, project.owner.units));
 
 export function toRevisionDto(r: SheetRevision): SheetRevisionDto {
   return { number: r.number, contentHash: r.contentHash, issuedAt: r.issuedAt.toISOString(), issuedBy: r.issuedBy.name };

@@ -17,8 +17,17 @@ import { recordEvent } from '../review/audit';
 import { User } from '../users/user.entity';
 import { SheetRevision } from './sheet-revision.entity';
 import { findVisibleProject } from '../projects/project-access';
-import { currentContent, issueRevision, latestRevision, renderRevision, toRevisionDto } from './sheet-service';
+import { currentContent, currentPaper, issueRevision, latestRevision, renderRevision, toRevisionDto } from './sheet-service';
 import { requestEm } from '../../middleware/request-context';
+
+/**
+ * "Mirror specification sheet: Cold store aisles (demo), revision 3". A buyer's inbox holds sheets
+ * of many jobs; the project and the revision say which one this is. Line breaks and tabs in a name
+ * would break the header, so any run of whitespace becomes one space.
+ */
+export function sheetMailSubject(projectName: string, revision: number): string {
+  return `Mirror specification sheet: ${projectName.replace(/\s+/g, ' ').trim()}, revision ${revision}`;
+}
 
 function sendPdf(res: Response, pdf: Buffer, filename: string, revision: number): void {
   res.set({
@@ -57,7 +66,7 @@ export function sheetsRoutes(deps: { outbox: MailDispatcher; work: SheetWork; ou
         changedSinceLast: changed,
         approved: project.state === 'approved' && project.approvedHash === sheet.hash,
       },
-      filename: sheetFilename(project.name, number),
+      filename: sheetFilename(project.name, number, currentPaper(project)),
     };
     res.json(body);
   });
@@ -71,7 +80,11 @@ export function sheetsRoutes(deps: { outbox: MailDispatcher; work: SheetWork; ou
       issuedEvent(em, project.id, req.user!, revision);
       await em.flush();
     }
-    const body: SheetIssueResponse = { revision: toRevisionDto(revision), created, filename: sheetFilename(project.name, revision.number) };
+    const body: SheetIssueResponse = {
+      revision: toRevisionDto(revision),
+      created,
+      filename: sheetFilename(project.name, revision.number, currentPaper(project)),
+    };
     res.status(created ? 201 : 200).json(body);
   });
 
@@ -133,7 +146,7 @@ export function sheetsRoutes(deps: { outbox: MailDispatcher; work: SheetWork; ou
       organizationId: req.user!.organization.id,
       kind: 'sheet',
       to: body.to,
-      subject: `Mirror specification sheet, revision ${sheet.revision.number}`,
+      subject: sheetMailSubject(sheet.projectName, sheet.revision.number),
       text: content + note + tail,
       attachments: [{ filename: sheet.filename, content: sheet.pdf, contentType: 'application/pdf' }],
     });
