@@ -75,15 +75,21 @@ export function anyWallBlocks(walls: readonly Wall[], S: Vec3, T: Vec3): boolean
  * midpoint of every chord lies within `tolM` of it (at most 2⁸ pieces per edge). A point whose
  * reflection point is not above it sends the shadow out to `farM`.
  */
+/** How far below its reflection point a grazing sightline is taken to pass (see `far`). */
+const GRAZE_BELOW_M = 1e-4;
+
 export function wallShadowRing(pm: PlacedMirror, eyeM: Vec3, wall: Wall, h0: number, farM: number, tolM = 0.005): Ring | null {
   const H = wall.heightM;
   if (H <= h0) return null;
   const A = wall.aM;
   const B = wall.bM;
+  const reflectionAt = (x: number, y: number, z: number): Vec3 => {
+    const m = sphereReflectionPoint(pm.C, pm.R, eyeM, [x, y, z]);
+    return m ? [pm.C[0] + pm.R * m[0], pm.C[1] + pm.R * m[1], pm.C[2] + pm.R * m[2]] : pm.pose.vertexM;
+  };
   const far = (x: number, y: number, z: number): Pair => {
     if (z <= h0) return [x, y];
-    const m = sphereReflectionPoint(pm.C, pm.R, eyeM, [x, y, z]);
-    const P: Vec3 = m ? [pm.C[0] + pm.R * m[0], pm.C[1] + pm.R * m[1], pm.C[2] + pm.R * m[2]] : pm.pose.vertexM;
+    const P = reflectionAt(x, y, z);
     const dx = x - P[0];
     const dy = y - P[1];
     const dl = Math.hypot(dx, dy);
@@ -95,11 +101,26 @@ export function wallShadowRing(pm: PlacedMirror, eyeM: Vec3, wall: Wall, h0: num
     [A[0], A[1]],
     [B[0], B[1]],
   ];
-  // Edges as T(s), s in [0, 1]: side at B going up, top from B to A, side at A going down.
+  // The highest point of a vertical side whose sightline still comes down to the plane: the whole
+  // side when the wall is lower than its reflection point, else just below where they meet.
+  const sideTop = (x: number, y: number): number => {
+    let z = H;
+    for (let i = 0; i < 8; i++) {
+      const Pz = reflectionAt(x, y, z)[2];
+      if (Pz > z) return z;
+      z = Math.max(h0 + 1e-9, Pz - GRAZE_BELOW_M);
+    }
+    return z;
+  };
+  const zB = sideTop(B[0], B[1]);
+  const zA = sideTop(A[0], A[1]);
+  // Edges as T(s), s in [0, 1]: side at B going up, top from B to A, side at A going down. A side
+  // is followed only up to its grazing height: above it every image lies at `farM`, and sampling
+  // there would skip the curved part of the side's image below.
   const edges: ((s: number) => Vec3)[] = [
-    (s) => [B[0], B[1], h0 + s * (H - h0)],
+    (s) => [B[0], B[1], h0 + s * (zB - h0)],
     (s) => [B[0] + s * (A[0] - B[0]), B[1] + s * (A[1] - B[1]), H],
-    (s) => [A[0], A[1], H - s * (H - h0)],
+    (s) => [A[0], A[1], zA - s * (zA - h0)],
   ];
   for (const edge of edges) {
     const t0 = edge(0);
