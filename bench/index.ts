@@ -6,8 +6,9 @@ import { runVehicleBench } from './vehicle.bench';
 import { runBoundedBench } from './bounded.bench';
 import { runLoadBench } from './load.bench';
 import { runReviewBench } from './review.bench';
+import { runQuickBench } from './quick.bench';
 
-const runners: Array<() => Promise<void>> = [runOpticsBench, runVehicleBench, runSheetBench, runBoundedBench, runReviewBench, runPlanBench, runLoadBench];
+const runners: Array<() => Promise<void>> = [runOpticsBench, runVehicleBench, runSheetBench, runBoundedBench, runReviewBench, runQuickBench, runPlanBench, runLoadBench];
 
 async function main(): Promise<void> {
   // BENCH_ONLY=walls: the optics engine's wall growth table alone.
@@ -17,6 +18,8 @@ async function main(): Promise<void> {
   if (process.env.BENCH_ONLY === 'vehicle') return runVehicleBench();
   // BENCH_ONLY=review: the content hash alone.
   if (process.env.BENCH_ONLY === 'review') return runReviewBench();
+  // BENCH_ONLY=quick: ranking the demo catalogue for one quick-sizing question.
+  if (process.env.BENCH_ONLY === 'quick') return runQuickBench();
   for (const run of runners) await run();
 }
 
