@@ -8,7 +8,16 @@ import { runLoadBench } from './load.bench';
 import { runReviewBench } from './review.bench';
 import { runQuickBench } from './quick.bench';
 
-const runners: Array<() => Promise<void>> = [runOpticsBench, runVehicleBench, runSheetBench, runBoundedBench, runReviewBench, runQuickBench, runPlanBench, runLoadBench];
+const runners: Array<() => Promise<void>> = [
+  runOpticsBench,
+  runVehicleBench,
+  runSheetBench,
+  runBoundedBench,
+  runReviewBench,
+  runQuickBench,
+  runPlanBench,
+  runLoadBench,
+];
 
 async function main(): Promise<void> {
   // BENCH_ONLY=walls: the optics engine's wall growth table alone.

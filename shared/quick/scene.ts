@@ -95,3 +95,15 @@ export function quickPlacementBody(
 export function quickProjectName(q: QuickQuestion, when: Date): string {
   return `${SPOT_NAMES[q.spot]} ${when.toISOString().slice(0, 16).replace('T', ' ')}`;
 }
+
+/**
+ * The aim as a person sets it on the far wall: how far the mirror's face turns from square to
+ * the wall, and toward which end of the passage. Square on the far wall faces −y (azimuth −90°).
+ */
+export function aimOnWall(azimuthRad: number): { turnRad: number; toward: 'viewer' | 'opening' | 'square' } {
+  const d = Math.atan2(Math.sin(azimuthRad + Math.PI / 2), Math.cos(azimuthRad + Math.PI / 2));
+  const turnRad = Math.abs(d);
+  // Turning toward −x faces the viewer's end of the passage; toward +x, the opening's far side.
+  if (turnRad < 1e-9) return { turnRad: 0, toward: 'square' };
+  return { turnRad, toward: d < 0 ? 'viewer' : 'opening' };
+}

@@ -54,7 +54,12 @@ describe('quick ranking against a brute-force search', () => {
 
   it('reports each option’s share as the saved job would compute it', () => {
     for (const o of ranked) {
-      const body = quickPlacementBody(q, { catalogueItemId: o.item.id, heightM: o.heightM, azimuthRad: o.azimuthRad, tiltDownRad: o.tiltDownRad });
+      const body = quickPlacementBody(q, {
+        catalogueItemId: o.item.id,
+        heightM: o.heightM,
+        azimuthRad: o.azimuthRad,
+        tiltDownRad: o.tiltDownRad,
+      });
       const p = { ...body, id: 1, customMirror: null, viewerId: body.viewerId ?? null, catalogueItemId: o.item.id };
       const ev = evaluateProject({ scene: quickScene(q), placements: [p], catalogue });
       expect(ev.zones[0].fraction).toBeCloseTo(o.fraction, 3);
