@@ -8,7 +8,7 @@ import { useMemo, useState } from 'react';
 import { ActivityIndicator, StyleSheet, View } from 'react-native';
 import { PlacementLiveNumbers } from '@/components/placement/placement-live-numbers';
 import { useDisplayUnits } from '@/components/placement/use-display-units';
-import { AppText, Button, Card, Notice, Screen } from '@/components/ui';
+import { AppText, Button, Card, Notice } from '@/components/ui';
 import { SafetyCautions } from '@/components/ui/safety-cautions';
 import { palette, spacing } from '@/constants/theme';
 import { useCatalogueQuery } from '@/hooks/use-catalogue';
@@ -51,6 +51,7 @@ function evaluationOf(question: QuickQuestion, option: QuickOption): ProjectEval
   }
 }
 
+/** The screen's content (the route puts it in its Screen). */
 export function QuickSizing() {
   const units = useDisplayUnits();
   const catalogue = useCatalogueQuery();
@@ -60,7 +61,7 @@ export function QuickSizing() {
   const question = useMemo(() => questionOf(draft), [draft]);
   const ranking = useQuickRanking(question, catalogue.data);
   const save = useQuickSaveMutation();
-  const chosen = selected !== null && ranking.answered ? (ranking.options[selected] ?? null) : null;
+  const chosen = selected !== null && question && ranking.answered ? (ranking.options[selected] ?? null) : null;
   const evaluation = useMemo(
     () => (chosen && ranking.answered ? evaluationOf(ranking.answered, chosen) : null),
     [chosen, ranking.answered],
@@ -72,11 +73,7 @@ export function QuickSizing() {
   };
 
   return (
-    <Screen
-      title="Quick sizing"
-      lead="Which mirror, how high, pointed where: measure the spot, read the answer."
-      scrollLabel="Quick sizing"
-    >
+    <>
       <QuickQuestionForm draft={draft} units={units} errors={problems} onChange={change} />
       <View style={styles.answers} testID="quick-answers" aria-busy={ranking.busy} aria-live="polite">
         <View style={styles.answersHead}>
@@ -92,12 +89,12 @@ export function QuickSizing() {
         </View>
         {catalogue.isError ? <Notice tone="stop">The catalogue did not load; check the connection and try again.</Notice> : null}
         {!question ? <AppText tone="muted">Fill in every measurement to see the answer.</AppText> : null}
-        {ranking.problem ? (
+        {ranking.problem && question ? (
           <AppText tone="stop" testID="quick-problem">
             {ranking.problem}
           </AppText>
         ) : null}
-        {ranking.answered
+        {ranking.answered && question
           ? ranking.options.map((o, i) => (
               <QuickOptionCard
                 key={`${o.item.id}-${o.azimuthRad}-${o.tiltDownRad}`}
@@ -139,7 +136,7 @@ export function QuickSizing() {
           </AppText>
         </Card>
       )}
-    </Screen>
+    </>
   );
 }
 
