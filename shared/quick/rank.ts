@@ -42,16 +42,27 @@ export function quickRankInput(q: QuickQuestion, catalogue: readonly CatalogueIt
   };
 }
 
-/** Best first: share of the area seen, then recognisable range (up to what the area needs), then price. */
+/**
+ * Best first: share of the area seen, then recognisable range (up to what the area needs), then
+ * price. Each mirror appears once, at its best aim: the search is asked for twice as many
+ * options, since a mirror's neighbouring aims often rank next to each other.
+ */
 export function rankQuick(q: QuickQuestion, catalogue: readonly CatalogueItemDto[], limit = 5): QuickOption[] {
   const byId = new Map(catalogue.map((c) => [String(c.id), c]));
-  return rankOptions(quickRankInput(q, catalogue, limit)).map((o) => ({
-    item: byId.get(o.item.id) as CatalogueItemDto,
-    heightM: o.mountPoint.vertexM[2],
-    azimuthRad: o.aim.azimuthRad,
-    tiltDownRad: o.aim.tiltDownRad,
-    fraction: o.fraction,
-    rangeM: o.rangeM,
-    region: o.region,
-  }));
+  const seen = new Set<string>();
+  const out: QuickOption[] = [];
+  for (const o of rankOptions(quickRankInput(q, catalogue, 2 * limit))) {
+    if (seen.has(o.item.id) || out.length >= limit) continue;
+    seen.add(o.item.id);
+    out.push({
+      item: byId.get(o.item.id) as CatalogueItemDto,
+      heightM: o.mountPoint.vertexM[2],
+      azimuthRad: o.aim.azimuthRad,
+      tiltDownRad: o.aim.tiltDownRad,
+      fraction: o.fraction,
+      rangeM: o.rangeM,
+      region: o.region,
+    });
+  }
+  return out;
 }

@@ -66,6 +66,15 @@ describe('quick ranking against a brute-force search', () => {
     }
   });
 
+  it('shows each mirror once, at its best aim', () => {
+    const codes = ranked.map((o) => o.item.code);
+    expect(new Set(codes).size).toBe(codes.length);
+    for (const o of ranked) {
+      const best = brute.find((b) => b.code === o.item.code)!;
+      expect(o.fraction).toBeGreaterThanOrEqual(best.fraction - 0.01);
+    }
+  });
+
   it('lists options best first by share of the area seen', () => {
     for (let k = 1; k < ranked.length; k++) {
       expect(Math.floor(ranked[k].fraction * 100 + 1e-9)).toBeLessThanOrEqual(Math.floor(ranked[k - 1].fraction * 100 + 1e-9));
