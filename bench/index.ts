@@ -6,6 +6,7 @@ import { runVehicleBench } from './vehicle.bench';
 import { runBoundedBench } from './bounded.bench';
 import { runLoadBench } from './load.bench';
 import { runReviewBench } from './review.bench';
+import { runQuickBench } from './quick.bench';
 
 const runners: Array<() => Promise<void>> = [
   runOpticsBench,
@@ -13,6 +14,7 @@ const runners: Array<() => Promise<void>> = [
   runSheetBench,
   runBoundedBench,
   runReviewBench,
+  runQuickBench,
   runPlanBench,
   runLoadBench,
 ];
@@ -25,6 +27,8 @@ async function main(): Promise<void> {
   if (process.env.BENCH_ONLY === 'vehicle') return runVehicleBench();
   // BENCH_ONLY=review: the content hash alone.
   if (process.env.BENCH_ONLY === 'review') return runReviewBench();
+  // BENCH_ONLY=quick: ranking the demo catalogue for one quick-sizing question.
+  if (process.env.BENCH_ONLY === 'quick') return runQuickBench();
   for (const run of runners) await run();
 }
 

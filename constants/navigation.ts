@@ -5,7 +5,7 @@
 import type { Href } from 'expo-router';
 import type { Role } from '@/shared/schemas';
 
-export type NavKey = 'projects' | 'catalogue' | 'reviews' | 'users' | 'outbox' | 'account';
+export type NavKey = 'quick' | 'projects' | 'catalogue' | 'reviews' | 'users' | 'outbox' | 'account';
 
 export interface NavItem {
   key: NavKey;
@@ -16,6 +16,8 @@ export interface NavItem {
 }
 
 export const navItems: readonly NavItem[] = [
+  // Quick sizing: the installer's first question on site, one tap from anywhere.
+  { key: 'quick', label: 'Quick size', href: '/quick', roles: ['installer'] },
   // Reviewers read the organisation's projects (read-only); the server enforces what each may change.
   { key: 'projects', label: 'Projects', href: '/projects', roles: ['installer', 'reviewer', 'admin'] },
   // Everyone reads the mirror catalogue; only the admin's screens offer editing.
@@ -28,7 +30,7 @@ export const navItems: readonly NavItem[] = [
 
 /** The order a role's tabs appear in: their daily work first, Account last. */
 const orderByRole: Record<Role, readonly NavKey[]> = {
-  installer: ['projects', 'catalogue', 'account'],
+  installer: ['projects', 'quick', 'catalogue', 'account'],
   reviewer: ['reviews', 'projects', 'catalogue', 'account'],
   admin: ['users', 'outbox', 'projects', 'catalogue', 'account'],
 };

@@ -14,6 +14,13 @@ export function NavIcon({ name, color, size = 24 }: { name: NavKey; color: strin
           <Path d="M9 9 L19 13 M9 9 L13 19" {...stroke} />
         </>
       ) : null}
+      {name === 'quick' ? (
+        <>
+          {/* A stopwatch whose hand is a mirror's fan: the answer in a moment. */}
+          <Circle cx={12} cy={13} r={8} {...stroke} />
+          <Path d="M10 3 H14 M12 13 L16 9 M12 13 L16.5 14.5" {...stroke} />
+        </>
+      ) : null}
       {name === 'reviews' ? (
         <>
           <Path d="M12 3 L20 6 V12 C20 16.5 16.5 19.8 12 21 C7.5 19.8 4 16.5 4 12 V6 Z" {...stroke} />

@@ -3,7 +3,7 @@ import type { Role } from '@/shared/schemas';
 
 describe('navigation with projects and the catalogue', () => {
   it.each<[Role, string[]]>([
-    ['installer', ['projects', 'catalogue', 'account']],
+    ['installer', ['projects', 'quick', 'catalogue', 'account']],
     ['reviewer', ['reviews', 'projects', 'catalogue', 'account']],
     ['admin', ['users', 'outbox', 'projects', 'catalogue', 'account']],
   ])('gives the %s the sections %j', (role, keys) => {

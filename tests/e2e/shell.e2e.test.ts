@@ -10,7 +10,7 @@ afterAll(async () => {
 });
 
 const NAV: Record<string, { shown: string[]; hidden: string[] }> = {
-  installer: { shown: ['nav-projects', 'nav-catalogue', 'nav-account'], hidden: ['nav-users', 'nav-outbox', 'nav-reviews'] },
+  installer: { shown: ['nav-projects', 'nav-quick', 'nav-catalogue', 'nav-account'], hidden: ['nav-users', 'nav-outbox', 'nav-reviews'] },
   reviewer: { shown: ['nav-reviews', 'nav-projects', 'nav-catalogue', 'nav-account'], hidden: ['nav-users', 'nav-outbox'] },
   admin: { shown: ['nav-users', 'nav-outbox', 'nav-projects', 'nav-catalogue', 'nav-account'], hidden: ['nav-reviews'] },
 };

@@ -1,0 +1,3 @@
+export * from './question';
+export * from './scene';
+export * from './rank';
