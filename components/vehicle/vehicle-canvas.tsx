@@ -17,6 +17,7 @@ import { usePlanViewport } from '@/components/plan/use-plan-viewport';
 import { ZoomControls } from '@/components/plan/zoom-controls';
 import { azimuthFromDisplay, displayPlacements, fitBounds, fromDisplay } from './vehicle-frame';
 import { VehicleDrawing } from './vehicle-drawing';
+import type { PartPlacing } from './vehicle-parts-editor';
 
 /** A drag in the vehicle's plan frame. */
 export type VehicleDrag =
@@ -34,6 +35,8 @@ export interface VehicleCanvasProps {
   onTapPlan: (pointM: PairM) => void;
   onDrag: (drag: VehicleDrag) => void;
   reserveBottom?: number;
+  /** A cylinder or field corner waiting for a tap (drawn highlighted). */
+  placing?: PartPlacing;
 }
 
 /** The gesture machine reads walls, zones and viewers from a scene: a vehicle's top view has none. */
@@ -86,6 +89,7 @@ export function VehicleCanvas(props: VehicleCanvasProps) {
           units={units}
           view={viewport.view}
           size={viewport.size}
+          placing={props.placing ?? null}
         />
       </View>
       <ZoomControls onZoomIn={() => viewport.zoomBy(1.4)} onZoomOut={() => viewport.zoomBy(1 / 1.4)} onFit={viewport.fit} />
