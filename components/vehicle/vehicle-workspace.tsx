@@ -113,17 +113,30 @@ export function VehicleWorkspace({ project, catalogue }: { project: ProjectDto; 
     );
   }
 
+  const placingName =
+    placing?.kind === 'target'
+      ? `test cylinder “${base.vehicle?.targets.find((t) => t.id === placing.id)?.name ?? ''}”`
+      : placing
+        ? `corner ${placing.index + 1} of “${base.vehicle?.groundFields.find((f) => f.id === placing.id)?.name ?? ''}”`
+        : '';
   const banner = (
-    <PlanNotices
-      saveProblem={edits.problem}
-      onDismissSaveProblem={edits.dismissProblem}
-      writes={edits.writes}
-      placements={edits.placements}
-      editorOpenFor={null}
-      toolProblem={localProblem}
-      catalogue={catalogue}
-      units={units}
-    />
+    <>
+      {placing ? (
+        <Notice tone="info" testID="vehicle-placing">
+          {`Tap the top view where ${placingName} goes.`}
+        </Notice>
+      ) : null}
+      <PlanNotices
+        saveProblem={edits.problem}
+        onDismissSaveProblem={edits.dismissProblem}
+        writes={edits.writes}
+        placements={edits.placements}
+        editorOpenFor={null}
+        toolProblem={localProblem}
+        catalogue={catalogue}
+        units={units}
+      />
+    </>
   );
 
   const details = (

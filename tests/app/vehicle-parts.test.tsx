@@ -30,7 +30,7 @@ function busEvaluation() {
     mirrorClass: m.mirrorClass,
     servesFieldIds: m.servesFieldIds,
   }));
-  const ev = vehicleViewOf(scene, evaluateVehicleJob({ scene, placements, catalogue: demoCatalogueDtos() }));
+  const ev = vehicleViewOf(scene, { ...evaluateVehicleJob({ scene, placements, catalogue: demoCatalogueDtos() }), zones: [] });
   if (!ev) throw new Error('the demo bus has a vehicle');
   return ev;
 }
