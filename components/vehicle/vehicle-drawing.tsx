@@ -242,7 +242,7 @@ function MirrorMarker({
       <Line x1={c[0]} y1={c[1]} x2={ahead[0]} y2={ahead[1]} stroke={colour} strokeWidth={2.5} />
       <Rect x={label.x} y={label.y} width={label.w} height={label.h} rx={3} fill={palette.card} fillOpacity={0.85} />
       <SvgText
-        testID={`vehicle-marker-label-${placement.id}`}
+        testID={`vehicle-mirror-label-${placement.id}`}
         x={label.x + label.w / 2}
         y={label.y + label.h - 4}
         textAnchor="middle"
