@@ -62,10 +62,10 @@ describe('an installer on a phone checks a test cylinder on the demo school bus'
 
   it('opens the demo school bus and adds a test cylinder from the details', async () => {
     await signIn(page, product.server.url, installer.email, DEMO_PASSWORD);
+    await page.waitForURL(/\/projects/);
     const list = await page.request.get(`${product.server.url}/api/projects`);
-    const body = (await list.json()) as { items?: { id: number; name: string }[] } | { id: number; name: string }[];
-    const items = Array.isArray(body) ? body : (body.items ?? []);
-    projectId = items.find((p) => p.name === DEMO_SCHOOL_BUS.name)!.id;
+    const { projects } = (await list.json()) as { projects: { id: number; name: string }[] };
+    projectId = projects.find((p) => p.name === DEMO_SCHOOL_BUS.name)!.id;
     await page.goto(`${product.server.url}/projects/${projectId}`);
     await byTestId(page, 'vehicle-canvas').waitFor({ state: 'visible' });
     await byTestId(page, 'vehicle-drawer-toggle').click();
