@@ -16,6 +16,14 @@ export const MIRROR_LABEL_H = 16;
 /** Width of a label in the 12 px semibold face, a little generous (common practice: ~0.62 em per character). */
 export const mirrorLabelWidth = (text: string) => text.length * 7.4 + 6;
 
+/** The ring a mirror's marker takes on screen, for other labels to keep clear of. */
+export const markerRing = (c: readonly [number, number]): LabelBox => ({
+  x: c[0] - MARKER_RING_PX,
+  y: c[1] - MARKER_RING_PX,
+  w: 2 * MARKER_RING_PX,
+  h: 2 * MARKER_RING_PX,
+});
+
 /** The label's box for a mirror at screen point `c` aiming along display azimuth `az`. */
 export function mirrorLabelBox(
   c: readonly [number, number],
@@ -23,8 +31,10 @@ export function mirrorLabelBox(
   text: string,
   withHandle: boolean,
   bounds: LabelBox,
+  /** Other symbols to keep clear of (the other mirrors' rings). */
+  others: readonly LabelBox[] = [],
 ): LabelBox {
-  const ring: LabelBox = { x: c[0] - MARKER_RING_PX, y: c[1] - MARKER_RING_PX, w: 2 * MARKER_RING_PX, h: 2 * MARKER_RING_PX };
+  const ring = markerRing(c);
   const reach = withHandle ? AIM_HANDLE_PX : MARKER_PX * 0.9;
   const end = alongAzimuth([c[0], c[1]], azDisplayRad, reach);
   const segments: Segment[] = [
@@ -33,7 +43,7 @@ export function mirrorLabelBox(
       [end[0], end[1]],
     ],
   ];
-  const boxes: LabelBox[] = [ring];
+  const boxes: LabelBox[] = [ring, ...others];
   if (withHandle) boxes.push({ x: end[0] - AIM_KNOB_PX, y: end[1] - AIM_KNOB_PX, w: 2 * AIM_KNOB_PX, h: 2 * AIM_KNOB_PX });
   return placeLabel(c, { w: mirrorLabelWidth(text), h: MIRROR_LABEL_H }, { segments, boxes }, bounds, 4);
 }

@@ -47,7 +47,11 @@ export function VehicleCanvas(props: VehicleCanvasProps) {
   const frameRef = useRef<View>(null);
   const shown = useMemo(() => displayPlacements(placements), [placements]);
   // The vehicle and its fields: moving a mirror does not change what "fit" shows.
-  const bounds = useMemo(() => fitBounds(evaluation.geometry, evaluation.fields), [evaluation.geometry, evaluation.fields]);
+  const targets = evaluation.vehicle.targets;
+  const bounds = useMemo(
+    () => fitBounds(evaluation.geometry, evaluation.fields, targets),
+    [evaluation.geometry, evaluation.fields, targets],
+  );
   const viewport = usePlanViewport(frameRef, bounds, reserveBottom);
   const { onSelect, onTapPlan, onDrag } = props;
   const handleDrag = useCallback(

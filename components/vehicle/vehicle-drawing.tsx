@@ -16,8 +16,9 @@ import { alongAzimuth, gridLines, multiPolygonToPath, ringsToPath, scaleBar } fr
 import { AIM_HANDLE_PX, toScreen, type PlanView, type Size } from '@/components/plan/plan-view';
 import { azimuthToDisplay, polygonToDisplay, ringCentroid, ringToDisplay, toDisplay } from './vehicle-frame';
 import { fieldLabel } from './vehicle-words';
-import { AIM_KNOB_PX, MARKER_PX, MIRROR_LABEL_H, mirrorLabelBox } from './mirror-label';
+import { AIM_KNOB_PX, MARKER_PX, MIRROR_LABEL_H, markerRing, mirrorLabelBox } from './mirror-label';
 import type { PartPlacing } from './vehicle-parts-editor';
+import type { LabelBox } from '@/shared/label-placement';
 
 const HATCH_ID = 'vehicle-gap-hatch';
 
@@ -135,6 +136,7 @@ export function VehicleDrawing({ evaluation, placements, selectedId, canEdit, un
           view={view}
           selected={p.id === selectedId}
           withHandle={p.id === selectedId && canEdit}
+          others={placements.filter((o) => o.id !== p.id).map((o) => markerRing(toScreen(view, toDisplay(o.positionM))))}
           size={size}
           problem={evaluation.mirrors.get(p.id)?.problem?.message ?? null}
         />
@@ -203,6 +205,7 @@ function MirrorMarker({
   selected,
   withHandle,
   size,
+  others,
   problem,
 }: {
   placement: VehiclePlacement;
@@ -210,6 +213,7 @@ function MirrorMarker({
   selected: boolean;
   withHandle: boolean;
   size: Size;
+  others: readonly LabelBox[];
   problem: string | null;
 }) {
   const c = toScreen(view, toDisplay(placement.positionM));
@@ -218,7 +222,7 @@ function MirrorMarker({
   const ahead = alongAzimuth(c, az, MARKER_PX * 0.9);
   const colour = problem ? palette.stop : palette.glass;
   // Beside the marker, clear of its aim line and (picked) the aim handle, whatever the zoom.
-  const label = mirrorLabelBox(c, az, placement.label, withHandle, { x: 0, y: 0, w: size.width, h: size.height });
+  const label = mirrorLabelBox(c, az, placement.label, withHandle, { x: 0, y: 0, w: size.width, h: size.height }, others);
   return (
     <G testID={`vehicle-marker-${placement.id}`} pointerEvents="none">
       <Circle

@@ -17,8 +17,9 @@ import { AIM_HANDLE_PX } from '@/components/plan/plan-view';
 import { polygonArea } from '@/shared/geometry/polygon';
 import { boxMeetsSegment, boxesOverlap } from '@/shared/label-placement';
 import { vehicle as vehicleSchema, vehicleKinds, vehiclePreset } from '@/shared/schemas/vehicle';
-import { vehicleFields } from '@/shared/vehicle';
-import { DEMO_TRUCK } from '../../server/seeders/demo-vehicles';
+import { vehicleFields, vehicleGeometry } from '@/shared/vehicle';
+import { DEMO_SCHOOL_BUS, DEMO_TRUCK } from '../../server/seeders/demo-vehicles';
+import { fitBounds, toDisplay } from '@/components/vehicle/vehicle-frame';
 
 describe('adding parts to a vehicle', () => {
   it('keeps every preset valid after adding a body part, an own field and a test cylinder', () => {
@@ -96,5 +97,19 @@ describe('a mirror’s label on the top view', () => {
       ),
       { numRuns: 500 },
     );
+  });
+});
+
+describe('fitting the top view', () => {
+  it('keeps every test cylinder of the demo bus inside what "fit" shows, cylinder P 1.8 m ahead of the bumper included', () => {
+    const v = DEMO_SCHOOL_BUS.scene.vehicle!;
+    const b = fitBounds(vehicleGeometry(v), [], v.targets)!;
+    for (const t of v.targets) {
+      const [dx, dy] = toDisplay(t.positionM);
+      expect(dx - t.diameterM / 2).toBeGreaterThanOrEqual(b.minX);
+      expect(dx + t.diameterM / 2).toBeLessThanOrEqual(b.maxX);
+      expect(dy - t.diameterM / 2).toBeGreaterThanOrEqual(b.minY);
+      expect(dy + t.diameterM / 2).toBeLessThanOrEqual(b.maxY);
+    }
   });
 });
