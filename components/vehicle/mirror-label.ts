@@ -47,3 +47,10 @@ export function mirrorLabelBox(
   if (withHandle) boxes.push({ x: end[0] - AIM_KNOB_PX, y: end[1] - AIM_KNOB_PX, w: 2 * AIM_KNOB_PX, h: 2 * AIM_KNOB_PX });
   return placeLabel(c, { w: mirrorLabelWidth(text), h: MIRROR_LABEL_H }, { segments, boxes }, bounds, 4);
 }
+
+/**
+ * The label's text on the top view: the mirror's name up to its first space ("X-L" of "X-L
+ * cross-view, left fender"), at most 10 characters; the whole name is in the details. A long
+ * name drawn in full reached across the other mirror and read as its label on a phone.
+ */
+export const shortMirrorLabel = (label: string): string => label.trim().split(/\s+/)[0].slice(0, 10);

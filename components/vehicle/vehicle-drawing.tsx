@@ -16,7 +16,7 @@ import { alongAzimuth, gridLines, multiPolygonToPath, ringsToPath, scaleBar } fr
 import { AIM_HANDLE_PX, toScreen, type PlanView, type Size } from '@/components/plan/plan-view';
 import { azimuthToDisplay, polygonToDisplay, ringCentroid, ringToDisplay, toDisplay } from './vehicle-frame';
 import { fieldLabel } from './vehicle-words';
-import { AIM_KNOB_PX, MARKER_PX, MIRROR_LABEL_H, markerRing, mirrorLabelBox } from './mirror-label';
+import { AIM_KNOB_PX, MARKER_PX, MIRROR_LABEL_H, markerRing, mirrorLabelBox, shortMirrorLabel } from './mirror-label';
 import type { PartPlacing } from './vehicle-parts-editor';
 import type { LabelBox } from '@/shared/label-placement';
 
@@ -222,7 +222,8 @@ function MirrorMarker({
   const ahead = alongAzimuth(c, az, MARKER_PX * 0.9);
   const colour = problem ? palette.stop : palette.glass;
   // Beside the marker, clear of its aim line and (picked) the aim handle, whatever the zoom.
-  const label = mirrorLabelBox(c, az, placement.label, withHandle, { x: 0, y: 0, w: size.width, h: size.height }, others);
+  const text = shortMirrorLabel(placement.label);
+  const label = mirrorLabelBox(c, az, text, withHandle, { x: 0, y: 0, w: size.width, h: size.height }, others);
   return (
     <G testID={`vehicle-marker-${placement.id}`} pointerEvents="none">
       <Circle
@@ -254,7 +255,7 @@ function MirrorMarker({
         fontSize={12}
         fill={palette.asphalt}
       >
-        {placement.label}
+        {text}
       </SvgText>
     </G>
   );

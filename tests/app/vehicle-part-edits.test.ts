@@ -3,7 +3,7 @@
  * label goes on the top view (components/vehicle/mirror-label.ts).
  */
 import fc from 'fast-check';
-import { mirrorLabelBox, AIM_KNOB_PX, MARKER_RING_PX } from '@/components/vehicle/mirror-label';
+import { mirrorLabelBox, shortMirrorLabel, AIM_KNOB_PX, MARKER_RING_PX } from '@/components/vehicle/mirror-label';
 import {
   addBodyBox,
   addFieldCorner,
@@ -111,5 +111,12 @@ describe('fitting the top view', () => {
       expect(dy - t.diameterM / 2).toBeGreaterThanOrEqual(b.minY);
       expect(dy + t.diameterM / 2).toBeLessThanOrEqual(b.maxY);
     }
+  });
+});
+
+describe('a mirror’s name on the top view', () => {
+  it('keeps a short name whole and cuts a long one to its first word', () => {
+    expect(shortMirrorLabel('V-1')).toBe('V-1');
+    expect(shortMirrorLabel('X-L cross-view, left fender')).toBe('X-L');
   });
 });
