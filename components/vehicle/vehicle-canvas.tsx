@@ -17,6 +17,7 @@ import { usePlanViewport } from '@/components/plan/use-plan-viewport';
 import { ZoomControls } from '@/components/plan/zoom-controls';
 import { azimuthFromDisplay, displayPlacements, fitBounds, fromDisplay } from './vehicle-frame';
 import { VehicleDrawing } from './vehicle-drawing';
+import type { PartPlacing } from './vehicle-parts-editor';
 
 /** A drag in the vehicle's plan frame. */
 export type VehicleDrag =
@@ -34,6 +35,8 @@ export interface VehicleCanvasProps {
   onTapPlan: (pointM: PairM) => void;
   onDrag: (drag: VehicleDrag) => void;
   reserveBottom?: number;
+  /** A cylinder or field corner waiting for a tap (drawn highlighted). */
+  placing?: PartPlacing;
 }
 
 /** The gesture machine reads walls, zones and viewers from a scene: a vehicle's top view has none. */
@@ -44,7 +47,11 @@ export function VehicleCanvas(props: VehicleCanvasProps) {
   const frameRef = useRef<View>(null);
   const shown = useMemo(() => displayPlacements(placements), [placements]);
   // The vehicle and its fields: moving a mirror does not change what "fit" shows.
-  const bounds = useMemo(() => fitBounds(evaluation.geometry, evaluation.fields), [evaluation.geometry, evaluation.fields]);
+  const targets = evaluation.vehicle.targets;
+  const bounds = useMemo(
+    () => fitBounds(evaluation.geometry, evaluation.fields, targets),
+    [evaluation.geometry, evaluation.fields, targets],
+  );
   const viewport = usePlanViewport(frameRef, bounds, reserveBottom);
   const { onSelect, onTapPlan, onDrag } = props;
   const handleDrag = useCallback(
@@ -86,6 +93,7 @@ export function VehicleCanvas(props: VehicleCanvasProps) {
           units={units}
           view={viewport.view}
           size={viewport.size}
+          placing={props.placing ?? null}
         />
       </View>
       <ZoomControls onZoomIn={() => viewport.zoomBy(1.4)} onZoomOut={() => viewport.zoomBy(1 / 1.4)} onFit={viewport.fit} />

@@ -17,11 +17,14 @@ import { spacing } from '@/constants/theme';
 import type { VehicleEvaluation, VehiclePlacement } from '@/hooks/use-vehicle-evaluation';
 import type { EditableFields } from '@/hooks/use-placement-writes';
 import type { MirrorClass, Scene } from '@/shared/schemas';
+import type { DriverSide, Vehicle } from '@/shared/schemas/vehicle';
 import type { UnitSystem } from '@/shared/units';
 import { RULE_SETS, type RuleSetId } from '@/shared/vehicle';
 import { MIRROR_CLASS_ORDER, MIRROR_TEMPLATES } from './vehicle-mirrors';
 import { VehicleFieldList } from './vehicle-field-list';
 import { VehicleSideView } from './vehicle-side-view';
+import { VehiclePartsEditor, type PartPlacing } from './vehicle-parts-editor';
+import { ServedFieldsChooser } from './served-fields-chooser';
 import { KIND_LABELS, PLANNING_LINE, RULE_SET_ORDER, RULE_SET_SHORT } from './vehicle-words';
 
 /** The planning line and the four cautions: together wherever vehicle fields are shown. */
@@ -49,6 +52,10 @@ export interface VehicleDetailsProps {
   onChangeMirror: (id: number, patch: Partial<EditableFields>, autosaveMs?: number) => void;
   onDeleteMirror: (id: number) => void;
   onDeselect: () => void;
+  onSaveVehicle: (v: Vehicle) => void;
+  onSwitchDriveSide: (side: DriverSide) => void;
+  placing: PartPlacing;
+  onPlacing: (p: PartPlacing) => void;
 }
 
 export function VehicleDetails(p: VehicleDetailsProps) {
@@ -90,6 +97,15 @@ export function VehicleDetails(p: VehicleDetailsProps) {
       </View>
       <VehicleFieldList evaluation={evaluation} />
       <VehicleSideView evaluation={evaluation} placements={p.placements} selectedId={p.selectedId} units={units} />
+      <VehiclePartsEditor
+        evaluation={evaluation}
+        canEdit={p.canEdit}
+        units={units}
+        onSaveVehicle={p.onSaveVehicle}
+        onSwitchDriveSide={p.onSwitchDriveSide}
+        placing={p.placing}
+        onPlacing={p.onPlacing}
+      />
       <AppText variant="small" tone="muted" testID="vehicle-summary">
         {`${KIND_LABELS[v.kind]}, ${v.driverSide === 'left' ? 'left' : 'right'}-hand drive, ${v.lengthM} m long and ${v.widthM} m wide.`}
       </AppText>
@@ -139,6 +155,12 @@ function MirrorEditor(p: VehicleDetailsProps & { placement: VehiclePlacement }) 
         editable={p.canEdit}
         step={Math.PI / 90}
         onChangeValue={(v) => v !== null && change({ tiltDownRad: v }, 900)}
+      />
+      <ServedFieldsChooser
+        fields={p.evaluation.fields}
+        value={m.servesFieldIds ?? null}
+        disabled={!p.canEdit}
+        onChange={(servesFieldIds) => change({ servesFieldIds })}
       />
       {ev ? <PlacementNumbersPanel evaluation={ev} zones={[]} scene={EMPTY_SCENE} units={p.units} /> : null}
       {ev ? <ElevationView evaluation={ev} units={p.units} testID="vehicle-mirror-elevation" /> : null}

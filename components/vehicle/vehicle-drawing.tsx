@@ -16,9 +16,11 @@ import { alongAzimuth, gridLines, multiPolygonToPath, ringsToPath, scaleBar } fr
 import { AIM_HANDLE_PX, toScreen, type PlanView, type Size } from '@/components/plan/plan-view';
 import { azimuthToDisplay, polygonToDisplay, ringCentroid, ringToDisplay, toDisplay } from './vehicle-frame';
 import { fieldLabel } from './vehicle-words';
+import { AIM_KNOB_PX, MARKER_PX, MIRROR_LABEL_H, markerRing, mirrorLabelBox, shortMirrorLabel } from './mirror-label';
+import type { PartPlacing } from './vehicle-parts-editor';
+import type { LabelBox } from '@/shared/label-placement';
 
 const HATCH_ID = 'vehicle-gap-hatch';
-const MARKER_PX = 13;
 
 export interface VehicleDrawingProps {
   evaluation: VehicleEvaluation;
@@ -28,11 +30,12 @@ export interface VehicleDrawingProps {
   units: UnitSystem;
   view: PlanView;
   size: Size;
+  placing?: PartPlacing;
 }
 
 const verdictColour = (v: string | undefined) => (v === 'pass' ? palette.go : v === 'short' ? palette.stop : palette.glass);
 
-export function VehicleDrawing({ evaluation, placements, selectedId, canEdit, units, view, size }: VehicleDrawingProps) {
+export function VehicleDrawing({ evaluation, placements, selectedId, canEdit, units, view, size, placing = null }: VehicleDrawingProps) {
   const grid = useMemo(() => gridLines(view, size, units), [view, size, units]);
   const bar = scaleBar(view, units);
   const scores = useMemo(() => new Map((evaluation.score?.fields ?? []).map((s) => [s.field.id, s])), [evaluation.score]);
@@ -107,6 +110,8 @@ export function VehicleDrawing({ evaluation, placements, selectedId, canEdit, un
         ))}
         <Path d={outline} fill="none" stroke={palette.asphalt} strokeWidth={2} />
         <EyePoints evaluation={evaluation} view={view} />
+        <Cylinders evaluation={evaluation} view={view} placing={placing} />
+        <Corners evaluation={evaluation} view={view} placing={placing} />
         {fieldLabels(evaluation, scores, view).map(({ id, text, x, y, w, verdict }) => (
           <G key={id}>
             <Rect x={x - w / 2} y={y - 11} width={w} height={20} rx={4} fill={palette.card} fillOpacity={0.92} />
@@ -130,6 +135,9 @@ export function VehicleDrawing({ evaluation, placements, selectedId, canEdit, un
           placement={p}
           view={view}
           selected={p.id === selectedId}
+          withHandle={p.id === selectedId && canEdit}
+          others={placements.filter((o) => o.id !== p.id).map((o) => markerRing(toScreen(view, toDisplay(o.positionM))))}
+          size={size}
           problem={evaluation.mirrors.get(p.id)?.problem?.message ?? null}
         />
       ))}
@@ -195,11 +203,17 @@ function MirrorMarker({
   placement,
   view,
   selected,
+  withHandle,
+  size,
+  others,
   problem,
 }: {
   placement: VehiclePlacement;
   view: PlanView;
   selected: boolean;
+  withHandle: boolean;
+  size: Size;
+  others: readonly LabelBox[];
   problem: string | null;
 }) {
   const c = toScreen(view, toDisplay(placement.positionM));
@@ -207,6 +221,9 @@ function MirrorMarker({
   const across = alongAzimuth([0, 0], az + Math.PI / 2, MARKER_PX);
   const ahead = alongAzimuth(c, az, MARKER_PX * 0.9);
   const colour = problem ? palette.stop : palette.glass;
+  // Beside the marker, clear of its aim line and (picked) the aim handle, whatever the zoom.
+  const text = shortMirrorLabel(placement.label);
+  const label = mirrorLabelBox(c, az, text, withHandle, { x: 0, y: 0, w: size.width, h: size.height }, others);
   return (
     <G testID={`vehicle-marker-${placement.id}`} pointerEvents="none">
       <Circle
@@ -228,8 +245,17 @@ function MirrorMarker({
         strokeLinecap="round"
       />
       <Line x1={c[0]} y1={c[1]} x2={ahead[0]} y2={ahead[1]} stroke={colour} strokeWidth={2.5} />
-      <SvgText x={c[0]} y={c[1] + MARKER_PX + 18} textAnchor="middle" fontFamily={fonts.semibold} fontSize={12} fill={palette.asphalt}>
-        {placement.label}
+      <Rect x={label.x} y={label.y} width={label.w} height={label.h} rx={3} fill={palette.card} fillOpacity={0.85} />
+      <SvgText
+        testID={`vehicle-mirror-label-${placement.id}`}
+        x={label.x + label.w / 2}
+        y={label.y + label.h - 4}
+        textAnchor="middle"
+        fontFamily={fonts.semibold}
+        fontSize={12}
+        fill={palette.asphalt}
+      >
+        {text}
       </SvgText>
     </G>
   );
@@ -241,7 +267,77 @@ function AimHandle({ placement, view }: { placement: VehiclePlacement; view: Pla
   return (
     <G testID="vehicle-aim-handle" pointerEvents="none">
       <Line x1={c[0]} y1={c[1]} x2={end[0]} y2={end[1]} stroke={palette.beaconPressed} strokeWidth={2.5} strokeDasharray="4 3" />
-      <Circle cx={end[0]} cy={end[1]} r={11} fill={palette.beacon} stroke={palette.asphalt} strokeWidth={2} />
+      <Circle cx={end[0]} cy={end[1]} r={AIM_KNOB_PX} fill={palette.beacon} stroke={palette.asphalt} strokeWidth={2} />
+    </G>
+  );
+}
+
+/** The test cylinders to scale (at least a dot): green when seen and meeting their image rule, amber when seen only, red when not seen. */
+function Cylinders({ evaluation, view, placing }: { evaluation: VehicleEvaluation; view: PlanView; placing: PartPlacing }) {
+  const seen = new Map((evaluation.score?.targets ?? []).map((t) => [t.targetId, t]));
+  return (
+    <G testID="vehicle-cylinders">
+      {evaluation.vehicle.targets.map((t) => {
+        const c = toScreen(view, toDisplay(t.positionM));
+        const r = Math.max(5, (t.diameterM / 2) * view.scale);
+        const s = seen.get(t.id);
+        const colour = !s ? palette.glass : !s.visible ? palette.stop : s.passes ? palette.go : palette.beaconPressed;
+        const picked = placing?.kind === 'target' && placing.id === t.id;
+        const short = t.name.split(',')[0].slice(0, 12);
+        return (
+          <G key={t.id} testID={`vehicle-cylinder-mark-${t.id}`}>
+            <Circle
+              cx={c[0]}
+              cy={c[1]}
+              r={r}
+              fill={colour}
+              fillOpacity={0.75}
+              stroke={picked ? palette.beaconPressed : palette.asphalt}
+              strokeWidth={picked ? 3 : 1.2}
+            />
+            <SvgText x={c[0] + r + 3} y={c[1] + 4} fontFamily={fonts.semibold} fontSize={11} fill={palette.asphalt}>
+              {short}
+            </SvgText>
+          </G>
+        );
+      })}
+    </G>
+  );
+}
+
+/** The numbered corners of the own field whose corner is being placed. */
+function Corners({ evaluation, view, placing }: { evaluation: VehicleEvaluation; view: PlanView; placing: PartPlacing }) {
+  if (placing?.kind !== 'corner') return null;
+  const f = evaluation.vehicle.groundFields.find((g) => g.id === placing.id);
+  if (!f) return null;
+  return (
+    <G testID="vehicle-field-corners">
+      {f.polygonM.map((p, i) => {
+        const c = toScreen(view, toDisplay(p));
+        const on = i === placing.index;
+        return (
+          <G key={i}>
+            <Circle
+              cx={c[0]}
+              cy={c[1]}
+              r={on ? 9 : 6}
+              fill={on ? palette.beacon : palette.card}
+              stroke={palette.asphalt}
+              strokeWidth={1.5}
+            />
+            <SvgText
+              x={c[0]}
+              y={c[1] - 12}
+              textAnchor="middle"
+              fontFamily={fonts.semibold}
+              fontSize={MIRROR_LABEL_H - 5}
+              fill={palette.asphalt}
+            >
+              {String(i + 1)}
+            </SvgText>
+          </G>
+        );
+      })}
     </G>
   );
 }

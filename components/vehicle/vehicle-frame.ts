@@ -37,8 +37,17 @@ export function displayPlacements<P extends Pick<PlacementDto, 'positionM' | 'az
  * that end near it (mirrors hang on the body, so they are inside). Fields the rule runs to the horizon are drawn but left out of the fit, or a
  * 60 m strip would shrink the vehicle to a few pixels.
  */
-export function fitBounds(g: VehicleGeometry, fields: readonly VehicleField[]): Bounds | null {
+export function fitBounds(
+  g: VehicleGeometry,
+  fields: readonly VehicleField[],
+  targets: readonly { positionM: readonly [number, number]; diameterM: number }[] = [],
+): Bounds | null {
   const pts: Pair[] = [];
+  // Test cylinders with their size and a little ground around them, so one ahead of the bumper is not cut off.
+  targets.forEach((t) => {
+    const r = t.diameterM / 2 + 0.3;
+    pts.push(toDisplay([t.positionM[0] + r, t.positionM[1] + r]), toDisplay([t.positionM[0] - r, t.positionM[1] - r]));
+  });
   g.outline.forEach((p) => pts.push(toDisplay(p)));
   fields.filter((f) => f.scoredToNote === null).forEach((f) => f.polygonM[0].forEach((p) => pts.push(toDisplay(p))));
   return boundsOfPoints(pts);

@@ -23,6 +23,9 @@ import { VehicleDetails } from './vehicle-details';
 import { VehicleDrawer } from './vehicle-drawer';
 import { newVehicleMirrorBody } from './vehicle-mirrors';
 import { VehicleToolbar } from './vehicle-toolbar';
+import type { PartPlacing } from './vehicle-parts-editor';
+import { moveFieldCorner, moveTarget, switchDriveSide } from './vehicle-part-edits';
+import type { DriverSide, Vehicle } from '@/shared/schemas/vehicle';
 
 const round3 = (m: number) => Math.round(m * 1000) / 1000;
 const round4 = (r: number) => Math.round(r * 1e4) / 1e4;
@@ -38,6 +41,7 @@ export function VehicleWorkspace({ project, catalogue }: { project: ProjectDto; 
   const [addClass, setAddClass] = useState<MirrorClass>('V');
   const [localProblem, setLocalProblem] = useState<string | null>(null);
   const [drawerOpen, setDrawerOpen] = useState(false);
+  const [placing, setPlacing] = useState<PartPlacing>(null);
 
   useLayoutEffect(() => {
     if (edits.dragPreview) markRedrawEnd();
@@ -45,6 +49,14 @@ export function VehicleWorkspace({ project, catalogue }: { project: ProjectDto; 
 
   const onTapPlan = (pointM: PairM) => {
     setLocalProblem(null);
+    const saved = edits.baseScene.vehicle;
+    if (placing && saved) {
+      const next =
+        placing.kind === 'target' ? moveTarget(saved, placing.id, pointM) : moveFieldCorner(saved, placing.id, placing.index, pointM);
+      setPlacing(null);
+      void edits.saveScene({ ...edits.baseScene, vehicle: next });
+      return;
+    }
     if (!adding || !evaluation) return;
     if (edits.placements.length >= SCENE_LIMITS.mirrors) return setLocalProblem(LIMIT_MESSAGES.mirrors);
     const body = newVehicleMirrorBody(pointM, addClass, evaluation.geometry, evaluation.fields, edits.placements.length);
@@ -69,6 +81,22 @@ export function VehicleWorkspace({ project, catalogue }: { project: ProjectDto; 
 
   const base = edits.baseScene;
   const onRuleSet = (ruleSet: RuleSetId) => void edits.saveScene({ ...base, ruleSet });
+  const onSaveVehicle = (v: Vehicle) => void edits.saveScene({ ...edits.baseScene, vehicle: v });
+  // The scene first: the server checks a mirror's served fields against the vehicle it has.
+  const onSwitchDriveSide = (side: DriverSide) => {
+    const saved = base.vehicle;
+    if (!saved || !evaluation || saved.driverSide === side) return;
+    const { vehicle: mirrored, patches } = switchDriveSide(saved, evaluation.ruleSet, edits.placements);
+    void edits.saveScene({ ...base, vehicle: mirrored }).then((ok) => {
+      if (ok) for (const { id, patch } of patches) void savePlacement(id, patch);
+    });
+  };
+  // On a phone the details cover the top view: fold them so the tap can land.
+  const onPlacing = (p: PartPlacing) => {
+    setPlacing(p);
+    setAdding(false);
+    if (p) setDrawerOpen(false);
+  };
   const deleteMirror = (id: number) => {
     setSelectedId(null);
     void edits.deletePlacement(id);
@@ -85,17 +113,30 @@ export function VehicleWorkspace({ project, catalogue }: { project: ProjectDto; 
     );
   }
 
+  const placingName =
+    placing?.kind === 'target'
+      ? `test cylinder “${base.vehicle?.targets.find((t) => t.id === placing.id)?.name ?? ''}”`
+      : placing
+        ? `corner ${placing.index + 1} of “${base.vehicle?.groundFields.find((f) => f.id === placing.id)?.name ?? ''}”`
+        : '';
   const banner = (
-    <PlanNotices
-      saveProblem={edits.problem}
-      onDismissSaveProblem={edits.dismissProblem}
-      writes={edits.writes}
-      placements={edits.placements}
-      editorOpenFor={null}
-      toolProblem={localProblem}
-      catalogue={catalogue}
-      units={units}
-    />
+    <>
+      {placing ? (
+        <Notice tone="info" testID="vehicle-placing">
+          {`Tap the top view where ${placingName} goes.`}
+        </Notice>
+      ) : null}
+      <PlanNotices
+        saveProblem={edits.problem}
+        onDismissSaveProblem={edits.dismissProblem}
+        writes={edits.writes}
+        placements={edits.placements}
+        editorOpenFor={null}
+        toolProblem={localProblem}
+        catalogue={catalogue}
+        units={units}
+      />
+    </>
   );
 
   const details = (
@@ -110,6 +151,10 @@ export function VehicleWorkspace({ project, catalogue }: { project: ProjectDto; 
       onChangeMirror={(id, patch, autosaveMs) => edits.writes.change(id, patch, autosaveMs)}
       onDeleteMirror={deleteMirror}
       onDeselect={() => setSelectedId(null)}
+      onSaveVehicle={onSaveVehicle}
+      onSwitchDriveSide={onSwitchDriveSide}
+      placing={placing}
+      onPlacing={onPlacing}
     />
   );
 
@@ -119,6 +164,7 @@ export function VehicleWorkspace({ project, catalogue }: { project: ProjectDto; 
       adding={adding}
       onAdding={(a) => {
         setAdding(a);
+        setPlacing(null);
         setLocalProblem(null);
       }}
       addClass={addClass}
@@ -133,8 +179,9 @@ export function VehicleWorkspace({ project, catalogue }: { project: ProjectDto; 
       evaluation={evaluation}
       placements={edits.placements}
       units={units}
-      adding={adding}
+      adding={adding || placing !== null}
       canEdit={canEdit}
+      placing={placing}
       selectedId={selectedId}
       onSelect={select}
       onTapPlan={onTapPlan}

@@ -24,6 +24,6 @@ export type { TargetView } from './targets';
 export { angleInsideOutline, cylinderSamples, targetView } from './targets';
 export type { MirrorClass, MountingNote } from './mounting';
 export { LOW_MIRROR_M, MAX_PROJECTION_M, MIN_RADIUS_M, mirrorExtent, mountingNotes } from './mounting';
-export { mirrorPoseAcross, mirrorVehicleAcross } from './handedness';
+export { mirrorAzimuthAcross, mirrorPoseAcross, mirrorVehicleAcross, remapServedFieldIds } from './handedness';
 export type { FieldCriteria } from './criteria';
 export { fieldCriteria, fieldGrid } from './criteria';
