@@ -1,8 +1,44 @@
 /** "Aim at this zone" (shared/project-optics/aim-at-zone.ts): the engine's sizing search for one mirror and one zone. */
 import * as fc from 'fast-check';
 import { aimAtZone, ProjectEvaluator } from '../../../shared/project-optics';
-import type { PlacementDto, Scene } from '../../../shared/schemas';
-import { TEST_CATALOGUE, testPlacement } from '../../app/fixtures';
+import type { CatalogueItemDto, PlacementDto, Scene } from '../../../shared/schemas';
+
+/** An invented one-item catalogue: a 600 mm round mirror cut from a 0.8 m sphere. */
+const TEST_CATALOGUE: CatalogueItemDto[] = [
+  {
+    id: 1,
+    code: 'T-600',
+    name: 'Test round 600 (demo)',
+    mirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 },
+    material: '',
+    reflectance: null,
+    massKg: null,
+    unitPriceMinor: 12900,
+    currency: 'EUR',
+    notes: '',
+    active: true,
+    demo: true,
+    version: 1,
+    updatedAt: '2025-01-01T00:00:00.000Z',
+  },
+];
+
+const testPlacement = (overrides: Partial<PlacementDto> = {}): PlacementDto => ({
+  id: 7,
+  projectId: 3,
+  label: 'Corner',
+  catalogueItemId: 1,
+  customMirror: null,
+  positionM: [0, 0],
+  heightM: 2.6,
+  azimuthRad: 0,
+  tiltDownRad: 0.3,
+  viewerId: 'v1',
+  notes: '',
+  version: 4,
+  updatedAt: '2025-01-01T00:00:00.000Z',
+  ...overrides,
+});
 
 // An invented bay: the viewer stands 4 m west of a mirror 2.6 m up at the origin; the zone is a
 // 2 m square north-east of the mirror, round the corner from the viewer.
