@@ -124,7 +124,7 @@ describe('an installer on a phone edits what they drew and undoes a delete', () 
   it('drags a corner of the selected zone and the new outline is saved', async () => {
     const corner = (await byTestId(page, 'plan-corner-2').boundingBox())!;
     const from: [number, number] = [corner.x + corner.width / 2, corner.y + corner.height / 2];
-    const to = grid.px(grid.at(5, 3.5));
+    const to = grid.px(grid.at(3, 3.5));
     const patched = page.waitForResponse(
       (r) => r.request().method() === 'PATCH' && r.url().endsWith(`/api/projects/${projectId}`) && r.ok(),
       { timeout: 15_000 },
@@ -137,7 +137,7 @@ describe('an installer on a phone edits what they drew and undoes a delete', () 
     const zone = (await saved()).project.scene.zones[0];
     expect(zone.name).toBe('Dock crossing');
     const moved = zone.polygonM[2];
-    const target = grid.at(5, 3.5);
+    const target = grid.at(3, 3.5);
     // Within a pixel or two of where the finger let go (the plan rounds to the millimetre).
     expect(Math.hypot(moved[0] - target[0], moved[1] - target[1])).toBeLessThan(0.3);
     await shot(page, 'phone-zone-corner-dragged');
