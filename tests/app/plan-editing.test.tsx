@@ -5,7 +5,7 @@ import { aimOutcomeText } from '@/components/plan/aim-at-zone-action';
 import { endGesture, moveGesture, startGesture, type GestureContext } from '@/components/plan/plan-gesture';
 import { SceneItemEditor } from '@/components/plan/scene-item-editor';
 import { toScreen, type PlanView } from '@/components/plan/plan-view';
-import { undoKeyAction } from '@/components/plan/undo-controls';
+import { undoKeyAction, useUndoKeys } from '@/components/plan/undo-controls';
 import { usePlanHistory, type PlanHistoryDeps } from '@/hooks/use-plan-history';
 import type { PlacementDto, Scene } from '@/shared/schemas';
 import { testPlacement } from './fixtures';
@@ -174,6 +174,21 @@ describe('keys and words', () => {
     [{ key: 'z', ctrlKey: true, metaKey: false, shiftKey: false, altKey: true }, null],
   ])('reads %o as %s', (e, action) => {
     expect(undoKeyAction(e)).toBe(action);
+  });
+
+  it('undoes on Ctrl+Z on the wide screen, but leaves Ctrl+Z inside a text field to the field', () => {
+    const undo = jest.fn();
+    const redo = jest.fn();
+    renderHook(() => useUndoKeys(true, undo, redo));
+    fireEvent.keyDown(window, { key: 'z', ctrlKey: true });
+    fireEvent.keyDown(window, { key: 'y', ctrlKey: true });
+    expect(undo).toHaveBeenCalledTimes(1);
+    expect(redo).toHaveBeenCalledTimes(1);
+    const input = document.createElement('input');
+    document.body.appendChild(input);
+    fireEvent.keyDown(input, { key: 'z', ctrlKey: true });
+    expect(undo).toHaveBeenCalledTimes(1);
+    input.remove();
   });
 
   it('states the share before and after with the plan’s one rounding rule, and says when nothing better was found', () => {
