@@ -16,7 +16,11 @@ export type PlacementPatch = Partial<Pick<PlacementDto, 'positionM' | 'azimuthRa
 
 /** A drag in progress, drawn over the saved values until the finger lifts. */
 export type DragPreview =
-  { kind: 'placement'; id: number; patch: PlacementPatch } | { kind: 'viewer'; id: string; positionM: [number, number] } | null;
+  | { kind: 'placement'; id: number; patch: PlacementPatch }
+  | { kind: 'viewer'; id: string; positionM: [number, number] }
+  /** A zone corner or a wall end being dragged: the whole scene as it would be. */
+  | { kind: 'scene'; scene: Scene }
+  | null;
 
 export interface PlanSaveProblem {
   message: string;
@@ -124,6 +128,7 @@ export function usePlanEdits(project: ProjectDto) {
   );
 
   const liveScene = useMemo(() => {
+    if (dragPreview?.kind === 'scene') return dragPreview.scene;
     if (dragPreview?.kind !== 'viewer') return scene;
     return {
       ...scene,

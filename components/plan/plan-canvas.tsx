@@ -13,6 +13,7 @@ import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
 import type { PlacementDto, Scene } from '@/shared/schemas';
 import type { UnitSystem } from '@/shared/units';
 import { PlanDrawing } from './plan-drawing';
+import { SceneHandles } from './scene-handles';
 import type { PlanDrag } from './plan-gesture';
 import { boundsOf, type PairM, type PlanView } from './plan-view';
 import type { PlanSelection, PlanTool } from './plan-types';
@@ -78,6 +79,7 @@ export function PlanCanvas(props: PlanCanvasProps) {
       >
         <PlanDrawing {...{ scene, placements, evaluation, units, canEdit, selection, sketchPoints, sketchClosed, view, size, tool }}>
           {props.overlay?.(view)}
+          {canEdit && tool === 'select' ? <SceneHandles scene={scene} selection={selection} view={view} /> : null}
         </PlanDrawing>
       </View>
       <ZoomControls onZoomIn={() => viewport.zoomBy(1.4)} onZoomOut={() => viewport.zoomBy(1 / 1.4)} onFit={viewport.fit} />

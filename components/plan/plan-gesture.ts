@@ -7,7 +7,8 @@
  */
 import type { PlacementDto, Scene } from '@/shared/schemas';
 import { azimuthBetween } from './plan-geometry';
-import { hitTest } from './plan-hit-test';
+import { handleAt, hitTest, type SceneHandle } from './plan-hit-test';
+import { moveWallEnd, moveZoneCorner } from './scene-edits';
 import { panBy, toPlan, toScreen, zoomAt, type PairM, type PlanView } from './plan-view';
 import type { PlanSelection, PlanTool } from './plan-types';
 
@@ -17,12 +18,15 @@ export const TAP_SLOP_PX = 6;
 export type PlanDrag =
   | { kind: 'placement-move'; id: number; positionM: PairM; done: boolean }
   | { kind: 'placement-aim'; id: number; azimuthRad: number; done: boolean }
-  | { kind: 'viewer-move'; id: string; positionM: PairM; done: boolean };
+  | { kind: 'viewer-move'; id: string; positionM: PairM; done: boolean }
+  /** A zone corner or wall end dragged: the scene with it moved. */
+  | { kind: 'scene-handle'; scene: Scene; done: boolean };
 
 export type Gesture =
   | { mode: 'pan'; start: PairM; startView: PlanView; moved: boolean; tapSelection: PlanSelection | 'none' }
   | { mode: 'placement' | 'viewer'; id: number | string; grab: PairM; start: PairM; moved: boolean }
   | { mode: 'aim'; id: number; moved: boolean }
+  | { mode: 'handle'; handle: SceneHandle; grab: PairM; start: PairM; moved: boolean }
   | { mode: 'pinch'; startDist: number; startView: PlanView; centre: PairM };
 
 export type GestureEffect =
@@ -54,6 +58,13 @@ export function startGesture(ctx: GestureContext, points: readonly PairM[]): Ste
   const { hit, aim } = hitTest(ctx, ctx.view, pt);
   const selecting = !ctx.pinning && (ctx.tool === 'select' || !ctx.canEdit);
   if (ctx.pinning) return { gesture: { mode: 'pan', start: pt, startView: ctx.view, moved: false, tapSelection: 'none' }, effects: [] };
+  if (!ctx.pinning && ctx.tool === 'select') {
+    const h = handleAt(ctx, ctx.view, pt);
+    if (h) {
+      const s = toScreen(ctx.view, h.atM);
+      return { gesture: { mode: 'handle', handle: h.handle, grab: [s[0] - pt[0], s[1] - pt[1]], start: pt, moved: false }, effects: [] };
+    }
+  }
   if (aim && hit?.kind === 'placement') return { gesture: { mode: 'aim', id: hit.id, moved: false }, effects: [] };
   if (selecting && (hit?.kind === 'placement' || hit?.kind === 'viewer')) {
     const at =
@@ -90,6 +101,7 @@ export function moveGesture(ctx: GestureContext, g: Gesture, points: readonly Pa
     return { gesture: { ...g, moved: true }, effects: drag ? [{ kind: 'drag', drag }] : [] };
   }
   if (!g.moved && dist(pt, g.start) < TAP_SLOP_PX) return { gesture: g, effects: [] };
+  if (g.mode === 'handle') return { gesture: { ...g, moved: true }, effects: [{ kind: 'drag', drag: handleDrag(ctx, g, pt, false) }] };
   return { gesture: { ...g, moved: true }, effects: [{ kind: 'drag', drag: moveDrag(ctx.view, g, pt, false) }] };
 }
 
@@ -107,6 +119,7 @@ export function endGesture(ctx: GestureContext, g: Gesture, pt: PairM): GestureE
     const drag = aimDrag(ctx, g.id, pt, true);
     return drag ? [{ kind: 'drag', drag }] : [];
   }
+  if (g.mode === 'handle') return [{ kind: 'drag', drag: handleDrag(ctx, g, pt, true) }];
   return [{ kind: 'drag', drag: moveDrag(ctx.view, g, pt, true) }];
 }
 
@@ -125,6 +138,17 @@ function moveDrag(view: PlanView, g: Extract<Gesture, { mode: 'placement' | 'vie
   return g.mode === 'placement'
     ? { kind: 'placement-move', id: g.id as number, positionM, done }
     : { kind: 'viewer-move', id: g.id as string, positionM, done };
+}
+
+/** Plans are measured to the millimetre at best (plan-edits.ts roundM). */
+const mm = (m: number) => Math.round(m * 1000) / 1000;
+
+function handleDrag(ctx: GestureContext, g: Extract<Gesture, { mode: 'handle' }>, pt: PairM, done: boolean): PlanDrag {
+  const raw = toPlan(ctx.view, pt[0] + g.grab[0], pt[1] + g.grab[1]);
+  const atM: PairM = [mm(raw[0]), mm(raw[1])];
+  const h = g.handle;
+  const scene = h.kind === 'zone-corner' ? moveZoneCorner(ctx.scene, h.id, h.index, atM) : moveWallEnd(ctx.scene, h.id, h.end, atM);
+  return { kind: 'scene-handle', scene, done };
 }
 
 const dist = (a: PairM, b: PairM) => Math.hypot(a[0] - b[0], a[1] - b[1]);

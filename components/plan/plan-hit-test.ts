@@ -58,3 +58,36 @@ export function hitTest(ctx: HitContext, view: PlanView, pt: PairM): Hit {
   const zone = [...ctx.scene.zones].reverse().find((z) => pointInPolygon([z.polygonM], planPt));
   return { hit: zone ? { kind: 'zone', id: zone.id } : null };
 }
+
+/** A point of the selected zone or wall that can be dragged: a zone's corner or a wall's end. */
+export type SceneHandle = { kind: 'zone-corner'; id: string; index: number } | { kind: 'wall-end'; id: string; end: 'a' | 'b' };
+
+/** Where the selected zone's corners or wall's ends are, in plan metres (drawn as squares, dragged to reshape). */
+export function sceneHandles(scene: Scene, selection: PlanSelection): { handle: SceneHandle; atM: PairM }[] {
+  if (selection?.kind === 'zone') {
+    const zone = scene.zones.find((z) => z.id === selection.id);
+    return zone ? zone.polygonM.map((atM, index) => ({ handle: { kind: 'zone-corner', id: zone.id, index }, atM })) : [];
+  }
+  if (selection?.kind === 'wall') {
+    const wall = scene.walls.find((w) => w.id === selection.id);
+    return wall
+      ? [
+          { handle: { kind: 'wall-end', id: wall.id, end: 'a' }, atM: wall.aM },
+          { handle: { kind: 'wall-end', id: wall.id, end: 'b' }, atM: wall.bM },
+        ]
+      : [];
+  }
+  return [];
+}
+
+/** The selected zone's corner or wall's end under the point (the nearest within reach), for an editor only. */
+export function handleAt(ctx: HitContext, view: PlanView, pt: PairM): { handle: SceneHandle; atM: PairM } | null {
+  if (!ctx.canEdit) return null;
+  let best: { d: number; h: { handle: SceneHandle; atM: PairM } } | null = null;
+  for (const h of sceneHandles(ctx.scene, ctx.selection)) {
+    const s = toScreen(view, h.atM);
+    const d = Math.hypot(s[0] - pt[0], s[1] - pt[1]);
+    if (d <= PICK_PX && (!best || d < best.d)) best = { d, h };
+  }
+  return best?.h ?? null;
+}

@@ -7,8 +7,10 @@ import { useCallback, useLayoutEffect, useState } from 'react';
 import { useDisplayUnits } from '@/components/placement/use-display-units';
 import { useIsWide } from '@/hooks/use-breakpoint';
 import { usePlanEdits } from '@/hooks/use-plan-edits';
+import { usePlanHistory } from '@/hooks/use-plan-history';
 import { usePlanEvaluation } from '@/hooks/use-plan-evaluation';
-import type { CatalogueItemDto, CriteriaSettings, CriterionKind, ProjectDto } from '@/shared/schemas';
+import type { CatalogueItemDto, CriteriaSettings, CriterionKind, ProjectDto, Scene } from '@/shared/schemas';
+import { AimAtZoneAction } from './aim-at-zone-action';
 import { markRedrawEnd } from './perf-marks';
 import { PlanCanvas, type PlanDrag } from './plan-canvas';
 import { PlanDetails } from './plan-details';
@@ -18,7 +20,9 @@ import { PlanNotices } from './plan-notices';
 import { PlanToolbar } from './plan-toolbar';
 import type { PlanSelection } from './plan-types';
 import type { PairM } from './plan-view';
-import { moveViewer, removeSceneItem, setCriteria, setViewerEyeHeight, setZoneCriterion } from './scene-edits';
+import { moveViewer, removeSceneItem, sceneProblem, setCriteria, setViewerEyeHeight, setZoneCriterion } from './scene-edits';
+import { SceneItemEditor } from './scene-item-editor';
+import { UndoControls, useUndoKeys } from './undo-controls';
 import { usePlanTool } from './use-plan-tool';
 import { PhoneWorkspace, WideWorkspace } from './workspace-layouts';
 import { WorkspaceHeader } from './workspace-header';
@@ -35,12 +39,35 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
   const evaluation = usePlanEvaluation(edits.scene, edits.placements, catalogue, selectedPlacementId);
   const canEdit = project.canEdit;
   const base = edits.baseScene;
+  // Every plan edit below goes through the history, which records it and then saves it as before.
+  const history = usePlanHistory({
+    baseScene: base,
+    // Without the live drag: a drag's end records the values from before it.
+    placements: edits.writes.placements,
+    saveScene: edits.saveScene,
+    savePlacement: edits.savePlacement,
+    createPlacement: edits.createPlacement,
+    deletePlacement: edits.deletePlacement,
+  });
+  useUndoKeys(wide && canEdit, history.undo, history.redo);
+  const [editProblem, setEditProblem] = useState<string | null>(null);
+  /** A scene edit from the editor or a handle: said in the schema's words and not sent when the API would refuse it. */
+  const { saveScene: recordScene } = history;
+  const editScene = useCallback(
+    (next: Scene): string | null => {
+      const problem = sceneProblem(next);
+      setEditProblem(problem);
+      if (!problem) void recordScene(next);
+      return problem;
+    },
+    [recordScene],
+  );
   const tools = usePlanTool({
     baseScene: base,
     mirrorCount: edits.placements.length,
     catalogue,
-    saveScene: edits.saveScene,
-    createPlacement: edits.createPlacement,
+    saveScene: history.saveScene,
+    createPlacement: history.createPlacement,
     select: setSelection,
     onMirrorPlaced: () => setDrawerOpen(true),
   });
@@ -56,7 +83,13 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
         if (!d.done) return edits.setDragPreview({ kind: 'viewer', id: d.id, positionM: d.positionM });
         edits.setDragPreview(null);
         const positionM: PairM = [roundM(d.positionM[0]), roundM(d.positionM[1])];
-        void edits.saveScene(moveViewer(edits.baseScene, d.id, positionM));
+        void history.saveScene(moveViewer(edits.baseScene, d.id, positionM));
+        return;
+      }
+      if (d.kind === 'scene-handle') {
+        if (!d.done) return edits.setDragPreview({ kind: 'scene', scene: d.scene });
+        edits.setDragPreview(null);
+        editScene(d.scene);
         return;
       }
       const patch =
@@ -65,17 +98,17 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
           : { azimuthRad: Math.round(d.azimuthRad * 1e4) / 1e4 };
       if (!d.done) return edits.setDragPreview({ kind: 'placement', id: d.id, patch });
       edits.setDragPreview(null);
-      void edits.savePlacement(d.id, patch);
+      history.savePlacement(d.id, patch);
     },
-    [edits],
+    [edits, history, editScene],
   );
 
   const deleteSelected = () => {
     const s = selection;
     if (!s) return;
     setSelection(null);
-    if (s.kind === 'placement') void edits.deletePlacement(s.id);
-    else void edits.saveScene(removeSceneItem(base, s.kind, s.id));
+    if (s.kind === 'placement') void history.deletePlacement(s.id);
+    else void history.saveScene(removeSceneItem(base, s.kind, s.id));
   };
 
   const select = (s: PlanSelection) => {
@@ -101,10 +134,20 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
         canEdit={canEdit}
         selection={selection}
         onSelect={setSelection}
-        onViewerEyeHeight={(id: string, eyeHeightM: number) => void edits.saveScene(setViewerEyeHeight(base, id, eyeHeightM))}
-        onZoneCriterion={(id: string, criterion: CriterionKind) => void edits.saveScene(setZoneCriterion(base, id, criterion))}
-        onCriteria={(criteria: CriteriaSettings | undefined) => void edits.saveScene(setCriteria(base, criteria))}
+        onViewerEyeHeight={(id: string, eyeHeightM: number) => void history.saveScene(setViewerEyeHeight(base, id, eyeHeightM))}
+        onZoneCriterion={(id: string, criterion: CriterionKind) => void history.saveScene(setZoneCriterion(base, id, criterion))}
+        onCriteria={(criteria: CriteriaSettings | undefined) => void history.saveScene(setCriteria(base, criteria))}
       />
+      {canEdit ? <SceneItemEditor scene={base} selection={selection} units={units} onEdit={editScene} /> : null}
+      {canEdit && selectedPlacementId !== null && edits.placements.some((p) => p.id === selectedPlacementId) ? (
+        <AimAtZoneAction
+          scene={base}
+          placements={edits.writes.placements}
+          catalogue={catalogue}
+          placementId={selectedPlacementId}
+          onAim={(aim) => history.savePlacement(selectedPlacementId, aim)}
+        />
+      ) : null}
     </>
   );
 
@@ -148,19 +191,30 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
       </>
     ),
     toolbar: (
-      <PlanToolbar
-        tool={tool}
-        onTool={tools.setTool}
-        canEdit={canEdit}
-        canDelete={selection !== null}
-        onDelete={deleteSelected}
-        zonePoints={tools.sketch.length}
-        onFinishZone={tools.finishZone}
-        onCancelSketch={tools.cancelSketch}
-        wallKind={tools.wallKind}
-        onWallKind={tools.setWallKind}
-        busy={edits.saving}
-      />
+      <>
+        {canEdit ? (
+          <UndoControls
+            canUndo={history.canUndo}
+            canRedo={history.canRedo}
+            onUndo={history.undo}
+            onRedo={history.redo}
+            problem={history.problem ?? editProblem}
+          />
+        ) : null}
+        <PlanToolbar
+          tool={tool}
+          onTool={tools.setTool}
+          canEdit={canEdit}
+          canDelete={selection !== null}
+          onDelete={deleteSelected}
+          zonePoints={tools.sketch.length}
+          onFinishZone={tools.finishZone}
+          onCancelSketch={tools.cancelSketch}
+          wallKind={tools.wallKind}
+          onWallKind={tools.setWallKind}
+          busy={edits.saving}
+        />
+      </>
     ),
   };
 

@@ -1,0 +1,207 @@
+/**
+ * On a phone, an installer reshapes what they drew and leans on undo: draws a zone, renames it,
+ * drags a corner, deletes a mirror and undoes that, and aims the mirror at the zone.
+ */
+import type { Page } from 'playwright-core';
+import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seeders/demo';
+import { PHONE, byTestId, openPage, shot, signIn, startProduct, type Product } from './browser';
+
+let product: Product;
+beforeAll(async () => {
+  product = await startProduct();
+});
+afterAll(async () => {
+  await product?.close();
+});
+
+const installer = DEMO_USERS.find((u) => u.role === 'installer')!;
+type PageDoc = { document: { querySelector(sel: string): { innerHTML: string } | null } };
+type SavedProject = {
+  project: {
+    scene: { zones: { name: string; polygonM: [number, number][] }[] };
+    placements: {
+      id: number;
+      label: string;
+      positionM: [number, number];
+      heightM: number;
+      azimuthRad: number;
+      tiltDownRad: number;
+      viewerId: string | null;
+      catalogueItemId: number | null;
+    }[];
+  };
+};
+
+/** Plan metres to page pixels with the transform the canvas publishes; taps wait for the drawing to change. */
+async function planGrid(page: Page) {
+  const svg = byTestId(page, 'plan-canvas');
+  await page.waitForSelector('[data-testid="plan-canvas"][data-transform]', { state: 'attached' });
+  const [scale, offX, offY] = (await svg.getAttribute('data-transform'))!.split(' ').map(Number);
+  const box = (await svg.boundingBox())!;
+  const unitPx = Math.min(box.width / 14, box.height / 16);
+  const cx = (box.width / 2 - offX) / scale;
+  const cy = (offY - box.height * 0.45) / scale;
+  const unitM = Math.round((unitPx / scale) * 10) / 10;
+  const at = (x: number, y: number): [number, number] => [cx + x * unitM, cy + y * unitM];
+  const px = ([xM, yM]: [number, number]): [number, number] => [box.x + offX + xM * scale, box.y + offY - yM * scale];
+  const drawing = () =>
+    page.evaluate(() => (globalThis as unknown as PageDoc).document.querySelector('svg[data-testid="plan-canvas"]')?.innerHTML ?? '');
+  const tap = async (pointM: [number, number]) => {
+    const before = await drawing();
+    await page.mouse.click(...px(pointM));
+    await page.waitForFunction(
+      (b) => (globalThis as unknown as PageDoc).document.querySelector('svg[data-testid="plan-canvas"]')?.innerHTML !== b,
+      before,
+      {
+        timeout: 10_000,
+      },
+    );
+  };
+  return { at, tap, px };
+}
+
+const sharePct = async (page: Page, zoneId: string) =>
+  Number(((await byTestId(page, `zone-pct-${zoneId}`).first().textContent()) ?? '').replace(/[^\d.]/g, ''));
+
+describe('an installer on a phone edits what they drew and undoes a delete', () => {
+  let page: Page;
+  let errors: string[];
+  let grid: Awaited<ReturnType<typeof planGrid>>;
+  let projectId = '';
+  let zoneId = '';
+  const saved = async () => (await (await page.request.get(`${product.server.url}/api/projects/${projectId}`)).json()) as SavedProject;
+  const drawerOpen = async (open: boolean) => {
+    const isOpen = (await byTestId(page, 'plan-drawer-body').count()) > 0 && (await byTestId(page, 'plan-drawer-body').isVisible());
+    if (isOpen !== open) await byTestId(page, 'drawer-toggle').click();
+  };
+
+  beforeAll(async () => {
+    ({ page, errors } = await openPage(product, PHONE));
+  });
+  afterAll(async () => {
+    await page?.context().close();
+  });
+
+  it('draws a zone on a new project', async () => {
+    await signIn(page, product.server.url, installer.email, DEMO_PASSWORD);
+    await byTestId(page, 'projects-new').click();
+    await byTestId(page, 'project-form-name').fill('Dock edits (demo)');
+    await byTestId(page, 'project-form-submit').click();
+    await page.waitForURL(/\/projects\/\d+$/);
+    projectId = page.url().match(/projects\/(\d+)/)![1];
+    await byTestId(page, 'plan-canvas').waitFor({ state: 'visible' });
+    grid = await planGrid(page);
+    await byTestId(page, 'plan-tool-zone').click();
+    for (const [x, y] of [
+      [-4, -1],
+      [4, -1],
+      [4, 2],
+      [-4, 2],
+    ])
+      await grid.tap(grid.at(x, y));
+    await byTestId(page, 'plan-zone-finish').click();
+    await byTestId(page, 'plan-zone-save').click();
+    await page.locator('[data-testid^="zone-pct-"]').first().waitFor({ state: 'attached' });
+    zoneId = (await page.locator('[data-testid^="zone-pct-"]').first().getAttribute('data-testid'))!.replace('zone-pct-', '');
+  });
+
+  it('renames the zone in its editor', async () => {
+    await drawerOpen(true);
+    await byTestId(page, 'zone-name').fill('Dock crossing');
+    await byTestId(page, 'zone-rename').click();
+    await page.waitForFunction(
+      (id) =>
+        (globalThis as unknown as PageDoc).document.querySelector(`[data-testid="zone-label-${id}"]`)?.innerHTML.includes('Dock crossing'),
+      zoneId,
+      {
+        timeout: 10_000,
+      },
+    );
+    await shot(page, 'phone-zone-editor');
+    await drawerOpen(false);
+  });
+
+  it('drags a corner of the selected zone and the new outline is saved', async () => {
+    const corner = (await byTestId(page, 'plan-corner-2').boundingBox())!;
+    const from: [number, number] = [corner.x + corner.width / 2, corner.y + corner.height / 2];
+    const to = grid.px(grid.at(3, 3.5));
+    const patched = page.waitForResponse(
+      (r) => r.request().method() === 'PATCH' && r.url().endsWith(`/api/projects/${projectId}`) && r.ok(),
+      { timeout: 15_000 },
+    );
+    await page.mouse.move(...from);
+    await page.mouse.down();
+    for (let i = 1; i <= 8; i++) await page.mouse.move(from[0] + ((to[0] - from[0]) * i) / 8, from[1] + ((to[1] - from[1]) * i) / 8);
+    await page.mouse.up();
+    await patched;
+    const zone = (await saved()).project.scene.zones[0];
+    expect(zone.name).toBe('Dock crossing');
+    const moved = zone.polygonM[2];
+    const target = grid.at(3, 3.5);
+    // Within a pixel or two of where the finger let go (the plan rounds to the millimetre).
+    expect(Math.hypot(moved[0] - target[0], moved[1] - target[1])).toBeLessThan(0.3);
+    await shot(page, 'phone-zone-corner-dragged');
+  });
+
+  it('deletes a mirror at once and Undo brings it back with the same values', async () => {
+    await byTestId(page, 'plan-tool-viewer').click();
+    await grid.tap(grid.at(-5, 5));
+    await byTestId(page, 'plan-tool-mirror').click();
+    await grid.tap(grid.at(0, -2.5));
+    await page.locator('[data-testid^="placement-marker-"]').first().waitFor({ state: 'attached' });
+    const before = (await saved()).project.placements;
+    expect(before).toHaveLength(1);
+    await drawerOpen(false);
+    await byTestId(page, 'plan-delete').click();
+    await page.locator('[data-testid^="placement-marker-"]').first().waitFor({ state: 'detached' });
+    expect((await saved()).project.placements).toHaveLength(0);
+    await byTestId(page, 'plan-undo').click();
+    await page.locator('[data-testid^="placement-marker-"]').first().waitFor({ state: 'attached', timeout: 15_000 });
+    const back = (await saved()).project.placements;
+    expect(back).toHaveLength(1);
+    const { id: _a, ...was } = before[0];
+    const { id: _b, ...now } = back[0];
+    expect(pick(now)).toEqual(pick(was));
+    await shot(page, 'phone-mirror-undone');
+  });
+
+  it('aims the mirror at the zone and the zone’s share rises', async () => {
+    const shareBefore = await sharePct(page, zoneId);
+    await page.locator('[data-testid^="placement-marker-"]').first().click({ force: true });
+    await drawerOpen(true);
+    await byTestId(page, 'aim-at-zone-run').click();
+    const outcome = byTestId(page, 'aim-at-zone-outcome');
+    await outcome.waitFor({ timeout: 30_000 });
+    expect(await outcome.textContent()).toContain('→');
+    await page.waitForFunction(
+      ([id, b]) =>
+        Number(
+          ((globalThis as unknown as PageDoc).document.querySelector(`[data-testid="zone-pct-${id}"]`)?.innerHTML ?? '').replace(
+            /<[^>]*>|[^\d.]/g,
+            '',
+          ),
+        ) > Number(b),
+      [zoneId, String(shareBefore)] as const,
+      { timeout: 15_000 },
+    );
+    expect(await sharePct(page, zoneId)).toBeGreaterThan(shareBefore);
+    await shot(page, 'phone-aimed-at-zone');
+  });
+
+  it('logged no errors in the browser along the way', () => {
+    expect(errors.filter((e) => !/Failed to load resource/.test(e))).toEqual([]);
+  });
+});
+
+/** The values a mirror is set out by (its id, version and dates are the server's). */
+function pick(p: Omit<SavedProject['project']['placements'][number], 'id'>) {
+  return {
+    label: p.label,
+    positionM: p.positionM,
+    heightM: p.heightM,
+    azimuthRad: p.azimuthRad,
+    tiltDownRad: p.tiltDownRad,
+    viewerId: p.viewerId,
+    catalogueItemId: p.catalogueItemId,
+  };
+}

@@ -1,0 +1,107 @@
+/** "Aim at this zone" (shared/project-optics/aim-at-zone.ts): the engine's sizing search for one mirror and one zone. */
+import * as fc from 'fast-check';
+import { aimAtZone, ProjectEvaluator } from '../../../shared/project-optics';
+import type { CatalogueItemDto, PlacementDto, Scene } from '../../../shared/schemas';
+
+/** An invented one-item catalogue: a 600 mm round mirror cut from a 0.8 m sphere. */
+const TEST_CATALOGUE: CatalogueItemDto[] = [
+  {
+    id: 1,
+    code: 'T-600',
+    name: 'Test round 600 (demo)',
+    mirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 },
+    material: '',
+    reflectance: null,
+    massKg: null,
+    unitPriceMinor: 12900,
+    currency: 'EUR',
+    notes: '',
+    active: true,
+    demo: true,
+    version: 1,
+    updatedAt: '2025-01-01T00:00:00.000Z',
+  },
+];
+
+const testPlacement = (overrides: Partial<PlacementDto> = {}): PlacementDto => ({
+  id: 7,
+  projectId: 3,
+  label: 'Corner',
+  catalogueItemId: 1,
+  customMirror: null,
+  positionM: [0, 0],
+  heightM: 2.6,
+  azimuthRad: 0,
+  tiltDownRad: 0.3,
+  viewerId: 'v1',
+  notes: '',
+  version: 4,
+  updatedAt: '2025-01-01T00:00:00.000Z',
+  ...overrides,
+});
+
+// An invented bay: the viewer stands 4 m west of a mirror 2.6 m up at the origin; the zone is a
+// 2 m square north-east of the mirror, round the corner from the viewer.
+const scene: Scene = {
+  walls: [],
+  zones: [
+    {
+      id: 'bay',
+      name: 'Loading bay',
+      polygonM: [
+        [1, 2],
+        [3, 2],
+        [3, 4],
+        [1, 4],
+      ],
+      target: { kind: 'adult' },
+    },
+  ],
+  viewers: [{ id: 'v1', name: 'Driver', positionM: [-4, 0], eyeHeightM: 1.6 }],
+};
+const shareOf = (placements: PlacementDto[]) =>
+  new ProjectEvaluator().evaluate({ scene, placements, catalogue: TEST_CATALOGUE }).zones[0].fraction;
+
+describe('aim at this zone', () => {
+  it('turns a mirror that faces away from the zone until the zone is seen, and reports the share before and after', () => {
+    const away = testPlacement({ azimuthRad: -Math.PI / 2, tiltDownRad: 0.3 });
+    const out = aimAtZone({ scene, placements: [away], catalogue: TEST_CATALOGUE, placementId: away.id, zoneId: 'bay' });
+    if ('problem' in out) throw new Error(out.problem);
+    expect(out.shareBefore).toBe(shareOf([away]));
+    expect(out.shareAfter).toBeGreaterThan(out.shareBefore);
+    expect(out.shareAfter).toBeCloseTo(shareOf([{ ...away, ...out.aim }]), 10);
+  });
+
+  it('never leaves the mirror covering less of the zone than it did where it pointed before', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: -Math.PI, max: Math.PI, noNaN: true }),
+        fc.double({ min: 0, max: 0.8, noNaN: true }),
+        (azimuthRad, tiltDownRad) => {
+          const p = testPlacement({ azimuthRad, tiltDownRad });
+          const out = aimAtZone({ scene, placements: [p], catalogue: TEST_CATALOGUE, placementId: p.id, zoneId: 'bay' });
+          if ('problem' in out) return;
+          // 0.01 of the zone: the search's own step, within which shares rank equal (rank.ts coverageStep).
+          expect(out.shareAfter).toBeGreaterThanOrEqual(out.shareBefore - 0.01);
+          expect(out.shareAfter).toBeLessThanOrEqual(1);
+        },
+      ),
+      { numRuns: 8 },
+    );
+  });
+
+  it('says what to choose when the mirror has no viewer, never a number', () => {
+    const p = testPlacement({ viewerId: null });
+    expect(aimAtZone({ scene, placements: [p], catalogue: TEST_CATALOGUE, placementId: p.id, zoneId: 'bay' })).toEqual({
+      problem: 'Choose the viewer this mirror serves before aiming it: the aim depends on where they look from.',
+    });
+  });
+
+  it('says so when no aim shows the zone from where the mirror hangs', () => {
+    // The viewer's eye stands between the mirror and the zone, so the mirror would have to face away from them.
+    const behind: Scene = { ...scene, viewers: [{ id: 'v1', name: 'Driver', positionM: [2, 3], eyeHeightM: 1.6 }] };
+    const p = testPlacement({ positionM: [-30, 3], heightM: 0.3 });
+    const out = aimAtZone({ scene: behind, placements: [p], catalogue: TEST_CATALOGUE, placementId: p.id, zoneId: 'bay' });
+    expect(out).toHaveProperty('problem');
+  });
+});
