@@ -5,3 +5,4 @@ export * from './mounting';
 export * from './criteria';
 export * from './figures';
 export * from './vehicle';
+export * from './plausibility';

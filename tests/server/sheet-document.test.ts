@@ -193,3 +193,33 @@ describe('the plan page', () => {
     });
   });
 });
+
+describe('plausibility sentences on the sheet', () => {
+  it('says, before the numbers of a mirror, that it hangs above the top of the wall behind it', async () => {
+    const input = demoSheetInput('metric');
+    // A wall-hung panel (a full dome hangs from the ceiling and is never said to be above a wall).
+    const hung = input.placements.find((p) => input.catalogue.find((c) => c.id === p.catalogueItemId)?.mirror.shape !== 'dome')!;
+    // Moved clear of the building (its walls reach higher than any mirror), onto a low partition of its own.
+    const target = { ...hung, positionM: [300, 300] as [number, number] };
+    input.placements = input.placements.map((p) => (p.id === target.id ? target : p));
+    const back: [number, number] = [target.positionM[0] - 0.1 * Math.cos(target.azimuthRad), target.positionM[1] - 0.1 * Math.sin(target.azimuthRad)];
+    const across: [number, number] = [-Math.sin(target.azimuthRad), Math.cos(target.azimuthRad)];
+    const lowWall = {
+      id: 'low-partition',
+      kind: 'wall' as const,
+      aM: [back[0] - across[0], back[1] - across[1]] as [number, number],
+      bM: [back[0] + across[0], back[1] + across[1]] as [number, number],
+      heightM: target.heightM / 2,
+    };
+    const plain = buildSheetContent(demoSheetInput('metric')).content;
+    expect(plain.placements.every((p) => p.plausibility === undefined)).toBe(true);
+    const scene = { ...input.project.scene, walls: [...input.project.scene.walls, lowWall] };
+    const { content } = buildSheetContent({ ...input, project: { ...input.project, scene } });
+    const mine = content.placements.find((p) => p.label === target.label)!;
+    expect(mine.plausibility?.[0]).toMatch(new RegExp(`^“${target.label}” is mounted at .* above the top of wall W\\d+, which is`));
+    const pdf = await renderSheet(content, { number: 1, contentHash: contentHash(content), issuedAt: new Date(Date.UTC(2026, 11, 2)) }, 'a4');
+    const file = path.join(tmp, 'plausibility.pdf');
+    fs.writeFileSync(file, pdf);
+    expect(flat(textOf(file))).toContain(`Check: “${target.label}” is mounted at`);
+  });
+});
