@@ -299,13 +299,16 @@ describe('reading a sheet changes nothing', () => {
 });
 
 describe('e-mailing the sheet', () => {
-  it('delivers the sheet to the buyer through the fake SMTP server with a byte-identical attachment', async () => {
+  it('delivers the sheet to the buyer through the fake SMTP server with a byte-identical attachment, Reply-To the sender', async () => {
     const to = 'buyer.desk@purchasing-demo.example';
     const sent = await installer.post(`/api/projects/${projectId}/sheet/email`).send({ to, message: 'For the purchase request, please.' });
     expect(sent.status).toBe(200);
     const mail = await h.waitForMail(to);
     const parsed = await simpleParser(mail.raw);
     expect(parsed.text).toContain('For the purchase request, please.');
+    // Replies go to the installer who sent it; the From line stays the product's own address.
+    expect(parsed.replyTo?.value.map((v) => v.address)).toEqual([EMAIL.installer]);
+    expect(parsed.from?.value.map((v) => v.address)).not.toContain(EMAIL.installer);
     expect(parsed.attachments).toHaveLength(1);
     const att = parsed.attachments[0];
     expect(att.contentType).toBe('application/pdf');
@@ -375,7 +378,7 @@ describe('e-mailing the sheet', () => {
     expect(await revisionCount()).toBe(before);
   });
 
-  it('reports a send the mail server refused as queued, keeps the revision, and delivers it from the outbox later', async () => {
+  it('reports a send the mail server refused as queued, keeps the revision, and delivers it from the outbox later, replies still going to the sender', async () => {
     // A real nodemailer transport toward a port where nothing listens.
     const closedPort = await new Promise<number>((resolve) => {
       const s = require('node:net').createServer() as import('node:net').Server;
@@ -408,6 +411,8 @@ describe('e-mailing the sheet', () => {
       const mail = await h.waitForMail(to);
       expect(mail.subject).toContain(`revision ${status.current.number}`);
       expect(mail.attachments.map((a) => a.contentType)).toEqual(['application/pdf']);
+      // The buyer's answer still goes to the installer who sent it, though the worker sent it later.
+      expect((await simpleParser(mail.raw)).replyTo?.value.map((v) => v.address)).toEqual([EMAIL.installer]);
     } finally {
       broken.close();
     }

@@ -146,6 +146,8 @@ export function sheetsRoutes(deps: { outbox: MailDispatcher; work: SheetWork; ou
       organizationId: req.user!.organization.id,
       kind: 'sheet',
       to: body.to,
+      // The buyer answers the person who sent the sheet, not the product's address.
+      replyTo: req.user!.email,
       subject: sheetMailSubject(sheet.projectName, sheet.revision.number),
       text: content + note + tail,
       attachments: [{ filename: sheet.filename, content: sheet.pdf, contentType: 'application/pdf' }],
