@@ -459,3 +459,35 @@ describe('drawing the plan', () => {
     expect(simplifyRing(square, OUTLINE_TOLERANCE_PT)).toEqual([...square, square[0]]);
   });
 });
+
+describe('GET /api/projects/:id/sheet/recipient', () => {
+  const ask = (agent: Agent | ReturnType<typeof request>, to: string) =>
+    agent.get(`/api/projects/${projectId}/sheet/recipient?to=${encodeURIComponent(to)}`);
+
+  it('answers whether an address leaves the organisation by the hourly limit’s rule: not one of its users, however typed', async () => {
+    expect((await ask(installer, 'buyer.desk@purchasing-demo.example')).body).toEqual({ outsideOrganisation: true });
+    expect((await ask(installer, EMAIL.reviewer)).body).toEqual({ outsideOrganisation: false });
+    expect((await ask(installer, ` ${EMAIL.reviewer.toUpperCase()} `)).body).toEqual({ outsideOrganisation: false });
+    // Same domain as the demo users, but no one of the organisation: outside.
+    const stranger = `nobody.here@${EMAIL.installer.split('@')[1]}`;
+    expect((await ask(installer, stranger)).body).toEqual({ outsideOrganisation: true });
+  });
+
+  it('refuses a missing or broken address with 400 and a sentence for the field', async () => {
+    const res = await ask(installer, 'not-an-address');
+    expect(res.status).toBe(400);
+    expect(res.body.fields.to).toMatch(/e-mail address/);
+    expect((await installer.get(`/api/projects/${projectId}/sheet/recipient`)).status).toBe(400);
+  });
+
+  it.each([
+    ['anonymous', 401, null],
+    ['the project’s installer', 200, EMAIL.installer],
+    ['another installer', 404, OTHER_INSTALLER],
+    ['a reviewer of the organisation', 200, EMAIL.reviewer],
+    ['an admin of the organisation', 200, EMAIL.admin],
+  ])('answers %s with %d', async (_who, expected, email) => {
+    const agent = email ? await h.signedIn(email) : request(h.app);
+    expect((await ask(agent, 'buyer.desk@purchasing-demo.example')).status).toBe(expected);
+  });
+});
