@@ -25,9 +25,7 @@ export interface PlacementLiveNumbersProps {
 
 export function PlacementLiveNumbers({ placementId, evaluation, scene, units, placement }: PlacementLiveNumbersProps) {
   const own = evaluation?.placements.find((p) => p.placementId === placementId) ?? null;
-  const doubts = placement
-    ? plausibilitySentences({ label: placement.label, mirror: own?.mirror ?? null, placement, scene, units })
-    : [];
+  const doubts = placement ? plausibilitySentences({ label: placement.label, mirror: own?.mirror ?? null, placement, scene, units }) : [];
   return (
     <>
       <Card title="Live numbers">

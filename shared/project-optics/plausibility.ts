@@ -127,9 +127,6 @@ export function plausibilitySentences(args: {
   // A vehicle's mirrors hang on the body, not on walls, and its eyes are not the scene's viewers.
   if (args.scene.vehicle) return [];
   const viewer = args.scene.viewers.find((v) => v.id === args.placement.viewerId) ?? null;
-  const out = [
-    aboveWallsSentence(args),
-    args.mirror ? eyeBehindMountSentence({ ...args, mirror: args.mirror, viewer }) : null,
-  ];
+  const out = [aboveWallsSentence(args), args.mirror ? eyeBehindMountSentence({ ...args, mirror: args.mirror, viewer }) : null];
   return out.filter((s): s is string => s !== null);
 }

@@ -216,8 +216,14 @@ export function limitLength(m: number, units: UnitSystem): string {
 export function mountingHeightRule(units: UnitSystem): NumberRule {
   return {
     required: 'Enter the mounting height.',
-    min: { value: PLACEMENT_LIMITS.heightM.min, message: `Mount the mirror at least ${limitLength(PLACEMENT_LIMITS.heightM.min, units)} above the floor.` },
-    max: { value: PLACEMENT_LIMITS.heightM.max, message: `A mounting height over ${limitLength(PLACEMENT_LIMITS.heightM.max, units)} is out of range.` },
+    min: {
+      value: PLACEMENT_LIMITS.heightM.min,
+      message: `Mount the mirror at least ${limitLength(PLACEMENT_LIMITS.heightM.min, units)} above the floor.`,
+    },
+    max: {
+      value: PLACEMENT_LIMITS.heightM.max,
+      message: `A mounting height over ${limitLength(PLACEMENT_LIMITS.heightM.max, units)} is out of range.`,
+    },
   };
 }
 

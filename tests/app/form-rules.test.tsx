@@ -9,7 +9,14 @@ import { ValidationError, type AnyObject, type ObjectSchema } from 'yup';
 import type { z } from 'zod';
 import '@testing-library/jest-dom';
 import { fireEvent, render, screen } from '@testing-library/react';
-import { bodyOf, catalogueSchema, FORM_FIELDS, SERVER_TO_FORM, valuesOf, type CatalogueFormValues } from '@/components/catalogue/catalogue-form';
+import {
+  bodyOf,
+  catalogueSchema,
+  FORM_FIELDS,
+  SERVER_TO_FORM,
+  valuesOf,
+  type CatalogueFormValues,
+} from '@/components/catalogue/catalogue-form';
 import { PlacementForm } from '@/components/placement/placement-form';
 import { changePasswordSchema, type ChangePasswordValues } from '@/components/forms/change-password-form';
 import { forgotPasswordSchema, type ForgotPasswordValues } from '@/components/forms/forgot-password-form';

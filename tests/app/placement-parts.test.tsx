@@ -82,14 +82,24 @@ describe('the placement form', () => {
 describe('the live numbers', () => {
   it('say, beside the numbers, that a mirror is mounted above the top of the wall it hangs on', () => {
     const placement = testPlacement({ label: 'M9', positionM: [0.2, 0], heightM: 3, azimuthRad: 0 });
-    const scene = { walls: [{ id: 'w', kind: 'wall' as const, aM: [0, -2] as [number, number], bM: [0, 2] as [number, number], heightM: 2 }], zones: [], viewers: [] };
+    const scene = {
+      walls: [{ id: 'w', kind: 'wall' as const, aM: [0, -2] as [number, number], bM: [0, 2] as [number, number], heightM: 2 }],
+      zones: [],
+      viewers: [],
+    };
     render(<PlacementLiveNumbers placementId={placement.id} placement={placement} evaluation={null} scene={scene} units="metric" />);
-    expect(screen.getByTestId('placement-plausibility')).toHaveTextContent('“M9” is mounted at 3.00 m, above the top of wall W1, which is 2.00 m high.');
+    expect(screen.getByTestId('placement-plausibility')).toHaveTextContent(
+      '“M9” is mounted at 3.00 m, above the top of wall W1, which is 2.00 m high.',
+    );
   });
 
   it('say nothing of the kind when the wall reaches the mirror', () => {
     const placement = testPlacement({ positionM: [0.2, 0], heightM: 1.5, azimuthRad: 0 });
-    const scene = { walls: [{ id: 'w', kind: 'wall' as const, aM: [0, -2] as [number, number], bM: [0, 2] as [number, number], heightM: 2 }], zones: [], viewers: [] };
+    const scene = {
+      walls: [{ id: 'w', kind: 'wall' as const, aM: [0, -2] as [number, number], bM: [0, 2] as [number, number], heightM: 2 }],
+      zones: [],
+      viewers: [],
+    };
     render(<PlacementLiveNumbers placementId={placement.id} placement={placement} evaluation={null} scene={scene} units="metric" />);
     expect(screen.queryByTestId('placement-plausibility')).toBeNull();
   });

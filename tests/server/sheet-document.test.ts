@@ -203,7 +203,10 @@ describe('plausibility sentences on the sheet', () => {
     // Moved clear of the building (its walls reach higher than any mirror), onto a low partition of its own.
     const target = { ...hung, positionM: [300, 300] as [number, number] };
     input.placements = input.placements.map((p) => (p.id === target.id ? target : p));
-    const back: [number, number] = [target.positionM[0] - 0.1 * Math.cos(target.azimuthRad), target.positionM[1] - 0.1 * Math.sin(target.azimuthRad)];
+    const back: [number, number] = [
+      target.positionM[0] - 0.1 * Math.cos(target.azimuthRad),
+      target.positionM[1] - 0.1 * Math.sin(target.azimuthRad),
+    ];
     const across: [number, number] = [-Math.sin(target.azimuthRad), Math.cos(target.azimuthRad)];
     const lowWall = {
       id: 'low-partition',
@@ -218,7 +221,11 @@ describe('plausibility sentences on the sheet', () => {
     const { content } = buildSheetContent({ ...input, project: { ...input.project, scene } });
     const mine = content.placements.find((p) => p.label === target.label)!;
     expect(mine.plausibility?.[0]).toMatch(new RegExp(`^“${target.label}” is mounted at .* above the top of wall W\\d+, which is`));
-    const pdf = await renderSheet(content, { number: 1, contentHash: contentHash(content), issuedAt: new Date(Date.UTC(2026, 11, 2)) }, 'a4');
+    const pdf = await renderSheet(
+      content,
+      { number: 1, contentHash: contentHash(content), issuedAt: new Date(Date.UTC(2026, 11, 2)) },
+      'a4',
+    );
     const file = path.join(tmp, 'plausibility.pdf');
     fs.writeFileSync(file, pdf);
     expect(flat(textOf(file))).toContain(`Check: “${target.label}” is mounted at`);
@@ -228,7 +235,12 @@ describe('plausibility sentences on the sheet', () => {
 describe('the approval block in the document structure', () => {
   async function structureOf(approval: SheetApproval, name: string): Promise<string> {
     const { content } = buildSheetContent(demoSheetInput('metric'));
-    const pdf = await renderSheet(content, { number: 2, contentHash: contentHash(content), issuedAt: new Date(Date.UTC(2026, 11, 2)) }, 'a4', approval);
+    const pdf = await renderSheet(
+      content,
+      { number: 2, contentHash: contentHash(content), issuedAt: new Date(Date.UTC(2026, 11, 2)) },
+      'a4',
+      approval,
+    );
     const file = path.join(tmp, `${name}.pdf`);
     fs.writeFileSync(file, pdf);
     return execFileSync('/usr/bin/pdfinfo', ['-struct-text', file], { encoding: 'utf8' });

@@ -65,9 +65,9 @@ describe('plausibility sentences over the whole accepted input', () => {
         anyUnits,
         fc.nat(5),
         ([p, scene], mirror, units, pick) => {
-        const viewerId = scene.viewers.length ? scene.viewers[pick % scene.viewers.length].id : null;
-        const out = plausibilitySentences({ label: 'M1', mirror, placement: { ...p, viewerId }, scene, units });
-        for (const s of out) expect(sentenceLooksRight(s)).toBe(true);
+          const viewerId = scene.viewers.length ? scene.viewers[pick % scene.viewers.length].id : null;
+          const out = plausibilitySentences({ label: 'M1', mirror, placement: { ...p, viewerId }, scene, units });
+          for (const s of out) expect(sentenceLooksRight(s)).toBe(true);
         },
       ),
       { numRuns: RUNS },
@@ -130,9 +130,13 @@ describe('a mirror mounted above the walls it hangs on', () => {
   it('says the heights in the reader’s units (a 2.4 m wall and a 3 m mount, to the nearest inch: 7 ft 10 in and 9 ft 10 in)', () => {
     const p = { positionM: [0, 0] as [number, number], heightM: 3, azimuthRad: 0 };
     const scene = panelScene([wallBehind(p, 0.1, 2.4)]);
-    expect(aboveWallsSentence({ label: 'M1', placement: p, scene, units: 'metric' })).toMatch(/mounted at 3\.00 m, .* which is 2\.40 m high/);
+    expect(aboveWallsSentence({ label: 'M1', placement: p, scene, units: 'metric' })).toMatch(
+      /mounted at 3\.00 m, .* which is 2\.40 m high/,
+    );
     // 3 m = 118.1 in = 9 ft 10 in; 2.4 m = 94.49 in = 7 ft 10 in (1 in = 25.4 mm exactly).
-    expect(aboveWallsSentence({ label: 'M1', placement: p, scene, units: 'imperial' })).toMatch(/mounted at 9 ft 10 in, .* which is 7 ft 10 in high/);
+    expect(aboveWallsSentence({ label: 'M1', placement: p, scene, units: 'imperial' })).toMatch(
+      /mounted at 9 ft 10 in, .* which is 7 ft 10 in high/,
+    );
   });
 });
 
@@ -142,13 +146,18 @@ describe('a viewer’s eye behind the mirror’s mounting surface', () => {
   it('a panel: an eye in front of its face plane gets no sentence, the same eye mirrored behind that plane gets one', () => {
     fc.assert(
       fc.property(anyPanel, anyPlacement, size(0.05, 40), size(-20, 20), size(-20, 20), anyUnits, (mirror, p, ahead, across, up, units) => {
-        const pose = poseFromAim({ vertexM: [p.positionM[0], p.positionM[1], p.heightM], azimuthRad: p.azimuthRad, tiltDownRad: p.tiltDownRad });
+        const pose = poseFromAim({
+          vertexM: [p.positionM[0], p.positionM[1], p.heightM],
+          azimuthRad: p.azimuthRad,
+          tiltDownRad: p.tiltDownRad,
+        });
         const w = pose.axis;
         // u: horizontal across the face; v = w × u.
         const h = Math.hypot(w[0], w[1]);
         const u: [number, number, number] = h > 1e-9 ? [-w[1] / h, w[0] / h, 0] : [1, 0, 0];
         const v: [number, number, number] = [w[1] * u[2] - w[2] * u[1], w[2] * u[0] - w[0] * u[2], w[0] * u[1] - w[1] * u[0]];
-        const at = (s: number): [number, number, number] => [0, 1, 2].map((i) => pose.vertexM[i] + s * w[i] + across * u[i] + up * v[i]) as [number, number, number];
+        const at = (s: number): [number, number, number] =>
+          [0, 1, 2].map((i) => pose.vertexM[i] + s * w[i] + across * u[i] + up * v[i]) as [number, number, number];
         expect(eyeBehindMountSentence({ label: 'M1', mirror, placement: p, viewer: eyeOf(at(ahead)), units })).toBeNull();
         const s = eyeBehindMountSentence({ label: 'M1', mirror, placement: p, viewer: eyeOf(at(-ahead)), units });
         expect(s).toContain('is behind the plane of its face');
@@ -164,7 +173,11 @@ describe('a viewer’s eye behind the mirror’s mounting surface', () => {
       fc.property(anyDome, anyPlacement, size(-15, 15), size(-15, 15), size(0.3, 6), (mirror, p, dx, dy, eyeH) => {
         const eye: [number, number, number] = [p.positionM[0] + dx, p.positionM[1] + dy, eyeH];
         const said = eyeBehindMountSentence({ mirror, placement: p, viewer: eyeOf(eye), units: 'metric' });
-        const pose = poseFromAim({ vertexM: [p.positionM[0], p.positionM[1], p.heightM], azimuthRad: p.azimuthRad, tiltDownRad: p.tiltDownRad });
+        const pose = poseFromAim({
+          vertexM: [p.positionM[0], p.positionM[1], p.heightM],
+          azimuthRad: p.azimuthRad,
+          tiltDownRad: p.tiltDownRad,
+        });
         let refused: string | null = null;
         try {
           coverage({ mirror, pose, eyeM: eye, maxRangeM: 2, walls: [] });
