@@ -164,8 +164,8 @@ export function reviewRoutes(deps: { work: SheetWork; publicUrl: (host: string) 
     const { revision, created } = await issueRevision(em, sheet, user);
     const out = await requestEm().transactional(async (tx) => {
       const found = await findVisibleProject(tx, user, req.params.id);
-      // The request already holds this project as it was before the (slow) sheet work: read it again,
-      // so a change made meanwhile is seen and the version check below answers 409.
+      // The transaction starts from the request's identity map, which holds this project as it was
+      // before the (slow) sheet work: read it again, so a change made meanwhile fails the version check.
       const fresh = (await tx.refresh(found)) ?? found;
       checkReviewable(user, fresh, body.version, 'approve');
       await tx.lock(fresh, LockMode.OPTIMISTIC, body.version);
