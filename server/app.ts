@@ -180,8 +180,8 @@ export function createApp(deps: AppDeps): SightfanApp {
   api.use('/catalog', catalogue);
   api.use('/projects', projectsRoutes(work));
   api.use('/projects', sheetsRoutes({ outbox, work, outsidePerHour: config.sheetOutsideEmailsPerHour }));
-  api.use('/projects', reviewRoutes({ orm, work, publicUrl }));
-  api.use('/reviewers', reviewersRoutes(orm));
+  api.use('/projects', reviewRoutes({ work, publicUrl }));
+  api.use('/reviewers', reviewersRoutes());
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -29,6 +29,7 @@ import type {
   UsersResponse,
   SheetEmailBody,
   SheetEmailResponse,
+  SheetRecipientDto,
   SheetIssueResponse,
   SheetPaper,
   SheetStatusDto,
@@ -213,6 +214,8 @@ export function createApiClient(options: ApiClientOptions = {}) {
       download: (projectId: number, revision: number, paper?: SheetPaper) =>
         download(sheetPdfPath(projectId, revision, paper), `sightfan-project-${projectId}-rev${revision}.pdf`),
       email: (projectId: number, body: SheetEmailBody) => request<SheetEmailResponse>('POST', `/projects/${projectId}/sheet/email`, body),
+      recipient: (projectId: number, to: string) =>
+        request<SheetRecipientDto>('GET', `/projects/${projectId}/sheet/recipient?to=${encodeURIComponent(to)}`),
     },
   };
 }

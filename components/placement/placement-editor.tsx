@@ -113,7 +113,7 @@ function PlacementEditorInner({ scene, placement, writes, evaluation, catalogue,
           />
         </View>
         <View style={column}>
-          <PlacementLiveNumbers placementId={id} evaluation={evaluation} scene={scene} units={units} />
+          <PlacementLiveNumbers placementId={id} placement={placement} evaluation={evaluation} scene={scene} units={units} />
         </View>
       </View>
 

@@ -12,6 +12,7 @@ import { palette, spacing } from '@/constants/theme';
 import type { PlacementEdits } from '@/hooks/use-placement-writes';
 import type { CatalogueItemDto, PlacementDto, SceneViewer } from '@/shared/schemas';
 import { PLACEMENT_LIMITS } from '@/shared/schemas/limits';
+import { mountingHeightRule, planCoordinateRule } from '@/shared/schemas/rules';
 import { formatLength, type UnitSystem } from '@/shared/units';
 import { ChoiceChips } from './choice-chips';
 import { MirrorPicker, type MirrorChoice } from './mirror-picker';
@@ -95,6 +96,7 @@ export function PlacementForm({ placement, viewers, catalogue, units, canEdit, e
         step={heightStep}
         min={PLACEMENT_LIMITS.heightM.min}
         max={PLACEMENT_LIMITS.heightM.max}
+        rule={mountingHeightRule(units)}
         error={e.heightM}
       />
       <NumberField
@@ -136,6 +138,7 @@ export function PlacementForm({ placement, viewers, catalogue, units, canEdit, e
             value={placement.positionM[0]}
             onChangeValue={(v) => v !== null && set({ positionM: [v, placement.positionM[1]] })}
             editable={canEdit}
+            rule={planCoordinateRule(units)}
             error={e['positionM.0'] ?? e.positionM}
           />
         </View>
@@ -149,6 +152,7 @@ export function PlacementForm({ placement, viewers, catalogue, units, canEdit, e
             value={placement.positionM[1]}
             onChangeValue={(v) => v !== null && set({ positionM: [placement.positionM[0], v] })}
             editable={canEdit}
+            rule={planCoordinateRule(units)}
             error={e['positionM.1']}
           />
         </View>

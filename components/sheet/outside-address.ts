@@ -1,27 +1,24 @@
 /**
- * Whether e-mailing a sheet needs a second "yes": the sheet is not the approved one and the
- * address looks like it leaves the organisation. The app cannot list the organisation's people
- * (only admins can), so "outside" is read from the address: another domain than the signed-in
- * person's. The server's own rule (not a user of the organisation) decides the hourly limit.
+ * Whether e-mailing a sheet needs a second "yes": the sheet is not the approved one and the address
+ * leaves the organisation. "Leaves" is the server's rule (not a user of the project's organisation),
+ * asked through `GET /api/projects/:id/sheet/recipient`, the same rule its hourly limit counts by.
  */
-export function domainOf(address: string): string {
-  const at = address.trim().lastIndexOf('@');
-  return at < 0
-    ? ''
-    : address
-        .trim()
-        .slice(at + 1)
-        .toLowerCase();
+import type { ApiClient } from '@/shared/api-client';
+
+/**
+ * Asks the server whether `to` is outside the organisation. When the question cannot be answered
+ * (offline, a refusal), the answer is "outside": asking once too often is the safe mistake.
+ */
+export async function isOutsideOrganisation(client: Pick<ApiClient, 'sheets'>, projectId: number, to: string): Promise<boolean> {
+  try {
+    return (await client.sheets.recipient(projectId, to)).outsideOrganisation;
+  } catch {
+    return true;
+  }
 }
 
-export function isOutsideAddress(to: string, ownEmail: string | undefined): boolean {
-  const theirs = domainOf(to);
-  const ours = ownEmail ? domainOf(ownEmail) : '';
-  return !ours || theirs !== ours;
-}
-
-export function needsSendConfirmation(to: string, ownEmail: string | undefined, approved: boolean | undefined): boolean {
-  return approved !== true && isOutsideAddress(to, ownEmail);
+export function needsSendConfirmation(outsideOrganisation: boolean, approved: boolean | undefined): boolean {
+  return approved !== true && outsideOrganisation;
 }
 
 /** The warning shown before sending an unapproved sheet outside; the button under it sends anyway. */

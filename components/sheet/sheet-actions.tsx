@@ -12,8 +12,7 @@ import { useDownloadSheetMutation, useEmailSheetMutation, useIssueSheetMutation,
 import { describeError } from '@/shared/errors';
 import type { SheetEmailBody, SheetStatusDto } from '@/shared/schemas';
 import { sheetEmailRules } from '@/shared/schemas/rules';
-import { useSession } from '@/hooks/use-session';
-import { needsSendConfirmation, outsideWarning } from './outside-address';
+import { isOutsideOrganisation, needsSendConfirmation, outsideWarning } from './outside-address';
 import { canSaveFiles, saveFile } from './save-file';
 
 export interface SheetEmailValues {
@@ -57,7 +56,6 @@ export function SheetActions({ projectId, canEdit }: SheetActionsProps) {
   const download = useDownloadSheetMutation(projectId, saveFile);
   const issue = useIssueSheetMutation(projectId);
   const email = useEmailSheetMutation(projectId);
-  const { user } = useSession();
   // The address the person has agreed to send an unapproved sheet to; a changed address asks again.
   const confirmedFor = useRef<string | null>(null);
   const [confirming, setConfirming] = useState<string | null>(null);
@@ -99,9 +97,14 @@ export function SheetActions({ projectId, canEdit }: SheetActionsProps) {
         onSubmit={async (values, helpers) => {
           helpers.setStatus(undefined);
           const to = values.to.trim();
-          if (needsSendConfirmation(to, user?.email, status.data?.current.approved) && confirmedFor.current !== to) {
-            setConfirming(to);
-            return;
+          const approved = status.data?.current.approved;
+          // Only an unapproved sheet asks; the server says whether the address leaves the organisation.
+          if (approved !== true && confirmedFor.current !== to) {
+            const outside = await isOutsideOrganisation(api, projectId, to);
+            if (needsSendConfirmation(outside, approved)) {
+              setConfirming(to);
+              return;
+            }
           }
           setConfirming(null);
           confirmedFor.current = null;

@@ -3,6 +3,7 @@ import { Pressable, StyleSheet, View } from 'react-native';
 import { focusRing, layout, palette, radii, spacing } from '@/constants/theme';
 import { useFocusVisible } from '@/hooks/use-focus-visible';
 import { formatAngle, formatLength, parseAngle, parseLength, type LengthKind, type UnitSystem } from '@/shared/units';
+import { numberProblem, type NumberRule } from '@/shared/schemas/rules';
 import { AppText } from './text';
 import { TextField } from './text-field';
 
@@ -30,6 +31,11 @@ export interface NumberFieldProps {
   precision?: number;
   /** Say so on blur when the field is left empty (the last valid value is kept meanwhile). */
   required?: boolean;
+  /**
+   * The route's rule for this value, with its sentences in the reader's units (shared/schemas/rules.ts).
+   * A typed value that breaks it is said at once and never sent; the last valid value is kept.
+   */
+  rule?: NumberRule;
 }
 
 function formatValue(v: number | null, kind: NumberFieldKind, units: UnitSystem, precision?: number): string {
@@ -76,6 +82,7 @@ export function NumberField({
   max,
   precision,
   required = true,
+  rule,
 }: NumberFieldProps) {
   const [text, setText] = useState(() => formatValue(value, kind, units, precision));
   const [parseError, setParseError] = useState<string | undefined>();
@@ -102,18 +109,20 @@ export function NumberField({
       return;
     }
     const r = parseValue(t, kind, units);
-    if (r.ok) {
-      setParseError(undefined);
-      emit(r.value);
-    }
+    if (!r.ok) return;
+    const problem = rule ? numberProblem(rule, r.value) : null;
+    setParseError(problem ?? undefined);
+    if (!problem) emit(r.value);
   };
 
   const onBlur = () => {
     focused.current = false;
     if (text.trim() !== '') {
       const r = parseValue(text, kind, units);
-      if (r.ok) setText(formatValue(r.value, kind, units, precision));
-      else setParseError(r.message);
+      const problem = r.ok ? (rule ? numberProblem(rule, r.value) : null) : r.message;
+      // A value the rule refuses stays as typed beside its sentence, so the person sees what was refused.
+      if (problem) setParseError(problem);
+      else if (r.ok) setText(formatValue(r.value, kind, units, precision));
     } else if (required) {
       setParseError(`Enter the ${label.toLowerCase()}.`);
     }

@@ -461,6 +461,8 @@ function placementPage(flow: Flow, content: SheetContent, p: SheetPlacement, ind
   if (p.notes) flow.paragraph(`Installer's note: ${p.notes}`, 'regular', 8.5, MUTED);
 
   flow.heading('What it shows (computed)');
+  // Said before the numbers, so a range is never read without the doubt that goes with it.
+  for (const doubt of p.plausibility ?? []) flow.paragraph(`Check: ${doubt}`, 'medium', 9, STOP);
   if (!p.numbers) {
     flow.paragraph(`No numbers for this mirror: ${p.problem ?? 'its optics cannot be computed.'}`, 'medium', 9.5, STOP);
   } else {

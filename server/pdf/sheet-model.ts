@@ -17,6 +17,7 @@ import {
   criterionText,
   drawnRangeM,
   evaluateProject,
+  plausibilitySentences,
   targetLabel,
   zoneCriterion,
   type ProjectEvaluation,
@@ -108,6 +109,8 @@ export interface SheetPlacement {
   mounting: Row[];
   numbers: SheetNumbers | null;
   problem: string | null;
+  /** Plausibility sentences (a mirror above the walls it hangs on, an eye behind it); absent when there are none. */
+  plausibility?: string[];
   elevation: SheetElevation | null;
   notes: string;
 }
@@ -291,12 +294,15 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
           floorReach: n.floorSeen ? `${f.dist(n.floorSeen.nearestM)} to ${f.dist(n.floorSeen.farthestM)}` : 'no floor seen',
         }
       : null;
+    const doubts = plausibilitySentences({ label: p.label, mirror: ev.mirror, placement: p, scene, units });
     return {
       label: p.label,
       mirror,
       mounting,
       numbers,
       problem: ev.problem?.message ?? null,
+      // Absent rather than empty, so a sheet without doubts keeps the content hash it had before.
+      ...(doubts.length > 0 ? { plausibility: doubts } : {}),
       elevation: elevationOf(ev),
       notes: p.notes.trim(),
     };

@@ -15,7 +15,7 @@ import { buildSheetContent, canonicalJson, contentHash, type SheetContent, type 
  * Part of every evaluation cache key. Raise it whenever the sheet model or the engine changes what a
  * sheet says for the same input (the cache is also emptied when the server starts).
  */
-export const SHEET_MODEL_VERSION = 4;
+export const SHEET_MODEL_VERSION = 5;
 
 export function inputHash(input: SheetInput): string {
   return createHash('sha256')

@@ -6,3 +6,4 @@ export * from './criteria';
 export * from './figures';
 export * from './vehicle';
 export * from './aim-at-zone';
+export * from './plausibility';

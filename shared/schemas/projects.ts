@@ -4,17 +4,12 @@ import { checkedMirrorSpec } from './catalogue';
 import { isSimpleRing } from '../geometry/polygon';
 import { LIMIT_MESSAGES, PLACEMENT_LIMITS, SCENE_LIMITS } from './limits';
 import { criteriaSettings, criterionKind } from './criteria';
-import { labelRule, placementRules, projectRules } from './rules';
-import { zodText } from './zod-rules';
+import { labelRule, mountingHeightRule, placementRules, planCoordinateRule, projectRules } from './rules';
+import { zodNumber, zodText } from './zod-rules';
 import { mirrorClass, vehicle, vehicleRuleSet } from './vehicle';
 import { reviewFieldsDto } from './review';
 
-const MAX_SITE_M = 2000;
-const coord = z
-  .number({ message: 'Enter a position.' })
-  .finite('Positions must be numbers.')
-  .min(-MAX_SITE_M, 'That point is more than 2 km from the origin.')
-  .max(MAX_SITE_M, 'That point is more than 2 km from the origin.');
+const coord = zodNumber(planCoordinateRule('metric'));
 const pair = z.tuple([coord, coord], { message: 'A point needs x and y.' });
 const sceneId = z
   .string()
@@ -183,10 +178,7 @@ const placementFields = {
   catalogueItemId: z.number().int().positive().nullable(),
   customMirror: checkedMirrorSpec.nullable(),
   positionM: pair,
-  heightM: z
-    .number({ message: 'Enter the mounting height.' })
-    .min(PLACEMENT_LIMITS.heightM.min, 'Mount the mirror at least 0.2 m above the floor.')
-    .max(PLACEMENT_LIMITS.heightM.max, 'A mounting height over 30 m is out of range.'),
+  heightM: zodNumber(mountingHeightRule('metric')),
   azimuthRad: angle('aim direction', PLACEMENT_LIMITS.azimuthRad.min, PLACEMENT_LIMITS.azimuthRad.max),
   tiltDownRad: angle('tilt', PLACEMENT_LIMITS.tiltDownRad.min, PLACEMENT_LIMITS.tiltDownRad.max),
   viewerId: sceneId.nullable(),

@@ -10,6 +10,7 @@
  */
 import { formatLength, type UnitSystem } from '../units';
 import { unprintableMessage } from '../text/printable';
+import { PLACEMENT_LIMITS } from './limits';
 
 /** A limit and the sentence shown when it is crossed. */
 export interface Limit {
@@ -197,6 +198,42 @@ export function sizeRule(size: SizeLimit, units: UnitSystem): NumberRule {
     min: { value: size.minM, message: `The ${size.what} must be at least ${f(size.minM)}.` },
     max: { value: size.maxM, message: `The ${size.what} must be at most ${f(size.maxM)}.` },
   };
+}
+
+/**
+ * A limit said in the reader's units: metric as the plain number of metres ("0.2 m"), imperial in
+ * feet and inches to the nearest inch ("8 in", "98 ft 5 in"), as a tape measure reads.
+ */
+export function limitLength(m: number, units: UnitSystem): string {
+  return units === 'metric' ? `${m} m` : formatLength(m, 'imperial', { kind: 'distance', precision: 0 });
+}
+
+/**
+ * A mirror's mounting height (floor to the mirror's centre), with its limits in the reader's units.
+ * The route uses the metric sentences; the editor checks the typed value with the reader's units
+ * before anything is sent, so "-3 ft" in imperial is answered in feet and inches.
+ */
+export function mountingHeightRule(units: UnitSystem): NumberRule {
+  return {
+    required: 'Enter the mounting height.',
+    min: {
+      value: PLACEMENT_LIMITS.heightM.min,
+      message: `Mount the mirror at least ${limitLength(PLACEMENT_LIMITS.heightM.min, units)} above the floor.`,
+    },
+    max: {
+      value: PLACEMENT_LIMITS.heightM.max,
+      message: `A mounting height over ${limitLength(PLACEMENT_LIMITS.heightM.max, units)} is out of range.`,
+    },
+  };
+}
+
+/** The largest distance of a plan point from the origin on either axis, in metres. */
+export const MAX_SITE_M = 2000;
+
+/** A plan coordinate (a mirror's or a point's x or y), with its limit in the reader's units. */
+export function planCoordinateRule(units: UnitSystem): NumberRule {
+  const far = `That point is more than ${units === 'metric' ? '2 km' : limitLength(MAX_SITE_M, units)} from the origin.`;
+  return { required: 'Enter a position.', min: { value: -MAX_SITE_M, message: far }, max: { value: MAX_SITE_M, message: far } };
 }
 
 export const DOME_PORTION_MESSAGE = 'Choose a full, half or quarter dome.';

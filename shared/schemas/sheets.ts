@@ -19,6 +19,14 @@ export const sheetPdfQuery = sheetQuery.extend({
     .optional(),
 });
 
+/** `GET …/sheet/recipient?to=…`: whether sending to this address counts as leaving the organisation. */
+export const sheetRecipientQuery = z.object({ to: email }).strict();
+export const sheetRecipientDto = z.object({
+  /** The address is not a user of the project's organisation: the same rule the hourly limit counts by. */
+  outsideOrganisation: z.boolean(),
+});
+export type SheetRecipientDto = z.infer<typeof sheetRecipientDto>;
+
 /** One buyer address per sending: a purchase request goes to one desk. */
 export const sheetEmailBody = z
   .object({

@@ -7,7 +7,17 @@ import fc from 'fast-check';
 import { validateYupSchema, yupToFormErrors } from 'formik';
 import { ValidationError, type AnyObject, type ObjectSchema } from 'yup';
 import type { z } from 'zod';
-import { bodyOf, catalogueSchema, FORM_FIELDS, SERVER_TO_FORM, type CatalogueFormValues } from '@/components/catalogue/catalogue-form';
+import '@testing-library/jest-dom';
+import { fireEvent, render, screen } from '@testing-library/react';
+import {
+  bodyOf,
+  catalogueSchema,
+  FORM_FIELDS,
+  SERVER_TO_FORM,
+  valuesOf,
+  type CatalogueFormValues,
+} from '@/components/catalogue/catalogue-form';
+import { PlacementForm } from '@/components/placement/placement-form';
 import { changePasswordSchema, type ChangePasswordValues } from '@/components/forms/change-password-form';
 import { forgotPasswordSchema, type ForgotPasswordValues } from '@/components/forms/forgot-password-form';
 import { inviteBodyOf, inviteSchema, type InviteValues } from '@/components/forms/invite-form';
@@ -25,12 +35,14 @@ import {
   fieldErrors,
   forgotPasswordBody,
   inviteBody,
+  patchPlacementBody,
   roles,
   sheetEmailBody,
   signInBody,
 } from '@/shared/schemas';
 import { catalogueRules, emailRule, MIRROR_SIZES, type TextRule } from '@/shared/schemas/rules';
 import { minorToText } from '@/shared/units';
+import { TEST_CATALOGUE, testPlacement } from './fixtures';
 
 const RUNS = 300;
 
@@ -304,5 +316,95 @@ describe('each form refuses what its route refuses, with the same sentence per f
       // A price the form cannot read is never sent as text: the form explains the reading, the route refuses the missing number.
       (v) => (Number.isNaN(bodyOf(v).unitPriceMinor) ? ['price'] : []),
     );
+  });
+});
+
+describe('numbers are checked in the form, in the reader’s units, before anything is sent', () => {
+  const editMounting = (units: 'metric' | 'imperial') => {
+    const onChange = jest.fn();
+    render(
+      <PlacementForm
+        placement={testPlacement({ heightM: 2.5 })}
+        viewers={[]}
+        catalogue={TEST_CATALOGUE}
+        units={units}
+        canEdit
+        errors={{}}
+        onChange={onChange}
+        onCommit={jest.fn()}
+      />,
+    );
+    return onChange;
+  };
+
+  it('typing "-3 ft" as an imperial mounting height names the limit in inches and sends no change', () => {
+    const onChange = editMounting('imperial');
+    fireEvent.change(screen.getByTestId('placement-height'), { target: { value: '-3 ft' } });
+    // 0.2 m is 7.87 in, which a tape reads as 8 in (1 in = 25.4 mm exactly, common practice).
+    expect(screen.getByTestId('field-error-heightM')).toHaveTextContent('Mount the mirror at least 8 in above the floor.');
+    expect(onChange).not.toHaveBeenCalled();
+  });
+
+  it('an imperial mounting height over the limit names it in feet and inches, and a good one is sent after', () => {
+    const onChange = editMounting('imperial');
+    const field = screen.getByTestId('placement-height');
+    fireEvent.change(field, { target: { value: '120 ft' } });
+    // 30 m is 1181.1 in: 98 ft 5 in to the nearest inch (1 ft = 12 in).
+    expect(screen.getByTestId('field-error-heightM')).toHaveTextContent('A mounting height over 98 ft 5 in is out of range.');
+    expect(onChange).not.toHaveBeenCalled();
+    fireEvent.change(field, { target: { value: '9 ft' } });
+    expect(screen.queryByTestId('field-error-heightM')).toBeNull();
+    // 9 ft = 2.7432 m (1 ft = 0.3048 m exactly).
+    expect(onChange).toHaveBeenCalledWith({ heightM: expect.closeTo(2.7432, 9) as number });
+  });
+
+  it('a metric mounting height below the limit gets the route’s own sentence', () => {
+    const onChange = editMounting('metric');
+    fireEvent.change(screen.getByTestId('placement-height'), { target: { value: '-3' } });
+    const routeSays = routeErrors(patchPlacementBody, { version: 1, heightM: -3 }).heightM;
+    expect(screen.getByTestId('field-error-heightM')).toHaveTextContent(routeSays);
+    expect(routeSays).toBe('Mount the mirror at least 0.2 m above the floor.');
+    expect(onChange).not.toHaveBeenCalled();
+  });
+
+  it('the catalogue form (imperial) refuses a radius under half the diameter before sending, as the route does', async () => {
+    const values: CatalogueFormValues = {
+      code: 'DEMO-R1',
+      name: 'Demo round',
+      shape: 'round',
+      portion: 'full',
+      // A 600 mm mirror on a 250 mm sphere: no cap of a 0.25 m sphere is 0.6 m across (it is at most 0.5 m).
+      diameterM: 0.6,
+      widthM: null,
+      heightM: null,
+      radiusM: 0.25,
+      material: '',
+      reflectancePct: '',
+      massKg: '',
+      price: '12.00',
+      currency: 'EUR',
+      notes: '',
+      active: true,
+    };
+    const message = 'The radius of curvature must be more than half the diameter: no sphere that small has a cap this wide.';
+    expect((await formErrors(catalogueSchema('imperial'), values)).radiusM).toBe(message);
+    expect(routeErrors(createCatalogueItemBody, bodyOf(values), SERVER_TO_FORM).radiusM).toBe(message);
+    // Just over half the diameter is a real (deep) cap: the form lets it through.
+    expect((await formErrors(catalogueSchema('imperial'), { ...values, radiusM: 0.31 })).radiusM).toBeUndefined();
+  });
+
+  it('a rectangular panel whose diagonal exceeds the sphere’s diameter is refused in the form too', async () => {
+    const values = {
+      ...valuesOf(null),
+      code: 'DEMO-P1',
+      name: 'Demo panel',
+      shape: 'rect' as const,
+      // 0.6 m × 0.8 m has a 1.0 m diagonal (the 3-4-5 triangle), so a 0.5 m radius is just too small.
+      widthM: 0.6,
+      heightM: 0.8,
+      radiusM: 0.5,
+      price: '1.00',
+    };
+    expect((await formErrors(catalogueSchema('metric'), values)).radiusM).toMatch(/more than half the panel diagonal/);
   });
 });

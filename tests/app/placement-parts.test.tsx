@@ -3,6 +3,7 @@ import '@testing-library/jest-dom';
 import { act, fireEvent, render, screen } from '@testing-library/react';
 import { PlacementDelete } from '@/components/placement/placement-delete';
 import { PlacementForm } from '@/components/placement/placement-form';
+import { PlacementLiveNumbers } from '@/components/placement/placement-live-numbers';
 import { saveStatusText } from '@/components/placement/placement-save-state';
 import { ApiError } from '@/shared/api-client';
 import { TEST_CATALOGUE, testPlacement } from './fixtures';
@@ -75,5 +76,31 @@ describe('the placement form', () => {
       />,
     );
     expect(screen.getByTestId('field-error-tiltDownRad')).toHaveTextContent('A sentence from the server about the tilt.');
+  });
+});
+
+describe('the live numbers', () => {
+  it('say, beside the numbers, that a mirror is mounted above the top of the wall it hangs on', () => {
+    const placement = testPlacement({ label: 'M9', positionM: [0.2, 0], heightM: 3, azimuthRad: 0 });
+    const scene = {
+      walls: [{ id: 'w', kind: 'wall' as const, aM: [0, -2] as [number, number], bM: [0, 2] as [number, number], heightM: 2 }],
+      zones: [],
+      viewers: [],
+    };
+    render(<PlacementLiveNumbers placementId={placement.id} placement={placement} evaluation={null} scene={scene} units="metric" />);
+    expect(screen.getByTestId('placement-plausibility')).toHaveTextContent(
+      '“M9” is mounted at 3.00 m, above the top of wall W1, which is 2.00 m high.',
+    );
+  });
+
+  it('say nothing of the kind when the wall reaches the mirror', () => {
+    const placement = testPlacement({ positionM: [0.2, 0], heightM: 1.5, azimuthRad: 0 });
+    const scene = {
+      walls: [{ id: 'w', kind: 'wall' as const, aM: [0, -2] as [number, number], bM: [0, 2] as [number, number], heightM: 2 }],
+      zones: [],
+      viewers: [],
+    };
+    render(<PlacementLiveNumbers placementId={placement.id} placement={placement} evaluation={null} scene={scene} units="metric" />);
+    expect(screen.queryByTestId('placement-plausibility')).toBeNull();
   });
 });

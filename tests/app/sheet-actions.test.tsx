@@ -13,7 +13,7 @@ import { makeTestQueryClient, renderWithQuery } from './render';
 jest.mock('@/hooks/api', () => ({
   api: {
     auth: { me: jest.fn() },
-    sheets: { status: jest.fn(), issue: jest.fn(), pdfPath: jest.fn(), download: jest.fn(), email: jest.fn() },
+    sheets: { status: jest.fn(), issue: jest.fn(), pdfPath: jest.fn(), download: jest.fn(), email: jest.fn(), recipient: jest.fn() },
   },
 }));
 jest.mock('@/components/sheet/save-file', () => ({ canSaveFiles: true, saveFile: jest.fn() }));
@@ -183,6 +183,7 @@ describe('SheetActions', () => {
 
     it('warns and sends nothing until the person confirms an address outside the organisation, then sends it', async () => {
       const to = 'buyer@purchasing-demo.example';
+      jest.mocked(api.sheets.recipient).mockResolvedValue({ outsideOrganisation: true });
       jest.mocked(api.sheets.email).mockResolvedValue(sentTo(to));
       renderWithStatus(status([revision(2)], false, false));
       const user = userEvent.setup();
@@ -191,6 +192,7 @@ describe('SheetActions', () => {
       await user.click(screen.getByTestId('sheet-email-submit'));
 
       expect(await screen.findByTestId('sheet-email-confirm')).toHaveTextContent(`not approved, and ${to} is outside your organisation`);
+      expect(api.sheets.recipient).toHaveBeenCalledWith(PROJECT_ID, to);
       expect(api.sheets.email).not.toHaveBeenCalled();
 
       await user.click(screen.getByTestId('sheet-email-confirm-send'));
@@ -199,6 +201,7 @@ describe('SheetActions', () => {
     });
 
     it("sends nothing when the person answers Don't send", async () => {
+      jest.mocked(api.sheets.recipient).mockResolvedValue({ outsideOrganisation: true });
       renderWithStatus(status([revision(2)], false, false));
       const user = userEvent.setup();
 
@@ -210,8 +213,10 @@ describe('SheetActions', () => {
       expect(api.sheets.email).not.toHaveBeenCalled();
     });
 
-    it('sends to an address of the signed-in person’s own domain without asking', async () => {
-      const to = 'stores@fitters-demo.example';
+    it('sends without asking to an address the server counts as a colleague, whatever its domain', async () => {
+      // A colleague of the organisation whose address is at another domain than the installer's.
+      const to = 'safety.officer@client-site-demo.example';
+      jest.mocked(api.sheets.recipient).mockResolvedValue({ outsideOrganisation: false });
       jest.mocked(api.sheets.email).mockResolvedValue(sentTo(to));
       renderWithStatus(status([revision(2)], false, false));
       const user = userEvent.setup();
@@ -221,6 +226,31 @@ describe('SheetActions', () => {
 
       await waitFor(() => expect(api.sheets.email).toHaveBeenCalledTimes(1));
       expect(screen.queryByTestId('sheet-email-confirm')).not.toBeInTheDocument();
+    });
+
+    it('asks about an address at the installer’s own domain when the server says it is no one in the organisation', async () => {
+      const to = 'stranger@fitters-demo.example';
+      jest.mocked(api.sheets.recipient).mockResolvedValue({ outsideOrganisation: true });
+      renderWithStatus(status([revision(2)], false, false));
+      const user = userEvent.setup();
+
+      await user.type(screen.getByTestId('sheet-email-to'), to);
+      await user.click(screen.getByTestId('sheet-email-submit'));
+
+      expect(await screen.findByTestId('sheet-email-confirm')).toHaveTextContent(`${to} is outside your organisation`);
+      expect(api.sheets.email).not.toHaveBeenCalled();
+    });
+
+    it('asks when the server cannot say where the address belongs', async () => {
+      jest.mocked(api.sheets.recipient).mockRejectedValue(new ApiError(503, 'The server is busy.', {}));
+      renderWithStatus(status([revision(2)], false, false));
+      const user = userEvent.setup();
+
+      await user.type(screen.getByTestId('sheet-email-to'), 'stores@fitters-demo.example');
+      await user.click(screen.getByTestId('sheet-email-submit'));
+
+      expect(await screen.findByTestId('sheet-email-confirm')).toBeInTheDocument();
+      expect(api.sheets.email).not.toHaveBeenCalled();
     });
 
     it("shows the server's sentence and the wait when outside e-mails are over the hourly limit (429)", async () => {
@@ -235,6 +265,8 @@ describe('SheetActions', () => {
       const error = await screen.findByTestId('sheet-email-error');
       expect(error).toHaveTextContent(limit);
       expect(error).toHaveTextContent('Try again in 30 minutes.');
+      // An approved sheet never asks, so nothing asked where the address belongs.
+      expect(api.sheets.recipient).not.toHaveBeenCalled();
     });
   });
 });

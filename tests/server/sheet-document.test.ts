@@ -13,6 +13,7 @@ import { multiPolygonArea, polygonArea } from '../../shared/geometry/polygon';
 import type { SheetPaper, UnitSystem } from '../../shared/schemas';
 import { addressLines, renderSheet } from '../../server/pdf/render-sheet';
 import { buildSheetContent, contentHash, type SheetContent } from '../../server/pdf/sheet-model';
+import type { SheetApproval } from '../../server/pdf/approval-mark';
 import { demoSheetInput } from '../../scripts/sample-sheets';
 
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'sightfan-sheet-doc-'));
@@ -191,5 +192,86 @@ describe('the plan page', () => {
       // The demo's zones print 74 % and 77 % seen: both in the 60–94 % band, outlined as partly covered.
       expect(z.band).toBe('partial');
     });
+  });
+});
+
+describe('plausibility sentences on the sheet', () => {
+  it('says, before the numbers of a mirror, that it hangs above the top of the wall behind it', async () => {
+    const input = demoSheetInput('metric');
+    // A wall-hung panel (a full dome hangs from the ceiling and is never said to be above a wall).
+    const hung = input.placements.find((p) => input.catalogue.find((c) => c.id === p.catalogueItemId)?.mirror.shape !== 'dome')!;
+    // Moved clear of the building (its walls reach higher than any mirror), onto a low partition of its own.
+    const target = { ...hung, positionM: [300, 300] as [number, number] };
+    input.placements = input.placements.map((p) => (p.id === target.id ? target : p));
+    const back: [number, number] = [
+      target.positionM[0] - 0.1 * Math.cos(target.azimuthRad),
+      target.positionM[1] - 0.1 * Math.sin(target.azimuthRad),
+    ];
+    const across: [number, number] = [-Math.sin(target.azimuthRad), Math.cos(target.azimuthRad)];
+    const lowWall = {
+      id: 'low-partition',
+      kind: 'wall' as const,
+      aM: [back[0] - across[0], back[1] - across[1]] as [number, number],
+      bM: [back[0] + across[0], back[1] + across[1]] as [number, number],
+      heightM: target.heightM / 2,
+    };
+    const plain = buildSheetContent(demoSheetInput('metric')).content;
+    expect(plain.placements.every((p) => p.plausibility === undefined)).toBe(true);
+    const scene = { ...input.project.scene, walls: [...input.project.scene.walls, lowWall] };
+    const { content } = buildSheetContent({ ...input, project: { ...input.project, scene } });
+    const mine = content.placements.find((p) => p.label === target.label)!;
+    expect(mine.plausibility?.[0]).toMatch(new RegExp(`^“${target.label}” is mounted at .* above the top of wall W\\d+, which is`));
+    const pdf = await renderSheet(
+      content,
+      { number: 1, contentHash: contentHash(content), issuedAt: new Date(Date.UTC(2026, 11, 2)) },
+      'a4',
+    );
+    const file = path.join(tmp, 'plausibility.pdf');
+    fs.writeFileSync(file, pdf);
+    expect(flat(textOf(file))).toContain(`Check: “${target.label}” is mounted at`);
+  });
+});
+
+describe('the approval block in the document structure', () => {
+  async function structureOf(approval: SheetApproval, name: string): Promise<string> {
+    const { content } = buildSheetContent(demoSheetInput('metric'));
+    const pdf = await renderSheet(
+      content,
+      { number: 2, contentHash: contentHash(content), issuedAt: new Date(Date.UTC(2026, 11, 2)) },
+      'a4',
+      approval,
+    );
+    const file = path.join(tmp, `${name}.pdf`);
+    fs.writeFileSync(file, pdf);
+    return execFileSync('/usr/bin/pdfinfo', ['-struct-text', file], { encoding: 'utf8' });
+  }
+
+  it('reads an approval as a heading, a paragraph and a table whose labels head their rows', async () => {
+    const tree = await structureOf(
+      {
+        approved: true,
+        reviewerName: 'Rhea Demo-Reviewer',
+        reviewerRole: 'Safety officer',
+        approvedAt: '2026-12-02T16:40:00.000Z',
+        revision: 2,
+        contentHash: 'a'.repeat(64),
+      },
+      'approved',
+    );
+    expect(tree).toMatch(/H2 \(block\)\n\s+"Approval by the safety officer"/);
+    expect(tree).toMatch(/P \(block\)\n\s+"Approved: revision 2"/);
+    expect(tree).toMatch(/TH:\n\s+\/Scope \/Row\n\s+"Approved by"\n\s+TD\n\s+"Rhea Demo-Reviewer"/);
+    expect(tree).toMatch(/"Date and time"\n\s+TD\n\s+"2026-12-02 16:40 UTC"/);
+    expect(tree).toMatch(/"Content hash"\n\s+TD\n\s+"a{64}"/);
+    // Nothing of the block falls outside the structure after its box is drawn.
+    expect(tree.indexOf('"Approved: revision 2"')).toBeGreaterThan(tree.indexOf('"Approval by the safety officer"'));
+  });
+
+  it('reads a sheet without approval as "Not approved", its reason and the blanks to fill in, once, not per page', async () => {
+    const tree = await structureOf({ approved: false, reason: 'This job has not been approved by a reviewer.' }, 'not-approved');
+    expect(tree).toMatch(/P \(block\)\n\s+"Not approved"\n\s+P \(block\)\n\s+"This job has not been approved by a reviewer\."/);
+    for (const blank of ['Reviewer', 'Decision', 'Date', 'Signature']) expect(tree).toMatch(new RegExp(`P \\(block\\)\\n\\s+"${blank}"`));
+    // The band on every page is a running mark (an artifact), so the structure holds the fact once.
+    expect(tree).not.toContain('NOT APPROVED');
   });
 });

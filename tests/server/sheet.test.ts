@@ -299,13 +299,16 @@ describe('reading a sheet changes nothing', () => {
 });
 
 describe('e-mailing the sheet', () => {
-  it('delivers the sheet to the buyer through the fake SMTP server with a byte-identical attachment', async () => {
+  it('delivers the sheet to the buyer through the fake SMTP server with a byte-identical attachment, Reply-To the sender', async () => {
     const to = 'buyer.desk@purchasing-demo.example';
     const sent = await installer.post(`/api/projects/${projectId}/sheet/email`).send({ to, message: 'For the purchase request, please.' });
     expect(sent.status).toBe(200);
     const mail = await h.waitForMail(to);
     const parsed = await simpleParser(mail.raw);
     expect(parsed.text).toContain('For the purchase request, please.');
+    // Replies go to the installer who sent it; the From line stays the product's own address.
+    expect(parsed.replyTo?.value.map((v) => v.address)).toEqual([EMAIL.installer]);
+    expect(parsed.from?.value.map((v) => v.address)).not.toContain(EMAIL.installer);
     expect(parsed.attachments).toHaveLength(1);
     const att = parsed.attachments[0];
     expect(att.contentType).toBe('application/pdf');
@@ -375,7 +378,7 @@ describe('e-mailing the sheet', () => {
     expect(await revisionCount()).toBe(before);
   });
 
-  it('reports a send the mail server refused as queued, keeps the revision, and delivers it from the outbox later', async () => {
+  it('reports a send the mail server refused as queued, keeps the revision, and delivers it from the outbox later, replies still going to the sender', async () => {
     // A real nodemailer transport toward a port where nothing listens.
     const closedPort = await new Promise<number>((resolve) => {
       const s = require('node:net').createServer() as import('node:net').Server;
@@ -408,6 +411,8 @@ describe('e-mailing the sheet', () => {
       const mail = await h.waitForMail(to);
       expect(mail.subject).toContain(`revision ${status.current.number}`);
       expect(mail.attachments.map((a) => a.contentType)).toEqual(['application/pdf']);
+      // The buyer's answer still goes to the installer who sent it, though the worker sent it later.
+      expect((await simpleParser(mail.raw)).replyTo?.value.map((v) => v.address)).toEqual([EMAIL.installer]);
     } finally {
       broken.close();
     }
@@ -452,5 +457,37 @@ describe('drawing the plan', () => {
     ];
     // The shared simplification returns the ring closed (first point repeated).
     expect(simplifyRing(square, OUTLINE_TOLERANCE_PT)).toEqual([...square, square[0]]);
+  });
+});
+
+describe('GET /api/projects/:id/sheet/recipient', () => {
+  const ask = (agent: Agent | ReturnType<typeof request>, to: string) =>
+    agent.get(`/api/projects/${projectId}/sheet/recipient?to=${encodeURIComponent(to)}`);
+
+  it('answers whether an address leaves the organisation by the hourly limit’s rule: not one of its users, however typed', async () => {
+    expect((await ask(installer, 'buyer.desk@purchasing-demo.example')).body).toEqual({ outsideOrganisation: true });
+    expect((await ask(installer, EMAIL.reviewer)).body).toEqual({ outsideOrganisation: false });
+    expect((await ask(installer, ` ${EMAIL.reviewer.toUpperCase()} `)).body).toEqual({ outsideOrganisation: false });
+    // Same domain as the demo users, but no one of the organisation: outside.
+    const stranger = `nobody.here@${EMAIL.installer.split('@')[1]}`;
+    expect((await ask(installer, stranger)).body).toEqual({ outsideOrganisation: true });
+  });
+
+  it('refuses a missing or broken address with 400 and a sentence for the field', async () => {
+    const res = await ask(installer, 'not-an-address');
+    expect(res.status).toBe(400);
+    expect(res.body.fields.to).toMatch(/e-mail address/);
+    expect((await installer.get(`/api/projects/${projectId}/sheet/recipient`)).status).toBe(400);
+  });
+
+  it.each([
+    ['anonymous', 401, null],
+    ['the project’s installer', 200, EMAIL.installer],
+    ['another installer', 404, OTHER_INSTALLER],
+    ['a reviewer of the organisation', 200, EMAIL.reviewer],
+    ['an admin of the organisation', 200, EMAIL.admin],
+  ])('answers %s with %d', async (_who, expected, email) => {
+    const agent = email ? await h.signedIn(email) : request(h.app);
+    expect((await ask(agent, 'buyer.desk@purchasing-demo.example')).status).toBe(expected);
   });
 });

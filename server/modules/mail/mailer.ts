@@ -2,6 +2,7 @@ import nodemailer, { type Transporter } from 'nodemailer';
 
 export interface OutgoingMailMessage {
   to: string;
+  replyTo?: string;
   subject: string;
   text: string;
   attachments?: { filename: string; content: Buffer; contentType: string }[];

@@ -16,6 +16,8 @@ export interface QueuedMail {
   organizationId: number;
   kind: OutgoingMailKind;
   to: string;
+  /** Where replies go (the sender of a sheet), when not to the product's own address. */
+  replyTo?: string | null;
   subject: string;
   text: string;
   attachments?: { filename: string; content: Buffer; contentType: string }[];
@@ -27,6 +29,7 @@ export function queueMail(em: EntityManager, mail: QueuedMail): OutgoingMail {
     organization: mail.organizationId,
     kind: mail.kind,
     toAddress: mail.to,
+    replyTo: mail.replyTo ?? null,
     subject: mail.subject,
     text: mail.text,
     attachments: (mail.attachments ?? []).map((a) => ({
@@ -158,6 +161,8 @@ export class MailDispatcher {
     try {
       await this.mailer.send({
         to: row.toAddress,
+        // Read from the row, so a retry an hour later still answers to the sender.
+        ...(row.replyTo ? { replyTo: row.replyTo } : {}),
         subject: row.subject,
         text: row.text,
         attachments: row.attachments.map((a) => ({

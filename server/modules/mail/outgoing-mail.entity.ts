@@ -24,6 +24,8 @@ export class OutgoingMail extends BaseRecord {
   organization!: Organization;
   kind!: OutgoingMailKind;
   toAddress!: string;
+  /** The Reply-To address (a sheet's sender), or null for the product's own notices. */
+  replyTo: Opt<string> | null = null;
   subject!: string;
   text!: string;
   attachments: Opt<StoredAttachment[]> = [];
@@ -42,6 +44,7 @@ export class OutgoingMail extends BaseRecord {
       organization: p.manyToOne(Organization.schema).deleteRule('cascade'),
       kind: p.enum([...outgoingMailKinds]),
       toAddress: p.string().length(320),
+      replyTo: p.string().length(320).nullable(),
       subject: p.string().length(998),
       text: p.text(),
       attachments: p.json<StoredAttachment[]>().lazy(true, false),

@@ -20,7 +20,7 @@ import {
   type CommentDto,
   type ProjectState,
 } from '../../../shared/schemas';
-import type { Orm } from '../../db';
+import { requestEm } from '../../middleware/request-context';
 import { HttpError, notFound } from '../../http-error';
 import { requireUser } from '../../middleware/auth';
 import { parseOr400 } from '../../middleware/validate';
@@ -73,8 +73,8 @@ function reviewersOf(em: EntityManager, organizationId: number) {
   );
 }
 
-export function reviewRoutes(deps: { orm: Orm; work: SheetWork; publicUrl: (host: string) => string }): Router {
-  const { orm, work } = deps;
+export function reviewRoutes(deps: { work: SheetWork; publicUrl: (host: string) => string }): Router {
+  const { work } = deps;
   const r = Router();
   r.use(requireUser);
 
@@ -86,7 +86,7 @@ export function reviewRoutes(deps: { orm: Orm; work: SheetWork; publicUrl: (host
   r.post('/:id/send', async (req, res) => {
     const user = req.user!;
     const baseUrl = deps.publicUrl(req.get('host') ?? 'localhost');
-    const em = orm.em.fork();
+    const em = requestEm();
     const out = await em.transactional(async (tx) => {
       const project = await findVisibleProject(tx, user, req.params.id);
       const reassigning = user.role === 'admin';
@@ -152,7 +152,7 @@ export function reviewRoutes(deps: { orm: Orm; work: SheetWork; publicUrl: (host
   r.post('/:id/approve', async (req, res) => {
     const user = req.user!;
     const baseUrl = deps.publicUrl(req.get('host') ?? 'localhost');
-    const em = orm.em.fork();
+    const em = requestEm();
     const project = await findVisibleProject(em, user, req.params.id);
     if (!mayReview(user))
       throw new HttpError(403, 'Only a reviewer or an administrator can approve a job; an installer can never approve their own.');
@@ -162,8 +162,11 @@ export function reviewRoutes(deps: { orm: Orm; work: SheetWork; publicUrl: (host
     // Approving issues a revision if none holds the current content (the worker pool; outside the transaction).
     const sheet = await currentContent(em, project, work);
     const { revision, created } = await issueRevision(em, sheet, user);
-    const out = await orm.em.fork().transactional(async (tx) => {
-      const fresh = await findVisibleProject(tx, user, req.params.id);
+    const out = await requestEm().transactional(async (tx) => {
+      const found = await findVisibleProject(tx, user, req.params.id);
+      // The transaction starts from the request's identity map, which holds this project as it was
+      // before the (slow) sheet work: read it again, so a change made meanwhile fails the version check.
+      const fresh = (await tx.refresh(found)) ?? found;
       checkReviewable(user, fresh, body.version, 'approve');
       await tx.lock(fresh, LockMode.OPTIMISTIC, body.version);
       if (created) {
@@ -202,7 +205,7 @@ export function reviewRoutes(deps: { orm: Orm; work: SheetWork; publicUrl: (host
   r.post('/:id/return', async (req, res) => {
     const user = req.user!;
     const baseUrl = deps.publicUrl(req.get('host') ?? 'localhost');
-    const out = await orm.em.fork().transactional(async (tx) => {
+    const out = await requestEm().transactional(async (tx) => {
       const project = await findVisibleProject(tx, user, req.params.id);
       if (!mayReview(user)) throw new HttpError(403, 'Only a reviewer or an administrator can return a job.');
       const body = parseOr400(returnProjectBody, req.body, 'The request');
@@ -252,7 +255,7 @@ export function reviewRoutes(deps: { orm: Orm; work: SheetWork; publicUrl: (host
   }
 
   r.get('/:id/comments', async (req, res) => {
-    const em = orm.em.fork();
+    const em = requestEm();
     const project = await findVisibleProject(em, req.user!, req.params.id);
     const comments = await em.find(ProjectComment, { project: project.id }, { orderBy: { id: 'asc' }, populate: ['author'] });
     res.json({ comments: comments.map(toCommentDto) });
@@ -260,7 +263,7 @@ export function reviewRoutes(deps: { orm: Orm; work: SheetWork; publicUrl: (host
 
   r.post('/:id/comments', async (req, res) => {
     const user = req.user!;
-    const out = await orm.em.fork().transactional(async (tx) => {
+    const out = await requestEm().transactional(async (tx) => {
       // Whoever may see the job may comment: its installer, the organisation's reviewers and admins.
       const project = await findVisibleProject(tx, user, req.params.id);
       const body = parseOr400(createCommentBody, req.body, 'The comment');
@@ -293,7 +296,7 @@ export function reviewRoutes(deps: { orm: Orm; work: SheetWork; publicUrl: (host
 
   r.patch('/:id/comments/:commentId', async (req, res) => {
     const user = req.user!;
-    const out = await orm.em.fork().transactional(async (tx) => {
+    const out = await requestEm().transactional(async (tx) => {
       const project = await findVisibleProject(tx, user, req.params.id);
       if (!canEdit(user, project)) throw new HttpError(403, 'Only the installer who owns this job marks its comments resolved.');
       const commentId = parseOr400(idParam, req.params.commentId, 'The address');
@@ -323,7 +326,7 @@ export function reviewRoutes(deps: { orm: Orm; work: SheetWork; publicUrl: (host
 
   /** The audit trail, oldest first. Read-only: no route changes or deletes an event. */
   r.get('/:id/events', async (req, res) => {
-    const em = orm.em.fork();
+    const em = requestEm();
     const project = await findVisibleProject(em, req.user!, req.params.id);
     const events = await em.find(ProjectEvent, { projectId: project.id }, { orderBy: { id: 'asc' } });
     res.json({ events: events.map(toEventDto) });
@@ -333,11 +336,11 @@ export function reviewRoutes(deps: { orm: Orm; work: SheetWork; publicUrl: (host
 }
 
 /** `GET /api/reviewers`: whom a job can be sent to. */
-export function reviewersRoutes(orm: Orm): Router {
+export function reviewersRoutes(): Router {
   const r = Router();
   r.use(requireUser);
   r.get('/', async (req, res) => {
-    const em = orm.em.fork();
+    const em = requestEm();
     const people = await reviewersOf(em, req.user!.organization.id);
     res.json({ reviewers: people.map((u) => ({ id: u.id, name: u.name, role: u.role })) });
   });

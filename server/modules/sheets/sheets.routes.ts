@@ -3,7 +3,9 @@ import {
   sheetEmailBody,
   sheetPdfQuery,
   sheetQuery,
+  sheetRecipientQuery,
   type SheetEmailResponse,
+  type SheetRecipientDto,
   type SheetIssueResponse,
   type SheetStatusDto,
 } from '../../../shared/schemas';
@@ -14,7 +16,8 @@ import { sheetFilename } from '../../pdf/sheet-model';
 import type { SheetWork } from '../../workers/sheet-pool';
 import { queueMail, type MailDispatcher } from '../mail/outbox';
 import { recordEvent } from '../review/audit';
-import { User } from '../users/user.entity';
+import type { User } from '../users/user.entity';
+import { isOutsideOrganisation, outsideSheetsSince } from './recipients';
 import { SheetRevision } from './sheet-revision.entity';
 import { findVisibleProject } from '../projects/project-access';
 import { currentContent, currentPaper, issueRevision, latestRevision, renderRevision, toRevisionDto } from './sheet-service';
@@ -108,6 +111,15 @@ export function sheetsRoutes(deps: { outbox: MailDispatcher; work: SheetWork; ou
     sendPdf(res, sheet.pdf, sheet.filename, revision.number);
   });
 
+  /** Whether e-mailing the sheet to `?to=` leaves the organisation, by the rule the hourly limit counts by. */
+  r.get('/:id/sheet/recipient', async (req, res) => {
+    const em = requestEm();
+    const project = await findVisibleProject(em, req.user!, req.params.id);
+    const q = parseOr400(sheetRecipientQuery, req.query, 'The address');
+    const body: SheetRecipientDto = { outsideOrganisation: await isOutsideOrganisation(em, project.organization.id, q.to) };
+    res.json(body);
+  });
+
   r.post('/:id/sheet/email', async (req, res) => {
     const em = requestEm();
     // Check access before the body, so a stranger learns nothing about the project from a 400.
@@ -115,13 +127,9 @@ export function sheetsRoutes(deps: { outbox: MailDispatcher; work: SheetWork; ou
     const body = parseOr400(sheetEmailBody, req.body, 'The e-mail');
     const q = parseOr400(sheetQuery, req.query, 'The address');
     // An address that is not a user of the organisation is limited per sender and hour (counted in the audit log).
-    const outside = !(await em.count(User, { email: body.to.toLowerCase(), organization: project.organization.id }));
+    const outside = await isOutsideOrganisation(em, project.organization.id, body.to);
     if (outside) {
-      const rows = await em.execute<{ n: number }[]>(
-        `select count(*) as n from project_event where kind = 'sheet_emailed' and actor_id = ? and at > ? and json_extract(detail, '$.outside') = 1`,
-        [req.user!.id, new Date(Date.now() - 3600_000).getTime()],
-      );
-      if (Number(rows[0].n) >= deps.outsidePerHour) {
+      if ((await outsideSheetsSince(em, req.user!.id, new Date(Date.now() - 3600_000))) >= deps.outsidePerHour) {
         throw new HttpError(
           429,
           `You have sent ${deps.outsidePerHour} sheets to addresses outside your organisation in the last hour, the most Sightfan allows. Try again later, or send it to a colleague's address.`,
@@ -146,6 +154,8 @@ export function sheetsRoutes(deps: { outbox: MailDispatcher; work: SheetWork; ou
       organizationId: req.user!.organization.id,
       kind: 'sheet',
       to: body.to,
+      // The buyer answers the person who sent the sheet, not the product's address.
+      replyTo: req.user!.email,
       subject: sheetMailSubject(sheet.projectName, sheet.revision.number),
       text: content + note + tail,
       attachments: [{ filename: sheet.filename, content: sheet.pdf, contentType: 'application/pdf' }],
