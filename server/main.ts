@@ -5,7 +5,7 @@
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import { createApp } from './app';
-import type { AppConfig } from './config';
+import { databaseTarget, describeDatabase, type AppConfig } from './config';
 import { initORM } from './db';
 import type { Logger } from './logger';
 import { startFakeSmtp, type FakeSmtp } from './modules/mail/fake-smtp';
@@ -22,8 +22,9 @@ export interface RunningServer {
 }
 
 export async function startServer(config: AppConfig, log: Logger): Promise<RunningServer> {
-  const orm = await initORM(config.databasePath);
-  log.info(`database ready at ${config.databasePath} (migrations applied)`);
+  const target = databaseTarget(config);
+  const orm = await initORM(target);
+  log.info(`database ready: ${describeDatabase(target)} (migrations applied)`);
   await clearEvaluationCache(orm.em);
   if (config.demoMode && (await seedDemo(orm, config.bcryptCost))) log.info('demo data seeded (see README.md for the demo accounts)');
 

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { LockMode } from '@mikro-orm/core';
-import type { EntityManager } from '@mikro-orm/sqlite';
+import type { EntityManager } from '@mikro-orm/knex';
 import type { z } from 'zod';
 import { createCatalogueItemBody, idParam, patchCatalogueItemBody } from '../../../shared/schemas';
 import { HttpError, notFound } from '../../http-error';

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { LockMode, type EntityManager as AnyEntityManager } from '@mikro-orm/core';
-import type { EntityManager } from '@mikro-orm/sqlite';
+import type { EntityManager } from '@mikro-orm/knex';
 import {
   createPlacementBody,
   createProjectBody,

@@ -3,7 +3,7 @@
  * the project version bump for mirror writes, and the open-comment counts the project DTOs carry.
  */
 import { raw } from '@mikro-orm/core';
-import type { EntityManager } from '@mikro-orm/sqlite';
+import type { EntityManager } from '@mikro-orm/knex';
 import type { MirrorModel } from '../catalogue/mirror-model.entity';
 import { Placement } from '../projects/placement.entity';
 import { Project } from '../projects/project.entity';

@@ -14,6 +14,7 @@ import { sheetFilename } from '../../pdf/sheet-model';
 import type { SheetWork } from '../../workers/sheet-pool';
 import { queueMail, type MailDispatcher } from '../mail/outbox';
 import { recordEvent } from '../review/audit';
+import { ProjectEvent } from '../review/project-event.entity';
 import { User } from '../users/user.entity';
 import { SheetRevision } from './sheet-revision.entity';
 import { findVisibleProject } from '../projects/project-access';
@@ -117,11 +118,14 @@ export function sheetsRoutes(deps: { outbox: MailDispatcher; work: SheetWork; ou
     // An address that is not a user of the organisation is limited per sender and hour (counted in the audit log).
     const outside = !(await em.count(User, { email: body.to.toLowerCase(), organization: project.organization.id }));
     if (outside) {
-      const rows = await em.execute<{ n: number }[]>(
-        `select count(*) as n from project_event where kind = 'sheet_emailed' and actor_id = ? and at > ? and json_extract(detail, '$.outside') = 1`,
-        [req.user!.id, new Date(Date.now() - 3600_000).getTime()],
-      );
-      if (Number(rows[0].n) >= deps.outsidePerHour) {
+      // A JSON property query: MikroORM writes json_extract on SQLite and ->> on PostgreSQL.
+      const sent = await em.count(ProjectEvent, {
+        kind: 'sheet_emailed',
+        actorId: req.user!.id,
+        at: { $gt: new Date(Date.now() - 3600_000) },
+        detail: { outside: 1 },
+      });
+      if (sent >= deps.outsidePerHour) {
         throw new HttpError(
           429,
           `You have sent ${deps.outsidePerHour} sheets to addresses outside your organisation in the last hour, the most Sightfan allows. Try again later, or send it to a colleague's address.`,
