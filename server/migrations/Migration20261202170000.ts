@@ -7,7 +7,9 @@ import { Migration } from '@mikro-orm/migrations';
  */
 export class Migration20261202170000 extends Migration {
   override async up(): Promise<void> {
-    this.addSql(`create table \`rate_limit\` (\`key\` text not null, \`points\` integer not null, \`expires_at_ms\` bigint not null, primary key (\`key\`));`);
+    this.addSql(
+      `create table \`rate_limit\` (\`key\` text not null, \`points\` integer not null, \`expires_at_ms\` bigint not null, primary key (\`key\`));`,
+    );
     this.addSql(`create index \`rate_limit_expires_at_ms_index\` on \`rate_limit\` (\`expires_at_ms\`);`);
   }
 

@@ -68,11 +68,14 @@ export const TEST_DATABASE: 'sqlite' | 'postgresql' = process.env.SIGHTFAN_TEST_
 let cluster: Promise<PostgresCluster> | undefined;
 let databases = 0;
 /** One PostgreSQL per test file (started on first use, stopped after the file); one database per harness. */
+if (TEST_DATABASE === 'postgresql') {
+  // Registered while the test file is collected (hooks cannot be added inside a test).
+  afterAll(async () => {
+    if (cluster) (await cluster).stop();
+  });
+}
 async function freshPostgresUrl(): Promise<string> {
-  if (!cluster) {
-    cluster = startPostgres();
-    afterAll(async () => (await cluster!).stop());
-  }
+  cluster ??= startPostgres();
   const pg = await cluster;
   const name = `sightfan_${++databases}`;
   pg.createDatabase(name);

@@ -41,11 +41,7 @@ export class DbRateLimiter {
 
   private result(row: Row): RateLimiterRes {
     const consumed = Number(row.points);
-    return new RateLimiterRes(
-      Math.max(this.options.points - consumed, 0),
-      Math.max(Number(row.expires_at_ms) - Date.now(), 0),
-      consumed,
-    );
+    return new RateLimiterRes(Math.max(this.options.points - consumed, 0), Math.max(Number(row.expires_at_ms) - Date.now(), 0), consumed);
   }
 
   /**
@@ -66,7 +62,11 @@ export class DbRateLimiter {
   async reward(k: string, points = 1): Promise<void> {
     await this.orm.em
       .getConnection()
-      .execute('update rate_limit set points = case when points > ? then points - ? else 0 end where key = ?', [points, points, this.key(k)]);
+      .execute('update rate_limit set points = case when points > ? then points - ? else 0 end where key = ?', [
+        points,
+        points,
+        this.key(k),
+      ]);
   }
 
   /** The key's live count, or null when it has none. */
