@@ -52,7 +52,8 @@ export function catalogueRoutes(work: SheetWork): Router {
       await em.commit();
       res.json({ item: toCatalogueItemDto(item) });
     } catch (e) {
-      await em.rollback();
+      // A failed commit has already rolled back (PostgreSQL reports it so); roll back only what is open.
+      if (em.isInTransaction()) await em.rollback();
       throw e;
     }
   });
