@@ -7,7 +7,15 @@ import { runBoundedBench } from './bounded.bench';
 import { runLoadBench } from './load.bench';
 import { runReviewBench } from './review.bench';
 
-const runners: Array<() => Promise<void>> = [runOpticsBench, runVehicleBench, runSheetBench, runBoundedBench, runReviewBench, runPlanBench, runLoadBench];
+const runners: Array<() => Promise<void>> = [
+  runOpticsBench,
+  runVehicleBench,
+  runSheetBench,
+  runBoundedBench,
+  runReviewBench,
+  runPlanBench,
+  runLoadBench,
+];
 
 async function main(): Promise<void> {
   // BENCH_ONLY=walls: the optics engine's wall growth table alone.

@@ -104,7 +104,10 @@ it('lets exactly one of two simultaneous edits of the same version through when 
   const p = (await agent.post('/api/projects').send(newProject('Edited twice at once'))).body.project;
   const cookie = (await signIn(instances[0].url, EMAIL.installer, PASSWORD)).headers['set-cookie'];
   const edit = (i: number, name: string) =>
-    request(`http://127.0.0.1:${instances[i].port}`).patch(`/api/projects/${p.id}`).set('Cookie', cookie).send({ version: p.version, name });
+    request(`http://127.0.0.1:${instances[i].port}`)
+      .patch(`/api/projects/${p.id}`)
+      .set('Cookie', cookie)
+      .send({ version: p.version, name });
   const [one, two] = await Promise.all([edit(0, 'Edit through the first'), edit(1, 'Edit through the second')]);
   expect([one.status, two.status].sort()).toEqual([200, 409]);
   const [won, lost] = one.status === 200 ? [one, two] : [two, one];
