@@ -3,7 +3,7 @@ import path from 'node:path';
 import { MikroORM } from '@mikro-orm/core';
 import type { AbstractSqlDriver, SqlEntityManager } from '@mikro-orm/knex';
 import { MikroORM as SqliteORM } from '@mikro-orm/sqlite';
-import { MikroORM as PostgresORM } from '@mikro-orm/postgresql';
+import { MikroORM as PostgresORM, PostgreSqlPlatform } from '@mikro-orm/postgresql';
 import { asTarget, postgresOptions, sqliteOptions, type DatabaseTarget } from './orm-options';
 
 /** The ORM over either database; code that holds one never asks which. */
@@ -25,12 +25,28 @@ export async function openORM(target: DatabaseTarget | string, extra: { allowGlo
   return orm;
 }
 
+/** Any fixed number: the PostgreSQL advisory lock instances take while they migrate and seed. */
+const STARTUP_LOCK = 0x5167_6661;
+
+/**
+ * Runs `work` (migrations, the demo seed) while no other instance does: on PostgreSQL under an
+ * advisory lock held by a transaction on its own connection, so two instances started together do
+ * not both create the same tables. SQLite is one process's file: the work just runs.
+ */
+export async function underStartupLock<T>(orm: Orm, work: () => Promise<T>): Promise<T> {
+  if (!(orm.em.getPlatform() instanceof PostgreSqlPlatform)) return work();
+  return orm.em.getKnex().transaction(async (trx) => {
+    await trx.raw('select pg_advisory_xact_lock(?)', [STARTUP_LOCK]);
+    return work();
+  });
+}
+
 /**
  * Opens the database (a SQLite file, creating its folder, with WAL and foreign keys on; or
  * PostgreSQL) and applies every pending migration of its set. The schema is never auto-updated.
  */
 export async function initORM(target: DatabaseTarget | string): Promise<Orm> {
   const orm = await openORM(target);
-  await orm.getMigrator().up();
+  await underStartupLock(orm, () => orm.getMigrator().up());
   return orm;
 }

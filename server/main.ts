@@ -6,7 +6,7 @@ import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import { createApp } from './app';
 import { databaseTarget, describeDatabase, type AppConfig } from './config';
-import { initORM } from './db';
+import { openORM, underStartupLock } from './db';
 import type { Logger } from './logger';
 import { startFakeSmtp, type FakeSmtp } from './modules/mail/fake-smtp';
 import { createMailer } from './modules/mail/mailer';
@@ -23,10 +23,15 @@ export interface RunningServer {
 
 export async function startServer(config: AppConfig, log: Logger): Promise<RunningServer> {
   const target = databaseTarget(config);
-  const orm = await initORM(target);
+  const orm = await openORM(target);
+  // Migrations and the demo seed run under a lock, so instances started together take turns.
+  const seeded = await underStartupLock(orm, async () => {
+    await orm.getMigrator().up();
+    return config.demoMode && (await seedDemo(orm, config.bcryptCost));
+  });
   log.info(`database ready: ${describeDatabase(target)} (migrations applied)`);
   await clearEvaluationCache(orm.em);
-  if (config.demoMode && (await seedDemo(orm, config.bcryptCost))) log.info('demo data seeded (see README.md for the demo accounts)');
+  if (seeded) log.info('demo data seeded (see README.md for the demo accounts)');
 
   let fake: FakeSmtp | undefined;
   if (!config.smtpUrl) {

@@ -55,8 +55,8 @@ beforeAll(async () => {
     SHEET_WORKERS: '1',
     PUBLIC_URL: 'http://sightfan.test',
   });
-  // One after the other, as an operator starts them: the first migrates and seeds, the second finds it done.
-  for (let i = 0; i < 2; i++) instances.push(await startServer(config, createLogger(true)));
+  // Both at once on an empty database: they take turns to migrate and seed (the startup lock).
+  instances.push(...(await Promise.all([startServer(config, createLogger(true)), startServer(config, createLogger(true))])));
   proxy = await startProxy(instances.map((s) => s.port));
   proxyUrl = `http://127.0.0.1:${(proxy.address() as AddressInfo).port}`;
 }, 120_000);
