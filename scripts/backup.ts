@@ -8,6 +8,11 @@ import { backupDatabase, restoreDatabase } from '../server/ops/backup';
 
 async function main(): Promise<void> {
   const [command, ...args] = process.argv.slice(2);
+  if (process.env.DATABASE_URL) {
+    throw new Error(
+      'DATABASE_URL names a PostgreSQL database: back it up with pg_dump -Fc and restore with pg_restore (README, "Run it on PostgreSQL"). npm run backup copies the SQLite file only.',
+    );
+  }
   const databasePath = path.resolve(process.env.DATABASE_PATH ?? 'data/sightfan.sqlite');
   if (command === 'backup') {
     const i = args.indexOf('--to');

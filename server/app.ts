@@ -169,8 +169,8 @@ export function createApp(deps: AppDeps): SightfanApp {
   });
 
   const publicUrl = (host: string) => config.publicUrl ?? `http://${host}`;
-  const limiter = new SignInLimiter(deps.signInLimits ?? DEFAULT_SIGN_IN_LIMITS);
-  api.use('/auth', authRoutes({ limiter, store, outbox, bcryptCost: config.bcryptCost, publicUrl }));
+  const limiter = new SignInLimiter(orm, deps.signInLimits ?? DEFAULT_SIGN_IN_LIMITS);
+  api.use('/auth', authRoutes({ orm, limiter, store, outbox, bcryptCost: config.bcryptCost, publicUrl }));
   api.use('/invitations', invitationsRoutes(config.bcryptCost, store));
   api.use('/users', usersRoutes({ outbox, store, publicUrl }));
   api.use('/outbox', outboxRoutes(config.demoMode, config.mailFrom));

@@ -5,8 +5,8 @@
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import { createApp } from './app';
-import type { AppConfig } from './config';
-import { initORM } from './db';
+import { databaseTarget, describeDatabase, type AppConfig } from './config';
+import { openORM, underStartupLock } from './db';
 import type { Logger } from './logger';
 import { startFakeSmtp, type FakeSmtp } from './modules/mail/fake-smtp';
 import { createMailer } from './modules/mail/mailer';
@@ -22,10 +22,16 @@ export interface RunningServer {
 }
 
 export async function startServer(config: AppConfig, log: Logger): Promise<RunningServer> {
-  const orm = await initORM(config.databasePath);
-  log.info(`database ready at ${config.databasePath} (migrations applied)`);
+  const target = databaseTarget(config);
+  const orm = await openORM(target);
+  // Migrations and the demo seed run under a lock, so instances started together take turns.
+  const seeded = await underStartupLock(orm, async () => {
+    await orm.getMigrator().up();
+    return config.demoMode && (await seedDemo(orm, config.bcryptCost));
+  });
+  log.info(`database ready: ${describeDatabase(target)} (migrations applied)`);
   await clearEvaluationCache(orm.em);
-  if (config.demoMode && (await seedDemo(orm, config.bcryptCost))) log.info('demo data seeded (see README.md for the demo accounts)');
+  if (seeded) log.info('demo data seeded (see README.md for the demo accounts)');
 
   let fake: FakeSmtp | undefined;
   if (!config.smtpUrl) {

@@ -26,7 +26,10 @@ export function onStaleVersion<E extends object>(
   locks.set(cls, { what, current: current as LockEntry['current'] });
 }
 
-/** `column` as the database names it in its message, e.g. "mirror_model.code". */
+/**
+ * `column` as "table.column", e.g. "mirror_model.code": SQLite names it so in its message;
+ * PostgreSQL names the constraint, "mirror_model_code_unique" or "mirror_model_organization_id_code_unique".
+ */
 export function onDuplicate(column: string, error: () => HttpError) {
   uniques.set(column, error);
 }
@@ -47,8 +50,15 @@ export async function writeConflict(err: unknown): Promise<HttpError | null> {
     );
   }
   if (err instanceof UniqueConstraintViolationException) {
-    const column = [...uniques.keys()].find((c) => err.message.includes(c));
+    const column = [...uniques.keys()].find((c) => namesColumn(err.message, c));
     return column ? uniques.get(column)!() : new HttpError(409, 'Something with the same name or code already exists; choose another.');
   }
   return null;
+}
+
+/** Whether a unique-violation message (SQLite's or PostgreSQL's) is about `table.column`. */
+export function namesColumn(message: string, column: string): boolean {
+  if (message.includes(column)) return true;
+  const [table, col] = column.split('.');
+  return new RegExp(`"${table}_(?:\\w+_)?${col}_unique"`).test(message);
 }

@@ -5,7 +5,7 @@
  * workers, seeders) has no request and keeps its own explicit `orm.em.fork()`.
  */
 import { RequestContext } from '@mikro-orm/core';
-import type { EntityManager } from '@mikro-orm/sqlite';
+import type { EntityManager } from '@mikro-orm/knex';
 import type { RequestHandler } from 'express';
 import type { Orm } from '../db';
 

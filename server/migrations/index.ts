@@ -12,6 +12,7 @@ import { Migration20261202135000 } from './Migration20261202135000';
 import { Migration20261202140000 } from './Migration20261202140000';
 import { Migration20261202160000 } from './Migration20261202160000';
 import { Migration20261202161000 } from './Migration20261202161000';
+import { Migration20261202170000 } from './Migration20261202170000';
 import { Migration20261202171000 } from './Migration20261202171000';
 
 export const migrationsList: MigrationObject[] = [
@@ -24,5 +25,6 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261202140000', class: Migration20261202140000 },
   { name: 'Migration20261202160000', class: Migration20261202160000 },
   { name: 'Migration20261202161000', class: Migration20261202161000 },
+  { name: 'Migration20261202170000', class: Migration20261202170000 },
   { name: 'Migration20261202171000', class: Migration20261202171000 },
 ];

@@ -16,6 +16,7 @@ import { OutgoingMail } from './mail/outgoing-mail.entity';
 import { SheetEvaluation } from './sheets/sheet-evaluation.entity';
 import { ProjectComment } from './review/comment.entity';
 import { ProjectEvent } from './review/project-event.entity';
+import { RateCounter } from './limits/rate-counter.entity';
 
 export const entities = [
   Organization.schema,
@@ -31,4 +32,5 @@ export const entities = [
   SheetEvaluation.schema,
   ProjectComment.schema,
   ProjectEvent.schema,
+  RateCounter.schema,
 ];

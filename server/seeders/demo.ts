@@ -9,7 +9,7 @@ import { Placement } from '../modules/projects/placement.entity';
 import { DEMO_CATALOGUE } from './demo-catalogue';
 import { DEMO_PROJECT } from './demo-project';
 import { DEMO_VEHICLE_JOBS } from './demo-vehicles';
-import type { EntityManager } from '@mikro-orm/sqlite';
+import type { EntityManager } from '@mikro-orm/knex';
 import { DEMO_REVIEW_JOB } from './demo-review-job';
 import { ProjectEvent } from '../modules/review/project-event.entity';
 

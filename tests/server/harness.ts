@@ -1,5 +1,6 @@
 /**
- * A fresh Sightfan for one test file: its own SQLite file in a temp folder, migrations applied, the
+ * A fresh Sightfan for one test file: its own SQLite file in a temp folder (or, with
+ * SIGHTFAN_TEST_DATABASE=postgresql, its own database in a PostgreSQL this file starts), migrations applied, the
  * demo users seeded, the real fake SMTP server on a free port, and the Express app (not listening;
  * supertest drives it). `restart()` builds a new ORM and app over the same file, as a server restart would.
  */
@@ -10,7 +11,8 @@ import request from 'supertest';
 import type { Express } from 'express';
 import { createApp } from '../../server/app';
 import type { MailDispatcher, OutboxOptions } from '../../server/modules/mail/outbox';
-import { parseConfig, type AppConfig } from '../../server/config';
+import { databaseTarget, parseConfig, type AppConfig } from '../../server/config';
+import { startPostgres, type PostgresCluster } from './postgres-cluster';
 import { initORM, type Orm } from '../../server/db';
 import { createLogger } from '../../server/logger';
 import { startFakeSmtp, type FakeSmtp } from '../../server/modules/mail/fake-smtp';
@@ -60,6 +62,26 @@ export interface Harness {
 
 const SECRET = 'test-secret-that-is-long-enough-for-the-config-check';
 
+/** The database the API tests run on: SQLite unless SIGHTFAN_TEST_DATABASE=postgresql. */
+export const TEST_DATABASE: 'sqlite' | 'postgresql' = process.env.SIGHTFAN_TEST_DATABASE === 'postgresql' ? 'postgresql' : 'sqlite';
+
+let cluster: Promise<PostgresCluster> | undefined;
+let databases = 0;
+/** One PostgreSQL per test file (started on first use, stopped after the file); one database per harness. */
+if (TEST_DATABASE === 'postgresql') {
+  // Registered while the test file is collected (hooks cannot be added inside a test).
+  afterAll(async () => {
+    if (cluster) (await cluster).stop();
+  });
+}
+async function freshPostgresUrl(): Promise<string> {
+  cluster ??= startPostgres();
+  const pg = await cluster;
+  const name = `sightfan_${++databases}`;
+  pg.createDatabase(name);
+  return pg.url(name);
+}
+
 export async function startHarness(
   opts: { signInLimits?: SignInLimits; env?: Record<string, string>; outbox?: Partial<OutboxOptions> } = {},
 ): Promise<Harness> {
@@ -68,10 +90,11 @@ export async function startHarness(
     NODE_ENV: 'test',
     DATABASE_PATH: path.join(dir, 'test.sqlite'),
     PUBLIC_URL: 'http://sightfan.test',
+    ...(TEST_DATABASE === 'postgresql' ? { DATABASE_URL: await freshPostgresUrl() } : {}),
     ...opts.env,
   });
   const log = createLogger(true);
-  let orm: Orm = await initORM(config.databasePath);
+  let orm: Orm = await initORM(databaseTarget(config));
   await seedDemo(orm, config.bcryptCost);
   let fake: FakeSmtp = await startFakeSmtp(orm, log, 0);
   let mailer: Mailer = createMailer({ fakePort: fake.port, from: config.mailFrom });
@@ -89,7 +112,7 @@ export async function startHarness(
       mailer.close();
       await fake.close();
       await orm.close(true);
-      orm = await initORM(config.databasePath);
+      orm = await initORM(databaseTarget(config));
       fake = await startFakeSmtp(orm, log, 0);
       mailer = createMailer({ fakePort: fake.port, from: config.mailFrom });
       built = createApp({ config, orm, mailer, log, sessionSecret: SECRET, signInLimits: opts.signInLimits, outbox: opts.outbox });

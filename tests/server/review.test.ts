@@ -10,6 +10,7 @@ import path from 'node:path';
 import request from 'supertest';
 import type { CommentDto, ProjectDto, ProjectEventDto } from '../../shared/schemas';
 import { ProjectEvent } from '../../server/modules/review/project-event.entity';
+import { MailMessage } from '../../server/modules/mail/mail-message.entity';
 import { EMAIL, startHarness, type Harness } from './harness';
 
 type Agent = ReturnType<typeof request.agent>;
@@ -86,10 +87,8 @@ async function mailTo(to: string, subject: string, timeoutMs = 20_000): Promise<
   const until = Date.now() + timeoutMs;
   while (Date.now() < until) {
     await h.outbox.kick();
-    const rows: { subject: string; text: string; to_addresses: string }[] = await h.orm.em
-      .getConnection()
-      .execute('select subject, text, to_addresses from mail_message where subject = ?', [subject]);
-    const hit = rows.find((r) => (JSON.parse(r.to_addresses) as string[]).includes(to));
+    const rows = await h.orm.em.fork().find(MailMessage, { subject });
+    const hit = rows.find((r) => r.toAddresses.includes(to));
     if (hit) return hit;
     await new Promise((r) => setTimeout(r, 100));
   }

@@ -1,5 +1,4 @@
 import { Router, type Request } from 'express';
-import { RateLimiterMemory } from 'rate-limiter-flexible';
 import {
   changePasswordBody,
   FORGOT_PASSWORD_ANSWER,
@@ -19,6 +18,8 @@ import type { OrmSessionStore } from '../sessions/orm-session-store';
 import { Invitation } from '../users/invitation.entity';
 import { createInvitation, passwordChangedEmail, resetEmail } from '../users/invitations';
 import type { SignInLimiter } from './sign-in-limiter';
+import type { Orm } from '../../db';
+import { DbRateLimiter } from '../limits/db-rate-limiter';
 import { requestEm } from '../../middleware/request-context';
 
 const WRONG = 'That e-mail address and password do not match an account. Check both and try again.';
@@ -31,6 +32,8 @@ export async function startSession(req: Request, userId: number): Promise<void> 
 }
 
 export interface AuthDeps {
+  /** For the shared rate-limit counters (the database), not for request work: that is `requestEm()`. */
+  orm: Orm;
   limiter: SignInLimiter;
   store: OrmSessionStore;
   outbox: MailDispatcher;
@@ -42,8 +45,8 @@ export function authRoutes(deps: AuthDeps): Router {
   const { limiter } = deps;
   const r = Router();
   // "Forgot password" mail per address and per client: enough for a person, too few to mail-bomb anyone.
-  const resetsPerEmail = new RateLimiterMemory({ keyPrefix: 'reset-mail', points: 3, duration: 60 * 60 });
-  const resetsPerAddress = new RateLimiterMemory({ keyPrefix: 'reset-addr', points: 20, duration: 60 * 60 });
+  const resetsPerEmail = new DbRateLimiter(deps.orm, { keyPrefix: 'reset-mail', points: 3, duration: 60 * 60 });
+  const resetsPerAddress = new DbRateLimiter(deps.orm, { keyPrefix: 'reset-addr', points: 20, duration: 60 * 60 });
 
   r.post('/sign-in', async (req, res) => {
     const body = parseOr400(signInBody, req.body, 'Sign-in');

@@ -1,4 +1,6 @@
-import { RateLimiterMemory, RateLimiterRes } from 'rate-limiter-flexible';
+import { RateLimiterRes } from 'rate-limiter-flexible';
+import type { Orm } from '../../db';
+import { clearExpiredCounters, DbRateLimiter } from '../limits/db-rate-limiter';
 
 export interface SignInLimits {
   /** Attempts allowed per account and client address together in the window: the tight limit. */
@@ -25,12 +27,20 @@ export const DEFAULT_SIGN_IN_LIMITS: SignInLimits = {
 
 export type Admission = { ok: true; release(success: boolean): Promise<void> } | { ok: false; retryAfterS: number };
 
+/** The delay before the next attempt on an account that has had `attempts` from unusual addresses. */
+export function accountDelayS(attempts: number, limits: Pick<SignInLimits, 'accountFreeAttempts' | 'accountMaxDelayS'>): number {
+  const over = attempts - limits.accountFreeAttempts;
+  if (over <= 0) return 0;
+  return Math.min(2 ** Math.min(over, 30), limits.accountMaxDelayS);
+}
+
 /**
  * Sign-in limits that protect an account without letting a stranger lock its owner out.
  *
- * Every limit is *consumed before* the password is checked (rate-limiter-flexible's consume-first
- * pattern): the memory limiter counts synchronously, so 100 simultaneous attempts cannot all read
- * "under the limit" before any of them counts. A success gives the points back.
+ * Every count lives in the database (`rate_limit`, through `DbRateLimiter`), so all instances
+ * behind a proxy share them, and every limit is *consumed before* the password is checked: each
+ * count is one atomic upsert that answers the new total, so 100 simultaneous attempts cannot all
+ * read "under the limit" before any of them counts. A success gives the points back.
  *
  * - account + address pair: tight (5 per 15 minutes). A guesser at one address is stopped quickly.
  * - address: looser (50 per 15 minutes over all accounts), against spraying one password widely.
@@ -40,36 +50,29 @@ export type Admission = { ok: true; release(success: boolean): Promise<void> } |
  *   address still gets in while someone elsewhere hammers the account.
  */
 export class SignInLimiter {
-  private readonly byPair: RateLimiterMemory;
-  private readonly byAddress: RateLimiterMemory;
-  private readonly accountAttempts: RateLimiterMemory;
-  private readonly accountGate: RateLimiterMemory;
-  /** account|address → when it stops being "usual". A Map: the memory limiter's timers overflow past 24.8 days. */
-  private readonly knownPairs = new Map<string, number>();
+  private readonly byPair: DbRateLimiter;
+  private readonly byAddress: DbRateLimiter;
+  private readonly accountAttempts: DbRateLimiter;
+  private readonly accountGate: DbRateLimiter;
+  /** account|address pairs that signed in: "usual" for `knownAddressDays`. */
+  private readonly knownPairs: DbRateLimiter;
+  private admitted = 0;
 
-  constructor(readonly limits: SignInLimits = DEFAULT_SIGN_IN_LIMITS) {
-    this.byPair = new RateLimiterMemory({ keyPrefix: 'pair', points: limits.perPair, duration: limits.windowS });
-    this.byAddress = new RateLimiterMemory({ keyPrefix: 'addr', points: limits.perAddress, duration: limits.windowS });
+  constructor(
+    private readonly orm: Orm,
+    readonly limits: SignInLimits = DEFAULT_SIGN_IN_LIMITS,
+  ) {
+    this.byPair = new DbRateLimiter(orm, { keyPrefix: 'pair', points: limits.perPair, duration: limits.windowS });
+    this.byAddress = new DbRateLimiter(orm, { keyPrefix: 'addr', points: limits.perAddress, duration: limits.windowS });
     // Counts attempts; never refuses by itself (the gate below does the slowing).
-    this.accountAttempts = new RateLimiterMemory({ keyPrefix: 'acct', points: Number.MAX_SAFE_INTEGER, duration: limits.windowS });
-    this.accountGate = new RateLimiterMemory({ keyPrefix: 'gate', points: 1, duration: 1 });
-  }
-
-  /** Marks an address as usual for an account; the oldest entries go first past 100,000 pairs. */
-  private remember(pairKey: string): void {
-    this.knownPairs.delete(pairKey);
-    this.knownPairs.set(pairKey, Date.now() + this.limits.knownAddressDays * 24 * 60 * 60 * 1000);
-    if (this.knownPairs.size > 100_000) {
-      const oldest = this.knownPairs.keys().next().value;
-      if (oldest !== undefined) this.knownPairs.delete(oldest);
-    }
+    this.accountAttempts = new DbRateLimiter(orm, { keyPrefix: 'acct', points: 2 ** 31 - 1, duration: limits.windowS });
+    this.accountGate = new DbRateLimiter(orm, { keyPrefix: 'gate', points: 1, duration: 1 });
+    this.knownPairs = new DbRateLimiter(orm, { keyPrefix: 'known', points: 1, duration: limits.knownAddressDays * 24 * 60 * 60 });
   }
 
   /** The delay before the next attempt on an account that has had `attempts` from unusual addresses. */
   delayS(attempts: number): number {
-    const over = attempts - this.limits.accountFreeAttempts;
-    if (over <= 0) return 0;
-    return Math.min(2 ** Math.min(over, 30), this.limits.accountMaxDelayS);
+    return accountDelayS(attempts, this.limits);
   }
 
   /**
@@ -77,10 +80,11 @@ export class SignInLimiter {
    * `release(success)` once the answer is known.
    */
   async admit(email: string, address: string): Promise<Admission> {
+    // Now and then, counters whose windows ended are removed (any instance may do it).
+    if (++this.admitted % 200 === 0) await clearExpiredCounters(this.orm);
     const pairKey = `${email}|${address}`;
-    const knownUntil = this.knownPairs.get(pairKey);
-    const known = knownUntil !== undefined && knownUntil > Date.now();
-    const consumed: Array<[RateLimiterMemory, string]> = [];
+    const known = (await this.knownPairs.get(pairKey)) !== null;
+    const consumed: Array<[DbRateLimiter, string]> = [];
     const refuse = async (res: RateLimiterRes): Promise<Admission> => {
       // Attempts that were never checked do not count against the other limits.
       await Promise.all(consumed.map(([l, k]) => l.reward(k, 1)));
@@ -111,7 +115,7 @@ export class SignInLimiter {
           this.accountAttempts.delete(email),
           this.accountGate.delete(email),
         ]);
-        this.remember(pairKey);
+        await this.knownPairs.set(pairKey, 1, this.limits.knownAddressDays * 24 * 60 * 60);
       },
     };
   }

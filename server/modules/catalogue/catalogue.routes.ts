@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { LockMode } from '@mikro-orm/core';
-import type { EntityManager } from '@mikro-orm/sqlite';
+import type { EntityManager } from '@mikro-orm/knex';
 import type { z } from 'zod';
 import { createCatalogueItemBody, idParam, patchCatalogueItemBody } from '../../../shared/schemas';
 import { HttpError, notFound } from '../../http-error';
@@ -52,7 +52,8 @@ export function catalogueRoutes(work: SheetWork): Router {
       await em.commit();
       res.json({ item: toCatalogueItemDto(item) });
     } catch (e) {
-      await em.rollback();
+      // A failed commit has already rolled back (PostgreSQL reports it so); roll back only what is open.
+      if (em.isInTransaction()) await em.rollback();
       throw e;
     }
   });

@@ -5,7 +5,7 @@
  * doubling delays; a row is claimed with a guarded update, so two instances never send it twice
  * at once, and a sender that dies mid-way leaves the row to be retried when its lease ends.
  */
-import type { EntityManager } from '@mikro-orm/sqlite';
+import type { EntityManager } from '@mikro-orm/knex';
 import type { Orm } from '../../db';
 import type { Logger } from '../../logger';
 import { redact } from '../../middleware/errors';

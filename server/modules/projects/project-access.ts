@@ -10,7 +10,7 @@
  * read-only for everyone.
  */
 import type { FilterQuery } from '@mikro-orm/core';
-import type { EntityManager } from '@mikro-orm/sqlite';
+import type { EntityManager } from '@mikro-orm/knex';
 import { idParam } from '../../../shared/schemas';
 import { HttpError, notFound } from '../../http-error';
 import { parseOr400 } from '../../middleware/validate';

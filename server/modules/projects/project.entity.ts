@@ -43,7 +43,10 @@ export class Project extends BaseRecord {
       kind: p.enum([...projectKinds]).default('site'),
       units: p.enum(['metric', 'imperial']).nullable(),
       notes: p.text().default(''),
-      state: p.enum([...projectStates]).default('drawing_up'),
+      state: p
+        .enum([...projectStates])
+        .default('drawing_up')
+        .index(),
       reviewer: p.manyToOne(User.schema).nullable(),
       sentAt: p.datetime().nullable(),
       approvedBy: p.manyToOne(User.schema).nullable(),

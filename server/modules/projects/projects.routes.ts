@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { LockMode, type EntityManager as AnyEntityManager } from '@mikro-orm/core';
-import type { EntityManager } from '@mikro-orm/sqlite';
+import type { EntityManager } from '@mikro-orm/knex';
 import {
   createPlacementBody,
   createProjectBody,
@@ -28,6 +28,7 @@ import { assertCanEdit, canEdit, findVisibleProject, visibleCatalogue, visiblePr
 import { toPlacementDto, toProjectDto, toProjectSummaryDto } from './project.dto';
 import { onStaleVersion } from '../../write-conflicts';
 import { requestEm } from '../../middleware/request-context';
+import { containsText } from '../../text-search';
 import { checkVehiclePlacement } from './vehicle-placement';
 import type { SheetWork } from '../../workers/sheet-pool';
 import { factChanges, placementFacts, projectChanges, recordEvent } from '../review/audit';
@@ -116,7 +117,7 @@ export function projectsRoutes(work: SheetWork): Router {
       ? {
           $and: [
             visibleProjects(req.user!),
-            { $or: [{ name: { $like: `%${q.q}%` } }, { customer: { $like: `%${q.q}%` } }, { site: { $like: `%${q.q}%` } }] },
+            { $or: [{ name: containsText(em, q.q) }, { customer: containsText(em, q.q) }, { site: containsText(em, q.q) }] },
           ],
         }
       : visibleProjects(req.user!);
@@ -174,7 +175,8 @@ export function projectsRoutes(work: SheetWork): Router {
       await em.commit();
       res.json({ project: toProjectDto(project, await placementsOf(em, project), true, await openCommentCount(em, project.id)) });
     } catch (e) {
-      await em.rollback();
+      // A failed commit has already rolled back (PostgreSQL reports it so); roll back only what is open.
+      if (em.isInTransaction()) await em.rollback();
       throw e;
     }
   });

@@ -2,7 +2,7 @@
  * Writes audit events into the caller's unit of work, so each commits with the change it records.
  * Also the before → after lists for the fields that matter.
  */
-import type { EntityManager } from '@mikro-orm/sqlite';
+import type { EntityManager } from '@mikro-orm/knex';
 import type { ProjectEventDto, ProjectEventKind, Scene } from '../../../shared/schemas';
 import { formatAngle, formatLength } from '../../../shared/units';
 import type { Placement } from '../projects/placement.entity';

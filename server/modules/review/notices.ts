@@ -2,7 +2,7 @@
  * E-mail notices of the review loop, through the transactional outbox: they commit with the
  * transition that causes them. Each carries a link to the job on the app's address.
  */
-import type { EntityManager } from '@mikro-orm/sqlite';
+import type { EntityManager } from '@mikro-orm/knex';
 import { queueMail } from '../mail/outbox';
 import type { Project } from '../projects/project.entity';
 import type { User } from '../users/user.entity';

@@ -3,7 +3,7 @@
  * the project version bump for mirror writes, and the open-comment counts the project DTOs carry.
  */
 import { raw } from '@mikro-orm/core';
-import type { EntityManager } from '@mikro-orm/sqlite';
+import type { EntityManager } from '@mikro-orm/knex';
 import type { MirrorModel } from '../catalogue/mirror-model.entity';
 import { Placement } from '../projects/placement.entity';
 import { Project } from '../projects/project.entity';
@@ -91,9 +91,16 @@ export async function withdrawApprovalsUsing(em: EntityManager, item: MirrorMode
 export async function openCommentCounts(em: EntityManager, ids: number[]): Promise<Map<number, number>> {
   const counts = new Map<number, number>();
   if (!ids.length) return counts;
-  const rows = await em.execute<{ project_id: number; n: number }[]>(
-    `select project_id, count(*) as n from project_comment where parent_id is null and resolved = 0 and project_id in (${ids.map(() => '?').join(',')}) group by project_id`,
-    ids,
+  // Built with knex so each database gets its own boolean literal (SQLite 0, PostgreSQL false).
+  const rows = await em.execute<{ project_id: number; n: number | string }[]>(
+    em
+      .getKnex()('project_comment')
+      .select('project_id')
+      .count({ n: '*' })
+      .whereNull('parent_id')
+      .where('resolved', false)
+      .whereIn('project_id', ids)
+      .groupBy('project_id'),
   );
   for (const row of rows) counts.set(Number(row.project_id), Number(row.n));
   return counts;

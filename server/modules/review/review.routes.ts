@@ -8,7 +8,7 @@
  */
 import { Router } from 'express';
 import { LockMode } from '@mikro-orm/core';
-import type { EntityManager } from '@mikro-orm/sqlite';
+import type { EntityManager } from '@mikro-orm/knex';
 import {
   PROJECT_STATE_LABELS,
   approveProjectBody,

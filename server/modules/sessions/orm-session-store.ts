@@ -14,7 +14,7 @@ export const TOUCH_GRANULARITY_MS = 60 * 60 * 1000;
 const REMEMBERED_EXPIRIES = 10_000;
 
 /**
- * An express-session store over the app's own SQLite file, through the ORM, so sessions survive a
+ * An express-session store over the app's own database (SQLite or PostgreSQL), through the ORM, so sessions survive a
  * restart and live in the same migrations as everything else. We wrote this small one rather than
  * add a store package because the packages open a second connection to the same file, outside the
  * migrations, and SQLite serialises writers (see DEVELOPERS.md).

@@ -4,7 +4,7 @@
  * sheet (its status, a PDF of an issued revision) changes nothing.
  */
 import { UniqueConstraintViolationException } from '@mikro-orm/core';
-import type { EntityManager } from '@mikro-orm/sqlite';
+import type { EntityManager } from '@mikro-orm/knex';
 import { PROJECT_STATE_LABELS, type ProjectState, type SheetPaper, type SheetRevisionDto } from '../../../shared/schemas';
 import { resolveUnits } from '../../../shared/units';
 import { HttpError } from '../../http-error';

@@ -7,7 +7,7 @@ import { startSession } from '../auth/auth.routes';
 import { Invitation } from './invitation.entity';
 import { hashToken } from './invitations';
 import { toUserDto } from './user.dto';
-import type { EntityManager } from '@mikro-orm/sqlite';
+import type { EntityManager } from '@mikro-orm/knex';
 import type { OrmSessionStore } from '../sessions/orm-session-store';
 import { requestEm } from '../../middleware/request-context';
 

@@ -1,5 +1,5 @@
 import crypto from 'node:crypto';
-import type { EntityManager } from '@mikro-orm/sqlite';
+import type { EntityManager } from '@mikro-orm/knex';
 import { Invitation, type LinkPurpose } from './invitation.entity';
 import type { User } from './user.entity';
 

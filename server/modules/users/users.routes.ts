@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import type { EntityManager } from '@mikro-orm/sqlite';
+import type { EntityManager } from '@mikro-orm/knex';
 import { idParam, inviteBody, patchUserBody } from '../../../shared/schemas';
 import { HttpError, notFound } from '../../http-error';
 import { requireRole } from '../../middleware/auth';
