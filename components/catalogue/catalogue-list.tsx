@@ -116,12 +116,13 @@ function CatalogueRow({ item, units, wide }: { item: CatalogueItemDto; units: Un
     focal: size(o.focalLengthM, units),
     price: priceText(item),
   };
-  return (
+  // A wide row is a table row (its cells need one); a phone card is a link inside a list item.
+  // Either way its name is the visible text, nothing left out.
+  const row = (
     <Pressable
       testID={`catalogue-row-${item.id}`}
-      role="link"
+      role={wide ? 'row' : 'link'}
       onPress={() => router.push(`/catalogue/${item.id}`)}
-      aria-label={`${item.name}, ${cells.size}, radius of curvature ${cells.radius}, ${cells.price}`}
       onFocus={onFocus}
       onBlur={onBlur}
       style={({ hovered, pressed }) => [
@@ -155,6 +156,7 @@ function CatalogueRow({ item, units, wide }: { item: CatalogueItemDto; units: Un
       )}
     </Pressable>
   );
+  return wide ? row : <View role="listitem">{row}</View>;
 }
 
 function Tags({ item }: { item: CatalogueItemDto }) {

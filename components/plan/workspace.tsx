@@ -8,11 +8,11 @@ import { useDisplayUnits } from '@/components/placement/use-display-units';
 import { useIsWide } from '@/hooks/use-breakpoint';
 import { usePlanEdits } from '@/hooks/use-plan-edits';
 import { usePlanEvaluation } from '@/hooks/use-plan-evaluation';
-import type { CatalogueItemDto, CriteriaSettings, CriterionKind, ProjectDto } from '@/shared/schemas';
+import type { CatalogueItemDto, CriteriaSettings, CriterionKind, PlacementDto, ProjectDto, Scene } from '@/shared/schemas';
 import { markRedrawEnd } from './perf-marks';
 import { PlanCanvas, type PlanDrag } from './plan-canvas';
 import { PlanDetails } from './plan-details';
-import { PlanDrawer } from './plan-drawer';
+import { PlanDrawer, type DrawerSize } from './plan-drawer';
 import { roundM } from './plan-edits';
 import { PlanNotices } from './plan-notices';
 import { PlanToolbar } from './plan-toolbar';
@@ -30,7 +30,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
   const units = useDisplayUnits(project);
   const edits = usePlanEdits(project);
   const [selection, setSelection] = useState<PlanSelection>(null);
-  const [drawerOpen, setDrawerOpen] = useState(false);
+  const [drawerSize, setDrawerSize] = useState<DrawerSize>('folded');
   const selectedPlacementId = selection?.kind === 'placement' ? selection.id : null;
   const evaluation = usePlanEvaluation(edits.scene, edits.placements, catalogue, selectedPlacementId);
   const canEdit = project.canEdit;
@@ -42,7 +42,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
     saveScene: edits.saveScene,
     createPlacement: edits.createPlacement,
     select: setSelection,
-    onMirrorPlaced: () => setDrawerOpen(true),
+    onMirrorPlaced: () => setDrawerSize((d) => (d === 'folded' ? 'peek' : d)),
   });
 
   // Closes the performance measure of a live drag frame once React has committed it.
@@ -80,7 +80,8 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
 
   const select = (s: PlanSelection) => {
     setSelection(s);
-    if (s?.kind === 'placement' && !wide) setDrawerOpen(true);
+    // On a phone the details open to a peek: the plan above re-centres on the mirror and its fan.
+    if (s?.kind === 'placement' && !wide) setDrawerSize((d) => (d === 'folded' ? 'peek' : d));
   };
 
   const tool = canEdit ? tools.tool : 'select';
@@ -128,6 +129,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
         sketchPoints={tools.zoneToName ?? tools.sketch}
         sketchClosed={tools.tool === 'zone'}
         reserveBottom={90}
+        focus={!wide && drawerSize !== 'folded' ? focusOf(selection, edits.placements, edits.scene) : null}
       />
     ),
     overPlan: (
@@ -170,11 +172,11 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
   return (
     <PhoneWorkspace
       {...parts}
-      drawerOpen={drawerOpen}
+      drawerOpen={drawerSize !== 'folded'}
       drawer={
         <PlanDrawer
-          open={drawerOpen}
-          onToggle={() => setDrawerOpen((o) => !o)}
+          size={drawerSize}
+          onSize={setDrawerSize}
           selection={selection}
           placement={selectedPlacement}
           scene={edits.scene}
@@ -186,4 +188,17 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
       }
     />
   );
+}
+
+/** Where the selected item is, for the phone's plan to keep it in the middle above the drawer. */
+function focusOf(selection: PlanSelection, placements: readonly PlacementDto[], scene: Scene): { key: string; pointM: PairM } | null {
+  if (selection?.kind === 'placement') {
+    const p = placements.find((x) => x.id === selection.id);
+    return p ? { key: `placement-${p.id}`, pointM: [p.positionM[0], p.positionM[1]] } : null;
+  }
+  if (selection?.kind === 'viewer') {
+    const v = scene.viewers.find((x) => x.id === selection.id);
+    return v ? { key: `viewer-${v.id}`, pointM: [v.positionM[0], v.positionM[1]] } : null;
+  }
+  return null;
 }

@@ -192,7 +192,6 @@ function QueueCard({ job, nowMs }: { job: QueueJob; nowMs: number }) {
       <Pressable
         role="link"
         testID={`queue-row-${job.id}`}
-        aria-label={`${job.name}, ${site}, by ${job.ownerName}`}
         onPress={() => openJob(job.id)}
         onFocus={onFocus}
         onBlur={onBlur}
