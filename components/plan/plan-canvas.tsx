@@ -18,6 +18,7 @@ import { boundsOf, type PairM, type PlanView } from './plan-view';
 import type { PlanSelection, PlanTool } from './plan-types';
 import { usePlanGestures } from './use-plan-gestures';
 import { usePlanViewport } from './use-plan-viewport';
+import { MarkerFocusLayer } from './marker-focus-layer';
 import { ZoomControls } from './zoom-controls';
 
 export type { PlanDrag } from './plan-gesture';
@@ -47,6 +48,8 @@ export interface PlanCanvasProps {
    * re-centres on it when the key changes or the frame changes size, not while it is dragged.
    */
   focus?: { key: string; pointM: PairM } | null;
+  /** On a phone the zoom buttons sit in a row this many pixels above the plan's bottom edge, within thumb reach. */
+  zoomAtBottom?: number;
 }
 
 export function PlanCanvas(props: PlanCanvasProps) {
@@ -95,7 +98,13 @@ export function PlanCanvas(props: PlanCanvasProps) {
           {props.overlay?.(view)}
         </PlanDrawing>
       </View>
-      <ZoomControls onZoomIn={() => viewport.zoomBy(1.4)} onZoomOut={() => viewport.zoomBy(1 / 1.4)} onFit={viewport.fit} />
+      <MarkerFocusLayer scene={scene} placements={placements} view={view} size={size} selection={selection} onSelect={props.onSelect} />
+      <ZoomControls
+        atBottom={props.zoomAtBottom}
+        onZoomIn={() => viewport.zoomBy(1.4)}
+        onZoomOut={() => viewport.zoomBy(1 / 1.4)}
+        onFit={viewport.fit}
+      />
     </View>
   );
 }

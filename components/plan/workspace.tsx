@@ -19,6 +19,7 @@ import { PlanToolbar } from './plan-toolbar';
 import type { PlanSelection } from './plan-types';
 import type { PairM } from './plan-view';
 import { moveViewer, removeSceneItem, setCriteria, setViewerEyeHeight, setZoneCriterion } from './scene-edits';
+import { usePlanKeys } from './use-plan-keys';
 import { usePlanTool } from './use-plan-tool';
 import { PhoneWorkspace, WideWorkspace } from './workspace-layouts';
 import { WorkspaceHeader } from './workspace-header';
@@ -84,6 +85,23 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
     if (s?.kind === 'placement' && !wide) setDrawerSize((d) => (d === 'folded' ? 'peek' : d));
   };
 
+  // Wide keyboard: Escape closes the editor (saving what was typed), arrows nudge through the usual saves.
+  usePlanKeys(selection, canEdit, (action) => {
+    if (action.kind === 'close') {
+      if (selection?.kind === 'placement' && edits.writes.unsaved[selection.id]) edits.writes.save(selection.id);
+      setSelection(null);
+      return;
+    }
+    const [dx, dy] = action.deltaM;
+    if (selection?.kind === 'placement') {
+      const p = edits.placements.find((x) => x.id === selection.id);
+      if (p) void edits.savePlacement(p.id, { positionM: [roundM(p.positionM[0] + dx), roundM(p.positionM[1] + dy)] });
+    } else if (selection?.kind === 'viewer') {
+      const v = base.viewers.find((x) => x.id === selection.id);
+      if (v) void edits.saveScene(moveViewer(base, v.id, [roundM(v.positionM[0] + dx), roundM(v.positionM[1] + dy)]));
+    }
+  });
+
   const tool = canEdit ? tools.tool : 'select';
   // The review (state, steps, comments, trail) sits above the details; its markers are drawn on the plan.
   const review = useReviewPlan({ project, placements: edits.placements, selection, wide });
@@ -129,6 +147,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
         sketchPoints={tools.zoneToName ?? tools.sketch}
         sketchClosed={tools.tool === 'zone'}
         reserveBottom={90}
+        zoomAtBottom={wide ? undefined : drawerSize === 'folded' ? 100 : 8}
         focus={!wide && drawerSize !== 'folded' ? focusOf(selection, edits.placements, edits.scene) : null}
       />
     ),
