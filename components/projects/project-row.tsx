@@ -19,12 +19,21 @@ export function mirrorsText(n: number): string {
 export function ProjectRow({ project, showOwner }: { project: ProjectSummaryDto; showOwner: boolean }) {
   const { focusVisible, onFocus, onBlur } = useFocusVisible();
   const where = [project.customer, project.site].filter(Boolean).join(' · ');
+  const open = () => router.push(`/projects/${project.id}`);
   return (
-    <View role="listitem">
+    <View
+      role="listitem"
+      // Enter opens a link by itself; Space does too here, as it does a row in most lists.
+      onKeyDown={(e) => {
+        if (e.key !== ' ') return;
+        e.preventDefault();
+        open();
+      }}
+    >
       <Pressable
         testID={`project-row-${project.id}`}
         role="link"
-        onPress={() => router.push(`/projects/${project.id}`)}
+        onPress={open}
         onFocus={onFocus}
         onBlur={onBlur}
         style={({ hovered, pressed }) => [styles.row, (hovered || pressed) && styles.rowHover, focusVisible && focusRing]}
