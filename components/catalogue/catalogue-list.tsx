@@ -4,6 +4,7 @@ import { ActivityIndicator, Pressable, StyleSheet, View } from 'react-native';
 import { compareMirrorsBySize, mirrorSizeText, priceText, SHAPE_LABELS, SHAPE_ORDER } from '@/components/placement/mirror-text';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
+import { openOnEnterOrSpace } from '@/components/ui/link-keys';
 import { Notice } from '@/components/ui/notice';
 import { Segmented } from '@/components/ui/segmented';
 import { AppText } from '@/components/ui/text';
@@ -107,6 +108,7 @@ const COLUMNS: readonly { key: ColumnKey; label: string; flex: number; right?: b
 function CatalogueRow({ item, units, wide }: { item: CatalogueItemDto; units: UnitSystem; wide: boolean }) {
   const { focusVisible, onFocus, onBlur } = useFocusVisible();
   const o = opticsOf(item);
+  const open = () => router.push(`/catalogue/${item.id}`);
   const cells: Record<ColumnKey, string> = {
     shape: SHAPE_LABELS[item.mirror.shape],
     code: item.code,
@@ -122,7 +124,7 @@ function CatalogueRow({ item, units, wide }: { item: CatalogueItemDto; units: Un
     <Pressable
       testID={`catalogue-row-${item.id}`}
       role={wide ? 'row' : 'link'}
-      onPress={() => router.push(`/catalogue/${item.id}`)}
+      onPress={open}
       onFocus={onFocus}
       onBlur={onBlur}
       style={({ hovered, pressed }) => [
@@ -156,7 +158,13 @@ function CatalogueRow({ item, units, wide }: { item: CatalogueItemDto; units: Un
       )}
     </Pressable>
   );
-  return wide ? row : <View role="listitem">{row}</View>;
+  return wide ? (
+    row
+  ) : (
+    <View role="listitem" onKeyDown={openOnEnterOrSpace(open)}>
+      {row}
+    </View>
+  );
 }
 
 function Tags({ item }: { item: CatalogueItemDto }) {

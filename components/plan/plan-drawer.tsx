@@ -72,7 +72,6 @@ export function PlanDrawer(p: PlanDrawerProps) {
     <View
       style={[styles.drawer, open && { height: Math.round(height * DRAWER_HEIGHT_SHARE[p.size === 'full' ? 'full' : 'peek']) }]}
       testID="plan-drawer"
-      data-size={p.size}
     >
       <View style={styles.strip}>
         <View style={styles.grip} />

@@ -95,10 +95,10 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
     const [dx, dy] = action.deltaM;
     if (selection?.kind === 'placement') {
       const p = edits.placements.find((x) => x.id === selection.id);
-      if (p) void edits.savePlacement(p.id, { positionM: [roundM(p.positionM[0] + dx), roundM(p.positionM[1] + dy)] });
+      if (p) void edits.savePlacement(p.id, { positionM: nudged(p.positionM, dx, dy) });
     } else if (selection?.kind === 'viewer') {
       const v = base.viewers.find((x) => x.id === selection.id);
-      if (v) void edits.saveScene(moveViewer(base, v.id, [roundM(v.positionM[0] + dx), roundM(v.positionM[1] + dy)]));
+      if (v) void edits.saveScene(moveViewer(base, v.id, nudged(v.positionM, dx, dy)));
     }
   });
 
@@ -220,4 +220,9 @@ function focusOf(selection: PlanSelection, placements: readonly PlacementDto[], 
     return v ? { key: `viewer-${v.id}`, pointM: [v.positionM[0], v.positionM[1]] } : null;
   }
   return null;
+}
+
+/** A point moved along one axis: only the moved coordinate is rounded (to the plan's millimetres), the other is kept as it was. */
+function nudged(p: readonly [number, number], dx: number, dy: number): PairM {
+  return [dx === 0 ? p[0] : roundM(p[0] + dx), dy === 0 ? p[1] : roundM(p[1] + dy)];
 }

@@ -1,5 +1,6 @@
 import { router } from 'expo-router';
 import { Pressable, StyleSheet, View } from 'react-native';
+import { openOnEnterOrSpace } from '@/components/ui/link-keys';
 import { AppText } from '@/components/ui/text';
 import { StateBadge } from '@/components/review/state-badge';
 import { focusRing, layout, palette, radii, spacing } from '@/constants/theme';
@@ -21,15 +22,7 @@ export function ProjectRow({ project, showOwner }: { project: ProjectSummaryDto;
   const where = [project.customer, project.site].filter(Boolean).join(' · ');
   const open = () => router.push(`/projects/${project.id}`);
   return (
-    <View
-      role="listitem"
-      // Enter opens a link by itself; Space does too here, as it does a row in most lists.
-      onKeyDown={(e) => {
-        if (e.key !== ' ') return;
-        e.preventDefault();
-        open();
-      }}
-    >
+    <View role="listitem" onKeyDown={openOnEnterOrSpace(open)}>
       <Pressable
         testID={`project-row-${project.id}`}
         role="link"
