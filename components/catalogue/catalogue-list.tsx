@@ -161,7 +161,7 @@ function CatalogueRow({ item, units, wide }: { item: CatalogueItemDto; units: Un
   return wide ? (
     row
   ) : (
-    <View role="listitem" onKeyDown={openOnEnterOrSpace(open)}>
+    <View role="listitem" onKeyDownCapture={openOnEnterOrSpace(open)}>
       {row}
     </View>
   );

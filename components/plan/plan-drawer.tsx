@@ -61,8 +61,12 @@ export function drawerSummary(p: Pick<PlanDrawerProps, 'selection' | 'placement'
  */
 export type DrawerSize = 'folded' | 'peek' | 'full';
 
-/** Fractions of the window's height; the peek leaves a bit more than half the screen to the plan. */
-export const DRAWER_HEIGHT_SHARE: Record<Exclude<DrawerSize, 'folded'>, number> = { peek: 0.44, full: 0.84 };
+/**
+ * Fractions of the window's height. The peek leaves a bit more than half the screen to the plan;
+ * full height still leaves room for the header and the tab bar (at 0.84 the drawer ran under the
+ * tab bar on a 390 × 844 phone and the tabs covered the last caution).
+ */
+export const DRAWER_HEIGHT_SHARE: Record<Exclude<DrawerSize, 'folded'>, number> = { peek: 0.44, full: 0.66 };
 
 export function PlanDrawer(p: PlanDrawerProps) {
   const { height } = useWindowDimensions();

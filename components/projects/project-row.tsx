@@ -22,7 +22,7 @@ export function ProjectRow({ project, showOwner }: { project: ProjectSummaryDto;
   const where = [project.customer, project.site].filter(Boolean).join(' · ');
   const open = () => router.push(`/projects/${project.id}`);
   return (
-    <View role="listitem" onKeyDown={openOnEnterOrSpace(open)}>
+    <View role="listitem" onKeyDownCapture={openOnEnterOrSpace(open)}>
       <Pressable
         testID={`project-row-${project.id}`}
         role="link"

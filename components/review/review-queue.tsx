@@ -189,7 +189,7 @@ function QueueCard({ job, nowMs }: { job: QueueJob; nowMs: number }) {
   const { focusVisible, onFocus, onBlur } = useFocusVisible();
   const site = job.site || job.customer || 'No site given';
   return (
-    <View role="listitem" onKeyDown={openOnEnterOrSpace(() => openJob(job.id))}>
+    <View role="listitem" onKeyDownCapture={openOnEnterOrSpace(() => openJob(job.id))}>
       <Pressable
         role="link"
         testID={`queue-row-${job.id}`}
