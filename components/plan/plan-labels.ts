@@ -30,6 +30,10 @@ export const LABEL_PRIORITY = { selected: 0, zone: 1, mirror: 2, viewer: 3 } as 
 /** Pixels between a marker's edge and a label moved away from it. */
 const GAP_PX = 6;
 
+/**
+ * Places the labels; a label that must show has a priority no lower than any that may hide (the
+ * plan's selected item and zones), so a label shown by choice is clear of every other.
+ */
 export function layoutPlanLabels(
   requests: readonly PlanLabelRequest[],
   obstacles: readonly LabelBox[],
