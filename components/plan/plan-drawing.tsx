@@ -81,8 +81,22 @@ export function PlanDrawing({
   const selectedViewer = selectedPlacement ? scene.viewers.find((v) => v.id === selectedPlacement.viewerId) : undefined;
   const labels = useMemo(
     () =>
-      planLabelLayout(scene, placements, zoneFraction, view, size, selection, selectedPlacement && canEdit ? selectedPlacement : undefined),
-    [scene, placements, zoneFraction, view, size, selection, selectedPlacement, canEdit],
+      planLabelLayout(
+        scene,
+        placements,
+        zoneFraction,
+        view,
+        size,
+        selection,
+        selectedPlacement && canEdit ? selectedPlacement : undefined,
+        {
+          x: 0,
+          y: 0,
+          w: bar.lengthPx + 32,
+          h: 48,
+        },
+      ),
+    [scene, placements, zoneFraction, view, size, selection, selectedPlacement, canEdit, bar.lengthPx],
   );
   const at = (key: string) => {
     const b = labels.get(key);
@@ -195,6 +209,8 @@ function planLabelLayout(
   size: Size,
   selection: PlanSelection,
   aimed: PlacementDto | undefined,
+  /** The scale bar's plate at the top left, drawn over everything. */
+  scaleBarBox: LabelBox,
 ): Map<string, LabelBox | null> {
   const isSelected = (kind: string, id: string | number) => selection?.kind === kind && selection.id === id;
   const requests: PlanLabelRequest[] = [];
@@ -243,6 +259,7 @@ function planLabelLayout(
   }
   // Markers drawn a little larger than their radius (the selected one's thick ring), and the aim handle.
   const obstacles: LabelBox[] = [
+    scaleBarBox,
     ...placements.map((p) => markerBox(toScreen(view, p.positionM), MARKER_RADIUS_PX + 3)),
     ...scene.viewers.map((v) => markerBox(toScreen(view, v.positionM), MARKER_RADIUS_PX + 3)),
   ];

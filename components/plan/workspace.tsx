@@ -106,9 +106,11 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
   // The review (state, steps, comments, trail) sits above the details; its markers are drawn on the plan.
   const review = useReviewPlan({ project, placements: edits.placements, selection, wide });
 
+  // On a phone with a mirror selected, its editor comes first in the drawer's peek; the review panel follows.
+  const editorFirst = !wide && selection?.kind === 'placement';
   const details = (
     <>
-      {review.panel}
+      {editorFirst ? null : review.panel}
       <PlanDetails
         project={project}
         scene={edits.scene}
@@ -124,6 +126,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
         onZoneCriterion={(id: string, criterion: CriterionKind) => void edits.saveScene(setZoneCriterion(base, id, criterion))}
         onCriteria={(criteria: CriteriaSettings | undefined) => void edits.saveScene(setCriteria(base, criteria))}
       />
+      {editorFirst ? review.panel : null}
     </>
   );
 
