@@ -49,7 +49,10 @@ export function layoutPlanLabels(
       b.x >= bounds.x && b.y >= bounds.y && b.x + b.w <= bounds.x + bounds.w && b.y + b.h <= bounds.y + bounds.h;
     let choice: LabelBox | null = spots.find((b) => inBounds(b) && meets(b) === 0) ?? null;
     if (!choice && r.mustShow) {
-      choice = spots.reduce((best, b) => (meets(b) < meets(best) ? b : best), r.preferred);
+      // The spot that meets the fewest others, on screen if any spot is.
+      const onScreen = spots.filter(inBounds);
+      const pool = onScreen.length ? onScreen : spots;
+      choice = pool.reduce((best, b) => (meets(b) < meets(best) ? b : best), pool[0]);
     }
     placed.set(r.key, choice);
     if (choice) taken.push(choice);

@@ -17,7 +17,7 @@ const request = (key: string, anchor: [number, number], over: Partial<PlanLabelR
   ...over,
 });
 
-/** Any label the plan asks for: only the selected item's and the zones' labels must show (they come first). */
+/** Any label the plan asks for: the selected item's and the zones' labels must show (they come first), mirrors' and viewers' may hide. */
 const anyRequest = fc
   .record({
     x: fc.double({ min: -50, max: 440, noNaN: true }),
@@ -27,7 +27,7 @@ const anyRequest = fc
     priority: fc.constantFrom(...Object.values(LABEL_PRIORITY)),
     mustShow: fc.boolean(),
   })
-  .map((r) => ({ ...r, mustShow: r.mustShow && r.priority <= LABEL_PRIORITY.zone }));
+  .map((r) => ({ ...r, mustShow: r.priority <= LABEL_PRIORITY.zone }));
 
 describe('the plan’s label layout', () => {
   it('keeps the preferred spot when nothing is in the way', () => {
@@ -59,6 +59,19 @@ describe('the plan’s label layout', () => {
     );
     expect(placed.get('viewer-v')).toBeNull();
     expect(placed.get('placement-2')).not.toBeNull();
+  });
+
+  it('keeps a label that must show on screen when a spot on screen exists, even if every spot meets something', () => {
+    const zone = request('zone-t', [370, 60], {
+      priority: LABEL_PRIORITY.zone,
+      mustShow: true,
+      w: 180,
+      h: 36,
+      preferred: { x: 280, y: 42, w: 180, h: 36 },
+    });
+    const box = layoutPlanLabels([zone], [SCREEN], SCREEN).get('zone-t')!;
+    expect(box.x).toBeGreaterThanOrEqual(0);
+    expect(box.x + box.w).toBeLessThanOrEqual(SCREEN.w);
   });
 
   it('never lets a label it shows by choice overlap another label, a marker or the screen edge, for any labels and markers', () => {
