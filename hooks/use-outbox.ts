@@ -1,6 +1,8 @@
 /** Demo mode keeps the mail the server "sent"; the admin reads it here (invitation links included). */
-import { useMutation, useQuery } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from './api';
+import type { UserDto } from '@/shared/schemas';
+import { sessionKeys } from './use-session';
 
 export const OUTBOX_STALE_MS = 5_000;
 /** Mail arrives a moment after an invite is sent; poll gently while the screen is open. */
@@ -12,11 +14,14 @@ export const outboxKeys = {
 };
 
 export function useOutboxQuery() {
+  // Only an admin is answered: anyone else asks nothing (see useUsersQuery).
+  const user = useQueryClient().getQueryData<UserDto | null>(sessionKeys.me());
   return useQuery({
     queryKey: outboxKeys.list(),
     queryFn: () => api.outbox.list(),
     staleTime: OUTBOX_STALE_MS,
     refetchInterval: OUTBOX_REFETCH_MS,
+    enabled: user?.role === 'admin',
   });
 }
 

@@ -1,6 +1,6 @@
 /**
- * The signed-in person. `/api/auth/me` answering 401 means "signed out", which is a normal state,
- * not an error: the query resolves to null and the root layout's guard shows the sign-in screen.
+ * The signed-in person. `/api/auth/session` answers `{ user: null }` when signed out, a normal state
+ * and not an error (no failed request in the console): the root layout's guard shows the sign-in screen.
  */
 import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { ApiError } from '@/shared/api-client';
@@ -20,7 +20,7 @@ export const sessionKeys = {
 
 async function fetchMe(): Promise<UserDto | null> {
   try {
-    const { user } = await api.auth.me();
+    const { user } = await api.auth.session();
     return user;
   } catch (err) {
     if (err instanceof ApiError && err.status === 401) return null;

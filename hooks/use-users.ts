@@ -14,11 +14,14 @@ export const userKeys = {
 };
 
 export function useUsersQuery(options: { enabled?: boolean } = {}) {
+  // Only an admin is answered; anyone else who reaches the screen (a typed URL, before the layout's
+  // redirect) asks nothing, so no expected 403 is left in their browser.
+  const user = useQueryClient().getQueryData<UserDto | null>(sessionKeys.me());
   return useQuery({
     queryKey: userKeys.list(),
     queryFn: async () => (await api.users.list()).users,
     staleTime: USERS_STALE_MS,
-    enabled: options.enabled ?? true,
+    enabled: (options.enabled ?? true) && user?.role === 'admin',
   });
 }
 

@@ -25,6 +25,7 @@ import type {
   PatchUserBody,
   SignInBody,
   UpdateMeBody,
+  SessionResponse,
   UserResponse,
   UsersResponse,
   SheetEmailBody,
@@ -141,6 +142,8 @@ export function createApiClient(options: ApiClientOptions = {}) {
       signIn: (body: SignInBody) => request<UserResponse>('POST', '/auth/sign-in', body),
       signOut: () => request<void>('POST', '/auth/sign-out'),
       me: () => request<UserResponse>('GET', '/auth/me'),
+      /** Who is signed in, or `{ user: null }`: never a 401. */
+      session: () => request<SessionResponse>('GET', '/auth/session'),
       updateMe: (body: UpdateMeBody) => request<UserResponse>('PATCH', '/auth/me', body),
       /** Needs the current password; the server ends this person's other sessions. */
       changePassword: (body: ChangePasswordBody) => request<UserResponse>('POST', '/auth/password', body),

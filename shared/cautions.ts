@@ -33,3 +33,10 @@ export const CAUTION_SENTENCES: readonly string[] = SAFETY_CAUTIONS.map((c) => c
  */
 export const VEHICLE_FIELDS_NOTE =
   'The ground fields shown are for planning: type approval and local rules decide whether a vehicle’s mirrors comply.';
+
+/**
+ * The short caution shown whole wherever coverage is drawn but the four cautions are out of view
+ * (the phone's folded drawer, the sign-in illustration): it names the first caution and where the
+ * rest are. Never cut to one line.
+ */
+export const SHORT_CAUTION = 'Mirrors show things smaller and farther away than they are. Read the cautions under Details.';

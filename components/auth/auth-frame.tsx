@@ -5,6 +5,7 @@ import { AppText, Wordmark } from '@/components/ui';
 import { ScreenHeading } from '@/components/ui/screen-heading';
 import { layout, palette, spacing } from '@/constants/theme';
 import { useIsWide } from '@/hooks/use-breakpoint';
+import { SAFETY_CAUTIONS } from '@/shared/cautions';
 import { FanIllustration } from './fan-illustration';
 
 export interface AuthFrameProps {
@@ -26,7 +27,13 @@ export function AuthFrame({ title, lead, children }: AuthFrameProps) {
       <View style={styles.wideRoot}>
         <View style={styles.brandPanel}>
           <Wordmark onDark size="lg" />
-          <FanIllustration width={500} />
+          <View style={styles.figure}>
+            <FanIllustration width={500} />
+            {/* The drawing shows a mirror's coverage, so it carries the first caution, whole. */}
+            <AppText variant="small" tone="onAsphalt" testID="illustration-caution" style={styles.caution}>
+              {SAFETY_CAUTIONS[0].text}
+            </AppText>
+          </View>
           <AppText variant="heading" tone="onAsphalt" style={styles.tagline}>
             {TAGLINE}
           </AppText>
@@ -72,6 +79,8 @@ const styles = StyleSheet.create({
     alignItems: 'flex-start',
   },
   tagline: { maxWidth: 440 },
+  figure: { gap: spacing.sm },
+  caution: { maxWidth: 500 },
   formSide: { flex: 1 },
   formSideContent: { flexGrow: 1, justifyContent: 'center', padding: spacing.xxxl },
   formColumn: { width: '100%', maxWidth: layout.formMaxWidth, alignSelf: 'center', gap: spacing.xl },

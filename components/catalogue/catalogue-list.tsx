@@ -4,6 +4,7 @@ import { ActivityIndicator, Pressable, StyleSheet, View } from 'react-native';
 import { compareMirrorsBySize, mirrorSizeText, priceText, SHAPE_LABELS, SHAPE_ORDER } from '@/components/placement/mirror-text';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
+import { openOnEnterOrSpace } from '@/components/ui/link-keys';
 import { Notice } from '@/components/ui/notice';
 import { Segmented } from '@/components/ui/segmented';
 import { AppText } from '@/components/ui/text';
@@ -107,6 +108,7 @@ const COLUMNS: readonly { key: ColumnKey; label: string; flex: number; right?: b
 function CatalogueRow({ item, units, wide }: { item: CatalogueItemDto; units: UnitSystem; wide: boolean }) {
   const { focusVisible, onFocus, onBlur } = useFocusVisible();
   const o = opticsOf(item);
+  const open = () => router.push(`/catalogue/${item.id}`);
   const cells: Record<ColumnKey, string> = {
     shape: SHAPE_LABELS[item.mirror.shape],
     code: item.code,
@@ -116,12 +118,13 @@ function CatalogueRow({ item, units, wide }: { item: CatalogueItemDto; units: Un
     focal: size(o.focalLengthM, units),
     price: priceText(item),
   };
-  return (
+  // A wide row is a table row (its cells need one); a phone card is a link inside a list item.
+  // Either way its name is the visible text, nothing left out.
+  const row = (
     <Pressable
       testID={`catalogue-row-${item.id}`}
-      role="link"
-      onPress={() => router.push(`/catalogue/${item.id}`)}
-      aria-label={`${item.name}, ${cells.size}, radius of curvature ${cells.radius}, ${cells.price}`}
+      role={wide ? 'row' : 'link'}
+      onPress={open}
       onFocus={onFocus}
       onBlur={onBlur}
       style={({ hovered, pressed }) => [
@@ -154,6 +157,13 @@ function CatalogueRow({ item, units, wide }: { item: CatalogueItemDto; units: Un
         </>
       )}
     </Pressable>
+  );
+  return wide ? (
+    row
+  ) : (
+    <View role="listitem" onKeyDownCapture={openOnEnterOrSpace(open)}>
+      {row}
+    </View>
   );
 }
 

@@ -141,7 +141,6 @@ function CatalogueOption({
       testID={`placement-catalogue-item-${item.id}`}
       role="radio"
       aria-checked={selected}
-      aria-label={`${item.name}, ${catalogueLine(item, units)}`}
       onPress={onPress}
       onFocus={onFocus}
       onBlur={onBlur}

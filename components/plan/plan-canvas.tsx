@@ -6,7 +6,7 @@
  * The parts: usePlanViewport (size, view, zoom), usePlanGestures over the pure machine in
  * plan-gesture.ts (with hit-testing in plan-hit-test.ts), and PlanDrawing.
  */
-import { useMemo, useRef, type ReactNode } from 'react';
+import { useEffect, useLayoutEffect, useMemo, useRef, type ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { palette } from '@/constants/theme';
 import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
@@ -19,6 +19,7 @@ import { boundsOf, type PairM, type PlanView } from './plan-view';
 import type { PlanSelection, PlanTool } from './plan-types';
 import { usePlanGestures } from './use-plan-gestures';
 import { usePlanViewport } from './use-plan-viewport';
+import { MarkerFocusLayer } from './marker-focus-layer';
 import { ZoomControls } from './zoom-controls';
 
 export type { PlanDrag } from './plan-gesture';
@@ -43,6 +44,13 @@ export interface PlanCanvasProps {
   overlay?: (view: PlanView) => ReactNode;
   /** Pixels at the bottom covered by the floating toolbar; "fit" keeps the plan above them. */
   reserveBottom?: number;
+  /**
+   * An item to keep in the middle of the frame (the phone's drawer, open over the plan): the plan
+   * re-centres on it when the key changes or the frame changes size, not while it is dragged.
+   */
+  focus?: { key: string; pointM: PairM } | null;
+  /** On a phone the zoom buttons sit in a row this many pixels above the plan's bottom edge, within thumb reach. */
+  zoomAtBottom?: number;
 }
 
 export function PlanCanvas(props: PlanCanvasProps) {
@@ -60,6 +68,16 @@ export function PlanCanvas(props: PlanCanvasProps) {
 
   const viewport = usePlanViewport(frameRef, planBounds, reserveBottom);
   const { size, view } = viewport;
+  const focusRef = useRef(props.focus);
+  useLayoutEffect(() => {
+    focusRef.current = props.focus;
+  });
+  const focusKey = props.focus?.key ?? null;
+  const { centre } = viewport;
+  useEffect(() => {
+    const f = focusRef.current;
+    if (focusKey !== null && f) centre(f.pointM);
+  }, [focusKey, centre]);
   const responder = usePlanGestures(frameRef, viewport.originRef, viewport.viewRef, viewport.setViewByPerson, {
     context: { scene, placements, selection, canEdit, tool, pinning: props.pinning },
     onSelect: props.onSelect,
@@ -82,7 +100,13 @@ export function PlanCanvas(props: PlanCanvasProps) {
           {canEdit && tool === 'select' ? <SceneHandles scene={scene} selection={selection} view={view} /> : null}
         </PlanDrawing>
       </View>
-      <ZoomControls onZoomIn={() => viewport.zoomBy(1.4)} onZoomOut={() => viewport.zoomBy(1 / 1.4)} onFit={viewport.fit} />
+      <MarkerFocusLayer scene={scene} placements={placements} view={view} size={size} selection={selection} onSelect={props.onSelect} />
+      <ZoomControls
+        atBottom={props.zoomAtBottom}
+        onZoomIn={() => viewport.zoomBy(1.4)}
+        onZoomOut={() => viewport.zoomBy(1 / 1.4)}
+        onFit={viewport.fit}
+      />
     </View>
   );
 }

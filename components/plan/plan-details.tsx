@@ -161,12 +161,7 @@ function ProjectSummary(p: PlanDetailsProps) {
           const ev = p.evaluation?.zones.find((e) => e.zoneId === z.id);
           const band = zoneBand(ev?.fraction ?? Number.NaN);
           return (
-            <ListRow
-              key={z.id}
-              testID={`summary-zone-${z.id}`}
-              onPress={() => p.onSelect({ kind: 'zone', id: z.id })}
-              a11y={`Zone ${z.name}`}
-            >
+            <ListRow key={z.id} testID={`summary-zone-${z.id}`} onPress={() => p.onSelect({ kind: 'zone', id: z.id })}>
               <View style={styles.rowMain}>
                 <AppText variant="bodyStrong">{z.name}</AppText>
                 <AppText variant="small" tone="muted">{`Target: ${targetLabel(z.target)}, ${zoneCriterion(z)}`}</AppText>
@@ -191,12 +186,7 @@ function ProjectSummary(p: PlanDetailsProps) {
         {p.placements.map((pl) => {
           const ev = evalById.get(pl.id);
           return (
-            <ListRow
-              key={pl.id}
-              testID={`summary-placement-${pl.id}`}
-              onPress={() => p.onSelect({ kind: 'placement', id: pl.id })}
-              a11y={`Mirror ${pl.label}`}
-            >
+            <ListRow key={pl.id} testID={`summary-placement-${pl.id}`} onPress={() => p.onSelect({ kind: 'placement', id: pl.id })}>
               <View style={styles.rowMain}>
                 <AppText variant="bodyStrong">{pl.label}</AppText>
                 {ev?.problem ? (
@@ -218,12 +208,7 @@ function ProjectSummary(p: PlanDetailsProps) {
           <AppText tone="muted">No viewers yet. Choose Viewer and tap where the driver or pedestrian looks from.</AppText>
         ) : null}
         {p.scene.viewers.map((v) => (
-          <ListRow
-            key={v.id}
-            testID={`summary-viewer-${v.id}`}
-            onPress={() => p.onSelect({ kind: 'viewer', id: v.id })}
-            a11y={`Viewer ${v.name}`}
-          >
+          <ListRow key={v.id} testID={`summary-viewer-${v.id}`} onPress={() => p.onSelect({ kind: 'viewer', id: v.id })}>
             <View style={styles.rowMain}>
               <AppText variant="bodyStrong">{v.name}</AppText>
               <AppText variant="small" tone="muted">{`Eye ${formatLength(v.eyeHeightM, p.units)}`}</AppText>
@@ -251,12 +236,12 @@ function Section({ title, children }: { title: string; children: ReactNode }) {
   );
 }
 
-function ListRow({ children, onPress, testID, a11y }: { children: ReactNode; onPress: () => void; testID: string; a11y: string }) {
+/** A row that selects an item; its accessible name is its visible text (name, figure, verdict). */
+function ListRow({ children, onPress, testID }: { children: ReactNode; onPress: () => void; testID: string }) {
   return (
     <Pressable
       testID={testID}
       role="button"
-      aria-label={a11y}
       onPress={onPress}
       style={({ hovered, pressed }) => [styles.listRow, (hovered || pressed) && styles.listRowHover]}
     >

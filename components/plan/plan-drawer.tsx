@@ -1,11 +1,14 @@
 /**
- * The phone's bottom drawer (not the PDF sheet). Collapsed: one strip with the selected item and its key numbers, in
- * thumb reach. Expanded: the details (editor or summary), scrolling, over the lower part of the plan.
+ * The phone's bottom drawer (not the PDF sheet). Folded: one strip with the selected item, its key numbers and the
+ * short caution, in thumb reach. Peek: the details (editor or summary) scroll in the lower part while the plan
+ * above keeps the selected item in view. Full: most of the screen, only when asked for.
  */
 import type { ReactNode } from 'react';
 import { Pressable, ScrollView, StyleSheet, View, useWindowDimensions } from 'react-native';
 import { AppText } from '@/components/ui';
-import { layout, palette, radii, spacing } from '@/constants/theme';
+import { focusRing, layout, palette, radii, spacing } from '@/constants/theme';
+import { useFocusVisible } from '@/hooks/use-focus-visible';
+import { SHORT_CAUTION } from '@/shared/cautions';
 import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
 import { adultRangesText } from '@/shared/project-optics';
 import type { PlacementDto, Scene } from '@/shared/schemas';
@@ -14,8 +17,8 @@ import { formatCoveredShare } from '@/shared/zone-verdict';
 import type { PlanSelection } from './plan-types';
 
 export interface PlanDrawerProps {
-  open: boolean;
-  onToggle: () => void;
+  size: DrawerSize;
+  onSize: (size: DrawerSize) => void;
   selection: PlanSelection;
   placement: PlacementDto | undefined;
   scene: Scene;
@@ -52,46 +55,86 @@ export function drawerSummary(p: Pick<PlanDrawerProps, 'selection' | 'placement'
   return { title: 'Project summary', numbers: zones || 'No zones yet' };
 }
 
+/**
+ * How much of the screen the drawer takes: folded (the strip only), a peek that leaves the selected
+ * item and its fan in view above it, or full height when the person asks for it.
+ */
+export type DrawerSize = 'folded' | 'peek' | 'full';
+
+/**
+ * Fractions of the window's height. The peek leaves a bit more than half the screen to the plan;
+ * full height still leaves room for the header and the tab bar (at 0.84 the drawer ran under the
+ * tab bar on a 390 × 844 phone and the tabs covered the last caution).
+ */
+export const DRAWER_HEIGHT_SHARE: Record<Exclude<DrawerSize, 'folded'>, number> = { peek: 0.44, full: 0.66 };
+
 export function PlanDrawer(p: PlanDrawerProps) {
   const { height } = useWindowDimensions();
   const { title, numbers } = drawerSummary(p);
+  const open = p.size !== 'folded';
   return (
-    <View style={[styles.drawer, p.open && { height: Math.round(height * 0.58) }]} testID="plan-drawer">
-      <Pressable
-        testID="drawer-toggle"
-        role="button"
-        aria-expanded={p.open}
-        aria-label={p.open ? 'Show more of the plan' : 'Show details'}
-        onPress={p.onToggle}
-        style={({ pressed }) => [styles.strip, pressed && styles.stripPressed]}
-      >
+    <View
+      style={[styles.drawer, open && { height: Math.round(height * DRAWER_HEIGHT_SHARE[p.size === 'full' ? 'full' : 'peek']) }]}
+      testID="plan-drawer"
+    >
+      <View style={styles.strip}>
         <View style={styles.grip} />
         <View style={styles.stripRow}>
           <View style={styles.stripText}>
             <AppText variant="label" numberOfLines={1} testID="drawer-title">
               {title}
             </AppText>
-            <AppText variant="small" tone="muted" numberOfLines={p.open ? 2 : 1} testID="drawer-numbers">
+            <AppText variant="small" tone="muted" numberOfLines={open ? 2 : 1} testID="drawer-numbers">
               {numbers}
             </AppText>
-            {p.open ? null : (
-              // The plan shows coverage, so the caution stays in view while the details are folded away.
-              <AppText variant="small" tone="stop" numberOfLines={2} testID="drawer-caution">
-                Mirrors show things smaller and farther away than they are. Read the cautions under Details.
-              </AppText>
-            )}
           </View>
-          <AppText variant="label" tone="glass">
-            {p.open ? 'Less ▾' : 'Details ▴'}
-          </AppText>
+          <View style={styles.buttons}>
+            {open ? (
+              <DrawerButton
+                testID="drawer-size"
+                label={p.size === 'full' ? 'Smaller' : 'Taller'}
+                onPress={() => p.onSize(p.size === 'full' ? 'peek' : 'full')}
+              />
+            ) : null}
+            <DrawerButton
+              testID="drawer-toggle"
+              label={open ? 'Less' : 'Details'}
+              expanded={open}
+              onPress={() => p.onSize(open ? 'folded' : 'peek')}
+            />
+          </View>
         </View>
-      </Pressable>
-      {p.open ? (
+        {/* The plan shows coverage, so the short caution stays whole and in view at every size. */}
+        <AppText variant="small" tone="stop" testID="drawer-caution">
+          {SHORT_CAUTION}
+        </AppText>
+      </View>
+      {open ? (
         <ScrollView style={styles.body} contentContainerStyle={styles.bodyContent} testID="plan-drawer-body">
           {p.children}
         </ScrollView>
       ) : null}
     </View>
+  );
+}
+
+/** A button whose name is its visible word (nothing else is replaced or hidden by pressing it). */
+export function DrawerButton(p: { testID: string; label: string; expanded?: boolean; onPress: () => void }) {
+  const { focusVisible, onFocus, onBlur } = useFocusVisible();
+  return (
+    <Pressable
+      testID={p.testID}
+      role="button"
+      aria-expanded={p.expanded}
+      onPress={p.onPress}
+      onFocus={onFocus}
+      onBlur={onBlur}
+      style={({ pressed }) => [styles.button, pressed && styles.buttonPressed, focusVisible && focusRing]}
+    >
+      <AppText variant="label" tone="glass">
+        {p.label}
+      </AppText>
+    </Pressable>
   );
 }
 
@@ -105,13 +148,23 @@ const styles = StyleSheet.create({
     boxShadow: '0 -4px 14px rgba(20,32,43,0.14)',
   },
   strip: {
-    minHeight: layout.minTarget + 12,
     paddingHorizontal: spacing.lg,
     paddingTop: spacing.xs,
     paddingBottom: spacing.sm,
     gap: spacing.xs,
   },
-  stripPressed: { backgroundColor: palette.chalk },
+  buttons: { flexDirection: 'row', gap: spacing.xs },
+  button: {
+    minHeight: layout.minTarget,
+    minWidth: layout.minTarget,
+    paddingHorizontal: spacing.md,
+    alignItems: 'center',
+    justifyContent: 'center',
+    borderRadius: radii.md,
+    borderWidth: 1,
+    borderColor: palette.rule,
+  },
+  buttonPressed: { backgroundColor: palette.chalk },
   grip: { alignSelf: 'center', width: 44, height: 5, borderRadius: 3, backgroundColor: palette.rule },
   stripRow: { flexDirection: 'row', alignItems: 'center', gap: spacing.md },
   stripText: { flex: 1, minWidth: 0 },

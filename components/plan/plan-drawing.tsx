@@ -22,9 +22,15 @@ import {
   ZoneGap,
   ZoneLabel,
   ZoneShapes,
+  mirrorLabelPlate,
+  NAME_MIN_SCALE,
+  viewerNamePlate,
+  zoneLabelParts,
 } from './plan-layers';
-import { gridLines, multiPolygonToPath, scaleBar, uncoveredPart } from './plan-geometry';
-import { toScreen, type PairM, type PlanView, type Size } from './plan-view';
+import { alongAzimuth, gridLines, multiPolygonToPath, scaleBar, uncoveredPart } from './plan-geometry';
+import { LABEL_PRIORITY, layoutPlanLabels, markerBox, type PlanLabelRequest } from './plan-labels';
+import { AIM_HANDLE_PX, MARKER_RADIUS_PX, toScreen, type PairM, type PlanView, type Size } from './plan-view';
+import type { LabelBox } from '@/shared/label-placement';
 import type { PlanSelection, PlanTool } from './plan-types';
 
 export interface DrawingProps {
@@ -73,6 +79,29 @@ export function PlanDrawing({
 
   const selectedPlacement = selection?.kind === 'placement' ? placements.find((p) => p.id === selection.id) : undefined;
   const selectedViewer = selectedPlacement ? scene.viewers.find((v) => v.id === selectedPlacement.viewerId) : undefined;
+  const labels = useMemo(
+    () =>
+      planLabelLayout(
+        scene,
+        placements,
+        zoneFraction,
+        view,
+        size,
+        selection,
+        selectedPlacement && canEdit ? selectedPlacement : undefined,
+        {
+          x: 0,
+          y: 0,
+          w: bar.lengthPx + 32,
+          h: 48,
+        },
+      ),
+    [scene, placements, zoneFraction, view, size, selection, selectedPlacement, canEdit, bar.lengthPx],
+  );
+  const at = (key: string) => {
+    const b = labels.get(key);
+    return b ? { plateX: b.x, plateY: b.y } : {};
+  };
 
   return (
     <Svg testID="plan-canvas" width={size.width} height={size.height} style={styles.svg}>
@@ -112,10 +141,17 @@ export function PlanDrawing({
         <Sightline from={toScreen(view, selectedViewer.positionM)} to={toScreen(view, selectedPlacement.positionM)} />
       ) : null}
       {scene.zones.map((z) => (
-        <ZoneLabel key={z.id} zone={z} fraction={zoneFraction.get(z.id) ?? Number.NaN} view={view} />
+        <ZoneLabel key={z.id} zone={z} fraction={zoneFraction.get(z.id) ?? Number.NaN} view={view} {...at(`zone-${z.id}`)} />
       ))}
       {scene.viewers.map((v) => (
-        <ViewerMarker key={v.id} viewer={v} view={view} selected={selection?.kind === 'viewer' && selection.id === v.id} />
+        <ViewerMarker
+          key={v.id}
+          viewer={v}
+          view={view}
+          selected={selection?.kind === 'viewer' && selection.id === v.id}
+          nameHidden={labels.get(`viewer-${v.id}`) === null}
+          {...at(`viewer-${v.id}`)}
+        />
       ))}
       {placements.map((p) => (
         <PlacementMarker
@@ -124,6 +160,8 @@ export function PlanDrawing({
           problem={evaluatedById.get(p.id)?.problem?.message ?? null}
           view={view}
           selected={selectedPlacement?.id === p.id}
+          labelHidden={labels.get(`placement-${p.id}`) === null}
+          {...at(`placement-${p.id}`)}
         />
       ))}
       {selectedPlacement && canEdit ? (
@@ -158,3 +196,73 @@ export function PlanDrawing({
 const styles = StyleSheet.create({
   svg: { position: 'absolute', left: 0, top: 0 },
 });
+
+/**
+ * The plan's labels for this view, placed clear of each other, the markers and the aim handle
+ * (plan-labels.ts). Viewer names show only from NAME_MIN_SCALE up, or when selected.
+ */
+function planLabelLayout(
+  scene: Scene,
+  placements: readonly PlacementDto[],
+  zoneFraction: Map<string, number>,
+  view: PlanView,
+  size: Size,
+  selection: PlanSelection,
+  aimed: PlacementDto | undefined,
+  /** The scale bar's plate at the top left, drawn over everything. */
+  scaleBarBox: LabelBox,
+): Map<string, LabelBox | null> {
+  const isSelected = (kind: string, id: string | number) => selection?.kind === kind && selection.id === id;
+  const requests: PlanLabelRequest[] = [];
+  for (const z of scene.zones) {
+    const parts = zoneLabelParts(z, zoneFraction.get(z.id) ?? Number.NaN, view);
+    const b = parts.preferred;
+    requests.push({
+      key: `zone-${z.id}`,
+      anchor: parts.anchor,
+      w: b.w,
+      h: b.h,
+      preferred: b,
+      clearance: 0,
+      priority: isSelected('zone', z.id) ? LABEL_PRIORITY.selected : LABEL_PRIORITY.zone,
+      mustShow: true,
+    });
+  }
+  for (const p of placements) {
+    const b = mirrorLabelPlate(p, view);
+    const selected = isSelected('placement', p.id);
+    requests.push({
+      key: `placement-${p.id}`,
+      anchor: toScreen(view, p.positionM),
+      w: b.w,
+      h: b.h,
+      preferred: b,
+      clearance: MARKER_RADIUS_PX,
+      priority: selected ? LABEL_PRIORITY.selected : LABEL_PRIORITY.mirror,
+      mustShow: selected,
+    });
+  }
+  for (const v of scene.viewers) {
+    const selected = isSelected('viewer', v.id);
+    if (!selected && view.scale < NAME_MIN_SCALE) continue;
+    const b = viewerNamePlate(v, view);
+    requests.push({
+      key: `viewer-${v.id}`,
+      anchor: toScreen(view, v.positionM),
+      w: b.w,
+      h: b.h,
+      preferred: b,
+      clearance: MARKER_RADIUS_PX,
+      priority: selected ? LABEL_PRIORITY.selected : LABEL_PRIORITY.viewer,
+      mustShow: selected,
+    });
+  }
+  // Markers drawn a little larger than their radius (the selected one's thick ring), and the aim handle.
+  const obstacles: LabelBox[] = [
+    scaleBarBox,
+    ...placements.map((p) => markerBox(toScreen(view, p.positionM), MARKER_RADIUS_PX + 3)),
+    ...scene.viewers.map((v) => markerBox(toScreen(view, v.positionM), MARKER_RADIUS_PX + 3)),
+  ];
+  if (aimed) obstacles.push(markerBox(alongAzimuth(toScreen(view, aimed.positionM), aimed.azimuthRad, AIM_HANDLE_PX), 16));
+  return layoutPlanLabels(requests, obstacles, { x: 0, y: 0, w: size.width, h: size.height });
+}

@@ -50,7 +50,17 @@ function LabelPlate({ x, y, width, lines, lineHeight = 16 }: { x: number; y: num
   );
 }
 
-const approxWidth = (text: string, px = 7.4) => text.length * px;
+export const approxWidth = (text: string, px = 7.4) => text.length * px;
+
+/** The plate (LabelPlate's rectangle) around text whose first baseline starts at (x, y). */
+export const plateBox = (x: number, y: number, width: number, lines: number, lineHeight = 16) => ({
+  x: x - 4,
+  y: y - lineHeight + 3,
+  w: width + 8,
+  h: lines * lineHeight + 4,
+});
+/** The text's first baseline for a plate placed at `box` (the inverse of plateBox). */
+const textAt = (box: { x: number; y: number }, lineHeight = 16): PairM => [box.x + 4, box.y + lineHeight - 3];
 
 export const WallsLayer = memo(function WallsLayer({
   walls,
@@ -131,17 +141,36 @@ export function ZoneGap({ d }: { d: string }) {
   ) : null;
 }
 
-export function ZoneLabel({ zone, fraction, view }: { zone: SceneZone; fraction: number; view: PlanView }) {
+/** A zone label's text, its width, and where it sits when nothing is in the way (centred on the zone's box). */
+export function zoneLabelParts(zone: SceneZone, fraction: number, view: PlanView) {
   const band = zoneBand(fraction);
   const xs = zone.polygonM.map((p) => p[0]);
   const ys = zone.polygonM.map((p) => p[1]);
-  const [cx, cy] = toScreen(view, [(Math.min(...xs) + Math.max(...xs)) / 2, (Math.min(...ys) + Math.max(...ys)) / 2]);
+  const anchor = toScreen(view, [(Math.min(...xs) + Math.max(...xs)) / 2, (Math.min(...ys) + Math.max(...ys)) / 2]);
   const pct = formatCoveredShare(fraction);
   const name = zone.name.length > 28 ? `${zone.name.slice(0, 27)}…` : zone.name;
-  const first = `${name} · ${pct}`;
   const second = bandWords[band];
-  const width = Math.max(approxWidth(first), approxWidth(second));
-  const x = cx - width / 2;
+  const width = Math.max(approxWidth(`${name} · ${pct}`), approxWidth(second));
+  return { band, pct, name, second, width, anchor, preferred: plateBox(anchor[0] - width / 2, anchor[1] - 4, width, 2) };
+}
+
+export function ZoneLabel({
+  zone,
+  fraction,
+  view,
+  plateX,
+  plateY,
+}: {
+  zone: SceneZone;
+  fraction: number;
+  view: PlanView;
+  /** Where the label layout put the plate (plan-labels.ts); its preferred spot when not given. */
+  plateX?: number;
+  plateY?: number;
+}) {
+  const { band, pct, name, second, width, preferred } = zoneLabelParts(zone, fraction, view);
+  const [x, y] = textAt({ x: plateX ?? preferred.x, y: plateY ?? preferred.y });
+  const cy = y + 4;
   return (
     <G>
       <LabelPlate x={x} y={cy - 4} width={width} lines={2} />
@@ -201,17 +230,33 @@ export const CoverageLayer = memo(function CoverageLayer({
   );
 });
 
+/** A viewer's name plate where nothing is in the way: centred under the marker. */
+export function viewerNamePlate(viewer: SceneViewer, view: PlanView) {
+  const [x, y] = toScreen(view, viewer.positionM);
+  const w = approxWidth(viewer.name, 6.6);
+  return plateBox(x - w / 2, y + MARKER_RADIUS_PX + 15, w, 1);
+}
+
 export const ViewerMarker = memo(function ViewerMarker({
   viewer,
   view,
   selected,
+  plateX,
+  plateY,
+  nameHidden,
 }: {
   viewer: SceneViewer;
   view: PlanView;
   selected: boolean;
+  /** Where the label layout put the name's plate; hidden when it found no clear spot. */
+  plateX?: number;
+  plateY?: number;
+  nameHidden?: boolean;
 }) {
   const [x, y] = toScreen(view, viewer.positionM);
   const r = MARKER_RADIUS_PX;
+  const preferredName = viewerNamePlate(viewer, view);
+  const nameAt = textAt({ x: plateX ?? preferredName.x, y: plateY ?? preferredName.y });
   // An almond eye: two arcs meeting at the corners, a pupil in the middle.
   const eye = `M${x - 10} ${y}Q${x} ${y - 9} ${x + 10} ${y}Q${x} ${y + 9} ${x - 10} ${y}Z`;
   return (
@@ -228,18 +273,10 @@ export const ViewerMarker = memo(function ViewerMarker({
       <Path pointerEvents="none" d={eye} fill="none" stroke={palette.asphalt} strokeWidth={1.8} />
       <Circle pointerEvents="none" cx={x} cy={y} r={3.2} fill={palette.asphalt} />
       {/* Names crowd the zone labels when zoomed far out; the selected one always shows. */}
-      {selected || view.scale >= NAME_MIN_SCALE ? (
+      {(selected || view.scale >= NAME_MIN_SCALE) && !nameHidden ? (
         <G>
-          <LabelPlate x={x - approxWidth(viewer.name, 6.6) / 2} y={y + r + 15} width={approxWidth(viewer.name, 6.6)} lines={1} />
-          <SvgText
-            pointerEvents="none"
-            x={x}
-            y={y + r + 15}
-            textAnchor="middle"
-            fontFamily={fonts.medium}
-            fontSize={12}
-            fill={palette.asphalt}
-          >
+          <LabelPlate x={nameAt[0]} y={nameAt[1]} width={approxWidth(viewer.name, 6.6)} lines={1} />
+          <SvgText pointerEvents="none" x={nameAt[0]} y={nameAt[1]} fontFamily={fonts.medium} fontSize={12} fill={palette.asphalt}>
             {viewer.name}
           </SvgText>
         </G>
@@ -248,16 +285,34 @@ export const ViewerMarker = memo(function ViewerMarker({
   );
 });
 
+/** A mirror's label plate where nothing is in the way: behind the mirror (its back is usually against a wall), clear of its fan. */
+export function mirrorLabelPlate(placement: Pick<PlacementDto, 'label' | 'positionM' | 'azimuthRad'>, view: PlanView) {
+  const p = toScreen(view, placement.positionM);
+  const labelW = approxWidth(placement.label);
+  const back = alongAzimuth(p, placement.azimuthRad + Math.PI, MARKER_RADIUS_PX + 10);
+  const bx = Math.cos(placement.azimuthRad + Math.PI);
+  const labelX = bx > 0.3 ? back[0] : bx < -0.3 ? back[0] - labelW : back[0] - labelW / 2;
+  const labelY = back[1] + 5 - 8 * Math.sin(placement.azimuthRad + Math.PI);
+  return plateBox(labelX, labelY, labelW, 1);
+}
+
 export const PlacementMarker = memo(function PlacementMarker({
   placement,
   problem,
   view,
   selected,
+  plateX,
+  plateY,
+  labelHidden,
 }: {
   placement: Pick<PlacementDto, 'id' | 'label' | 'positionM' | 'azimuthRad'>;
   problem: string | null;
   view: PlanView;
   selected: boolean;
+  /** Where the label layout put the label's plate; hidden when it found no clear spot. */
+  plateX?: number;
+  plateY?: number;
+  labelHidden?: boolean;
 }) {
   const p = toScreen(view, placement.positionM);
   const r = MARKER_RADIUS_PX;
@@ -268,12 +323,9 @@ export const PlacementMarker = memo(function PlacementMarker({
   const face = `M${left[0]} ${left[1]}Q${bulge[0]} ${bulge[1]} ${right[0]} ${right[1]}`;
   const tip = alongAzimuth(p, placement.azimuthRad, 22);
   const problemLines = problem ? wrapWords(problem, 34, 3) : [];
-  // The label sits behind the mirror (its back is usually against a wall), clear of its fan.
   const labelW = approxWidth(placement.label);
-  const back = alongAzimuth(p, placement.azimuthRad + Math.PI, r + 10);
-  const bx = Math.cos(placement.azimuthRad + Math.PI);
-  const labelX = bx > 0.3 ? back[0] : bx < -0.3 ? back[0] - labelW : back[0] - labelW / 2;
-  const labelY = back[1] + 5 - 8 * Math.sin(placement.azimuthRad + Math.PI);
+  const preferred = mirrorLabelPlate(placement, view);
+  const [labelX, labelY] = textAt({ x: plateX ?? preferred.x, y: plateY ?? preferred.y });
   return (
     <G>
       <Circle
@@ -287,10 +339,14 @@ export const PlacementMarker = memo(function PlacementMarker({
       />
       <Line pointerEvents="none" x1={p[0]} y1={p[1]} x2={tip[0]} y2={tip[1]} stroke={palette.glass} strokeWidth={2} />
       <Path pointerEvents="none" d={face} fill="none" stroke={palette.glass} strokeWidth={4} strokeLinecap="round" />
-      <LabelPlate x={labelX} y={labelY} width={labelW} lines={1} />
-      <SvgText pointerEvents="none" x={labelX} y={labelY} fontFamily={fonts.bold} fontSize={13} fill={palette.glass}>
-        {placement.label}
-      </SvgText>
+      {labelHidden ? null : (
+        <G testID={`placement-label-${placement.id}`}>
+          <LabelPlate x={labelX} y={labelY} width={labelW} lines={1} />
+          <SvgText pointerEvents="none" x={labelX} y={labelY} fontFamily={fonts.bold} fontSize={13} fill={palette.glass}>
+            {placement.label}
+          </SvgText>
+        </G>
+      )}
       {problemLines.length > 0 ? (
         <G testID={`placement-problem-${placement.id}`}>
           <LabelPlate

@@ -63,4 +63,9 @@ export function zoomAt(v: PlanView, factor: number, x: number, y: number): PlanV
   return { scale, offsetX: x - (x - v.offsetX) * k, offsetY: y - (y - v.offsetY) * k };
 }
 
+/** The same scale, moved so that a plan point sits in the middle of the frame (the phone's drawer re-centres on the selection). */
+export function centreOn(v: PlanView, size: Size, pointM: readonly [number, number]): PlanView {
+  return { scale: v.scale, offsetX: size.width / 2 - pointM[0] * v.scale, offsetY: size.height / 2 + pointM[1] * v.scale };
+}
+
 export const panBy = (v: PlanView, dx: number, dy: number): PlanView => ({ ...v, offsetX: v.offsetX + dx, offsetY: v.offsetY + dy });

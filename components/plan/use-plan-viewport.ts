@@ -6,7 +6,7 @@
 import { useCallback, useEffect, useLayoutEffect, useRef, useState, type RefObject } from 'react';
 import { useWindowDimensions, type LayoutChangeEvent, type View } from 'react-native';
 import { asDom } from './plan-dom';
-import { fitView, formatTransform, zoomAt, type Bounds, type PairM, type PlanView, type Size } from './plan-view';
+import { centreOn, fitView, formatTransform, zoomAt, type Bounds, type PairM, type PlanView, type Size } from './plan-view';
 
 export interface PlanViewport {
   size: Size;
@@ -20,6 +20,8 @@ export interface PlanViewport {
   setViewByPerson: (view: PlanView) => void;
   zoomBy: (k: number) => void;
   fit: () => void;
+  /** Keeps the scale and moves a plan point to the middle of the frame as it is now. */
+  centre: (pointM: PairM) => void;
 }
 
 const FIT_MARGIN_PX = 28;
@@ -90,5 +92,7 @@ export function usePlanViewport(frameRef: RefObject<View | null>, bounds: Bounds
     return () => dom.removeEventListener('wheel', onWheel);
   }, [frameRef, setViewByPerson]);
 
-  return { size, view, viewRef, originRef, onLayout, setViewByPerson, zoomBy, fit };
+  const centre = useCallback((pointM: PairM) => setView((v) => centreOn(v, size, pointM)), [size]);
+
+  return { size, view, viewRef, originRef, onLayout, setViewByPerson, zoomBy, fit, centre };
 }

@@ -9,12 +9,12 @@ import { useIsWide } from '@/hooks/use-breakpoint';
 import { usePlanEdits } from '@/hooks/use-plan-edits';
 import { usePlanHistory } from '@/hooks/use-plan-history';
 import { usePlanEvaluation } from '@/hooks/use-plan-evaluation';
-import type { CatalogueItemDto, CriteriaSettings, CriterionKind, ProjectDto, Scene } from '@/shared/schemas';
+import type { CatalogueItemDto, CriteriaSettings, CriterionKind, PlacementDto, ProjectDto, Scene } from '@/shared/schemas';
 import { AimAtZoneAction } from './aim-at-zone-action';
 import { markRedrawEnd } from './perf-marks';
 import { PlanCanvas, type PlanDrag } from './plan-canvas';
 import { PlanDetails } from './plan-details';
-import { PlanDrawer } from './plan-drawer';
+import { PlanDrawer, type DrawerSize } from './plan-drawer';
 import { roundM } from './plan-edits';
 import { PlanNotices } from './plan-notices';
 import { PlanToolbar } from './plan-toolbar';
@@ -23,6 +23,7 @@ import type { PairM } from './plan-view';
 import { moveViewer, removeSceneItem, sceneProblem, setCriteria, setViewerEyeHeight, setZoneCriterion } from './scene-edits';
 import { SceneItemEditor } from './scene-item-editor';
 import { UndoControls, useUndoKeys } from './undo-controls';
+import { usePlanKeys } from './use-plan-keys';
 import { usePlanTool } from './use-plan-tool';
 import { PhoneWorkspace, WideWorkspace } from './workspace-layouts';
 import { WorkspaceHeader } from './workspace-header';
@@ -34,7 +35,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
   const units = useDisplayUnits(project);
   const edits = usePlanEdits(project);
   const [selection, setSelection] = useState<PlanSelection>(null);
-  const [drawerOpen, setDrawerOpen] = useState(false);
+  const [drawerSize, setDrawerSize] = useState<DrawerSize>('folded');
   const selectedPlacementId = selection?.kind === 'placement' ? selection.id : null;
   const evaluation = usePlanEvaluation(edits.scene, edits.placements, catalogue, selectedPlacementId);
   const canEdit = project.canEdit;
@@ -69,7 +70,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
     saveScene: history.saveScene,
     createPlacement: history.createPlacement,
     select: setSelection,
-    onMirrorPlaced: () => setDrawerOpen(true),
+    onMirrorPlaced: () => setDrawerSize((d) => (d === 'folded' ? 'peek' : d)),
   });
 
   // Closes the performance measure of a live drag frame once React has committed it.
@@ -113,16 +114,36 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
 
   const select = (s: PlanSelection) => {
     setSelection(s);
-    if (s?.kind === 'placement' && !wide) setDrawerOpen(true);
+    // On a phone the details open to a peek: the plan above re-centres on the mirror and its fan.
+    if (s?.kind === 'placement' && !wide) setDrawerSize((d) => (d === 'folded' ? 'peek' : d));
   };
+
+  // Wide keyboard: Escape closes the editor (saving what was typed), arrows nudge through the history (undoable).
+  usePlanKeys(selection, canEdit, (action) => {
+    if (action.kind === 'close') {
+      if (selection?.kind === 'placement' && edits.writes.unsaved[selection.id]) edits.writes.save(selection.id);
+      setSelection(null);
+      return;
+    }
+    const [dx, dy] = action.deltaM;
+    if (selection?.kind === 'placement') {
+      const p = edits.placements.find((x) => x.id === selection.id);
+      if (p) history.savePlacement(p.id, { positionM: nudged(p.positionM, dx, dy) });
+    } else if (selection?.kind === 'viewer') {
+      const v = base.viewers.find((x) => x.id === selection.id);
+      if (v) void history.saveScene(moveViewer(base, v.id, nudged(v.positionM, dx, dy)));
+    }
+  });
 
   const tool = canEdit ? tools.tool : 'select';
   // The review (state, steps, comments, trail) sits above the details; its markers are drawn on the plan.
   const review = useReviewPlan({ project, placements: edits.placements, selection, wide });
 
+  // On a phone with a mirror selected, its editor comes first in the drawer's peek; the review panel follows.
+  const editorFirst = !wide && selection?.kind === 'placement';
   const details = (
     <>
-      {review.panel}
+      {editorFirst ? null : review.panel}
       <PlanDetails
         project={project}
         scene={edits.scene}
@@ -148,6 +169,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
           onAim={(aim) => history.savePlacement(selectedPlacementId, aim)}
         />
       ) : null}
+      {editorFirst ? review.panel : null}
     </>
   );
 
@@ -171,6 +193,8 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
         sketchPoints={tools.zoneToName ?? tools.sketch}
         sketchClosed={tools.tool === 'zone'}
         reserveBottom={90}
+        zoomAtBottom={wide ? undefined : drawerSize === 'folded' ? 100 : 8}
+        focus={!wide && drawerSize !== 'folded' ? focusOf(selection, edits.placements, edits.scene) : null}
       />
     ),
     overPlan: (
@@ -224,11 +248,11 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
   return (
     <PhoneWorkspace
       {...parts}
-      drawerOpen={drawerOpen}
+      drawerOpen={drawerSize !== 'folded'}
       drawer={
         <PlanDrawer
-          open={drawerOpen}
-          onToggle={() => setDrawerOpen((o) => !o)}
+          size={drawerSize}
+          onSize={setDrawerSize}
           selection={selection}
           placement={selectedPlacement}
           scene={edits.scene}
@@ -240,4 +264,22 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
       }
     />
   );
+}
+
+/** Where the selected item is, for the phone's plan to keep it in the middle above the drawer. */
+function focusOf(selection: PlanSelection, placements: readonly PlacementDto[], scene: Scene): { key: string; pointM: PairM } | null {
+  if (selection?.kind === 'placement') {
+    const p = placements.find((x) => x.id === selection.id);
+    return p ? { key: `placement-${p.id}`, pointM: [p.positionM[0], p.positionM[1]] } : null;
+  }
+  if (selection?.kind === 'viewer') {
+    const v = scene.viewers.find((x) => x.id === selection.id);
+    return v ? { key: `viewer-${v.id}`, pointM: [v.positionM[0], v.positionM[1]] } : null;
+  }
+  return null;
+}
+
+/** A point moved along one axis: only the moved coordinate is rounded (to the plan's millimetres), the other is kept as it was. */
+function nudged(p: readonly [number, number], dx: number, dy: number): PairM {
+  return [dx === 0 ? p[0] : roundM(p[0] + dx), dy === 0 ? p[1] : roundM(p[1] + dy)];
 }

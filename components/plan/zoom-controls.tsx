@@ -2,10 +2,24 @@ import { Pressable, StyleSheet, View } from 'react-native';
 import { layout, palette, radii, shadow, spacing } from '@/constants/theme';
 import { AppText } from '@/components/ui';
 
-/** Zoom in / out / fit, stacked at the top right, clear of the tools and the sheet below. */
-export function ZoomControls({ onZoomIn, onZoomOut, onFit }: { onZoomIn: () => void; onZoomOut: () => void; onFit: () => void }) {
+/**
+ * Zoom in / out / fit on the right: stacked at the top on a wide screen; on a phone a row low down,
+ * within reach of the thumb, above the floating tools.
+ */
+export function ZoomControls({
+  onZoomIn,
+  onZoomOut,
+  onFit,
+  atBottom,
+}: {
+  onZoomIn: () => void;
+  onZoomOut: () => void;
+  onFit: () => void;
+  /** Pixels from the plan's bottom edge for the phone's row (clear of the floating tools), or undefined for the wide stack. */
+  atBottom?: number;
+}) {
   return (
-    <View style={styles.stack} pointerEvents="box-none">
+    <View style={[styles.stack, atBottom !== undefined && [styles.row, { bottom: atBottom }]]} pointerEvents="box-none">
       <ZoomButton label="+" a11y="Zoom in" testID="plan-zoom-in" onPress={onZoomIn} />
       <ZoomButton label="−" a11y="Zoom out" testID="plan-zoom-out" onPress={onZoomOut} />
       <ZoomButton label="Fit" a11y="Fit the whole plan" testID="plan-fit" onPress={onFit} />
@@ -29,6 +43,7 @@ function ZoomButton({ label, a11y, testID, onPress }: { label: string; a11y: str
 
 const styles = StyleSheet.create({
   stack: { position: 'absolute', top: spacing.sm, right: spacing.sm, gap: spacing.sm },
+  row: { top: 'auto', flexDirection: 'row' },
   button: {
     width: layout.minTarget,
     height: layout.minTarget,

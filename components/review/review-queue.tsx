@@ -6,6 +6,7 @@ import { router } from 'expo-router';
 import { useRef, useState, type ElementRef } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { AppText } from '@/components/ui';
+import { openOnEnterOrSpace } from '@/components/ui/link-keys';
 import { focusRing, layout, palette, radii, shadow, spacing } from '@/constants/theme';
 import { useFocusVisible } from '@/hooks/use-focus-visible';
 import { PROJECT_STATE_LABELS, projectStates, type ProjectState } from '@/shared/schemas';
@@ -188,11 +189,10 @@ function QueueCard({ job, nowMs }: { job: QueueJob; nowMs: number }) {
   const { focusVisible, onFocus, onBlur } = useFocusVisible();
   const site = job.site || job.customer || 'No site given';
   return (
-    <View role="listitem">
+    <View role="listitem" onKeyDownCapture={openOnEnterOrSpace(() => openJob(job.id))}>
       <Pressable
         role="link"
         testID={`queue-row-${job.id}`}
-        aria-label={`${job.name}, ${site}, by ${job.ownerName}`}
         onPress={() => openJob(job.id)}
         onFocus={onFocus}
         onBlur={onBlur}

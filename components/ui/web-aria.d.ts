@@ -13,6 +13,8 @@ declare module 'react-native' {
   interface ViewProps {
     'aria-describedby'?: string;
     'aria-current'?: 'page' | boolean;
+    /** Seen before the Pressable inside, which stops Enter from bubbling (components/ui/link-keys.ts). */
+    onKeyDownCapture?: (event: WebKeyEvent) => void;
   }
   /** react-native-web adds hover and focus to Pressable's state; on native they are simply absent. */
   interface PressableStateCallbackType {

@@ -4,9 +4,11 @@
  * Unfolded: the details, scrolling, over the lower part of the top view.
  */
 import type { ReactNode } from 'react';
-import { Pressable, ScrollView, StyleSheet, View, useWindowDimensions } from 'react-native';
+import { ScrollView, StyleSheet, View, useWindowDimensions } from 'react-native';
 import { AppText } from '@/components/ui/text';
-import { layout, palette, radii, spacing } from '@/constants/theme';
+import { DrawerButton } from '@/components/plan/plan-drawer';
+import { palette, radii, spacing } from '@/constants/theme';
+import { SHORT_CAUTION } from '@/shared/cautions';
 import type { VehicleEvaluation, VehiclePlacement } from '@/hooks/use-vehicle-evaluation';
 import { formatFieldShare, verdictText } from '@/shared/project-optics';
 import { fieldLabel } from './vehicle-words';
@@ -40,14 +42,7 @@ export function VehicleDrawer(p: VehicleDrawerProps) {
   const { height } = useWindowDimensions();
   return (
     <View style={[styles.drawer, p.open && { height: Math.round(height * 0.6) }]} testID="vehicle-drawer">
-      <Pressable
-        testID="vehicle-drawer-toggle"
-        role="button"
-        aria-expanded={p.open}
-        aria-label={p.open ? 'Show more of the vehicle' : 'Show details'}
-        onPress={p.onToggle}
-        style={({ pressed }) => [styles.strip, pressed && styles.stripPressed]}
-      >
+      <View style={styles.strip}>
         <View style={styles.grip} />
         <View style={styles.stripRow}>
           <View style={styles.stripText}>
@@ -57,17 +52,14 @@ export function VehicleDrawer(p: VehicleDrawerProps) {
             <AppText variant="small" tone="muted" numberOfLines={3} testID="vehicle-drawer-numbers">
               {fieldsSummary(p.evaluation)}
             </AppText>
-            {p.open ? null : (
-              <AppText variant="small" tone="stop" testID="vehicle-drawer-caution">
-                Planning only: type approval and local rules decide. Mirrors show things smaller and farther away. Cautions under Details.
-              </AppText>
-            )}
           </View>
-          <AppText variant="label" tone="glass">
-            {p.open ? 'Less ▾' : 'Details ▴'}
-          </AppText>
+          <DrawerButton testID="vehicle-drawer-toggle" label={p.open ? 'Less' : 'Details'} expanded={p.open} onPress={p.onToggle} />
         </View>
-      </Pressable>
+        {/* Folded or not, the planning line and the short caution stay in view. */}
+        <AppText variant="small" tone="stop" testID="vehicle-drawer-caution">
+          {`Planning only: type approval and local rules decide. ${SHORT_CAUTION}`}
+        </AppText>
+      </View>
       {p.open ? (
         <ScrollView style={styles.body} contentContainerStyle={styles.bodyContent} testID="vehicle-drawer-body">
           {p.children}
@@ -87,13 +79,11 @@ const styles = StyleSheet.create({
     boxShadow: '0 -4px 14px rgba(20,32,43,0.14)',
   },
   strip: {
-    minHeight: layout.minTarget + 12,
     paddingHorizontal: spacing.lg,
     paddingTop: spacing.xs,
     paddingBottom: spacing.sm,
     gap: spacing.xs,
   },
-  stripPressed: { backgroundColor: palette.chalk },
   grip: { alignSelf: 'center', width: 44, height: 5, borderRadius: 3, backgroundColor: palette.rule },
   stripRow: { flexDirection: 'row', alignItems: 'center', gap: spacing.md },
   stripText: { flex: 1, minWidth: 0 },

@@ -34,6 +34,10 @@ export type UserDto = z.infer<typeof userDto>;
 export const userResponse = z.object({ user: userDto });
 export type UserResponse = z.infer<typeof userResponse>;
 
+/** The session probe: who is signed in, or null — being signed out is an answer, not an error. */
+export const sessionResponse = z.object({ user: userDto.nullable() });
+export type SessionResponse = z.infer<typeof sessionResponse>;
+
 export const usersResponse = z.object({ users: z.array(userDto) });
 export type UsersResponse = z.infer<typeof usersResponse>;
 

@@ -12,7 +12,7 @@ import { makeTestQueryClient, renderWithQuery } from './render';
 
 jest.mock('@/hooks/api', () => ({
   api: {
-    auth: { me: jest.fn() },
+    auth: { session: jest.fn() },
     sheets: { status: jest.fn(), issue: jest.fn(), pdfPath: jest.fn(), download: jest.fn(), email: jest.fn(), recipient: jest.fn() },
   },
 }));
@@ -58,7 +58,7 @@ function status(revisions: SheetRevisionDto[], changedSinceLast: boolean, approv
 /** A client already holding the sheet's status, so the component renders without asking the (mocked) API. */
 function renderWithStatus(s: SheetStatusDto, signedIn: UserDto = INSTALLER) {
   jest.mocked(api.sheets.status).mockResolvedValue(s);
-  jest.mocked(api.auth.me).mockResolvedValue({ user: signedIn });
+  jest.mocked(api.auth.session).mockResolvedValue({ user: signedIn });
   const client = makeTestQueryClient();
   client.setQueryData(sheetKeys.status(PROJECT_ID), s);
   client.setQueryData(sessionKeys.me(), signedIn);

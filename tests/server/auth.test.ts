@@ -71,6 +71,17 @@ describe('the session', () => {
     expect(me.body.user.email).toBe(EMAIL.installer);
   });
 
+  it('answers the start-up probe /session with 200 and no user when signed out, and with the user when signed in', async () => {
+    const out = await request(h.app).get('/api/auth/session');
+    expect(out.status).toBe(200);
+    expect(out.body).toEqual({ user: null });
+    const agent = await h.signedIn(EMAIL.installer);
+    const inside = await agent.get('/api/auth/session');
+    expect(inside.status).toBe(200);
+    expect(inside.body.user.email).toBe(EMAIL.installer);
+    expect(inside.body.user).not.toHaveProperty('passwordHash');
+  });
+
   it('ends on sign-out: 204, and /me is 401 after', async () => {
     const agent = await h.signedIn(EMAIL.installer);
     expect((await agent.post('/api/auth/sign-out')).status).toBe(204);

@@ -76,6 +76,12 @@ export function authRoutes(deps: AuthDeps): Router {
     res.status(204).end();
   });
 
+  // The app's start-up probe: a signed-out visitor is expected, so it is a 200 with no user
+  // (a 401 here put a failed request in every visitor's browser console).
+  r.get('/session', (req, res) => {
+    res.json({ user: req.user ? toUserDto(req.user) : null });
+  });
+
   r.get('/me', requireUser, (req, res) => {
     res.json({ user: toUserDto(req.user!) });
   });
