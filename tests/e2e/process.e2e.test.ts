@@ -38,7 +38,7 @@ describe('the server process that npm start runs', () => {
     try {
       const until = Date.now() + 60_000;
       while (!out.includes('Sightfan is serving') && Date.now() < until) await new Promise((r) => setTimeout(r, 100));
-      expect(out).toMatch(/database ready at .*p\.sqlite \(migrations applied\)/);
+      expect(out).toMatch(/database ready: SQLite at .*p\.sqlite \(migrations applied\)/);
       expect(out).toMatch(/demo data seeded/);
       expect(out).toMatch(/fake mail server listening on 127\.0\.0\.1:\d+/);
 
