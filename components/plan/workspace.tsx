@@ -29,6 +29,8 @@ import { PhoneWorkspace, WideWorkspace } from './workspace-layouts';
 import { WorkspaceHeader } from './workspace-header';
 import { ZoneNamePrompt } from './zone-name-prompt';
 import { useReviewPlan } from '@/components/review/use-review-plan';
+import { AppText } from '@/components/ui';
+import { CAUTION_SENTENCES } from '@/shared/cautions';
 
 export function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: CatalogueItemDto[] }) {
   const wide = useIsWide();
@@ -143,6 +145,13 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
   const editorFirst = !wide && selection?.kind === 'placement';
   const details = (
     <>
+      {/* On the wide screen the review panel can fill the side panel's first screenful: the first
+          caution stays on top, in view beside the coverage (the phone's drawer carries its own). */}
+      {wide ? (
+        <AppText variant="small" tone="stop" testID="side-caution">
+          {`${CAUTION_SENTENCES[0]} All cautions are listed below.`}
+        </AppText>
+      ) : null}
       {editorFirst ? null : review.panel}
       <PlanDetails
         project={project}
