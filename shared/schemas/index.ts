@@ -8,3 +8,4 @@ export * from './criteria';
 export * from './rules';
 export * from './review';
 export * from './vehicle';
+export * from './files';

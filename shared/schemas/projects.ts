@@ -8,6 +8,7 @@ import { labelRule, mountingHeightRule, placementRules, planCoordinateRule, proj
 import { zodNumber, zodText } from './zod-rules';
 import { mirrorClass, vehicle, vehicleRuleSet } from './vehicle';
 import { reviewFieldsDto } from './review';
+import { underlay } from './files';
 
 const coord = zodNumber(planCoordinateRule('metric'));
 const pair = z.tuple([coord, coord], { message: 'A point needs x and y.' });
@@ -81,6 +82,8 @@ export const scene = z
     vehicle: vehicle.optional(),
     /** The rules a vehicle job is scored by; absent means the vehicle kind's default (`defaultRuleSet`). */
     ruleSet: vehicleRuleSet.optional(),
+    /** An uploaded plan drawn under the scene, with its calibration (shared/schemas/files.ts). */
+    underlay: underlay.optional(),
   })
   .superRefine((s, ctx) => {
     if (s.vehicle && (s.walls.length || s.zones.length || s.viewers.length)) {
