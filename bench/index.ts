@@ -7,6 +7,7 @@ import { runBoundedBench } from './bounded.bench';
 import { runLoadBench } from './load.bench';
 import { runReviewBench } from './review.bench';
 import { runQuickBench } from './quick.bench';
+import { runAimBench } from './aim.bench';
 
 const runners: Array<() => Promise<void>> = [
   runOpticsBench,
@@ -15,6 +16,7 @@ const runners: Array<() => Promise<void>> = [
   runBoundedBench,
   runReviewBench,
   runQuickBench,
+  runAimBench,
   runPlanBench,
   runLoadBench,
 ];
@@ -29,6 +31,8 @@ async function main(): Promise<void> {
   if (process.env.BENCH_ONLY === 'review') return runReviewBench();
   // BENCH_ONLY=quick: ranking the demo catalogue for one quick-sizing question.
   if (process.env.BENCH_ONLY === 'quick') return runQuickBench();
+  // BENCH_ONLY=aim: "aim at this zone" on the demo and at the project limits.
+  if (process.env.BENCH_ONLY === 'aim') return runAimBench();
   for (const run of runners) await run();
 }
 

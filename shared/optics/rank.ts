@@ -4,6 +4,7 @@ import { distance, type Vec3 } from '../geometry/vec3';
 import { coverage, fanRegion, prepareCoverage } from './coverage';
 import { OpticsInputError, requirePoint, requirePositive } from './errors';
 import { checkMirror, domeMountTiltRad, sphereRadiusM, type Mirror } from './mirror';
+import { wallsThroughMirror } from './mount';
 import { recognisableRange } from './paraxial';
 import { poseFromAim, type Pose } from './pose';
 import type { Wall } from './walls';
@@ -108,7 +109,9 @@ type Candidate = {
  * walls, polygon-clipping) in order of their bound until the next bound ranks below the
  * `limit`-th best exact option: no candidate left out could have entered the list. A zone
  * hidden behind racking therefore costs more exact traces, never a wrong first answer.
- * Candidates whose eye is behind the mirror are skipped.
+ * Candidates whose eye is behind the mirror are skipped, and so are candidates whose mirror body
+ * would pass through a wall or rack at that aim (the rule `wallsThroughMirror` states; a mirror
+ * cannot hang inside a wall, so such an aim is no answer however much it would show).
  */
 export function rankOptions(input: RankInput): RankedOption[] {
   const zone = checkZone(input.zone);
@@ -142,6 +145,7 @@ export function rankOptions(input: RankInput): RankedOption[] {
   });
   input.mountPoints.forEach((m, i) => requirePoint(`mountPoints[${i}].vertexM`, m.vertexM, 'mount point'));
   const pieces = signedPieces(zone);
+  const walls = input.walls ?? [];
 
   const candidates: Candidate[] = [];
   for (const item of input.catalogue) {
@@ -155,9 +159,11 @@ export function rankOptions(input: RankInput): RankedOption[] {
       for (const aim of aimsFor(item.mirror, mount.vertexM, zone, input.aims)) {
         let fraction = 0;
         try {
+          const pose = poseFromAim({ vertexM: mount.vertexM, ...aim });
+          if (walls.length > 0 && wallsThroughMirror({ mirror: item.mirror, pose, walls }).length > 0) continue;
           const prepared = prepareCoverage({
             mirror: item.mirror,
-            pose: poseFromAim({ vertexM: mount.vertexM, ...aim }),
+            pose,
             eyeM,
             planeHeightM: input.planeHeightM,
             maxRangeM: reach,

@@ -17,8 +17,15 @@ import { targetHeightM } from './targets';
 const FINE_STEP_RAD = (2.5 * Math.PI) / 180;
 const FINE_OFFSETS = [-2, -1, 0, 1, 2];
 
-/** Most aims one "aim at this zone" traces: 36 default + the present one + 25 fine. */
-export const AIM_CANDIDATES_MAX = 36 + 1 + FINE_OFFSETS.length ** 2;
+/** Most aims one "aim at this zone" traces: 36 default + 25 about the present aim + 25 fine. */
+export const AIM_CANDIDATES_MAX = 36 + 2 * FINE_OFFSETS.length ** 2;
+
+/** 5 × 5 aims 2.5° apart about `aim` (the centre included). */
+function gridAbout(aim: Aim): Aim[] {
+  return FINE_OFFSETS.flatMap((da) =>
+    FINE_OFFSETS.map((dt) => ({ azimuthRad: aim.azimuthRad + da * FINE_STEP_RAD, tiltDownRad: aim.tiltDownRad + dt * FINE_STEP_RAD })),
+  );
+}
 
 export type AimAtZoneResult =
   | {
@@ -73,19 +80,15 @@ export function aimAtZone(input: {
 
   try {
     const present: Aim = { azimuthRad: p.azimuthRad, tiltDownRad: p.tiltDownRad };
-    const coarse = search([...defaultAims(vertexM, [zone.polygonM]), present]);
+    // The default fan about the zone, plus a close grid about the present aim: a mirror hung on a
+    // face can often turn only a few degrees before its rim meets the wall, and those aims would
+    // fall between the fan's spokes (aims that put the mirror into a wall are skipped by the search).
+    const coarse = search([...defaultAims(vertexM, [zone.polygonM]), ...gridAbout(present)]);
     if (!coarse || coarse.fraction <= 0)
       return {
         problem: `No aim lets this mirror show any of ${zone.name} to its viewer from where it is mounted; move the mirror or the viewer.`,
       };
-    const fine = search(
-      FINE_OFFSETS.flatMap((da) =>
-        FINE_OFFSETS.map((dt) => ({
-          azimuthRad: coarse.aim.azimuthRad + da * FINE_STEP_RAD,
-          tiltDownRad: coarse.aim.tiltDownRad + dt * FINE_STEP_RAD,
-        })),
-      ),
-    );
+    const fine = search(gridAbout(coarse.aim));
     const best = tidy(fine && fine.fraction > coarse.fraction ? fine.aim : coarse.aim);
     const shareBefore = zoneShare(scene, placements, catalogue, zone.id);
     const shareAfter = zoneShare(

@@ -14,6 +14,8 @@ import {
   type Vec3,
   type Wall,
 } from '../../../shared/optics';
+import { wallsThroughMirror } from '../../../shared/optics/mount';
+import fc from 'fast-check';
 import { circleRing } from '../../../shared/geometry/polygon';
 
 describe('zone coverage', () => {
@@ -219,6 +221,54 @@ describe('ranking against a brute-force search with walls', () => {
     const ranked = rankOptions({ catalogue, mountPoints, eyeM, zone, target, walls, maxRangeM, limit: 8 });
     expect(ranked.map((o) => [o.item.id, o.mountPoint.id, o.fraction])).toEqual(
       brute.slice(0, 8).map((o) => [o.item, o.mount, o.fraction]),
+    );
+  });
+});
+
+describe('sizing search beside a wall', () => {
+  // An invented corner: a wall along x = 0, mount points a hand's width out from its east face.
+  // However good an aim would look, one that swings the mirror's rim into the wall is no answer.
+  const walls: Wall[] = [{ aM: [0, -10], bM: [0, 10], heightM: 3 }];
+  const catalogue: CatalogueItem[] = [
+    { id: 'r600', mirror: { shape: 'round', diameterM: 0.6, radiusM: 0.8 }, cost: 100 },
+    { id: 'r800', mirror: { shape: 'round', diameterM: 0.8, radiusM: 1.0 }, cost: 150 },
+    { id: 'rect', mirror: { shape: 'rect', widthM: 0.6, heightM: 0.4, radiusM: 1.2 }, cost: 120 },
+  ];
+
+  it('ranks only options whose mirror is clear of the wall, wherever the zone and eye are', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 1, max: 8, noNaN: true }),
+        fc.double({ min: -6, max: 6, noNaN: true }),
+        fc.double({ min: 1, max: 8, noNaN: true }),
+        fc.double({ min: -6, max: 6, noNaN: true }),
+        fc.double({ min: 0.02, max: 0.5, noNaN: true }),
+        (zx, zy, ex, ey, gapM) => {
+          const zone: Polygon = [
+            [
+              [zx - 1, zy - 1],
+              [zx + 1, zy - 1],
+              [zx + 1, zy + 1],
+              [zx - 1, zy + 1],
+            ],
+          ];
+          const ranked = rankOptions({
+            catalogue,
+            mountPoints: [{ id: 'face', vertexM: [gapM, 0, 2.6] }],
+            eyeM: [ex, ey, 1.6],
+            zone,
+            target: { sizeM: 1.7, minAngleRad: ARCMIN_RAD * 10 },
+            walls,
+            limit: 5,
+          });
+          for (const o of ranked) {
+            expect(
+              wallsThroughMirror({ mirror: o.item.mirror, pose: poseFromAim({ vertexM: o.mountPoint.vertexM, ...o.aim }), walls }),
+            ).toEqual([]);
+          }
+        },
+      ),
+      { numRuns: 15 },
     );
   });
 });

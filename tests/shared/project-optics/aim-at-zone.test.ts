@@ -1,6 +1,6 @@
 /** "Aim at this zone" (shared/project-optics/aim-at-zone.ts): the engine's sizing search for one mirror and one zone. */
 import * as fc from 'fast-check';
-import { aimAtZone, ProjectEvaluator } from '../../../shared/project-optics';
+import { aimAtZone, mountProblem, ProjectEvaluator } from '../../../shared/project-optics';
 import type { CatalogueItemDto, PlacementDto, Scene } from '../../../shared/schemas';
 
 /** An invented one-item catalogue: a 600 mm round mirror cut from a 0.8 m sphere. */
@@ -103,5 +103,64 @@ describe('aim at this zone', () => {
     const p = testPlacement({ positionM: [-30, 3], heightM: 0.3 });
     const out = aimAtZone({ scene: behind, placements: [p], catalogue: TEST_CATALOGUE, placementId: p.id, zoneId: 'bay' });
     expect(out).toHaveProperty('problem');
+  });
+
+  describe('with the mirror hung on a wall', () => {
+    // An invented store: a 3 m wall runs north–south along x = 0; the mirror's back sits on its east
+    // face. Turning a mirror that sits on a face swings half its rim into the wall, so most aims
+    // the search could try are not mountable. The 600 mm mirror cut from a 0.8 m sphere bulges
+    // 0.8 − √(0.8² − 0.3²) ≈ 58 mm (sagitta, from the sphere's geometry).
+    const wallScene = (zoneAt: [number, number], viewerAt: [number, number]): Scene => ({
+      walls: [{ id: 'w-east', kind: 'wall', aM: [0, -8], bM: [0, 8], heightM: 3 }],
+      zones: [
+        {
+          id: 'bay',
+          name: 'Aisle end',
+          polygonM: [
+            [zoneAt[0] - 1, zoneAt[1] - 1],
+            [zoneAt[0] + 1, zoneAt[1] - 1],
+            [zoneAt[0] + 1, zoneAt[1] + 1],
+            [zoneAt[0] - 1, zoneAt[1] + 1],
+          ],
+          target: { kind: 'adult' },
+        },
+      ],
+      viewers: [{ id: 'v1', name: 'Driver', positionM: viewerAt, eyeHeightM: 1.6 }],
+    });
+
+    it('only ever proposes an aim at which the mirror is clear of the wall, wherever the zone and viewer are', () => {
+      fc.assert(
+        fc.property(
+          fc.double({ min: 1.5, max: 8, noNaN: true }),
+          fc.double({ min: -6, max: 6, noNaN: true }),
+          fc.double({ min: 1.5, max: 8, noNaN: true }),
+          fc.double({ min: -6, max: 6, noNaN: true }),
+          fc.double({ min: 0.065, max: 0.4, noNaN: true }),
+          (zx, zy, vx, vy, gapM) => {
+            const s = wallScene([zx, zy], [vx, vy]);
+            const p = testPlacement({ positionM: [gapM, 0], heightM: 2.6, azimuthRad: 0, tiltDownRad: 0 });
+            const out = aimAtZone({ scene: s, placements: [p], catalogue: TEST_CATALOGUE, placementId: p.id, zoneId: 'bay' });
+            if ('problem' in out) return;
+            const mirror = TEST_CATALOGUE[0].mirror;
+            expect(mountProblem({ mirror, placement: { ...p, ...out.aim }, scene: s })).toBeNull();
+          },
+        ),
+        { numRuns: 12 },
+      );
+    });
+
+    it('still finds a better aim when the best unconstrained one would swing the rim into the wall', () => {
+      // Zone to the north-east, viewer out east: the mirror would face half-way between them,
+      // some 15° north of east, but it hangs 100 mm out from the wall, so its rim meets the wall
+      // after a turn of about 5°.
+      const s = wallScene([5, 4.5], [6, -1]);
+      const p = testPlacement({ positionM: [0.1, 0], heightM: 2.6, azimuthRad: -0.05, tiltDownRad: 0 });
+      const mirror = TEST_CATALOGUE[0].mirror;
+      expect(mountProblem({ mirror, placement: p, scene: s })).toBeNull();
+      const out = aimAtZone({ scene: s, placements: [p], catalogue: TEST_CATALOGUE, placementId: p.id, zoneId: 'bay' });
+      if ('problem' in out) throw new Error(out.problem);
+      expect(mountProblem({ mirror, placement: { ...p, ...out.aim }, scene: s })).toBeNull();
+      expect(out.shareAfter).toBeGreaterThan(out.shareBefore);
+    });
   });
 });
