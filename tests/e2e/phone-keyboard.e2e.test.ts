@@ -2,8 +2,8 @@
  * The plan on a phone and from a keyboard, in the real product: a tap on a mirror opens the
  * editor and it stays open, the drawer peeks with the mirror in view above it, no control covers a
  * caution at either size, a keyboard-only person opens a project and selects, nudges and closes a
- * mirror, and expected answers (signed out, a section the role may not visit) leave no failed
- * request behind.
+ * mirror, the wide side panel opens with a caution in view, and expected answers (signed out, a
+ * section the role may not visit) leave no failed request behind.
  */
 import type { Locator, Page } from 'playwright-core';
 import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seeders/demo';
@@ -183,6 +183,19 @@ describe('the plan and the list from a keyboard on a wide screen', () => {
     await page.keyboard.press(key === ' ' ? 'Space' : key);
     await page.waitForURL(/\/projects\/\d+$/);
     projectId = Number(/\/projects\/(\d+)$/.exec(page.url())![1]);
+  });
+
+  it('shows the first caution at the top of the side panel, in view beside the coverage without scrolling', async () => {
+    const caution = byTestId(page, 'side-caution');
+    await caution.waitFor({ state: 'visible' });
+    expect(await caution.textContent()).toMatch(/smaller and farther away than they are/);
+    const box = (await caution.boundingBox())!;
+    const plan = (await byTestId(page, 'plan-canvas').boundingBox())!;
+    // Inside the window as the job opens, and beside the plan (to its right), not under it.
+    expect(box.y).toBeGreaterThanOrEqual(0);
+    expect(box.y + box.height).toBeLessThanOrEqual(WIDE.height);
+    expect(box.x).toBeGreaterThanOrEqual(plan.x + plan.width - 1);
+    expect(await coveredBy(page, 'side-caution')).toEqual([]);
   });
 
   it('reaches a mirror on the plan with Tab, shows the focus, and selects it with Enter', async () => {
