@@ -11,6 +11,7 @@ import {
   fieldsBefore,
   placementBody,
   recordStep,
+  recordTyping,
   renumberPlacement,
   takeRedo,
   takeUndo,
@@ -28,6 +29,10 @@ export interface PlanHistoryDeps {
   placements: readonly PlacementDto[];
   saveScene: (next: Scene) => Promise<boolean>;
   savePlacement: (id: number, patch: PlacementPatch) => void;
+  /** The placement write path's own change (saved after `autosaveMs` of quiet): what the mirror editor types into. */
+  changePlacement: (id: number, patch: PlacementPatch, autosaveMs: number) => void;
+  /** The placement write path's own remove, which rejects with the server's error (the editor shows it). */
+  removePlacement: (id: number) => Promise<void>;
   createPlacement: (body: CreatePlacementBody) => Promise<PlacementDto | null>;
   deletePlacement: (id: number) => Promise<boolean>;
 }
@@ -69,6 +74,27 @@ export function usePlanHistory(deps: PlanHistoryDeps) {
       if (p) record({ kind: 'placement-change', id, before: fieldsBefore(p, patch), after: patch });
       setProblem(null);
       depsRef.current.savePlacement(id, patch);
+    },
+    [record],
+  );
+
+  /** A keystroke in the mirror editor: one run of typing on a mirror is one step. */
+  const typePlacement = useCallback(
+    (id: number, patch: PlacementPatch, autosaveMs = 0) => {
+      const p = depsRef.current.placements.find((x) => x.id === id);
+      if (p) setHistory(recordTyping(ref.current, id, fieldsBefore(p, patch), patch, Date.now()));
+      setProblem(null);
+      depsRef.current.changePlacement(id, patch, autosaveMs);
+    },
+    [setHistory],
+  );
+
+  /** The editor's "remove" (after its confirmation): recorded once the server has removed the mirror. */
+  const removeFromEditor = useCallback(
+    async (id: number) => {
+      const p = depsRef.current.placements.find((x) => x.id === id);
+      await depsRef.current.removePlacement(id);
+      if (p) record({ kind: 'placement-remove', id, body: placementBody(p) });
     },
     [record],
   );
@@ -140,6 +166,8 @@ export function usePlanHistory(deps: PlanHistoryDeps) {
   return {
     saveScene,
     savePlacement,
+    typePlacement,
+    removeFromEditor,
     createPlacement,
     deletePlacement,
     undo: useCallback(() => void go(takeUndo), [go]),

@@ -13,7 +13,14 @@ import type { PlacementEdits } from '@/hooks/use-placement-writes';
 
 export type PlanStep =
   | { kind: 'scene'; before: Scene; after: Scene }
-  | { kind: 'placement-change'; id: number; before: PlacementEdits; after: PlacementEdits }
+  | {
+      kind: 'placement-change';
+      id: number;
+      before: PlacementEdits;
+      after: PlacementEdits;
+      /** When typed in the mirror editor: the time of the last keystroke (ms), so a run of typing is one step. */
+      typedAt?: number;
+    }
   | { kind: 'placement-add'; id: number; body: CreatePlacementBody }
   | { kind: 'placement-remove'; id: number; body: CreatePlacementBody };
 
@@ -49,11 +56,43 @@ export function recordStep(history: PlanHistory, step: PlanStep, limit = HISTORY
   return { past: past.length > limit ? past.slice(past.length - limit) : past, future: [] };
 }
 
+/**
+ * Typing in the mirror editor sends a change per keystroke; one run of typing (keystrokes on the same
+ * mirror, each within `TYPING_RUN_MS` of the last, nothing else recorded between) is one step, so
+ * undo puts back the value from before the run, not one character.
+ */
+export const TYPING_RUN_MS = 2000;
+
+/** Records a keystroke's change: `before` holds the changed fields as they were just before it. */
+export function recordTyping(
+  history: PlanHistory,
+  id: number,
+  before: PlacementEdits,
+  after: PlacementEdits,
+  atMs: number,
+  runMs = TYPING_RUN_MS,
+): PlanHistory {
+  const last = history.past[history.past.length - 1];
+  if (last?.kind === 'placement-change' && last.id === id && last.typedAt !== undefined && atMs - last.typedAt <= runMs) {
+    // Fields already in the run keep their value from before the run.
+    const merged: PlanStep = { ...last, before: { ...before, ...last.before }, after: { ...last.after, ...after }, typedAt: atMs };
+    return { past: [...history.past.slice(0, -1), merged], future: [] };
+  }
+  return recordStep(history, { kind: 'placement-change', id, before, after, typedAt: atMs });
+}
+
+/** A step as it leaves the past: no longer open for more typing. */
+function closed(step: PlanStep): PlanStep {
+  if (step.kind !== 'placement-change' || step.typedAt === undefined) return step;
+  const { typedAt: _typedAt, ...rest } = step;
+  return rest;
+}
+
 /** The step to run to undo the last edit, and the history once it has run; null when nothing is left. */
 export function takeUndo(history: PlanHistory): { run: PlanStep; history: PlanHistory } | null {
   const last = history.past[history.past.length - 1];
   if (!last) return null;
-  return { run: inverseStep(last), history: { past: history.past.slice(0, -1), future: [...history.future, last] } };
+  return { run: inverseStep(last), history: { past: history.past.slice(0, -1), future: [...history.future, closed(last)] } };
 }
 
 /** The step to run to redo the last undone edit, and the history once it has run; null when nothing is left. */

@@ -3,7 +3,7 @@
  * state (usePlanTool), the evaluation, and the selection, arranged by WideWorkspace or PhoneWorkspace.
  * Scene changes are the pure functions of scene-edits.ts.
  */
-import { useCallback, useLayoutEffect, useState } from 'react';
+import { useCallback, useLayoutEffect, useMemo, useState } from 'react';
 import { useDisplayUnits } from '@/components/placement/use-display-units';
 import { useIsWide } from '@/hooks/use-breakpoint';
 import { usePlanEdits } from '@/hooks/use-plan-edits';
@@ -49,9 +49,17 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
     placements: edits.writes.placements,
     saveScene: edits.saveScene,
     savePlacement: edits.savePlacement,
+    changePlacement: edits.writes.change,
+    removePlacement: edits.writes.remove,
     createPlacement: edits.createPlacement,
     deletePlacement: edits.deletePlacement,
   });
+  // The mirror editor types and removes through the history too, so both can be undone.
+  const { typePlacement, removeFromEditor } = history;
+  const editorWrites = useMemo(
+    () => ({ ...edits.writes, change: typePlacement, remove: removeFromEditor }),
+    [edits.writes, typePlacement, removeFromEditor],
+  );
   useUndoKeys(wide && canEdit, history.undo, history.redo);
   const [editProblem, setEditProblem] = useState<string | null>(null);
   /** A scene edit from the editor or a handle: said in the schema's words and not sent when the API would refuse it. */
@@ -157,7 +165,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
         project={project}
         scene={edits.scene}
         placements={edits.placements}
-        writes={edits.writes}
+        writes={editorWrites}
         evaluation={evaluation}
         catalogue={catalogue}
         units={units}

@@ -124,6 +124,8 @@ describe('undo through the write paths', () => {
       placements: [testPlacement()],
       saveScene: jest.fn(async () => true),
       savePlacement: jest.fn(),
+      changePlacement: jest.fn(),
+      removePlacement: jest.fn(async () => undefined),
       createPlacement: jest.fn(async (body) => ({ ...testPlacement(), ...body, id: 99 }) as PlacementDto),
       deletePlacement: jest.fn(async () => true),
       ...over,
@@ -139,6 +141,37 @@ describe('undo through the write paths', () => {
     const { id: _id, version: _v, updatedAt: _u, projectId: _p, ...values } = testPlacement();
     expect(d.createPlacement).toHaveBeenCalledWith({ ...values, mirrorClass: null, servesFieldIds: null });
     expect(result.current.canRedo).toBe(true);
+  });
+
+  it('undoes a run of typing in the mirror editor as one step, back to the value from before the run', async () => {
+    const d = deps();
+    const before = testPlacement().heightM;
+    const { result } = renderHook(() => usePlanHistory(d));
+    // "3", "3.", "3.4": three keystrokes on the height, each a change the editor autosaves.
+    for (const h of [3, 3, 3.4]) act(() => result.current.typePlacement(7, { heightM: h }, 900));
+    expect(d.changePlacement).toHaveBeenLastCalledWith(7, { heightM: 3.4 }, 900);
+    await act(async () => result.current.undo());
+    expect(d.savePlacement).toHaveBeenCalledTimes(1);
+    expect(d.savePlacement).toHaveBeenCalledWith(7, { heightM: before });
+    expect(result.current.canUndo).toBe(false);
+    await act(async () => result.current.redo());
+    expect(d.savePlacement).toHaveBeenLastCalledWith(7, { heightM: 3.4 });
+  });
+
+  it('records the editor’s confirmed remove once the server has removed the mirror, so undo brings it back', async () => {
+    const d = deps();
+    const { result } = renderHook(() => usePlanHistory(d));
+    await act(() => result.current.removeFromEditor(7));
+    expect(d.removePlacement).toHaveBeenCalledWith(7);
+    await act(async () => result.current.undo());
+    expect(d.createPlacement).toHaveBeenCalledTimes(1);
+  });
+
+  it('records nothing when the editor’s remove is refused, and passes the refusal on for the editor to show', async () => {
+    const d = deps({ removePlacement: jest.fn(async () => Promise.reject(new Error('Refused.'))) });
+    const { result } = renderHook(() => usePlanHistory(d));
+    await expect(act(() => result.current.removeFromEditor(7))).rejects.toThrow('Refused.');
+    expect(result.current.canUndo).toBe(false);
   });
 
   it('keeps a scene step to undo again when its save is refused (the save shows its own conflict notice)', async () => {

@@ -10,7 +10,9 @@ import {
   HISTORY_LIMIT,
   placementBody,
   recordStep,
+  recordTyping,
   renumberPlacement,
+  TYPING_RUN_MS,
   takeRedo,
   takeUndo,
   type PlanHistory,
@@ -220,5 +222,36 @@ describe('the plan’s undo history', () => {
     h = undoOnce(store, h);
     expect(store.placements).toEqual([]);
     expect(takeUndo(h)).toBeNull();
+  });
+
+  describe('typing in the mirror editor', () => {
+    const at = (h: PlanHistory) => h.past[h.past.length - 1];
+
+    it('folds keystrokes on one mirror within the run time into one step that keeps the value from before the run', () => {
+      let h = recordTyping(emptyHistory, 7, { heightM: 2.5 }, { heightM: 3 }, 1000);
+      h = recordTyping(h, 7, { heightM: 3 }, { heightM: 3.4 }, 1000 + TYPING_RUN_MS);
+      h = recordTyping(h, 7, { tiltDownRad: 0.2 }, { tiltDownRad: 0.3 }, 1500 + TYPING_RUN_MS);
+      expect(h.past).toHaveLength(1);
+      expect(at(h)).toMatchObject({ before: { heightM: 2.5, tiltDownRad: 0.2 }, after: { heightM: 3.4, tiltDownRad: 0.3 } });
+    });
+
+    it('starts a new step after a pause longer than the run time, on another mirror, or after another edit', () => {
+      let h = recordTyping(emptyHistory, 7, { heightM: 2.5 }, { heightM: 3 }, 0);
+      h = recordTyping(h, 7, { heightM: 3 }, { heightM: 4 }, TYPING_RUN_MS + 1);
+      expect(h.past).toHaveLength(2);
+      h = recordTyping(h, 8, { heightM: 1 }, { heightM: 2 }, TYPING_RUN_MS + 2);
+      expect(h.past).toHaveLength(3);
+      h = recordStep(h, { kind: 'placement-change', id: 8, before: { heightM: 2 }, after: { heightM: 5 } });
+      h = recordTyping(h, 8, { heightM: 5 }, { heightM: 6 }, TYPING_RUN_MS + 3);
+      expect(h.past).toHaveLength(5);
+    });
+
+    it('does not fold new typing into a step that was undone and redone', () => {
+      let h = recordTyping(emptyHistory, 7, { heightM: 2.5 }, { heightM: 3 }, 0);
+      h = takeUndo(h)!.history;
+      h = takeRedo(h)!.history;
+      h = recordTyping(h, 7, { heightM: 3 }, { heightM: 3.5 }, 10);
+      expect(h.past).toHaveLength(2);
+    });
   });
 });

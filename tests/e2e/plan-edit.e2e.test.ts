@@ -1,6 +1,7 @@
 /**
  * On a phone, an installer reshapes what they drew and leans on undo: draws a zone, renames it,
- * drags a corner, deletes a mirror and undoes that, and aims the mirror at the zone.
+ * drags a corner, deletes a mirror and undoes that, aims the mirror at the zone, and undoes a
+ * height typed in the mirror editor.
  */
 import type { Page } from 'playwright-core';
 import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seeders/demo';
@@ -186,6 +187,30 @@ describe('an installer on a phone edits what they drew and undoes a delete', () 
     );
     expect(await sharePct(page, zoneId)).toBeGreaterThan(shareBefore);
     await shot(page, 'phone-aimed-at-zone');
+  });
+
+  it('types a new height in the mirror editor, and Undo puts back the height from before the typing', async () => {
+    const before = (await saved()).project.placements[0].heightM;
+    await drawerOpen(true);
+    const field = byTestId(page, 'placement-height');
+    await field.waitFor({ state: 'visible' });
+    const typed = page.waitForResponse(
+      (r) => r.request().method() === 'PATCH' && /\/placements\//.test(r.url()) && (r.request().postData() ?? '').includes('4.2'),
+      { timeout: 15_000 },
+    );
+    // Keystroke by keystroke, as a thumb types: each is a change; together they are one step to undo.
+    await field.fill('');
+    await field.pressSequentially('4.2', { delay: 60 });
+    await field.blur();
+    expect((await typed).ok()).toBe(true);
+    expect((await saved()).project.placements[0].heightM).toBe(4.2);
+    await drawerOpen(false);
+    const undone = page.waitForResponse((r) => r.request().method() === 'PATCH' && /\/placements\//.test(r.url()) && r.ok(), {
+      timeout: 15_000,
+    });
+    await byTestId(page, 'plan-undo').click();
+    await undone;
+    expect((await saved()).project.placements[0].heightM).toBe(before);
   });
 
   it('logged no errors in the browser along the way', () => {
