@@ -10,9 +10,10 @@ import { ApiError } from '@/shared/api-client';
 import { describeError } from '@/shared/errors';
 import type { CreatePlacementBody, PlacementDto, ProjectDto, Scene } from '@/shared/schemas';
 import { usePlacementWrites } from './use-placement-writes';
-import { projectKeys, useUpdateProjectMutation } from './use-projects';
+import { projectKeys, useUpdateProjectMutation, type PlacementEdits } from './use-projects';
 
-export type PlacementPatch = Partial<Pick<PlacementDto, 'positionM' | 'azimuthRad' | 'heightM' | 'tiltDownRad' | 'viewerId' | 'label'>>;
+/** A change to a mirror from the plan: a drag's end, a nudge, an aim, another catalogue mirror, typing in the editor. */
+export type PlacementPatch = PlacementEdits;
 
 /** A drag in progress, drawn over the saved values until the finger lifts. */
 export type DragPreview =

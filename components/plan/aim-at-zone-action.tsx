@@ -3,15 +3,18 @@
  * (azimuth and tilt) to the aim the engine's sizing search finds best for that zone
  * (shared/project-optics/aim-at-zone.ts). The share before and after is shown; the turn is one
  * plan edit, so Undo turns it back. The search is bounded (AIM_CANDIDATES_MAX aims) and starts after
- * the busy state has been drawn, so the screen says it is working.
+ * the busy state has been drawn, so the screen says it is working. "Compare mirrors here" ranks the
+ * catalogue's mirrors for the same mount and zone (`sizeForZone`), each at its best aim; choosing
+ * one is one plan edit too.
  */
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { AppText, Button, Segmented } from '@/components/ui';
 import { palette, radii, spacing } from '@/constants/theme';
-import { aimAtZone, type AimAtZoneResult } from '@/shared/project-optics';
+import { aimAtZone, sizeForZone, zoneCriterion, type AimAtZoneResult, type SizeForZoneResult } from '@/shared/project-optics';
 import type { CatalogueItemDto, PlacementDto, Scene } from '@/shared/schemas';
 import type { Aim } from '@/shared/optics';
+import { formatMoney, formatRange, type UnitSystem } from '@/shared/units';
 import { formatCoveredShare } from './zone-quality';
 
 export interface AimAtZoneActionProps {
@@ -19,7 +22,10 @@ export interface AimAtZoneActionProps {
   placements: readonly PlacementDto[];
   catalogue: readonly CatalogueItemDto[];
   placementId: number;
+  units: UnitSystem;
   onAim: (aim: Aim) => void;
+  /** Puts another catalogue mirror here at the given aim (one plan edit, so Undo puts the old one back). */
+  onChoose: (catalogueItemId: number, aim: Aim) => void;
 }
 
 /** What the person reads after a search: the zone's share before and after, or why nothing changed. */
@@ -36,8 +42,32 @@ export function AimAtZoneAction(p: AimAtZoneActionProps) {
   const [zoneId, setZoneId] = useState<string | undefined>(undefined);
   const [busy, setBusy] = useState(false);
   const [outcome, setOutcome] = useState<string | null>(null);
+  const [comparing, setComparing] = useState(false);
+  const [sizing, setSizing] = useState<{ zoneId: string; result: SizeForZoneResult } | null>(null);
   const zone = zones.find((z) => z.id === zoneId) ?? zones[0];
   if (!zone) return null;
+  const current = p.placements.find((x) => x.id === p.placementId);
+
+  const compare = () => {
+    setComparing(true);
+    setSizing(null);
+    // As with the aim: the busy state reaches the screen before the search takes the thread.
+    setTimeout(() => {
+      try {
+        const result = sizeForZone({
+          scene: p.scene,
+          placements: p.placements,
+          catalogue: p.catalogue,
+          placementId: p.placementId,
+          zoneId: zone.id,
+        });
+        setSizing({ zoneId: zone.id, result });
+      } finally {
+        setComparing(false);
+      }
+    }, 30);
+  };
+  const shown = sizing && sizing.zoneId === zone.id ? sizing.result : null;
 
   const run = () => {
     setBusy(true);
@@ -77,6 +107,43 @@ export function AimAtZoneAction(p: AimAtZoneActionProps) {
           {outcome}
         </AppText>
       ) : null}
+      <Button label="Compare mirrors here" variant="secondary" testID="size-for-zone-run" busy={comparing} onPress={compare} />
+      {shown && 'problem' in shown ? (
+        <AppText testID="size-for-zone-problem" role="status">
+          {shown.problem}
+        </AppText>
+      ) : null}
+      {shown && !('problem' in shown) ? (
+        <View style={styles.choices} testID="size-for-zone-choices" role="list">
+          <AppText variant="small" tone="muted" role="status">
+            {`Best catalogue mirrors at this mount for ${zone.name}, each at its best aim (now ${formatCoveredShare(shown.shareBefore)} seen).`}
+          </AppText>
+          {shown.choices.map((c, i) => {
+            const isCurrent = current?.catalogueItemId === c.item.id && !current.customMirror;
+            const ranged = zoneCriterion(zone) === 'detect' ? 'Noticed' : 'Recognised';
+            return (
+              <View key={c.item.id} style={styles.choice} role="listitem" testID={`size-choice-${c.item.id}`}>
+                <AppText variant="label">{`${i + 1}. ${c.item.name}${isCurrent ? ' (this mirror)' : ''}`}</AppText>
+                <AppText variant="small">
+                  {`${formatCoveredShare(c.shareAfter)} of ${zone.name} seen · ${ranged} to ${formatRange(c.rangeM, p.units)} · ${formatMoney(c.item.unitPriceMinor, c.item.currency)}`}
+                </AppText>
+                <Button
+                  label={isCurrent ? 'Use this aim' : 'Use this mirror'}
+                  variant="secondary"
+                  testID={`size-choice-use-${c.item.id}`}
+                  onPress={() => {
+                    p.onChoose(c.item.id, c.aim);
+                    setSizing(null);
+                    setOutcome(
+                      `${c.item.name} set here: ${formatCoveredShare(shown.shareBefore)} → ${formatCoveredShare(c.shareAfter)} of ${zone.name} seen. Undo puts the mirror back as it was.`,
+                    );
+                  }}
+                />
+              </View>
+            );
+          })}
+        </View>
+      ) : null}
     </View>
   );
 }
@@ -90,4 +157,6 @@ const styles = StyleSheet.create({
     padding: spacing.md,
     gap: spacing.sm,
   },
+  choices: { gap: spacing.sm },
+  choice: { gap: spacing.xs, paddingTop: spacing.sm, borderTopWidth: 1, borderTopColor: palette.rule },
 });

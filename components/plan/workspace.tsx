@@ -183,7 +183,9 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
           placements={edits.writes.placements}
           catalogue={catalogue}
           placementId={selectedPlacementId}
+          units={units}
           onAim={(aim) => history.savePlacement(selectedPlacementId, aim)}
+          onChoose={(catalogueItemId, aim) => history.savePlacement(selectedPlacementId, { catalogueItemId, customMirror: null, ...aim })}
         />
       ) : null}
       {editorFirst ? review.panel : null}

@@ -23,5 +23,5 @@ export type { Visibility, VisibilityInput } from './visibility';
 export { apparentAngle, visibleInMirror } from './visibility';
 export { sphereReflectionPoint } from './alhazen';
 export { checkZone, zoneCoverage } from './zones';
-export type { Aim, CatalogueItem, MountPoint, RankInput, RankedOption, Target } from './rank';
-export { defaultAims, rankOptions } from './rank';
+export type { Aim, CatalogueItem, MountPoint, RankFigures, RankInput, RankedOption, Target } from './rank';
+export { defaultAims, rankOptions, rankOrder } from './rank';

@@ -178,16 +178,10 @@ export function rankOptions(input: RankInput): RankedOption[] {
       }
     }
   }
-  const key = (c: { fraction: number; rangeKey: number; item: CatalogueItem }) => [
-    Math.floor(c.fraction / step + FLOOR_SLACK),
-    c.rangeKey,
-    -c.item.cost,
-    c.fraction,
-  ];
   const byKey = (
     a: { fraction: number; rangeKey: number; item: CatalogueItem },
     b: { fraction: number; rangeKey: number; item: CatalogueItem },
-  ): number => compareKeys(key(b), key(a));
+  ): number => rankOrder({ fraction: a.fraction, rangeKey: a.rangeKey, cost: a.item.cost }, { ...b, cost: b.item.cost }, step);
   // Upper bounds, best first.
   const bounds = candidates.map((c) => ({ ...c, fraction: Math.min(1, c.fraction + tolerance) }));
   bounds.sort(byKey);
@@ -241,6 +235,22 @@ function insertSorted<T>(list: T[], item: T, cmp: (a: T, b: T) => number): void 
   let i = list.length;
   while (i > 0 && cmp(list[i - 1], item) > 0) i--;
   list.splice(i, 0, item);
+}
+
+/** What ranks an option: its share of the zone, its range (capped at what is needed) and its cost. */
+export interface RankFigures {
+  fraction: number;
+  rangeKey: number;
+  cost: number;
+}
+
+/**
+ * The sizing search's order, best first (negative when `a` ranks before `b`): share of the zone in
+ * steps of `step`, then range, then lower cost, then the exact share.
+ */
+export function rankOrder(a: RankFigures, b: RankFigures, step = 0.01): number {
+  const key = (c: RankFigures) => [Math.floor(c.fraction / step + FLOOR_SLACK), c.rangeKey, -c.cost, c.fraction];
+  return compareKeys(key(b), key(a));
 }
 
 function compareKeys(a: number[], b: number[]): number {

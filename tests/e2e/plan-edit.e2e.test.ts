@@ -1,7 +1,7 @@
 /**
  * On a phone, an installer reshapes what they drew and leans on undo: draws a zone, renames it,
- * drags a corner, deletes a mirror and undoes that, aims the mirror at the zone, and undoes a
- * height typed in the mirror editor.
+ * drags a corner, deletes a mirror and undoes that, aims the mirror at the zone, compares catalogue
+ * mirrors for it and undoes the choice, and undoes a height typed in the mirror editor.
  */
 import type { Page } from 'playwright-core';
 import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seeders/demo';
@@ -187,6 +187,33 @@ describe('an installer on a phone edits what they drew and undoes a delete', () 
     );
     expect(await sharePct(page, zoneId)).toBeGreaterThan(shareBefore);
     await shot(page, 'phone-aimed-at-zone');
+  });
+
+  it('compares catalogue mirrors for the zone, puts another in place, and Undo puts the first back', async () => {
+    const was = (await saved()).project.placements[0].catalogueItemId;
+    await drawerOpen(true);
+    await byTestId(page, 'size-for-zone-run').click();
+    await byTestId(page, 'size-for-zone-choices').waitFor({ timeout: 30_000 });
+    await byTestId(page, 'size-for-zone-choices').scrollIntoViewIfNeeded();
+    await shot(page, 'phone-compare-mirrors');
+    const uses = page.locator('[data-testid^="size-choice-use-"]');
+    const ids: string[] = [];
+    for (let i = 0; i < (await uses.count()); i++) ids.push((await uses.nth(i).getAttribute('data-testid'))!);
+    expect(ids.length).toBeGreaterThan(1);
+    const other = ids.find((id) => id !== `size-choice-use-${was}`)!;
+    const chosen = page.waitForResponse((r) => r.request().method() === 'PATCH' && /\/placements\//.test(r.url()) && r.ok(), {
+      timeout: 15_000,
+    });
+    await byTestId(page, other).click();
+    await chosen;
+    expect((await saved()).project.placements[0].catalogueItemId).toBe(Number(other.replace('size-choice-use-', '')));
+    await drawerOpen(false);
+    const undone = page.waitForResponse((r) => r.request().method() === 'PATCH' && /\/placements\//.test(r.url()) && r.ok(), {
+      timeout: 15_000,
+    });
+    await byTestId(page, 'plan-undo').click();
+    await undone;
+    expect((await saved()).project.placements[0].catalogueItemId).toBe(was);
   });
 
   it('types a new height in the mirror editor, and Undo puts back the height from before the typing', async () => {

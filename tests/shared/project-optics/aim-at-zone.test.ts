@@ -1,6 +1,7 @@
 /** "Aim at this zone" (shared/project-optics/aim-at-zone.ts): the engine's sizing search for one mirror and one zone. */
 import * as fc from 'fast-check';
-import { aimAtZone, mountProblem, ProjectEvaluator } from '../../../shared/project-optics';
+import { aimAtZone, mountProblem, ProjectEvaluator, sizeForZone } from '../../../shared/project-optics';
+import { defaultAims, rankOrder } from '../../../shared/optics';
 import type { CatalogueItemDto, PlacementDto, Scene } from '../../../shared/schemas';
 
 /** An invented one-item catalogue: a 600 mm round mirror cut from a 0.8 m sphere. */
@@ -162,5 +163,89 @@ describe('aim at this zone', () => {
       expect(mountProblem({ mirror, placement: { ...p, ...out.aim }, scene: s })).toBeNull();
       expect(out.shareAfter).toBeGreaterThan(out.shareBefore);
     });
+  });
+});
+
+describe('compare mirrors for a zone', () => {
+  // Three invented catalogue items: smaller and cheaper, the test mirror, larger and dearer.
+  const three: CatalogueItemDto[] = [
+    {
+      ...TEST_CATALOGUE[0],
+      id: 1,
+      code: 'T-400',
+      name: 'Test round 400 (demo)',
+      mirror: { shape: 'round', diameterM: 0.4, radiusM: 0.6 },
+      unitPriceMinor: 8900,
+    },
+    TEST_CATALOGUE[0],
+    {
+      ...TEST_CATALOGUE[0],
+      id: 3,
+      code: 'T-800',
+      name: 'Test round 800 (demo)',
+      mirror: { shape: 'round', diameterM: 0.8, radiusM: 1.0 },
+      unitPriceMinor: 19900,
+    },
+  ].map((c, i) => ({ ...c, id: i + 1 }));
+  const shareWith = (p: PlacementDto) => new ProjectEvaluator().evaluate({ scene, placements: [p], catalogue: three }).zones[0].fraction;
+
+  it('lists each mirror once, best first, with the share the plan would show once it is chosen', () => {
+    const p = testPlacement({ catalogueItemId: 2, azimuthRad: -Math.PI / 2 });
+    const out = sizeForZone({ scene, placements: [p], catalogue: three, placementId: p.id, zoneId: 'bay' });
+    if ('problem' in out) throw new Error(out.problem);
+    expect(out.choices.length).toBeGreaterThan(0);
+    expect(new Set(out.choices.map((c) => c.item.id)).size).toBe(out.choices.length);
+    for (const c of out.choices) {
+      expect(c.shareAfter).toBeCloseTo(shareWith({ ...p, ...c.aim, catalogueItemId: c.item.id }), 10);
+    }
+    expect(out.shareBefore).toBe(shareWith(p));
+    // Best first in the search's order: share (1 % steps), then range, then price.
+    const figures = out.choices.map((c) => ({ fraction: c.shareAfter, rangeKey: c.rangeM, cost: c.item.unitPriceMinor }));
+    for (let i = 1; i < figures.length; i++) expect(rankOrder(figures[i - 1], figures[i])).toBeLessThanOrEqual(0);
+  });
+
+  it('finds at least as much of the zone as a brute-force trial of every mirror at every first-pass aim', () => {
+    const p = testPlacement({ catalogueItemId: 2, azimuthRad: 2, tiltDownRad: 0.1 });
+    const out = sizeForZone({ scene, placements: [p], catalogue: three, placementId: p.id, zoneId: 'bay' });
+    if ('problem' in out) throw new Error(out.problem);
+    const vertexM: [number, number, number] = [p.positionM[0], p.positionM[1], p.heightM];
+    let best = 0;
+    for (const item of three) {
+      for (const aim of defaultAims(vertexM, [scene.zones[0].polygonM])) {
+        best = Math.max(best, shareWith({ ...p, ...aim, catalogueItemId: item.id }));
+      }
+    }
+    // 0.01 of the zone: the search's own step, within which shares rank equal (rank.ts coverageStep).
+    expect(out.choices[0].shareAfter).toBeGreaterThanOrEqual(best - 0.01);
+  });
+
+  it('never offers a mirror that would hang through the wall beside it', () => {
+    // The wall runs north–south 120 mm west of the mirror's front; the viewer stands south-east,
+    // in front of it. The 800 mm mirror bulges 1.0 − √(1.0² − 0.4²) ≈ 83 mm (sagitta), so only
+    // small turns keep its rim out of the wall.
+    const s: Scene = {
+      ...scene,
+      walls: [{ id: 'w', kind: 'wall', aM: [-0.12, -6], bM: [-0.12, 6], heightM: 3 }],
+      viewers: [{ id: 'v1', name: 'Driver', positionM: [4, -3], eyeHeightM: 1.6 }],
+    };
+    const p = testPlacement({ catalogueItemId: 1, azimuthRad: 0, tiltDownRad: 0 });
+    const out = sizeForZone({ scene: s, placements: [p], catalogue: three, placementId: p.id, zoneId: 'bay' });
+    if ('problem' in out) throw new Error(out.problem);
+    expect(out.choices.length).toBeGreaterThan(0);
+    for (const c of out.choices) {
+      expect(mountProblem({ mirror: c.item.mirror, placement: { ...p, ...c.aim }, scene: s })).toBeNull();
+    }
+  });
+
+  it('says so when the catalogue has no active mirror, never an empty list', () => {
+    const p = testPlacement();
+    const out = sizeForZone({
+      scene,
+      placements: [p],
+      catalogue: three.map((c) => ({ ...c, active: false })),
+      placementId: p.id,
+      zoneId: 'bay',
+    });
+    expect(out).toEqual({ problem: expect.stringMatching(/no mirrors/) });
   });
 });
