@@ -7,11 +7,11 @@
  * catalogue's mirrors for the same mount and zone (`sizeForZone`), each at its best aim; choosing
  * one is one plan edit too.
  */
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { AppText, Button, Segmented } from '@/components/ui';
 import { palette, radii, spacing } from '@/constants/theme';
-import { aimAtZone, sizeForZone, zoneCriterion, type AimAtZoneResult, type SizeForZoneResult } from '@/shared/project-optics';
+import { aimAtZone, sizeForZoneSteps, zoneCriterion, type AimAtZoneResult, type SizeForZoneResult } from '@/shared/project-optics';
 import type { CatalogueItemDto, PlacementDto, Scene } from '@/shared/schemas';
 import type { Aim } from '@/shared/optics';
 import { formatMoney, formatRange, type UnitSystem } from '@/shared/units';
@@ -42,30 +42,51 @@ export function AimAtZoneAction(p: AimAtZoneActionProps) {
   const [zoneId, setZoneId] = useState<string | undefined>(undefined);
   const [busy, setBusy] = useState(false);
   const [outcome, setOutcome] = useState<string | null>(null);
-  const [comparing, setComparing] = useState(false);
+  const [comparing, setComparing] = useState<{ done: number; of: number } | null>(null);
+  const cancelled = useRef(false);
+  useEffect(
+    () => () => {
+      cancelled.current = true;
+    },
+    [],
+  );
   const [sizing, setSizing] = useState<{ zoneId: string; result: SizeForZoneResult } | null>(null);
   const zone = zones.find((z) => z.id === zoneId) ?? zones[0];
   if (!zone) return null;
   const current = p.placements.find((x) => x.id === p.placementId);
 
   const compare = () => {
-    setComparing(true);
+    setComparing({ done: 0, of: 0 });
     setSizing(null);
-    // As with the aim: the busy state reaches the screen before the search takes the thread.
-    setTimeout(() => {
+    const forZone = zone.id;
+    const steps = sizeForZoneSteps({
+      scene: p.scene,
+      placements: p.placements,
+      catalogue: p.catalogue,
+      placementId: p.placementId,
+      zoneId: forZone,
+    });
+    // One catalogue mirror per turn of the page's loop, so taps and redraws get through meanwhile.
+    const next = () => {
+      if (cancelled.current) return;
       try {
-        const result = sizeForZone({
-          scene: p.scene,
-          placements: p.placements,
-          catalogue: p.catalogue,
-          placementId: p.placementId,
-          zoneId: zone.id,
+        const step = steps.next();
+        if (step.done) {
+          setSizing({ zoneId: forZone, result: step.value });
+          setComparing(null);
+        } else {
+          setComparing(step.value);
+          setTimeout(next, 0);
+        }
+      } catch (e) {
+        setComparing(null);
+        setSizing({
+          zoneId: forZone,
+          result: { problem: `The mirrors could not be compared here: ${e instanceof Error ? e.message : String(e)}` },
         });
-        setSizing({ zoneId: zone.id, result });
-      } finally {
-        setComparing(false);
       }
-    }, 30);
+    };
+    setTimeout(next, 30);
   };
   const shown = sizing && sizing.zoneId === zone.id ? sizing.result : null;
 
@@ -107,7 +128,13 @@ export function AimAtZoneAction(p: AimAtZoneActionProps) {
           {outcome}
         </AppText>
       ) : null}
-      <Button label="Compare mirrors here" variant="secondary" testID="size-for-zone-run" busy={comparing} onPress={compare} />
+      <Button
+        label={comparing && comparing.of > 0 ? `Comparing ${comparing.done} of ${comparing.of} mirrors…` : 'Compare mirrors here'}
+        variant="secondary"
+        testID="size-for-zone-run"
+        busy={comparing !== null}
+        onPress={compare}
+      />
       {shown && 'problem' in shown ? (
         <AppText testID="size-for-zone-problem" role="status">
           {shown.problem}

@@ -5,7 +5,7 @@
  * about the zone (12 azimuths × 3 tilts) plus the present aim, then a finer grid about the best of
  * those. Both are bounded, so the search takes a known number of traces.
  */
-import { defaultAims, rankOptions, rankOrder, OpticsInputError, type Aim, type Mirror, type RankInput } from '../optics';
+import { defaultAims, rankOptions, rankOrder, OpticsInputError, type Aim, type Mirror, type RankedOption, type RankInput } from '../optics';
 import type { CatalogueItemDto, PlacementDto, Scene } from '../schemas';
 import { PLACEMENT_LIMITS } from '../schemas';
 import { criteriaOf, criterionAngleRad, zoneCriterion } from './criteria';
@@ -44,8 +44,17 @@ function tidy(aim: Aim): Aim {
   return { azimuthRad: Math.round(az * 1e4) / 1e4, tiltDownRad: Math.round(tilt * 1e4) / 1e4 };
 }
 
-function zoneShare(scene: Scene, placements: readonly PlacementInput[], catalogue: readonly CatalogueItemDto[], zoneId: string): number {
-  const zone = new ProjectEvaluator().evaluate({ scene, placements, catalogue }).zones.find((z) => z.zoneId === zoneId);
+/** The zone's share as the plan shows it. One evaluator per search: its cache keeps the mirrors that did not move. */
+function zoneShare(
+  evaluator: ProjectEvaluator,
+  scene: Scene,
+  placements: readonly PlacementInput[],
+  catalogue: readonly CatalogueItemDto[],
+  zoneId: string,
+): number {
+  // Only this zone is evaluated: with many zones, their unions cost far more than the mirrors.
+  const only = { ...scene, zones: scene.zones.filter((z) => z.id === zoneId) };
+  const zone = evaluator.evaluate({ scene: only, placements, catalogue }).zones.find((z) => z.zoneId === zoneId);
   return zone && Number.isFinite(zone.fraction) ? zone.fraction : 0;
 }
 
@@ -107,8 +116,10 @@ export function aimAtZone(input: ZoneSearchInput): AimAtZoneResult {
       };
     const fine = search(gridAbout(coarse.aim));
     const best = tidy(fine && fine.fraction > coarse.fraction ? fine.aim : coarse.aim);
-    const shareBefore = zoneShare(scene, placements, catalogue, zone.id);
+    const evaluator = new ProjectEvaluator();
+    const shareBefore = zoneShare(evaluator, scene, placements, catalogue, zone.id);
     const shareAfter = zoneShare(
+      evaluator,
       scene,
       placements.map((x) => (x.id === p.id ? { ...x, ...best } : x)),
       catalogue,
@@ -142,6 +153,20 @@ export const SIZING_CHOICES = 3;
  * own best aim (the same two passes as `aimAtZone`), with the zone's share as the plan would show it.
  */
 export function sizeForZone(input: ZoneSearchInput & { limit?: number }): SizeForZoneResult {
+  const steps = sizeForZoneSteps(input);
+  let step = steps.next();
+  while (!step.done) step = steps.next();
+  return step.value;
+}
+
+/**
+ * `sizeForZone` one mirror at a time: each `next()` searches one catalogue mirror and yields how
+ * many are done, so a screen can let the page breathe (and show progress) between mirrors; the
+ * generator's return value is the result.
+ */
+export function* sizeForZoneSteps(
+  input: ZoneSearchInput & { limit?: number },
+): Generator<{ done: number; of: number }, SizeForZoneResult, void> {
   const { scene, placements, catalogue } = input;
   const limit = input.limit ?? SIZING_CHOICES;
   const setup = searchSetup(input, false);
@@ -153,12 +178,15 @@ export function sizeForZone(input: ZoneSearchInput & { limit?: number }): SizeFo
   try {
     // Each mirror at its own best aim: one bounded search per mirror (the first pass, then the
     // finer grid about its best), then the mirrors in the search's own order.
-    const best = items.flatMap((item) => {
+    const best: RankedOption[] = [];
+    for (const [i, item] of items.entries()) {
       const coarse = rankOptions({ ...base, catalogue: [item], aims: firstAims, limit: 1 })[0];
-      if (!coarse || coarse.fraction <= 0) return [];
-      const fine = rankOptions({ ...base, catalogue: [item], aims: gridAbout(coarse.aim), limit: 1 })[0];
-      return [fine && fine.fraction > coarse.fraction ? fine : coarse];
-    });
+      if (coarse && coarse.fraction > 0) {
+        const fine = rankOptions({ ...base, catalogue: [item], aims: gridAbout(coarse.aim), limit: 1 })[0];
+        best.push(fine && fine.fraction > coarse.fraction ? fine : coarse);
+      }
+      yield { done: i + 1, of: items.length };
+    }
     best.sort((a, b) =>
       rankOrder({ fraction: a.fraction, rangeKey: a.rangeM, cost: a.cost }, { fraction: b.fraction, rangeKey: b.rangeM, cost: b.cost }),
     );
@@ -166,13 +194,15 @@ export function sizeForZone(input: ZoneSearchInput & { limit?: number }): SizeFo
       return {
         problem: `No mirror in the catalogue shows any of ${zone.name} to this viewer from where this mirror hangs; move it or the viewer.`,
       };
+    const evaluator = new ProjectEvaluator();
+    const shareBefore = zoneShare(evaluator, scene, placements, catalogue, zone.id);
     const choices = best.slice(0, limit).map((o): SizingChoice => {
       const aim = tidy(o.aim);
       const item = active.find((c) => String(c.id) === o.item.id)!;
       const moved = placements.map((x) => (x.id === p.id ? { ...x, ...aim, catalogueItemId: item.id, customMirror: null } : x));
-      return { item, aim, rangeM: o.rangeM, shareAfter: zoneShare(scene, moved, catalogue, zone.id) };
+      return { item, aim, rangeM: o.rangeM, shareAfter: zoneShare(evaluator, scene, moved, catalogue, zone.id) };
     });
-    return { shareBefore: zoneShare(scene, placements, catalogue, zone.id), choices };
+    return { shareBefore, choices };
   } catch (e) {
     if (e instanceof OpticsInputError) return { problem: e.message };
     throw e;

@@ -174,7 +174,7 @@ describe('compare mirrors for a zone', () => {
       id: 1,
       code: 'T-400',
       name: 'Test round 400 (demo)',
-      mirror: { shape: 'round', diameterM: 0.4, radiusM: 0.6 },
+      mirror: { shape: 'round' as const, diameterM: 0.4, radiusM: 0.6 },
       unitPriceMinor: 8900,
     },
     TEST_CATALOGUE[0],
@@ -183,7 +183,7 @@ describe('compare mirrors for a zone', () => {
       id: 3,
       code: 'T-800',
       name: 'Test round 800 (demo)',
-      mirror: { shape: 'round', diameterM: 0.8, radiusM: 1.0 },
+      mirror: { shape: 'round' as const, diameterM: 0.8, radiusM: 1.0 },
       unitPriceMinor: 19900,
     },
   ].map((c, i) => ({ ...c, id: i + 1 }));
