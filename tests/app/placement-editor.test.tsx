@@ -10,7 +10,7 @@ import { evaluateProject } from '@/shared/project-optics';
 import type { PlacementDto, ProjectDto } from '@/shared/schemas';
 import { formatLength } from '@/shared/units';
 import { makeTestQueryClient, renderWithQuery } from './render';
-import { TEST_CATALOGUE, testPlacement } from './fixtures';
+import { TEST_CATALOGUE, testPlacement, testProject } from './fixtures';
 
 jest.mock('@/hooks/api', () => ({
   api: { projects: { get: jest.fn(), updatePlacement: jest.fn(), removePlacement: jest.fn(), list: jest.fn() } },
@@ -18,26 +18,7 @@ jest.mock('@/hooks/api', () => ({
 
 const catalogue = TEST_CATALOGUE;
 const placement: PlacementDto = testPlacement();
-const project: ProjectDto = {
-  id: 3,
-  name: 'Test aisle',
-  customer: '',
-  site: '',
-  kind: 'site',
-  state: 'drawing_up',
-  reviewerId: null,
-  reviewerName: null,
-  sentAt: null,
-  approval: null,
-  openCommentCount: 0,
-  ownerId: 1,
-  ownerName: 'Ines',
-  placementCount: 1,
-  version: 1,
-  createdAt: '2025-01-01T00:00:00.000Z',
-  updatedAt: '2025-01-01T00:00:00.000Z',
-  units: null,
-  notes: '',
+const project: ProjectDto = testProject({
   scene: {
     walls: [],
     zones: [
@@ -56,8 +37,7 @@ const project: ProjectDto = {
     viewers: [{ id: 'v1', name: 'Driver', positionM: [6, 0], eyeHeightM: 1.6 }],
   },
   placements: [placement],
-  canEdit: true,
-};
+});
 
 /** Reads the project from the cache, as the project screen does, so saves and 409s flow back in. */
 function Harness({ onClose }: { onClose?: () => void }) {
