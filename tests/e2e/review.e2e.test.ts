@@ -9,22 +9,14 @@ import { execFileSync } from 'node:child_process';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import sqlite3 from 'sqlite3';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seeders/demo';
 import { DEMO_PROJECT } from '../../server/seeders/demo-project';
 import { DEMO_REVIEW_JOB } from '../../server/seeders/demo-review-job';
 import type { ProjectDto } from '../../shared/schemas';
-import { PHONE, WIDE, byTestId, openPage, shot, signIn, startProduct, type Product } from './browser';
+import { PHONE, WIDE, byTestId, openPage, shot, productForFile, signInAs, demoUser } from './browser';
 
-let product: Product;
-beforeAll(async () => {
-  product = await startProduct();
-});
-afterAll(async () => {
-  await product?.close();
-});
+const product = productForFile();
 
-const installer = DEMO_USERS.find((u) => u.role === 'installer')!;
-const reviewer = DEMO_USERS.find((u) => u.role === 'reviewer')!;
+const reviewer = demoUser('reviewer');
 /** An invented buyer outside the demo organisation. */
 const BUYER = 'buyer.desk@purchasing-demo.example';
 
@@ -78,8 +70,8 @@ describe('two people close the review loop', () => {
   beforeAll(async () => {
     ({ page: phone, errors: phoneErrors } = await openPage(product, PHONE));
     ({ page: wide, errors: wideErrors } = await openPage(product, WIDE));
-    await signIn(phone, product.server.url, installer.email, DEMO_PASSWORD);
-    await signIn(wide, product.server.url, reviewer.email, DEMO_PASSWORD);
+    await signInAs(phone, product, 'installer');
+    await signInAs(wide, product, 'reviewer');
   });
 
   it('shows the installer each job’s state in the project list', async () => {
