@@ -223,9 +223,10 @@ describe('two people close the review loop', () => {
     await row.click();
     await byTestId(phone, 'placement-height').fill('3.35 m');
     await byTestId(phone, 'placement-height').press('Tab');
-    await byTestId(phone, 'placement-save').click();
-    await byTestId(phone, 'placement-save-status').filter({ hasText: 'All changes saved.' }).waitFor();
+    // The editor saves by itself 900 ms after the last change (AUTOSAVE_MS); on a loaded machine that
+    // can come before a click on "Save now", which is then disabled, so the test waits on the effect.
     await stateIs(phone, 'Being drawn up');
+    await byTestId(phone, 'placement-save-status').filter({ hasText: 'All changes saved.' }).waitFor();
     await shot(phone, 'review-phone-withdrawn');
 
     const issued = await phone.request.post(`${product.server.url}/api/projects/${projectId}/sheet/revisions`);
