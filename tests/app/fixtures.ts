@@ -1,4 +1,4 @@
-import type { CatalogueItemDto, PlacementDto, ProjectDto, ProjectSummaryDto, UserDto } from '@/shared/schemas';
+import type { CatalogueItemDto, PlacementDto, ProjectDto, ProjectSummaryDto, Scene, UserDto } from '@/shared/schemas';
 import { DEMO_CATALOGUE } from '../../server/seeders/demo-catalogue';
 import { DEMO_PROJECT } from '../../server/seeders/demo-project';
 import type { DemoVehicleJob } from '../../server/seeders/demo-vehicles';
@@ -72,6 +72,28 @@ export function demoPlacementDtos(projectId: number): PlacementDto[] {
     };
   });
 }
+
+/**
+ * An invented aisle for `testPlacement`'s mirror (at the origin, 2.6 m up, aimed along +x): a
+ * driver (eye 1.6 m) 6 m in front of it and a 6 × 6 m crossing for adults around them.
+ */
+export const TEST_AISLE_SCENE: Scene = {
+  walls: [],
+  zones: [
+    {
+      id: 'z1',
+      name: 'Crossing',
+      polygonM: [
+        [2, -3],
+        [8, -3],
+        [8, 3],
+        [2, 3],
+      ],
+      target: { kind: 'adult' },
+    },
+  ],
+  viewers: [{ id: 'v1', name: 'Driver', positionM: [6, 0], eyeHeightM: 1.6 }],
+};
 
 /** One corner mirror (catalogue item 1) on a plan: the tests' common placement; override what a test needs. */
 export function testPlacement(overrides: Partial<PlacementDto> = {}): PlacementDto {

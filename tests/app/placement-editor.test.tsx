@@ -10,7 +10,7 @@ import { evaluateProject } from '@/shared/project-optics';
 import type { PlacementDto, ProjectDto } from '@/shared/schemas';
 import { formatLength } from '@/shared/units';
 import { makeTestQueryClient, renderWithQuery } from './render';
-import { TEST_CATALOGUE, testPlacement, testProject } from './fixtures';
+import { TEST_AISLE_SCENE, TEST_CATALOGUE, testPlacement, testProject } from './fixtures';
 
 jest.mock('@/hooks/api', () => ({
   api: { projects: { get: jest.fn(), updatePlacement: jest.fn(), removePlacement: jest.fn(), list: jest.fn() } },
@@ -19,23 +19,7 @@ jest.mock('@/hooks/api', () => ({
 const catalogue = TEST_CATALOGUE;
 const placement: PlacementDto = testPlacement();
 const project: ProjectDto = testProject({
-  scene: {
-    walls: [],
-    zones: [
-      {
-        id: 'z1',
-        name: 'Crossing',
-        polygonM: [
-          [2, -3],
-          [8, -3],
-          [8, 3],
-          [2, 3],
-        ],
-        target: { kind: 'adult' },
-      },
-    ],
-    viewers: [{ id: 'v1', name: 'Driver', positionM: [6, 0], eyeHeightM: 1.6 }],
-  },
+  scene: TEST_AISLE_SCENE,
   placements: [placement],
 });
 
