@@ -10,7 +10,7 @@ import request from 'supertest';
 import type { CommentDto, ProjectDto, ProjectEventDto } from '../../shared/schemas';
 import { ProjectEvent } from '../../server/modules/review/project-event.entity';
 import { MailMessage } from '../../server/modules/mail/mail-message.entity';
-import { CROSSING_SCENE, crossingMirror, crossingProject, EMAIL, startHarness, type Harness } from './harness';
+import { catalogueItemBody, CROSSING_SCENE, crossingMirror, crossingProject, EMAIL, startHarness, type Harness } from './harness';
 import { binary, issueSheet, pagesText } from './pdf-tools';
 
 type Agent = ReturnType<typeof request.agent>;
@@ -431,16 +431,7 @@ describe('approval on the sheet and its withdrawal', () => {
 
 describe('a catalogue change and approved jobs', () => {
   it("withdraws an approved job's approval when its catalogue mirror's optics change, not when only the price does", async () => {
-    const created = await agents.admin.post('/api/catalog').send({
-      code: 'REV-700',
-      name: 'Review round 700 (test)',
-      mirror: { shape: 'round', diameterM: 0.7, radiusM: 1.4 },
-      material: 'acrylic',
-      reflectance: 0.8,
-      massKg: 4,
-      unitPriceMinor: 14900,
-      currency: 'EUR',
-    });
+    const created = await agents.admin.post('/api/catalog').send(catalogueItemBody('REV-700', 'Review round 700 (test)'));
     const item = created.body.item;
     const { project, placementId } = await job('Catalogue mirror');
     const pl = (await get(project.id)).placements[0];
