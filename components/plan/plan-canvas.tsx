@@ -3,12 +3,11 @@
  * drawn with react-native-svg in screen pixels for the current view. One responder on the frame
  * handles every gesture (pan, pinch, drag a mirror or viewer, turn the aim handle, tap to place),
  * picking what is under the finger itself, so the same code serves mouse, touch and native.
- * The parts: usePlanViewport (size, view, zoom), usePlanGestures over the pure machine in
- * plan-gesture.ts (with hit-testing in plan-hit-test.ts), and PlanDrawing.
+ * The parts: usePlanFrame and CanvasFrame (canvas-frame.tsx: the viewport, the gestures over the
+ * pure machine in plan-gesture.ts with hit-testing in plan-hit-test.ts, the zoom buttons; shared
+ * with the vehicle's top view), and PlanDrawing.
  */
 import { useEffect, useLayoutEffect, useMemo, useRef, type ReactNode } from 'react';
-import { StyleSheet, View } from 'react-native';
-import { palette } from '@/constants/theme';
 import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
 import type { PlacementDto, Scene } from '@/shared/schemas';
 import type { UnitSystem } from '@/shared/units';
@@ -17,10 +16,8 @@ import { SceneHandles } from './scene-handles';
 import type { PlanDrag } from './plan-gesture';
 import { boundsOf, type PairM, type PlanView } from './plan-view';
 import type { PlanSelection, PlanTool } from './plan-types';
-import { usePlanGestures } from './use-plan-gestures';
-import { usePlanViewport } from './use-plan-viewport';
+import { CanvasFrame, usePlanFrame } from './canvas-frame';
 import { MarkerFocusLayer } from './marker-focus-layer';
-import { ZoomControls } from './zoom-controls';
 
 export type { PlanDrag } from './plan-gesture';
 
@@ -55,8 +52,6 @@ export interface PlanCanvasProps {
 
 export function PlanCanvas(props: PlanCanvasProps) {
   const { scene, placements, evaluation, units, tool, canEdit, selection, sketchPoints, sketchClosed, reserveBottom = 0 } = props;
-  const frameRef = useRef<View>(null);
-
   const planBounds = useMemo(() => {
     const pts: (readonly [number, number])[] = [];
     scene.walls.forEach((w) => pts.push(w.aM, w.bM));
@@ -66,7 +61,13 @@ export function PlanCanvas(props: PlanCanvasProps) {
     return boundsOf(pts);
   }, [scene, placements]);
 
-  const viewport = usePlanViewport(frameRef, planBounds, reserveBottom);
+  const frame = usePlanFrame(planBounds, reserveBottom, {
+    context: { scene, placements, selection, canEdit, tool, pinning: props.pinning },
+    onSelect: props.onSelect,
+    onTapPlan: props.onTapPlan,
+    onDrag: props.onDrag,
+  });
+  const { viewport } = frame;
   const { size, view } = viewport;
   const focusRef = useRef(props.focus);
   useLayoutEffect(() => {
@@ -78,40 +79,20 @@ export function PlanCanvas(props: PlanCanvasProps) {
     const f = focusRef.current;
     if (focusKey !== null && f) centre(f.pointM);
   }, [focusKey, centre]);
-  const responder = usePlanGestures(frameRef, viewport.originRef, viewport.viewRef, viewport.setViewByPerson, {
-    context: { scene, placements, selection, canEdit, tool, pinning: props.pinning },
-    onSelect: props.onSelect,
-    onTapPlan: props.onTapPlan,
-    onDrag: props.onDrag,
-  });
 
   return (
-    <View style={styles.outer}>
-      <View
-        ref={frameRef}
-        style={styles.frame}
-        onLayout={viewport.onLayout}
-        {...responder}
-        role="img"
-        aria-label="Site plan: walls, zones, viewers and mirrors with their coverage"
-      >
-        <PlanDrawing {...{ scene, placements, evaluation, units, canEdit, selection, sketchPoints, sketchClosed, view, size, tool }}>
-          {props.overlay?.(view)}
-          {canEdit && tool === 'select' ? <SceneHandles scene={scene} selection={selection} view={view} /> : null}
-        </PlanDrawing>
-      </View>
-      <MarkerFocusLayer scene={scene} placements={placements} view={view} size={size} selection={selection} onSelect={props.onSelect} />
-      <ZoomControls
-        atBottom={props.zoomAtBottom}
-        onZoomIn={() => viewport.zoomBy(1.4)}
-        onZoomOut={() => viewport.zoomBy(1 / 1.4)}
-        onFit={viewport.fit}
-      />
-    </View>
+    <CanvasFrame
+      frame={frame}
+      label="Site plan: walls, zones, viewers and mirrors with their coverage"
+      overFrame={
+        <MarkerFocusLayer scene={scene} placements={placements} view={view} size={size} selection={selection} onSelect={props.onSelect} />
+      }
+      zoomAtBottom={props.zoomAtBottom}
+    >
+      <PlanDrawing {...{ scene, placements, evaluation, units, canEdit, selection, sketchPoints, sketchClosed, view, size, tool }}>
+        {props.overlay?.(view)}
+        {canEdit && tool === 'select' ? <SceneHandles scene={scene} selection={selection} view={view} /> : null}
+      </PlanDrawing>
+    </CanvasFrame>
   );
 }
-
-const styles = StyleSheet.create({
-  outer: { flex: 1 },
-  frame: { flex: 1, overflow: 'hidden', backgroundColor: palette.card, userSelect: 'none', touchAction: 'none' } as object,
-});

@@ -1,19 +1,16 @@
 /**
- * The phone's bottom drawer (not the PDF sheet). Folded: one strip with the selected item, its key numbers and the
+ * The site plan's phone drawer (not the PDF sheet), in the shared frame (drawer-frame.tsx). Folded: one strip with the selected item, its key numbers and the
  * short caution, in thumb reach. Peek: the details (editor or summary) scroll in the lower part while the plan
  * above keeps the selected item in view. Full: most of the screen, only when asked for.
  */
 import type { ReactNode } from 'react';
-import { Pressable, ScrollView, StyleSheet, View, useWindowDimensions } from 'react-native';
-import { AppText } from '@/components/ui';
-import { focusRing, layout, palette, radii, spacing } from '@/constants/theme';
-import { useFocusVisible } from '@/hooks/use-focus-visible';
 import { SHORT_CAUTION } from '@/shared/cautions';
 import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
 import { adultRangesText } from '@/shared/project-optics';
 import type { PlacementDto, Scene } from '@/shared/schemas';
 import { formatLength, type UnitSystem } from '@/shared/units';
 import { formatCoveredShare } from '@/shared/zone-verdict';
+import { DrawerButton, DrawerFrame } from './drawer-frame';
 import type { PlanSelection } from './plan-types';
 
 export interface PlanDrawerProps {
@@ -69,105 +66,43 @@ export type DrawerSize = 'folded' | 'peek' | 'full';
 export const DRAWER_HEIGHT_SHARE: Record<Exclude<DrawerSize, 'folded'>, number> = { peek: 0.44, full: 0.66 };
 
 export function PlanDrawer(p: PlanDrawerProps) {
-  const { height } = useWindowDimensions();
   const { title, numbers } = drawerSummary(p);
   const open = p.size !== 'folded';
   return (
-    <View
-      style={[styles.drawer, open && { height: Math.round(height * DRAWER_HEIGHT_SHARE[p.size === 'full' ? 'full' : 'peek']) }]}
-      testID="plan-drawer"
-    >
-      <View style={styles.strip}>
-        <View style={styles.grip} />
-        <View style={styles.stripRow}>
-          <View style={styles.stripText}>
-            <AppText variant="label" numberOfLines={1} testID="drawer-title">
-              {title}
-            </AppText>
-            <AppText variant="small" tone="muted" numberOfLines={open ? 2 : 1} testID="drawer-numbers">
-              {numbers}
-            </AppText>
-          </View>
-          <View style={styles.buttons}>
-            {open ? (
-              <DrawerButton
-                testID="drawer-size"
-                label={p.size === 'full' ? 'Smaller' : 'Taller'}
-                onPress={() => p.onSize(p.size === 'full' ? 'peek' : 'full')}
-              />
-            ) : null}
+    <DrawerFrame
+      openShare={open ? DRAWER_HEIGHT_SHARE[p.size === 'full' ? 'full' : 'peek'] : null}
+      title={title}
+      numbers={numbers}
+      numbersLines={open ? 2 : 1}
+      caution={SHORT_CAUTION}
+      testIds={PLAN_DRAWER_IDS}
+      buttons={
+        <>
+          {open ? (
             <DrawerButton
-              testID="drawer-toggle"
-              label={open ? 'Less' : 'Details'}
-              expanded={open}
-              onPress={() => p.onSize(open ? 'folded' : 'peek')}
+              testID="drawer-size"
+              label={p.size === 'full' ? 'Smaller' : 'Taller'}
+              onPress={() => p.onSize(p.size === 'full' ? 'peek' : 'full')}
             />
-          </View>
-        </View>
-        {/* The plan shows coverage, so the short caution stays whole and in view at every size. */}
-        <AppText variant="small" tone="stop" testID="drawer-caution">
-          {SHORT_CAUTION}
-        </AppText>
-      </View>
-      {open ? (
-        <ScrollView style={styles.body} contentContainerStyle={styles.bodyContent} testID="plan-drawer-body">
-          {p.children}
-        </ScrollView>
-      ) : null}
-    </View>
-  );
-}
-
-/** A button whose name is its visible word (nothing else is replaced or hidden by pressing it). */
-export function DrawerButton(p: { testID: string; label: string; expanded?: boolean; onPress: () => void }) {
-  const { focusVisible, onFocus, onBlur } = useFocusVisible();
-  return (
-    <Pressable
-      testID={p.testID}
-      role="button"
-      aria-expanded={p.expanded}
-      onPress={p.onPress}
-      onFocus={onFocus}
-      onBlur={onBlur}
-      style={({ pressed }) => [styles.button, pressed && styles.buttonPressed, focusVisible && focusRing]}
+          ) : null}
+          <DrawerButton
+            testID="drawer-toggle"
+            label={open ? 'Less' : 'Details'}
+            expanded={open}
+            onPress={() => p.onSize(open ? 'folded' : 'peek')}
+          />
+        </>
+      }
     >
-      <AppText variant="label" tone="glass">
-        {p.label}
-      </AppText>
-    </Pressable>
+      {p.children}
+    </DrawerFrame>
   );
 }
 
-const styles = StyleSheet.create({
-  drawer: {
-    backgroundColor: palette.card,
-    borderTopLeftRadius: radii.lg,
-    borderTopRightRadius: radii.lg,
-    borderTopWidth: 2,
-    borderColor: palette.asphalt,
-    boxShadow: '0 -4px 14px rgba(20,32,43,0.14)',
-  },
-  strip: {
-    paddingHorizontal: spacing.lg,
-    paddingTop: spacing.xs,
-    paddingBottom: spacing.sm,
-    gap: spacing.xs,
-  },
-  buttons: { flexDirection: 'row', gap: spacing.xs },
-  button: {
-    minHeight: layout.minTarget,
-    minWidth: layout.minTarget,
-    paddingHorizontal: spacing.md,
-    alignItems: 'center',
-    justifyContent: 'center',
-    borderRadius: radii.md,
-    borderWidth: 1,
-    borderColor: palette.rule,
-  },
-  buttonPressed: { backgroundColor: palette.chalk },
-  grip: { alignSelf: 'center', width: 44, height: 5, borderRadius: 3, backgroundColor: palette.rule },
-  stripRow: { flexDirection: 'row', alignItems: 'center', gap: spacing.md },
-  stripText: { flex: 1, minWidth: 0 },
-  body: { flex: 1 },
-  bodyContent: { padding: spacing.lg, paddingTop: spacing.xs, gap: spacing.lg },
-});
+const PLAN_DRAWER_IDS = {
+  drawer: 'plan-drawer',
+  title: 'drawer-title',
+  numbers: 'drawer-numbers',
+  caution: 'drawer-caution',
+  body: 'plan-drawer-body',
+};

@@ -4,8 +4,7 @@
  * scale bar. Draws only; the canvas owns gestures and the view.
  */
 import { useMemo, type ReactNode } from 'react';
-import { StyleSheet } from 'react-native';
-import Svg, { Defs, G, Line, Path, Pattern, Rect, Text as SvgText } from 'react-native-svg';
+import { G, Text as SvgText } from 'react-native-svg';
 import { fonts, palette } from '@/constants/theme';
 import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
 import type { PlacementDto, Scene } from '@/shared/schemas';
@@ -27,7 +26,8 @@ import {
   viewerNamePlate,
   zoneLabelParts,
 } from './plan-layers';
-import { alongAzimuth, gridLines, multiPolygonToPath, scaleBar, uncoveredPart } from './plan-geometry';
+import { DrawingFrame, scaleBarPlate } from './drawing-frame';
+import { alongAzimuth, multiPolygonToPath, scaleBar, uncoveredPart } from './plan-geometry';
 import { LABEL_PRIORITY, layoutPlanLabels, markerBox, type PlanLabelRequest } from './plan-labels';
 import { AIM_HANDLE_PX, MARKER_RADIUS_PX, toScreen, type PairM, type PlanView, type Size } from './plan-view';
 import type { LabelBox } from '@/shared/label-placement';
@@ -62,7 +62,6 @@ export function PlanDrawing({
   size,
   children,
 }: DrawingProps) {
-  const grid = useMemo(() => gridLines(view, size, units), [view, size, units]);
   const bar = scaleBar(view, units);
   const evaluatedById = useMemo(() => new Map((evaluation?.placements ?? []).map((e) => [e.placementId, e])), [evaluation]);
   const zoneFraction = useMemo(() => new Map((evaluation?.zones ?? []).map((z) => [z.zoneId, z.fraction])), [evaluation]);
@@ -89,12 +88,7 @@ export function PlanDrawing({
         size,
         selection,
         selectedPlacement && canEdit ? selectedPlacement : undefined,
-        {
-          x: 0,
-          y: 0,
-          w: bar.lengthPx + 32,
-          h: 48,
-        },
+        scaleBarPlate(bar.lengthPx),
       ),
     [scene, placements, zoneFraction, view, size, selection, selectedPlacement, canEdit, bar.lengthPx],
   );
@@ -104,15 +98,27 @@ export function PlanDrawing({
   };
 
   return (
-    <Svg testID="plan-canvas" width={size.width} height={size.height} style={styles.svg}>
-      <Defs>
-        <Pattern id={GAP_HATCH_ID} patternUnits="userSpaceOnUse" width={9} height={9} patternTransform="rotate(45)">
-          <Line x1={0} y1={0} x2={0} y2={9} stroke={palette.stop} strokeWidth={3} strokeOpacity={0.75} />
-        </Pattern>
-      </Defs>
-      <Rect x={0} y={0} width={size.width} height={size.height} fill={palette.card} />
-      <Path pointerEvents="none" d={grid.minor} stroke={palette.ruleSoft} strokeWidth={1} />
-      <Path pointerEvents="none" d={grid.major} stroke={palette.rule} strokeWidth={1.2} />
+    <DrawingFrame
+      testID="plan-canvas"
+      scaleLabelTestID="plan-scale-label"
+      view={view}
+      size={size}
+      units={units}
+      hatch={PLAN_GAP_HATCH}
+      notes={gapProblems.map((g, i) => (
+        <SvgText
+          key={g.id}
+          testID={`plan-gap-problem-${g.id}`}
+          x={12}
+          y={62 + i * 16}
+          fontFamily={fonts.semibold}
+          fontSize={12}
+          fill={palette.stop}
+        >
+          {g.problem}
+        </SvgText>
+      ))}
+    >
       {scene.zones.map((z) => (
         <ZoneShapes
           key={z.id}
@@ -169,33 +175,12 @@ export function PlanDrawing({
       ) : null}
       <SketchShape points={sketchPoints} closed={sketchClosed} view={view} />
       {children}
-      <G pointerEvents="none">
-        <Rect x={12} y={10} width={bar.lengthPx + 16} height={34} rx={6} fill={palette.card} fillOpacity={0.9} />
-        <Path d={`M20 24V34H${20 + bar.lengthPx}V24`} stroke={palette.asphalt} strokeWidth={2.5} fill="none" />
-        <SvgText testID="plan-scale-label" x={20} y={22} fontFamily={fonts.semibold} fontSize={12} fill={palette.asphalt}>
-          {bar.label}
-        </SvgText>
-        {gapProblems.map((g, i) => (
-          <SvgText
-            key={g.id}
-            testID={`plan-gap-problem-${g.id}`}
-            x={12}
-            y={62 + i * 16}
-            fontFamily={fonts.semibold}
-            fontSize={12}
-            fill={palette.stop}
-          >
-            {g.problem}
-          </SvgText>
-        ))}
-      </G>
-    </Svg>
+    </DrawingFrame>
   );
 }
 
-const styles = StyleSheet.create({
-  svg: { position: 'absolute', left: 0, top: 0 },
-});
+/** The plan's gaps: 9 px, at 45°. */
+const PLAN_GAP_HATCH = { id: GAP_HATCH_ID, sizePx: 9, rotateDeg: 45, strokeWidth: 3, opacity: 0.75 };
 
 /**
  * The plan's labels for this view, placed clear of each other, the markers and the aim handle

@@ -1,9 +1,18 @@
 /** Small pure helpers for edits made on the plan: new ids, defaults for a new mirror, rounding. */
+import type { PlacementPatch } from '@/hooks/use-plan-edits';
 import type { CatalogueItemDto, CreatePlacementBody, SceneViewer, SceneWall } from '@/shared/schemas';
 import type { PairM } from './plan-view';
 
 /** Plans are measured to the millimetre at best; more digits only add noise to saved data. */
 export const roundM = (m: number) => Math.round(m * 1000) / 1000;
+
+/** Angles are kept to 0.1 mrad (about 0.006°), far finer than a mirror can be set by hand. */
+export const roundRad = (r: number) => Math.round(r * 1e4) / 1e4;
+
+/** A mirror dragged to a point or turned to an aim, as the patch that is saved (rounded as above). */
+export function placementDragPatch(d: { positionM: readonly [number, number] } | { azimuthRad: number }): PlacementPatch {
+  return 'positionM' in d ? { positionM: [roundM(d.positionM[0]), roundM(d.positionM[1])] } : { azimuthRad: roundRad(d.azimuthRad) };
+}
 
 /** Scene ids: letters, digits and dashes (the schema's rule), unique enough within one project. */
 export function newSceneId(prefix: string): string {
@@ -42,7 +51,7 @@ export function newMirrorBody(
   const item = defaultCatalogueItem(catalogue);
   if (!item) return null;
   const viewer = nearestViewer(pointM, viewers);
-  const azimuthRad = viewer ? Math.round(Math.atan2(viewer.positionM[1] - pointM[1], viewer.positionM[0] - pointM[0]) * 1e4) / 1e4 : 0;
+  const azimuthRad = viewer ? roundRad(Math.atan2(viewer.positionM[1] - pointM[1], viewer.positionM[0] - pointM[0])) : 0;
   return {
     label: `M${existing + 1}`,
     catalogueItemId: item.id,

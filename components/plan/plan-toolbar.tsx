@@ -40,14 +40,23 @@ export interface PlanToolbarProps {
   busy: boolean;
 }
 
+/** What a reviewer sees in place of the tools (the plan's and a vehicle's): read only, and what they can still do. */
+export function ReadOnlyLines({ hint }: { hint: string }) {
+  return (
+    <>
+      <AppText variant="label">Read only — you are reviewing</AppText>
+      <AppText variant="small" tone="muted">
+        {hint}
+      </AppText>
+    </>
+  );
+}
+
 export function PlanToolbar(p: PlanToolbarProps) {
   if (!p.canEdit) {
     return (
       <View style={styles.readOnly} testID="plan-read-only" role="note">
-        <AppText variant="label">Read only — you are reviewing</AppText>
-        <AppText variant="small" tone="muted">
-          Pan, zoom and tap items to see their numbers.
-        </AppText>
+        <ReadOnlyLines hint="Pan, zoom and tap items to see their numbers." />
         <ToolButton tool="select" label="Select" a11y="Select" active onPress={() => p.onTool('select')} />
       </View>
     );

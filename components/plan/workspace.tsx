@@ -3,20 +3,15 @@
  * state (usePlanTool), the evaluation, and the selection, arranged by WideWorkspace or PhoneWorkspace.
  * Scene changes are the pure functions of scene-edits.ts.
  */
-import { useCallback, useLayoutEffect, useMemo, useState } from 'react';
-import { useDisplayUnits } from '@/components/placement/use-display-units';
-import { useIsWide } from '@/hooks/use-breakpoint';
-import { usePlanEdits } from '@/hooks/use-plan-edits';
+import { useCallback, useMemo, useState } from 'react';
 import { usePlanHistory } from '@/hooks/use-plan-history';
 import { usePlanEvaluation } from '@/hooks/use-plan-evaluation';
 import type { CatalogueItemDto, CriteriaSettings, CriterionKind, PlacementDto, ProjectDto, Scene } from '@/shared/schemas';
 import { AimAtZoneAction } from './aim-at-zone-action';
-import { markRedrawEnd } from './perf-marks';
 import { PlanCanvas, type PlanDrag } from './plan-canvas';
 import { PlanDetails } from './plan-details';
 import { PlanDrawer, type DrawerSize } from './plan-drawer';
 import { roundM } from './plan-edits';
-import { PlanNotices } from './plan-notices';
 import { PlanToolbar } from './plan-toolbar';
 import type { PlanSelection } from './plan-types';
 import type { PairM } from './plan-view';
@@ -25,17 +20,14 @@ import { SceneItemEditor } from './scene-item-editor';
 import { UndoControls, useUndoKeys } from './undo-controls';
 import { usePlanKeys } from './use-plan-keys';
 import { usePlanTool } from './use-plan-tool';
-import { PhoneWorkspace, WideWorkspace } from './workspace-layouts';
-import { WorkspaceHeader } from './workspace-header';
+import { EditNotices, ResponsiveWorkspace, dragPlacement, useWorkspaceBase } from './workspace-base';
 import { ZoneNamePrompt } from './zone-name-prompt';
 import { useReviewPlan } from '@/components/review/use-review-plan';
 import { AppText } from '@/components/ui';
 import { CAUTION_SENTENCES } from '@/shared/cautions';
 
 export function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: CatalogueItemDto[] }) {
-  const wide = useIsWide();
-  const units = useDisplayUnits(project);
-  const edits = usePlanEdits(project);
+  const { wide, units, edits, header } = useWorkspaceBase(project);
   const [selection, setSelection] = useState<PlanSelection>(null);
   const [drawerSize, setDrawerSize] = useState<DrawerSize>('folded');
   const selectedPlacementId = selection?.kind === 'placement' ? selection.id : null;
@@ -83,11 +75,6 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
     onMirrorPlaced: () => setDrawerSize((d) => (d === 'folded' ? 'peek' : d)),
   });
 
-  // Closes the performance measure of a live drag frame once React has committed it.
-  useLayoutEffect(() => {
-    if (edits.dragPreview) markRedrawEnd();
-  }, [edits.dragPreview]);
-
   const onDrag = useCallback(
     (d: PlanDrag) => {
       if (d.kind === 'viewer-move') {
@@ -103,13 +90,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
         editScene(d.scene);
         return;
       }
-      const patch =
-        d.kind === 'placement-move'
-          ? { positionM: [roundM(d.positionM[0]), roundM(d.positionM[1])] as PairM }
-          : { azimuthRad: Math.round(d.azimuthRad * 1e4) / 1e4 };
-      if (!d.done) return edits.setDragPreview({ kind: 'placement', id: d.id, patch });
-      edits.setDragPreview(null);
-      history.savePlacement(d.id, patch);
+      dragPlacement(edits, history.savePlacement, d);
     },
     [edits, history, editScene],
   );
@@ -194,7 +175,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
 
   const parts = {
     title: project.name,
-    header: <WorkspaceHeader project={project} wide={wide} saving={edits.saving} failed={edits.problem !== null} unsaved={edits.unsaved} />,
+    header,
     canvas: (
       <PlanCanvas
         scene={edits.scene}
@@ -218,16 +199,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
     ),
     overPlan: (
       <>
-        <PlanNotices
-          saveProblem={edits.problem}
-          onDismissSaveProblem={edits.dismissProblem}
-          writes={edits.writes}
-          placements={edits.placements}
-          editorOpenFor={selectedPlacementId}
-          toolProblem={tools.problem}
-          catalogue={catalogue}
-          units={units}
-        />
+        <EditNotices edits={edits} editorOpenFor={selectedPlacementId} toolProblem={tools.problem} catalogue={catalogue} units={units} />
         {tools.zoneToName ? (
           <ZoneNamePrompt defaultName={`Zone ${base.zones.length + 1}`} onSave={tools.nameZone} onCancel={tools.cancelZoneName} />
         ) : null}
@@ -261,12 +233,12 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
     ),
   };
 
-  if (wide) return <WideWorkspace {...parts} details={details} />;
-
   const selectedPlacement = selectedPlacementId !== null ? edits.placements.find((p) => p.id === selectedPlacementId) : undefined;
   return (
-    <PhoneWorkspace
+    <ResponsiveWorkspace
       {...parts}
+      wide={wide}
+      details={details}
       drawerOpen={drawerSize !== 'folded'}
       drawer={
         <PlanDrawer

@@ -6,6 +6,7 @@
  */
 import { placeLabel, type LabelBox, type Segment } from '@/shared/label-placement';
 import { alongAzimuth } from '@/components/plan/plan-geometry';
+import { markerBox } from '@/components/plan/plan-labels';
 import { AIM_HANDLE_PX } from '@/components/plan/plan-view';
 
 export const MARKER_PX = 13;
@@ -17,12 +18,7 @@ export const MIRROR_LABEL_H = 16;
 export const mirrorLabelWidth = (text: string) => text.length * 7.4 + 6;
 
 /** The ring a mirror's marker takes on screen, for other labels to keep clear of. */
-export const markerRing = (c: readonly [number, number]): LabelBox => ({
-  x: c[0] - MARKER_RING_PX,
-  y: c[1] - MARKER_RING_PX,
-  w: 2 * MARKER_RING_PX,
-  h: 2 * MARKER_RING_PX,
-});
+export const markerRing = (c: readonly [number, number]): LabelBox => markerBox(c, MARKER_RING_PX);
 
 /** The label's box for a mirror at screen point `c` aiming along display azimuth `az`. */
 export function mirrorLabelBox(
@@ -44,7 +40,7 @@ export function mirrorLabelBox(
     ],
   ];
   const boxes: LabelBox[] = [ring, ...others];
-  if (withHandle) boxes.push({ x: end[0] - AIM_KNOB_PX, y: end[1] - AIM_KNOB_PX, w: 2 * AIM_KNOB_PX, h: 2 * AIM_KNOB_PX });
+  if (withHandle) boxes.push(markerBox(end, AIM_KNOB_PX));
   return placeLabel(c, { w: mirrorLabelWidth(text), h: MIRROR_LABEL_H }, { segments, boxes }, bounds, 4);
 }
 

@@ -1,20 +1,16 @@
 /**
- * The vehicle's top view with the site plan's viewport and gestures (usePlanViewport,
- * usePlanGestures): pan, pinch, drag a mirror, turn its aim handle, tap to add. The hooks work in
+ * The vehicle's top view in the site plan's frame (canvas-frame.tsx: viewport, gestures, zoom
+ * buttons): pan, pinch, drag a mirror, turn its aim handle, tap to add. The hooks work in
  * the display frame (forward up, vehicle-frame.ts); drags and taps cross back to the vehicle's plan
  * frame here, so everything saved is in the vehicle's own frame.
  */
-import { useCallback, useMemo, useRef } from 'react';
-import { StyleSheet, View } from 'react-native';
-import { palette } from '@/constants/theme';
+import { useCallback, useMemo } from 'react';
 import type { VehicleEvaluation } from '@/hooks/use-vehicle-evaluation';
 import type { PlacementDto, Scene } from '@/shared/schemas';
 import type { UnitSystem } from '@/shared/units';
 import type { PlanDrag } from '@/components/plan/plan-gesture';
 import type { PairM } from '@/components/plan/plan-view';
-import { usePlanGestures } from '@/components/plan/use-plan-gestures';
-import { usePlanViewport } from '@/components/plan/use-plan-viewport';
-import { ZoomControls } from '@/components/plan/zoom-controls';
+import { CanvasFrame, usePlanFrame } from '@/components/plan/canvas-frame';
 import { azimuthFromDisplay, displayPlacements, fitBounds, fromDisplay } from './vehicle-frame';
 import { VehicleDrawing } from './vehicle-drawing';
 import type { PartPlacing } from './vehicle-parts-editor';
@@ -44,7 +40,6 @@ const NO_SCENE: Scene = { walls: [], zones: [], viewers: [] };
 
 export function VehicleCanvas(props: VehicleCanvasProps) {
   const { evaluation, placements, units, adding, canEdit, selectedId, reserveBottom = 0 } = props;
-  const frameRef = useRef<View>(null);
   const shown = useMemo(() => displayPlacements(placements), [placements]);
   // The vehicle and its fields: moving a mirror does not change what "fit" shows.
   const targets = evaluation.vehicle.targets;
@@ -52,7 +47,6 @@ export function VehicleCanvas(props: VehicleCanvasProps) {
     () => fitBounds(evaluation.geometry, evaluation.fields, targets),
     [evaluation.geometry, evaluation.fields, targets],
   );
-  const viewport = usePlanViewport(frameRef, bounds, reserveBottom);
   const { onSelect, onTapPlan, onDrag } = props;
   const handleDrag = useCallback(
     (d: PlanDrag) => {
@@ -61,7 +55,7 @@ export function VehicleCanvas(props: VehicleCanvasProps) {
     },
     [onDrag],
   );
-  const responder = usePlanGestures(frameRef, viewport.originRef, viewport.viewRef, viewport.setViewByPerson, {
+  const frame = usePlanFrame(bounds, reserveBottom, {
     context: {
       scene: NO_SCENE,
       placements: shown,
@@ -74,34 +68,23 @@ export function VehicleCanvas(props: VehicleCanvasProps) {
     onDrag: handleDrag,
   });
 
+  const { viewport } = frame;
   return (
-    <View style={styles.outer}>
-      <View
-        ref={frameRef}
-        style={styles.frame}
-        onLayout={viewport.onLayout}
-        {...responder}
-        role="img"
-        aria-label="Vehicle from above, front up: its ground fields with the share its mirrors show, gaps hatched, the body, the driver's eyes and the mirrors"
-        testID="vehicle-frame"
-      >
-        <VehicleDrawing
-          evaluation={evaluation}
-          placements={placements}
-          selectedId={selectedId}
-          canEdit={canEdit}
-          units={units}
-          view={viewport.view}
-          size={viewport.size}
-          placing={props.placing ?? null}
-        />
-      </View>
-      <ZoomControls onZoomIn={() => viewport.zoomBy(1.4)} onZoomOut={() => viewport.zoomBy(1 / 1.4)} onFit={viewport.fit} />
-    </View>
+    <CanvasFrame
+      frame={frame}
+      label="Vehicle from above, front up: its ground fields with the share its mirrors show, gaps hatched, the body, the driver's eyes and the mirrors"
+      testID="vehicle-frame"
+    >
+      <VehicleDrawing
+        evaluation={evaluation}
+        placements={placements}
+        selectedId={selectedId}
+        canEdit={canEdit}
+        units={units}
+        view={viewport.view}
+        size={viewport.size}
+        placing={props.placing ?? null}
+      />
+    </CanvasFrame>
   );
 }
-
-const styles = StyleSheet.create({
-  outer: { flex: 1 },
-  frame: { flex: 1, overflow: 'hidden', backgroundColor: palette.card, userSelect: 'none', touchAction: 'none' } as object,
-});

@@ -1,13 +1,10 @@
 /**
- * The phone's bottom drawer for a vehicle job. Folded: the fields' shares and verdicts in one
+ * The phone's bottom drawer for a vehicle job, in the plan's frame (drawer-frame.tsx). Folded: the fields' shares and verdicts in one
  * glance, and the planning line with the cautions' gist, so neither is ever out of sight.
  * Unfolded: the details, scrolling, over the lower part of the top view.
  */
 import type { ReactNode } from 'react';
-import { ScrollView, StyleSheet, View, useWindowDimensions } from 'react-native';
-import { AppText } from '@/components/ui/text';
-import { DrawerButton } from '@/components/plan/plan-drawer';
-import { palette, radii, spacing } from '@/constants/theme';
+import { DrawerButton, DrawerFrame } from '@/components/plan/drawer-frame';
 import { SHORT_CAUTION } from '@/shared/cautions';
 import type { VehicleEvaluation, VehiclePlacement } from '@/hooks/use-vehicle-evaluation';
 import { formatFieldShare, verdictText } from '@/shared/project-optics';
@@ -38,55 +35,29 @@ export interface VehicleDrawerProps {
   children: ReactNode;
 }
 
+/** The open drawer's share of the window's height. */
+const OPEN_SHARE = 0.6;
+
 export function VehicleDrawer(p: VehicleDrawerProps) {
-  const { height } = useWindowDimensions();
   return (
-    <View style={[styles.drawer, p.open && { height: Math.round(height * 0.6) }]} testID="vehicle-drawer">
-      <View style={styles.strip}>
-        <View style={styles.grip} />
-        <View style={styles.stripRow}>
-          <View style={styles.stripText}>
-            <AppText variant="label" numberOfLines={1} testID="vehicle-drawer-title">
-              {p.selected ? `Mirror ${p.selected.label}` : 'Fields and verdicts'}
-            </AppText>
-            <AppText variant="small" tone="muted" numberOfLines={3} testID="vehicle-drawer-numbers">
-              {fieldsSummary(p.evaluation)}
-            </AppText>
-          </View>
-          <DrawerButton testID="vehicle-drawer-toggle" label={p.open ? 'Less' : 'Details'} expanded={p.open} onPress={p.onToggle} />
-        </View>
-        {/* Folded or not, the planning line and the short caution stay in view. */}
-        <AppText variant="small" tone="stop" testID="vehicle-drawer-caution">
-          {`Planning only: type approval and local rules decide. ${SHORT_CAUTION}`}
-        </AppText>
-      </View>
-      {p.open ? (
-        <ScrollView style={styles.body} contentContainerStyle={styles.bodyContent} testID="vehicle-drawer-body">
-          {p.children}
-        </ScrollView>
-      ) : null}
-    </View>
+    <DrawerFrame
+      openShare={p.open ? OPEN_SHARE : null}
+      title={p.selected ? `Mirror ${p.selected.label}` : 'Fields and verdicts'}
+      numbers={fieldsSummary(p.evaluation)}
+      numbersLines={3}
+      caution={`Planning only: type approval and local rules decide. ${SHORT_CAUTION}`}
+      testIds={VEHICLE_DRAWER_IDS}
+      buttons={<DrawerButton testID="vehicle-drawer-toggle" label={p.open ? 'Less' : 'Details'} expanded={p.open} onPress={p.onToggle} />}
+    >
+      {p.children}
+    </DrawerFrame>
   );
 }
 
-const styles = StyleSheet.create({
-  drawer: {
-    backgroundColor: palette.card,
-    borderTopLeftRadius: radii.lg,
-    borderTopRightRadius: radii.lg,
-    borderTopWidth: 2,
-    borderColor: palette.asphalt,
-    boxShadow: '0 -4px 14px rgba(20,32,43,0.14)',
-  },
-  strip: {
-    paddingHorizontal: spacing.lg,
-    paddingTop: spacing.xs,
-    paddingBottom: spacing.sm,
-    gap: spacing.xs,
-  },
-  grip: { alignSelf: 'center', width: 44, height: 5, borderRadius: 3, backgroundColor: palette.rule },
-  stripRow: { flexDirection: 'row', alignItems: 'center', gap: spacing.md },
-  stripText: { flex: 1, minWidth: 0 },
-  body: { flex: 1 },
-  bodyContent: { padding: spacing.lg, paddingTop: spacing.xs, gap: spacing.lg },
-});
+const VEHICLE_DRAWER_IDS = {
+  drawer: 'vehicle-drawer',
+  title: 'vehicle-drawer-title',
+  numbers: 'vehicle-drawer-numbers',
+  caution: 'vehicle-drawer-caution',
+  body: 'vehicle-drawer-body',
+};

@@ -4,15 +4,15 @@
  * mirrors with their aim, and a scale bar. Draws only; the canvas owns gestures and the view.
  */
 import { useMemo } from 'react';
-import { StyleSheet } from 'react-native';
-import Svg, { Circle, Defs, G, Line, Path, Pattern, Rect, Text as SvgText } from 'react-native-svg';
+import { Circle, G, Line, Path, Rect, Text as SvgText } from 'react-native-svg';
 import { fonts, palette } from '@/constants/theme';
 import type { VehicleEvaluation, VehiclePlacement } from '@/hooks/use-vehicle-evaluation';
 import type { MultiPolygon } from '@/shared/geometry/polygon';
 import type { FieldScore } from '@/shared/vehicle';
 import { formatFieldShare } from '@/shared/project-optics';
 import type { UnitSystem } from '@/shared/units';
-import { alongAzimuth, gridLines, multiPolygonToPath, ringsToPath, scaleBar } from '@/components/plan/plan-geometry';
+import { DrawingFrame } from '@/components/plan/drawing-frame';
+import { alongAzimuth, multiPolygonToPath, ringsToPath } from '@/components/plan/plan-geometry';
 import { AIM_HANDLE_PX, toScreen, type PlanView, type Size } from '@/components/plan/plan-view';
 import { azimuthToDisplay, polygonToDisplay, ringCentroid, ringToDisplay, toDisplay } from './vehicle-frame';
 import { fieldLabel } from './vehicle-words';
@@ -20,7 +20,8 @@ import { AIM_KNOB_PX, MARKER_PX, MIRROR_LABEL_H, markerRing, mirrorLabelBox, sho
 import type { PartPlacing } from './vehicle-parts-editor';
 import type { LabelBox } from '@/shared/label-placement';
 
-const HATCH_ID = 'vehicle-gap-hatch';
+/** The vehicle's gaps: 8 px, at −35° (the site plan's run the other way). */
+const HATCH = { id: 'vehicle-gap-hatch', sizePx: 8, rotateDeg: -35, strokeWidth: 2.5, opacity: 0.7 };
 
 export interface VehicleDrawingProps {
   evaluation: VehicleEvaluation;
@@ -36,8 +37,6 @@ export interface VehicleDrawingProps {
 const verdictColour = (v: string | undefined) => (v === 'pass' ? palette.go : v === 'short' ? palette.stop : palette.glass);
 
 export function VehicleDrawing({ evaluation, placements, selectedId, canEdit, units, view, size, placing = null }: VehicleDrawingProps) {
-  const grid = useMemo(() => gridLines(view, size, units), [view, size, units]);
-  const bar = scaleBar(view, units);
   const scores = useMemo(() => new Map((evaluation.score?.fields ?? []).map((s) => [s.field.id, s])), [evaluation.score]);
   const fieldsD = useMemo(
     () => evaluation.fields.map((f) => ({ f, d: ringsToPath(view, polygonToDisplay(f.polygonM)) })),
@@ -61,15 +60,7 @@ export function VehicleDrawing({ evaluation, placements, selectedId, canEdit, un
   const selected = placements.find((p) => p.id === selectedId);
 
   return (
-    <Svg testID="vehicle-canvas" width={size.width} height={size.height} style={styles.svg}>
-      <Defs>
-        <Pattern id={HATCH_ID} patternUnits="userSpaceOnUse" width={8} height={8} patternTransform="rotate(-35)">
-          <Line x1={0} y1={0} x2={0} y2={8} stroke={palette.stop} strokeWidth={2.5} strokeOpacity={0.7} />
-        </Pattern>
-      </Defs>
-      <Rect x={0} y={0} width={size.width} height={size.height} fill={palette.card} />
-      <Path pointerEvents="none" d={grid.minor} stroke={palette.ruleSoft} strokeWidth={1} />
-      <Path pointerEvents="none" d={grid.major} stroke={palette.rule} strokeWidth={1.2} />
+    <DrawingFrame testID="vehicle-canvas" scaleLabelTestID="vehicle-scale-label" view={view} size={size} units={units} hatch={HATCH}>
       <G pointerEvents="none">
         {fieldsD.map(({ f, d }) => (
           <Path
@@ -96,7 +87,7 @@ export function VehicleDrawing({ evaluation, placements, selectedId, canEdit, un
           />
         ) : null}
         {gapsD.map(({ id, d }) =>
-          d ? <Path key={id} testID={`vehicle-gap-${id}`} d={d} fillRule="evenodd" fill={`url(#${HATCH_ID})`} /> : null,
+          d ? <Path key={id} testID={`vehicle-gap-${id}`} d={d} fillRule="evenodd" fill={`url(#${HATCH.id})`} /> : null,
         )}
         {g.boxes.map((b) => (
           <Path
@@ -142,14 +133,7 @@ export function VehicleDrawing({ evaluation, placements, selectedId, canEdit, un
         />
       ))}
       {selected && canEdit ? <AimHandle placement={selected} view={view} /> : null}
-      <G pointerEvents="none">
-        <Rect x={12} y={10} width={bar.lengthPx + 16} height={34} rx={6} fill={palette.card} fillOpacity={0.9} />
-        <Path d={`M20 24V34H${20 + bar.lengthPx}V24`} stroke={palette.asphalt} strokeWidth={2.5} fill="none" />
-        <SvgText testID="vehicle-scale-label" x={20} y={22} fontFamily={fonts.semibold} fontSize={12} fill={palette.asphalt}>
-          {bar.label}
-        </SvgText>
-      </G>
-    </Svg>
+    </DrawingFrame>
   );
 }
 
@@ -341,7 +325,3 @@ function Corners({ evaluation, view, placing }: { evaluation: VehicleEvaluation;
     </G>
   );
 }
-
-const styles = StyleSheet.create({
-  svg: { position: 'absolute', left: 0, top: 0 },
-});

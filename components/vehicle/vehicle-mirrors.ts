@@ -6,6 +6,7 @@
 import { aimOfPose, type Vec3 } from '@/shared/optics';
 import type { CreatePlacementBody, MirrorSpec } from '@/shared/schemas';
 import type { MirrorClass, VehicleField, VehicleGeometry } from '@/shared/vehicle';
+import { roundRad } from '@/components/plan/plan-edits';
 import { ringCentroid, type Pair } from './vehicle-frame';
 
 export interface MirrorTemplate {
@@ -89,10 +90,9 @@ export function aimAt(vertexM: Vec3, eyeM: Vec3, targetM: Vec3): { azimuthRad: n
   const t = unit(vertexM, targetM);
   const axis: Vec3 = [e[0] + t[0], e[1] + t[1], e[2] + t[2]];
   const aim = aimOfPose({ vertexM, axis: Math.hypot(...axis) > 1e-9 ? axis : e });
-  return { azimuthRad: round4(aim.azimuthRad), tiltDownRad: round4(aim.tiltDownRad) };
+  return { azimuthRad: roundRad(aim.azimuthRad), tiltDownRad: roundRad(aim.tiltDownRad) };
 }
 
-const round4 = (x: number) => Math.round(x * 1e4) / 1e4;
 const roundMm = (m: number) => Math.round(m * 1000) / 1000;
 
 /** The body of a mirror added by a tap at `tapM` (vehicle plan metres). */

@@ -4,6 +4,7 @@
  */
 import { StyleSheet, View } from 'react-native';
 import { ChoiceChips } from '@/components/placement/choice-chips';
+import { ReadOnlyLines } from '@/components/plan/plan-toolbar';
 import { AppText, Button } from '@/components/ui';
 import { palette, radii, shadow, spacing } from '@/constants/theme';
 import type { MirrorClass } from '@/shared/schemas';
@@ -23,10 +24,7 @@ export function VehicleToolbar(p: VehicleToolbarProps) {
   if (!p.canEdit) {
     return (
       <View style={styles.bar} testID="vehicle-read-only" role="note">
-        <AppText variant="label">Read only — you are reviewing</AppText>
-        <AppText variant="small" tone="muted">
-          Pan, zoom and tap a mirror to see its numbers.
-        </AppText>
+        <ReadOnlyLines hint="Pan, zoom and tap a mirror to see its numbers." />
       </View>
     );
   }

@@ -4,16 +4,10 @@
  * the top view left, details right. Edits go through the plan's edit hook and the one placement
  * write path (hooks/use-placement-writes.ts), as on a site plan.
  */
-import { useCallback, useLayoutEffect, useState } from 'react';
-import { useDisplayUnits } from '@/components/placement/use-display-units';
-import { markRedrawEnd } from '@/components/plan/perf-marks';
-import { PlanNotices } from '@/components/plan/plan-notices';
+import { useCallback, useState } from 'react';
 import type { PairM } from '@/components/plan/plan-view';
-import { WorkspaceHeader } from '@/components/plan/workspace-header';
-import { PhoneWorkspace, WideWorkspace } from '@/components/plan/workspace-layouts';
+import { EditNotices, ResponsiveWorkspace, dragPlacement, useWorkspaceBase } from '@/components/plan/workspace-base';
 import { Notice } from '@/components/ui';
-import { useIsWide } from '@/hooks/use-breakpoint';
-import { usePlanEdits } from '@/hooks/use-plan-edits';
 import { useVehicleEvaluation } from '@/hooks/use-vehicle-evaluation';
 import type { CatalogueItemDto, MirrorClass, ProjectDto } from '@/shared/schemas';
 import { SCENE_LIMITS, LIMIT_MESSAGES } from '@/shared/schemas/limits';
@@ -27,13 +21,8 @@ import type { PartPlacing } from './vehicle-parts-editor';
 import { moveFieldCorner, moveTarget, switchDriveSide } from './vehicle-part-edits';
 import type { DriverSide, Vehicle } from '@/shared/schemas/vehicle';
 
-const round3 = (m: number) => Math.round(m * 1000) / 1000;
-const round4 = (r: number) => Math.round(r * 1e4) / 1e4;
-
 export function VehicleWorkspace({ project, catalogue }: { project: ProjectDto; catalogue: CatalogueItemDto[] }) {
-  const wide = useIsWide();
-  const units = useDisplayUnits(project);
-  const edits = usePlanEdits(project);
+  const { wide, units, edits, header } = useWorkspaceBase(project);
   const evaluation = useVehicleEvaluation(edits.scene, edits.placements, catalogue);
   const canEdit = project.canEdit;
   const [selectedId, setSelectedId] = useState<number | null>(null);
@@ -42,10 +31,6 @@ export function VehicleWorkspace({ project, catalogue }: { project: ProjectDto; 
   const [localProblem, setLocalProblem] = useState<string | null>(null);
   const [drawerOpen, setDrawerOpen] = useState(false);
   const [placing, setPlacing] = useState<PartPlacing>(null);
-
-  useLayoutEffect(() => {
-    if (edits.dragPreview) markRedrawEnd();
-  }, [edits.dragPreview]);
 
   const onTapPlan = (pointM: PairM) => {
     setLocalProblem(null);
@@ -68,16 +53,7 @@ export function VehicleWorkspace({ project, catalogue }: { project: ProjectDto; 
   };
 
   const { setDragPreview, savePlacement } = edits;
-  const onDrag = useCallback(
-    (d: VehicleDrag) => {
-      const patch =
-        d.kind === 'move' ? { positionM: [round3(d.positionM[0]), round3(d.positionM[1])] as PairM } : { azimuthRad: round4(d.azimuthRad) };
-      if (!d.done) return setDragPreview({ kind: 'placement', id: d.id, patch });
-      setDragPreview(null);
-      void savePlacement(d.id, patch);
-    },
-    [setDragPreview, savePlacement],
-  );
+  const onDrag = useCallback((d: VehicleDrag) => dragPlacement({ setDragPreview }, savePlacement, d), [setDragPreview, savePlacement]);
 
   const base = edits.baseScene;
   const onRuleSet = (ruleSet: RuleSetId) => void edits.saveScene({ ...base, ruleSet });
@@ -126,16 +102,7 @@ export function VehicleWorkspace({ project, catalogue }: { project: ProjectDto; 
           {`Tap the top view where ${placingName} goes.`}
         </Notice>
       ) : null}
-      <PlanNotices
-        saveProblem={edits.problem}
-        onDismissSaveProblem={edits.dismissProblem}
-        writes={edits.writes}
-        placements={edits.placements}
-        editorOpenFor={null}
-        toolProblem={localProblem}
-        catalogue={catalogue}
-        units={units}
-      />
+      <EditNotices edits={edits} editorOpenFor={null} toolProblem={localProblem} catalogue={catalogue} units={units} />
     </>
   );
 
@@ -189,14 +156,12 @@ export function VehicleWorkspace({ project, catalogue }: { project: ProjectDto; 
       reserveBottom={adding ? 170 : 80}
     />
   );
-  const header = (
-    <WorkspaceHeader project={project} wide={wide} saving={edits.saving} failed={edits.problem !== null} unsaved={edits.unsaved} />
-  );
   const parts = { title: project.name, header, canvas, overPlan: banner, toolbar };
-  if (wide) return <WideWorkspace {...parts} details={details} />;
   return (
-    <PhoneWorkspace
+    <ResponsiveWorkspace
       {...parts}
+      wide={wide}
+      details={details}
       drawerOpen={drawerOpen}
       drawer={
         <VehicleDrawer

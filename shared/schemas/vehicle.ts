@@ -228,83 +228,75 @@ export type Vehicle = z.infer<typeof vehicle>;
  * (1.117 m) and SUV (1.386 m) eye heights of the eye-height survey listed there.
  */
 export function vehiclePreset(kind: VehicleKind, driverSide: DriverSide): Vehicle {
-  const base = { kind, driverSide, bodyBoxes: [], groundFields: [], targets: [] };
-  switch (kind) {
-    case 'car-van':
-      return vehicle.parse({
-        ...base,
-        lengthM: 4.8,
-        widthM: 1.85,
-        cabWidthM: 1.85,
-        cabFrontBehindM: 0.9,
-        eye: { method: 'direct', eyeBehindFrontM: 2.3, eyeFromCentreM: 0.37, eyeHeightM: 1.25 },
-        bodyBoxes: [
-          { id: 'bonnet', name: 'Bonnet', frontBehindM: 0, rearBehindM: 0.9, widthM: 1.8, heightM: 0.9 },
-          { id: 'cabin', name: 'Cabin', frontBehindM: 0.9, rearBehindM: 4.8, widthM: 1.85, heightM: 1.45, windowLineM: 0.95 },
-        ],
-      });
-    case 'bus-coach':
-      return vehicle.parse({
-        ...base,
-        lengthM: 12,
-        widthM: 2.55,
-        cabWidthM: 2.55,
-        cabFrontBehindM: 0,
-        eye: { method: 'seat', rule: 'un-r46', seatBehindFrontM: 1.0, seatFromCentreM: 0.75, seatHeightM: 1.3 },
-        bodyBoxes: [{ id: 'body', name: 'Body', frontBehindM: 0, rearBehindM: 12, widthM: 2.55, heightM: 3.2, windowLineM: 1.1 }],
-      });
-    case 'rigid-truck':
-      return vehicle.parse({
-        ...base,
-        lengthM: 10,
-        widthM: 2.55,
-        cabWidthM: 2.35,
-        cabFrontBehindM: 0.1,
-        eye: { method: 'seat', rule: 'un-r46', seatBehindFrontM: 1.1, seatFromCentreM: 0.65, seatHeightM: 1.75 },
-        bodyBoxes: [
-          { id: 'cab', name: 'Cab', frontBehindM: 0.1, rearBehindM: 2.4, widthM: 2.35, heightM: 3.1, windowLineM: 1.85 },
-          { id: 'body', name: 'Load body', frontBehindM: 2.6, rearBehindM: 10, widthM: 2.55, heightM: 3.6 },
-        ],
-      });
-    case 'tractor-unit':
-      return vehicle.parse({
-        ...base,
-        lengthM: 16.5,
-        widthM: 2.55,
-        cabWidthM: 2.5,
-        cabFrontBehindM: 0.1,
-        eye: { method: 'seat', rule: 'un-r46', seatBehindFrontM: 1.2, seatFromCentreM: 0.65, seatHeightM: 1.85 },
-        bodyBoxes: [
-          { id: 'cab', name: 'Cab', frontBehindM: 0.1, rearBehindM: 2.4, widthM: 2.5, heightM: 3.9, windowLineM: 1.95 },
-          { id: 'trailer', name: 'Trailer', frontBehindM: 2.9, rearBehindM: 16.5, widthM: 2.55, heightM: 4.0 },
-        ],
-      });
-    case 'school-bus':
-      return vehicle.parse({
-        ...base,
-        lengthM: 11,
-        widthM: 2.44,
-        cabWidthM: 2.44,
-        cabFrontBehindM: 1.3,
-        eye: { method: 'direct', eyeBehindFrontM: 2.0, eyeFromCentreM: 0.6, eyeHeightM: 1.95 },
-        bodyBoxes: [
-          { id: 'hood', name: 'Bonnet', frontBehindM: 0, rearBehindM: 1.3, widthM: 1.9, heightM: 1.4 },
-          { id: 'body', name: 'Body', frontBehindM: 1.3, rearBehindM: 11, widthM: 2.44, heightM: 3.0, windowLineM: 1.3 },
-        ],
-      });
-    case 'site-machine':
-      return vehicle.parse({
-        ...base,
-        lengthM: 6,
-        widthM: 2.5,
-        cabWidthM: 1.1,
-        cabFrontBehindM: 2.0,
-        eye: { method: 'seat', rule: 'iso-5006', seatBehindFrontM: 2.9, seatFromCentreM: 0, seatHeightM: 1.6 },
-        bodyBoxes: [
-          { id: 'front', name: 'Front frame', frontBehindM: 0, rearBehindM: 2.0, widthM: 2.5, heightM: 1.2 },
-          { id: 'cab', name: 'Cab', frontBehindM: 2.0, rearBehindM: 3.6, widthM: 1.1, heightM: 3.2, windowLineM: 1.3 },
-          { id: 'engine', name: 'Engine cover', frontBehindM: 3.6, rearBehindM: 6.0, widthM: 2.2, heightM: 2.2 },
-        ],
-      });
-  }
+  return vehicle.parse({ ...PRESET_FIGURES[kind], kind, driverSide, groundFields: [], targets: [] });
 }
+
+/** A preset's figures: everything but the kind, the drive side and the installer's own fields and cylinders. */
+type PresetFigures = Omit<VehicleInput, 'kind' | 'driverSide' | 'groundFields' | 'targets'>;
+
+const PRESET_FIGURES: Record<VehicleKind, PresetFigures> = {
+  'car-van': {
+    lengthM: 4.8,
+    widthM: 1.85,
+    cabWidthM: 1.85,
+    cabFrontBehindM: 0.9,
+    eye: { method: 'direct', eyeBehindFrontM: 2.3, eyeFromCentreM: 0.37, eyeHeightM: 1.25 },
+    bodyBoxes: [
+      { id: 'bonnet', name: 'Bonnet', frontBehindM: 0, rearBehindM: 0.9, widthM: 1.8, heightM: 0.9 },
+      { id: 'cabin', name: 'Cabin', frontBehindM: 0.9, rearBehindM: 4.8, widthM: 1.85, heightM: 1.45, windowLineM: 0.95 },
+    ],
+  },
+  'bus-coach': {
+    lengthM: 12,
+    widthM: 2.55,
+    cabWidthM: 2.55,
+    cabFrontBehindM: 0,
+    eye: { method: 'seat', rule: 'un-r46', seatBehindFrontM: 1.0, seatFromCentreM: 0.75, seatHeightM: 1.3 },
+    bodyBoxes: [{ id: 'body', name: 'Body', frontBehindM: 0, rearBehindM: 12, widthM: 2.55, heightM: 3.2, windowLineM: 1.1 }],
+  },
+  'rigid-truck': {
+    lengthM: 10,
+    widthM: 2.55,
+    cabWidthM: 2.35,
+    cabFrontBehindM: 0.1,
+    eye: { method: 'seat', rule: 'un-r46', seatBehindFrontM: 1.1, seatFromCentreM: 0.65, seatHeightM: 1.75 },
+    bodyBoxes: [
+      { id: 'cab', name: 'Cab', frontBehindM: 0.1, rearBehindM: 2.4, widthM: 2.35, heightM: 3.1, windowLineM: 1.85 },
+      { id: 'body', name: 'Load body', frontBehindM: 2.6, rearBehindM: 10, widthM: 2.55, heightM: 3.6 },
+    ],
+  },
+  'tractor-unit': {
+    lengthM: 16.5,
+    widthM: 2.55,
+    cabWidthM: 2.5,
+    cabFrontBehindM: 0.1,
+    eye: { method: 'seat', rule: 'un-r46', seatBehindFrontM: 1.2, seatFromCentreM: 0.65, seatHeightM: 1.85 },
+    bodyBoxes: [
+      { id: 'cab', name: 'Cab', frontBehindM: 0.1, rearBehindM: 2.4, widthM: 2.5, heightM: 3.9, windowLineM: 1.95 },
+      { id: 'trailer', name: 'Trailer', frontBehindM: 2.9, rearBehindM: 16.5, widthM: 2.55, heightM: 4.0 },
+    ],
+  },
+  'school-bus': {
+    lengthM: 11,
+    widthM: 2.44,
+    cabWidthM: 2.44,
+    cabFrontBehindM: 1.3,
+    eye: { method: 'direct', eyeBehindFrontM: 2.0, eyeFromCentreM: 0.6, eyeHeightM: 1.95 },
+    bodyBoxes: [
+      { id: 'hood', name: 'Bonnet', frontBehindM: 0, rearBehindM: 1.3, widthM: 1.9, heightM: 1.4 },
+      { id: 'body', name: 'Body', frontBehindM: 1.3, rearBehindM: 11, widthM: 2.44, heightM: 3.0, windowLineM: 1.3 },
+    ],
+  },
+  'site-machine': {
+    lengthM: 6,
+    widthM: 2.5,
+    cabWidthM: 1.1,
+    cabFrontBehindM: 2.0,
+    eye: { method: 'seat', rule: 'iso-5006', seatBehindFrontM: 2.9, seatFromCentreM: 0, seatHeightM: 1.6 },
+    bodyBoxes: [
+      { id: 'front', name: 'Front frame', frontBehindM: 0, rearBehindM: 2.0, widthM: 2.5, heightM: 1.2 },
+      { id: 'cab', name: 'Cab', frontBehindM: 2.0, rearBehindM: 3.6, widthM: 1.1, heightM: 3.2, windowLineM: 1.3 },
+      { id: 'engine', name: 'Engine cover', frontBehindM: 3.6, rearBehindM: 6.0, widthM: 2.2, heightM: 2.2 },
+    ],
+  },
+};

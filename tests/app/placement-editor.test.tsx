@@ -10,7 +10,7 @@ import { evaluateProject } from '@/shared/project-optics';
 import type { PlacementDto, ProjectDto } from '@/shared/schemas';
 import { formatLength } from '@/shared/units';
 import { makeTestQueryClient, renderWithQuery } from './render';
-import { TEST_CATALOGUE, testPlacement } from './fixtures';
+import { TEST_AISLE_SCENE, TEST_CATALOGUE, testPlacement, testProject } from './fixtures';
 
 jest.mock('@/hooks/api', () => ({
   api: { projects: { get: jest.fn(), updatePlacement: jest.fn(), removePlacement: jest.fn(), list: jest.fn() } },
@@ -18,46 +18,10 @@ jest.mock('@/hooks/api', () => ({
 
 const catalogue = TEST_CATALOGUE;
 const placement: PlacementDto = testPlacement();
-const project: ProjectDto = {
-  id: 3,
-  name: 'Test aisle',
-  customer: '',
-  site: '',
-  kind: 'site',
-  state: 'drawing_up',
-  reviewerId: null,
-  reviewerName: null,
-  sentAt: null,
-  approval: null,
-  openCommentCount: 0,
-  ownerId: 1,
-  ownerName: 'Ines',
-  placementCount: 1,
-  version: 1,
-  createdAt: '2025-01-01T00:00:00.000Z',
-  updatedAt: '2025-01-01T00:00:00.000Z',
-  units: null,
-  notes: '',
-  scene: {
-    walls: [],
-    zones: [
-      {
-        id: 'z1',
-        name: 'Crossing',
-        polygonM: [
-          [2, -3],
-          [8, -3],
-          [8, 3],
-          [2, 3],
-        ],
-        target: { kind: 'adult' },
-      },
-    ],
-    viewers: [{ id: 'v1', name: 'Driver', positionM: [6, 0], eyeHeightM: 1.6 }],
-  },
+const project: ProjectDto = testProject({
+  scene: TEST_AISLE_SCENE,
   placements: [placement],
-  canEdit: true,
-};
+});
 
 /** Reads the project from the cache, as the project screen does, so saves and 409s flow back in. */
 function Harness({ onClose }: { onClose?: () => void }) {

@@ -2,30 +2,14 @@ import '@testing-library/jest-dom';
 import { render, screen } from '@testing-library/react';
 import { PlacementNumbersPanel, rimSqueezeText } from '@/components/placement/numbers-panel';
 import { evaluateProject } from '@/shared/project-optics';
-import type { PlacementDto, Scene } from '@/shared/schemas';
+import type { PlacementDto } from '@/shared/schemas';
 import { formatAngle, formatArea, formatLength, formatNumber, formatRange, type UnitSystem } from '@/shared/units';
 import { formatCoveredShare } from '@/shared/zone-verdict';
-import { TEST_CATALOGUE, testPlacement } from './fixtures';
+import { TEST_AISLE_SCENE, TEST_CATALOGUE, testPlacement } from './fixtures';
 
 // An invented aisle: a viewer 6 m from a 600 mm round mirror on a 0.8 m sphere, mounted at 2.6 m.
 const catalogue = TEST_CATALOGUE;
-const scene: Scene = {
-  walls: [],
-  zones: [
-    {
-      id: 'z1',
-      name: 'Crossing',
-      polygonM: [
-        [2, -3],
-        [8, -3],
-        [8, 3],
-        [2, 3],
-      ],
-      target: { kind: 'adult' },
-    },
-  ],
-  viewers: [{ id: 'v1', name: 'Driver', positionM: [6, 0], eyeHeightM: 1.6 }],
-};
+const scene = TEST_AISLE_SCENE;
 const placement: PlacementDto = testPlacement({ projectId: 1, version: 1 });
 
 const project = evaluateProject({ scene, placements: [placement], catalogue });

@@ -2,12 +2,12 @@ import '@testing-library/jest-dom';
 import { fireEvent, screen } from '@testing-library/react';
 import { PlanDetails, type PlanDetailsProps } from '@/components/plan/plan-details';
 import { usePlacementWrites } from '@/hooks/use-placement-writes';
-import type { ProjectDto, Scene } from '@/shared/schemas';
+import type { Scene } from '@/shared/schemas';
+import { testProject } from './fixtures';
 import { renderWithQuery } from './render';
 
 jest.mock('@/hooks/api', () => ({ api: {} }));
 
-const STAMP = '2026-01-01T00:00:00.000Z';
 const ARCMIN = Math.PI / 10800;
 const scene: Scene = {
   walls: [],
@@ -38,30 +38,7 @@ const scene: Scene = {
   ],
   viewers: [],
 };
-const project = {
-  id: 7,
-  name: 'Aisle (demo)',
-  customer: '',
-  site: '',
-  kind: 'site',
-  state: 'drawing_up',
-  reviewerId: null,
-  reviewerName: null,
-  sentAt: null,
-  approval: null,
-  openCommentCount: 0,
-  ownerId: 1,
-  ownerName: 'Ines',
-  placementCount: 0,
-  version: 1,
-  createdAt: STAMP,
-  updatedAt: STAMP,
-  units: null,
-  notes: '',
-  scene,
-  placements: [],
-  canEdit: true,
-} satisfies ProjectDto;
+const project = testProject({ id: 7, name: 'Aisle (demo)', scene });
 
 /** The details with the real placement write path (the one the plan passes down). */
 function Details(props: Omit<PlanDetailsProps, 'writes'>) {

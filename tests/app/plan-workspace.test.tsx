@@ -1,15 +1,11 @@
 import '@testing-library/jest-dom';
 import { fireEvent, screen } from '@testing-library/react';
-import { ProjectWorkspace } from '@/components/plan/project-workspace';
-import { catalogueKeys, useCatalogueQuery } from '@/hooks/use-catalogue';
-import { projectKeys, useProjectQuery } from '@/hooks/use-projects';
-import { sessionKeys } from '@/hooks/use-session';
 import { evaluateProject, ProjectEvaluator } from '@/shared/project-optics';
-import type { ProjectDto, UserDto } from '@/shared/schemas';
+import type { ProjectDto } from '@/shared/schemas';
 import { formatCoveredShare } from '@/shared/zone-verdict';
 import { DEMO_PROJECT } from '../../server/seeders/demo-project';
-import { demoCatalogueDtos, demoPlacementDtos } from './fixtures';
-import { makeTestQueryClient, renderWithQuery } from './render';
+import { demoCatalogueDtos, demoPlacementDtos, testProject } from './fixtures';
+import { renderProjectScreen } from './project-screen';
 
 // A save never answers here: the tests look at what the screen shows before anything is saved.
 jest.mock('@/hooks/api', () => ({ api: { projects: { updatePlacement: jest.fn(() => new Promise(() => undefined)) } } }));
@@ -17,64 +13,22 @@ jest.mock('@/hooks/api', () => ({ api: { projects: { updatePlacement: jest.fn(()
 jest.mock('@/components/ui/page-title', () => ({ PageTitle: () => null }));
 jest.mock('@/components/ui/text-link', () => ({ TextLink: ({ label }: { label: string }) => label }));
 
-const STAMP = '2026-01-01T00:00:00.000Z';
-
 /** The seeded demo catalogue, which the seeded placements name by code. */
 const catalogue = demoCatalogueDtos();
 
 function demoProject(canEdit: boolean): ProjectDto {
-  const placements = demoPlacementDtos(7);
-  return {
+  return testProject({
     id: 7,
     name: DEMO_PROJECT.name,
     customer: DEMO_PROJECT.customer,
     site: DEMO_PROJECT.site,
-    kind: 'site',
-    state: 'drawing_up',
-    reviewerId: null,
-    reviewerName: null,
-    sentAt: null,
-    approval: null,
-    openCommentCount: 0,
-    ownerId: 1,
-    ownerName: 'Ines Installer',
-    placementCount: placements.length,
-    version: 1,
-    createdAt: STAMP,
-    updatedAt: STAMP,
-    units: null,
-    notes: '',
     scene: DEMO_PROJECT.scene,
-    placements,
+    placements: demoPlacementDtos(7),
     canEdit,
-  };
+  });
 }
 
-const user: UserDto = {
-  id: 1,
-  email: 'ines@sightfan-demo.example',
-  name: 'Ines Installer',
-  role: 'installer',
-  disabled: false,
-  units: 'metric',
-  organizationId: 1,
-  organizationName: 'Demo (demo)',
-  hasPassword: true,
-  createdAt: STAMP,
-  updatedAt: STAMP,
-};
-
-function Screen({ id }: { id: number }) {
-  return <ProjectWorkspace projectId={id} project={useProjectQuery(id)} catalogue={useCatalogueQuery()} />;
-}
-
-function renderProject(project: ProjectDto) {
-  const client = makeTestQueryClient();
-  client.setQueryData(sessionKeys.me(), user);
-  client.setQueryData(projectKeys.detail(project.id), project);
-  client.setQueryData(catalogueKeys.list(), catalogue);
-  return renderWithQuery(<Screen id={project.id} />, client);
-}
+const renderProject = (project: ProjectDto) => renderProjectScreen(project, catalogue);
 
 describe('the project plan', () => {
   it('labels each zone with the covered percentage that evaluateProject computes', () => {

@@ -6,31 +6,22 @@ import { lastChangeText, relativeTime } from '@/components/projects/relative-tim
 import { api } from '@/hooks/api';
 import { ApiError } from '@/shared/api-client';
 import type { ProjectSummaryDto } from '@/shared/schemas';
+import { testProjectSummary } from './fixtures';
 import { renderWithQuery } from './render';
 
 jest.mock('@/hooks/api', () => ({ api: { projects: { list: jest.fn() } } }));
 // Only what these components use: router.push for rows, Link for the empty state's text link.
 jest.mock('expo-router', () => ({ router: { push: jest.fn() }, Link: ({ children }: { children: React.ReactNode }) => children }));
 
-const summary: ProjectSummaryDto = {
+const summary: ProjectSummaryDto = testProjectSummary({
   id: 12,
   name: 'Dock 3 cross-aisle',
   customer: 'Invented Foods',
   site: 'Hall 2',
-  kind: 'site',
-  state: 'drawing_up',
-  reviewerId: null,
-  reviewerName: null,
-  sentAt: null,
-  approval: null,
-  openCommentCount: 0,
-  ownerId: 1,
-  ownerName: 'Ines',
   placementCount: 2,
-  version: 1,
   createdAt: '2025-01-01T00:00:00.000Z',
   updatedAt: new Date(Date.now() - 2 * 3600_000).toISOString(),
-};
+});
 
 beforeEach(() => jest.clearAllMocks());
 

@@ -8,7 +8,7 @@ import { catalogueKeys } from '@/hooks/use-catalogue';
 import { sessionKeys } from '@/hooks/use-session';
 import { DEFAULT_QUICK_QUESTION, quickScene } from '@/shared/quick';
 import type { UserDto } from '@/shared/schemas';
-import { demoCatalogueDtos } from './fixtures';
+import { demoCatalogueDtos, testUser } from './fixtures';
 import { makeTestQueryClient, renderWithQuery } from './render';
 
 jest.mock('@/hooks/api', () => ({
@@ -16,19 +16,7 @@ jest.mock('@/hooks/api', () => ({
 }));
 jest.mock('expo-router', () => ({ router: { push: jest.fn() } }));
 
-const INSTALLER: UserDto = {
-  id: 3,
-  email: 'ines@fitters-demo.example',
-  name: 'Ines Okafor',
-  role: 'installer',
-  disabled: false,
-  units: 'metric',
-  organizationId: 1,
-  organizationName: 'Fitters (demo)',
-  hasPassword: true,
-  createdAt: '2026-01-01T00:00:00.000Z',
-  updatedAt: '2026-01-01T00:00:00.000Z',
-};
+const INSTALLER: UserDto = testUser();
 const catalogue = demoCatalogueDtos();
 
 function renderQuick() {

@@ -8,6 +8,7 @@ import { sheetKeys } from '@/hooks/use-sheet';
 import { ApiError } from '@/shared/api-client';
 import { sessionKeys } from '@/hooks/use-session';
 import type { SheetEmailResponse, SheetRevisionDto, SheetStatusDto, UserDto } from '@/shared/schemas';
+import { testUser } from './fixtures';
 import { makeTestQueryClient, renderWithQuery } from './render';
 
 jest.mock('@/hooks/api', () => ({
@@ -20,20 +21,7 @@ jest.mock('@/components/sheet/save-file', () => ({ canSaveFiles: true, saveFile:
 
 const PROJECT_ID = 7;
 
-/** An invented installer at the invented domain fitters-demo.example. */
-const INSTALLER: UserDto = {
-  id: 3,
-  email: 'ines@fitters-demo.example',
-  name: 'Ines Okafor',
-  role: 'installer',
-  disabled: false,
-  units: 'metric',
-  organizationId: 1,
-  organizationName: 'Fitters (demo)',
-  hasPassword: true,
-  createdAt: '2026-01-01T00:00:00.000Z',
-  updatedAt: '2026-01-01T00:00:00.000Z',
-};
+const INSTALLER: UserDto = testUser();
 
 function revision(number: number, overrides: Partial<SheetRevisionDto> = {}): SheetRevisionDto {
   return {

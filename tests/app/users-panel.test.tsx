@@ -5,26 +5,20 @@ import { api } from '@/hooks/api';
 import { useIsWide } from '@/hooks/use-breakpoint';
 import { userKeys } from '@/hooks/use-users';
 import type { UserDto } from '@/shared/schemas';
+import { testUser } from './fixtures';
 import { makeTestQueryClient, renderWithQuery } from './render';
 
 jest.mock('@/hooks/use-breakpoint', () => ({ useIsWide: jest.fn() }));
 jest.mock('@/hooks/api', () => ({ api: { users: { list: jest.fn(), update: jest.fn(), invite: jest.fn() } } }));
 
 function person(id: number, overrides: Partial<UserDto> = {}): UserDto {
-  return {
+  return testUser({
     id,
     email: `person${id}@sightfan-demo.example`,
     name: `Person ${id}`,
-    role: 'installer',
-    disabled: false,
-    units: 'metric',
-    organizationId: 1,
     organizationName: 'Demo Yard Ltd (demo)',
-    hasPassword: true,
-    createdAt: '2026-01-01T00:00:00.000Z',
-    updatedAt: '2026-01-01T00:00:00.000Z',
     ...overrides,
-  };
+  });
 }
 
 const people = [

@@ -11,25 +11,11 @@ import { vehicleViewOf } from '@/hooks/use-vehicle-evaluation';
 import { evaluateVehicleJob } from '@/shared/project-optics';
 import { vehicle as vehicleSchema, type Vehicle } from '@/shared/schemas/vehicle';
 import { DEMO_SCHOOL_BUS } from '../../server/seeders/demo-vehicles';
-import { demoCatalogueDtos } from './fixtures';
-
-const DEG = Math.PI / 180;
+import { demoCatalogueDtos, demoVehiclePlacementDtos } from './fixtures';
 
 function busEvaluation() {
   const scene = DEMO_SCHOOL_BUS.scene;
-  const placements = DEMO_SCHOOL_BUS.placements.map((m, i) => ({
-    id: 200 + i,
-    label: m.label,
-    catalogueItemId: null,
-    customMirror: m.mirror,
-    positionM: m.positionM,
-    heightM: m.heightM,
-    azimuthRad: m.azimuthDeg * DEG,
-    tiltDownRad: m.tiltDownDeg * DEG,
-    viewerId: null,
-    mirrorClass: m.mirrorClass,
-    servesFieldIds: m.servesFieldIds,
-  }));
+  const placements = demoVehiclePlacementDtos(DEMO_SCHOOL_BUS, 0, 200);
   const ev = vehicleViewOf(scene, { ...evaluateVehicleJob({ scene, placements, catalogue: demoCatalogueDtos() }), zones: [] });
   if (!ev) throw new Error('the demo bus has a vehicle');
   return ev;

@@ -4,98 +4,38 @@
  */
 import '@testing-library/jest-dom';
 import { fireEvent, render, screen, waitFor } from '@testing-library/react';
-import { ProjectWorkspace } from '@/components/plan/project-workspace';
 import { ProjectForm } from '@/components/projects/project-form';
 import { fieldLabel } from '@/components/vehicle/vehicle-words';
 import { useIsWide } from '@/hooks/use-breakpoint';
-import { catalogueKeys, useCatalogueQuery } from '@/hooks/use-catalogue';
-import { projectKeys, useProjectQuery } from '@/hooks/use-projects';
-import { sessionKeys } from '@/hooks/use-session';
 import { CAUTION_SENTENCES, VEHICLE_FIELDS_NOTE } from '@/shared/cautions';
 import { evaluateVehicleJob, formatFieldShare } from '@/shared/project-optics';
-import type { CreateProjectBody, PlacementDto, ProjectDto, UserDto } from '@/shared/schemas';
+import type { CreateProjectBody, ProjectDto } from '@/shared/schemas';
 import { DEMO_TRUCK } from '../../server/seeders/demo-vehicles';
-import { demoCatalogueDtos } from './fixtures';
-import { makeTestQueryClient, renderWithQuery } from './render';
+import { demoCatalogueDtos, demoVehiclePlacementDtos, testProject } from './fixtures';
+import { renderProjectScreen } from './project-screen';
 
 jest.mock('@/hooks/api', () => ({ api: {} }));
 jest.mock('@/components/ui/page-title', () => ({ PageTitle: () => null }));
 jest.mock('@/components/ui/text-link', () => ({ TextLink: ({ label }: { label: string }) => label }));
 jest.mock('@/hooks/use-breakpoint', () => ({ useIsWide: jest.fn(() => true) }));
 
-const STAMP = '2026-01-01T00:00:00.000Z';
-const DEG = Math.PI / 180;
 const catalogue = demoCatalogueDtos();
 
 function demoTruck(): ProjectDto {
-  const placements: PlacementDto[] = DEMO_TRUCK.placements.map((m, i) => ({
-    id: 100 + i,
-    projectId: 9,
-    label: m.label,
-    catalogueItemId: null,
-    customMirror: m.mirror,
-    positionM: m.positionM,
-    heightM: m.heightM,
-    azimuthRad: m.azimuthDeg * DEG,
-    tiltDownRad: m.tiltDownDeg * DEG,
-    viewerId: null,
-    notes: '',
-    mirrorClass: m.mirrorClass,
-    servesFieldIds: m.servesFieldIds,
-    version: 1,
-    updatedAt: STAMP,
-  }));
-  return {
+  return testProject({
     id: 9,
     name: DEMO_TRUCK.name,
     customer: DEMO_TRUCK.customer,
     site: DEMO_TRUCK.site,
     kind: 'vehicle',
-    state: 'drawing_up',
-    reviewerId: null,
-    reviewerName: null,
-    sentAt: null,
-    approval: null,
-    openCommentCount: 0,
-    ownerId: 1,
-    ownerName: 'Ines Installer',
-    placementCount: placements.length,
-    version: 1,
-    createdAt: STAMP,
-    updatedAt: STAMP,
     units: 'metric',
     notes: DEMO_TRUCK.notes,
     scene: DEMO_TRUCK.scene,
-    placements,
-    canEdit: true,
-  };
+    placements: demoVehiclePlacementDtos(DEMO_TRUCK, 9, 100),
+  });
 }
 
-const user: UserDto = {
-  id: 1,
-  email: 'ines@sightfan-demo.example',
-  name: 'Ines Installer',
-  role: 'installer',
-  disabled: false,
-  units: 'metric',
-  organizationId: 1,
-  organizationName: 'Demo (demo)',
-  hasPassword: true,
-  createdAt: STAMP,
-  updatedAt: STAMP,
-};
-
-function Screen({ id }: { id: number }) {
-  return <ProjectWorkspace projectId={id} project={useProjectQuery(id)} catalogue={useCatalogueQuery()} />;
-}
-
-function renderJob(project: ProjectDto) {
-  const client = makeTestQueryClient();
-  client.setQueryData(sessionKeys.me(), user);
-  client.setQueryData(projectKeys.detail(project.id), project);
-  client.setQueryData(catalogueKeys.list(), catalogue);
-  return renderWithQuery(<Screen id={project.id} />, client);
-}
+const renderJob = (project: ProjectDto) => renderProjectScreen(project, catalogue);
 
 beforeEach(() => jest.mocked(useIsWide).mockReturnValue(true));
 

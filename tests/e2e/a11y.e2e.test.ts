@@ -6,17 +6,10 @@
  */
 import fs from 'node:fs';
 import type { Page } from 'playwright-core';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seeders/demo';
 import { DEMO_PROJECT } from '../../server/seeders/demo-project';
-import { PHONE, WIDE, byTestId, shot, signIn, startProduct, type Product } from './browser';
+import { PHONE, WIDE, byTestId, shot, productForFile, signInAs } from './browser';
 
-let product: Product;
-beforeAll(async () => {
-  product = await startProduct();
-});
-afterAll(async () => {
-  await product?.close();
-});
+const product = productForFile();
 
 const AXE_SOURCE = fs.readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
 /** WCAG 2.0 and 2.1, levels A and AA: the rule tags axe-core documents for that conformance target. */
@@ -59,8 +52,6 @@ async function openChecked(size: { width: number; height: number }): Promise<Pag
   const context = await product.browser.newContext({ viewport: size, deviceScaleFactor: 1, bypassCSP: true });
   return context.newPage();
 }
-
-const roleUser = (role: 'installer' | 'reviewer' | 'admin') => DEMO_USERS.find((u) => u.role === role)!;
 
 async function openProject(page: Page, name: string): Promise<void> {
   await page.goto(`${product.server.url}/projects`);
@@ -183,7 +174,7 @@ describe.each([
     if (known) return known;
     const page = await openChecked(size);
     if (role) {
-      await signIn(page, product.server.url, roleUser(role).email, DEMO_PASSWORD);
+      await signInAs(page, product, role);
       await byTestId(page, 'nav-account').first().waitFor({ state: 'visible' });
     }
     pages.set(key, page);

@@ -3,27 +3,18 @@
  * it, its attachment line stays within the screen, the attachment opens (downloads) the PDF, and
  * the scroll area is reachable from the keyboard.
  */
-import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seeders/demo';
-import { PHONE, byTestId, openPage, shot, signIn, startProduct, type Product } from './browser';
+import { PHONE, byTestId, openPage, shot, productForFile, signInAs } from './browser';
 
-let product: Product;
-beforeAll(async () => {
-  product = await startProduct();
-});
-afterAll(async () => {
-  await product?.close();
-});
+const product = productForFile();
 
 /** The page's document, typed without the DOM library (the e2e tests compile with the server's tsconfig). */
 type PageDoc = { document: { documentElement: { scrollWidth: number }; activeElement: unknown } };
-
-const user = (role: string) => DEMO_USERS.find((u) => u.role === role)!;
 
 describe('a sheet e-mail in the outbox on a phone', () => {
   it('is described, fits the screen, opens its PDF and can be scrolled from the keyboard', async () => {
     // The installer e-mails the demo project's sheet (through the API, as the app's form does).
     const { page: installer } = await openPage(product, PHONE);
-    await signIn(installer, product.server.url, user('installer').email, DEMO_PASSWORD);
+    await signInAs(installer, product, 'installer');
     await byTestId(installer, 'nav-projects').first().waitFor({ state: 'visible' });
     const sent = await installer.evaluate(async () => {
       const list = (await (await fetch('/api/projects', { credentials: 'include' })).json()) as { projects: { id: number }[] };
@@ -39,7 +30,7 @@ describe('a sheet e-mail in the outbox on a phone', () => {
     await installer.context().close();
 
     const { page } = await openPage(product, PHONE);
-    await signIn(page, product.server.url, user('admin').email, DEMO_PASSWORD);
+    await signInAs(page, product, 'admin');
     await byTestId(page, 'nav-outbox').first().click();
     await page
       .getByText(/specification sheets sent to buyers/)

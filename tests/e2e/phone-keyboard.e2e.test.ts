@@ -6,19 +6,10 @@
  * section the role may not visit) leave no failed request behind.
  */
 import type { Locator, Page } from 'playwright-core';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seeders/demo';
 import { DEMO_PROJECT } from '../../server/seeders/demo-project';
-import { PHONE, WIDE, byTestId, openPage, shot, signIn, startProduct, type Product } from './browser';
+import { PHONE, WIDE, byTestId, openPage, shot, productForFile, signInAs } from './browser';
 
-let product: Product;
-beforeAll(async () => {
-  product = await startProduct();
-});
-afterAll(async () => {
-  await product?.close();
-});
-
-const user = (role: string) => DEMO_USERS.find((u) => u.role === role)!;
+const product = productForFile();
 
 /** The page's document, typed without the DOM library (the e2e tests compile with the server's tsconfig). */
 interface DomEl {
@@ -102,7 +93,7 @@ describe('the plan on a phone', () => {
       if (m.type() === 'error') errors.push(m.text());
     });
     page.on('pageerror', (e) => errors.push(e.message));
-    await signIn(page, product.server.url, user('installer').email, DEMO_PASSWORD);
+    await signInAs(page, product, 'installer');
     await openDemoProject(page);
   });
   afterAll(async () => {
@@ -169,7 +160,7 @@ describe('the plan and the list from a keyboard on a wide screen', () => {
   let projectId = 0;
   beforeAll(async () => {
     ({ page, errors } = await openPage(product, WIDE));
-    await signIn(page, product.server.url, user('installer').email, DEMO_PASSWORD);
+    await signInAs(page, product, 'installer');
     await byTestId(page, 'nav-projects').first().waitFor({ state: 'visible' });
   });
   afterAll(async () => {
@@ -259,7 +250,7 @@ describe('expected answers', () => {
     await page.goto(product.server.url);
     await page.waitForURL(/\/sign-in/);
     await byTestId(page, 'illustration-caution').waitFor({ state: 'visible' });
-    await signIn(page, product.server.url, user('reviewer').email, DEMO_PASSWORD);
+    await signInAs(page, product, 'reviewer');
     await byTestId(page, 'nav-reviews').first().waitFor({ state: 'visible' });
     for (const admin of ['/users', '/outbox']) {
       await page.goto(`${product.server.url}${admin}`);

@@ -3,23 +3,15 @@
  * may be lost without the person being told and shown both versions.
  */
 import type { Page } from 'playwright-core';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seeders/demo';
 import type { PlacementDto, ProjectDto } from '../../shared/schemas';
-import { WIDE, byTestId, openPage, shot, signIn, startProduct, type Product } from './browser';
+import { WIDE, byTestId, openPage, shot, productForFile, signInAs } from './browser';
 
-let product: Product;
-beforeAll(async () => {
-  product = await startProduct();
-});
-afterAll(async () => {
-  await product?.close();
-});
+const product = productForFile();
 
-const installer = DEMO_USERS.find((u) => u.role === 'installer')!;
 const DEG = Math.PI / 180;
 
 async function openDemoMirror(page: Page): Promise<{ projectId: number; placementId: number }> {
-  await signIn(page, product.server.url, installer.email, DEMO_PASSWORD);
+  await signInAs(page, product, 'installer');
   await page.getByText('Cold store aisles and dock (demo)').first().click();
   await page.waitForURL(/\/projects\/\d+$/);
   const projectId = Number(new URL(page.url()).pathname.split('/').pop());

@@ -4,18 +4,10 @@
  * mirrors for it and undoes the choice, and undoes a height typed in the mirror editor.
  */
 import type { Page } from 'playwright-core';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seeders/demo';
-import { PHONE, byTestId, openPage, shot, signIn, startProduct, type Product } from './browser';
+import { PHONE, byTestId, openPage, shot, productForFile, signInAs, planGrid } from './browser';
 
-let product: Product;
-beforeAll(async () => {
-  product = await startProduct();
-});
-afterAll(async () => {
-  await product?.close();
-});
+const product = productForFile();
 
-const installer = DEMO_USERS.find((u) => u.role === 'installer')!;
 type PageDoc = { document: { querySelector(sel: string): { innerHTML: string } | null } };
 type SavedProject = {
   project: {
@@ -32,34 +24,6 @@ type SavedProject = {
     }[];
   };
 };
-
-/** Plan metres to page pixels with the transform the canvas publishes; taps wait for the drawing to change. */
-async function planGrid(page: Page) {
-  const svg = byTestId(page, 'plan-canvas');
-  await page.waitForSelector('[data-testid="plan-canvas"][data-transform]', { state: 'attached' });
-  const [scale, offX, offY] = (await svg.getAttribute('data-transform'))!.split(' ').map(Number);
-  const box = (await svg.boundingBox())!;
-  const unitPx = Math.min(box.width / 14, box.height / 16);
-  const cx = (box.width / 2 - offX) / scale;
-  const cy = (offY - box.height * 0.45) / scale;
-  const unitM = Math.round((unitPx / scale) * 10) / 10;
-  const at = (x: number, y: number): [number, number] => [cx + x * unitM, cy + y * unitM];
-  const px = ([xM, yM]: [number, number]): [number, number] => [box.x + offX + xM * scale, box.y + offY - yM * scale];
-  const drawing = () =>
-    page.evaluate(() => (globalThis as unknown as PageDoc).document.querySelector('svg[data-testid="plan-canvas"]')?.innerHTML ?? '');
-  const tap = async (pointM: [number, number]) => {
-    const before = await drawing();
-    await page.mouse.click(...px(pointM));
-    await page.waitForFunction(
-      (b) => (globalThis as unknown as PageDoc).document.querySelector('svg[data-testid="plan-canvas"]')?.innerHTML !== b,
-      before,
-      {
-        timeout: 10_000,
-      },
-    );
-  };
-  return { at, tap, px };
-}
 
 const sharePct = async (page: Page, zoneId: string) =>
   Number(((await byTestId(page, `zone-pct-${zoneId}`).first().textContent()) ?? '').replace(/[^\d.]/g, ''));
@@ -84,7 +48,7 @@ describe('an installer on a phone edits what they drew and undoes a delete', () 
   });
 
   it('draws a zone on a new project', async () => {
-    await signIn(page, product.server.url, installer.email, DEMO_PASSWORD);
+    await signInAs(page, product, 'installer');
     await byTestId(page, 'projects-new').click();
     await byTestId(page, 'project-form-name').fill('Dock edits (demo)');
     await byTestId(page, 'project-form-submit').click();

@@ -1,50 +1,9 @@
 import type { Page } from 'playwright-core';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seeders/demo';
-import { PHONE, WIDE, byTestId, openPage, shot, signIn, startProduct, type Product } from './browser';
+import { PHONE, WIDE, byTestId, openPage, shot, productForFile, signInAs, planGrid } from './browser';
 
-let product: Product;
-beforeAll(async () => {
-  product = await startProduct();
-});
-afterAll(async () => {
-  await product?.close();
-});
-
-const installer = DEMO_USERS.find((u) => u.role === 'installer')!;
-const reviewer = DEMO_USERS.find((u) => u.role === 'reviewer')!;
+const product = productForFile();
 
 type PageDoc = { document: { querySelector(sel: string): { getAttribute(name: string): string | null; innerHTML: string } | null } };
-
-/**
- * A drawing grid laid over the middle of whatever the plan shows: `at(x, y)` turns grid units
- * around the centre into plan metres, and `tap` clicks there using the transform the canvas
- * publishes (scale, offsets), then waits until the drawing has changed (a corner, a wall, a
- * marker appeared). The grid keeps clear of the toolbars that float over the plan's edges,
- * whatever the screen size.
- */
-async function planGrid(page: Page) {
-  const svg = byTestId(page, 'plan-canvas');
-  await page.waitForSelector('[data-testid="plan-canvas"][data-transform]', { state: 'attached' });
-  const [scale, offX, offY] = (await svg.getAttribute('data-transform'))!.split(' ').map(Number);
-  const box = (await svg.boundingBox())!;
-  const unitPx = Math.min(box.width / 14, box.height / 16);
-  const cx = (box.width / 2 - offX) / scale;
-  const cy = (offY - box.height * 0.45) / scale;
-  const unitM = Math.round((unitPx / scale) * 10) / 10;
-  const at = (x: number, y: number): [number, number] => [cx + x * unitM, cy + y * unitM];
-  const drawing = () =>
-    page.evaluate(() => (globalThis as unknown as PageDoc).document.querySelector('svg[data-testid="plan-canvas"]')?.innerHTML ?? '');
-  const tap = async ([xM, yM]: [number, number]) => {
-    const before = await drawing();
-    await page.mouse.click(box.x + offX + xM * scale, box.y + offY - yM * scale);
-    await page.waitForFunction(
-      (b) => (globalThis as unknown as PageDoc).document.querySelector('svg[data-testid="plan-canvas"]')?.innerHTML !== b,
-      before,
-      { timeout: 10_000 },
-    );
-  };
-  return { at, tap, unitM };
-}
 
 async function attr(page: Page, testId: string, name: string): Promise<string> {
   return (await byTestId(page, testId).first().getAttribute(name)) ?? '';
@@ -90,7 +49,7 @@ describe.each([
   });
 
   it('creates a project and lands on its empty plan', async () => {
-    await signIn(page, product.server.url, installer.email, DEMO_PASSWORD);
+    await signInAs(page, product, 'installer');
     await byTestId(page, 'projects-new').click();
     await byTestId(page, 'project-form-name').fill(`Aisle crossing ${sizeName}`);
     await byTestId(page, 'project-form-customer').fill('Northgate Foods (demo)');
@@ -210,7 +169,7 @@ describe.each([
 describe('a safety officer on a wide screen', () => {
   it('reads the demo project with its zone percentages but cannot change it', async () => {
     const { page } = await openPage(product, WIDE);
-    await signIn(page, product.server.url, reviewer.email, DEMO_PASSWORD);
+    await signInAs(page, product, 'reviewer');
     await byTestId(page, 'nav-projects').first().click();
     await page.getByText('Cold store aisles and dock (demo)').first().click();
     await page.waitForURL(/\/projects\/\d+$/);

@@ -4,18 +4,9 @@
  * then saves the answer as a job and finds it on the server with the mirror placed.
  */
 import type { Locator, Page } from 'playwright-core';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seeders/demo';
-import { PHONE, WIDE, byTestId, openPage, shot, signIn, startProduct, type Product } from './browser';
+import { PHONE, WIDE, byTestId, openPage, shot, productForFile, signInAs } from './browser';
 
-let product: Product;
-beforeAll(async () => {
-  product = await startProduct();
-});
-afterAll(async () => {
-  await product?.close();
-});
-
-const installer = DEMO_USERS.find((u) => u.role === 'installer')!;
+const product = productForFile();
 
 /** Every tap and key press the person makes, counted as the test makes them. */
 class Thumb {
@@ -46,7 +37,7 @@ describe('quick sizing on a phone', () => {
   beforeAll(async () => {
     ({ page, errors } = await openPage(product, PHONE));
     t = thumb(page);
-    await signIn(page, product.server.url, installer.email, DEMO_PASSWORD);
+    await signInAs(page, product, 'installer');
     await page.waitForURL(/\/projects$/);
   });
   afterAll(async () => {
@@ -103,7 +94,7 @@ describe('quick sizing on a phone', () => {
 
   it('lays the same screen out on a wide screen', async () => {
     const wide = await openPage(product, WIDE);
-    await signIn(wide.page, product.server.url, installer.email, DEMO_PASSWORD);
+    await signInAs(wide.page, product, 'installer');
     await wide.page.waitForURL(/\/projects$/);
     await byTestId(wide.page, 'nav-quick').click();
     await byTestId(wide.page, 'quick-option-1').click({ timeout: 30_000 });

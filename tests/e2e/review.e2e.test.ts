@@ -9,22 +9,14 @@ import { execFileSync } from 'node:child_process';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import sqlite3 from 'sqlite3';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seeders/demo';
 import { DEMO_PROJECT } from '../../server/seeders/demo-project';
 import { DEMO_REVIEW_JOB } from '../../server/seeders/demo-review-job';
 import type { ProjectDto } from '../../shared/schemas';
-import { PHONE, WIDE, byTestId, openPage, shot, signIn, startProduct, type Product } from './browser';
+import { PHONE, WIDE, byTestId, openPage, shot, productForFile, signInAs, demoUser } from './browser';
 
-let product: Product;
-beforeAll(async () => {
-  product = await startProduct();
-});
-afterAll(async () => {
-  await product?.close();
-});
+const product = productForFile();
 
-const installer = DEMO_USERS.find((u) => u.role === 'installer')!;
-const reviewer = DEMO_USERS.find((u) => u.role === 'reviewer')!;
+const reviewer = demoUser('reviewer');
 /** An invented buyer outside the demo organisation. */
 const BUYER = 'buyer.desk@purchasing-demo.example';
 
@@ -78,8 +70,8 @@ describe('two people close the review loop', () => {
   beforeAll(async () => {
     ({ page: phone, errors: phoneErrors } = await openPage(product, PHONE));
     ({ page: wide, errors: wideErrors } = await openPage(product, WIDE));
-    await signIn(phone, product.server.url, installer.email, DEMO_PASSWORD);
-    await signIn(wide, product.server.url, reviewer.email, DEMO_PASSWORD);
+    await signInAs(phone, product, 'installer');
+    await signInAs(wide, product, 'reviewer');
   });
 
   it('shows the installer each job’s state in the project list', async () => {
@@ -231,9 +223,10 @@ describe('two people close the review loop', () => {
     await row.click();
     await byTestId(phone, 'placement-height').fill('3.35 m');
     await byTestId(phone, 'placement-height').press('Tab');
-    await byTestId(phone, 'placement-save').click();
-    await byTestId(phone, 'placement-save-status').filter({ hasText: 'All changes saved.' }).waitFor();
+    // The editor saves by itself 900 ms after the last change (AUTOSAVE_MS); on a loaded machine that
+    // can come before a click on "Save now", which is then disabled, so the test waits on the effect.
     await stateIs(phone, 'Being drawn up');
+    await byTestId(phone, 'placement-save-status').filter({ hasText: 'All changes saved.' }).waitFor();
     await shot(phone, 'review-phone-withdrawn');
 
     const issued = await phone.request.post(`${product.server.url}/api/projects/${projectId}/sheet/revisions`);

@@ -1,13 +1,7 @@
 import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seeders/demo';
-import { PHONE, WIDE, byTestId, openPage, shot, signIn, startProduct, type Product } from './browser';
+import { PHONE, WIDE, byTestId, openPage, shot, signIn, productForFile, signInAs, demoUser } from './browser';
 
-let product: Product;
-beforeAll(async () => {
-  product = await startProduct();
-});
-afterAll(async () => {
-  await product?.close();
-});
+const product = productForFile();
 
 const NAV: Record<string, { shown: string[]; hidden: string[] }> = {
   installer: { shown: ['nav-projects', 'nav-quick', 'nav-catalogue', 'nav-account'], hidden: ['nav-users', 'nav-outbox', 'nav-reviews'] },
@@ -72,8 +66,7 @@ describe.each(sizes)('the app shell on a %s screen', (sizeName, size) => {
 describe('the admin on a wide screen', () => {
   it('invites a new installer, who sets a password from the e-mailed link and lands signed in', async () => {
     const { page } = await openPage(product, WIDE);
-    const admin = DEMO_USERS.find((u) => u.role === 'admin')!;
-    await signIn(page, product.server.url, admin.email, DEMO_PASSWORD);
+    await signInAs(page, product, 'admin');
     await byTestId(page, 'nav-users').first().click();
     await byTestId(page, 'invite-email').fill('pia.newhire@sightfan-demo.example');
     await byTestId(page, 'invite-name').fill('Pia Newhire');
@@ -103,7 +96,7 @@ describe('the admin on a wide screen', () => {
 
 describe('a forgotten password on a phone', () => {
   it('mails a reset link from the sign-in page, sets a new password through it, and changes it back on the account page', async () => {
-    const reviewer = DEMO_USERS.find((u) => u.role === 'reviewer')!;
+    const reviewer = demoUser('reviewer');
     const { page } = await openPage(product, PHONE);
     await page.goto(`${product.server.url}/sign-in`);
     await byTestId(page, 'sign-in-forgot').click();
@@ -116,7 +109,7 @@ describe('a forgotten password on a phone', () => {
 
     // The demo admin reads the reset e-mail in the outbox (demo mode).
     const { page: admin } = await openPage(product, WIDE);
-    await signIn(admin, product.server.url, DEMO_USERS.find((u) => u.role === 'admin')!.email, DEMO_PASSWORD);
+    await signInAs(admin, product, 'admin');
     await byTestId(admin, 'nav-outbox').first().click();
     await admin.getByText('Choose a new Sightfan password').first().waitFor({ state: 'visible' });
     const text =

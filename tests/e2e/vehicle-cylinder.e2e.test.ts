@@ -4,39 +4,10 @@
  * cross-view mirror back along the fender until the cylinder is seen.
  */
 import type { Page } from 'playwright-core';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seeders/demo';
 import { DEMO_SCHOOL_BUS } from '../../server/seeders/demo-vehicles';
-import { PHONE, WIDE, byTestId, openPage, shot, signIn, startProduct, type Product } from './browser';
+import { PHONE, WIDE, byTestId, openPage, shot, productForFile, signInAs, openProjectNamed, waitForText, vehicleScreen } from './browser';
 
-let product: Product;
-beforeAll(async () => {
-  product = await startProduct();
-});
-afterAll(async () => {
-  await product?.close();
-});
-
-const installer = DEMO_USERS.find((u) => u.role === 'installer')!;
-
-type PageDoc = { document: { querySelector(sel: string): { textContent: string | null } | null } };
-
-/** Screen points for vehicle plan points (front up: display (dx, dy) = (−y, x), footgun 42). */
-async function vehicleScreen(page: Page) {
-  const svg = byTestId(page, 'vehicle-canvas');
-  await page.waitForSelector('[data-testid="vehicle-canvas"][data-transform]', { state: 'attached' });
-  const [scale, offX, offY] = (await svg.getAttribute('data-transform'))!.split(' ').map(Number);
-  const box = (await svg.boundingBox())!;
-  return ([x, y]: [number, number]): [number, number] => [box.x + offX - y * scale, box.y + offY - x * scale];
-}
-
-async function waitForText(page: Page, testId: string, re: RegExp): Promise<void> {
-  await page.waitForFunction(
-    ([id, source]) =>
-      new RegExp(source).test((globalThis as unknown as PageDoc).document.querySelector(`[data-testid="${id}"]`)?.textContent ?? ''),
-    [testId, re.source] as const,
-    { timeout: 20_000 },
-  );
-}
+const product = productForFile();
 
 /*
  * Plan points (metres, x forward of the bumper, y left) on the demo bus, found with the engine
@@ -61,12 +32,8 @@ describe('an installer on a phone checks a test cylinder on the demo school bus'
   });
 
   it('opens the demo school bus and adds a test cylinder from the details', async () => {
-    await signIn(page, product.server.url, installer.email, DEMO_PASSWORD);
-    await page.waitForURL(/\/projects/);
-    const list = await page.request.get(`${product.server.url}/api/projects`);
-    const { projects } = (await list.json()) as { projects: { id: number; name: string }[] };
-    projectId = projects.find((p) => p.name === DEMO_SCHOOL_BUS.name)!.id;
-    await page.goto(`${product.server.url}/projects/${projectId}`);
+    await signInAs(page, product, 'installer');
+    projectId = await openProjectNamed(page, product, DEMO_SCHOOL_BUS.name);
     await byTestId(page, 'vehicle-canvas').waitFor({ state: 'visible' });
     await byTestId(page, 'vehicle-drawer-toggle').click();
     await byTestId(page, 'vehicle-cylinder-add').scrollIntoViewIfNeeded();
@@ -115,7 +82,7 @@ describe('an installer on a phone checks a test cylinder on the demo school bus'
 
   it('shows the bus with its cylinders and parts side by side on a wide screen', async () => {
     const wide = await openPage(product, WIDE);
-    await signIn(wide.page, product.server.url, installer.email, DEMO_PASSWORD);
+    await signInAs(wide.page, product, 'installer');
     await wide.page.waitForURL(/\/projects/);
     await wide.page.goto(`${product.server.url}/projects/${projectId}`);
     await byTestId(wide.page, 'vehicle-cylinder-mark-cyl-1').waitFor({ state: 'attached' });

@@ -7,46 +7,9 @@ import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seeders/demo';
-import { ARTIFACTS, PHONE, WIDE, byTestId, openPage, shot, signIn, startProduct, type Product } from './browser';
+import { ARTIFACTS, PHONE, WIDE, byTestId, openPage, shot, productForFile, signInAs, textOf, waitForText, vehicleScreen } from './browser';
 
-let product: Product;
-beforeAll(async () => {
-  product = await startProduct();
-});
-afterAll(async () => {
-  await product?.close();
-});
-
-const installer = DEMO_USERS.find((u) => u.role === 'installer')!;
-
-type PageDoc = { document: { querySelector(sel: string): { textContent: string | null } | null } };
-
-/**
- * Screen points for vehicle plan points, from the transform the canvas publishes. The top view
- * shows the vehicle front up: display (dx, dy) = (−y, x) (components/vehicle/vehicle-frame.ts).
- */
-async function vehicleScreen(page: Page) {
-  const svg = byTestId(page, 'vehicle-canvas');
-  await page.waitForSelector('[data-testid="vehicle-canvas"][data-transform]', { state: 'attached' });
-  const [scale, offX, offY] = (await svg.getAttribute('data-transform'))!.split(' ').map(Number);
-  const box = (await svg.boundingBox())!;
-  return ([x, y]: [number, number]): [number, number] => [box.x + offX - y * scale, box.y + offY - x * scale];
-}
-
-async function textOf(page: Page, testId: string): Promise<string> {
-  return (await byTestId(page, testId).first().textContent()) ?? '';
-}
-
-/** Waits until an element's text matches (a function, not a string: the app's CSP forbids eval). */
-async function waitForText(page: Page, testId: string, re: RegExp): Promise<void> {
-  await page.waitForFunction(
-    ([id, source]) =>
-      new RegExp(source).test((globalThis as unknown as PageDoc).document.querySelector(`[data-testid="${id}"]`)?.textContent ?? ''),
-    [testId, re.source] as const,
-    { timeout: 20_000 },
-  );
-}
+const product = productForFile();
 
 /*
  * The two mirror positions (vehicle plan metres, x forward of the bumper, y left) on the rigid
@@ -72,7 +35,7 @@ describe('an installer on a phone fits a truck with a close-proximity mirror', (
   });
 
   it('creates a rigid truck job from its preset and lands on the top view with its fields', async () => {
-    await signIn(page, product.server.url, installer.email, DEMO_PASSWORD);
+    await signInAs(page, product, 'installer');
     await byTestId(page, 'projects-new').click();
     await byTestId(page, 'project-form-kind-vehicle').click();
     await byTestId(page, 'project-form-name').fill('Delivery truck 14 (demo)');
@@ -165,7 +128,7 @@ describe('an installer on a phone fits a truck with a close-proximity mirror', (
 
   it('shows the same job side by side on a wide screen', async () => {
     const wide = await openPage(product, WIDE);
-    await signIn(wide.page, product.server.url, installer.email, DEMO_PASSWORD);
+    await signInAs(wide.page, product, 'installer');
     await wide.page.waitForURL(/\/projects/);
     await wide.page.goto(`${product.server.url}/projects/${projectId}`);
     await byTestId(wide.page, 'vehicle-canvas').waitFor({ state: 'visible' });

@@ -2,7 +2,7 @@
  * A project's detect and recognise angles through the API: stored in the scene, validated with a
  * sentence per field, and absent (the defaults) for a project that never set them.
  */
-import { EMAIL, startHarness, type Harness } from './harness';
+import { CROSSING_SCENE, CROSSING_ZONE, EMAIL, startHarness, type Harness } from './harness';
 
 let h: Harness;
 beforeAll(async () => {
@@ -13,24 +13,8 @@ afterAll(async () => {
 });
 
 const ARCMIN = Math.PI / 10800;
-const scene = {
-  walls: [],
-  zones: [
-    {
-      id: 'z1',
-      name: 'Crossing',
-      polygonM: [
-        [0, 1],
-        [5, 1],
-        [5, 4],
-        [0, 4],
-      ],
-      target: { kind: 'adult' },
-      criterion: 'detect',
-    },
-  ],
-  viewers: [{ id: 'v1', name: 'Driver', positionM: [2, 8], eyeHeightM: 2.1 }],
-};
+/** The crossing with no walls, its zone judged by the detect angle. */
+const scene = { ...CROSSING_SCENE, walls: [], zones: [{ ...CROSSING_ZONE, criterion: 'detect' }] };
 
 describe('a project’s criteria through the API', () => {
   it('keeps the angles and each zone’s criterion it was given, and leaves them out when never set', async () => {

@@ -43,6 +43,39 @@ export const catalogueItemBody = (code: string, name = `Test round ${code}`) => 
   currency: 'EUR',
 });
 
+/**
+ * An invented aisle crossing: racking along the x axis, a 5 × 3 m crossing for adults in front of
+ * it, and a forklift driver 8 m out. The scene the project, review and criteria tests send.
+ */
+export const CROSSING_ZONE = {
+  id: 'z1',
+  name: 'Crossing',
+  polygonM: [
+    [0, 1],
+    [5, 1],
+    [5, 4],
+    [0, 4],
+  ],
+  target: { kind: 'adult' },
+};
+export const CROSSING_SCENE = {
+  walls: [{ id: 'w1', kind: 'racking', aM: [0, 0], bM: [10, 0], heightM: 6 }],
+  zones: [CROSSING_ZONE],
+  viewers: [{ id: 'v1', name: 'Driver', positionM: [2, 8], eyeHeightM: 2.1 }],
+};
+/** A new project over the crossing, for an invented customer. */
+export const crossingProject = (name: string) => ({ name, customer: 'Northgate Foods (demo)', site: 'Unit 4', scene: CROSSING_SCENE });
+/** The crossing's mirror "M1": on the racking face, 3 m up, aimed along +y at the crossing, for the driver. */
+export const crossingMirror = (catalogueItemId: number) => ({
+  label: 'M1',
+  catalogueItemId,
+  positionM: [2.5, 0.4],
+  heightM: 3,
+  azimuthRad: Math.PI / 2,
+  tiltDownRad: 0.3,
+  viewerId: 'v1',
+});
+
 export interface Harness {
   app: Express;
   /** The app's outbox worker (delivers queued e-mail through the fake SMTP server). */

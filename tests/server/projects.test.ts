@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { evaluateProject } from '../../shared/project-optics';
-import { catalogueItemBody, EMAIL, startHarness, type Harness } from './harness';
+import { catalogueItemBody, crossingMirror, crossingProject, EMAIL, startHarness, type Harness } from './harness';
 
 let h: Harness;
 const OTHER_INSTALLER = 'otto.other@sightfan-demo.example';
@@ -25,37 +25,7 @@ async function as(who: Who) {
   return who === 'anonymous' ? request.agent(h.app) : h.signedIn(emailOf[who]);
 }
 
-const newProject = (name = 'Aisle 7 crossing') => ({
-  name,
-  customer: 'Northgate Foods (demo)',
-  site: 'Unit 4',
-  scene: {
-    walls: [{ id: 'w1', kind: 'racking', aM: [0, 0], bM: [10, 0], heightM: 6 }],
-    zones: [
-      {
-        id: 'z1',
-        name: 'Crossing',
-        polygonM: [
-          [0, 1],
-          [5, 1],
-          [5, 4],
-          [0, 4],
-        ],
-        target: { kind: 'adult' },
-      },
-    ],
-    viewers: [{ id: 'v1', name: 'Driver', positionM: [2, 8], eyeHeightM: 2.1 }],
-  },
-});
-const newPlacement = (catalogueItemId: number) => ({
-  label: 'M1',
-  catalogueItemId,
-  positionM: [2.5, 0.4],
-  heightM: 3,
-  azimuthRad: Math.PI / 2,
-  tiltDownRad: 0.3,
-  viewerId: 'v1',
-});
+const newProject = (name = 'Aisle 7 crossing') => crossingProject(name);
 
 async function firstCatalogueId(): Promise<number> {
   const res = await (await as('installerA')).get('/api/catalogue');
@@ -77,7 +47,7 @@ describe('projects: create, read, change, delete', () => {
     expect(changed.status).toBe(200);
     expect(changed.body.project).toMatchObject({ name: 'Aisle 7 crossing, east', version: 2 });
 
-    const placement = await a.post(`/api/projects/${p.id}/placements`).send(newPlacement(await firstCatalogueId()));
+    const placement = await a.post(`/api/projects/${p.id}/placements`).send(crossingMirror(await firstCatalogueId()));
     expect(placement.status).toBe(201);
     expect(placement.body.placement).toMatchObject({ label: 'M1', positionM: [2.5, 0.4], heightM: 3, version: 1 });
     const moved = await a.patch(`/api/projects/${p.id}/placements/${placement.body.placement.id}`).send({ version: 1, heightM: 3.5 });
@@ -113,7 +83,7 @@ describe('who may do what with a project', () => {
   beforeAll(async () => {
     const a = await as('installerA');
     projectId = (await a.post('/api/projects').send(newProject('Matrix project'))).body.project.id;
-    placementId = (await a.post(`/api/projects/${projectId}/placements`).send(newPlacement(await firstCatalogueId()))).body.placement.id;
+    placementId = (await a.post(`/api/projects/${projectId}/placements`).send(crossingMirror(await firstCatalogueId()))).body.placement.id;
   });
 
   const current = async (path: string) => (await (await as('installerA')).get(path)).body;
@@ -159,7 +129,7 @@ describe('who may do what with a project', () => {
         res = await agent.patch(base).send({ version: (await current(base)).project.version, notes: `by ${who}` });
         break;
       case 'POST placement':
-        res = await agent.post(`${base}/placements`).send(newPlacement(await firstCatalogueId()));
+        res = await agent.post(`${base}/placements`).send(crossingMirror(await firstCatalogueId()));
         break;
       case 'PATCH placement': {
         const p = (await current(base)).project.placements.find((x: { id: number }) => x.id === placementId);
@@ -206,7 +176,7 @@ describe('stale versions and bad bodies', () => {
   it('answers 409 with the current placement for a stale placement edit', async () => {
     const a = await as('installerA');
     const p = (await a.post('/api/projects').send(newProject('Stale placement'))).body.project;
-    const pl = (await a.post(`/api/projects/${p.id}/placements`).send(newPlacement(await firstCatalogueId()))).body.placement;
+    const pl = (await a.post(`/api/projects/${p.id}/placements`).send(crossingMirror(await firstCatalogueId()))).body.placement;
     await a.patch(`/api/projects/${p.id}/placements/${pl.id}`).send({ version: 1, heightM: 4 });
     const stale = await a.patch(`/api/projects/${p.id}/placements/${pl.id}`).send({ version: 1, heightM: 2.5 });
     expect(stale.status).toBe(409);
@@ -216,7 +186,7 @@ describe('stale versions and bad bodies', () => {
   it("counts every mirror write on the project's version and answers with it, so the plan saves with the version it was given", async () => {
     const a = await as('installerA');
     const p = (await a.post('/api/projects').send(newProject('Mirror edits beside plan edits'))).body.project;
-    const added = await a.post(`/api/projects/${p.id}/placements`).send(newPlacement(await firstCatalogueId()));
+    const added = await a.post(`/api/projects/${p.id}/placements`).send(crossingMirror(await firstCatalogueId()));
     expect(added.body.projectVersion).toBe(p.version + 1);
     const pl = added.body.placement;
     const changed = await a.patch(`/api/projects/${p.id}/placements/${pl.id}`).send({ version: pl.version, heightM: 3.4 });
@@ -236,8 +206,8 @@ describe('stale versions and bad bodies', () => {
     const a = await as('installerA');
     const p = (await a.post('/api/projects').send(newProject('Two mirrors at once'))).body.project;
     const catalogueId = await firstCatalogueId();
-    const one = (await a.post(`/api/projects/${p.id}/placements`).send(newPlacement(catalogueId))).body.placement;
-    const two = (await a.post(`/api/projects/${p.id}/placements`).send({ ...newPlacement(catalogueId), label: 'M2', positionM: [4, 4] }))
+    const one = (await a.post(`/api/projects/${p.id}/placements`).send(crossingMirror(catalogueId))).body.placement;
+    const two = (await a.post(`/api/projects/${p.id}/placements`).send({ ...crossingMirror(catalogueId), label: 'M2', positionM: [4, 4] }))
       .body.placement;
     const [r1, r2] = await Promise.all([
       a.patch(`/api/projects/${p.id}/placements/${one.id}`).send({ version: one.version, heightM: 3.1 }),
@@ -250,7 +220,7 @@ describe('stale versions and bad bodies', () => {
   it('lets only one of two simultaneous edits of the same version through, and tells the other what was saved', async () => {
     const a = await as('installerA');
     const p = (await a.post('/api/projects').send(newProject('Simultaneous edits'))).body.project;
-    const pl = (await a.post(`/api/projects/${p.id}/placements`).send(newPlacement(await firstCatalogueId()))).body.placement;
+    const pl = (await a.post(`/api/projects/${p.id}/placements`).send(crossingMirror(await firstCatalogueId()))).body.placement;
     const [one, two] = await Promise.all([
       a.patch(`/api/projects/${p.id}/placements/${pl.id}`).send({ version: pl.version, heightM: 3.3 }),
       a.patch(`/api/projects/${p.id}/placements/${pl.id}`).send({ version: pl.version, heightM: 4.4 }),
@@ -320,7 +290,7 @@ describe('stale versions and bad bodies', () => {
   ])('rejects a placement with %s', async (_what, patch, field) => {
     const a = await as('installerA');
     const p = (await a.post('/api/projects').send(newProject('Bad placements'))).body.project;
-    const base = newPlacement(await firstCatalogueId());
+    const base = crossingMirror(await firstCatalogueId());
     const body =
       'customMirror' in patch && _what.startsWith('a custom') ? { ...base, catalogueItemId: null, ...patch } : { ...base, ...patch };
     const res = await a.post(`/api/projects/${p.id}/placements`).send(body);
@@ -331,7 +301,7 @@ describe('stale versions and bad bodies', () => {
   it('refuses a mirror whose body the rack passes through, naming the rack, and accepts it on the face', async () => {
     const a = await as('installerA');
     const p = (await a.post('/api/projects').send(newProject('Mirror in the rack'))).body.project;
-    const base = newPlacement(await firstCatalogueId());
+    const base = crossingMirror(await firstCatalogueId());
     const inside = await a.post(`/api/projects/${p.id}/placements`).send({ ...base, positionM: [2.5, 0.01], tiltDownRad: 0 });
     expect(inside.status).toBe(400);
     expect(inside.body.fields.positionM).toMatch(
@@ -350,7 +320,7 @@ describe('stale versions and bad bodies', () => {
   it('rejects a placement for a viewer that is not in the plan, or a catalogue item that does not exist', async () => {
     const a = await as('installerA');
     const p = (await a.post('/api/projects').send(newProject('Bad references'))).body.project;
-    const base = newPlacement(await firstCatalogueId());
+    const base = crossingMirror(await firstCatalogueId());
     const noViewer = await a.post(`/api/projects/${p.id}/placements`).send({ ...base, viewerId: 'ghost' });
     expect(noViewer.status).toBe(400);
     expect(noViewer.body.fields.viewerId).toMatch(/not in this plan/);

@@ -3,7 +3,6 @@
  * the append-only audit trail; the approval on the sheet (read back with pdftotext); the withdrawal
  * rule; notices through the real fake SMTP server; the outside-address limit on sheet e-mails.
  */
-import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -11,7 +10,8 @@ import request from 'supertest';
 import type { CommentDto, ProjectDto, ProjectEventDto } from '../../shared/schemas';
 import { ProjectEvent } from '../../server/modules/review/project-event.entity';
 import { MailMessage } from '../../server/modules/mail/mail-message.entity';
-import { EMAIL, startHarness, type Harness } from './harness';
+import { catalogueItemBody, CROSSING_SCENE, crossingMirror, crossingProject, EMAIL, startHarness, type Harness } from './harness';
+import { binary, issueSheet, pagesText } from './pdf-tools';
 
 type Agent = ReturnType<typeof request.agent>;
 type Who = 'anonymous' | 'installerA' | 'installerB' | 'reviewer' | 'admin';
@@ -45,38 +45,12 @@ afterAll(async () => {
   fs.rmSync(tmp, { recursive: true, force: true });
 });
 
-const scene = {
-  walls: [{ id: 'w1', kind: 'racking', aM: [0, 0], bM: [10, 0], heightM: 6 }],
-  zones: [
-    {
-      id: 'z1',
-      name: 'Crossing',
-      polygonM: [
-        [0, 1],
-        [5, 1],
-        [5, 4],
-        [0, 4],
-      ],
-      target: { kind: 'adult' },
-    },
-  ],
-  viewers: [{ id: 'v1', name: 'Driver', positionM: [2, 8], eyeHeightM: 2.1 }],
-};
-
 /** A job of installer A with one mirror, optionally sent (to the demo reviewer). */
 async function job(name: string, opts: { sent?: boolean } = {}): Promise<{ project: ProjectDto; placementId: number }> {
   const a = agents.installerA;
-  const created = await a.post('/api/projects').send({ name, customer: 'Northgate Foods (demo)', site: 'Unit 4', scene });
+  const created = await a.post('/api/projects').send(crossingProject(name));
   const id = created.body.project.id as number;
-  const placement = await a.post(`/api/projects/${id}/placements`).send({
-    label: 'M1',
-    catalogueItemId: catalogueId,
-    positionM: [2.5, 0.4],
-    heightM: 3,
-    azimuthRad: Math.PI / 2,
-    tiltDownRad: 0.3,
-    viewerId: 'v1',
-  });
+  const placement = await a.post(`/api/projects/${id}/placements`).send(crossingMirror(catalogueId));
   let project = (await a.get(`/api/projects/${id}`)).body.project as ProjectDto;
   if (opts.sent) project = (await a.post(`/api/projects/${id}/send`).send({ version: project.version, reviewerId })).body.project;
   return { project, placementId: placement.body.placement.id };
@@ -98,28 +72,10 @@ async function mailTo(to: string, subject: string, timeoutMs = 20_000): Promise<
 const get = async (id: number) => (await agents.installerA.get(`/api/projects/${id}`)).body.project as ProjectDto;
 const events = async (id: number) => (await agents.installerA.get(`/api/projects/${id}/events`)).body.events as ProjectEventDto[];
 
-const binary = (res: request.Response, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
-};
-let n = 0;
-/** Each page's text (pdftotext splits pages with a form feed), whitespace folded. */
-function pagesText(pdf: Buffer): string[] {
-  const file = path.join(tmp, `s${n++}.pdf`);
-  fs.writeFileSync(file, pdf);
-  const out = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
-  return out
-    .split('\f')
-    .map((p) => p.replace(/\s+/g, ' ').trim())
-    .filter(Boolean);
-}
-/** What the app's Download does: issue, then fetch that revision. */
-async function sheetPages(agent: Agent, id: number, query = ''): Promise<{ pages: string[]; revision: number; created: boolean }> {
-  const issued = await agent.post(`/api/projects/${id}/sheet/revisions`);
-  expect([200, 201]).toContain(issued.status);
-  const pdf = await agent.get(`/api/projects/${id}/sheet.pdf?revision=${issued.body.revision.number}${query}`).buffer(true).parse(binary);
-  return { pages: pagesText(pdf.body as Buffer), revision: issued.body.revision.number, created: issued.body.created };
+/** The sheet as the app's Download gets it, page by page. */
+async function sheetPages(agent: Agent, id: number): Promise<{ pages: string[]; revision: number; created: boolean }> {
+  const { pdf, revision, created } = await issueSheet(agent, id);
+  return { pages: pagesText(pdf, tmp), revision, created };
 }
 
 describe('the demo', () => {
@@ -355,7 +311,7 @@ describe('the audit trail', () => {
     const renamed = await agents.installerA.patch(`/api/projects/${project.id}`).send({
       version: project.version,
       name: 'Renamed job, bay 2',
-      scene: { ...scene, walls: [...scene.walls, { id: 'w2', kind: 'wall', aM: [0, 9], bM: [10, 9], heightM: 4 }] },
+      scene: { ...CROSSING_SCENE, walls: [...CROSSING_SCENE.walls, { id: 'w2', kind: 'wall', aM: [0, 9], bM: [10, 9], heightM: 4 }] },
     });
     expect(renamed.status).toBe(200);
     await agents.installerA.patch(`/api/projects/${project.id}`).send({ version: renamed.body.project.version, units: 'imperial' });
@@ -452,7 +408,7 @@ describe('approval on the sheet and its withdrawal', () => {
     const ok = await agents.reviewer.post(`/api/projects/${project.id}/approve`).send({ version: sent.body.project.version });
     expect(ok.body.project.approval.revision).toBe(early.revision + 1);
     const pdf = await agents.installerA.get(`/api/projects/${project.id}/sheet.pdf?revision=${early.revision}`).buffer(true).parse(binary);
-    const pages = pagesText(pdf.body as Buffer);
+    const pages = pagesText(pdf.body as Buffer, tmp);
     for (const page of pages)
       expect(page).toContain(`NOT APPROVED — revision ${early.revision} differs from the approved revision ${early.revision + 1}`);
   });
@@ -475,16 +431,7 @@ describe('approval on the sheet and its withdrawal', () => {
 
 describe('a catalogue change and approved jobs', () => {
   it("withdraws an approved job's approval when its catalogue mirror's optics change, not when only the price does", async () => {
-    const created = await agents.admin.post('/api/catalog').send({
-      code: 'REV-700',
-      name: 'Review round 700 (test)',
-      mirror: { shape: 'round', diameterM: 0.7, radiusM: 1.4 },
-      material: 'acrylic',
-      reflectance: 0.8,
-      massKg: 4,
-      unitPriceMinor: 14900,
-      currency: 'EUR',
-    });
+    const created = await agents.admin.post('/api/catalog').send(catalogueItemBody('REV-700', 'Review round 700 (test)'));
     const item = created.body.item;
     const { project, placementId } = await job('Catalogue mirror');
     const pl = (await get(project.id)).placements[0];

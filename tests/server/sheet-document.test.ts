@@ -4,7 +4,6 @@
  * the mirrors out from. The PDFs are the demo project's (scripts/sample-sheets.ts) rendered without a
  * server, read back with poppler (pdfinfo, pdftotext) as a reader's tools would.
  */
-import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -15,6 +14,7 @@ import { addressLines, renderSheet } from '../../server/pdf/render-sheet';
 import { buildSheetContent, contentHash, type SheetContent } from '../../server/pdf/sheet-model';
 import type { SheetApproval } from '../../server/pdf/approval-mark';
 import { demoSheetInput } from '../../scripts/sample-sheets';
+import { flat, pageCount, poppler } from './pdf-tools';
 
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'sightfan-sheet-doc-'));
 afterAll(() => fs.rmSync(tmp, { recursive: true, force: true }));
@@ -39,16 +39,14 @@ async function sheet(units: UnitSystem, paper: SheetPaper): Promise<Rendered> {
   );
   const file = path.join(tmp, `${key}.pdf`);
   fs.writeFileSync(file, pdf);
-  const pages = Number(/Pages:\s+(\d+)/.exec(execFileSync('/usr/bin/pdfinfo', [file], { encoding: 'utf8' }))?.[1]);
+  const pages = pageCount(file);
   const out = { file, content, pages, raw: pdf.toString('latin1') };
   rendered.set(key, out);
   return out;
 }
 
 /** Text of one page (or all) as pdftotext gives it without -layout: the reading order a reader's tools use. */
-const textOf = (file: string, page?: number) =>
-  execFileSync('/usr/bin/pdftotext', [...(page ? ['-f', String(page), '-l', String(page)] : []), file, '-'], { encoding: 'utf8' });
-const flat = (s: string) => s.replace(/\s+/g, ' ');
+const textOf = (file: string, page?: number) => poppler('pdftotext', file, page ? ['-f', String(page), '-l', String(page)] : []);
 const pageWith = (s: Rendered, needle: string) => {
   for (let p = 1; p <= s.pages; p++) if (textOf(s.file, p).includes(needle)) return p;
   throw new Error(`no page holds "${needle}"`);
@@ -64,7 +62,7 @@ const SHEETS: [UnitSystem, SheetPaper][] = [
 describe('the sheet as an accessible document', () => {
   it('is tagged, says its language, and shows its title in a viewer', async () => {
     const s = await sheet('metric', 'a4');
-    const info = execFileSync('/usr/bin/pdfinfo', [s.file], { encoding: 'utf8' });
+    const info = poppler('pdfinfo', s.file);
     expect(info).toMatch(/Tagged:\s+yes/);
     expect(info).toMatch(/Title:\s+Specification sheet — Cold store aisles and dock \(demo\) — revision 1/);
     expect(s.raw).toContain('/Lang (en)');
@@ -73,7 +71,7 @@ describe('the sheet as an accessible document', () => {
 
   it('gives the title, the headings, the paragraphs and the tables their structure', async () => {
     const s = await sheet('metric', 'a4');
-    const tree = execFileSync('/usr/bin/pdfinfo', ['-struct-text', s.file], { encoding: 'utf8' });
+    const tree = poppler('pdfinfo', s.file, ['-struct-text']);
     expect(tree).toMatch(/H1 \(block\)\n\s+"Cold store aisles and dock \(demo\)"/);
     expect(tree).toMatch(/H2 \(block\)\n\s+"Zones that must be seen"/);
     expect(tree).toMatch(/H2 \(block\)\n\s+"Plan: what each mirror shows on the floor"/);
@@ -133,7 +131,7 @@ describe('addressLines', () => {
 describe('pages that carry their weight', () => {
   /** For each page, how far down its body text reaches, as a share of the page's writable height (footer excluded). */
   function fill(file: string): number[] {
-    const html = execFileSync('/usr/bin/pdftotext', ['-bbox', file, '-'], { encoding: 'utf8' });
+    const html = poppler('pdftotext', file, ['-bbox']);
     return html
       .split('<page ')
       .slice(1)
@@ -243,7 +241,7 @@ describe('the approval block in the document structure', () => {
     );
     const file = path.join(tmp, `${name}.pdf`);
     fs.writeFileSync(file, pdf);
-    return execFileSync('/usr/bin/pdfinfo', ['-struct-text', file], { encoding: 'utf8' });
+    return poppler('pdfinfo', file, ['-struct-text']);
   }
 
   it('reads an approval as a heading, a paragraph and a table whose labels head their rows', async () => {

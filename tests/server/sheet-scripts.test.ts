@@ -13,6 +13,7 @@ import { isPrintable } from '../../shared/text/printable';
 import { fontFace, SHEET_FONTS, type SheetFont } from '../../server/pdf/fonts';
 import { facesFor } from '../../server/pdf/text-runs';
 import { EMAIL, startHarness, type Harness } from './harness';
+import { binary, popplerOn, type PopplerTool } from './pdf-tools';
 
 type Agent = ReturnType<typeof request.agent>;
 let h: Harness;
@@ -29,16 +30,7 @@ afterAll(async () => {
   fs.rmSync(tmp, { recursive: true, force: true });
 });
 
-const binary = (res: request.Response, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
-};
-function tool(cmd: string, pdf: Buffer, args: string[] = []): string {
-  const file = path.join(tmp, `${cmd}-${Date.now()}.pdf`);
-  fs.writeFileSync(file, pdf);
-  return execFileSync(`/usr/bin/${cmd}`, [...args, file, ...(cmd === 'pdftotext' ? ['-'] : [])], { encoding: 'utf8' });
-}
+const tool = (cmd: PopplerTool, pdf: Buffer) => popplerOn(cmd, pdf, tmp);
 
 describe('characters the sheet can print', () => {
   it('has a real glyph (not .notdef) in the face it is set in, for every character the schemas accept, in every sheet face', () => {

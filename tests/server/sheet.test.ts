@@ -22,6 +22,7 @@ import { LABEL_LINE_PT, OUTLINE_TOLERANCE_PT, labelSpot } from '../../server/pdf
 import { simplifyRing } from '../../shared/geometry/simplify';
 import { sheetFormat } from '../../server/pdf/sheet-model';
 import { EMAIL, startHarness, type Harness } from './harness';
+import { binary, flat, issueSheet, pageCount, pdfFile, popplerOn, type PopplerTool } from './pdf-tools';
 
 type Agent = ReturnType<typeof request.agent>;
 let h: Harness;
@@ -43,31 +44,14 @@ afterAll(async () => {
   fs.rmSync(tmp, { recursive: true, force: true });
 });
 
-const binary = (res: request.Response, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
-};
-
-/** What the app's Download does: issue (POST), then fetch that revision's PDF (GET). */
-async function fetchSheet(agent: Agent, query = ''): Promise<{ pdf: Buffer; res: request.Response }> {
-  const issued = await agent.post(`/api/projects/${projectId}/sheet/revisions`);
-  if (issued.status !== 200 && issued.status !== 201) throw new Error(`issuing failed: ${issued.status} ${JSON.stringify(issued.body)}`);
-  const res = await getPdf(agent, `?revision=${issued.body.revision.number}${query ? `&${query.slice(1)}` : ''}`);
-  return { pdf: res.body as Buffer, res };
-}
+/** What the app's Download does (pdf-tools.ts), for the demo project; `params` as "paper=letter". */
+const fetchSheet = (agent: Agent, params = '') => issueSheet(agent, projectId, params);
 const getPdf = (agent: Agent, query = '') => agent.get(`/api/projects/${projectId}/sheet.pdf${query}`).buffer(true).parse(binary);
 const revisionCount = async () => ((await installer.get(`/api/projects/${projectId}/sheet`)).body as SheetStatusDto).revisions.length;
 
-let fileCount = 0;
-function tool(cmd: string, pdf: Buffer, args: string[] = []): string {
-  const file = path.join(tmp, `sheet-${++fileCount}.pdf`);
-  fs.writeFileSync(file, pdf);
-  return execFileSync(`/usr/bin/${cmd}`, [...args, file, ...(cmd === 'pdftotext' ? ['-'] : [])], { encoding: 'utf8' });
-}
-const flat = (s: string) => s.replace(/\s+/g, ' ');
+const tool = (cmd: PopplerTool, pdf: Buffer, args: string[] = []) => popplerOn(cmd, pdf, tmp, args);
 const textOf = (pdf: Buffer) => flat(tool('pdftotext', pdf));
-const pagesOf = (pdf: Buffer) => Number(/Pages:\s+(\d+)/.exec(tool('pdfinfo', pdf))?.[1]);
+const pagesOf = (pdf: Buffer) => pageCount(pdfFile(pdf, tmp));
 
 async function engine() {
   const project = (await installer.get(`/api/projects/${projectId}`)).body.project as ProjectDto;
@@ -169,7 +153,7 @@ describe('the specification sheet PDF', () => {
   });
 
   it('prints on US Letter when asked, and refuses an unknown paper with 400', async () => {
-    const { pdf } = await fetchSheet(installer, '?paper=letter');
+    const { pdf } = await fetchSheet(installer, 'paper=letter');
     expect(tool('pdfinfo', pdf)).toMatch(/Page size:\s+612 x 792 pts \(letter\)/);
     expect((await installer.get(`/api/projects/${projectId}/sheet.pdf?paper=a3`)).status).toBe(400);
   });
@@ -345,8 +329,8 @@ describe('e-mailing the sheet', () => {
   });
 
   it('puts the paper size in the file name of the attachment and the download', async () => {
-    const a4 = await fetchSheet(installer, '?paper=a4');
-    const letter = await fetchSheet(installer, '?paper=letter');
+    const a4 = await fetchSheet(installer, 'paper=a4');
+    const letter = await fetchSheet(installer, 'paper=letter');
     expect(a4.res.headers['content-disposition']).toMatch(/-rev\d+-a4\.pdf"$/);
     expect(letter.res.headers['content-disposition']).toMatch(/-rev\d+-letter\.pdf"$/);
   });

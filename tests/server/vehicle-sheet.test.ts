@@ -3,7 +3,6 @@
  * named with its class and rule, its share seen as a percentage and its verdict; the test
  * cylinders, the planning line and the cautions are there.
  */
-import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -15,6 +14,7 @@ import { vehicleGeometry } from '../../shared/vehicle';
 import { sheetFormat } from '../../server/pdf/sheet-model';
 import { DEMO_SCHOOL_BUS, DEMO_TRUCK } from '../../server/seeders/demo-vehicles';
 import { EMAIL, startHarness, type Harness } from './harness';
+import { flat, issueSheet, popplerOn } from './pdf-tools';
 
 type Agent = ReturnType<typeof request.agent>;
 let h: Harness;
@@ -29,12 +29,6 @@ afterAll(async () => {
   fs.rmSync(tmp, { recursive: true, force: true });
 });
 
-const binary = (res: request.Response, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
-};
-
 async function projectNamed(name: string): Promise<ProjectDto> {
   const list = (await installer.get('/api/projects')).body.projects as { id: number; name: string }[];
   return (await installer.get(`/api/projects/${list.find((p) => p.name === name)!.id}`)).body.project;
@@ -42,16 +36,9 @@ async function projectNamed(name: string): Promise<ProjectDto> {
 
 /** Issues the job's sheet and returns its text as pdftotext reads it, whitespace flattened. */
 async function sheetText(projectId: number): Promise<string> {
-  const issued = await installer.post(`/api/projects/${projectId}/sheet/revisions`);
-  expect([200, 201]).toContain(issued.status);
-  const res = await installer
-    .get(`/api/projects/${projectId}/sheet.pdf?revision=${issued.body.revision.number}`)
-    .buffer(true)
-    .parse(binary);
+  const { pdf, res } = await issueSheet(installer, projectId);
   expect(res.status).toBe(200);
-  const file = path.join(tmp, `${projectId}.pdf`);
-  fs.writeFileSync(file, res.body as Buffer);
-  return execFileSync('/usr/bin/pdftotext', [file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+  return flat(popplerOn('pdftotext', pdf, tmp));
 }
 
 describe('the demo truck’s sheet', () => {
