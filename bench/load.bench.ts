@@ -233,7 +233,12 @@ export async function runLoadBench(): Promise<void> {
     for (const [, , route] of routes(sqliteId))
       bodies[route] = await (await fetch(`${sqliteBase}${route}`, { headers: { cookie: sqliteCookie } })).json();
     for (const [key, label, route] of routes(sqliteId))
-      record(`sqlite1:${key}`, label, 'Sightfan ×1, SQLite', await measure({ label, base: sqliteBase, cookie: sqliteCookie, appPids: [sqlite.pid] }, route, seconds));
+      record(
+        `sqlite1:${key}`,
+        label,
+        'Sightfan ×1, SQLite',
+        await measure({ label, base: sqliteBase, cookie: sqliteCookie, appPids: [sqlite.pid] }, route, seconds),
+      );
     await stopAll(children.splice(0));
 
     // 2. Bare Express: one process, then two behind the proxy (the machine's ceiling for two).
@@ -247,7 +252,12 @@ export async function runLoadBench(): Promise<void> {
     };
     const bareOne = await bare();
     for (const [key, label, route] of routes(sqliteId))
-      record(`bare1:${key}`, label, 'bare Express ×1', await measure({ label, base: `http://127.0.0.1:${bareOne.port}`, appPids: [bareOne.pid] }, route, seconds));
+      record(
+        `bare1:${key}`,
+        label,
+        'bare Express ×1',
+        await measure({ label, base: `http://127.0.0.1:${bareOne.port}`, appPids: [bareOne.pid] }, route, seconds),
+      );
     const bareTwo = await bare();
     const bareProxy = await proxyTo([bareOne.port, bareTwo.port], '/api/projects');
     for (const [key, label, route] of routes(sqliteId))

@@ -89,7 +89,11 @@ export async function projectSummaries(
   filter: FilterQuery<Project> | undefined,
   sort: ProjectListSort,
 ): Promise<ProjectSummaryDto[]> {
-  const placements = em.createQueryBuilder(Placement, 'pl').count().where({ project: sql.ref('p.id') }).as('placement_count');
+  const placements = em
+    .createQueryBuilder(Placement, 'pl')
+    .count()
+    .where({ project: sql.ref('p.id') })
+    .as('placement_count');
   const openThreads = em
     .createQueryBuilder(ProjectComment, 'c')
     .count()

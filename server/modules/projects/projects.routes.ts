@@ -26,14 +26,14 @@ import { Placement } from './placement.entity';
 import { Project } from './project.entity';
 import { assertCanEdit, canEdit, findVisibleProject, visibleCatalogue } from './project-access';
 import { projectSummaries } from './project-list';
-import { toPlacementDto, toProjectDto, toProjectSummaryDto } from './project.dto';
+import { toPlacementDto, toProjectDto } from './project.dto';
 import { onStaleVersion } from '../../write-conflicts';
 import { requestEm } from '../../middleware/request-context';
 import { containsText } from '../../text-search';
 import { checkVehiclePlacement } from './vehicle-placement';
 import type { SheetWork } from '../../workers/sheet-pool';
 import { factChanges, placementFacts, projectChanges, recordEvent } from '../review/audit';
-import { afterPlacementWrite, openCommentCount, openCommentCounts, withdrawalIfChanged } from '../review/review-service';
+import { afterPlacementWrite, openCommentCount, withdrawalIfChanged } from '../review/review-service';
 
 // A stale `version` fails in the ORM (optimistic locking); the error middleware answers 409 with these.
 onStaleVersion(Project, 'project', async (em, stale) => {
