@@ -147,10 +147,14 @@ async function measure(setup: Setup, route: string, seconds: number): Promise<Ru
 
 const pct = (share: number | null) => (share === null ? '   —' : `${(100 * share).toFixed(0).padStart(3)} %`);
 
+/** Everything this benchmark runs, as a share of one core: app processes, PostgreSQL, the proxy and the load generator. */
+const ours = (r: Run) => r.app + (r.db ?? 0) + (r.proxy ?? 0) + r.loadGenerator;
+
 function line(route: string, setup: string, r: Run): string {
   return (
     `  ${route.padEnd(12)} ${setup.padEnd(31)} ${r.rps.toFixed(0).padStart(6)} req/s  p50 ${String(r.p50).padStart(4)} ms  p99 ${String(r.p99).padStart(5)} ms` +
     `  | CPU app ${pct(r.app)} (${r.appMsPerRequest.toFixed(2)} ms/req) db ${pct(r.db)} proxy ${pct(r.proxy)} load gen ${pct(r.loadGenerator)}` +
+    ` = ${pct(ours(r))} of ${100 * os.cpus().length} %` +
     (r.errors ? `  | ${r.errors} errors` : '')
   );
 }
@@ -213,6 +217,8 @@ export async function runLoadBench(): Promise<void> {
       `load: ${CONNECTIONS} connections, ${seconds} s per run, log level ${logLevel}; ${os.cpus().length} cores shared by the app, ` +
         `the database, the proxy and the load generator. CPU shares are of ONE core (200 % = the whole machine).`,
     );
+    const loadAtStart = os.loadavg()[0];
+    console.log(`  machine load average (1 min) at the start: ${loadAtStart.toFixed(1)} on ${os.cpus().length} cores`);
     const results = new Map<string, Run>();
     const record = (key: string, route: string, setupLabel: string, r: Run) => {
       results.set(key, r);
@@ -322,12 +328,26 @@ export async function runLoadBench(): Promise<void> {
       ].filter(Boolean);
       console.log(`  ${label.padEnd(12)} ${parts.join('; ')}`);
     }
+    // Where the ceiling was in this run: the parts' CPU against the whole machine.
+    const cores = os.cpus().length;
+    const runs = [...results.values()];
+    const busiest = Math.max(...runs.map(ours));
+    const loadAtEnd = os.loadavg()[0];
     console.log(
-      '  reading: the figures are for this machine while it runs everything at once. When app + db + proxy + load gen add up to\n' +
-        '  about 200 %, both cores are busy and a second instance can only take CPU from the others: two/one cannot pass the bare\n' +
-        "  two/one ceiling here, and the app's ms/request (CPU per answer, independent of the machine's load) is the figure to compare\n" +
-        '  between versions. On a machine with cores to spare for each instance and for PostgreSQL, two instances scale the list\n' +
-        '  until PostgreSQL (db share) becomes the ceiling.',
+      `  ceiling: machine load average ${loadAtStart.toFixed(1)} → ${loadAtEnd.toFixed(1)} on ${cores} cores; the most CPU this ` +
+        `benchmark's parts took in one run was ${pct(busiest).trim()} of ${100 * cores} %.`,
+    );
+    console.log(
+      busiest < 0.75 * cores && Math.max(loadAtStart, loadAtEnd) > cores
+        ? '  → other work on the machine held most of the CPU: req/s and latency here measure that contention; compare the\n' +
+            "    app's ms/request (CPU per answer) between versions, and rerun on a quiet machine for throughput."
+        : '  → when the parts add up to about the whole machine, the cores are the ceiling: a second instance can only take CPU\n' +
+            '    from the others (app, PostgreSQL, proxy, load generator), so two/one cannot pass the bare two/one figure here.',
+    );
+    console.log(
+      '  reading: on a quiet machine Sightfan ×1 is bound by its own CPU per request (app near 100 % of a core) long before\n' +
+        '  PostgreSQL (db share); two instances on one PostgreSQL scale the list with spare cores, up to what the db share allows;\n' +
+        '  on this 2-core machine the load generator, the proxy and PostgreSQL take the second core the second instance needs.',
     );
   } finally {
     await stopAll(children);

@@ -10,6 +10,7 @@
 import { sql, type FilterQuery } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/knex';
 import type { ProjectState, ProjectSummaryDto } from '../../../shared/schemas';
+import { fromDbDate, type DbDate } from '../../db-date';
 import type { User } from '../users/user.entity';
 import { ProjectComment } from '../review/comment.entity';
 import { Placement } from './placement.entity';
@@ -18,9 +19,7 @@ import { visibleProjects } from './project-access';
 
 export type ProjectListSort = 'updated' | 'name' | 'customer';
 
-/** A date as either database hands it back: SQLite keeps milliseconds, PostgreSQL gives a Date. */
-type DbDate = number | string | Date;
-const iso = (d: DbDate) => new Date(d).toISOString();
+const iso = (d: DbDate) => fromDbDate(d).toISOString();
 const isoOrNull = (d: DbDate | null) => (d == null ? null : iso(d));
 
 interface SummaryRow {

@@ -1,6 +1,7 @@
 import session from 'express-session';
 import type { SessionData } from 'express-session';
 import type { Orm } from '../../db';
+import { fromDbDate, type DbDate } from '../../db-date';
 import { SessionRecord } from './session.entity';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
@@ -52,14 +53,14 @@ export class OrmSessionStore extends session.Store {
   override get(sid: string, cb: (err: unknown, session?: SessionData | null) => void): void {
     const conn = this.orm.em.getConnection();
     conn
-      .execute<{ data: string; expires_at: number | string | Date }>(
+      .execute<{ data: string; expires_at: DbDate }>(
         this.orm.em.getKnex()('session').select('data', 'expires_at').where('sid', sid).limit(1),
         [],
         'get',
       )
       .then((found) => {
         const row = found as typeof found | undefined;
-        const expiresAt = row ? new Date(row.expires_at).getTime() : NaN;
+        const expiresAt = row ? fromDbDate(row.expires_at).getTime() : NaN;
         if (!row || !(expiresAt > Date.now())) return cb(null, null);
         this.remember(sid, expiresAt);
         cb(null, JSON.parse(row.data) as SessionData);
