@@ -135,7 +135,8 @@ export function projectsRoutes(work: SheetWork): Router {
 
   r.get('/:id', async (req, res) => {
     const em = requestEm();
-    const project = await findVisibleProject(em, req.user!, req.params.id);
+    // The answer names the owner and reviewer; the organisation is needed only as its id.
+    const project = await findVisibleProject(em, req.user!, req.params.id, ['owner', 'reviewer']);
     res.json({
       project: toProjectDto(project, await placementsOf(em, project), canEdit(req.user!, project), await openCommentCount(em, project.id)),
     });
