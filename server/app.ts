@@ -63,6 +63,9 @@ export function createApp(deps: AppDeps): SightfanApp {
   const { config, orm, log } = deps;
   const app = express();
   app.disable('x-powered-by');
+  // No ETag on res.send/res.json: every API answer is `no-store`, so a hash of each body (SHA-1 per
+  // response) bought nothing. Static files keep theirs (express.static and sendFile make their own).
+  app.set('etag', false);
   // A hop count, never `true`: with `true` Express takes the left-most X-Forwarded-For entry, which
   // the client writes itself.
   app.set('trust proxy', config.trustProxy);

@@ -8,7 +8,7 @@ import {
   type ForgotPasswordResponse,
 } from '../../../shared/schemas';
 import { HttpError } from '../../http-error';
-import { requireUser } from '../../middleware/auth';
+import { loadUserDetails, requireUser } from '../../middleware/auth';
 import { parseOr400 } from '../../middleware/validate';
 import { User } from '../users/user.entity';
 import { toUserDto } from '../users/user.dto';
@@ -78,11 +78,13 @@ export function authRoutes(deps: AuthDeps): Router {
 
   // The app's start-up probe: a signed-out visitor is expected, so it is a 200 with no user
   // (a 401 here put a failed request in every visitor's browser console).
-  r.get('/session', (req, res) => {
+  r.get('/session', async (req, res) => {
+    if (req.user) await loadUserDetails(req.user);
     res.json({ user: req.user ? toUserDto(req.user) : null });
   });
 
-  r.get('/me', requireUser, (req, res) => {
+  r.get('/me', requireUser, async (req, res) => {
+    await loadUserDetails(req.user!);
     res.json({ user: toUserDto(req.user!) });
   });
 
@@ -94,6 +96,7 @@ export function authRoutes(deps: AuthDeps): Router {
     if (body.units) user.units = body.units;
     if (body.name) user.name = body.name;
     await em.flush();
+    await loadUserDetails(user);
     res.json({ user: toUserDto(user) });
   });
 
@@ -106,6 +109,7 @@ export function authRoutes(deps: AuthDeps): Router {
       throw new HttpError(429, 'Too many password attempts for now.', undefined, { 'Retry-After': String(admission.retryAfterS) });
     const em = requestEm();
     const user = me;
+    await loadUserDetails(user);
     if (!(await verifyPassword(body.currentPassword, user.passwordHash))) {
       await admission.release(false);
       throw new HttpError(400, 'Your current password is not right; nothing was changed.', {

@@ -30,7 +30,8 @@ export class Placement extends BaseRecord {
     tableName: 'placement',
     properties: (p) => ({
       ...baseProperties(),
-      project: p.manyToOne(Project.schema).deleteRule('cascade'),
+      // Indexed on both databases (PostgreSQL does not index a foreign key by itself): a job's mirrors, the list's counts.
+      project: p.manyToOne(Project.schema).deleteRule('cascade').index(),
       label: p.string().length(80),
       catalogueItem: p.manyToOne(MirrorModel.schema).nullable(),
       customMirror: p.json<MirrorSpec>().nullable(),

@@ -33,10 +33,12 @@ export class Project extends BaseRecord {
   static readonly schema = defineEntity({
     class: Project,
     tableName: 'project',
+    // The list of a reviewer or admin: one organisation's jobs, most recently changed first.
+    indexes: [{ properties: ['organization', 'updatedAt'] }],
     properties: (p) => ({
       ...baseProperties(),
-      owner: p.manyToOne(User.schema),
-      organization: p.manyToOne(Organization.schema),
+      owner: p.manyToOne(User.schema).index(),
+      organization: p.manyToOne(Organization.schema).index(),
       name: p.string().length(80),
       customer: p.string().length(160).default(''),
       site: p.string().length(200).default(''),

@@ -24,15 +24,16 @@ import type { User } from '../users/user.entity';
 import { MirrorModel } from '../catalogue/mirror-model.entity';
 import { Placement } from './placement.entity';
 import { Project } from './project.entity';
-import { assertCanEdit, canEdit, findVisibleProject, visibleCatalogue, visibleProjects } from './project-access';
-import { toPlacementDto, toProjectDto, toProjectSummaryDto } from './project.dto';
+import { assertCanEdit, canEdit, findVisibleProject, visibleCatalogue } from './project-access';
+import { projectSummaries } from './project-list';
+import { toPlacementDto, toProjectDto } from './project.dto';
 import { onStaleVersion } from '../../write-conflicts';
 import { requestEm } from '../../middleware/request-context';
 import { containsText } from '../../text-search';
 import { checkVehiclePlacement } from './vehicle-placement';
 import type { SheetWork } from '../../workers/sheet-pool';
 import { factChanges, placementFacts, projectChanges, recordEvent } from '../review/audit';
-import { afterPlacementWrite, openCommentCount, openCommentCounts, withdrawalIfChanged } from '../review/review-service';
+import { afterPlacementWrite, openCommentCount, withdrawalIfChanged } from '../review/review-service';
 
 // A stale `version` fails in the ORM (optimistic locking); the error middleware answers 409 with these.
 onStaleVersion(Project, 'project', async (em, stale) => {
@@ -113,37 +114,10 @@ export function projectsRoutes(work: SheetWork): Router {
   r.get('/', async (req, res) => {
     const q = parseOr400(listQuery, req.query, 'The search');
     const em = requestEm();
-    const where = q.q
-      ? {
-          $and: [
-            visibleProjects(req.user!),
-            { $or: [{ name: containsText(em, q.q) }, { customer: containsText(em, q.q) }, { site: containsText(em, q.q) }] },
-          ],
-        }
-      : visibleProjects(req.user!);
-    const orderBy =
-      q.sort === 'name'
-        ? { name: 'asc' as const }
-        : q.sort === 'customer'
-          ? { customer: 'asc' as const, name: 'asc' as const }
-          : { updatedAt: 'desc' as const };
-    const projects = await em.find(Project, where, { populate: ['owner', 'reviewer'], orderBy: { ...orderBy, id: 'asc' } });
-    const counts = new Map<number, number>();
-    if (projects.length) {
-      const ids = projects.map((p) => p.id);
-      const rows: { project_id: number; n: number }[] = await em
-        .getConnection()
-        .execute(
-          `select project_id, count(*) as n from placement where project_id in (${ids.map(() => '?').join(',')}) group by project_id`,
-          ids,
-        );
-      for (const row of rows) counts.set(Number(row.project_id), Number(row.n));
-    }
-    const open = await openCommentCounts(
-      em,
-      projects.map((p) => p.id),
-    );
-    res.json({ projects: projects.map((p) => toProjectSummaryDto(p, counts.get(p.id) ?? 0, open.get(p.id) ?? 0)) });
+    const search = q.q
+      ? { $or: [{ name: containsText(em, q.q) }, { customer: containsText(em, q.q) }, { site: containsText(em, q.q) }] }
+      : undefined;
+    res.json({ projects: await projectSummaries(em, req.user!, search, q.sort) });
   });
 
   r.post('/', requireRole('installer'), async (req, res) => {
@@ -161,7 +135,8 @@ export function projectsRoutes(work: SheetWork): Router {
 
   r.get('/:id', async (req, res) => {
     const em = requestEm();
-    const project = await findVisibleProject(em, req.user!, req.params.id);
+    // The answer names the owner and reviewer; the organisation is needed only as its id.
+    const project = await findVisibleProject(em, req.user!, req.params.id, ['owner', 'reviewer']);
     res.json({
       project: toProjectDto(project, await placementsOf(em, project), canEdit(req.user!, project), await openCommentCount(em, project.id)),
     });

@@ -19,7 +19,7 @@ export class ProjectComment extends BaseRecord {
     tableName: 'project_comment',
     properties: (p) => ({
       ...baseProperties(),
-      project: p.manyToOne(Project.schema).deleteRule('cascade'),
+      project: p.manyToOne(Project.schema).deleteRule('cascade').index(),
       parent: p.manyToOne(ProjectComment).nullable().deleteRule('cascade'),
       author: p.manyToOne(User.schema),
       body: p.text(),

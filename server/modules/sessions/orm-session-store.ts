@@ -1,6 +1,7 @@
 import session from 'express-session';
 import type { SessionData } from 'express-session';
 import type { Orm } from '../../db';
+import { fromDbDate, type DbDate } from '../../db-date';
 import { SessionRecord } from './session.entity';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
@@ -44,12 +45,24 @@ export class OrmSessionStore extends session.Store {
     return new Date(Date.now() + DAY_MS);
   }
 
+  /**
+   * One plain select of the two columns a request needs, without a forked entity manager or an
+   * entity: this runs on every signed-in request, before the request's own entity manager exists.
+   * The expiry comes back as the database keeps it (SQLite: milliseconds; PostgreSQL: a Date).
+   */
   override get(sid: string, cb: (err: unknown, session?: SessionData | null) => void): void {
-    const em = this.orm.em.fork();
-    em.findOne(SessionRecord, { sid })
-      .then((row) => {
-        if (!row || row.expiresAt.getTime() <= Date.now()) return cb(null, null);
-        this.remember(sid, row.expiresAt.getTime());
+    const conn = this.orm.em.getConnection();
+    conn
+      .execute<{ data: string; expires_at: DbDate }>(
+        this.orm.em.getKnex()('session').select('data', 'expires_at').where('sid', sid).limit(1),
+        [],
+        'get',
+      )
+      .then((found) => {
+        const row = found as typeof found | undefined;
+        const expiresAt = row ? fromDbDate(row.expires_at).getTime() : NaN;
+        if (!row || !(expiresAt > Date.now())) return cb(null, null);
+        this.remember(sid, expiresAt);
         cb(null, JSON.parse(row.data) as SessionData);
       })
       .catch((err) => cb(err));

@@ -2,7 +2,7 @@ import { Router } from 'express';
 import type { EntityManager } from '@mikro-orm/knex';
 import { idParam, inviteBody, patchUserBody } from '../../../shared/schemas';
 import { HttpError, notFound } from '../../http-error';
-import { requireRole } from '../../middleware/auth';
+import { loadUserDetails, requireRole } from '../../middleware/auth';
 import { parseOr400 } from '../../middleware/validate';
 import type { MailDispatcher } from '../mail/outbox';
 import { queueMail } from '../mail/outbox';
@@ -34,6 +34,11 @@ export function usersRoutes(deps: { outbox: MailDispatcher; store: OrmSessionSto
   const { outbox, store } = deps;
   const r = Router();
   r.use(requireRole('admin'));
+  // Answers name the organisation (the inviter's, a new user's): loadUser reads only its id.
+  r.use(async (req, _res, next) => {
+    await loadUserDetails(req.user!);
+    next();
+  });
 
   r.get('/', async (req, res) => {
     const users = await requestEm().find(
