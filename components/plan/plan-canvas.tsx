@@ -12,7 +12,8 @@ import { palette } from '@/constants/theme';
 import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
 import type { PlacementDto, Scene } from '@/shared/schemas';
 import type { UnitSystem } from '@/shared/units';
-import { PlanDrawing } from './plan-drawing';
+import { PlanDrawing, type UnderlayImage } from './plan-drawing';
+import { underlayCornersM } from './underlay-edits';
 import { SceneHandles } from './scene-handles';
 import type { PlanDrag } from './plan-gesture';
 import { boundsOf, type PairM, type PlanView } from './plan-view';
@@ -51,6 +52,10 @@ export interface PlanCanvasProps {
   focus?: { key: string; pointM: PairM } | null;
   /** On a phone the zoom buttons sit in a row this many pixels above the plan's bottom edge, within thumb reach. */
   zoomAtBottom?: number;
+  /** The customer's plan under the drawing; its corners count when the view is fitted. */
+  underlay?: UnderlayImage | null;
+  /** When this changes (a new plan underlay), the view is fitted again. */
+  fitKey?: string | null;
 }
 
 export function PlanCanvas(props: PlanCanvasProps) {
@@ -63,8 +68,10 @@ export function PlanCanvas(props: PlanCanvasProps) {
     scene.zones.forEach((z) => pts.push(...z.polygonM));
     scene.viewers.forEach((v) => pts.push(v.positionM));
     placements.forEach((p) => pts.push(p.positionM));
+    const u = props.underlay;
+    if (u) pts.push(...underlayCornersM(u.underlay, u.widthPx, u.heightPx));
     return boundsOf(pts);
-  }, [scene, placements]);
+  }, [scene, placements, props.underlay]);
 
   const viewport = usePlanViewport(frameRef, planBounds, reserveBottom);
   const { size, view } = viewport;
@@ -78,6 +85,18 @@ export function PlanCanvas(props: PlanCanvasProps) {
     const f = focusRef.current;
     if (focusKey !== null && f) centre(f.pointM);
   }, [focusKey, centre]);
+  // A new plan underlay: show all of it (once its size is known), not only what was drawn before.
+  const fitKey = props.fitKey ?? null;
+  const fitRef = useRef(viewport.fit);
+  useLayoutEffect(() => {
+    fitRef.current = viewport.fit;
+  });
+  const lastFitKey = useRef(fitKey);
+  useEffect(() => {
+    if (fitKey === lastFitKey.current) return;
+    lastFitKey.current = fitKey;
+    if (fitKey !== null) fitRef.current();
+  }, [fitKey]);
   const responder = usePlanGestures(frameRef, viewport.originRef, viewport.viewRef, viewport.setViewByPerson, {
     context: { scene, placements, selection, canEdit, tool, pinning: props.pinning },
     onSelect: props.onSelect,
@@ -95,7 +114,10 @@ export function PlanCanvas(props: PlanCanvasProps) {
         role="img"
         aria-label="Site plan: walls, zones, viewers and mirrors with their coverage"
       >
-        <PlanDrawing {...{ scene, placements, evaluation, units, canEdit, selection, sketchPoints, sketchClosed, view, size, tool }}>
+        <PlanDrawing
+          {...{ scene, placements, evaluation, units, canEdit, selection, sketchPoints, sketchClosed, view, size, tool }}
+          underlay={props.underlay}
+        >
           {props.overlay?.(view)}
           {canEdit && tool === 'select' ? <SceneHandles scene={scene} selection={selection} view={view} /> : null}
         </PlanDrawing>

@@ -15,6 +15,7 @@ import type { CatalogueItemDto, CriteriaSettings, CriterionKind, PlacementDto, P
 import { CriteriaSettingsForm } from './criteria-settings';
 import { formatLength, type UnitSystem } from '@/shared/units';
 import { PlacementEditorSlot } from './placement-editor-slot';
+import { PhotoGallery } from '@/components/uploads/photo-gallery';
 import type { PlanSelection } from './plan-types';
 import { bandColours, bandWords, formatCoveredShare, zoneBand } from './zone-quality';
 
@@ -38,6 +39,8 @@ export interface PlanDetailsProps {
   onZoneCriterion: (zoneId: string, criterion: CriterionKind) => void;
   /** Sets the project's two angles; undefined goes back to the defaults. */
   onCriteria: (criteria: CriteriaSettings | undefined) => void;
+  /** The customer's plan under the drawing: upload, calibrate, place (the workspace wires it). */
+  underlayPanel?: ReactNode;
 }
 
 export function PlanDetails(p: PlanDetailsProps) {
@@ -215,6 +218,10 @@ function ProjectSummary(p: PlanDetailsProps) {
             </View>
           </ListRow>
         ))}
+      </Section>
+      {p.underlayPanel && (p.canEdit || p.scene.underlay) ? <Section title="Customer’s plan">{p.underlayPanel}</Section> : null}
+      <Section title="Photos of the job">
+        <PhotoGallery projectId={p.project.id} placementId={null} canEdit={p.canEdit} testID="job-photos" />
       </Section>
       <Section title="Detect and recognise">
         <CriteriaSettingsForm criteria={criteriaOf(p.scene)} canEdit={p.canEdit} onSave={p.onCriteria} />

@@ -31,6 +31,13 @@ import { ZoneNamePrompt } from './zone-name-prompt';
 import { useReviewPlan } from '@/components/review/use-review-plan';
 import { AppText } from '@/components/ui';
 import { CAUTION_SENTENCES } from '@/shared/cautions';
+import { fileAddress, useDeleteFileMutation, useProjectFilesQuery } from '@/hooks/use-files';
+import type { FileDto, Underlay } from '@/shared/schemas/files';
+import type { UnderlayImage } from './plan-drawing';
+import { CalibrationMarks, CalibrationPrompt } from './underlay-calibration';
+import { setUnderlay } from './underlay-edits';
+import { UnderlayPanel, underlayForUpload } from './underlay-panel';
+import { calibrationFrom, useUnderlayCalibration } from './use-underlay-calibration';
 
 export function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: CatalogueItemDto[] }) {
   const wide = useIsWide();
@@ -141,6 +148,60 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
   // The review (state, steps, comments, trail) sits above the details; its markers are drawn on the plan.
   const review = useReviewPlan({ project, placements: edits.placements, selection, wide });
 
+  // The customer's plan under the drawing (scene.underlay) and its calibration.
+  const files = useProjectFilesQuery(project.id);
+  const deleteFile = useDeleteFileMutation(project.id);
+  const underlay = edits.scene.underlay;
+  const planFile = underlay ? files.data?.find((f) => f.id === underlay.fileId) : undefined;
+  const underlayImage: UnderlayImage | null =
+    underlay && planFile ? { underlay, href: fileAddress(planFile), widthPx: planFile.widthPx, heightPx: planFile.heightPx } : null;
+  const calibration = useUnderlayCalibration();
+  const calibrating = calibration.active && underlay !== undefined && canEdit;
+  /** Scale, turn, shift and look: recorded in the undo history like any drawing change. */
+  const changeUnderlay = (next: Underlay) => void editScene(setUnderlay(base, next));
+  const startCalibration = () => {
+    setSelection(null);
+    if (!wide) setDrawerSize('folded');
+    calibration.start();
+  };
+  /**
+   * A new plan file or none: saved straight away, not recorded, because the file it replaces is
+   * deleted once the scene no longer names it (an undo could not bring the file back).
+   */
+  const replaceUnderlayFile = async (next: Underlay | undefined) => {
+    const old = base.underlay;
+    const saved = await edits.saveScene(setUnderlay(base, next));
+    if (saved && old && old.fileId !== next?.fileId) deleteFile.mutate(old.fileId);
+    return saved;
+  };
+  const onPlanUploaded = (file: FileDto) => {
+    void replaceUnderlayFile(underlayForUpload(file, base.underlay)).then((saved) => {
+      if (saved) startCalibration();
+    });
+  };
+  const setScale = (distanceText: string): string | null => {
+    if (!underlay) return 'There is no plan to calibrate.';
+    const outcome = calibrationFrom(underlay, calibration.pointsPx, distanceText, units);
+    if (!outcome.ok) return outcome.message;
+    const problem = editScene(setUnderlay(base, outcome.underlay));
+    if (!problem) calibration.cancel();
+    return problem;
+  };
+  const underlayPanel = (
+    <UnderlayPanel
+      projectId={project.id}
+      canEdit={canEdit}
+      underlay={base.underlay}
+      file={planFile}
+      units={units}
+      calibrating={calibrating}
+      onChange={changeUnderlay}
+      onUploaded={onPlanUploaded}
+      onCalibrate={startCalibration}
+      onRemove={() => void replaceUnderlayFile(undefined)}
+    />
+  );
+
   // On a phone with a mirror selected, its editor comes first in the drawer's peek; the review panel follows.
   const editorFirst = !wide && selection?.kind === 'placement';
   const details = (
@@ -167,6 +228,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
         onViewerEyeHeight={(id: string, eyeHeightM: number) => void history.saveScene(setViewerEyeHeight(base, id, eyeHeightM))}
         onZoneCriterion={(id: string, criterion: CriterionKind) => void history.saveScene(setZoneCriterion(base, id, criterion))}
         onCriteria={(criteria: CriteriaSettings | undefined) => void history.saveScene(setCriteria(base, criteria))}
+        underlayPanel={underlayPanel}
       />
       {canEdit ? <SceneItemEditor scene={base} selection={selection} units={units} onEdit={editScene} /> : null}
       {canEdit && selectedPlacementId !== null && edits.placements.some((p) => p.id === selectedPlacementId) ? (
@@ -195,9 +257,16 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
         canEdit={canEdit}
         selection={selection}
         onSelect={select}
-        onTapPlan={review.pinning ? review.onPinTap : tools.tap}
-        pinning={review.pinning}
-        overlay={review.overlay}
+        onTapPlan={calibrating && underlay ? (pointM) => calibration.tap(underlay, pointM) : review.pinning ? review.onPinTap : tools.tap}
+        pinning={calibrating || review.pinning}
+        overlay={(view) => (
+          <>
+            {review.overlay(view)}
+            {calibrating && underlay ? <CalibrationMarks underlay={underlay} pointsPx={calibration.pointsPx} view={view} /> : null}
+          </>
+        )}
+        underlay={underlayImage}
+        fitKey={underlayImage ? underlay?.fileId : null}
         onDrag={onDrag}
         sketchPoints={tools.zoneToName ?? tools.sketch}
         sketchClosed={tools.tool === 'zone'}
@@ -218,6 +287,15 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
           catalogue={catalogue}
           units={units}
         />
+        {calibrating ? (
+          <CalibrationPrompt
+            points={calibration.pointsPx.length}
+            units={units}
+            onSet={setScale}
+            onRestart={calibration.restart}
+            onCancel={calibration.cancel}
+          />
+        ) : null}
         {tools.zoneToName ? (
           <ZoneNamePrompt defaultName={`Zone ${base.zones.length + 1}`} onSave={tools.nameZone} onCancel={tools.cancelZoneName} />
         ) : null}

@@ -81,7 +81,17 @@ export function UploadControl(props: UploadControlProps) {
   );
 }
 
-function UploadStatus({ state, testID, onCancel, onRetry }: { state: UploadState; testID: string; onCancel: () => void; onRetry: () => void }) {
+function UploadStatus({
+  state,
+  testID,
+  onCancel,
+  onRetry,
+}: {
+  state: UploadState;
+  testID: string;
+  onCancel: () => void;
+  onRetry: () => void;
+}) {
   if (state.phase === 'sending') {
     const pct = sharePercent(state.sent, state.total);
     return (

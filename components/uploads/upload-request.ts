@@ -54,7 +54,12 @@ export function retryHelps(error: unknown): boolean {
 }
 
 /** The form the route reads: field `file`, `kind`, and for a photo its mirror, for a PDF plan its page. */
-export function uploadForm(file: Blob, name: string, kind: FileKind, extra: { placementId?: number | null; page?: number | null } = {}): FormData {
+export function uploadForm(
+  file: Blob,
+  name: string,
+  kind: FileKind,
+  extra: { placementId?: number | null; page?: number | null } = {},
+): FormData {
   const form = new FormData();
   form.append('kind', kind);
   if (kind === 'photo' && extra.placementId != null) form.append('placementId', String(extra.placementId));

@@ -210,14 +210,24 @@ describe('the upload control', () => {
   it('offers Try again after a server fault (503)', async () => {
     renderControl();
     choose('up-choose-input', photo());
-    await act(async () => last().answer(503, JSON.stringify({ error: 'The server is busy; try again in a moment.' }), { 'Retry-After': '5' }));
+    await act(async () =>
+      last().answer(503, JSON.stringify({ error: 'The server is busy; try again in a moment.' }), { 'Retry-After': '5' }),
+    );
     expect(screen.getByTestId('up-error')).toHaveTextContent('The server is busy');
     expect(screen.getByTestId('up-retry')).toBeInTheDocument();
   });
 
   it('sends a plan’s page when one is given, and no mirror', () => {
     renderWithQuery(
-      <UploadControl projectId={7} kind="plan" page={3} testID="up" chooseLabel="Choose a plan" onUploaded={jest.fn()} makeRequest={makeRequest} />,
+      <UploadControl
+        projectId={7}
+        kind="plan"
+        page={3}
+        testID="up"
+        chooseLabel="Choose a plan"
+        onUploaded={jest.fn()}
+        makeRequest={makeRequest}
+      />,
     );
     choose('up-choose-input', photo('site.pdf', 'application/pdf'));
     expect(last().sentBody?.get('kind')).toBe('plan');
@@ -229,7 +239,16 @@ describe('the upload control', () => {
 describe('the check before sending', () => {
   const kinds = fc.constantFrom('plan' as const, 'photo' as const);
   const anyType = fc.oneof(
-    fc.constantFrom('image/png', 'image/jpeg', 'application/pdf', 'image/svg+xml', 'image/heic', 'application/x-msdownload', 'text/html', ''),
+    fc.constantFrom(
+      'image/png',
+      'image/jpeg',
+      'application/pdf',
+      'image/svg+xml',
+      'image/heic',
+      'application/x-msdownload',
+      'text/html',
+      '',
+    ),
     fc.string({ maxLength: 30 }),
   );
   const anyName = fc.oneof(fc.string({ maxLength: 40 }), fc.constantFrom('a.png', 'b.JPG', 'c.jpeg', 'd.pdf', 'e.svg', 'f.exe', 'g'));
@@ -243,16 +262,22 @@ describe('the check before sending', () => {
         // Nothing empty or over the limit is ever sent, whatever it claims to be.
         if (size === 0 || size > FILE_LIMITS.fileBytes) expect(said).not.toBeNull();
         // A photo is never a PDF.
-        if (kind === 'photo' && type === 'application/pdf' && size > 0 && size <= FILE_LIMITS.fileBytes) expect(said).toBe(FILE_MESSAGES.pdfPhoto);
+        if (kind === 'photo' && type === 'application/pdf' && size > 0 && size <= FILE_LIMITS.fileBytes)
+          expect(said).toBe(FILE_MESSAGES.pdfPhoto);
       }),
     );
   });
 
   it('lets through a PNG or JPEG of 1 byte up to exactly the limit for either kind', () => {
     fc.assert(
-      fc.property(fc.constantFrom('image/png', 'image/jpeg'), fc.integer({ min: 1, max: FILE_LIMITS.fileBytes }), kinds, (type, size, kind) => {
-        expect(checkBeforeUpload({ name: 'x', type, size }, kind)).toBeNull();
-      }),
+      fc.property(
+        fc.constantFrom('image/png', 'image/jpeg'),
+        fc.integer({ min: 1, max: FILE_LIMITS.fileBytes }),
+        kinds,
+        (type, size, kind) => {
+          expect(checkBeforeUpload({ name: 'x', type, size }, kind)).toBeNull();
+        },
+      ),
     );
   });
 
