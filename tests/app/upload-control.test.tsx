@@ -4,7 +4,7 @@
  */
 import '@testing-library/jest-dom';
 import { act, fireEvent, screen } from '@testing-library/react';
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { UploadControl } from '@/components/uploads/upload-control';
 import { checkBeforeUpload, retryHelps } from '@/components/uploads/upload-request';
 import { ApiError } from '@/shared/api-client';
