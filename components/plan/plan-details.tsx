@@ -156,6 +156,8 @@ function ProjectSummary(p: PlanDetailsProps) {
   const evalById = new Map((p.evaluation?.placements ?? []).map((e) => [e.placementId, e]));
   return (
     <View style={styles.column} testID="plan-summary">
+      {/* The customer's plan first: on a new job it is what the installer starts from. */}
+      {p.underlayPanel && (p.canEdit || p.scene.underlay) ? <Section title="Customer’s plan">{p.underlayPanel}</Section> : null}
       <Section title="Zones">
         {p.scene.zones.length === 0 ? (
           <AppText tone="muted">No zones yet. Draw the area a mirror must show with the Zone tool.</AppText>
@@ -219,7 +221,6 @@ function ProjectSummary(p: PlanDetailsProps) {
           </ListRow>
         ))}
       </Section>
-      {p.underlayPanel && (p.canEdit || p.scene.underlay) ? <Section title="Customer’s plan">{p.underlayPanel}</Section> : null}
       <Section title="Photos of the job">
         <PhotoGallery projectId={p.project.id} placementId={null} canEdit={p.canEdit} testID="job-photos" />
       </Section>
