@@ -3,7 +3,7 @@
  * state (usePlanTool), the evaluation, and the selection, arranged by WideWorkspace or PhoneWorkspace.
  * Scene changes are the pure functions of scene-edits.ts.
  */
-import { useCallback, useLayoutEffect, useState } from 'react';
+import { useCallback, useLayoutEffect, useRef, useState } from 'react';
 import { useDisplayUnits } from '@/components/placement/use-display-units';
 import { useIsWide } from '@/hooks/use-breakpoint';
 import { usePlanEdits } from '@/hooks/use-plan-edits';
@@ -156,6 +156,10 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
   const underlayImage: UnderlayImage | null =
     underlay && planFile ? { underlay, href: fileAddress(planFile), widthPx: planFile.widthPx, heightPx: planFile.heightPx } : null;
   const calibration = useUnderlayCalibration();
+  const baseRef = useRef(base);
+  useLayoutEffect(() => {
+    baseRef.current = base;
+  });
   const calibrating = calibration.active && underlay !== undefined && canEdit;
   /** Scale, turn, shift and look: recorded in the undo history like any drawing change. */
   const changeUnderlay = (next: Underlay) => void editScene(setUnderlay(base, next));
@@ -169,13 +173,15 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
    * deleted once the scene no longer names it (an undo could not bring the file back).
    */
   const replaceUnderlayFile = async (next: Underlay | undefined) => {
-    const old = base.underlay;
-    const saved = await edits.saveScene(setUnderlay(base, next));
+    // Read when the upload ends, not when it started: the drawing may have changed meanwhile.
+    const latest = baseRef.current;
+    const old = latest.underlay;
+    const saved = await edits.saveScene(setUnderlay(latest, next));
     if (saved && old && old.fileId !== next?.fileId) deleteFile.mutate(old.fileId);
     return saved;
   };
   const onPlanUploaded = (file: FileDto) => {
-    void replaceUnderlayFile(underlayForUpload(file, base.underlay)).then((saved) => {
+    void replaceUnderlayFile(underlayForUpload(file, baseRef.current.underlay)).then((saved) => {
       if (saved) startCalibration();
     });
   };

@@ -2,6 +2,7 @@
  * One upload control's state: checked on the client, sending (with the share sent), cancelled,
  * failed (with the server's sentence and whether trying again can help), or done. The chosen file
  * is kept until the next choice so "Try again" sends the same file after a dropped connection.
+ * An upload outlives its control: leaving the screen does not cancel it.
  */
 import { useCallback, useEffect, useRef, useState } from 'react';
 import { uploadAddress } from '@/hooks/use-files';
@@ -35,9 +36,9 @@ export function useUpload({ projectId, kind, placementId, page, onUploaded, make
   useEffect(() => {
     alive.current = true;
     return () => {
+      // The control may leave the screen while sending (the phone's drawer folds, another mirror is
+      // picked): the upload goes on and its file still lands (`onUploaded` runs); only the bar is gone.
       alive.current = false;
-      // Leaving the screen stops the upload rather than finishing it unseen.
-      cancelRef.current?.();
     };
   }, []);
 
@@ -61,8 +62,7 @@ export function useUpload({ projectId, kind, placementId, page, onUploaded, make
       sent.promise.then(
         (stored) => {
           cancelRef.current = null;
-          if (!alive.current) return;
-          setState({ phase: 'done', name: stored.name || file.name });
+          if (alive.current) setState({ phase: 'done', name: stored.name || file.name });
           onUploaded(stored);
         },
         (e: unknown) => {

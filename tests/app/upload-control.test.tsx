@@ -95,7 +95,7 @@ function choose(testId: string, file: File) {
 }
 
 function renderControl(onUploaded = jest.fn(), kind: 'photo' | 'plan' = 'photo') {
-  renderWithQuery(
+  return renderWithQuery(
     <UploadControl
       projectId={7}
       kind={kind}
@@ -107,7 +107,6 @@ function renderControl(onUploaded = jest.fn(), kind: 'photo' | 'plan' = 'photo')
       makeRequest={makeRequest}
     />,
   );
-  return onUploaded;
 }
 
 beforeEach(() => {
@@ -153,7 +152,8 @@ describe('the upload control', () => {
   });
 
   it('cancels the request on Cancel, says nothing was saved and does not report a file', async () => {
-    const onUploaded = renderControl();
+    const onUploaded = jest.fn();
+    renderControl(onUploaded);
     choose('up-choose-input', photo());
     fireEvent.click(screen.getByTestId('up-cancel'));
     expect(last().aborted).toBe(true);
@@ -163,7 +163,8 @@ describe('the upload control', () => {
   });
 
   it('offers Try again after a dropped connection and sends the same file again', async () => {
-    const onUploaded = renderControl();
+    const onUploaded = jest.fn();
+    renderControl(onUploaded);
     choose('up-choose-input', photo());
     act(() => last().fire('error'));
     expect(await screen.findByTestId('up-error')).toHaveTextContent('The connection dropped');
@@ -173,6 +174,16 @@ describe('the upload control', () => {
     await act(async () => last().answer(201, JSON.stringify({ file: STORED })));
     expect(onUploaded).toHaveBeenCalledWith(STORED);
     expect(screen.getByTestId('up-done')).toHaveTextContent('dock-mirror.jpg');
+  });
+
+  it('goes on sending when the control leaves the screen (the drawer folds) and still reports the stored file', async () => {
+    const onUploaded = jest.fn();
+    const { unmount } = renderControl(onUploaded);
+    choose('up-choose-input', photo());
+    unmount();
+    expect(last().aborted).toBe(false);
+    await act(async () => last().answer(201, JSON.stringify({ file: STORED })));
+    expect(onUploaded).toHaveBeenCalledWith(STORED);
   });
 
   it('refuses a file over the size limit before sending anything, in the contract’s words, with no retry', () => {
