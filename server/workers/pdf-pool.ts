@@ -39,7 +39,9 @@ export function createPdfWork(opts: { budgetMs?: number } = {}): PdfWork {
         const err = e as { code?: string; message?: string };
         if (err.code === 'ERR_WORKER_OUT_OF_MEMORY') throw new HttpError(422, FILE_MESSAGES.pdfSlow, { file: FILE_MESSAGES.pdfSlow });
         if (err.message?.includes('Task queue is at limit'))
-          throw new HttpError(503, 'Sightfan is reading many PDF plans right now. Try again in a minute.', undefined, { 'Retry-After': '30' });
+          throw new HttpError(503, 'Sightfan is reading many PDF plans right now. Try again in a minute.', undefined, {
+            'Retry-After': '30',
+          });
         throw e;
       } finally {
         clearTimeout(timer);

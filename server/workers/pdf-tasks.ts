@@ -5,6 +5,7 @@
  * The drawing's own time is bounded by the pool, which terminates this thread past its budget.
  */
 import path from 'node:path';
+import { createCanvas } from '@napi-rs/canvas';
 import { FILE_LIMITS } from '../../shared/schemas/files';
 
 export interface RasteriseTask {
@@ -58,14 +59,13 @@ export async function rasterise(task: RasteriseTask): Promise<RasteriseResult> {
     const viewport = page.getViewport({ scale });
     const widthPx = Math.max(1, Math.floor(viewport.width));
     const heightPx = Math.max(1, Math.floor(viewport.height));
-    const { canvas, context } = doc.canvasFactory.create(widthPx, heightPx) as {
-      canvas: { encode(format: 'png'): Promise<Buffer> } & HTMLCanvasElement;
-      context: CanvasRenderingContext2D;
-    };
+    const canvas = createCanvas(widthPx, heightPx);
+    const context = canvas.getContext('2d');
     // A plan on white paper, as it would print (a PDF page has no background of its own).
     context.fillStyle = '#ffffff';
     context.fillRect(0, 0, widthPx, heightPx);
-    await page.render({ canvasContext: context, canvas, viewport }).promise;
+    // pdfjs-dist types its canvas as the DOM's; @napi-rs/canvas is the same drawing API in Node.
+    await page.render({ canvasContext: context as never, canvas: canvas as never, viewport }).promise;
     const png = await canvas.encode('png');
     return { ok: true, png: new Uint8Array(png.buffer, png.byteOffset, png.byteLength), widthPx, heightPx, pages };
   } catch {
