@@ -54,8 +54,10 @@ export interface PlanCanvasProps {
   zoomAtBottom?: number;
   /** The customer's plan under the drawing; its corners count when the view is fitted. */
   underlay?: UnderlayImage | null;
-  /** When this changes (a new plan underlay), the view is fitted again. */
+  /** When this changes (a new plan underlay), the view is fitted again, and once more after the frame's next resize. */
   fitKey?: string | null;
+  /** Pixels at the top covered by a card over the plan (the calibration card); "fit" keeps the plan below them. */
+  reserveTop?: number;
 }
 
 export function PlanCanvas(props: PlanCanvasProps) {
@@ -73,7 +75,7 @@ export function PlanCanvas(props: PlanCanvasProps) {
     return boundsOf(pts);
   }, [scene, placements, props.underlay]);
 
-  const viewport = usePlanViewport(frameRef, planBounds, reserveBottom);
+  const viewport = usePlanViewport(frameRef, planBounds, reserveBottom, props.reserveTop ?? 0);
   const { size, view } = viewport;
   const focusRef = useRef(props.focus);
   useLayoutEffect(() => {
@@ -87,9 +89,9 @@ export function PlanCanvas(props: PlanCanvasProps) {
   }, [focusKey, centre]);
   // A new plan underlay: show all of it (once its size is known), not only what was drawn before.
   const fitKey = props.fitKey ?? null;
-  const fitRef = useRef(viewport.fit);
+  const fitRef = useRef(viewport.fitAndFollow);
   useLayoutEffect(() => {
-    fitRef.current = viewport.fit;
+    fitRef.current = viewport.fitAndFollow;
   });
   const lastFitKey = useRef(fitKey);
   useEffect(() => {

@@ -28,15 +28,19 @@ export function CalibrationPrompt({ points, units, onSet, onRestart, onCancel }:
   const [error, setError] = useState<string | null>(null);
   const step =
     points === 0
-      ? 'Tap one end of a length you know on the plan (a wall, a door, a dimension line). Pinch or use + to zoom in first.'
+      ? 'Tap one end of a length you know: a wall, a door, a dimension line. Zoom in first for a sharp tap.'
       : points === 1
         ? 'Now tap the other end of that length.'
-        : 'Type the real distance between the two points. A new tap moves the second point.';
+        : 'Type the real distance between the two points. Another tap moves point 2.';
   const submit = () => setError(onSet(text));
   return (
     <View style={styles.card} testID="underlay-calibration" role="dialog" aria-label="Calibrate the plan's scale">
-      <AppText variant="bodyStrong" testID="underlay-calibration-step" aria-live="polite">
-        {`Calibrate · ${Math.min(points + 1, 3)} of 3. ${step}`}
+      <View style={styles.head}>
+        <AppText variant="label" style={styles.flex}>{`Calibrate the plan · step ${Math.min(points + 1, 3)} of 3`}</AppText>
+        <Button label="Cancel" variant="quiet" testID="underlay-calibration-cancel" onPress={onCancel} />
+      </View>
+      <AppText variant="small" testID="underlay-calibration-step" aria-live="polite">
+        {step}
       </AppText>
       {points >= 2 ? (
         <TextField
@@ -57,11 +61,12 @@ export function CalibrationPrompt({ points, units, onSet, onRestart, onCancel }:
           onSubmitEditing={submit}
         />
       ) : null}
-      <View style={styles.row}>
-        {points >= 2 ? <Button label="Set the scale" testID="underlay-calibration-set" onPress={submit} /> : null}
-        {points > 0 ? <Button label="Start again" variant="secondary" testID="underlay-calibration-restart" onPress={onRestart} /> : null}
-        <Button label="Cancel" variant="quiet" testID="underlay-calibration-cancel" onPress={onCancel} />
-      </View>
+      {points > 0 ? (
+        <View style={styles.row}>
+          {points >= 2 ? <Button label="Set the scale" testID="underlay-calibration-set" onPress={submit} /> : null}
+          <Button label="Start again" variant="secondary" testID="underlay-calibration-restart" onPress={onRestart} />
+        </View>
+      ) : null}
     </View>
   );
 }
@@ -95,9 +100,12 @@ const styles = StyleSheet.create({
     borderRadius: radii.lg,
     borderWidth: 2,
     borderColor: palette.stop,
-    padding: spacing.md,
-    gap: spacing.sm,
+    paddingVertical: spacing.sm,
+    paddingHorizontal: spacing.md,
+    gap: spacing.xs,
     ...shadow,
   },
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.sm, alignItems: 'center' },
+  head: { flexDirection: 'row', gap: spacing.sm, alignItems: 'center' },
+  flex: { flexGrow: 1, flexShrink: 1 },
 });

@@ -31,13 +31,16 @@ import { ZoneNamePrompt } from './zone-name-prompt';
 import { useReviewPlan } from '@/components/review/use-review-plan';
 import { AppText } from '@/components/ui';
 import { CAUTION_SENTENCES } from '@/shared/cautions';
-import { fileAddress, useDeleteFileMutation, useProjectFilesQuery } from '@/hooks/use-files';
+import { fileAddress, useAddFileToCache, useDeleteFileMutation, useProjectFilesQuery } from '@/hooks/use-files';
 import type { FileDto, Underlay } from '@/shared/schemas/files';
 import type { UnderlayImage } from './plan-drawing';
 import { CalibrationMarks, CalibrationPrompt } from './underlay-calibration';
 import { setUnderlay } from './underlay-edits';
 import { UnderlayPanel, underlayForUpload } from './underlay-panel';
 import { calibrationFrom, useUnderlayCalibration } from './use-underlay-calibration';
+
+/** About the calibration card's height over the plan: a fit while calibrating keeps the plan below it. */
+const CALIBRATION_CARD_PX = 150;
 
 export function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: CatalogueItemDto[] }) {
   const wide = useIsWide();
@@ -151,6 +154,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
   // The customer's plan under the drawing (scene.underlay) and its calibration.
   const files = useProjectFilesQuery(project.id);
   const deleteFile = useDeleteFileMutation(project.id);
+  const addFileToCache = useAddFileToCache(project.id);
   const underlay = edits.scene.underlay;
   const planFile = underlay ? files.data?.find((f) => f.id === underlay.fileId) : undefined;
   const underlayImage: UnderlayImage | null =
@@ -181,6 +185,8 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
     return saved;
   };
   const onPlanUploaded = (file: FileDto) => {
+    // The image's size comes from the files list: put the new file there before the scene names it.
+    addFileToCache(file);
     void replaceUnderlayFile(underlayForUpload(file, baseRef.current.underlay)).then((saved) => {
       if (saved) startCalibration();
     });
@@ -273,6 +279,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
         )}
         underlay={underlayImage}
         fitKey={underlayImage ? underlay?.fileId : null}
+        reserveTop={calibrating ? CALIBRATION_CARD_PX : 0}
         onDrag={onDrag}
         sketchPoints={tools.zoneToName ?? tools.sketch}
         sketchClosed={tools.tool === 'zone'}

@@ -108,10 +108,11 @@ describe('the calibration card', () => {
   it('asks for each tap in turn and the distance only once both points are down', () => {
     const props = { units: 'metric' as const, onSet: jest.fn(() => null), onRestart: jest.fn(), onCancel: jest.fn() };
     const { rerender } = renderWithQuery(<CalibrationPrompt points={0} {...props} />);
-    expect(screen.getByTestId('underlay-calibration-step')).toHaveTextContent('1 of 3');
+    expect(screen.getByTestId('underlay-calibration')).toHaveTextContent('step 1 of 3');
+    expect(screen.getByTestId('underlay-calibration-step')).toHaveTextContent('Tap one end');
     expect(screen.queryByTestId('underlay-calibration-distance')).toBeNull();
     rerender(<CalibrationPrompt points={2} {...props} />);
-    expect(screen.getByTestId('underlay-calibration-step')).toHaveTextContent('3 of 3');
+    expect(screen.getByTestId('underlay-calibration')).toHaveTextContent('step 3 of 3');
     fireEvent.change(screen.getByTestId('underlay-calibration-distance'), { target: { value: '12 ft 6 in' } });
     fireEvent.click(screen.getByTestId('underlay-calibration-set'));
     expect(props.onSet).toHaveBeenCalledWith('12 ft 6 in');
