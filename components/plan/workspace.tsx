@@ -4,6 +4,7 @@
  * Scene changes are the pure functions of scene-edits.ts.
  */
 import { useCallback, useLayoutEffect, useRef, useState } from 'react';
+import { View } from 'react-native';
 import { useDisplayUnits } from '@/components/placement/use-display-units';
 import { useIsWide } from '@/hooks/use-breakpoint';
 import { usePlanEdits } from '@/hooks/use-plan-edits';
@@ -39,6 +40,9 @@ import { setUnderlay } from './underlay-edits';
 import { UnderlayPanel, underlayForUpload } from './underlay-panel';
 import { calibrationFrom, useUnderlayCalibration } from './use-underlay-calibration';
 
+/** Gap between the phone's floating tools and the zoom row above them (the tools sit 8 px up from the plan's edge). */
+const ZOOM_ABOVE_TOOLS_PX = 16;
+
 /** About the calibration card's height over the plan: a fit while calibrating keeps the plan below it. */
 const CALIBRATION_CARD_PX = 150;
 
@@ -48,6 +52,9 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
   const edits = usePlanEdits(project);
   const [selection, setSelection] = useState<PlanSelection>(null);
   const [drawerSize, setDrawerSize] = useState<DrawerSize>('folded');
+  // The floating tools' height on a phone (it grows with a tool's own choices and sentence): the zoom
+  // row sits just above it, so no tool's panel covers Fit.
+  const [toolbarHeight, setToolbarHeight] = useState(90);
   const selectedPlacementId = selection?.kind === 'placement' ? selection.id : null;
   const evaluation = usePlanEvaluation(edits.scene, edits.placements, catalogue, selectedPlacementId);
   const canEdit = project.canEdit;
@@ -284,7 +291,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
         sketchPoints={tools.zoneToName ?? tools.sketch}
         sketchClosed={tools.tool === 'zone'}
         reserveBottom={90}
-        zoomAtBottom={wide ? undefined : drawerSize === 'folded' ? 100 : 8}
+        zoomAtBottom={wide ? undefined : drawerSize === 'folded' ? toolbarHeight + ZOOM_ABOVE_TOOLS_PX : 8}
         focus={!wide && drawerSize !== 'folded' ? focusOf(selection, edits.placements, edits.scene) : null}
       />
     ),
@@ -315,7 +322,13 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
       </>
     ),
     toolbar: (
-      <>
+      <View
+        pointerEvents="box-none"
+        onLayout={(e) => {
+          const h = Math.round(e.nativeEvent.layout.height);
+          setToolbarHeight((old) => (old === h ? old : h));
+        }}
+      >
         {canEdit ? (
           <UndoControls
             canUndo={history.canUndo}
@@ -338,7 +351,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
           onWallKind={tools.setWallKind}
           busy={edits.saving}
         />
-      </>
+      </View>
     ),
   };
 
