@@ -141,15 +141,13 @@ export function UnderlayPanel(p: UnderlayPanelProps) {
             <AppText variant="label">{`Turn: ${degrees(u.rotationRad).toFixed(1)}°`}</AppText>
             <View style={styles.row}>
               <Button
-                label="⟲ 0.5°"
-                accessibilityLabel="Turn the plan half a degree anticlockwise"
+                label="⟲ Left 0.5°"
                 testID="underlay-turn-left"
                 variant="secondary"
                 onPress={() => change(turnUnderlayTo(u, u.rotationRad + NUDGE_RAD, pivot))}
               />
               <Button
-                label="⟳ 0.5°"
-                accessibilityLabel="Turn the plan half a degree clockwise"
+                label="⟳ Right 0.5°"
                 testID="underlay-turn-right"
                 variant="secondary"
                 onPress={() => change(turnUnderlayTo(u, u.rotationRad - NUDGE_RAD, pivot))}
@@ -161,23 +159,21 @@ export function UnderlayPanel(p: UnderlayPanelProps) {
             </AppText>
           </View>
           <View style={styles.block}>
-            <AppText variant="label">{`Move by ${nudge}`}</AppText>
+            <AppText variant="label">{`Move the plan by ${nudge}`}</AppText>
             <View style={styles.row}>
               {(
                 [
-                  ['west', '←', -NUDGE_M, 0],
-                  ['north', '↑', 0, NUDGE_M],
-                  ['south', '↓', 0, -NUDGE_M],
-                  ['east', '→', NUDGE_M, 0],
+                  ['west', '← West', -NUDGE_M, 0],
+                  ['north', '↑ North', 0, NUDGE_M],
+                  ['south', '↓ South', 0, -NUDGE_M],
+                  ['east', '→ East', NUDGE_M, 0],
                 ] as const
-              ).map(([dir, arrow, dx, dy]) => (
+              ).map(([dir, words, dx, dy]) => (
                 <Button
                   key={dir}
-                  label={arrow}
-                  accessibilityLabel={`Move the plan ${nudge} ${dir}`}
+                  label={words}
                   testID={`underlay-move-${dir}`}
                   variant="secondary"
-                  style={styles.arrow}
                   onPress={() => change(shiftUnderlay(u, dx, dy))}
                 />
               ))}
@@ -221,7 +217,6 @@ const styles = StyleSheet.create({
   root: { gap: spacing.md },
   block: { gap: spacing.sm },
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.sm, alignItems: 'center' },
-  arrow: { minWidth: 56 },
   confirm: {
     gap: spacing.sm,
     padding: spacing.md,

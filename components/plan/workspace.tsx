@@ -290,7 +290,8 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
         onDrag={onDrag}
         sketchPoints={tools.zoneToName ?? tools.sketch}
         sketchClosed={tools.tool === 'zone'}
-        reserveBottom={90}
+        // On a phone "fit" keeps the plan above the floating tools and the zoom row, where every point can be tapped.
+        reserveBottom={wide ? 90 : drawerSize === 'folded' ? toolbarHeight + ZOOM_ABOVE_TOOLS_PX + 48 + 8 : 8 + 48 + 8}
         zoomAtBottom={wide ? undefined : drawerSize === 'folded' ? toolbarHeight + ZOOM_ABOVE_TOOLS_PX : 8}
         focus={!wide && drawerSize !== 'folded' ? focusOf(selection, edits.placements, edits.scene) : null}
       />

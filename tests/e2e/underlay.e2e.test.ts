@@ -204,13 +204,6 @@ describe('an installer on a phone draws over the customer’s plan', () => {
     await page.locator('svg[data-testid="plan-canvas"] image').waitFor({ state: 'attached' });
     await until((s) => s.project.scene.underlay !== undefined, 'the underlay');
     await shot(page, 'phone-underlay-uploaded');
-    if (process.env.DEBUG_UNDERLAY) {
-      console.log(
-        await page.locator('svg[data-testid="plan-canvas"] image').evaluate((e: unknown) => (e as { outerHTML: string }).outerHTML),
-      );
-      console.log(await page.locator('svg[data-testid="plan-canvas"]').getAttribute('data-transform'));
-      console.log(JSON.stringify((await saved()).project.scene.underlay));
-    }
   });
 
   it('calibrates with two taps on the plan’s marks and the typed distance', async () => {
@@ -256,6 +249,7 @@ describe('an installer on a phone draws over the customer’s plan', () => {
     await byTestId(page, 'plan-zone-save').click();
     await until((s) => s.project.scene.zones.length === 1, 'the zone');
     const zone = (await saved()).project.scene.zones[0];
+    expect(zone.polygonM).toHaveLength(BAY.length);
     const xs = zone.polygonM.map((p) => p[0]);
     // The bay is 400 px wide on the plan: 4 m.
     expect(Math.abs(Math.max(...xs) - Math.min(...xs) - 4) / 4).toBeLessThan(0.005);
