@@ -40,9 +40,6 @@ import { setUnderlay } from './underlay-edits';
 import { UnderlayPanel, underlayForUpload } from './underlay-panel';
 import { calibrationFrom, useUnderlayCalibration } from './use-underlay-calibration';
 
-/** Gap between the phone's floating tools and the zoom row above them (the tools sit 8 px up from the plan's edge). */
-const ZOOM_ABOVE_TOOLS_PX = 16;
-
 /** About the calibration card's height over the plan: a fit while calibrating keeps the plan below it. */
 const CALIBRATION_CARD_PX = 150;
 
@@ -52,8 +49,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
   const edits = usePlanEdits(project);
   const [selection, setSelection] = useState<PlanSelection>(null);
   const [drawerSize, setDrawerSize] = useState<DrawerSize>('folded');
-  // The floating tools' height on a phone (it grows with a tool's own choices and sentence): the zoom
-  // row sits just above it, so no tool's panel covers Fit.
+  // The floating tools' height on a phone: it grows with a drawing tool's own sentence and choices.
   const [toolbarHeight, setToolbarHeight] = useState(90);
   const selectedPlacementId = selection?.kind === 'placement' ? selection.id : null;
   const evaluation = usePlanEvaluation(edits.scene, edits.placements, catalogue, selectedPlacementId);
@@ -155,6 +151,8 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
   });
 
   const tool = canEdit ? tools.tool : 'select';
+  /** A drawing tool's sentence and choices fill the bottom of a phone's plan (the toolbar's context panel). */
+  const toolPanelShown = !wide && canEdit && tool !== 'select' && drawerSize === 'folded';
   // The review (state, steps, comments, trail) sits above the details; its markers are drawn on the plan.
   const review = useReviewPlan({ project, placements: edits.placements, selection, wide });
 
@@ -290,9 +288,11 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
         onDrag={onDrag}
         sketchPoints={tools.zoneToName ?? tools.sketch}
         sketchClosed={tools.tool === 'zone'}
-        // On a phone "fit" keeps the plan above the floating tools and the zoom row, where every point can be tapped.
-        reserveBottom={wide ? 90 : drawerSize === 'folded' ? toolbarHeight + ZOOM_ABOVE_TOOLS_PX + 48 + 8 : 8 + 48 + 8}
-        zoomAtBottom={wide ? undefined : drawerSize === 'folded' ? toolbarHeight + ZOOM_ABOVE_TOOLS_PX : 8}
+        // On a phone "fit" keeps the plan above the floating tools, however tall a tool's panel makes them.
+        reserveBottom={wide ? 90 : drawerSize === 'folded' ? Math.max(90, toolbarHeight + 8) : 90}
+        // On a phone the zoom row sits low on the right; when a drawing tool's panel fills the bottom it
+        // steps up to a stack at the top right (footgun 60), where the notices leave room for it.
+        zoomAtBottom={wide || toolPanelShown ? undefined : drawerSize === 'folded' ? 100 : 8}
         focus={!wide && drawerSize !== 'folded' ? focusOf(selection, edits.placements, edits.scene) : null}
       />
     ),
