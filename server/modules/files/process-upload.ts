@@ -100,7 +100,6 @@ async function thumbnailOf(stored: Buffer): Promise<Buffer> {
 /** The uploaded name, for display only: no folders, no control characters, at most 120 characters. */
 export function cleanName(raw: string | undefined, fallback: string): string {
   const base = (raw ?? '').split(/[\\/]/).pop() ?? '';
-  // eslint-disable-next-line no-control-regex
   const clean = base.replace(/[\u0000-\u001f\u007f-\u009f\u202a-\u202e\u2066-\u2069]/g, '').trim();
   return (clean || fallback).slice(0, 120);
 }
