@@ -224,6 +224,15 @@ describe('refused uploads leave nothing behind', () => {
       415,
       FILE_MESSAGES.wrongType,
     ],
+    // Found by the property test: the sniffer ran off the end of it (a 500 before).
+    [
+      'a bare PNG signature',
+      () => Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+      'sig.png',
+      { kind: 'plan' },
+      422,
+      FILE_MESSAGES.unreadable,
+    ],
     ['a zero-byte file', () => Buffer.alloc(0), 'empty.jpg', { kind: 'photo' }, 400, FILE_MESSAGES.empty],
     [
       'a JPEG cut short',

@@ -29,7 +29,13 @@ const THUMBNAIL_QUALITY = 75;
 
 /** The type the bytes say, or undefined for anything we do not take. */
 export async function sniff(data: Buffer): Promise<'image/png' | 'image/jpeg' | 'application/pdf' | undefined> {
-  const found = await fromBuffer(data);
+  let found: Awaited<ReturnType<typeof fromBuffer>>;
+  try {
+    found = await fromBuffer(data);
+  } catch {
+    // file-type runs off the end of a file cut short inside its header (a bare PNG signature).
+    throw refuse(422, FILE_MESSAGES.unreadable);
+  }
   const mime = found?.mime;
   return mime === 'image/png' || mime === 'image/jpeg' || mime === 'application/pdf' ? mime : undefined;
 }
