@@ -3,7 +3,7 @@
  * refused with a 4xx and one of the contract's sentences — never a crash — and any name is cleaned
  * to something safe to show.
  */
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import sharp from 'sharp';
 import { FILE_LIMITS, FILE_MESSAGES, fileKinds } from '../../shared/schemas/files';
 import { HttpError } from '../../server/http-error';
