@@ -11,7 +11,7 @@ import { createPdfWork } from '../server/workers/pdf-pool';
 
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 
-/** 4032 × 3024 (12.2 MP, a common phone camera size): smooth light with fine grain, like a photo of a wall. */
+/** 4032 × 3024 (12.2 MP, a common phone camera size, docs/sources.md *Uploaded files*): smooth light with fine grain, like a photo of a wall. */
 async function phonePhoto(): Promise<Buffer> {
   const width = 4032;
   const height = 3024;

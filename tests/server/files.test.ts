@@ -126,7 +126,7 @@ describe('each allowed type uploads and round-trips', () => {
   it('draws a PDF plan’s first page, or the page asked for, and keeps it as a PNG with the page and page count', async () => {
     const job = await newJob('PDF plan');
     const a = await owner();
-    // Page 1 portrait A4, page 2 landscape A3 (ISO 216 sizes in points).
+    // Page 1 portrait A4, page 2 landscape A3 (ISO 216 sizes in points, docs/sources.md *Uploaded files*).
     const doc = await pdf(3, [
       [595.28, 841.89],
       [1190.55, 841.89],
@@ -165,7 +165,7 @@ describe('what an upload keeps of the original', () => {
       IFD3: { GPSLatitudeRef: 'N', GPSLatitude: '51/1 30/1 0/1', GPSLongitudeRef: 'W', GPSLongitude: '0/1 7/1 0/1' },
     });
     const before = (await sharp(withGps).metadata()).exif;
-    // The fixture really carries a GPS block: its pointer tag 0x8825 is in the EXIF data.
+    // The fixture really carries a GPS block: its pointer tag 0x8825 is in the EXIF data (docs/sources.md, *Uploaded files*).
     expect(before && (before.includes(Buffer.from([0x88, 0x25])) || before.includes(Buffer.from([0x25, 0x88])))).toBe(true);
     const res = await send(a, job, withGps, 'gps.jpg');
     expect(res.status).toBe(201);
@@ -174,7 +174,7 @@ describe('what an upload keeps of the original', () => {
     expect(stored.includes(Buffer.from('Exif\0'))).toBe(false);
   });
 
-  it('turns a photo upright from its EXIF orientation (6: the camera was turned a quarter clockwise)', async () => {
+  it('turns a photo upright from its EXIF orientation (6: a quarter turn clockwise, docs/sources.md *Uploaded files*)', async () => {
     const job = await newJob('Orientation');
     const sideways = await sharp(await jpeg(80, 40))
       .withMetadata({ orientation: 6 })
@@ -193,7 +193,7 @@ describe('what an upload keeps of the original', () => {
     const stored = (await a.get(res.body.file.url).buffer(true)).body as Buffer;
     expect(stored.includes(Buffer.from('<script'))).toBe(false);
     expect(stored.includes(Buffer.from([0x50, 0x4b, 0x03, 0x04]))).toBe(false);
-    // A JPEG ends with its EOI marker, FF D9 (ITU-T T.81, B.1.1.3).
+    // A JPEG ends with its EOI marker, FF D9 (docs/sources.md, *Uploaded files*).
     expect([...stored.subarray(-2)]).toEqual([0xff, 0xd9]);
   });
 });

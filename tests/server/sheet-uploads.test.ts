@@ -129,7 +129,7 @@ it('draws the plan image under the plan at the stated scale: its 10 m block meas
         maxY = Math.max(maxY, y);
       }
     }
-  // 10 m by 5 m at 1:N, in pixels at `dpi` (1 in = 0.0254 m): the definition of a drawing scale.
+  // 10 m by 5 m at 1:N, in pixels at `dpi` (1 in = 0.0254 m): the definition of a drawing scale (docs/sources.md, *Uploaded files*).
   const pxPerM = dpi / 0.0254 / denominator;
   expect(maxX - minX + 1).toBeGreaterThan(10 * pxPerM - 3);
   expect(maxX - minX + 1).toBeLessThan(10 * pxPerM + 3);

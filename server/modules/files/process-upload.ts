@@ -23,7 +23,7 @@ export interface ProcessedUpload {
 
 const refuse = (status: number, sentence: string) => new HttpError(status, sentence, { file: sentence });
 
-/** JPEG quality of stored photos and thumbnails (common practice for photos viewed on screen). */
+/** JPEG quality of stored photos and thumbnails (common practice for photos viewed on screen: docs/sources.md, *Uploaded files*). */
 const PHOTO_QUALITY = 85;
 const THUMBNAIL_QUALITY = 75;
 
