@@ -307,6 +307,15 @@ describe('refused uploads leave nothing behind', () => {
     expect(wrongMirror.body.fields.placementId).toBe('Choose a mirror of this job.');
   });
 
+  it('takes a multipart upload sent by the app itself (same origin)', async () => {
+    const res = await send(await owner(), job, await jpeg(16, 16), 'x.jpg')
+      .set('Host', 'sightfan.test')
+      .set('Origin', 'http://sightfan.test');
+    expect(res.status).toBe(201);
+    // Not a refusal: remove it so this block's "nothing behind" check holds.
+    expect((await (await owner()).delete(`/api/files/${res.body.file.id}`)).status).toBe(204);
+  });
+
   it('refuses a multipart request sent from another website', async () => {
     const res = await send(await owner(), job, await jpeg(16, 16), 'x.jpg').set('Origin', 'https://elsewhere.example');
     expect(res.status).toBe(403);
