@@ -307,6 +307,21 @@ describe('refused uploads leave nothing behind', () => {
     expect(wrongMirror.body.fields.placementId).toBe('Choose a mirror of this job.');
   });
 
+  it('refuses a multipart body that ends early, or a body that is not multipart, with 400 and a sentence', async () => {
+    const a = await owner();
+    const cut = await a
+      .post(`/api/projects/${job}/files`)
+      .set('Content-Type', 'multipart/form-data; boundary=XyZ')
+      .send(
+        '--XyZ\r\nContent-Disposition: form-data; name="kind"\r\n\r\nphoto\r\n--XyZ\r\nContent-Disposition: form-data; name="file"; filename="a.jpg"\r\n\r\n\xff\xd8\xff',
+      );
+    expect(cut.status).toBe(400);
+    expect(cut.body.error).toBe('The upload was cut off before the whole file arrived. Try again.');
+    const json = await a.post(`/api/projects/${job}/files`).send({ kind: 'photo' });
+    expect(json.status).toBe(400);
+    expect(json.body.error).toBe(FILE_MESSAGES.noFile);
+  });
+
   it('takes a multipart upload sent by the app itself (same origin)', async () => {
     const res = await send(await owner(), job, await jpeg(16, 16), 'x.jpg')
       .set('Host', 'sightfan.test')
