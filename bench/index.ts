@@ -7,6 +7,7 @@ import { runBoundedBench } from './bounded.bench';
 import { runLoadBench } from './load.bench';
 import { runReviewBench } from './review.bench';
 import { runQuickBench } from './quick.bench';
+import { runUploadsBench } from './uploads.bench';
 
 const runners: Array<() => Promise<void>> = [
   runOpticsBench,
@@ -15,6 +16,7 @@ const runners: Array<() => Promise<void>> = [
   runBoundedBench,
   runReviewBench,
   runQuickBench,
+  runUploadsBench,
   runPlanBench,
   runLoadBench,
 ];
@@ -29,6 +31,8 @@ async function main(): Promise<void> {
   if (process.env.BENCH_ONLY === 'review') return runReviewBench();
   // BENCH_ONLY=quick: ranking the demo catalogue for one quick-sizing question.
   if (process.env.BENCH_ONLY === 'quick') return runQuickBench();
+  // BENCH_ONLY=uploads: a 12-megapixel photo processed and a 10-page PDF plan's first page drawn.
+  if (process.env.BENCH_ONLY === 'uploads') return runUploadsBench();
   for (const run of runners) await run();
 }
 

@@ -191,7 +191,7 @@ export function createApp(deps: AppDeps): SightfanApp {
   api.use('/projects', projectsRoutes(work, files));
   api.use('/projects', projectFilesRoutes(files));
   api.use('/files', filesRoutes(files));
-  api.use('/projects', sheetsRoutes({ outbox, work, outsidePerHour: config.sheetOutsideEmailsPerHour }));
+  api.use('/projects', sheetsRoutes({ outbox, work, outsidePerHour: config.sheetOutsideEmailsPerHour, storage }));
   api.use('/projects', reviewRoutes({ work, publicUrl }));
   api.use('/reviewers', reviewersRoutes());
   api.use(apiNotFound);

@@ -126,7 +126,7 @@ describe('each allowed type uploads and round-trips', () => {
   it('draws a PDF plan’s first page, or the page asked for, and keeps it as a PNG with the page and page count', async () => {
     const job = await newJob('PDF plan');
     const a = await owner();
-    // Page 1 portrait A4, page 2 landscape A3 (ISO 216 sizes in points).
+    // Page 1 portrait A4, page 2 landscape A3 (ISO 216 sizes in points, docs/sources.md *Uploaded files*).
     const doc = await pdf(3, [
       [595.28, 841.89],
       [1190.55, 841.89],
@@ -165,7 +165,7 @@ describe('what an upload keeps of the original', () => {
       IFD3: { GPSLatitudeRef: 'N', GPSLatitude: '51/1 30/1 0/1', GPSLongitudeRef: 'W', GPSLongitude: '0/1 7/1 0/1' },
     });
     const before = (await sharp(withGps).metadata()).exif;
-    // The fixture really carries a GPS block: its pointer tag 0x8825 is in the EXIF data.
+    // The fixture really carries a GPS block: its pointer tag 0x8825 is in the EXIF data (docs/sources.md, *Uploaded files*).
     expect(before && (before.includes(Buffer.from([0x88, 0x25])) || before.includes(Buffer.from([0x25, 0x88])))).toBe(true);
     const res = await send(a, job, withGps, 'gps.jpg');
     expect(res.status).toBe(201);
@@ -174,7 +174,7 @@ describe('what an upload keeps of the original', () => {
     expect(stored.includes(Buffer.from('Exif\0'))).toBe(false);
   });
 
-  it('turns a photo upright from its EXIF orientation (6: the camera was turned a quarter clockwise)', async () => {
+  it('turns a photo upright from its EXIF orientation (6: a quarter turn clockwise, docs/sources.md *Uploaded files*)', async () => {
     const job = await newJob('Orientation');
     const sideways = await sharp(await jpeg(80, 40))
       .withMetadata({ orientation: 6 })
@@ -193,7 +193,7 @@ describe('what an upload keeps of the original', () => {
     const stored = (await a.get(res.body.file.url).buffer(true)).body as Buffer;
     expect(stored.includes(Buffer.from('<script'))).toBe(false);
     expect(stored.includes(Buffer.from([0x50, 0x4b, 0x03, 0x04]))).toBe(false);
-    // A JPEG ends with its EOI marker, FF D9 (ITU-T T.81, B.1.1.3).
+    // A JPEG ends with its EOI marker, FF D9 (docs/sources.md, *Uploaded files*).
     expect([...stored.subarray(-2)]).toEqual([0xff, 0xd9]);
   });
 });
@@ -223,6 +223,15 @@ describe('refused uploads leave nothing behind', () => {
       { kind: 'photo' },
       415,
       FILE_MESSAGES.wrongType,
+    ],
+    // Found by the property test: the sniffer ran off the end of it (a 500 before).
+    [
+      'a bare PNG signature',
+      () => Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+      'sig.png',
+      { kind: 'plan' },
+      422,
+      FILE_MESSAGES.unreadable,
     ],
     ['a zero-byte file', () => Buffer.alloc(0), 'empty.jpg', { kind: 'photo' }, 400, FILE_MESSAGES.empty],
     [
@@ -296,6 +305,30 @@ describe('refused uploads leave nothing behind', () => {
     const wrongMirror = await send(a, job, await jpeg(16, 16), 'x.jpg', { kind: 'photo', placementId: otherMirror });
     expect(wrongMirror.status).toBe(400);
     expect(wrongMirror.body.fields.placementId).toBe('Choose a mirror of this job.');
+  });
+
+  it('refuses a multipart body that ends early, or a body that is not multipart, with 400 and a sentence', async () => {
+    const a = await owner();
+    const cut = await a
+      .post(`/api/projects/${job}/files`)
+      .set('Content-Type', 'multipart/form-data; boundary=XyZ')
+      .send(
+        '--XyZ\r\nContent-Disposition: form-data; name="kind"\r\n\r\nphoto\r\n--XyZ\r\nContent-Disposition: form-data; name="file"; filename="a.jpg"\r\n\r\n\xff\xd8\xff',
+      );
+    expect(cut.status).toBe(400);
+    expect(cut.body.error).toBe('The upload was cut off before the whole file arrived. Try again.');
+    const json = await a.post(`/api/projects/${job}/files`).send({ kind: 'photo' });
+    expect(json.status).toBe(400);
+    expect(json.body.error).toBe(FILE_MESSAGES.noFile);
+  });
+
+  it('takes a multipart upload sent by the app itself (same origin)', async () => {
+    const res = await send(await owner(), job, await jpeg(16, 16), 'x.jpg')
+      .set('Host', 'sightfan.test')
+      .set('Origin', 'http://sightfan.test');
+    expect(res.status).toBe(201);
+    // Not a refusal: remove it so this block's "nothing behind" check holds.
+    expect((await (await owner()).delete(`/api/files/${res.body.file.id}`)).status).toBe(204);
   });
 
   it('refuses a multipart request sent from another website', async () => {

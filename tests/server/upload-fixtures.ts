@@ -51,7 +51,8 @@ export async function pngClaiming(width: number, height: number): Promise<Buffer
     .png()
     .toBuffer();
   const out = Buffer.from(real);
-  // IHDR's data starts at byte 16 (8 signature + 4 length + 4 type); its CRC follows 13 bytes later.
+  // IHDR's data starts at byte 16 (8 signature + 4 length + 4 type); its CRC follows 13 bytes later
+  // (docs/sources.md, *Uploaded files*).
   out.writeUInt32BE(width, 16);
   out.writeUInt32BE(height, 20);
   out.writeUInt32BE(zlib.crc32(out.subarray(12, 29)), 29);

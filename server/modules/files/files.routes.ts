@@ -63,10 +63,12 @@ function receive(req: Request, res: Response): Promise<void> {
           );
         return reject(new HttpError(400, 'The upload form has too many or too long fields.'));
       }
-      const e = err as { message?: string; status?: number };
-      if (/multipart|boundary/i.test(e.message ?? ''))
+      // Everything else multer (busboy) reports is about the body as sent: no boundary, a broken
+      // part header, or a body that ended early (a dropped connection on a phone).
+      const e = err as { message?: string };
+      if (/boundary|multipart|content-type/i.test(e.message ?? ''))
         return reject(new HttpError(400, 'Send the file as multipart/form-data with the field "file".'));
-      reject(err);
+      reject(new HttpError(400, 'The upload was cut off before the whole file arrived. Try again.'));
     });
   });
 }

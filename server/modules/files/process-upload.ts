@@ -23,13 +23,19 @@ export interface ProcessedUpload {
 
 const refuse = (status: number, sentence: string) => new HttpError(status, sentence, { file: sentence });
 
-/** JPEG quality of stored photos and thumbnails (common practice for photos viewed on screen). */
+/** JPEG quality of stored photos and thumbnails (common practice for photos viewed on screen: docs/sources.md, *Uploaded files*). */
 const PHOTO_QUALITY = 85;
 const THUMBNAIL_QUALITY = 75;
 
 /** The type the bytes say, or undefined for anything we do not take. */
 export async function sniff(data: Buffer): Promise<'image/png' | 'image/jpeg' | 'application/pdf' | undefined> {
-  const found = await fromBuffer(data);
+  let found: Awaited<ReturnType<typeof fromBuffer>>;
+  try {
+    found = await fromBuffer(data);
+  } catch {
+    // file-type runs off the end of a file cut short inside its header (a bare PNG signature).
+    throw refuse(422, FILE_MESSAGES.unreadable);
+  }
   const mime = found?.mime;
   return mime === 'image/png' || mime === 'image/jpeg' || mime === 'application/pdf' ? mime : undefined;
 }
@@ -100,7 +106,6 @@ async function thumbnailOf(stored: Buffer): Promise<Buffer> {
 /** The uploaded name, for display only: no folders, no control characters, at most 120 characters. */
 export function cleanName(raw: string | undefined, fallback: string): string {
   const base = (raw ?? '').split(/[\\/]/).pop() ?? '';
-  // eslint-disable-next-line no-control-regex
   const clean = base.replace(/[\u0000-\u001f\u007f-\u009f\u202a-\u202e\u2066-\u2069]/g, '').trim();
   return (clean || fallback).slice(0, 120);
 }

@@ -199,6 +199,17 @@ export function projectsRoutes(work: SheetWork, files: { storage: FileStorage; l
     if (changes.scene) {
       const problem = sceneKindProblem(project.kind, changes.scene);
       if (problem) throw new HttpError(400, `The change has a problem: ${problem.message}`, { [problem.path.join('.')]: problem.message });
+      // The underlay must be one of this job's uploaded plans (checked when it changes, so a plan
+      // deleted later does not block other edits; the sheet then draws without it).
+      const fileId = changes.scene.underlay?.fileId;
+      if (
+        fileId &&
+        fileId !== project.scene.underlay?.fileId &&
+        !(await em.count(StoredFile, { id: fileId, project: project.id, kind: 'plan' }))
+      ) {
+        const sentence = 'Choose one of this job’s uploaded plans for the underlay.';
+        throw new HttpError(400, `The change has a problem: ${sentence}`, { 'scene.underlay.fileId': sentence });
+      }
       // A viewer still served by a mirror cannot vanish from the plan.
       const ids = new Set(changes.scene.viewers.map((v) => v.id));
       const orphan = (await placementsOf(em, project)).find((p) => p.viewerId && !ids.has(p.viewerId));
