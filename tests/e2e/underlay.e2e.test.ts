@@ -294,6 +294,27 @@ describe('an installer on a phone draws over the customer’s plan', () => {
     await wide.page.context().close();
   });
 
+  it('calibrates again, and the wall, the zone and the mirror stay where they were in metres', async () => {
+    const before = (await saved()).project;
+    await drawerOpen(true);
+    if (await byTestId(page, 'plan-details-back').isVisible()) await byTestId(page, 'plan-details-back').click();
+    await byTestId(page, 'underlay-calibrate').scrollIntoViewIfNeeded();
+    await byTestId(page, 'underlay-calibrate').click();
+    await byTestId(page, 'underlay-calibration').waitFor({ state: 'visible' });
+    await tapPixelSharp(A);
+    await byTestId(page, 'underlay-calibration-step').filter({ hasText: 'other end' }).waitFor();
+    await tapPixelSharp(B);
+    await byTestId(page, 'underlay-calibration-distance').fill('32 ft 9 in');
+    await byTestId(page, 'underlay-calibration-set').click();
+    // 32 ft 9 in = 9.9822 m (1 ft = 0.3048 m exactly, docs/sources.md).
+    await until((s) => Math.abs((s.project.scene.underlay?.calibration.distanceM ?? 0) - 9.9822) < 1e-9, 'the new calibration');
+    const after = (await saved()).project;
+    expect(after.scene.walls).toEqual(before.scene.walls);
+    expect(after.scene.zones).toEqual(before.scene.zones);
+    expect(after.placements).toEqual(before.placements);
+    await shot(page, 'phone-underlay-recalibrated');
+  });
+
   it('raised no errors in the page', () => {
     expect(errors).toEqual([]);
   });
