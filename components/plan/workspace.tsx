@@ -292,7 +292,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
         reserveBottom={wide ? 90 : drawerSize === 'folded' ? Math.max(90, toolbarHeight + 8) : 90}
         // On a phone the zoom row sits low on the right; when a drawing tool's panel fills the bottom it
         // steps up to a stack at the top right (footgun 60), where the notices leave room for it.
-        zoomAtBottom={wide || toolPanelShown ? undefined : drawerSize === 'folded' ? 100 : 8}
+        zoomAtBottom={wide || toolPanelShown ? undefined : drawerSize === 'folded' ? Math.max(100, toolbarHeight + 8) : 8}
         focus={!wide && drawerSize !== 'folded' ? focusOf(selection, edits.placements, edits.scene) : null}
       />
     ),
