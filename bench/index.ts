@@ -8,6 +8,7 @@ import { runLoadBench } from './load.bench';
 import { runReviewBench } from './review.bench';
 import { runQuickBench } from './quick.bench';
 import { runAimBench } from './aim.bench';
+import { runUploadsBench } from './uploads.bench';
 
 const runners: Array<() => Promise<void>> = [
   runOpticsBench,
@@ -17,6 +18,7 @@ const runners: Array<() => Promise<void>> = [
   runReviewBench,
   runQuickBench,
   runAimBench,
+  runUploadsBench,
   runPlanBench,
   runLoadBench,
 ];
@@ -33,6 +35,8 @@ async function main(): Promise<void> {
   if (process.env.BENCH_ONLY === 'quick') return runQuickBench();
   // BENCH_ONLY=aim: "aim at this zone" on the demo and at the project limits.
   if (process.env.BENCH_ONLY === 'aim') return runAimBench();
+  // BENCH_ONLY=uploads: a 12-megapixel photo processed and a 10-page PDF plan's first page drawn.
+  if (process.env.BENCH_ONLY === 'uploads') return runUploadsBench();
   for (const run of runners) await run();
 }
 

@@ -30,6 +30,9 @@ import { projectsRoutes } from './modules/projects/projects.routes';
 import { sheetsRoutes } from './modules/sheets/sheets.routes';
 import { reviewRoutes, reviewersRoutes } from './modules/review/review.routes';
 import { createSheetWork, type SheetWork } from './workers/sheet-pool';
+import { createPdfWork, type PdfWork } from './workers/pdf-pool';
+import { createStorage, type FileStorage } from './modules/files/storage';
+import { filesRoutes, projectFilesRoutes } from './modules/files/files.routes';
 
 export interface AppDeps {
   config: AppConfig;
@@ -42,6 +45,10 @@ export interface AppDeps {
   outbox?: Partial<OutboxOptions>;
   /** The sheet worker pool; by default one is made from the config and closed with the app. */
   sheetWork?: SheetWork;
+  /** Where uploads' bytes go; by default the one the config names (a folder, or S3). */
+  storage?: FileStorage;
+  /** The PDF plan worker; by default one is made and closed with the app. */
+  pdfWork?: PdfWork;
 }
 
 export interface SightfanApp {
@@ -115,6 +122,9 @@ export function createApp(deps: AppDeps): SightfanApp {
   const outbox = new MailDispatcher(orm, deps.mailer, log, { ...DEFAULT_OUTBOX_OPTIONS, scrubAfterSend: !config.demoMode, ...deps.outbox });
   outbox.start();
   const work = deps.sheetWork ?? createSheetWork({ budgetMs: config.sheetBudgetMs, threads: config.sheetWorkers });
+  const storage = deps.storage ?? createStorage(config.storage);
+  const pdfWork = deps.pdfWork ?? createPdfWork();
+  const files = { storage, pdf: pdfWork, log };
   const api = express.Router();
   // First, before sessions and the database: "is the process up and answering".
   api.get('/health', (_req, res) => {
@@ -181,8 +191,10 @@ export function createApp(deps: AppDeps): SightfanApp {
   api.use('/catalogue', catalogue);
   // The earlier spelling, kept so old clients and links still work: the same router.
   api.use('/catalog', catalogue);
-  api.use('/projects', projectsRoutes(work));
-  api.use('/projects', sheetsRoutes({ outbox, work, outsidePerHour: config.sheetOutsideEmailsPerHour }));
+  api.use('/projects', projectsRoutes(work, files));
+  api.use('/projects', projectFilesRoutes(files));
+  api.use('/files', filesRoutes(files));
+  api.use('/projects', sheetsRoutes({ outbox, work, outsidePerHour: config.sheetOutsideEmailsPerHour, storage }));
   api.use('/projects', reviewRoutes({ work, publicUrl }));
   api.use('/reviewers', reviewersRoutes());
   api.use(apiNotFound);
@@ -220,6 +232,7 @@ export function createApp(deps: AppDeps): SightfanApp {
       outbox.stop();
       store.close();
       if (!deps.sheetWork) void work.close();
+      if (!deps.pdfWork) void pdfWork.close();
     },
   };
 }

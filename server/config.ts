@@ -4,6 +4,7 @@
 import { z } from 'zod';
 import path from 'node:path';
 import type { DatabaseTarget } from './orm-options';
+import type { StorageSettings } from './modules/files/storage';
 
 const flag = z.enum(['true', 'false', '1', '0', 'yes', 'no']).transform((v) => v === 'true' || v === '1' || v === 'yes');
 
@@ -49,6 +50,23 @@ const envSchema = z.object({
     .min(1, 'SHEET_OUTSIDE_EMAILS_PER_HOUR must be at least 1.')
     .max(10_000)
     .default(20),
+  /** The folder for uploaded files when no S3 bucket is set; default: `uploads` beside the SQLite file. */
+  UPLOADS_DIR: z.string().min(1).optional(),
+  /** Set: uploaded files go to this S3 (or S3-compatible) bucket instead of the folder. */
+  S3_BUCKET: z.string().min(3, 'S3_BUCKET must be a bucket name.').optional(),
+  /** An S3-compatible service's address (e.g. http://minio.internal:9000); unset: AWS itself. */
+  S3_ENDPOINT: z.string().url('S3_ENDPOINT must be a URL like https://s3.example.com.').optional(),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  /** Unset: the AWS SDK's usual credential chain (environment, profile, instance role). */
+  S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+  /** Path-style addresses (endpoint/bucket/key); most S3-compatible services need it. Default: on when S3_ENDPOINT is set. */
+  S3_FORCE_PATH_STYLE: flag.optional(),
+  /** Prefix of every object's key in the bucket. */
+  S3_PREFIX: z
+    .string()
+    .regex(/^([A-Za-z0-9._-]+\/)*$/, 'S3_PREFIX must be empty or folder names each ending in "/", like sightfan/uploads/.')
+    .default('sightfan/'),
 });
 
 export interface AppConfig {
@@ -74,6 +92,8 @@ export interface AppConfig {
   sheetWorkers?: number;
   /** Sheet e-mails per person per hour to addresses outside their organisation (counted in the database). */
   sheetOutsideEmailsPerHour: number;
+  /** Where uploaded files' bytes are kept (never log it: S3 settings may hold a secret key). */
+  storage: StorageSettings;
 }
 
 export class ConfigError extends Error {}
@@ -113,6 +133,24 @@ export function parseConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     sheetWorkers: e.SHEET_WORKERS,
     sheetOutsideEmailsPerHour: e.SHEET_OUTSIDE_EMAILS_PER_HOUR,
     distDir: path.resolve(__dirname, '..', 'dist'),
+    storage: storageSettings(e, path.resolve(e.DATABASE_PATH)),
+  };
+}
+
+function storageSettings(e: z.infer<typeof envSchema>, databasePath: string): StorageSettings {
+  if (!e.S3_BUCKET) return { kind: 'folder', dir: path.resolve(e.UPLOADS_DIR ?? path.join(path.dirname(databasePath), 'uploads')) };
+  if (!!e.S3_ACCESS_KEY_ID !== !!e.S3_SECRET_ACCESS_KEY) {
+    throw new ConfigError('Set both S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY, or neither (the AWS SDK then finds credentials itself).');
+  }
+  return {
+    kind: 's3',
+    bucket: e.S3_BUCKET,
+    prefix: e.S3_PREFIX,
+    endpoint: e.S3_ENDPOINT,
+    region: e.S3_REGION,
+    accessKeyId: e.S3_ACCESS_KEY_ID,
+    secretAccessKey: e.S3_SECRET_ACCESS_KEY,
+    forcePathStyle: e.S3_FORCE_PATH_STYLE ?? !!e.S3_ENDPOINT,
   };
 }
 

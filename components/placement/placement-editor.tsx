@@ -15,6 +15,7 @@ import { AUTOSAVE_MS, type PlacementEdits, type PlacementWrites } from '@/hooks/
 import type { ProjectEvaluation } from '@/shared/project-optics';
 import type { CatalogueItemDto, PlacementDto, ProjectDto, Scene } from '@/shared/schemas';
 import type { UnitSystem } from '@/shared/units';
+import { PhotoGallery } from '@/components/uploads/photo-gallery';
 import { PlacementDelete } from './placement-delete';
 import { PlacementForm } from './placement-form';
 import { PlacementLiveNumbers } from './placement-live-numbers';
@@ -44,7 +45,7 @@ export function PlacementEditor(props: PlacementEditorProps) {
   return <PlacementEditorInner key={`${props.project.id}:${props.placement?.id ?? 'gone'}`} {...props} />;
 }
 
-function PlacementEditorInner({ scene, placement, writes, evaluation, catalogue, units, canEdit, onClose }: PlacementEditorProps) {
+function PlacementEditorInner({ project, scene, placement, writes, evaluation, catalogue, units, canEdit, onClose }: PlacementEditorProps) {
   const [width, setWidth] = useState(0);
   const onLayout = (e: LayoutChangeEvent) => setWidth(e.nativeEvent.layout.width);
 
@@ -117,6 +118,13 @@ function PlacementEditorInner({ scene, placement, writes, evaluation, catalogue,
         </View>
       </View>
 
+      <View style={styles.photos}>
+        <AppText variant="caps" tone="muted" role="heading" aria-level={3}>
+          Photos of this mirror as mounted
+        </AppText>
+        <PhotoGallery projectId={project.id} placementId={id} canEdit={canEdit} testID="placement-photos" />
+      </View>
+
       {canEdit ? (
         <View style={styles.actions}>
           <Button
@@ -152,5 +160,6 @@ const styles = StyleSheet.create({
   // be drawn over the cautions.
   columnInRow: { flex: 1 },
   flex: { flex: 1 },
+  photos: { gap: spacing.sm },
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.md, alignItems: 'center' },
 });

@@ -21,10 +21,10 @@ export interface PlanFrame {
   responder: ResponderHandlers;
 }
 
-/** The viewport and the gestures on one frame; `bounds` is what "fit" shows. */
-export function usePlanFrame(bounds: Bounds | null, reserveBottom: number, targets: GestureTargets): PlanFrame {
+/** The viewport and the gestures on one frame; `bounds` is what "fit" shows, clear of `reserveTop` and `reserveBottom` pixels. */
+export function usePlanFrame(bounds: Bounds | null, reserveBottom: number, targets: GestureTargets, reserveTop = 0): PlanFrame {
   const frameRef = useRef<View>(null);
-  const viewport = usePlanViewport(frameRef, bounds, reserveBottom);
+  const viewport = usePlanViewport(frameRef, bounds, reserveBottom, reserveTop);
   const responder = usePlanGestures(frameRef, viewport.originRef, viewport.viewRef, viewport.setViewByPerson, targets);
   return { frameRef, viewport, responder };
 }

@@ -35,9 +35,11 @@ export interface DrawingFrameProps {
   children: ReactNode;
   /** Lines under the scale bar, on top of everything (sentences about what could not be drawn). */
   notes?: ReactNode;
+  /** Drawn on the background, under the grid (the site plan's uploaded underlay). */
+  background?: ReactNode;
 }
 
-export function DrawingFrame({ testID, scaleLabelTestID, view, size, units, hatch, children, notes }: DrawingFrameProps) {
+export function DrawingFrame({ testID, scaleLabelTestID, view, size, units, hatch, children, notes, background }: DrawingFrameProps) {
   const grid = useMemo(() => gridLines(view, size, units), [view, size, units]);
   const bar = scaleBar(view, units);
   return (
@@ -62,6 +64,7 @@ export function DrawingFrame({ testID, scaleLabelTestID, view, size, units, hatc
         </Pattern>
       </Defs>
       <Rect x={0} y={0} width={size.width} height={size.height} fill={palette.card} />
+      {background}
       <Path pointerEvents="none" d={grid.minor} stroke={palette.ruleSoft} strokeWidth={1} />
       <Path pointerEvents="none" d={grid.major} stroke={palette.rule} strokeWidth={1.2} />
       {children}

@@ -11,7 +11,8 @@ import { useEffect, useLayoutEffect, useMemo, useRef, type ReactNode } from 'rea
 import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
 import type { PlacementDto, Scene } from '@/shared/schemas';
 import type { UnitSystem } from '@/shared/units';
-import { PlanDrawing } from './plan-drawing';
+import { PlanDrawing, type UnderlayImage } from './plan-drawing';
+import { underlayCornersM } from './underlay-edits';
 import { SceneHandles } from './scene-handles';
 import type { PlanDrag } from './plan-gesture';
 import { boundsOf, type PairM, type PlanView } from './plan-view';
@@ -48,6 +49,12 @@ export interface PlanCanvasProps {
   focus?: { key: string; pointM: PairM } | null;
   /** On a phone the zoom buttons sit in a row this many pixels above the plan's bottom edge, within thumb reach. */
   zoomAtBottom?: number;
+  /** The customer's plan under the drawing; its corners count when the view is fitted. */
+  underlay?: UnderlayImage | null;
+  /** When this changes (a new plan underlay), the view is fitted again, and once more after the frame's next resize. */
+  fitKey?: string | null;
+  /** Pixels at the top covered by a card over the plan (the calibration card); "fit" keeps the plan below them. */
+  reserveTop?: number;
 }
 
 export function PlanCanvas(props: PlanCanvasProps) {
@@ -58,15 +65,22 @@ export function PlanCanvas(props: PlanCanvasProps) {
     scene.zones.forEach((z) => pts.push(...z.polygonM));
     scene.viewers.forEach((v) => pts.push(v.positionM));
     placements.forEach((p) => pts.push(p.positionM));
+    const u = props.underlay;
+    if (u) pts.push(...underlayCornersM(u.underlay, u.widthPx, u.heightPx));
     return boundsOf(pts);
-  }, [scene, placements]);
+  }, [scene, placements, props.underlay]);
 
-  const frame = usePlanFrame(planBounds, reserveBottom, {
-    context: { scene, placements, selection, canEdit, tool, pinning: props.pinning },
-    onSelect: props.onSelect,
-    onTapPlan: props.onTapPlan,
-    onDrag: props.onDrag,
-  });
+  const frame = usePlanFrame(
+    planBounds,
+    reserveBottom,
+    {
+      context: { scene, placements, selection, canEdit, tool, pinning: props.pinning },
+      onSelect: props.onSelect,
+      onTapPlan: props.onTapPlan,
+      onDrag: props.onDrag,
+    },
+    props.reserveTop ?? 0,
+  );
   const { viewport } = frame;
   const { size, view } = viewport;
   const focusRef = useRef(props.focus);
@@ -79,6 +93,18 @@ export function PlanCanvas(props: PlanCanvasProps) {
     const f = focusRef.current;
     if (focusKey !== null && f) centre(f.pointM);
   }, [focusKey, centre]);
+  // A new plan underlay: show all of it (once its size is known), not only what was drawn before.
+  const fitKey = props.fitKey ?? null;
+  const fitRef = useRef(viewport.fitAndFollow);
+  useLayoutEffect(() => {
+    fitRef.current = viewport.fitAndFollow;
+  });
+  const lastFitKey = useRef(fitKey);
+  useEffect(() => {
+    if (fitKey === lastFitKey.current) return;
+    lastFitKey.current = fitKey;
+    if (fitKey !== null) fitRef.current();
+  }, [fitKey]);
 
   return (
     <CanvasFrame
@@ -89,7 +115,10 @@ export function PlanCanvas(props: PlanCanvasProps) {
       }
       zoomAtBottom={props.zoomAtBottom}
     >
-      <PlanDrawing {...{ scene, placements, evaluation, units, canEdit, selection, sketchPoints, sketchClosed, view, size, tool }}>
+      <PlanDrawing
+        {...{ scene, placements, evaluation, units, canEdit, selection, sketchPoints, sketchClosed, view, size, tool }}
+        underlay={props.underlay}
+      >
         {props.overlay?.(view)}
         {canEdit && tool === 'select' ? <SceneHandles scene={scene} selection={selection} view={view} /> : null}
       </PlanDrawing>

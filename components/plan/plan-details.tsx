@@ -15,6 +15,7 @@ import type { CatalogueItemDto, CriteriaSettings, CriterionKind, PlacementDto, P
 import { CriteriaSettingsForm } from './criteria-settings';
 import { formatLength, type UnitSystem } from '@/shared/units';
 import { PlacementEditorSlot } from './placement-editor-slot';
+import { PhotoGallery } from '@/components/uploads/photo-gallery';
 import type { PlanSelection } from './plan-types';
 import { bandColours, bandWords, formatCoveredShare, zoneBand } from './zone-quality';
 
@@ -38,6 +39,8 @@ export interface PlanDetailsProps {
   onZoneCriterion: (zoneId: string, criterion: CriterionKind) => void;
   /** Sets the project's two angles; undefined goes back to the defaults. */
   onCriteria: (criteria: CriteriaSettings | undefined) => void;
+  /** The customer's plan under the drawing: upload, calibrate, place (the workspace wires it). */
+  underlayPanel?: ReactNode;
 }
 
 export function PlanDetails(p: PlanDetailsProps) {
@@ -153,6 +156,8 @@ function ProjectSummary(p: PlanDetailsProps) {
   const evalById = new Map((p.evaluation?.placements ?? []).map((e) => [e.placementId, e]));
   return (
     <View style={styles.column} testID="plan-summary">
+      {/* The customer's plan first: on a new job it is what the installer starts from. */}
+      {p.underlayPanel && (p.canEdit || p.scene.underlay) ? <Section title="Customer’s plan">{p.underlayPanel}</Section> : null}
       <Section title="Zones">
         {p.scene.zones.length === 0 ? (
           <AppText tone="muted">No zones yet. Draw the area a mirror must show with the Zone tool.</AppText>
@@ -215,6 +220,9 @@ function ProjectSummary(p: PlanDetailsProps) {
             </View>
           </ListRow>
         ))}
+      </Section>
+      <Section title="Photos of the job">
+        <PhotoGallery projectId={p.project.id} placementId={null} canEdit={p.canEdit} testID="job-photos" />
       </Section>
       <Section title="Detect and recognise">
         <CriteriaSettingsForm criteria={criteriaOf(p.scene)} canEdit={p.canEdit} onSave={p.onCriteria} />

@@ -4,7 +4,7 @@
  * scale bar. Draws only; the canvas owns gestures and the view.
  */
 import { useMemo, type ReactNode } from 'react';
-import { G, Text as SvgText } from 'react-native-svg';
+import { G, Image as SvgImage, Text as SvgText } from 'react-native-svg';
 import { fonts, palette } from '@/constants/theme';
 import type { PlanEvaluation } from '@/hooks/use-plan-evaluation';
 import type { PlacementDto, Scene } from '@/shared/schemas';
@@ -32,6 +32,16 @@ import { LABEL_PRIORITY, layoutPlanLabels, markerBox, type PlanLabelRequest } fr
 import { AIM_HANDLE_PX, MARKER_RADIUS_PX, toScreen, type PairM, type PlanView, type Size } from './plan-view';
 import type { LabelBox } from '@/shared/label-placement';
 import type { PlanSelection, PlanTool } from './plan-types';
+import { underlayMatrix } from './underlay-edits';
+import type { Underlay } from '@/shared/schemas/files';
+
+/** A plan underlay ready to draw: the scene's placement of it and the stored image's address and size. */
+export interface UnderlayImage {
+  underlay: Underlay;
+  href: string;
+  widthPx: number;
+  heightPx: number;
+}
 
 export interface DrawingProps {
   scene: Scene;
@@ -47,6 +57,8 @@ export interface DrawingProps {
   size: Size;
   /** Drawn above the plan's own marks, below the scale bar (comment markers). */
   children?: ReactNode;
+  /** The customer's plan drawn under everything, grid included, at its calibrated scale. */
+  underlay?: UnderlayImage | null;
 }
 
 export function PlanDrawing({
@@ -61,6 +73,7 @@ export function PlanDrawing({
   view,
   size,
   children,
+  underlay,
 }: DrawingProps) {
   const bar = scaleBar(view, units);
   const evaluatedById = useMemo(() => new Map((evaluation?.placements ?? []).map((e) => [e.placementId, e])), [evaluation]);
@@ -105,6 +118,22 @@ export function PlanDrawing({
       size={size}
       units={units}
       hatch={PLAN_GAP_HATCH}
+      background={
+        underlay ? (
+          <SvgImage
+            testID="plan-underlay"
+            pointerEvents="none"
+            href={underlay.href}
+            x={0}
+            y={0}
+            width={underlay.widthPx}
+            height={underlay.heightPx}
+            preserveAspectRatio="none"
+            opacity={underlay.underlay.opacity}
+            transform={underlayMatrix(underlay.underlay, view)}
+          />
+        ) : null
+      }
       notes={gapProblems.map((g, i) => (
         <SvgText
           key={g.id}

@@ -40,17 +40,18 @@ export { boundsOfPoints as boundsOf, type Bounds } from '@/shared/geometry/bound
 
 /**
  * A view showing the whole bounds inside the canvas with a margin; `reserveBottom` keeps the
- * lower strip (the toolbar on a phone) from hiding part of the plan.
+ * lower strip (the toolbar on a phone) from hiding part of the plan, `reserveTop` the upper one
+ * (the calibration card).
  */
-export function fitView(bounds: Bounds | null, size: Size, margin = 24, reserveBottom = 0): PlanView {
+export function fitView(bounds: Bounds | null, size: Size, margin = 24, reserveBottom = 0, reserveTop = 0): PlanView {
   const b = bounds ?? { minX: 0, minY: 0, maxX: 20, maxY: 20 };
   const w = Math.max(b.maxX - b.minX, 1);
   const h = Math.max(b.maxY - b.minY, 1);
   const availW = Math.max(size.width - 2 * margin, 40);
-  const availH = Math.max(size.height - 2 * margin - reserveBottom, 40);
+  const availH = Math.max(size.height - 2 * margin - reserveBottom - reserveTop, 40);
   const scale = clampScale(Math.min(availW / w, availH / h));
   const offsetX = margin + (availW - w * scale) / 2 - b.minX * scale;
-  const offsetY = margin + (availH - h * scale) / 2 + b.maxY * scale;
+  const offsetY = margin + reserveTop + (availH - h * scale) / 2 + b.maxY * scale;
   return { scale, offsetX, offsetY };
 }
 

@@ -22,36 +22,55 @@ export interface PlanViewport {
   fit: () => void;
   /** Keeps the scale and moves a plan point to the middle of the frame as it is now. */
   centre: (pointM: PairM) => void;
+  /** Fits now and again when the frame next changes size (a drawer folding), unless the person moves the view first. */
+  fitAndFollow: () => void;
 }
 
 const FIT_MARGIN_PX = 28;
 
-export function usePlanViewport(frameRef: RefObject<View | null>, bounds: Bounds | null, reserveBottom: number): PlanViewport {
+export function usePlanViewport(
+  frameRef: RefObject<View | null>,
+  bounds: Bounds | null,
+  reserveBottom: number,
+  reserveTop = 0,
+): PlanViewport {
   const windowSize = useWindowDimensions();
   // Until the first layout arrives (and where none ever does, as in tests), guess the window's size.
   const [size, setSize] = useState<Size>(() => ({ width: windowSize.width, height: Math.max(200, windowSize.height - 200) }));
-  const [view, setView] = useState<PlanView>(() => fitView(bounds, size, FIT_MARGIN_PX, reserveBottom));
+  const [view, setView] = useState<PlanView>(() => fitView(bounds, size, FIT_MARGIN_PX, reserveBottom, reserveTop));
   const measured = useRef(false);
   const touched = useRef(false);
   const viewRef = useRef<PlanView>(view);
   const originRef = useRef<PairM>([0, 0]);
-  const fitInputs = useRef({ bounds, reserveBottom });
+  const fitInputs = useRef({ bounds, reserveBottom, reserveTop });
+  const refitOnResize = useRef(false);
 
   useLayoutEffect(() => {
     viewRef.current = view;
-    fitInputs.current = { bounds, reserveBottom };
+    fitInputs.current = { bounds, reserveBottom, reserveTop };
   });
 
-  const fit = useCallback(() => setView(fitView(bounds, size, FIT_MARGIN_PX, reserveBottom)), [bounds, size, reserveBottom]);
+  const fit = useCallback(
+    () => setView(fitView(bounds, size, FIT_MARGIN_PX, reserveBottom, reserveTop)),
+    [bounds, size, reserveBottom, reserveTop],
+  );
+  const fitAndFollow = useCallback(() => {
+    refitOnResize.current = true;
+    fit();
+  }, [fit]);
 
   const onLayout = useCallback(
     (e: LayoutChangeEvent) => {
       const { width, height } = e.nativeEvent.layout;
       setSize((old) => (old.width === width && old.height === height ? old : { width, height }));
-      // The first real size refits the plan unless the person has already moved it.
-      if (!measured.current && !touched.current) {
+      // The first real size refits the plan unless the person has already moved it; so does the next
+      // size after `fitAndFollow` (the phone's drawer folding as calibration starts).
+      const first = !measured.current && !touched.current;
+      if (first || refitOnResize.current) {
         measured.current = true;
-        setView(fitView(fitInputs.current.bounds, { width, height }, FIT_MARGIN_PX, fitInputs.current.reserveBottom));
+        if (!first) refitOnResize.current = false;
+        const f = fitInputs.current;
+        setView(fitView(f.bounds, { width, height }, FIT_MARGIN_PX, f.reserveBottom, f.reserveTop));
       }
       frameRef.current?.measureInWindow((x, y) => {
         originRef.current = [x, y];
@@ -62,6 +81,7 @@ export function usePlanViewport(frameRef: RefObject<View | null>, bounds: Bounds
 
   const setViewByPerson = useCallback((next: PlanView) => {
     touched.current = true;
+    refitOnResize.current = false;
     setView(next);
   }, []);
 
@@ -94,5 +114,5 @@ export function usePlanViewport(frameRef: RefObject<View | null>, bounds: Bounds
 
   const centre = useCallback((pointM: PairM) => setView((v) => centreOn(v, size, pointM)), [size]);
 
-  return { size, view, viewRef, originRef, onLayout, setViewByPerson, zoomBy, fit, centre };
+  return { size, view, viewRef, originRef, onLayout, setViewByPerson, zoomBy, fit, centre, fitAndFollow };
 }

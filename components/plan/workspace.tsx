@@ -3,7 +3,8 @@
  * state (usePlanTool), the evaluation, and the selection, arranged by WideWorkspace or PhoneWorkspace.
  * Scene changes are the pure functions of scene-edits.ts.
  */
-import { useCallback, useMemo, useState } from 'react';
+import { useCallback, useLayoutEffect, useMemo, useRef, useState } from 'react';
+import { View } from 'react-native';
 import { usePlanHistory } from '@/hooks/use-plan-history';
 import { usePlanEvaluation } from '@/hooks/use-plan-evaluation';
 import type { CatalogueItemDto, CriteriaSettings, CriterionKind, PlacementDto, ProjectDto, Scene } from '@/shared/schemas';
@@ -25,11 +26,23 @@ import { ZoneNamePrompt } from './zone-name-prompt';
 import { useReviewPlan } from '@/components/review/use-review-plan';
 import { AppText } from '@/components/ui';
 import { CAUTION_SENTENCES } from '@/shared/cautions';
+import { fileAddress, useAddFileToCache, useDeleteFileMutation, useProjectFilesQuery } from '@/hooks/use-files';
+import type { FileDto, Underlay } from '@/shared/schemas/files';
+import type { UnderlayImage } from './plan-drawing';
+import { CalibrationMarks, CalibrationPrompt } from './underlay-calibration';
+import { setUnderlay } from './underlay-edits';
+import { UnderlayPanel, underlayForUpload } from './underlay-panel';
+import { calibrationFrom, useUnderlayCalibration } from './use-underlay-calibration';
+
+/** About the calibration card's height over the plan: a fit while calibrating keeps the plan below it. */
+const CALIBRATION_CARD_PX = 150;
 
 export function Workspace({ project, catalogue }: { project: ProjectDto; catalogue: CatalogueItemDto[] }) {
   const { wide, units, edits, header } = useWorkspaceBase(project);
   const [selection, setSelection] = useState<PlanSelection>(null);
   const [drawerSize, setDrawerSize] = useState<DrawerSize>('folded');
+  // The floating tools' height on a phone: it grows with a drawing tool's own sentence and choices.
+  const [toolbarHeight, setToolbarHeight] = useState(90);
   const selectedPlacementId = selection?.kind === 'placement' ? selection.id : null;
   const evaluation = usePlanEvaluation(edits.scene, edits.placements, catalogue, selectedPlacementId);
   const canEdit = project.canEdit;
@@ -127,8 +140,73 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
   });
 
   const tool = canEdit ? tools.tool : 'select';
+  /** A drawing tool's sentence and choices fill the bottom of a phone's plan (the toolbar's context panel). */
+  const toolPanelShown = !wide && canEdit && tool !== 'select' && drawerSize === 'folded';
   // The review (state, steps, comments, trail) sits above the details; its markers are drawn on the plan.
   const review = useReviewPlan({ project, placements: edits.placements, selection, wide });
+
+  // The customer's plan under the drawing (scene.underlay) and its calibration.
+  const files = useProjectFilesQuery(project.id);
+  const deleteFile = useDeleteFileMutation(project.id);
+  const addFileToCache = useAddFileToCache(project.id);
+  const underlay = edits.scene.underlay;
+  const planFile = underlay ? files.data?.find((f) => f.id === underlay.fileId) : undefined;
+  const underlayImage: UnderlayImage | null =
+    underlay && planFile ? { underlay, href: fileAddress(planFile), widthPx: planFile.widthPx, heightPx: planFile.heightPx } : null;
+  const calibration = useUnderlayCalibration();
+  const baseRef = useRef(base);
+  useLayoutEffect(() => {
+    baseRef.current = base;
+  });
+  const calibrating = calibration.active && underlay !== undefined && canEdit;
+  /** Scale, turn, shift and look: recorded in the undo history like any drawing change. */
+  const changeUnderlay = (next: Underlay) => void editScene(setUnderlay(base, next));
+  const startCalibration = () => {
+    setSelection(null);
+    if (!wide) setDrawerSize('folded');
+    calibration.start();
+  };
+  /**
+   * A new plan file or none: saved straight away, not recorded, because the file it replaces is
+   * deleted once the scene no longer names it (an undo could not bring the file back).
+   */
+  const replaceUnderlayFile = async (next: Underlay | undefined) => {
+    // Read when the upload ends, not when it started: the drawing may have changed meanwhile.
+    const latest = baseRef.current;
+    const old = latest.underlay;
+    const saved = await edits.saveScene(setUnderlay(latest, next));
+    if (saved && old && old.fileId !== next?.fileId) deleteFile.mutate(old.fileId);
+    return saved;
+  };
+  const onPlanUploaded = (file: FileDto) => {
+    // The image's size comes from the files list: put the new file there before the scene names it.
+    addFileToCache(file);
+    void replaceUnderlayFile(underlayForUpload(file, baseRef.current.underlay)).then((saved) => {
+      if (saved) startCalibration();
+    });
+  };
+  const setScale = (distanceText: string): string | null => {
+    if (!underlay) return 'There is no plan to calibrate.';
+    const outcome = calibrationFrom(underlay, calibration.pointsPx, distanceText, units);
+    if (!outcome.ok) return outcome.message;
+    const problem = editScene(setUnderlay(base, outcome.underlay));
+    if (!problem) calibration.cancel();
+    return problem;
+  };
+  const underlayPanel = (
+    <UnderlayPanel
+      projectId={project.id}
+      canEdit={canEdit}
+      underlay={base.underlay}
+      file={planFile}
+      units={units}
+      calibrating={calibrating}
+      onChange={changeUnderlay}
+      onUploaded={onPlanUploaded}
+      onCalibrate={startCalibration}
+      onRemove={() => void replaceUnderlayFile(undefined)}
+    />
+  );
 
   // On a phone with a mirror selected, its editor comes first in the drawer's peek; the review panel follows.
   const editorFirst = !wide && selection?.kind === 'placement';
@@ -156,6 +234,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
         onViewerEyeHeight={(id: string, eyeHeightM: number) => void history.saveScene(setViewerEyeHeight(base, id, eyeHeightM))}
         onZoneCriterion={(id: string, criterion: CriterionKind) => void history.saveScene(setZoneCriterion(base, id, criterion))}
         onCriteria={(criteria: CriteriaSettings | undefined) => void history.saveScene(setCriteria(base, criteria))}
+        underlayPanel={underlayPanel}
       />
       {canEdit ? <SceneItemEditor scene={base} selection={selection} units={units} onEdit={editScene} /> : null}
       {canEdit && selectedPlacementId !== null && edits.placements.some((p) => p.id === selectedPlacementId) ? (
@@ -186,27 +265,53 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
         canEdit={canEdit}
         selection={selection}
         onSelect={select}
-        onTapPlan={review.pinning ? review.onPinTap : tools.tap}
-        pinning={review.pinning}
-        overlay={review.overlay}
+        onTapPlan={calibrating && underlay ? (pointM) => calibration.tap(underlay, pointM) : review.pinning ? review.onPinTap : tools.tap}
+        pinning={calibrating || review.pinning}
+        overlay={(view) => (
+          <>
+            {review.overlay(view)}
+            {calibrating && underlay ? <CalibrationMarks underlay={underlay} pointsPx={calibration.pointsPx} view={view} /> : null}
+          </>
+        )}
+        underlay={underlayImage}
+        fitKey={underlayImage ? underlay?.fileId : null}
+        reserveTop={calibrating ? CALIBRATION_CARD_PX : 0}
         onDrag={onDrag}
         sketchPoints={tools.zoneToName ?? tools.sketch}
         sketchClosed={tools.tool === 'zone'}
-        reserveBottom={90}
-        zoomAtBottom={wide ? undefined : drawerSize === 'folded' ? 100 : 8}
+        // On a phone "fit" keeps the plan above the floating tools, however tall a tool's panel makes them.
+        reserveBottom={wide ? 90 : drawerSize === 'folded' ? Math.max(90, toolbarHeight + 8) : 90}
+        // On a phone the zoom row sits low on the right; when a drawing tool's panel fills the bottom it
+        // steps up to a stack at the top right (footgun 60), where the notices leave room for it.
+        zoomAtBottom={wide || toolPanelShown ? undefined : drawerSize === 'folded' ? Math.max(100, toolbarHeight + 8) : 8}
         focus={!wide && drawerSize !== 'folded' ? focusOf(selection, edits.placements, edits.scene) : null}
       />
     ),
     overPlan: (
       <>
         <EditNotices edits={edits} editorOpenFor={selectedPlacementId} toolProblem={tools.problem} catalogue={catalogue} units={units} />
+        {calibrating ? (
+          <CalibrationPrompt
+            points={calibration.pointsPx.length}
+            units={units}
+            onSet={setScale}
+            onRestart={calibration.restart}
+            onCancel={calibration.cancel}
+          />
+        ) : null}
         {tools.zoneToName ? (
           <ZoneNamePrompt defaultName={`Zone ${base.zones.length + 1}`} onSave={tools.nameZone} onCancel={tools.cancelZoneName} />
         ) : null}
       </>
     ),
     toolbar: (
-      <>
+      <View
+        pointerEvents="box-none"
+        onLayout={(e) => {
+          const h = Math.round(e.nativeEvent.layout.height);
+          setToolbarHeight((old) => (old === h ? old : h));
+        }}
+      >
         {canEdit ? (
           <UndoControls
             canUndo={history.canUndo}
@@ -229,7 +334,7 @@ export function Workspace({ project, catalogue }: { project: ProjectDto; catalog
           onWallKind={tools.setWallKind}
           busy={edits.saving}
         />
-      </>
+      </View>
     ),
   };
 

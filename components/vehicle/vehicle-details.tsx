@@ -8,6 +8,7 @@ import { ChoiceChips } from '@/components/placement/choice-chips';
 import { ElevationView } from '@/components/placement/elevation-view';
 import { PlacementNumbersPanel } from '@/components/placement/numbers-panel';
 import { SheetActions } from '@/components/sheet';
+import { PhotoGallery } from '@/components/uploads/photo-gallery';
 import { Notice } from '@/components/ui/notice';
 import { NumberField } from '@/components/ui/number-field';
 import { SafetyCautions } from '@/components/ui/safety-cautions';
@@ -71,7 +72,15 @@ export function VehicleDetails(p: VehicleDetailsProps) {
         </Notice>
       ) : null}
       {selected ? (
-        <MirrorEditor {...p} placement={selected} />
+        <>
+          <MirrorEditor {...p} placement={selected} />
+          <View style={styles.section}>
+            <AppText variant="caps" role="heading" aria-level={3}>
+              Photos of this mirror as mounted
+            </AppText>
+            <PhotoGallery projectId={p.projectId} placementId={selected.id} canEdit={p.canEdit} testID="placement-photos" />
+          </View>
+        </>
       ) : (
         <AppText tone="muted" testID="vehicle-hint">
           {p.placements.length === 0
@@ -109,6 +118,12 @@ export function VehicleDetails(p: VehicleDetailsProps) {
       <AppText variant="small" tone="muted" testID="vehicle-summary">
         {`${KIND_LABELS[v.kind]}, ${v.driverSide === 'left' ? 'left' : 'right'}-hand drive, ${v.lengthM} m long and ${v.widthM} m wide.`}
       </AppText>
+      <View style={styles.section}>
+        <AppText variant="caps" role="heading" aria-level={2}>
+          Photos of the job
+        </AppText>
+        <PhotoGallery projectId={p.projectId} placementId={null} canEdit={p.canEdit} testID="job-photos" />
+      </View>
       <SheetActions projectId={p.projectId} canEdit={p.canEdit} />
     </View>
   );

@@ -14,6 +14,7 @@ import { Migration20261202160000 } from './Migration20261202160000';
 import { Migration20261202161000 } from './Migration20261202161000';
 import { Migration20261202170000 } from './Migration20261202170000';
 import { Migration20261202171000 } from './Migration20261202171000';
+import { Migration20261202220000 } from './Migration20261202220000';
 import { Migration20261202223000 } from './Migration20261202223000';
 
 export const migrationsList: MigrationObject[] = [
@@ -28,5 +29,6 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261202161000', class: Migration20261202161000 },
   { name: 'Migration20261202170000', class: Migration20261202170000 },
   { name: 'Migration20261202171000', class: Migration20261202171000 },
+  { name: 'Migration20261202220000', class: Migration20261202220000 },
   { name: 'Migration20261202223000', class: Migration20261202223000 },
 ];

@@ -17,6 +17,7 @@ import { SheetEvaluation } from './sheets/sheet-evaluation.entity';
 import { ProjectComment } from './review/comment.entity';
 import { ProjectEvent } from './review/project-event.entity';
 import { RateCounter } from './limits/rate-counter.entity';
+import { StoredFile } from './files/stored-file.entity';
 
 export const entities = [
   Organization.schema,
@@ -33,4 +34,5 @@ export const entities = [
   ProjectComment.schema,
   ProjectEvent.schema,
   RateCounter.schema,
+  StoredFile.schema,
 ];

@@ -13,6 +13,32 @@ import { bandColours, bandWords } from '../../shared/zone-verdict';
 import { GLASS, INK, MUTED, PAPER, RULE, STOP } from './layout';
 import type { SheetElevation, SheetPlan } from './sheet-model';
 import { textWidth, writeText } from './text-runs';
+import { underlayToPlan } from '../../shared/geometry/underlay';
+
+/** Image bytes the sheet shows (plan underlay, photos), by file id; JPEG, made for print by the server. */
+export type SheetImages = Readonly<Record<string, Uint8Array>>;
+
+/**
+ * The plan image under the drawing: each image pixel lands where its calibration puts it on the plan
+ * (shared/geometry/underlay.ts), so the image is at the plan's stated scale; faded by its opacity, as
+ * on screen. The caller has clipped to the plan frame.
+ */
+export function drawUnderlay(
+  doc: PDFKit.PDFDocument,
+  u: NonNullable<SheetPlan['underlay']>,
+  image: Uint8Array,
+  at: (p: readonly number[]) => [number, number],
+): void {
+  // The pixel → paper map is affine: take it from where the origin and the two unit steps land.
+  const o = at(underlayToPlan(u, [0, 0]));
+  const x = at(underlayToPlan(u, [1, 0]));
+  const y = at(underlayToPlan(u, [0, 1]));
+  doc.save();
+  doc.opacity(u.opacity);
+  doc.transform(x[0] - o[0], x[1] - o[1], y[0] - o[0], y[1] - o[1], o[0], o[1]);
+  doc.image(Buffer.from(image.buffer, image.byteOffset, image.byteLength), 0, 0, { width: u.widthPx, height: u.heightPx });
+  doc.restore();
+}
 
 /** Points per metre of paper: 72 pt per inch, 0.0254 m per inch. */
 export const PT_PER_M = 72 / 0.0254;
@@ -124,7 +150,7 @@ export function labelSpot(wanted: Box, taken: readonly Box[], maxLines = 6): Box
   return wanted;
 }
 
-export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): PlanFit {
+export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box, images: SheetImages = {}): PlanFit {
   const fit = fitPlan(plan, box);
   const at = (p: readonly number[]): [number, number] => [
     fit.offsetX + (p[0] - fit.minX) * fit.ptPerM,
@@ -136,6 +162,10 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: SheetPlan, box: Box): Pl
   doc.rect(box.x, box.y, box.w, box.h).clip();
   /** Boxes already written on (labels, mirror marks): a mirror's label moves off them. */
   const taken: Box[] = [];
+
+  // The customer's plan image under everything, clipped to the frame with the rest.
+  const underlayImage = plan.underlay ? images[plan.underlay.fileId] : undefined;
+  if (plan.underlay && underlayImage) drawUnderlay(doc, plan.underlay, underlayImage, at);
 
   // Seen floor first, so walls and labels sit on top of it.
   for (const region of plan.coverage) {

@@ -6,7 +6,7 @@
 import PDFDocument from 'pdfkit';
 import type { SheetPaper } from '../../shared/schemas';
 import { SHEET_LIMITS } from './cautions';
-import { drawElevation, drawOriginMark, drawPlan, drawScaleBar, fitPlan, hatch, scaleBarFor } from './draw-plan';
+import { drawElevation, drawOriginMark, drawPlan, drawScaleBar, fitPlan, hatch, scaleBarFor, type SheetImages } from './draw-plan';
 import { COVERED_FROM_PERCENT, PARTLY_FROM_PERCENT, bandColours, bandWords } from '../../shared/zone-verdict';
 import { NO_DEFAULT_FONT, registerSheetFonts } from './fonts';
 import { textWidth, writeText } from './text-runs';
@@ -393,28 +393,41 @@ function legendBlock(flow: Flow): void {
 /** The plan in words, for a screen reader. */
 function planAlt(content: SheetContent, denominator: number): string {
   const zones = content.plan.zones.map((z) => `${z.name}, ${z.covered} seen`).join('; ');
-  return `Site plan at 1:${denominator} with ${content.plan.mirrors.length} mirror(s) and the floor each shows${zones ? `; zones: ${zones}` : ''}. Each mirror's place is given in words in the setting-out table.`;
+  const under = content.plan.underlay ? ', drawn over the uploaded plan image' : '';
+  return `Site plan at 1:${denominator}${under} with ${content.plan.mirrors.length} mirror(s) and the floor each shows${zones ? `; zones: ${zones}` : ''}. Each mirror's place is given in words in the setting-out table.`;
+}
+
+/** The sentence under the plan saying what the faded image under it is, and how it was scaled. */
+function underlayNote(content: SheetContent, shown: boolean): string | null {
+  const u = content.plan.underlay;
+  if (!u) return null;
+  const f = sheetFormat(content.units);
+  if (!shown) return 'The uploaded plan image could not be read for this sheet; the plan is drawn without it.';
+  return `Under the drawing, faded: the uploaded plan image, scaled from its calibration (${f.dist(u.calibration.distanceM)} between two marked points). Check one known distance on site before relying on it.`;
 }
 
 const SETTING_OUT_NOTE =
   'Each dimension is taken square to the named face of a wall (W) or racking (R) numbered on the plan, or from a grid line through the origin; heights are to the mirror\u2019s centre, above the floor.';
 
-function planPage(flow: Flow, content: SheetContent, paperName: string): void {
+function planPage(flow: Flow, content: SheetContent, paperName: string, images: SheetImages): void {
   flow.newPage();
   flow.heading('Plan: what each mirror shows on the floor', 200);
   const rows = settingOutRows(content);
-  const note = SETTING_OUT_NOTE;
   // Heading, table, gap and note, as written below.
-  const tableH = rows.length ? 28 + flow.tableHeight(SETTING_OUT_COLUMNS, rows) + 3 + flow.textHeight(note, 'regular', 7.5, flow.width) : 0;
+  const tableH = rows.length
+    ? 28 + flow.tableHeight(SETTING_OUT_COLUMNS, rows) + 3 + flow.textHeight(SETTING_OUT_NOTE, 'regular', 7.5, flow.width)
+    : 0;
   // Plan gap and scale line (8 + 26), legend, table, gap and the cautions (with the room their `ensure` asks).
-  const below = 34 + legendHeight(flow) + tableH + 6 + cautionBoxHeight(flow, content.cautions, 8) + 4;
+  const note = underlayNote(content, !!content.plan.underlay && !!images[content.plan.underlay.fileId]);
+  const noteH = note ? flow.textHeight(note, 'regular', 7.5, flow.width) + 4 : 0;
+  const below = 34 + noteH + legendHeight(flow) + tableH + 6 + cautionBoxHeight(flow, content.cautions, 8) + 4;
   // The plan takes what the rest leaves, but never less than 40 % of the page (the rest then flows on).
   const pageH = flow.bottom - flow.doc.page.margins.top;
   const most = { x: flow.left, y: flow.y, w: flow.width, h: Math.min(Math.max(flow.room - below, pageH * 0.4), flow.width * 1.1) };
   // Frame only the drawn scene: the box shrinks to the scene's height at the chosen scale.
   const box = { ...most, h: Math.min(most.h, fitPlan(content.plan, most).heightPt + 24) };
   let fit = fitPlan(content.plan, box);
-  flow.tag('Figure', () => (fit = drawPlan(flow.doc, content.plan, box)), { alt: planAlt(content, fit.denominator) });
+  flow.tag('Figure', () => (fit = drawPlan(flow.doc, content.plan, box, images)), { alt: planAlt(content, fit.denominator) });
   flow.y += box.h + 8;
   const bar = scaleBarFor(fit, content.units, flow.width * 0.28);
   let barLen = 0;
@@ -432,18 +445,54 @@ function planPage(flow: Flow, content: SheetContent, paperName: string): void {
       }),
   );
   flow.y += 26;
+  if (note) {
+    flow.paragraph(note, 'regular', 7.5, MUTED);
+    flow.gap(4);
+  }
   legendBlock(flow);
   if (rows.length) {
     flow.heading('Setting out: where each mirror goes', 40);
     flow.table(SETTING_OUT_COLUMNS, rows);
     flow.gap(3);
-    flow.paragraph(note, 'regular', 7.5, MUTED);
+    flow.paragraph(SETTING_OUT_NOTE, 'regular', 7.5, MUTED);
   }
   flow.gap(6);
   cautionBox(flow, content.cautions, 'Read with this plan', 8);
 }
 
-function placementPage(flow: Flow, content: SheetContent, p: SheetPlacement, index: number): void {
+/** The mirror's numbers, with its newest photo beside them when it has one. */
+function numbersWithPhoto(flow: Flow, p: SheetPlacement, rows: [string, string][], images: SheetImages): void {
+  const image = p.photo ? images[p.photo.fileId] : undefined;
+  if (!p.photo || !image) {
+    flow.rows(rows, 0.5);
+    if (p.photo)
+      flow.paragraph(`Photo "${p.photo.name}" (uploaded ${p.photo.takenOn}) could not be read for this sheet.`, 'regular', 8, MUTED);
+    return;
+  }
+  const photo = p.photo;
+  const rowsW = flow.width * 0.6;
+  const rowsH = flow.rowsHeight(rows, rowsW, 0.5);
+  const boxW = flow.width * 0.37;
+  const scale = Math.min(boxW / photo.widthPx, Math.max(rowsH, 120) / photo.heightPx);
+  const w = photo.widthPx * scale;
+  const h = photo.heightPx * scale;
+  flow.ensure(Math.max(rowsH, h));
+  const top = flow.y;
+  flow.rowsAt(rows, flow.left, top, rowsW, 0.5);
+  const x = flow.left + flow.width - boxW + (boxW - w) / 2;
+  flow.tag(
+    'Figure',
+    () => {
+      flow.doc.image(Buffer.from(image.buffer, image.byteOffset, image.byteLength), x, top, { width: w, height: h });
+    },
+    { alt: `Photo of mirror ${p.label} as mounted (${photo.name}, uploaded ${photo.takenOn}).` },
+  );
+  flow.artifact(() => flow.doc.rect(x, top, w, h).lineWidth(0.4).strokeColor(RULE).stroke());
+  flow.y = top + Math.max(rowsH, h) + 2;
+  flow.paragraph(`Photo beside: ${photo.name}, uploaded ${photo.takenOn}.`, 'regular', 7.5, MUTED);
+}
+
+function placementPage(flow: Flow, content: SheetContent, p: SheetPlacement, index: number, images: SheetImages): void {
   const f = sheetFormat(content.units);
   flow.newPage();
   flow.tag('P', () =>
@@ -465,10 +514,13 @@ function placementPage(flow: Flow, content: SheetContent, p: SheetPlacement, ind
   for (const doubt of p.plausibility ?? []) flow.paragraph(`Check: ${doubt}`, 'medium', 9, STOP);
   if (!p.numbers) {
     flow.paragraph(`No numbers for this mirror: ${p.problem ?? 'its optics cannot be computed.'}`, 'medium', 9.5, STOP);
+    if (p.photo) numbersWithPhoto(flow, p, [], images);
   } else {
     const n = p.numbers;
     if (p.problem) flow.paragraph(`Coverage could not be computed: ${p.problem}`, 'medium', 9, STOP);
-    flow.rows(
+    numbersWithPhoto(
+      flow,
+      p,
       [
         ['Viewer\u2019s eye to mirror', n.eyeDistance],
         ['Viewer\u2019s eye off the mirror\u2019s axis', n.eyeOffAxis],
@@ -482,7 +534,7 @@ function placementPage(flow: Flow, content: SheetContent, p: SheetPlacement, ind
         ['Field of view on axis (eye on the mirror\u2019s axis), across × up-down', `${n.fovOnAxisHorizontal} × ${n.fovOnAxisVertical}`],
         ['Size at the rim compared with the centre (rim squeeze)', n.rimSqueeze],
       ],
-      0.5,
+      images,
     );
     flow.gap(2);
     flow.paragraph(
@@ -542,6 +594,7 @@ export async function renderSheet(
   rev: SheetRevisionInfo,
   paper: SheetPaper,
   approval: SheetApproval = NO_APPROVAL,
+  images: SheetImages = {},
 ): Promise<Buffer> {
   const issued = new Date(Math.floor(rev.issuedAt.getTime() / 1000) * 1000);
   const paperSpec = PAPER_SIZES[paper];
@@ -583,8 +636,8 @@ export async function renderSheet(
   drawApproval(flow, approval);
   if (content.vehicle)
     vehiclePages(flow, content, content.vehicle, paperSpec.name, (fl) => cautionBox(fl, content.cautions, 'Read with these fields', 8));
-  else planPage(flow, content, paperSpec.name);
-  content.placements.forEach((p, i) => placementPage(flow, content, p, i));
+  else planPage(flow, content, paperSpec.name, images);
+  content.placements.forEach((p, i) => placementPage(flow, content, p, i, images));
 
   const range = doc.bufferedPageRange();
   for (let i = range.start; i < range.start + range.count; i++) {

@@ -22,7 +22,7 @@ import {
   zoneCriterion,
   type ProjectEvaluation,
 } from '../../shared/project-optics';
-import type { CatalogueItemDto, MirrorSpec, PlacementDto, Scene, SheetPaper, UnitSystem } from '../../shared/schemas';
+import type { CatalogueItemDto, MirrorSpec, PlacementDto, Scene, SheetPaper, Underlay, UnitSystem } from '../../shared/schemas';
 import {
   formatAngle,
   formatArea,
@@ -60,6 +60,21 @@ export interface SheetInput {
   organization: string;
   placements: readonly SheetPlacementInput[];
   catalogue: readonly CatalogueItemDto[];
+  /** Uploaded files the sheet shows: the plan underlay's image and each mirror's newest photo (absent: none). */
+  files?: SheetFilesInput;
+}
+
+export interface SheetFileRef {
+  fileId: string;
+  widthPx: number;
+  heightPx: number;
+}
+
+export interface SheetFilesInput {
+  /** The image `scene.underlay` names, when it is one of this job's plans. */
+  underlay?: SheetFileRef | null;
+  /** Each mirror's newest photo. */
+  photos?: (SheetFileRef & { placementId: number; name: string; takenOn: string })[];
 }
 
 export type Row = [label: string, value: string];
@@ -113,6 +128,8 @@ export interface SheetPlacement {
   plausibility?: string[];
   elevation: SheetElevation | null;
   notes: string;
+  /** The mirror's newest photo (uploaded as mounted); absent when it has none. */
+  photo?: SheetFileRef & { name: string; takenOn: string };
 }
 
 /** One dimension that sets a mirror out on site (shared/datum.ts), drawn from the mirror to `toM`. */
@@ -130,6 +147,8 @@ export interface SheetPlan {
   viewers: { name: string; at: [number, number] }[];
   mirrors: { label: string; at: [number, number]; azimuthRad: number; dimensions?: SheetDimension[] }[];
   coverage: MultiPolygon[];
+  /** The plan image drawn under the plan at its calibrated scale (shared/geometry/underlay.ts); absent when none. */
+  underlay?: SheetFileRef & Underlay;
 }
 
 export interface SheetPurchaseLine {
@@ -229,6 +248,22 @@ export interface BuiltSheet {
   placements: SheetPlacementInput[];
 }
 
+/** The mirror's newest photo, as a spread-in field (nothing when it has none, so older content is unchanged). */
+function photoOf(files: SheetFilesInput | undefined, placementId: number): { photo?: SheetPlacement['photo'] } {
+  const photo = files?.photos?.find((f) => f.placementId === placementId);
+  return photo
+    ? { photo: { fileId: photo.fileId, widthPx: photo.widthPx, heightPx: photo.heightPx, name: photo.name, takenOn: photo.takenOn } }
+    : {};
+}
+
+/** The scene's underlay with its image's size, when the image is one of this job's plans. */
+function underlayOf(scene: Scene, files: SheetFilesInput | undefined): { underlay?: SheetPlan['underlay'] } {
+  const u = scene.underlay;
+  const file = files?.underlay;
+  if (!u || !file || file.fileId !== u.fileId) return {};
+  return { underlay: { ...u, widthPx: file.widthPx, heightPx: file.heightPx } };
+}
+
 export function buildSheetContent(input: SheetInput): BuiltSheet {
   const units = resolveUnits(input.project.units, input.owner.units);
   const f = sheetFormat(units);
@@ -305,6 +340,7 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
       ...(doubts.length > 0 ? { plausibility: doubts } : {}),
       elevation: elevationOf(ev),
       notes: p.notes.trim(),
+      ...photoOf(input.files, p.id),
     };
   });
 
@@ -343,6 +379,7 @@ export function buildSheetContent(input: SheetInput): BuiltSheet {
       dimensions: dimensions[i],
     })),
     coverage: evaluation.placements.map((ev) => (ev.coverage ? ev.coverage.region.map((poly) => poly.map((ring) => ring.map(pt))) : [])),
+    ...underlayOf(scene, input.files),
   };
 
   const purchase = purchaseLines(placements, input.catalogue, f.money);

@@ -11,6 +11,7 @@ import Piscina from 'piscina';
 import type { SheetPaper } from '../../shared/schemas';
 import { HttpError } from '../http-error';
 import type { SheetApproval } from '../pdf/approval-mark';
+import type { SheetImages } from '../pdf/draw-plan';
 import type { SheetRevisionInfo } from '../pdf/render-sheet';
 import type { SheetInput } from '../pdf/sheet-model';
 import type { BuiltContent, InputHashes, RenderTask, RenderedPdf } from './sheet-tasks';
@@ -36,6 +37,8 @@ export interface SheetWork {
     rev: SheetRevisionInfo,
     paper?: SheetPaper,
     approval?: SheetApproval,
+    /** The plan underlay's and photos' bytes by file id (absent: the sheet is drawn without them). */
+    images?: SheetImages,
   ): Promise<{ pdf: Buffer; paper: SheetPaper }>;
   close(): Promise<void>;
 }
@@ -93,8 +96,8 @@ export function createSheetWork(opts: SheetWorkOptions): SheetWork {
     hashes: (input) => run<InputHashes>('hashes', input),
     contentHash: (input) => run<string>('engineeringHashTask', input),
     build: (input) => run<BuiltContent>('build', input),
-    async render(contentJson, rev, paper, approval) {
-      const out = await run<RenderedPdf>('render', { contentJson, rev, paper, approval } satisfies RenderTask);
+    async render(contentJson, rev, paper, approval, images) {
+      const out = await run<RenderedPdf>('render', { contentJson, rev, paper, approval, images } satisfies RenderTask);
       return { pdf: Buffer.from(out.pdf.buffer, out.pdf.byteOffset, out.pdf.byteLength), paper: out.paper };
     },
     close: () => pool.destroy(),

@@ -8,6 +8,7 @@ import { createHash } from 'node:crypto';
 import type { SheetPaper } from '../../shared/schemas';
 import type { SheetApproval } from '../pdf/approval-mark';
 import { defaultPaper, renderSheet, type SheetRevisionInfo } from '../pdf/render-sheet';
+import type { SheetImages } from '../pdf/draw-plan';
 import { engineeringHash } from '../modules/review/content-hash';
 import { buildSheetContent, canonicalJson, contentHash, type SheetContent, type SheetInput } from '../pdf/sheet-model';
 
@@ -15,7 +16,7 @@ import { buildSheetContent, canonicalJson, contentHash, type SheetContent, type 
  * Part of every evaluation cache key. Raise it whenever the sheet model or the engine changes what a
  * sheet says for the same input (the cache is also emptied when the server starts).
  */
-export const SHEET_MODEL_VERSION = 5;
+export const SHEET_MODEL_VERSION = 6;
 
 export function inputHash(input: SheetInput): string {
   return createHash('sha256')
@@ -55,6 +56,8 @@ export interface RenderTask {
   rev: SheetRevisionInfo;
   paper?: SheetPaper;
   approval?: SheetApproval;
+  /** The plan underlay's and photos' bytes (JPEG for print), by file id. */
+  images?: SheetImages;
 }
 
 export interface RenderedPdf {
@@ -66,5 +69,5 @@ export interface RenderedPdf {
 export async function render(task: RenderTask): Promise<RenderedPdf> {
   const content = JSON.parse(task.contentJson) as SheetContent;
   const paper = task.paper ?? defaultPaper(content.units);
-  return { pdf: await renderSheet(content, task.rev, paper, task.approval), paper };
+  return { pdf: await renderSheet(content, task.rev, paper, task.approval, task.images), paper };
 }

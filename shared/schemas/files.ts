@@ -33,6 +33,10 @@ export const FILE_LIMITS = {
   storedSidePx: 4096,
   /** Longest side of a thumbnail, pixels. */
   thumbnailSidePx: 320,
+  /** Longest side of a PDF plan's page, inches (2A0 is 66 in; the largest page PDF allows is 200 in). */
+  pdfPageSideIn: 72,
+  /** Time one PDF page may take to draw, milliseconds. */
+  pdfRenderMs: 15_000,
 } as const;
 
 export const FILE_MESSAGES = {
@@ -45,6 +49,12 @@ export const FILE_MESSAGES = {
   unreadable: 'The file could not be read as the image or PDF it claims to be; it may be damaged or cut short.',
   tooManyPixels: 'The image is too large to process (over 60 megapixels).',
   noFile: 'Choose a file to upload (form field "file").',
+  pdfPages: `The PDF has more than ${FILE_LIMITS.pdfPages} pages; send only the page with the plan.`,
+  pdfPageMissing: 'The PDF has no such page; choose a page it has.',
+  pdfPageSize: `The PDF's page is larger than ${FILE_LIMITS.pdfPageSideIn} in (${Math.round(FILE_LIMITS.pdfPageSideIn * 25.4)} mm) on a side, too large for a plan; send a smaller page.`,
+  pdfSlow: `The PDF's page took longer than ${FILE_LIMITS.pdfRenderMs / 1000} s to draw, so it was stopped; export the plan as a PNG or JPEG image and send that.`,
+  planNoMirror: 'A plan belongs to the whole job; send it without a mirror (placementId).',
+  notFound: 'That file was not found. It may have been deleted, or the link is wrong.',
 } as const;
 
 export const uploadFields = z.object({

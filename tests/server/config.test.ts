@@ -9,6 +9,24 @@ describe('the environment', () => {
     expect(c.secureCookies).toBe(false);
   });
 
+  it('keeps uploads in a folder beside the SQLite file unless UPLOADS_DIR or S3_BUCKET says otherwise', () => {
+    expect(parseConfig({ DATABASE_PATH: '/srv/sightfan/db.sqlite' }).storage).toEqual({ kind: 'folder', dir: '/srv/sightfan/uploads' });
+    expect(parseConfig({ UPLOADS_DIR: '/mnt/files' }).storage).toEqual({ kind: 'folder', dir: '/mnt/files' });
+    expect(parseConfig({ S3_BUCKET: 'plans', S3_ENDPOINT: 'http://minio.internal:9000' }).storage).toMatchObject({
+      kind: 's3',
+      bucket: 'plans',
+      prefix: 'sightfan/',
+      region: 'us-east-1',
+      forcePathStyle: true,
+    });
+    expect(parseConfig({ S3_BUCKET: 'plans' }).storage).toMatchObject({ kind: 's3', forcePathStyle: false });
+  });
+
+  it('refuses S3 credentials given by half, and a prefix that is not folder names', () => {
+    expect(() => parseConfig({ S3_BUCKET: 'plans', S3_ACCESS_KEY_ID: 'AKIDEXAMPLE' })).toThrow(/S3_SECRET_ACCESS_KEY/);
+    expect(() => parseConfig({ S3_BUCKET: 'plans', S3_PREFIX: '../x' })).toThrow(/S3_PREFIX must be/);
+  });
+
   it('refuses to start in production without a session secret', () => {
     expect(() => parseConfig({ NODE_ENV: 'production' })).toThrow(ConfigError);
   });

@@ -23,6 +23,7 @@ import { hashPassword } from '../../server/modules/auth/passwords';
 import { Organization } from '../../server/modules/users/organization.entity';
 import { User } from '../../server/modules/users/user.entity';
 import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from '../../server/seeders/demo';
+import type { FileStorage } from '../../server/modules/files/storage';
 
 export const PASSWORD = DEMO_PASSWORD;
 export const EMAIL = {
@@ -116,7 +117,13 @@ async function freshPostgresUrl(): Promise<string> {
 }
 
 export async function startHarness(
-  opts: { signInLimits?: SignInLimits; env?: Record<string, string>; outbox?: Partial<OutboxOptions> } = {},
+  opts: {
+    signInLimits?: SignInLimits;
+    env?: Record<string, string>;
+    outbox?: Partial<OutboxOptions>;
+    /** Uploads' storage (default: the one the config names, a folder beside the test's SQLite file). */
+    storage?: FileStorage;
+  } = {},
 ): Promise<Harness> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'sightfan-test-'));
   const config = parseConfig({
@@ -131,7 +138,16 @@ export async function startHarness(
   await seedDemo(orm, config.bcryptCost);
   let fake: FakeSmtp = await startFakeSmtp(orm, log, 0);
   let mailer: Mailer = createMailer({ fakePort: fake.port, from: config.mailFrom });
-  let built = createApp({ config, orm, mailer, log, sessionSecret: SECRET, signInLimits: opts.signInLimits, outbox: opts.outbox });
+  let built = createApp({
+    config,
+    orm,
+    mailer,
+    log,
+    sessionSecret: SECRET,
+    signInLimits: opts.signInLimits,
+    outbox: opts.outbox,
+    storage: opts.storage,
+  });
 
   const h: Harness = {
     app: built.app,
@@ -148,7 +164,16 @@ export async function startHarness(
       orm = await initORM(databaseTarget(config));
       fake = await startFakeSmtp(orm, log, 0);
       mailer = createMailer({ fakePort: fake.port, from: config.mailFrom });
-      built = createApp({ config, orm, mailer, log, sessionSecret: SECRET, signInLimits: opts.signInLimits, outbox: opts.outbox });
+      built = createApp({
+        config,
+        orm,
+        mailer,
+        log,
+        sessionSecret: SECRET,
+        signInLimits: opts.signInLimits,
+        outbox: opts.outbox,
+        storage: opts.storage,
+      });
       h.app = built.app;
       h.outbox = built.outbox;
       h.mailer = mailer;

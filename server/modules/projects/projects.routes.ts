@@ -34,6 +34,10 @@ import { checkVehiclePlacement } from './vehicle-placement';
 import type { SheetWork } from '../../workers/sheet-pool';
 import { factChanges, placementFacts, projectChanges, recordEvent } from '../review/audit';
 import { afterPlacementWrite, openCommentCount, withdrawalIfChanged } from '../review/review-service';
+import { removeObjects, storageKeysOf } from '../files/file-objects';
+import type { FileStorage } from '../files/storage';
+import { StoredFile } from '../files/stored-file.entity';
+import type { Logger } from '../../logger';
 
 // A stale `version` fails in the ORM (optimistic locking); the error middleware answers 409 with these.
 onStaleVersion(Project, 'project', async (em, stale) => {
@@ -107,8 +111,11 @@ async function factsOf(em: EntityManager, p: Placement): Promise<Record<string, 
   return placementFacts(p);
 }
 
-export function projectsRoutes(work: SheetWork): Router {
+export function projectsRoutes(work: SheetWork, files: { storage: FileStorage; log: Logger }): Router {
   const r = Router();
+  /** Uploaded objects go after their rows are committed (server/modules/files/file-objects.ts). */
+  const dropObjects = (keys: string[]) =>
+    removeObjects(files.storage, keys, (err) => files.log.error('A deleted job’s or mirror’s stored file could not be removed.', err));
   r.use(requireUser);
 
   r.get('/', async (req, res) => {
@@ -167,6 +174,17 @@ export function projectsRoutes(work: SheetWork): Router {
     if (changes.scene) {
       const problem = sceneKindProblem(project.kind, changes.scene);
       if (problem) throw new HttpError(400, `The change has a problem: ${problem.message}`, { [problem.path.join('.')]: problem.message });
+      // The underlay must be one of this job's uploaded plans (checked when it changes, so a plan
+      // deleted later does not block other edits; the sheet then draws without it).
+      const fileId = changes.scene.underlay?.fileId;
+      if (
+        fileId &&
+        fileId !== project.scene.underlay?.fileId &&
+        !(await em.count(StoredFile, { id: fileId, project: project.id, kind: 'plan' }))
+      ) {
+        const sentence = 'Choose one of this job’s uploaded plans for the underlay.';
+        throw new HttpError(400, `The change has a problem: ${sentence}`, { 'scene.underlay.fileId': sentence });
+      }
       // A viewer still served by a mirror cannot vanish from the plan.
       const ids = new Set(changes.scene.viewers.map((v) => v.id));
       const orphan = (await placementsOf(em, project)).find((p) => p.viewerId && !ids.has(p.viewerId));
@@ -195,9 +213,13 @@ export function projectsRoutes(work: SheetWork): Router {
     const em = requestEm();
     const project = await findVisibleProject(em, req.user!, req.params.id);
     assertCanEdit(req.user!, project);
+    // The job's uploads go with it: rows here, objects once this has committed.
+    const keys = await storageKeysOf(em, { project: project.id });
+    await em.nativeDelete(StoredFile, { project: project.id });
     await em.nativeDelete(Placement, { project: project.id });
     em.remove(project);
     await em.flush();
+    await dropObjects(keys);
     res.status(204).end();
   });
 
@@ -293,6 +315,7 @@ export function projectsRoutes(work: SheetWork): Router {
   });
 
   r.delete('/:id/placements/:placementId', async (req, res) => {
+    let photoKeys: string[] = [];
     const out = await requestEm().transactional(async (em) => {
       const project = await findVisibleProject(em, req.user!, req.params.id);
       assertCanEdit(req.user!, project);
@@ -300,6 +323,9 @@ export function projectsRoutes(work: SheetWork): Router {
       const placement = await em.findOne(Placement, { id: placementId, project: project.id });
       if (!placement) throw notFound('That mirror');
       const before = await factsOf(em, placement);
+      // Its photos go with it (the rows here; their objects once this has committed).
+      photoKeys = await storageKeysOf(em, { placement: placement.id });
+      await em.nativeDelete(StoredFile, { placement: placement.id });
       em.remove(placement);
       await em.flush();
       recordEvent(em, {
@@ -312,6 +338,7 @@ export function projectsRoutes(work: SheetWork): Router {
       });
       return { projectVersion: await afterPlacementWrite(em, project, req.user!, work) };
     });
+    await dropObjects(photoKeys);
     res.json(out);
   });
 

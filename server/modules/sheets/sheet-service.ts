@@ -22,6 +22,11 @@ import { toPlacementDto } from '../projects/project.dto';
 import { User } from '../users/user.entity';
 import { SheetEvaluation } from './sheet-evaluation.entity';
 import { SheetRevision } from './sheet-revision.entity';
+import sharp from 'sharp';
+import type { SheetImages } from '../../pdf/draw-plan';
+import type { SheetFilesInput } from '../../pdf/sheet-model';
+import { StoredFile } from '../files/stored-file.entity';
+import type { FileStorage } from '../files/storage';
 
 /** Cached evaluations kept; the least recently used beyond this are deleted. */
 export const SHEET_CACHE_ROWS = 200;
@@ -57,7 +62,68 @@ export async function sheetInput(em: EntityManager, project: Project): Promise<S
     organization: project.organization.name,
     placements: placements.map(toPlacementDto),
     catalogue: catalogue.filter((c) => used.has(c.id)),
+    files: await sheetFiles(em, project),
   };
+}
+
+/** The plan underlay's file (when the scene names one of this job's plans) and each mirror's newest photo. */
+async function sheetFiles(em: EntityManager, project: Project): Promise<SheetFilesInput> {
+  const underlayId = project.scene.underlay?.fileId;
+  const underlay = underlayId ? await em.findOne(StoredFile, { id: underlayId, project: project.id, kind: 'plan' }) : null;
+  const photos = await em.find(
+    StoredFile,
+    { project: project.id, kind: 'photo', placement: { $ne: null } },
+    { orderBy: { createdAt: 'desc', id: 'asc' } },
+  );
+  const newest = new Map<number, StoredFile>();
+  for (const f of photos) if (f.placement && !newest.has(f.placement.id)) newest.set(f.placement.id, f);
+  return {
+    underlay: underlay ? { fileId: underlay.id, widthPx: underlay.widthPx, heightPx: underlay.heightPx } : null,
+    photos: [...newest.entries()]
+      .sort((a, b) => a[0] - b[0])
+      .map(([placementId, f]) => ({
+        placementId,
+        fileId: f.id,
+        widthPx: f.widthPx,
+        heightPx: f.heightPx,
+        name: f.name,
+        takenOn: f.createdAt.toISOString().slice(0, 10),
+      })),
+  };
+}
+
+/** Longest side of the plan underlay as embedded in a sheet, pixels (about 200 dpi across A4's plan frame). */
+const SHEET_UNDERLAY_PX = 2400;
+
+/**
+ * The bytes a sheet shows, by file id, read from the storage: the underlay re-encoded as a JPEG of
+ * print size (pdfkit embeds a JPEG as it is, but decodes a PNG in JavaScript), each photo's stored
+ * thumbnail (a JPEG). A file that cannot be read is left out; the sheet says so where it would be.
+ */
+export async function sheetImages(em: EntityManager, storage: FileStorage, project: Project): Promise<SheetImages> {
+  const files = await sheetFiles(em, project);
+  const out: Record<string, Uint8Array> = {};
+  const rows = await em.find(StoredFile, {
+    id: { $in: [files.underlay?.fileId, ...(files.photos ?? []).map((p) => p.fileId)].filter((id): id is string => !!id) },
+  });
+  await Promise.all(
+    rows.map(async (f) => {
+      try {
+        if (f.kind === 'plan') {
+          out[f.id] = await sharp(await storage.get(f.storageKey))
+            .resize({ width: SHEET_UNDERLAY_PX, height: SHEET_UNDERLAY_PX, fit: 'inside', withoutEnlargement: true })
+            .flatten({ background: '#ffffff' })
+            .jpeg({ quality: 80 })
+            .toBuffer();
+        } else {
+          out[f.id] = await storage.get(f.thumbnailKey);
+        }
+      } catch {
+        // Left out: the sheet prints "could not be read" in its place.
+      }
+    }),
+  );
+  return out;
 }
 
 /** The project's sheet content as it stands: from the cache when its input was evaluated before. */
@@ -184,6 +250,8 @@ export async function renderRevision(
   work: SheetWork,
   paper?: SheetPaper,
   current?: CurrentSheet,
+  /** Where uploads are kept: the sheet shows the plan underlay and photos (unset: drawn without them). */
+  storage?: FileStorage,
 ): Promise<RenderedSheet> {
   let contentJson: string;
   // The caller's freshly built current content, when this revision holds it: nothing more to read.
@@ -214,6 +282,7 @@ export async function renderRevision(
     { number: revision.number, contentHash: revision.contentHash, issuedAt: revision.issuedAt },
     paper,
     approvalFor(project, revision),
+    storage ? await sheetImages(em, storage, project) : undefined,
   );
   return {
     revision,

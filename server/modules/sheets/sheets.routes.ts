@@ -20,6 +20,7 @@ import type { User } from '../users/user.entity';
 import { isOutsideOrganisation, outsideSheetsSince } from './recipients';
 import { SheetRevision } from './sheet-revision.entity';
 import { findVisibleProject } from '../projects/project-access';
+import type { FileStorage } from '../files/storage';
 import { currentContent, currentPaper, issueRevision, latestRevision, renderRevision, toRevisionDto } from './sheet-service';
 import { requestEm } from '../../middleware/request-context';
 
@@ -48,7 +49,7 @@ function sendPdf(res: Response, pdf: Buffer, filename: string, revision: number)
  * of its organisation, an admin) can issue a revision, download an issued one or e-mail the sheet to
  * a buyer; others get 404. GET requests change nothing: a revision is issued only by POST.
  */
-export function sheetsRoutes(deps: { outbox: MailDispatcher; work: SheetWork; outsidePerHour: number }): Router {
+export function sheetsRoutes(deps: { outbox: MailDispatcher; work: SheetWork; outsidePerHour: number; storage?: FileStorage }): Router {
   const { outbox, work } = deps;
   const r = Router();
   r.use(requireUser);
@@ -107,7 +108,7 @@ export function sheetsRoutes(deps: { outbox: MailDispatcher; work: SheetWork; ou
           : 'No sheet has been issued for this project yet. Issue one first (the app\u2019s Download sheet does).',
       );
     }
-    const sheet = await renderRevision(em, project, revision, work, q.paper);
+    const sheet = await renderRevision(em, project, revision, work, q.paper, undefined, deps.storage);
     sendPdf(res, sheet.pdf, sheet.filename, revision.number);
   });
 
@@ -141,7 +142,7 @@ export function sheetsRoutes(deps: { outbox: MailDispatcher; work: SheetWork; ou
     // The project is evaluated (or found in the cache) once: issuing and printing share it.
     const current = await currentContent(em, project, work);
     const { revision, created } = await issueRevision(em, current, req.user!);
-    const sheet = await renderRevision(em, project, revision, work, q.paper, current);
+    const sheet = await renderRevision(em, project, revision, work, q.paper, current, deps.storage);
     const approved = project.state === 'approved' && project.approvedHash === revision.contentHash;
     const content = `${req.user!.name} sent you the Sightfan specification sheet for "${sheet.projectName}" (revision ${sheet.revision.number}), attached as a PDF.`;
     const note = body.message ? `\n\nTheir note:\n${body.message}` : '';
