@@ -7,6 +7,7 @@ import { runBoundedBench } from './bounded.bench';
 import { runLoadBench } from './load.bench';
 import { runReviewBench } from './review.bench';
 import { runQuickBench } from './quick.bench';
+import { runFirstLoadBench } from './firstload.bench';
 
 const runners: Array<() => Promise<void>> = [
   runOpticsBench,
@@ -16,6 +17,7 @@ const runners: Array<() => Promise<void>> = [
   runReviewBench,
   runQuickBench,
   runPlanBench,
+  runFirstLoadBench,
   runLoadBench,
 ];
 
@@ -29,6 +31,8 @@ async function main(): Promise<void> {
   if (process.env.BENCH_ONLY === 'review') return runReviewBench();
   // BENCH_ONLY=quick: ranking the demo catalogue for one quick-sizing question.
   if (process.env.BENCH_ONLY === 'quick') return runQuickBench();
+  // BENCH_ONLY=firstload: the built app's first load on an emulated phone (needs dist/).
+  if (process.env.BENCH_ONLY === 'firstload') return runFirstLoadBench();
   for (const run of runners) await run();
 }
 
