@@ -192,8 +192,12 @@ export async function runFirstLoadBench(): Promise<void> {
     const signInBytes = median(signInRuns.map((r) => r.bytes));
     const fans = median(planRuns.map((r) => r.goalMs ?? NaN));
     const planBytes = median(planRuns.map((r) => r.bytes));
+    const load = os
+      .loadavg()
+      .map((l) => l.toFixed(1))
+      .join(' ');
     console.log(
-      `first load on a phone (CPU ×${CPU_SLOWDOWN}, 1.6 Mbit/s down, 750 kbit/s up, 150 ms latency, no cache; median of ${runs} cold loads; ${path.relative(process.cwd(), distDir) || distDir})`,
+      `first load on a phone (CPU ×${CPU_SLOWDOWN}, 1.6 Mbit/s down, 750 kbit/s up, 150 ms latency, no cache; median of ${runs} cold loads; ${path.relative(process.cwd(), distDir) || distDir}; machine load ${load} on ${os.cpus().length} cores — throttled timings grow with it)`,
     );
     console.log(`  sign-in page: first contentful paint ${seconds(fcp)} (budget 3 s) ${verdict(fcp, BUDGET.fcpMs)}`);
     console.log(`  sign-in button usable ${seconds(button)} (budget 4 s) ${verdict(button, BUDGET.buttonMs)}`);

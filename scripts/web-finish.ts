@@ -5,7 +5,11 @@
  * 1. dist/index.html preloads the main face (Barlow regular, the app's body text), so it arrives
  *    beside the script instead of after it; the other faces load when a screen first uses them
  *    (constants/app-fonts.web.ts declares them with `font-display: swap`).
- * 2. Every hashed file of the build (`_expo/`, `assets/`) that compresses gets a brotli (`.br`,
+ * 2. It also preloads the route chunks every first visit needs (async routes load a screen's code
+ *    only once the entry has run, one round trip later): both layouts and the sign-in screen.
+ * 3. The page shows the product's name and "Opening Sightfan…" in system type the moment the HTML
+ *    arrives, before any script has run (React replaces it with the first screen).
+ * 4. Every hashed file of the build (`_expo/`, `assets/`) that compresses gets a brotli (`.br`,
  *    quality 11) and a gzip (`.gz`, level 9) copy beside it, which server/app.ts serves to
  *    browsers that accept them. HTML, the service worker and the manifest are left alone: they are
  *    small, may be rewritten by another build step, and are served revalidated.
@@ -16,6 +20,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import zlib from 'node:zlib';
+import { palette } from '../shared/palette';
 
 const COMPRESSIBLE = /\.(js|css|json|ttf|otf|svg|map|txt|html|wasm)$/;
 /** The face preloaded on every page: the body text's. */
@@ -37,15 +42,57 @@ export function withFontPreload(html: string, fontPath: string): string {
   return html.replace('</head>', `  ${link}\n</head>`);
 }
 
-export function preloadMainFace(distDir: string): string {
+/** The route chunks preloaded on every first visit: the root and signed-in layouts, and the sign-in screen. */
+const FIRST_VISIT_CHUNKS = /^(_layout|sign-in)-[0-9a-f]+\.js$/;
+
+/** index.html with preloads of the first visit's route chunks (once). */
+export function withChunkPreloads(html: string, chunkPaths: string[]): string {
+  const links = chunkPaths.map((href) => `<link rel="preload" href="${href}" as="script">`).filter((link) => !html.includes(link));
+  if (links.length === 0) return html;
+  return html.replace('</head>', `${links.map((l) => `  ${l}\n`).join('')}</head>`);
+}
+
+/** Preloads the main face and adds the splash to dist/index.html; returns the face's address. */
+export function finishIndexHtml(distDir: string): string {
   const face = filesUnder(path.join(distDir, 'assets')).find(
     (f) => path.basename(f).startsWith(`${PRELOADED_FACE}.`) && f.endsWith('.ttf'),
   );
   if (!face) throw new Error(`the build has no ${PRELOADED_FACE} font file under assets/`);
   const href = `/${path.relative(distDir, face).split(path.sep).join('/')}`;
   const index = path.join(distDir, 'index.html');
-  fs.writeFileSync(index, withFontPreload(fs.readFileSync(index, 'utf8'), href));
+  const chunkDir = path.join(distDir, '_expo', 'static', 'js', 'web');
+  const chunks = fs.existsSync(chunkDir)
+    ? fs
+        .readdirSync(chunkDir)
+        .filter((f) => FIRST_VISIT_CHUNKS.test(f))
+        .sort()
+    : [];
+  const html = withFontPreload(fs.readFileSync(index, 'utf8'), href);
+  fs.writeFileSync(
+    index,
+    withSplash(
+      withChunkPreloads(
+        html,
+        chunks.map((f) => `/_expo/static/js/web/${f}`),
+      ),
+    ),
+  );
   return href;
+}
+
+const SPLASH_STYLE = `<style id="sightfan-splash-style">
+      .sf-splash{flex:1;display:flex;flex-direction:column;align-items:center;justify-content:center;gap:8px;
+        background:${palette.chalk};color:${palette.asphalt};font-family:system-ui,-apple-system,"Segoe UI",Roboto,Arial,sans-serif}
+      .sf-splash b{font-size:28px;letter-spacing:.02em}.sf-splash span{font-size:17px;color:${palette.haze}}
+    </style>`;
+const SPLASH = '<div class="sf-splash" role="status"><b>Sightfan</b><span>Opening Sightfan…</span></div>';
+
+/** index.html whose empty root shows the splash until the app's first render (once). */
+export function withSplash(html: string): string {
+  if (html.includes('sightfan-splash-style')) return html;
+  if (!html.includes('<div id="root"></div>') || !html.includes('</head>'))
+    throw new Error('dist/index.html has no empty root to put the splash in.');
+  return html.replace('</head>', `  ${SPLASH_STYLE}\n</head>`).replace('<div id="root"></div>', `<div id="root">${SPLASH}</div>`);
 }
 
 /** Writes `.br` and `.gz` beside each compressible hashed file; returns the sizes for the log. */
@@ -76,7 +123,7 @@ export function compressHashedFiles(distDir: string): { files: number; raw: numb
 
 if (require.main === module) {
   const distDir = path.resolve(process.argv[2] ?? path.join(__dirname, '..', 'dist'));
-  const href = preloadMainFace(distDir);
+  const href = finishIndexHtml(distDir);
   const t = compressHashedFiles(distDir);
   const kb = (n: number) => `${(n / 1024).toFixed(0)} KB`;
   console.log(`web finish: ${href} preloaded; ${t.files} files compressed, ${kb(t.raw)} → brotli ${kb(t.br)}, gzip ${kb(t.gz)}`);
