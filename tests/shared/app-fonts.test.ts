@@ -4,12 +4,13 @@
  * text uses, and everything a person typing a name in a western European language would, as long as
  * the full face has it. When this fails, run `npx tsx scripts/subset-fonts.ts` and commit the fonts.
  */
+import fs from 'node:fs';
 import path from 'node:path';
 import * as fontkit from 'fontkit';
 import { APP_FONT_FILES, charactersInAppSource, SUBSET_DIR } from '../../scripts/subset-fonts';
 
 const root = path.resolve(__dirname, '../..');
-const open = (file: string) => fontkit.openSync(file) as fontkit.Font;
+const open = (file: string) => fontkit.create(fs.readFileSync(file)) as fontkit.Font;
 
 function range(from: number, to: number): number[] {
   return Array.from({ length: to - from + 1 }, (_, i) => from + i);
