@@ -7,6 +7,9 @@
  *    (constants/app-fonts.web.ts declares them with `font-display: swap`).
  * 2. It also preloads the route chunks every first visit needs (async routes load a screen's code
  *    only once the entry has run, one round trip later): both layouts and the sign-in screen.
+ *    And it asks for the session (`GET /api/auth/session`, the app's start-up probe) from the HTML:
+ *    the app's own fetch of it, made once the scripts have run, takes the preloaded answer instead
+ *    of waiting one more round trip (same address, `credentials: 'include'` = `use-credentials`).
  * 3. The page shows the product's name and "Opening Sightfan…" in system type the moment the HTML
  *    arrives, before any script has run (React replaces it with the first screen).
  * 4. Every hashed file of the build (`_expo/`, `assets/`) that compresses gets a brotli (`.br`,
@@ -52,7 +55,16 @@ export function withChunkPreloads(html: string, chunkPaths: string[]): string {
   return html.replace('</head>', `${links.map((l) => `  ${l}\n`).join('')}</head>`);
 }
 
-/** Preloads the main face and adds the splash to dist/index.html; returns the face's address. */
+/** The app's start-up probe, preloaded as the app's API client asks for it (hooks/use-session.ts). */
+const SESSION_PRELOAD = '<link rel="preload" href="/api/auth/session" as="fetch" crossorigin="use-credentials">';
+
+/** index.html that asks for the session while the scripts download (once). */
+export function withSessionPreload(html: string): string {
+  if (html.includes(SESSION_PRELOAD)) return html;
+  return html.replace('</head>', `  ${SESSION_PRELOAD}\n</head>`);
+}
+
+/** Adds the preloads (main face, first-visit chunks, session) and the splash to dist/index.html; returns the face's address. */
 export function finishIndexHtml(distDir: string): string {
   const face = filesUnder(path.join(distDir, 'assets')).find(
     (f) => path.basename(f).startsWith(`${PRELOADED_FACE}.`) && f.endsWith('.ttf'),
@@ -67,16 +79,11 @@ export function finishIndexHtml(distDir: string): string {
         .filter((f) => FIRST_VISIT_CHUNKS.test(f))
         .sort()
     : [];
-  const html = withFontPreload(fs.readFileSync(index, 'utf8'), href);
-  fs.writeFileSync(
-    index,
-    withSplash(
-      withChunkPreloads(
-        html,
-        chunks.map((f) => `/_expo/static/js/web/${f}`),
-      ),
-    ),
+  const withPreloads = withChunkPreloads(
+    withFontPreload(fs.readFileSync(index, 'utf8'), href),
+    chunks.map((f) => `/_expo/static/js/web/${f}`),
   );
+  fs.writeFileSync(index, withSplash(withSessionPreload(withPreloads)));
   return href;
 }
 

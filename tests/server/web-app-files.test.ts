@@ -11,7 +11,7 @@ import path from 'node:path';
 import zlib from 'node:zlib';
 import { createApp, type SightfanApp } from '../../server/app';
 import { createLogger } from '../../server/logger';
-import { compressHashedFiles, withChunkPreloads, withFontPreload, withSplash } from '../../scripts/web-finish';
+import { compressHashedFiles, withChunkPreloads, withFontPreload, withSessionPreload, withSplash } from '../../scripts/web-finish';
 import { startHarness, type Harness } from './harness';
 
 const SCRIPT = '/_expo/static/js/web/entry-0123abcd.js';
@@ -149,11 +149,14 @@ describe('the built app’s files', () => {
 });
 
 describe('the last build step’s page edits', () => {
-  it('adds the font preload, the chunk preloads and the splash once, however often it runs', () => {
-    const once = withSplash(withChunkPreloads(withFontPreload(INDEX, FONT), ['/_expo/static/js/web/sign-in-1.js']));
-    const twice = withSplash(withChunkPreloads(withFontPreload(once, FONT), ['/_expo/static/js/web/sign-in-1.js']));
-    expect(twice).toBe(once);
-    expect(once.match(/rel="preload"/g)).toHaveLength(2);
+  it('adds the font, chunk and session preloads and the splash once, however often it runs', () => {
+    const finish = (html: string) =>
+      withSplash(withSessionPreload(withChunkPreloads(withFontPreload(html, FONT), ['/_expo/static/js/web/sign-in-1.js'])));
+    const once = finish(INDEX);
+    expect(finish(once)).toBe(once);
+    expect(once.match(/rel="preload"/g)).toHaveLength(3);
+    // The session is asked for with cookies, as the app's API client asks (credentials: 'include').
+    expect(once).toContain('<link rel="preload" href="/api/auth/session" as="fetch" crossorigin="use-credentials">');
     expect(once).toContain(`<link rel="preload" href="${FONT}" as="font" type="font/ttf" crossorigin>`);
     // The splash is inside the root, which React replaces with the first screen.
     expect(once).toMatch(/<div id="root"><div class="sf-splash"[^>]*>.*Opening Sightfan….*<\/div><\/div>/);
