@@ -225,6 +225,16 @@ function serveWebApp(app: Express, distDir: string): void {
   const indexHtml = path.join(distDir, 'index.html');
   /** A hashed file of the build (`/_expo/static/…`, `/assets/…`): its name changes with its content. */
   const hashed = (file: string) => ['_expo', 'assets'].includes(path.relative(distDir, file).split(path.sep)[0]);
+  // A broken percent-escape goes to the error handler's sentence (express-static-gzip would answer
+  // it with its own bare message).
+  app.use((req, _res, next) => {
+    try {
+      decodeURIComponent(req.path);
+      next();
+    } catch (e) {
+      next(Object.assign(e instanceof URIError ? e : new URIError(String(e)), { status: 400 }));
+    }
+  });
   app.use(
     expressStaticGzip(distDir, {
       enableBrotli: true,
