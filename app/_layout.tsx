@@ -1,35 +1,25 @@
 import { QueryClientProvider } from '@tanstack/react-query';
-import { useFonts } from 'expo-font';
 import { Stack, type ErrorBoundaryProps } from 'expo-router';
 import { StatusBar } from 'expo-status-bar';
 import { useState } from 'react';
 import { View, StyleSheet } from 'react-native';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
 import { Button, CenteredMessage } from '@/components/ui';
-import { fonts, palette } from '@/constants/theme';
+import { useAppFonts } from '@/constants/app-fonts';
+import { palette } from '@/constants/theme';
 import { makeQueryClient } from '@/hooks/query-client';
 import { useSession } from '@/hooks/use-session';
 import { describeError } from '@/shared/errors';
 
-/** The same TTF files the PDF renderer embeds, registered under the names constants/theme.ts uses. */
-const fontFiles = {
-  [fonts.regular]: require('@/fonts/Barlow-Regular.ttf'),
-  [fonts.medium]: require('@/fonts/Barlow-Medium.ttf'),
-  [fonts.semibold]: require('@/fonts/Barlow-SemiBold.ttf'),
-  [fonts.bold]: require('@/fonts/Barlow-Bold.ttf'),
-  [fonts.mono]: require('@/fonts/JetBrainsMono-Regular.ttf'),
-  [fonts.monoMedium]: require('@/fonts/JetBrainsMono-Medium.ttf'),
-};
-
 export default function RootLayout() {
   const [queryClient] = useState(makeQueryClient);
-  const [fontsLoaded, fontError] = useFonts(fontFiles);
+  // Web: never waits (faces swap in as they arrive); native: waits for the faces or their failure.
+  const fontsReady = useAppFonts();
   return (
     <QueryClientProvider client={queryClient}>
       <SafeAreaProvider>
         <StatusBar style="light" />
-        {/* A failed font load falls back to system type rather than blocking sign-in. */}
-        {fontsLoaded || fontError ? <RootNavigator /> : <View style={styles.blank} />}
+        {fontsReady ? <RootNavigator /> : <View style={styles.blank} />}
       </SafeAreaProvider>
     </QueryClientProvider>
   );

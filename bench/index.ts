@@ -9,6 +9,7 @@ import { runReviewBench } from './review.bench';
 import { runQuickBench } from './quick.bench';
 import { runAimBench } from './aim.bench';
 import { runUploadsBench } from './uploads.bench';
+import { runFirstLoadBench } from './firstload.bench';
 
 const runners: Array<() => Promise<void>> = [
   runOpticsBench,
@@ -20,6 +21,7 @@ const runners: Array<() => Promise<void>> = [
   runAimBench,
   runUploadsBench,
   runPlanBench,
+  runFirstLoadBench,
   runLoadBench,
 ];
 
@@ -37,6 +39,8 @@ async function main(): Promise<void> {
   if (process.env.BENCH_ONLY === 'aim') return runAimBench();
   // BENCH_ONLY=uploads: a 12-megapixel photo processed and a 10-page PDF plan's first page drawn.
   if (process.env.BENCH_ONLY === 'uploads') return runUploadsBench();
+  // BENCH_ONLY=firstload: the built app's first load on an emulated phone (needs dist/).
+  if (process.env.BENCH_ONLY === 'firstload') return runFirstLoadBench();
   for (const run of runners) await run();
 }
 

@@ -4,6 +4,7 @@
  * 7:1 except `haze` on `chalk` (about 6.6:1, still above WCAG AA for body text).
  */
 /** The colours live in shared/palette.ts, so the screens and the specification sheet use the same ones. */
+import { Platform } from 'react-native';
 import { palette } from '@/shared/palette';
 
 export { palette };
@@ -12,8 +13,8 @@ export const spacing = { xxs: 2, xs: 4, sm: 8, md: 12, lg: 16, xl: 24, xxl: 32, 
 
 export const radii = { sm: 6, md: 10, lg: 16, pill: 999 } as const;
 
-/** Family names as registered with expo-font in app/_layout.tsx (one family per weight, so no faux bold). */
-export const fonts = {
+/** Face names as registered (constants/app-fonts.ts): one family per weight, so no faux bold. */
+export const fontFaces = {
   regular: 'Barlow-Regular',
   medium: 'Barlow-Medium',
   semibold: 'Barlow-SemiBold',
@@ -21,6 +22,22 @@ export const fonts = {
   mono: 'JetBrainsMono-Regular',
   monoMedium: 'JetBrainsMono-Medium',
 } as const;
+
+/**
+ * What styles set as `fontFamily`. On the web each face is followed by system faces, drawn while
+ * it loads (`font-display: swap`) and for a character its Latin subset lacks; native gets the face alone.
+ */
+const withFallback = (face: string, fallback: string): string => (Platform.OS === 'web' ? `${face}, ${fallback}` : face);
+const SANS = 'system-ui, -apple-system, "Segoe UI", Roboto, Arial, sans-serif';
+const MONO = 'ui-monospace, Menlo, Consolas, "DejaVu Sans Mono", monospace';
+export const fonts = {
+  regular: withFallback(fontFaces.regular, SANS),
+  medium: withFallback(fontFaces.medium, SANS),
+  semibold: withFallback(fontFaces.semibold, SANS),
+  bold: withFallback(fontFaces.bold, SANS),
+  mono: withFallback(fontFaces.mono, MONO),
+  monoMedium: withFallback(fontFaces.monoMedium, MONO),
+};
 
 /** Large on purpose: the installer reads this at arm's length in daylight. */
 export const type = {

@@ -1,6 +1,6 @@
 /**
- * Builds the web app (`expo export`) when dist/ is missing or older than any source it is built
- * from. Used by `npm start` and `npm test`.
+ * Builds the web app (`expo export`, then scripts/web-finish.ts: font preload, compressed copies)
+ * when dist/ is missing or older than any source it is built from. Used by `npm start` and `npm test`.
  */
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
@@ -14,6 +14,9 @@ const SOURCES = [
   'constants',
   'shared',
   'fonts',
+  'assets',
+  'public',
+  'scripts/web-finish.ts',
   'app.json',
   'package.json',
   'babel.config.js',
@@ -49,9 +52,10 @@ export function ensureWebBuild(): void {
   const started = Date.now();
   const env = { ...process.env, EXPO_PUBLIC_API_URL: '', CI: '1', EXPO_NO_TELEMETRY: '1' };
   const result = spawnSync('npx', ['expo', 'export', '--platform', 'web', '--output-dir', 'dist'], { cwd: root, stdio: 'inherit', env });
-  if (result.status !== 0) {
+  const finish = result.status === 0 ? spawnSync('npx', ['tsx', 'scripts/web-finish.ts'], { cwd: root, stdio: 'inherit', env }) : result;
+  if (result.status !== 0 || finish.status !== 0) {
     console.error('web app: the build failed; see the messages above.');
-    process.exit(result.status ?? 1);
+    process.exit((result.status || finish.status) ?? 1);
   }
   // Touch index.html so its time stamp marks the end of the build.
   const now = new Date();

@@ -5,7 +5,8 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { randomUUID } from 'node:crypto';
-import express, { type Express } from 'express';
+import express, { type Express, type Request } from 'express';
+import expressStaticGzip from 'express-static-gzip';
 import { pinoHttp } from 'pino-http';
 import session from 'express-session';
 import helmet from 'helmet';
@@ -200,26 +201,9 @@ export function createApp(deps: AppDeps): SightfanApp {
   api.use(apiNotFound);
   app.use('/api', api);
 
-  // The exported web app: hashed assets cached long, index.html always fresh (single-page routes).
-  const indexHtml = path.join(config.distDir, 'index.html');
-  app.use(
-    express.static(config.distDir, {
-      index: false,
-      setHeaders: (res, file) => {
-        if (file.includes(`${path.sep}_expo${path.sep}`) || file.includes(`${path.sep}assets${path.sep}`)) {
-          res.set('Cache-Control', 'public, max-age=31536000, immutable');
-        }
-      },
-    }),
-  );
-  app.get('/{*splat}', (_req, res) => {
-    if (!fs.existsSync(indexHtml)) {
-      res.status(503).type('text').send('The Sightfan web app has not been built yet. Run `npm start`, which builds it first.');
-      return;
-    }
-    res.set('Cache-Control', 'no-cache');
-    res.sendFile(indexHtml);
-  });
+  // The exported web app (see serveWebApp): compressed, hashed assets cached long, index.html
+  // always fresh and only for page navigations.
+  serveWebApp(app, config.distDir);
   app.use(errorHandler(log));
 
   return {
@@ -235,4 +219,61 @@ export function createApp(deps: AppDeps): SightfanApp {
       if (!deps.pdfWork) void pdfWork.close();
     },
   };
+}
+
+/**
+ * Only a page navigation gets the app's HTML: a request that asks for text/html, for a path whose
+ * last part has no file extension (`/projects/12`, `/quick`). Anything else that is not a file of
+ * the build (`/favicon.ico` before it exists, `/foo.png`, a script a stale page asks for) is a 404,
+ * never the HTML page, so a browser or service worker never caches a page as an image or script.
+ */
+export function isPageNavigation(req: Request): boolean {
+  const last = req.path.slice(req.path.lastIndexOf('/') + 1);
+  return (req.get('accept') ?? '').includes('text/html') && !last.includes('.');
+}
+
+/**
+ * The exported web app from `distDir`. Files are served pre-compressed where the build left a
+ * `.br` / `.gz` beside them (scripts/web-finish.ts; brotli first, then gzip, `Vary: Accept-Encoding`),
+ * hashed assets with a year's immutable cache, everything else revalidated.
+ */
+function serveWebApp(app: Express, distDir: string): void {
+  const indexHtml = path.join(distDir, 'index.html');
+  /** A hashed file of the build (`/_expo/static/…`, `/assets/…`): its name changes with its content. */
+  const hashed = (file: string) => ['_expo', 'assets'].includes(path.relative(distDir, file).split(path.sep)[0]);
+  // A broken percent-escape goes to the error handler's sentence (express-static-gzip would answer
+  // it with its own bare message).
+  app.use((req, _res, next) => {
+    try {
+      decodeURIComponent(req.path);
+      next();
+    } catch (e) {
+      next(Object.assign(e instanceof URIError ? e : new URIError(String(e)), { status: 400 }));
+    }
+  });
+  app.use(
+    expressStaticGzip(distDir, {
+      enableBrotli: true,
+      orderPreference: ['br', 'gzip'],
+      index: false,
+      serveStatic: {
+        index: false,
+        setHeaders: (res, file) => {
+          res.setHeader('Cache-Control', hashed(file) ? 'public, max-age=31536000, immutable' : 'no-cache');
+        },
+      },
+    }),
+  );
+  app.get('/{*splat}', (req, res) => {
+    if (!isPageNavigation(req)) {
+      res.status(404).set('Cache-Control', 'no-cache').type('text').send('Not found.');
+      return;
+    }
+    if (!fs.existsSync(indexHtml)) {
+      res.status(503).type('text').send('The Sightfan web app has not been built yet. Run `npm start`, which builds it first.');
+      return;
+    }
+    res.set('Cache-Control', 'no-cache');
+    res.sendFile(indexHtml);
+  });
 }

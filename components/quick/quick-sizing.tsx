@@ -23,6 +23,7 @@ import {
   type QuickOption,
   type QuickQuestion,
 } from '@/shared/quick';
+import { QuickCautionLine } from './quick-caution-line';
 import { QuickOptionCard } from './quick-option-card';
 import { QuickQuestionForm, type QuickDraft } from './quick-question-form';
 import { useQuickRanking } from './use-quick-ranking';
@@ -94,6 +95,7 @@ export function QuickSizing() {
             {ranking.problem}
           </AppText>
         ) : null}
+        {ranking.answered && question && ranking.options.length > 0 ? <QuickCautionLine /> : null}
         {ranking.answered && question
           ? ranking.options.map((o, i) => (
               <QuickOptionCard

@@ -1,11 +1,12 @@
 import '@testing-library/jest-dom';
-import { fireEvent, screen, waitFor } from '@testing-library/react';
+import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { router } from 'expo-router';
 import { QuickSizing } from '@/components/quick/quick-sizing';
 import { aimText } from '@/components/quick/quick-option-card';
 import { api } from '@/hooks/api';
 import { catalogueKeys } from '@/hooks/use-catalogue';
 import { sessionKeys } from '@/hooks/use-session';
+import { SAFETY_CAUTIONS } from '@/shared/cautions';
 import { DEFAULT_QUICK_QUESTION, quickScene } from '@/shared/quick';
 import type { UserDto } from '@/shared/schemas';
 import { demoCatalogueDtos, testUser } from './fixtures';
@@ -39,6 +40,32 @@ describe('Quick sizing', () => {
     expect(screen.getByTestId('quick-option-1-share')).toHaveTextContent(/^Sees \d+ %$/);
     expect(screen.getByTestId('quick-option-1-aim')).toHaveTextContent(/tilt \d+° down/);
     expect(screen.getByTestId('quick-option-1-sketch-fan').getAttribute('d')).toMatch(/^M[\d.]+,[\d.]+L/);
+    expect(screen.getByTestId('safety-cautions')).toBeInTheDocument();
+  });
+
+  it('heads the ranked answers with a short caution, so a phone scrolled to the answers still has one in view, and opens the four there', async () => {
+    renderQuick();
+    const option = await firstOption();
+    const line = screen.getByTestId('quick-caution-line');
+    expect(line).toHaveTextContent('Mirrors show things smaller and farther away than they are.');
+    // The line comes before the first answer inside the answers block, not after the list.
+    expect(screen.getByTestId('quick-answers')).toContainElement(line);
+    expect(line.compareDocumentPosition(option) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    expect(screen.queryByTestId('quick-caution-full')).toBeNull();
+    fireEvent.click(screen.getByTestId('quick-caution-toggle'));
+    const full = screen.getByTestId('quick-caution-full');
+    expect(line).toContainElement(full);
+    for (const c of SAFETY_CAUTIONS) expect(within(full).getByText(c.text)).toBeInTheDocument();
+    expect(screen.getByTestId('quick-caution-toggle')).toHaveAttribute('aria-expanded', 'true');
+  });
+
+  it('shows no caution line while there is no answer to go with it', async () => {
+    renderQuick();
+    await firstOption();
+    fireEvent.change(screen.getByTestId('quick-passageWidthM'), { target: { value: '0.4' } });
+    await screen.findByText('The passage width must be between 1 m and 30 m.');
+    expect(screen.queryByTestId('quick-caution-line')).toBeNull();
+    // The four cautions stay on the screen all the same.
     expect(screen.getByTestId('safety-cautions')).toBeInTheDocument();
   });
 

@@ -42,7 +42,8 @@ describe('the server process that npm start runs', () => {
       expect(out).toMatch(/demo data seeded/);
       expect(out).toMatch(/fake mail server listening on 127\.0\.0\.1:\d+/);
 
-      const page = await fetch(`http://127.0.0.1:${port}/sign-in`);
+      // Asked as a browser navigates (only navigations get the page; other requests for unknown files are 404).
+      const page = await fetch(`http://127.0.0.1:${port}/sign-in`, { headers: { accept: 'text/html' } });
       expect(page.status).toBe(200);
       expect(await page.text()).toMatch(/<div id="root">/);
       const health = await fetch(`http://127.0.0.1:${port}/api/health`);
