@@ -1,12 +1,14 @@
-import { QueryClientProvider } from '@tanstack/react-query';
+import { QueryClientProvider, type QueryClient } from '@tanstack/react-query';
+import { PersistQueryClientProvider } from '@tanstack/react-query-persist-client';
 import { useFonts } from 'expo-font';
 import { Stack, type ErrorBoundaryProps } from 'expo-router';
 import { StatusBar } from 'expo-status-bar';
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import { View, StyleSheet } from 'react-native';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
 import { Button, CenteredMessage } from '@/components/ui';
 import { fonts, palette } from '@/constants/theme';
+import { deviceCacheOptions, getDevicePersister, registerOfflineWrites, trackConnection } from '@/hooks/offline';
 import { makeQueryClient } from '@/hooks/query-client';
 import { useSession } from '@/hooks/use-session';
 import { describeError } from '@/shared/errors';
@@ -21,17 +23,40 @@ const fontFiles = {
   [fonts.monoMedium]: require('@/fonts/JetBrainsMono-Medium.ttf'),
 };
 
+function makeAppQueryClient() {
+  trackConnection();
+  const client = makeQueryClient();
+  registerOfflineWrites(client);
+  return client;
+}
+
 export default function RootLayout() {
-  const [queryClient] = useState(makeQueryClient);
+  const [queryClient] = useState(makeAppQueryClient);
   const [fontsLoaded, fontError] = useFonts(fontFiles);
   return (
-    <QueryClientProvider client={queryClient}>
+    <DeviceCacheProvider client={queryClient}>
       <SafeAreaProvider>
         <StatusBar style="light" />
         {/* A failed font load falls back to system type rather than blocking sign-in. */}
         {fontsLoaded || fontError ? <RootNavigator /> : <View style={styles.blank} />}
       </SafeAreaProvider>
-    </QueryClientProvider>
+    </DeviceCacheProvider>
+  );
+}
+
+/** The query client, with its cache kept on the device where there is storage (hooks/offline.ts). */
+function DeviceCacheProvider({ client, children }: { client: QueryClient; children: ReactNode }) {
+  const persister = getDevicePersister();
+  if (!persister) return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
+  return (
+    <PersistQueryClientProvider
+      client={client}
+      persistOptions={deviceCacheOptions(persister)}
+      // Changes that waited in the kept cache are sent once it is back (now, or when online).
+      onSuccess={() => void client.resumePausedMutations()}
+    >
+      {children}
+    </PersistQueryClientProvider>
   );
 }
 
@@ -42,6 +67,15 @@ export default function RootLayout() {
  */
 function RootNavigator() {
   const session = useSession();
+  if (session.waitingForConnection) {
+    return (
+      <CenteredMessage
+        title="Sightfan needs a connection once"
+        body="Nobody has signed in on this device yet, so there is nothing kept here to work from. Sign in once with a connection; after that the catalogue and your recent jobs open here with no signal."
+        testID="session-offline"
+      />
+    );
+  }
   if (session.isPending) return <CenteredMessage loading title="Opening Sightfan…" testID="session-loading" />;
   if (session.error) {
     return (

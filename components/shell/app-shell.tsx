@@ -6,7 +6,9 @@ import { navItemsFor, roleLabels, sectionOf } from '@/constants/navigation';
 import { layout, palette, spacing } from '@/constants/theme';
 import { useIsWide } from '@/hooks/use-breakpoint';
 import type { UserDto } from '@/shared/schemas';
+import { ConnectionStatus } from './connection-status';
 import { NavLink } from './nav-link';
+import { useKeepOnDevice } from './use-keep-on-device';
 
 export interface AppShellProps {
   user: UserDto;
@@ -23,6 +25,7 @@ export function AppShell({ user, pathname, children }: AppShellProps) {
   const insets = useSafeAreaInsets();
   const items = navItemsFor(user.role);
   const activeKey = sectionOf(pathname)?.key;
+  useKeepOnDevice(user);
 
   if (wide) {
     return (
@@ -35,6 +38,7 @@ export function AppShell({ user, pathname, children }: AppShellProps) {
           <View style={styles.railBrand}>
             <Wordmark onDark />
           </View>
+          <ConnectionStatus onDark />
           <View style={styles.railItems}>
             {items.map((item) => (
               <NavLink key={item.key} item={item} shape="rail" active={item.key === activeKey} />
@@ -61,6 +65,7 @@ export function AppShell({ user, pathname, children }: AppShellProps) {
     <View style={styles.narrowRoot}>
       <View style={[styles.topBar, { paddingTop: insets.top + spacing.sm }]}>
         <Wordmark onDark />
+        <ConnectionStatus onDark />
         <View style={styles.topPerson} testID="signed-in-person">
           <AppText variant="small" tone="onAsphalt" numberOfLines={1}>
             {user.name}

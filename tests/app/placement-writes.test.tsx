@@ -90,7 +90,7 @@ describe('usePlacementWrites', () => {
 
     act(() => result.current.writes.change(7, { heightM: 3 }));
     await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenCalledTimes(1));
-    act(() => result.current.plan.mutate({ notes: 'After the mirror' }));
+    act(() => result.current.plan.mutate({ projectId: 3, body: { notes: 'After the mirror' } }));
     await new Promise((r) => setTimeout(r, 50));
     expect(api.projects.update).not.toHaveBeenCalled();
 
