@@ -11,6 +11,7 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { AppText } from '@/components/ui/text';
 import { spacing } from '@/constants/theme';
+import { useIsOnline } from '@/hooks/use-connection';
 import { AUTOSAVE_MS, type PlacementEdits, type PlacementWrites } from '@/hooks/use-placement-writes';
 import type { ProjectEvaluation } from '@/shared/project-optics';
 import type { CatalogueItemDto, PlacementDto, ProjectDto, Scene } from '@/shared/schemas';
@@ -46,6 +47,7 @@ export function PlacementEditor(props: PlacementEditorProps) {
 
 function PlacementEditorInner({ scene, placement, writes, evaluation, catalogue, units, canEdit, onClose }: PlacementEditorProps) {
   const [width, setWidth] = useState(0);
+  const online = useIsOnline();
   const onLayout = (e: LayoutChangeEvent) => setWidth(e.nativeEvent.layout.width);
 
   if (!placement) {
@@ -83,6 +85,7 @@ function PlacementEditorInner({ scene, placement, writes, evaluation, catalogue,
             canEdit={canEdit}
             dirty={dirty}
             saving={writes.saving}
+            offline={!online}
             error={problem?.message || null}
             conflict={Boolean(conflict)}
           />
@@ -120,11 +123,11 @@ function PlacementEditorInner({ scene, placement, writes, evaluation, catalogue,
       {canEdit ? (
         <View style={styles.actions}>
           <Button
-            label={writes.saving ? 'Saving…' : 'Save now'}
+            label={writes.saving ? (online ? 'Saving…' : 'Waiting for a connection') : 'Save now'}
             testID="placement-save"
             onPress={saveNow}
             disabled={!dirty || Boolean(conflict)}
-            busy={writes.saving}
+            busy={writes.saving && online}
           />
           <PlacementDelete
             label={placement.label}
