@@ -3,13 +3,14 @@ import { PersistQueryClientProvider } from '@tanstack/react-query-persist-client
 import { useFonts } from 'expo-font';
 import { Stack, type ErrorBoundaryProps } from 'expo-router';
 import { StatusBar } from 'expo-status-bar';
-import { useState, type ReactNode } from 'react';
+import { useEffect, useState, type ReactNode } from 'react';
 import { View, StyleSheet } from 'react-native';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
 import { Button, CenteredMessage } from '@/components/ui';
 import { fonts, palette } from '@/constants/theme';
 import { deviceCacheOptions, getDevicePersister, registerOfflineWrites, trackConnection } from '@/hooks/offline';
 import { makeQueryClient } from '@/hooks/query-client';
+import { markAppUpdated, registerServiceWorker } from '@/hooks/service-worker';
 import { useSession } from '@/hooks/use-session';
 import { describeError } from '@/shared/errors';
 
@@ -33,6 +34,7 @@ function makeAppQueryClient() {
 export default function RootLayout() {
   const [queryClient] = useState(makeAppQueryClient);
   const [fontsLoaded, fontError] = useFonts(fontFiles);
+  useEffect(() => registerServiceWorker(markAppUpdated), []);
   return (
     <DeviceCacheProvider client={queryClient}>
       <SafeAreaProvider>

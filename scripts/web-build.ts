@@ -1,6 +1,7 @@
 /**
- * Builds the web app (`expo export`) when dist/ is missing or older than any source it is built
- * from. Used by `npm start` and `npm test`.
+ * Builds the web app (`expo export`, then scripts/offline-build.ts: web manifest and service
+ * worker) when dist/ is missing or older than any source it is built from. Used by `npm start`
+ * and `npm test`.
  */
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
@@ -14,6 +15,8 @@ const SOURCES = [
   'constants',
   'shared',
   'fonts',
+  'public',
+  'scripts/offline-build.ts',
   'app.json',
   'package.json',
   'babel.config.js',
@@ -35,7 +38,7 @@ function newestMtime(p: string): number {
 
 export function webBuildIsFresh(): boolean {
   const built = path.join(root, 'dist', 'index.html');
-  if (!fs.existsSync(built)) return false;
+  if (!fs.existsSync(built) || !fs.existsSync(path.join(root, 'dist', 'sw.js'))) return false;
   const builtAt = fs.statSync(built).mtimeMs;
   return SOURCES.every((s) => newestMtime(path.join(root, s)) <= builtAt);
 }
@@ -49,9 +52,11 @@ export function ensureWebBuild(): void {
   const started = Date.now();
   const env = { ...process.env, EXPO_PUBLIC_API_URL: '', CI: '1', EXPO_NO_TELEMETRY: '1' };
   const result = spawnSync('npx', ['expo', 'export', '--platform', 'web', '--output-dir', 'dist'], { cwd: root, stdio: 'inherit', env });
-  if (result.status !== 0) {
+  const offline =
+    result.status === 0 ? spawnSync('npx', ['tsx', 'scripts/offline-build.ts'], { cwd: root, stdio: 'inherit', env }) : result;
+  if (result.status !== 0 || offline.status !== 0) {
     console.error('web app: the build failed; see the messages above.');
-    process.exit(result.status ?? 1);
+    process.exit((result.status || offline.status) ?? 1);
   }
   // Touch index.html so its time stamp marks the end of the build.
   const now = new Date();

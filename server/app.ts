@@ -31,6 +31,9 @@ import { sheetsRoutes } from './modules/sheets/sheets.routes';
 import { reviewRoutes, reviewersRoutes } from './modules/review/review.routes';
 import { createSheetWork, type SheetWork } from './workers/sheet-pool';
 
+/** dist/ files written by scripts/offline-build.ts, served `no-cache`. */
+const OFFLINE_FILES = new Set(['sw.js', 'manifest.webmanifest', 'manifest.json']);
+
 export interface AppDeps {
   config: AppConfig;
   orm: Orm;
@@ -185,7 +188,8 @@ export function createApp(deps: AppDeps): SightfanApp {
   api.use(apiNotFound);
   app.use('/api', api);
 
-  // The exported web app: hashed assets cached long, index.html always fresh (single-page routes).
+  // The exported web app: hashed assets cached long, index.html, sw.js and the manifest always
+  // fresh (single-page routes; scripts/offline-build.ts writes the offline files).
   const indexHtml = path.join(config.distDir, 'index.html');
   app.use(
     express.static(config.distDir, {
@@ -193,6 +197,10 @@ export function createApp(deps: AppDeps): SightfanApp {
       setHeaders: (res, file) => {
         if (file.includes(`${path.sep}_expo${path.sep}`) || file.includes(`${path.sep}assets${path.sep}`)) {
           res.set('Cache-Control', 'public, max-age=31536000, immutable');
+        } else if (OFFLINE_FILES.has(path.basename(file))) {
+          // The service worker and the manifest name no version: always ask (a deploy must reach phones).
+          res.set('Cache-Control', 'no-cache');
+          if (file.endsWith('.webmanifest')) res.type('application/manifest+json');
         }
       },
     }),

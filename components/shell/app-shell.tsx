@@ -8,6 +8,7 @@ import { useIsWide } from '@/hooks/use-breakpoint';
 import type { UserDto } from '@/shared/schemas';
 import { ConnectionStatus } from './connection-status';
 import { NavLink } from './nav-link';
+import { UpdateNotice } from './update-notice';
 import { useKeepOnDevice } from './use-keep-on-device';
 
 export interface AppShellProps {
@@ -56,7 +57,10 @@ export function AppShell({ user, pathname, children }: AppShellProps) {
             </AppText>
           </View>
         </View>
-        <View style={styles.content}>{children}</View>
+        <View style={styles.content}>
+          <UpdateNotice />
+          {children}
+        </View>
       </View>
     );
   }
@@ -75,6 +79,7 @@ export function AppShell({ user, pathname, children }: AppShellProps) {
           </AppText>
         </View>
       </View>
+      <UpdateNotice />
       <View style={styles.content}>{children}</View>
       <View style={[styles.tabs, { paddingBottom: insets.bottom }]} role="navigation" aria-label="Sections">
         {items.map((item) => (
