@@ -39,7 +39,7 @@ export function AppShell({ user, pathname, children }: AppShellProps) {
           <View style={styles.railBrand}>
             <Wordmark onDark />
           </View>
-          <ConnectionStatus onDark />
+          <ConnectionStatus shape="rail" />
           <View style={styles.railItems}>
             {items.map((item) => (
               <NavLink key={item.key} item={item} shape="rail" active={item.key === activeKey} />
@@ -69,7 +69,6 @@ export function AppShell({ user, pathname, children }: AppShellProps) {
     <View style={styles.narrowRoot}>
       <View style={[styles.topBar, { paddingTop: insets.top + spacing.sm }]}>
         <Wordmark onDark />
-        <ConnectionStatus onDark />
         <View style={styles.topPerson} testID="signed-in-person">
           <AppText variant="small" tone="onAsphalt" numberOfLines={1}>
             {user.name}
@@ -79,6 +78,7 @@ export function AppShell({ user, pathname, children }: AppShellProps) {
           </AppText>
         </View>
       </View>
+      <ConnectionStatus shape="band" />
       <UpdateNotice />
       <View style={styles.content}>{children}</View>
       <View style={[styles.tabs, { paddingBottom: insets.bottom }]} role="navigation" aria-label="Sections">

@@ -16,14 +16,15 @@ export function connectionText(online: boolean, waiting: number): string {
   return waiting > 0 ? `Back online · sending ${waiting === 1 ? '1 change' : `${waiting} changes`}…` : '';
 }
 
-export function ConnectionStatus({ onDark = false }: { onDark?: boolean }) {
+/** `rail`: a framed line in the wide layout's side rail; `band`: a strip under the phone's top bar. */
+export function ConnectionStatus({ shape }: { shape: 'rail' | 'band' }) {
   const online = useIsOnline();
   const { waiting } = useWaitingWrites();
   const text = connectionText(online, waiting);
   return (
-    <View role="status" aria-live="polite" testID="connection-status" style={text ? styles.band : styles.empty}>
+    <View role="status" aria-live="polite" testID="connection-status" style={text ? styles[shape] : styles.empty}>
       {text ? (
-        <AppText variant="small" tone={onDark ? 'onAsphalt' : 'ink'} testID="connection-status-text">
+        <AppText variant="small" tone="onAsphalt" testID="connection-status-text">
           {text}
         </AppText>
       ) : null}
@@ -32,14 +33,19 @@ export function ConnectionStatus({ onDark = false }: { onDark?: boolean }) {
 }
 
 const styles = StyleSheet.create({
-  band: {
-    flexDirection: 'row',
-    alignItems: 'center',
+  rail: {
     paddingHorizontal: spacing.sm,
-    paddingVertical: 2,
+    paddingVertical: spacing.xs,
     borderRadius: 4,
     borderWidth: 1,
     borderColor: palette.beacon,
+  },
+  band: {
+    paddingHorizontal: spacing.lg,
+    paddingVertical: spacing.xs,
+    backgroundColor: palette.asphaltRaised,
+    borderBottomWidth: 1,
+    borderBottomColor: palette.beacon,
   },
   empty: { width: 0, height: 0, overflow: 'hidden' },
 });
