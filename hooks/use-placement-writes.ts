@@ -104,17 +104,26 @@ export function usePlacementWrites(project: ProjectDto) {
   };
 
   /** Sends this placement's unsaved fields, unless a conflict is waiting for the person's choice. */
+  // The edits of the last save queued per mirror and not yet answered: a second save of exactly
+  // the same values (a blur, then "Save now", while offline) would only queue a duplicate.
+  const queuedRef = useRef(new Map<number, PlacementEdits>());
+
   const save = useCallback(
     (id: number) => {
       cancelTimer(id);
       const sent = localRef.current[id];
       if (!sent || conflictRef.current[id]) return;
+      const queued = queuedRef.current.get(id);
+      if (queued && same(queued, sent)) return;
+      queuedRef.current.set(id, sent);
       setProblems((p) => setIn(p, id, undefined));
       setInFlight((n) => n + 1);
-      update.mutate(
-        { projectId: project.id, placementId: id, edits: sent },
-        {
-          onSuccess: () => {
+      // The promise, not mutate()'s callbacks: TanStack Query calls those only for an observer's
+      // latest mutation, and saves queued one after another (offline, or a slow answer) all count.
+      update
+        .mutateAsync({ projectId: project.id, placementId: id, edits: sent })
+        .then(
+          () => {
             const now = localRef.current[id];
             if (now)
               setLocal(
@@ -122,7 +131,7 @@ export function usePlacementWrites(project: ProjectDto) {
                 without(now, (k) => k in sent && same(now[k], sent[k])),
               );
           },
-          onError: (err) => {
+          (err: unknown) => {
             if (err instanceof ApiError && err.status === 409 && err.current) {
               const mine = localRef.current[id] ?? sent;
               setConflict(id, { message: err.message, mine, theirs: pick(err.current as PlacementDto, keysOf(mine)) });
@@ -130,9 +139,11 @@ export function usePlacementWrites(project: ProjectDto) {
             }
             setProblems((p) => setIn(p, id, { message: describeError(err), fields: err instanceof ApiError ? err.fields : {} }));
           },
-          onSettled: () => setInFlight((n) => n - 1),
-        },
-      );
+        )
+        .finally(() => {
+          if (queuedRef.current.get(id) === sent) queuedRef.current.delete(id);
+          setInFlight((n) => n - 1);
+        });
     },
     [update, setLocal, setConflict, project.id],
   );

@@ -50,6 +50,8 @@ describe('usePlacementWrites', () => {
     await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenCalledTimes(2));
     expect(api.projects.updatePlacement).toHaveBeenLastCalledWith(3, 7, { heightM: 3, tiltDownRad: 0.2, version: 5 });
     await waitFor(() => expect(result.current.unsaved[7]).toBeUndefined());
+    // Both answers count: the first save's end is not lost behind the second (it once stayed "Saving…").
+    await waitFor(() => expect(result.current.saving).toBe(false));
   });
 
   it('keeps the unsaved values after a 409, beside the saved ones, and sends nothing more until the person chooses', async () => {

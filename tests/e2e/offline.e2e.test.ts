@@ -138,12 +138,18 @@ describe('with no signal', () => {
     await typeInto('placement-notes', 'Checked in the basement with no signal');
     await byTestId(page, 'placement-save').click();
     await status().filter({ hasText: 'Offline: kept on this device' }).waitFor();
+    await page.waitForTimeout(2000);
+    await shot(page, 'debug-step4');
+    console.log('DEBUG', await connection().textContent(), await page.evaluate(() => JSON.stringify(JSON.parse(localStorage.getItem('sightfan-device-cache') ?? '{}').clientState?.mutations)), errors);
     await connection().filter({ hasText: 'Offline · 1 change waits to be sent' }).waitFor();
     await shot(page, 'offline-phone-waiting');
   });
 
   it('step 5: when the signal returns the edit is sent, lands on the server, and the shell goes quiet', async () => {
     await context.setOffline(false);
+    await page.waitForTimeout(3000);
+    await shot(page, 'debug-online');
+    console.log(await status().textContent(), await connection().textContent(), await page.evaluate(() => navigator.onLine));
     await status().filter({ hasText: 'All changes saved.' }).waitFor({ timeout: 30_000 });
     other = await browser.newContext();
     await other.request.post(`${server.url}/api/auth/sign-in`, { data: { email: installer.email, password: DEMO_PASSWORD } });
