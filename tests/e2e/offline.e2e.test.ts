@@ -138,18 +138,12 @@ describe('with no signal', () => {
     await typeInto('placement-notes', 'Checked in the basement with no signal');
     await byTestId(page, 'placement-save').click();
     await status().filter({ hasText: 'Offline: kept on this device' }).waitFor();
-    await page.waitForTimeout(2000);
-    await shot(page, 'debug-step4');
-    console.log('DEBUG', await connection().textContent(), await page.evaluate(() => JSON.stringify(JSON.parse(localStorage.getItem('sightfan-device-cache') ?? '{}').clientState?.mutations)), errors);
     await connection().filter({ hasText: 'Offline · 1 change waits to be sent' }).waitFor();
     await shot(page, 'offline-phone-waiting');
   });
 
   it('step 5: when the signal returns the edit is sent, lands on the server, and the shell goes quiet', async () => {
     await context.setOffline(false);
-    await page.waitForTimeout(3000);
-    await shot(page, 'debug-online');
-    console.log(await status().textContent(), await connection().textContent(), await page.evaluate(() => navigator.onLine));
     await status().filter({ hasText: 'All changes saved.' }).waitFor({ timeout: 30_000 });
     other = await browser.newContext();
     await other.request.post(`${server.url}/api/auth/sign-in`, { data: { email: installer.email, password: DEMO_PASSWORD } });
@@ -175,7 +169,8 @@ describe('with no signal', () => {
     await context.setOffline(false);
     await byTestId(page, 'placement-conflict').waitFor({ state: 'visible', timeout: 30_000 });
     await expect(byTestId(page, 'placement-conflict-mine-values').textContent()).resolves.toMatch(/tilt 17/);
-    await expect(byTestId(page, 'placement-conflict-theirs-values').textContent()).resolves.toMatch(/height 3\.35 m/);
+    // Theirs is shown for the fields the person changed: the tilt as it is saved now.
+    await expect(byTestId(page, 'placement-conflict-theirs-values').textContent()).resolves.toMatch(/Saved now: tilt/);
     await byTestId(page, 'placement-conflict').scrollIntoViewIfNeeded();
     await shot(page, 'offline-phone-conflict');
 
@@ -185,6 +180,8 @@ describe('with no signal', () => {
     expect(saved.tiltDownRad).toBeCloseTo(17 * DEG, 6);
     expect(saved.heightM).toBeCloseTo(3.35, 6);
     expect(saved.notes).toBe('Checked in the basement with no signal');
+    // The other person's height shows on the phone too.
+    await expect(byTestId(page, 'placement-height').inputValue()).resolves.toMatch(/^3\.35/);
     await other.close();
   });
 
