@@ -12,7 +12,7 @@ import { ConnectionStatus } from '@/components/shell/connection-status';
 import { api } from '@/hooks/api';
 import { DEVICE_CACHE_KEY, deviceCacheOptions, forgetDeviceData, getDevicePersister, registerOfflineWrites } from '@/hooks/offline';
 import { usePlacementWrites } from '@/hooks/use-placement-writes';
-import { projectKeys, useProjectQuery } from '@/hooks/use-projects';
+import { useProjectQuery } from '@/hooks/use-projects';
 import type { PlacementDto, ProjectDto } from '@/shared/schemas';
 import { testPlacement } from './fixtures';
 import { makeTestQueryClient } from './render';
@@ -25,7 +25,13 @@ jest.mock('@/hooks/api', () => ({
 }));
 
 const placement: PlacementDto = testPlacement({ viewerId: null });
-const project = { id: 3, version: 1, name: 'Dock', scene: { walls: [], zones: [], viewers: [] }, placements: [placement] } as unknown as ProjectDto;
+const project = {
+  id: 3,
+  version: 1,
+  name: 'Dock',
+  scene: { walls: [], zones: [], viewers: [] },
+  placements: [placement],
+} as unknown as ProjectDto;
 
 /** A fresh app start over the device's storage: a new client, the offline writes registered, the kept cache restored. */
 function appStart(children: ReactNode): { client: QueryClient; unmount: () => void } {
@@ -125,7 +131,9 @@ describe('a change made offline', () => {
     await waitFor(() => expect(screen.getByTestId('connection-status-text').textContent).toBe('Offline · 1 change waits to be sent'));
     expect(screen.getByTestId('height').textContent).toBe('3.2');
 
-    jest.mocked(api.projects.updatePlacement).mockResolvedValue({ placement: { ...placement, heightM: 3.2, version: 5 }, projectVersion: 2 });
+    jest
+      .mocked(api.projects.updatePlacement)
+      .mockResolvedValue({ placement: { ...placement, heightM: 3.2, version: 5 }, projectVersion: 2 });
     act(() => onlineManager.setOnline(true));
     await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenCalledTimes(1));
     expect(api.projects.updatePlacement).toHaveBeenCalledWith(3, 7, { heightM: 3.2, version: placement.version });
@@ -142,8 +150,15 @@ describe('a change made offline', () => {
 
     await act(() => forgetDeviceData(client));
     expect(window.localStorage.getItem(DEVICE_CACHE_KEY)).toBeNull();
-    expect(client.getMutationCache().getAll().filter((m) => m.state.status === 'pending')).toEqual([]);
-    await waitFor(() => expect(screen.queryByTestId('connection-status-text')?.textContent ?? '').toBe('Offline · showing what this device keeps'));
+    expect(
+      client
+        .getMutationCache()
+        .getAll()
+        .filter((m) => m.state.status === 'pending'),
+    ).toEqual([]);
+    await waitFor(() =>
+      expect(screen.queryByTestId('connection-status-text')?.textContent ?? '').toBe('Offline · showing what this device keeps'),
+    );
   });
 });
 

@@ -20,6 +20,12 @@ import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seeders/demo';
 import type { PlacementDto, ProjectDto } from '../../shared/schemas';
 import { ARTIFACTS, PHONE, byTestId, launchChromium, shot, signIn } from './browser';
 
+/** The page's globals these checks read (the test is compiled without the DOM library; the functions run in the page, so each names `globalThis` itself). */
+interface PageGlobals {
+  navigator: { onLine: boolean; serviceWorker: { controller: object | null } };
+  localStorage: { getItem(key: string): string | null };
+}
+
 const DIST = path.resolve(__dirname, '../../dist');
 const installer = DEMO_USERS.find((u) => u.role === 'installer')!;
 const DEG = Math.PI / 180;
@@ -97,11 +103,13 @@ describe('with no signal', () => {
     await signIn(page, server.url, installer.email, DEMO_PASSWORD);
     await page.waitForURL(/\/projects$/);
     await page.getByText(DEMO_JOB).first().waitFor();
-    await page.waitForFunction(() => navigator.serviceWorker.controller !== null, undefined, { timeout: 60_000 });
+    await page.waitForFunction(() => (globalThis as unknown as PageGlobals).navigator.serviceWorker.controller !== null, undefined, {
+      timeout: 60_000,
+    });
     // The shell fetches the catalogue and the recent jobs a few seconds after opening; wait until they are kept.
     await page.waitForFunction(
       () => {
-        const kept = localStorage.getItem('sightfan-device-cache');
+        const kept = (globalThis as unknown as PageGlobals).localStorage.getItem('sightfan-device-cache');
         if (!kept) return false;
         const keys = (JSON.parse(kept) as { clientState: { queries: { queryKey: unknown[] }[] } }).clientState.queries.map((q) =>
           JSON.stringify(q.queryKey),
@@ -154,7 +162,7 @@ describe('with no signal', () => {
 
   it('step 6: a change made elsewhere while the phone was offline is shown beside the waiting one; keeping mine loses neither', async () => {
     await context.setOffline(true);
-    await page.waitForFunction(() => !navigator.onLine);
+    await page.waitForFunction(() => !(globalThis as unknown as PageGlobals).navigator.onLine);
     await typeInto('placement-tilt', '17°');
     await byTestId(page, 'placement-save').click();
     await connection().filter({ hasText: '1 change waits' }).waitFor();
