@@ -16,7 +16,7 @@ import { defaultShouldDehydrateQuery, onlineManager, type Mutation, type Query, 
 import type { Persister } from '@tanstack/react-query-persist-client';
 import { Platform } from 'react-native';
 import { DEVICE_CACHE_MAX_AGE_MS } from './query-client';
-import { quickSaveKey, quickSaveOptions } from './use-quick-save';
+import { quickSaveKey, quickSaveOptions } from './quick-save-write';
 import { projectMutationKeys, projectWriteOptions } from './use-projects';
 
 /** localStorage key of the kept cache. */

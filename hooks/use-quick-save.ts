@@ -5,15 +5,11 @@
  * that time), so a save made with no signal waits on the device (hooks/offline.ts) and is sent
  * as it was when the connection returns, even after a reload.
  */
-import { useMutation, useQueryClient, type QueryClient } from '@tanstack/react-query';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { quickPlacementBody, quickProjectName, quickScene, type QuickOption, type QuickQuestion } from '@/shared/quick';
-import type { CreatePlacementBody, CreateProjectBody } from '@/shared/schemas';
-import { api } from './api';
-import { projectKeys } from './use-projects';
+import { quickSaveOptions, type QuickSaveVars } from './quick-save-write';
 
-export type QuickSaveVars = { project: CreateProjectBody; placement: CreatePlacementBody };
-
-export const quickSaveKey = ['quick', 'save'] as const;
+export { quickSaveKey, type QuickSaveVars } from './quick-save-write';
 
 /** The two bodies "Save as a job" sends for this answer, named at `when`. */
 export function quickSaveVars(question: QuickQuestion, option: QuickOption, when: Date): QuickSaveVars {
@@ -25,19 +21,6 @@ export function quickSaveVars(question: QuickQuestion, option: QuickOption, when
       azimuthRad: option.azimuthRad,
       tiltDownRad: option.tiltDownRad,
     }),
-  };
-}
-
-/** The save's function and cache update; also the client's default for the key (see hooks/offline.ts). */
-export function quickSaveOptions(qc: QueryClient) {
-  return {
-    mutationKey: quickSaveKey,
-    mutationFn: async ({ project: body, placement }: QuickSaveVars) => {
-      const { project } = await api.projects.create(body);
-      await api.projects.addPlacement(project.id, placement);
-      return project.id;
-    },
-    onSuccess: () => void qc.invalidateQueries({ queryKey: projectKeys.all }),
   };
 }
 
