@@ -4,8 +4,8 @@
  * waits, is counted in the shell's connection line, and is sent after a reload when the
  * connection returns; signing out leaves nothing of the person on the device.
  */
-import { act, render, screen, waitFor } from '@testing-library/react';
-import { onlineManager, QueryClientProvider, useQuery, type QueryClient } from '@tanstack/react-query';
+import { act, fireEvent, render, screen, waitFor } from '@testing-library/react';
+import { onlineManager, QueryClientProvider, useIsRestoring, useQuery, type QueryClient } from '@tanstack/react-query';
 import { PersistQueryClientProvider } from '@tanstack/react-query-persist-client';
 import type { ReactNode } from 'react';
 import { ConnectionStatus } from '@/components/shell/connection-status';
@@ -13,6 +13,7 @@ import { api } from '@/hooks/api';
 import { DEVICE_CACHE_KEY, deviceCacheOptions, forgetDeviceData, getDevicePersister, registerOfflineWrites } from '@/hooks/offline';
 import { usePlacementWrites } from '@/hooks/use-placement-writes';
 import { useProjectQuery } from '@/hooks/use-projects';
+import { useQuickSaveMutation, type QuickSaveVars } from '@/hooks/use-quick-save';
 import type { PlacementDto, ProjectDto } from '@/shared/schemas';
 import { testPlacement } from './fixtures';
 import { makeTestQueryClient } from './render';
@@ -20,7 +21,14 @@ import { makeTestQueryClient } from './render';
 jest.mock('@/hooks/api', () => ({
   api: {
     auth: { signOut: jest.fn() },
-    projects: { get: jest.fn(), update: jest.fn(), updatePlacement: jest.fn(), removePlacement: jest.fn(), addPlacement: jest.fn() },
+    projects: {
+      get: jest.fn(),
+      create: jest.fn(),
+      update: jest.fn(),
+      updatePlacement: jest.fn(),
+      removePlacement: jest.fn(),
+      addPlacement: jest.fn(),
+    },
   },
 }));
 
@@ -159,6 +167,42 @@ describe('a change made offline', () => {
     await waitFor(() =>
       expect(screen.queryByTestId('connection-status-text')?.textContent ?? '').toBe('Offline · showing what this device keeps'),
     );
+  });
+});
+
+describe('"Save as a job" with no signal', () => {
+  const vars = {
+    project: {
+      name: 'Blind corner (test)',
+      kind: 'site',
+      notes: 'Started from quick sizing.',
+      scene: { walls: [], zones: [], viewers: [] },
+    },
+    placement: { label: 'M1', catalogueItemId: 1, positionM: [1, 2], heightM: 3, azimuthRad: 0, tiltDownRad: 0.2, viewerId: null },
+  } as unknown as QuickSaveVars;
+
+  function SaveButton() {
+    const save = useQuickSaveMutation();
+    // The kept cache is written from the moment it has been restored.
+    return useIsRestoring() ? null : <button data-testid="save" onClick={() => save.mutate(vars)} />;
+  }
+
+  it('waits on the device and, after a reload, creates the job with its mirror once the connection returns', async () => {
+    const first = appStart(<SaveButton />);
+    act(() => onlineManager.setOnline(false));
+    fireEvent.click(await screen.findByTestId('save'));
+    await kept((raw) => raw.includes('"quick","save"'));
+    expect(api.projects.create).not.toHaveBeenCalled();
+    first.unmount();
+    first.client.clear();
+
+    jest.mocked(api.projects.create).mockResolvedValue({ project: { ...project, id: 41 } });
+    jest.mocked(api.projects.addPlacement).mockResolvedValue({ placement, projectVersion: 2 });
+    appStart(<SaveButton />);
+    await act(async () => onlineManager.setOnline(true));
+    await waitFor(() => expect(api.projects.addPlacement).toHaveBeenCalledWith(41, vars.placement));
+    expect(api.projects.create).toHaveBeenCalledWith(vars.project);
+    expect(api.projects.create).toHaveBeenCalledTimes(1);
   });
 });
 
