@@ -30,7 +30,10 @@ const KEPT_ROOTS: ReadonlySet<unknown> = new Set(['session', 'catalogue', 'proje
 export function keptOnDevice(query: Query): boolean {
   const [root, part] = query.queryKey;
   if (!KEPT_ROOTS.has(root)) return false;
-  if (root === 'session' && part !== 'me') return false;
+  // "Nobody signed in" is never kept: written just before a sign-in's answer, it would send the
+  // next load to the sign-in screen (and lose the address it was opened at) though the server
+  // knows the person. Without a kept answer the app asks the server, as it always did.
+  if (root === 'session' && (part !== 'me' || query.state.data === null)) return false;
   return defaultShouldDehydrateQuery(query);
 }
 

@@ -107,6 +107,18 @@ describe('the cache kept on the device', () => {
   });
 });
 
+it('never keeps "nobody signed in", so a load right after signing in asks the server instead of showing the sign-in screen', async () => {
+  function Session() {
+    useQuery({ queryKey: ['session', 'me'], queryFn: () => null });
+    useProjectQuery(3);
+    return null;
+  }
+  jest.mocked(api.projects.get).mockResolvedValue({ project });
+  appStart(<Session />);
+  await kept((raw) => raw.includes('"detail",3]'));
+  expect(window.localStorage.getItem(DEVICE_CACHE_KEY)).not.toContain('"me"');
+});
+
 describe('a change made offline', () => {
   function Editor() {
     const q = useProjectQuery(3);
