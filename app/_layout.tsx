@@ -8,7 +8,7 @@ import { View, StyleSheet } from 'react-native';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
 import { Button, CenteredMessage } from '@/components/ui';
 import { fonts, palette } from '@/constants/theme';
-import { deviceCacheOptions, getDevicePersister, registerOfflineWrites, trackConnection } from '@/hooks/offline';
+import { afterRestore, deviceCacheOptions, getDevicePersister, registerOfflineWrites, trackConnection } from '@/hooks/offline';
 import { makeQueryClient } from '@/hooks/query-client';
 import { markAppUpdated, registerServiceWorker } from '@/hooks/service-worker';
 import { useSession } from '@/hooks/use-session';
@@ -54,8 +54,8 @@ function DeviceCacheProvider({ client, children }: { client: QueryClient; childr
     <PersistQueryClientProvider
       client={client}
       persistOptions={deviceCacheOptions(persister)}
-      // Changes that waited in the kept cache are sent once it is back (now, or when online).
-      onSuccess={() => void client.resumePausedMutations()}
+      // Waiting changes are sent, then kept answers are asked for again (hooks/offline.ts).
+      onSuccess={() => void afterRestore(client)}
     >
       {children}
     </PersistQueryClientProvider>

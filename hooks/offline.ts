@@ -113,3 +113,15 @@ export function deviceCacheOptions(persister: Persister) {
     dehydrateOptions: { shouldDehydrateQuery: keptOnDevice },
   };
 }
+
+/**
+ * Once the kept cache is back: send the changes that waited in it (now, or when the connection
+ * returns), then mark every kept answer stale so each screen asks the server again while showing
+ * what was kept. Kept answers carry the time they were fetched; without this a list kept seconds
+ * ago counts as fresh and a job sent for review elsewhere would not show in the queue. Writes go
+ * first: a job fetched before a waiting write runs would give it a newer version and hide a conflict.
+ */
+export async function afterRestore(client: QueryClient): Promise<void> {
+  await client.resumePausedMutations();
+  await client.invalidateQueries();
+}

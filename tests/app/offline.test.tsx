@@ -10,7 +10,14 @@ import { PersistQueryClientProvider } from '@tanstack/react-query-persist-client
 import type { ReactNode } from 'react';
 import { ConnectionStatus } from '@/components/shell/connection-status';
 import { api } from '@/hooks/api';
-import { DEVICE_CACHE_KEY, deviceCacheOptions, forgetDeviceData, getDevicePersister, registerOfflineWrites } from '@/hooks/offline';
+import {
+  afterRestore,
+  DEVICE_CACHE_KEY,
+  deviceCacheOptions,
+  forgetDeviceData,
+  getDevicePersister,
+  registerOfflineWrites,
+} from '@/hooks/offline';
 import { usePlacementWrites } from '@/hooks/use-placement-writes';
 import { useProjectQuery } from '@/hooks/use-projects';
 import { useQuickSaveMutation, type QuickSaveVars } from '@/hooks/use-quick-save';
@@ -50,7 +57,7 @@ function appStart(children: ReactNode): { client: QueryClient; unmount: () => vo
     <PersistQueryClientProvider
       client={client}
       persistOptions={{ ...deviceCacheOptions(persister), throttleTime: 0 } as ReturnType<typeof deviceCacheOptions>}
-      onSuccess={() => void client.resumePausedMutations()}
+      onSuccess={() => void afterRestore(client)}
     >
       {children}
     </PersistQueryClientProvider>,
@@ -89,6 +96,21 @@ describe('the cache kept on the device', () => {
     appStart(<JobName />);
     await screen.findByText('Dock');
     expect(api.projects.get).toHaveBeenCalledTimes(1);
+  });
+
+  it('asks the server again after a reload with a connection, though the kept answer is seconds old', async () => {
+    jest.mocked(api.projects.get).mockResolvedValue({ project });
+    const first = appStart(<JobName />);
+    await screen.findByText('Dock');
+    await kept((raw) => raw.includes('"detail",3]'));
+    first.unmount();
+    first.client.clear();
+
+    // Changed on the server meanwhile (sent for review from another device, say).
+    jest.mocked(api.projects.get).mockResolvedValue({ project: { ...project, name: 'Dock (changed elsewhere)' } });
+    appStart(<JobName />);
+    await screen.findByText('Dock (changed elsewhere)');
+    expect(api.projects.get).toHaveBeenCalledTimes(2);
   });
 
   it('keeps nothing that is not data the person works with offline (a sheet status, an invitation)', async () => {
