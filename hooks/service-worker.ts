@@ -8,7 +8,7 @@ import { useSyncExternalStore } from 'react';
 import { Platform } from 'react-native';
 
 /** How long after the load event the worker is registered (it then downloads the whole app once). */
-export const REGISTER_AFTER_LOAD_MS = 3000;
+export const REGISTER_AFTER_LOAD_MS = 10_000;
 
 export type UpdateListener = () => void;
 

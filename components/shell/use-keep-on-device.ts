@@ -14,7 +14,7 @@ import type { UserDto } from '@/shared/schemas';
 /** How many of the most recently changed jobs are kept whole (with their mirrors) on the device. */
 export const RECENT_JOBS_KEPT = 10;
 /** Waits this long after the screen opens, so the first screen's own requests go first. */
-export const KEEP_AFTER_MS = 4000;
+export const KEEP_AFTER_MS = 8000;
 
 export function useKeepOnDevice(user: UserDto): void {
   const qc = useQueryClient();
