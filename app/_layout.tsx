@@ -1,27 +1,54 @@
-import { QueryClientProvider } from '@tanstack/react-query';
+import { QueryClientProvider, type QueryClient } from '@tanstack/react-query';
+import { PersistQueryClientProvider } from '@tanstack/react-query-persist-client';
 import { Stack, type ErrorBoundaryProps } from 'expo-router';
 import { StatusBar } from 'expo-status-bar';
-import { useState } from 'react';
+import { useEffect, useState, type ReactNode } from 'react';
 import { View, StyleSheet } from 'react-native';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
 import { Button, CenteredMessage } from '@/components/ui';
 import { useAppFonts } from '@/constants/app-fonts';
 import { palette } from '@/constants/theme';
+import { afterRestore, deviceCacheOptions, getDevicePersister, registerOfflineWrites, trackConnection } from '@/hooks/offline';
 import { makeQueryClient } from '@/hooks/query-client';
+import { markAppUpdated, registerServiceWorker } from '@/hooks/service-worker';
 import { useSession } from '@/hooks/use-session';
 import { describeError } from '@/shared/errors';
 
+function makeAppQueryClient() {
+  trackConnection();
+  const client = makeQueryClient();
+  registerOfflineWrites(client);
+  return client;
+}
+
 export default function RootLayout() {
-  const [queryClient] = useState(makeQueryClient);
+  const [queryClient] = useState(makeAppQueryClient);
   // Web: never waits (faces swap in as they arrive); native: waits for the faces or their failure.
   const fontsReady = useAppFonts();
+  useEffect(() => registerServiceWorker(markAppUpdated), []);
   return (
-    <QueryClientProvider client={queryClient}>
+    <DeviceCacheProvider client={queryClient}>
       <SafeAreaProvider>
         <StatusBar style="light" />
         {fontsReady ? <RootNavigator /> : <View style={styles.blank} />}
       </SafeAreaProvider>
-    </QueryClientProvider>
+    </DeviceCacheProvider>
+  );
+}
+
+/** The query client, with its cache kept on the device where there is storage (hooks/offline.ts). */
+function DeviceCacheProvider({ client, children }: { client: QueryClient; children: ReactNode }) {
+  const persister = getDevicePersister();
+  if (!persister) return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
+  return (
+    <PersistQueryClientProvider
+      client={client}
+      persistOptions={deviceCacheOptions(persister)}
+      // Waiting changes are sent, then kept answers are asked for again (hooks/offline.ts).
+      onSuccess={() => void afterRestore(client)}
+    >
+      {children}
+    </PersistQueryClientProvider>
   );
 }
 
@@ -32,6 +59,15 @@ export default function RootLayout() {
  */
 function RootNavigator() {
   const session = useSession();
+  if (session.waitingForConnection) {
+    return (
+      <CenteredMessage
+        title="Sightfan needs a connection once"
+        body="Nobody has signed in on this device yet, so there is nothing kept here to work from. Sign in once with a connection; after that the catalogue and your recent jobs open here with no signal."
+        testID="session-offline"
+      />
+    );
+  }
   if (session.isPending) return <CenteredMessage loading title="Opening Sightfan…" testID="session-loading" />;
   if (session.error) {
     return (

@@ -13,10 +13,17 @@ export function shouldRetry(failureCount: number, error: unknown): boolean {
   return failureCount < NETWORK_RETRIES;
 }
 
+/**
+ * A week without opening the app and the data kept on the device is dropped (a job may have moved
+ * on a lot). Answers stay in memory as long, or the device cache (hooks/offline.ts), which is
+ * written from memory, would lose a job a few minutes after it was last on screen.
+ */
+export const DEVICE_CACHE_MAX_AGE_MS = 7 * 24 * 60 * 60 * 1000;
+
 export function makeQueryClient(): QueryClient {
   return new QueryClient({
     defaultOptions: {
-      queries: { retry: shouldRetry, refetchOnWindowFocus: true },
+      queries: { retry: shouldRetry, refetchOnWindowFocus: true, gcTime: DEVICE_CACHE_MAX_AGE_MS },
       mutations: { retry: false },
     },
   });

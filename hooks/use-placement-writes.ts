@@ -11,16 +11,20 @@
  * values are kept beside them, and nothing more is sent for that mirror until the person chooses
  * "keep mine" (saved over the new version) or "use theirs" (the unsaved edits are dropped).
  */
+import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { ApiError } from '@/shared/api-client';
 import { describeError } from '@/shared/errors';
 import type { CreatePlacementBody, PlacementDto, ProjectDto } from '@/shared/schemas';
 import {
+  conflictKeys,
+  forgetConflict,
   useAddPlacementMutation,
   useRemovePlacementMutation,
   useUpdatePlacementMutation,
   type EditableFields,
   type PlacementEdits,
+  type StoredConflict,
 } from './use-projects';
 
 export type { EditableFields, PlacementEdits };
@@ -70,6 +74,7 @@ const setIn = <T>(m: ById<T>, id: number, v: T | undefined): ById<T> => {
 };
 
 export function usePlacementWrites(project: ProjectDto) {
+  const qc = useQueryClient();
   const update = useUpdatePlacementMutation(project.id);
   const add = useAddPlacementMutation(project.id);
   const remove = useRemovePlacementMutation(project.id);
@@ -99,17 +104,26 @@ export function usePlacementWrites(project: ProjectDto) {
   };
 
   /** Sends this placement's unsaved fields, unless a conflict is waiting for the person's choice. */
+  // The edits of the last save queued per mirror and not yet answered: a second save of exactly
+  // the same values (a blur, then "Save now", while offline) would only queue a duplicate.
+  const queuedRef = useRef(new Map<number, PlacementEdits>());
+
   const save = useCallback(
     (id: number) => {
       cancelTimer(id);
       const sent = localRef.current[id];
       if (!sent || conflictRef.current[id]) return;
+      const queued = queuedRef.current.get(id);
+      if (queued && same(queued, sent)) return;
+      queuedRef.current.set(id, sent);
       setProblems((p) => setIn(p, id, undefined));
       setInFlight((n) => n + 1);
-      update.mutate(
-        { placementId: id, edits: sent },
-        {
-          onSuccess: () => {
+      // The promise, not mutate()'s callbacks: TanStack Query calls those only for an observer's
+      // latest mutation, and saves queued one after another (offline, or a slow answer) all count.
+      update
+        .mutateAsync({ projectId: project.id, placementId: id, edits: sent })
+        .then(
+          () => {
             const now = localRef.current[id];
             if (now)
               setLocal(
@@ -117,7 +131,7 @@ export function usePlacementWrites(project: ProjectDto) {
                 without(now, (k) => k in sent && same(now[k], sent[k])),
               );
           },
-          onError: (err) => {
+          (err: unknown) => {
             if (err instanceof ApiError && err.status === 409 && err.current) {
               const mine = localRef.current[id] ?? sent;
               setConflict(id, { message: err.message, mine, theirs: pick(err.current as PlacementDto, keysOf(mine)) });
@@ -125,12 +139,30 @@ export function usePlacementWrites(project: ProjectDto) {
             }
             setProblems((p) => setIn(p, id, { message: describeError(err), fields: err instanceof ApiError ? err.fields : {} }));
           },
-          onSettled: () => setInFlight((n) => n - 1),
-        },
-      );
+        )
+        .finally(() => {
+          if (queuedRef.current.get(id) === sent) queuedRef.current.delete(id);
+          setInFlight((n) => n - 1);
+        });
     },
-    [update, setLocal, setConflict],
+    [update, setLocal, setConflict, project.id],
   );
+
+  // A change sent while this editor was not there to hear the answer (queued offline, the page
+  // reloaded since) may have been refused: its conflict waits in the cache; take it up here.
+  const stored = useQuery<StoredConflict[]>({
+    queryKey: conflictKeys.project(project.id),
+    queryFn: () => qc.getQueryData<StoredConflict[]>(conflictKeys.project(project.id)) ?? [],
+    enabled: false,
+  }).data;
+  useEffect(() => {
+    for (const c of stored ?? []) {
+      if (conflictRef.current[c.placementId]) continue;
+      const mine = { ...c.mine, ...localRef.current[c.placementId] };
+      setLocal(c.placementId, mine);
+      setConflict(c.placementId, { message: c.message, mine, theirs: pick(c.theirs, keysOf(mine)) });
+    }
+  }, [stored, setLocal, setConflict]);
 
   /**
    * Records an edit at once (the plan and the editor show it); saves it after `autosaveMs` of
@@ -163,33 +195,39 @@ export function usePlacementWrites(project: ProjectDto) {
   const keepMine = useCallback(
     (id: number) => {
       // The cache already holds their version (the 409 brought it): saving now writes over it knowingly.
+      forgetConflict(qc, project.id, id);
       setConflict(id, undefined);
       save(id);
     },
-    [save, setConflict],
+    [save, setConflict, qc, project.id],
   );
 
   const useTheirs = useCallback(
     (id: number) => {
       cancelTimer(id);
+      forgetConflict(qc, project.id, id);
       setConflict(id, undefined);
       setLocal(id, undefined);
     },
-    [setConflict, setLocal],
+    [setConflict, setLocal, qc, project.id],
   );
 
   /** Adds a placement after the writes already queued; rejects with the server's error. */
-  const create = useCallback(async (body: CreatePlacementBody): Promise<PlacementDto> => (await add.mutateAsync(body)).placement, [add]);
+  const create = useCallback(
+    async (body: CreatePlacementBody): Promise<PlacementDto> => (await add.mutateAsync({ projectId: project.id, body })).placement,
+    [add, project.id],
+  );
 
   /** Removes a placement after the writes already queued; its unsaved edits go with it. Rejects with the server's error. */
   const removePlacement = useCallback(
     async (id: number): Promise<void> => {
       cancelTimer(id);
-      await remove.mutateAsync(id);
+      await remove.mutateAsync({ projectId: project.id, placementId: id });
+      forgetConflict(qc, project.id, id);
       setLocal(id, undefined);
       setConflict(id, undefined);
     },
-    [remove, setLocal, setConflict],
+    [remove, setLocal, setConflict, qc, project.id],
   );
 
   // Leaving the plan saves what is still waiting for its autosave rather than dropping it.

@@ -73,7 +73,7 @@ export function usePlanEdits(project: ProjectDto) {
       return enqueue(async () => {
         try {
           // The version is read when the save runs, after the mirror writes queued before it.
-          await patchProject({ scene: next });
+          await patchProject({ projectId: project.id, body: { scene: next } });
           setLocalScene((current) => (current === next ? null : current));
           return true;
         } catch (e) {
@@ -86,7 +86,7 @@ export function usePlanEdits(project: ProjectDto) {
         }
       });
     },
-    [enqueue, patchProject, qc, key],
+    [enqueue, patchProject, qc, key, project.id],
   );
 
   /** A placement change from the plan (the end of a drag): saved at once through the shared path. */

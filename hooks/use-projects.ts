@@ -1,5 +1,5 @@
 /** Projects and their placements. Edits carry the version; a 409 brings back the current record. */
-import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import type { CreatePlacementBody, CreateProjectBody, PatchProjectBody, PlacementDto, ProjectDto } from '@/shared/schemas';
 import { ApiError } from '@/shared/api-client';
 import { api } from './api';
@@ -44,28 +44,99 @@ export function useCreateProjectMutation() {
   });
 }
 
+/** The keys the project writes are registered under (hooks/offline.ts gives each its defaults). */
+export const projectMutationKeys = {
+  updateProject: ['projects', 'update'] as const,
+  addPlacement: ['placements', 'add'] as const,
+  updatePlacement: ['placements', 'update'] as const,
+  removePlacement: ['placements', 'remove'] as const,
+};
+
+export type UpdateProjectVars = { projectId: number; body: Omit<PatchProjectBody, 'version'> };
+export type AddPlacementVars = { projectId: number; body: CreatePlacementBody };
+export type UpdatePlacementVars = { projectId: number; placementId: number; edits: PlacementEdits };
+export type RemovePlacementVars = { projectId: number; placementId: number };
+
 /**
- * A 409 replaces the cached project with the server's current one, so the screen shows what is true.
- * It runs in the project's write scope, after the mirror writes queued before it, and reads the
- * project's version when it runs (a mirror write before it raised it).
+ * The project writes' functions and cache updates, without the scope. The hooks below use them,
+ * and `registerOfflineWrites` (hooks/offline.ts) makes them the client's mutation defaults so a
+ * write queued while offline runs after a reload too: its variables carry everything it needs.
  */
+export function projectWriteOptions(qc: QueryClient) {
+  const detail = (id: number) => projectKeys.detail(id);
+  const refreshList = () => void qc.invalidateQueries({ queryKey: [...projectKeys.all, 'list'] });
+  return {
+    /**
+     * A 409 replaces the cached project with the server's current one, so the screen shows what is
+     * true. It runs in the project's write scope, after the mirror writes queued before it, and
+     * reads the project's version when it runs (a mirror write before it raised it). The change is
+     * shown in the cache at once (kept on the device while it waits for a connection).
+     */
+    updateProject: {
+      mutationKey: projectMutationKeys.updateProject,
+      mutationFn: ({ projectId, body }: UpdateProjectVars) => {
+        const version = qc.getQueryData<ProjectDto>(detail(projectId))?.version;
+        if (version === undefined) throw new Error('This project is not loaded; open it again.');
+        return api.projects.update(projectId, { ...body, version });
+      },
+      onMutate: ({ projectId, body }: UpdateProjectVars) => {
+        qc.setQueryData<ProjectDto>(detail(projectId), (old) => (old ? ({ ...old, ...body } as ProjectDto) : old));
+      },
+      onSuccess: ({ project }: { project: ProjectDto }) => {
+        qc.setQueryData(detail(project.id), project);
+        refreshList();
+      },
+      onError: (err: Error, { projectId }: UpdateProjectVars) => {
+        if (err instanceof ApiError && err.status === 409 && err.current) qc.setQueryData(detail(projectId), err.current as ProjectDto);
+        else void qc.invalidateQueries({ queryKey: detail(projectId) });
+      },
+    },
+    addPlacement: {
+      mutationKey: projectMutationKeys.addPlacement,
+      mutationFn: ({ projectId, body }: AddPlacementVars) => api.projects.addPlacement(projectId, body),
+      onSuccess: ({ placement, projectVersion }: { placement: PlacementDto; projectVersion: number }, { projectId }: AddPlacementVars) => {
+        qc.setQueryData<ProjectDto>(detail(projectId), (old) => replacePlacement(old, placement, projectVersion));
+        refreshList();
+      },
+    },
+    /** Reads the mirror's version when it runs; the edits show in the cache at once (see updateProject). */
+    updatePlacement: {
+      mutationKey: projectMutationKeys.updatePlacement,
+      mutationFn: ({ projectId, placementId, edits }: UpdatePlacementVars) => {
+        const version = qc.getQueryData<ProjectDto>(detail(projectId))?.placements.find((p) => p.id === placementId)?.version;
+        if (version === undefined) throw new Error('This mirror is no longer in the project; it may have been removed.');
+        return api.projects.updatePlacement(projectId, placementId, { ...edits, version });
+      },
+      onMutate: ({ projectId, placementId, edits }: UpdatePlacementVars) => {
+        qc.setQueryData<ProjectDto>(detail(projectId), (old) =>
+          old ? { ...old, placements: old.placements.map((p) => (p.id === placementId ? { ...p, ...edits } : p)) } : old,
+        );
+      },
+      onSuccess: ({ placement, projectVersion }: { placement: PlacementDto; projectVersion: number }, { projectId }: UpdatePlacementVars) =>
+        qc.setQueryData<ProjectDto>(detail(projectId), (old) => replacePlacement(old, placement, projectVersion)),
+      onError: (err: Error, vars: UpdatePlacementVars) => {
+        if (err instanceof ApiError && err.status === 409 && err.current) {
+          qc.setQueryData<ProjectDto>(detail(vars.projectId), (old) => replacePlacement(old, err.current as PlacementDto));
+          recordConflict(qc, vars, err);
+        } else void qc.invalidateQueries({ queryKey: detail(vars.projectId) });
+      },
+    },
+    removePlacement: {
+      mutationKey: projectMutationKeys.removePlacement,
+      mutationFn: ({ projectId, placementId }: RemovePlacementVars) => api.projects.removePlacement(projectId, placementId),
+      onSuccess: ({ projectVersion }: { projectVersion: number }, { projectId, placementId }: RemovePlacementVars) => {
+        qc.setQueryData<ProjectDto>(detail(projectId), (old) =>
+          old ? { ...old, version: projectVersion, placements: old.placements.filter((p) => p.id !== placementId) } : old,
+        );
+        refreshList();
+      },
+    },
+  };
+}
+
 export function useUpdateProjectMutation(id: number) {
   const qc = useQueryClient();
-  return useMutation({
-    scope: placementScope(id),
-    mutationFn: (body: Omit<PatchProjectBody, 'version'>) => {
-      const version = qc.getQueryData<ProjectDto>(projectKeys.detail(id))?.version;
-      if (version === undefined) throw new Error('This project is not loaded; open it again.');
-      return api.projects.update(id, { ...body, version });
-    },
-    onSuccess: ({ project }) => {
-      qc.setQueryData(projectKeys.detail(id), project);
-      void qc.invalidateQueries({ queryKey: [...projectKeys.all, 'list'] });
-    },
-    onError: (err) => {
-      if (err instanceof ApiError && err.status === 409 && err.current) qc.setQueryData(projectKeys.detail(id), err.current as ProjectDto);
-    },
-  });
+  return useMutation({ ...projectWriteOptions(qc).updateProject, scope: placementScope(id) });
 }
 
 /** The cached project with a placement saved and the project's version the server answered with. */
@@ -103,47 +174,55 @@ export type EditableFields = Pick<
 >;
 export type PlacementEdits = Partial<EditableFields>;
 
+/**
+ * A mirror's refused change (409), kept in the cache (and so on the device) until the person
+ * chooses: the editor may not be open when a change queued offline is sent, or the page may
+ * have been reloaded since. `usePlacementWrites` takes these up when the job opens.
+ */
+export interface StoredConflict {
+  placementId: number;
+  message: string;
+  mine: PlacementEdits;
+  theirs: PlacementDto;
+}
+
+export const conflictKeys = {
+  project: (projectId: number) => ['offline', 'conflicts', projectId] as const,
+};
+
+function recordConflict(qc: QueryClient, { projectId, placementId, edits }: UpdatePlacementVars, err: ApiError) {
+  qc.setQueryData<StoredConflict[]>(conflictKeys.project(projectId), (old = []) => {
+    const earlier = old.find((c) => c.placementId === placementId);
+    const mine = { ...earlier?.mine, ...edits };
+    return [
+      ...old.filter((c) => c.placementId !== placementId),
+      { placementId, message: err.message, mine, theirs: err.current as PlacementDto },
+    ];
+  });
+}
+
+/** Forgets a mirror's stored conflict once the person has chosen. */
+export function forgetConflict(qc: QueryClient, projectId: number, placementId: number) {
+  const key = conflictKeys.project(projectId);
+  const old = qc.getQueryData<StoredConflict[]>(key);
+  if (old?.some((c) => c.placementId === placementId))
+    qc.setQueryData<StoredConflict[]>(
+      key,
+      old.filter((c) => c.placementId !== placementId),
+    );
+}
+
 export function useAddPlacementMutation(projectId: number) {
   const qc = useQueryClient();
-  return useMutation({
-    scope: placementScope(projectId),
-    mutationFn: (body: CreatePlacementBody) => api.projects.addPlacement(projectId, body),
-    onSuccess: ({ placement, projectVersion }) => {
-      qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) => replacePlacement(old, placement, projectVersion));
-      void qc.invalidateQueries({ queryKey: [...projectKeys.all, 'list'] });
-    },
-  });
+  return useMutation({ ...projectWriteOptions(qc).addPlacement, scope: placementScope(projectId) });
 }
 
 export function useUpdatePlacementMutation(projectId: number) {
   const qc = useQueryClient();
-  return useMutation({
-    scope: placementScope(projectId),
-    mutationFn: ({ placementId, edits }: { placementId: number; edits: PlacementEdits }) => {
-      const version = qc.getQueryData<ProjectDto>(projectKeys.detail(projectId))?.placements.find((p) => p.id === placementId)?.version;
-      if (version === undefined) throw new Error('This mirror is no longer in the project; it may have been removed.');
-      return api.projects.updatePlacement(projectId, placementId, { ...edits, version });
-    },
-    onSuccess: ({ placement, projectVersion }) =>
-      qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) => replacePlacement(old, placement, projectVersion)),
-    onError: (err) => {
-      if (err instanceof ApiError && err.status === 409 && err.current) {
-        qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) => replacePlacement(old, err.current as PlacementDto));
-      }
-    },
-  });
+  return useMutation({ ...projectWriteOptions(qc).updatePlacement, scope: placementScope(projectId) });
 }
 
 export function useRemovePlacementMutation(projectId: number) {
   const qc = useQueryClient();
-  return useMutation({
-    scope: placementScope(projectId),
-    mutationFn: (placementId: number) => api.projects.removePlacement(projectId, placementId),
-    onSuccess: ({ projectVersion }, placementId) => {
-      qc.setQueryData<ProjectDto>(projectKeys.detail(projectId), (old) =>
-        old ? { ...old, version: projectVersion, placements: old.placements.filter((p) => p.id !== placementId) } : old,
-      );
-      void qc.invalidateQueries({ queryKey: [...projectKeys.all, 'list'] });
-    },
-  });
+  return useMutation({ ...projectWriteOptions(qc).removePlacement, scope: placementScope(projectId) });
 }

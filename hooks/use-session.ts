@@ -6,6 +6,7 @@ import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tansta
 import { ApiError } from '@/shared/api-client';
 import type { AcceptInvitationBody, ChangePasswordBody, ForgotPasswordBody, SignInBody, UpdateMeBody, UserDto } from '@/shared/schemas';
 import { api } from './api';
+import { forgetDeviceData } from './offline';
 
 /** The session changes only when this person acts, so a minute is plenty; focus refetch catches expiry. */
 export const SESSION_STALE_MS = 60_000;
@@ -33,6 +34,8 @@ export function useSession() {
   return {
     user: query.data ?? null,
     isPending: query.isPending,
+    /** Nothing kept on this device and no connection to ask: the question waits for one. */
+    waitingForConnection: query.isPending && query.fetchStatus === 'paused',
     /** Set only when the server could not be asked (offline, 5xx), never for "signed out". */
     error: query.isError ? query.error : null,
     refetch: query.refetch,
@@ -57,7 +60,11 @@ export function useSignOutMutation() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: () => api.auth.signOut(),
-    onSuccess: () => becomeSignedIn(queryClient, null),
+    onSuccess: async () => {
+      // Nothing of this person's stays on the device: the kept cache and any change still waiting.
+      await forgetDeviceData(queryClient);
+      becomeSignedIn(queryClient, null);
+    },
   });
 }
 

@@ -1,6 +1,8 @@
 /**
- * Builds the web app (`expo export`, then scripts/web-finish.ts: font preload, compressed copies)
- * when dist/ is missing or older than any source it is built from. Used by `npm start` and `npm test`.
+ * Builds the web app (`expo export`, then scripts/web-finish.ts: font preload, compressed copies;
+ * then scripts/offline-build.ts: web manifest and service worker, whose precache sees the finished
+ * index.html) when dist/ is missing or older than any source it is built from. Used by `npm start`
+ * and `npm test`.
  */
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
@@ -17,6 +19,7 @@ const SOURCES = [
   'assets',
   'public',
   'scripts/web-finish.ts',
+  'scripts/offline-build.ts',
   'app.json',
   'package.json',
   'babel.config.js',
@@ -38,7 +41,7 @@ function newestMtime(p: string): number {
 
 export function webBuildIsFresh(): boolean {
   const built = path.join(root, 'dist', 'index.html');
-  if (!fs.existsSync(built)) return false;
+  if (!fs.existsSync(built) || !fs.existsSync(path.join(root, 'dist', 'sw.js'))) return false;
   const builtAt = fs.statSync(built).mtimeMs;
   return SOURCES.every((s) => newestMtime(path.join(root, s)) <= builtAt);
 }
@@ -52,10 +55,13 @@ export function ensureWebBuild(): void {
   const started = Date.now();
   const env = { ...process.env, EXPO_PUBLIC_API_URL: '', CI: '1', EXPO_NO_TELEMETRY: '1' };
   const result = spawnSync('npx', ['expo', 'export', '--platform', 'web', '--output-dir', 'dist'], { cwd: root, stdio: 'inherit', env });
-  const finish = result.status === 0 ? spawnSync('npx', ['tsx', 'scripts/web-finish.ts'], { cwd: root, stdio: 'inherit', env }) : result;
-  if (result.status !== 0 || finish.status !== 0) {
+  const step = (script: string, before: ReturnType<typeof spawnSync>) =>
+    before.status === 0 ? spawnSync('npx', ['tsx', script], { cwd: root, stdio: 'inherit', env }) : before;
+  const finish = step('scripts/web-finish.ts', result);
+  const offline = step('scripts/offline-build.ts', finish);
+  if (offline.status !== 0) {
     console.error('web app: the build failed; see the messages above.');
-    process.exit((result.status || finish.status) ?? 1);
+    process.exit(offline.status ?? 1);
   }
   // Touch index.html so its time stamp marks the end of the build.
   const now = new Date();

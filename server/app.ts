@@ -259,7 +259,10 @@ function serveWebApp(app: Express, distDir: string): void {
       serveStatic: {
         index: false,
         setHeaders: (res, file) => {
+          // Everything not hashed (index.html, sw.js, the manifests, the favicon) is asked for again
+          // each time: a deploy must reach phones that keep the service worker.
           res.setHeader('Cache-Control', hashed(file) ? 'public, max-age=31536000, immutable' : 'no-cache');
+          if (file.endsWith('.webmanifest')) res.setHeader('Content-Type', 'application/manifest+json');
         },
       },
     }),

@@ -11,6 +11,7 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { AppText } from '@/components/ui/text';
 import { spacing } from '@/constants/theme';
+import { useIsOnline } from '@/hooks/use-connection';
 import { AUTOSAVE_MS, type PlacementEdits, type PlacementWrites } from '@/hooks/use-placement-writes';
 import type { ProjectEvaluation } from '@/shared/project-optics';
 import type { CatalogueItemDto, PlacementDto, ProjectDto, Scene } from '@/shared/schemas';
@@ -47,6 +48,7 @@ export function PlacementEditor(props: PlacementEditorProps) {
 
 function PlacementEditorInner({ project, scene, placement, writes, evaluation, catalogue, units, canEdit, onClose }: PlacementEditorProps) {
   const [width, setWidth] = useState(0);
+  const online = useIsOnline();
   const onLayout = (e: LayoutChangeEvent) => setWidth(e.nativeEvent.layout.width);
 
   if (!placement) {
@@ -84,6 +86,7 @@ function PlacementEditorInner({ project, scene, placement, writes, evaluation, c
             canEdit={canEdit}
             dirty={dirty}
             saving={writes.saving}
+            offline={!online}
             error={problem?.message || null}
             conflict={Boolean(conflict)}
           />
@@ -128,11 +131,11 @@ function PlacementEditorInner({ project, scene, placement, writes, evaluation, c
       {canEdit ? (
         <View style={styles.actions}>
           <Button
-            label={writes.saving ? 'Saving…' : 'Save now'}
+            label={writes.saving ? (online ? 'Saving…' : 'Waiting for a connection') : 'Save now'}
             testID="placement-save"
             onPress={saveNow}
             disabled={!dirty || Boolean(conflict)}
-            busy={writes.saving}
+            busy={writes.saving && online}
           />
           <PlacementDelete
             label={placement.label}

@@ -16,10 +16,13 @@ export interface SaveStatusProps {
   saving: boolean;
   error: string | null;
   conflict: boolean;
+  /** No connection: a save waits on the device until there is one. */
+  offline?: boolean;
 }
 
 /** The sentence for where this mirror's saving stands. */
-export function saveStatusText({ dirty, saving, error, conflict }: Omit<SaveStatusProps, 'canEdit'>): string {
+export function saveStatusText({ dirty, saving, error, conflict, offline }: Omit<SaveStatusProps, 'canEdit'>): string {
+  if (saving && offline) return 'Offline: kept on this device, sent when the connection returns.';
   if (saving) return 'Saving…';
   if (conflict) return 'Not saved: changed elsewhere.';
   if (error) return 'Not saved.';

@@ -46,6 +46,17 @@ export function ProjectWorkspace({ projectId, project, catalogue }: ProjectWorks
       />
     );
   }
+  const waiting = (q: UseQueryResult<unknown>) => !q.data && q.fetchStatus === 'paused';
+  if (waiting(project) || waiting(catalogue)) {
+    return (
+      <CenteredMessage
+        title="Not kept on this device"
+        body="This job was not opened here recently, so there is no copy to show offline. It opens as soon as there is a connection; your recent jobs open here with no signal."
+        testID="project-offline"
+        action={<TextLink href="/projects" label="Back to projects" testID="project-back" />}
+      />
+    );
+  }
   if (!project.data || !catalogue.data) return <CenteredMessage loading title="Opening the plan…" testID="project-loading" />;
   if (project.data.kind === 'vehicle') return <VehicleWorkspace key={project.data.id} project={project.data} catalogue={catalogue.data} />;
   return <Workspace key={project.data.id} project={project.data} catalogue={catalogue.data} />;

@@ -2,6 +2,7 @@
 import { StyleSheet, View } from 'react-native';
 import { AppText, Badge, TextLink } from '@/components/ui';
 import { layout, palette, spacing } from '@/constants/theme';
+import { useIsOnline } from '@/hooks/use-connection';
 import type { ProjectDto } from '@/shared/schemas';
 import { StateBadge } from '@/components/review/state-badge';
 
@@ -16,6 +17,7 @@ export interface WorkspaceHeaderProps {
 }
 
 export function WorkspaceHeader({ project, wide, saving, failed, unsaved }: WorkspaceHeaderProps) {
+  const online = useIsOnline();
   return (
     <View style={[styles.header, wide && styles.headerWide]}>
       <TextLink href="/projects" label="‹ Projects" testID="project-back" />
@@ -34,7 +36,7 @@ export function WorkspaceHeader({ project, wide, saving, failed, unsaved }: Work
       {wide ? <StateBadge state={project.state} testID="project-state" /> : null}
       {!project.canEdit ? <Badge label="Read only" tone="glass" testID="project-read-only" /> : null}
       <AppText variant="small" tone={failed ? 'stop' : 'muted'} testID="plan-save-status" aria-live="polite">
-        {saving ? 'Saving…' : failed && unsaved ? 'Not saved' : ''}
+        {saving ? (online ? 'Saving…' : 'Waiting') : failed && unsaved ? 'Not saved' : ''}
       </AppText>
     </View>
   );

@@ -12,7 +12,7 @@ import { AppText, Button, Card, Notice } from '@/components/ui';
 import { SafetyCautions } from '@/components/ui/safety-cautions';
 import { palette, spacing } from '@/constants/theme';
 import { useCatalogueQuery } from '@/hooks/use-catalogue';
-import { useQuickSaveMutation } from '@/hooks/use-quick-save';
+import { quickSaveVars, useQuickSaveMutation } from '@/hooks/use-quick-save';
 import { evaluateProject, type ProjectEvaluation } from '@/shared/project-optics';
 import {
   DEFAULT_QUICK_QUESTION,
@@ -115,15 +115,20 @@ export function QuickSizing() {
           <Button
             label="Save as a job"
             testID="quick-save"
-            busy={save.isPending}
+            busy={save.isPending && !save.isPaused}
+            disabled={save.isPaused}
             block
             onPress={() => {
-              save.mutate(
-                { question: ranking.answered as QuickQuestion, option: chosen },
-                { onSuccess: (projectId) => router.push(`/projects/${projectId}`) },
-              );
+              save.mutate(quickSaveVars(ranking.answered as QuickQuestion, chosen, new Date()), {
+                onSuccess: (projectId) => router.push(`/projects/${projectId}`),
+              });
             }}
           />
+          {save.isPaused ? (
+            <Notice tone="info" testID="quick-save-waiting">
+              Kept on this device: the job is sent as soon as there is a connection again.
+            </Notice>
+          ) : null}
           {save.isError ? <Notice tone="stop">{`The job was not saved: ${save.error.message}`}</Notice> : null}
           <PlacementLiveNumbers placementId={0} evaluation={evaluation} scene={quickScene(ranking.answered)} units={units} />
         </View>

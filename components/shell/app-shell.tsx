@@ -6,7 +6,10 @@ import { navItemsFor, roleLabels, sectionOf } from '@/constants/navigation';
 import { layout, palette, spacing } from '@/constants/theme';
 import { useIsWide } from '@/hooks/use-breakpoint';
 import type { UserDto } from '@/shared/schemas';
+import { ConnectionStatus } from './connection-status';
 import { NavLink } from './nav-link';
+import { UpdateNotice } from './update-notice';
+import { useKeepOnDevice } from './use-keep-on-device';
 
 export interface AppShellProps {
   user: UserDto;
@@ -23,6 +26,7 @@ export function AppShell({ user, pathname, children }: AppShellProps) {
   const insets = useSafeAreaInsets();
   const items = navItemsFor(user.role);
   const activeKey = sectionOf(pathname)?.key;
+  useKeepOnDevice(user);
 
   if (wide) {
     return (
@@ -35,6 +39,7 @@ export function AppShell({ user, pathname, children }: AppShellProps) {
           <View style={styles.railBrand}>
             <Wordmark onDark />
           </View>
+          <ConnectionStatus shape="rail" />
           <View style={styles.railItems}>
             {items.map((item) => (
               <NavLink key={item.key} item={item} shape="rail" active={item.key === activeKey} />
@@ -52,7 +57,10 @@ export function AppShell({ user, pathname, children }: AppShellProps) {
             </AppText>
           </View>
         </View>
-        <View style={styles.content}>{children}</View>
+        <View style={styles.content}>
+          <UpdateNotice />
+          {children}
+        </View>
       </View>
     );
   }
@@ -70,6 +78,8 @@ export function AppShell({ user, pathname, children }: AppShellProps) {
           </AppText>
         </View>
       </View>
+      <ConnectionStatus shape="band" />
+      <UpdateNotice />
       <View style={styles.content}>{children}</View>
       <View style={[styles.tabs, { paddingBottom: insets.bottom }]} role="navigation" aria-label="Sections">
         {items.map((item) => (

@@ -50,6 +50,8 @@ describe('usePlacementWrites', () => {
     await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenCalledTimes(2));
     expect(api.projects.updatePlacement).toHaveBeenLastCalledWith(3, 7, { heightM: 3, tiltDownRad: 0.2, version: 5 });
     await waitFor(() => expect(result.current.unsaved[7]).toBeUndefined());
+    // Both answers count: the first save's end is not lost behind the second (it once stayed "Saving…").
+    await waitFor(() => expect(result.current.saving).toBe(false));
   });
 
   it('keeps the unsaved values after a 409, beside the saved ones, and sends nothing more until the person chooses', async () => {
@@ -67,7 +69,11 @@ describe('usePlacementWrites', () => {
     expect(result.current.placements[0]).toMatchObject({ heightM: 3, notes: 'later', version: 5 });
     expect(api.projects.updatePlacement).toHaveBeenCalledTimes(1);
 
-    act(() => result.current.useTheirs(7));
+    // The stored copy of the conflict is forgotten too; its cache notice arrives on the next tick.
+    await act(async () => {
+      result.current.useTheirs(7);
+      await new Promise((r) => setTimeout(r, 0));
+    });
     expect(result.current.placements[0]).toMatchObject({ heightM: 2.4, notes: '' });
     expect(result.current.conflicts[7]).toBeUndefined();
   });
@@ -90,8 +96,11 @@ describe('usePlacementWrites', () => {
 
     act(() => result.current.writes.change(7, { heightM: 3 }));
     await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenCalledTimes(1));
-    act(() => result.current.plan.mutate({ notes: 'After the mirror' }));
-    await new Promise((r) => setTimeout(r, 50));
+    // The plan save shows its change in the cache at once (an update that arrives on the next tick).
+    await act(async () => {
+      result.current.plan.mutate({ projectId: 3, body: { notes: 'After the mirror' } });
+      await new Promise((r) => setTimeout(r, 50));
+    });
     expect(api.projects.update).not.toHaveBeenCalled();
 
     await act(async () => finishMirror({ placement: { ...placement, heightM: 3, version: 5 }, projectVersion: 2 }));

@@ -1,0 +1,254 @@
+/**
+ * What the device keeps and what waits for a connection (hooks/offline.ts): the kept cache
+ * survives a reload (a new client restoring from the same storage), a mirror edit made offline
+ * waits, is counted in the shell's connection line, and is sent after a reload when the
+ * connection returns; signing out leaves nothing of the person on the device.
+ */
+import { act, fireEvent, render, screen, waitFor } from '@testing-library/react';
+import { onlineManager, QueryClientProvider, useIsRestoring, useQuery, type QueryClient } from '@tanstack/react-query';
+import { PersistQueryClientProvider } from '@tanstack/react-query-persist-client';
+import type { ReactNode } from 'react';
+import { ConnectionStatus } from '@/components/shell/connection-status';
+import { api } from '@/hooks/api';
+import {
+  afterRestore,
+  DEVICE_CACHE_KEY,
+  deviceCacheOptions,
+  forgetDeviceData,
+  getDevicePersister,
+  registerOfflineWrites,
+} from '@/hooks/offline';
+import { usePlacementWrites } from '@/hooks/use-placement-writes';
+import { useProjectQuery } from '@/hooks/use-projects';
+import { useQuickSaveMutation, type QuickSaveVars } from '@/hooks/use-quick-save';
+import type { PlacementDto, ProjectDto } from '@/shared/schemas';
+import { testPlacement } from './fixtures';
+import { makeTestQueryClient } from './render';
+
+jest.mock('@/hooks/api', () => ({
+  api: {
+    auth: { signOut: jest.fn() },
+    projects: {
+      get: jest.fn(),
+      create: jest.fn(),
+      update: jest.fn(),
+      updatePlacement: jest.fn(),
+      removePlacement: jest.fn(),
+      addPlacement: jest.fn(),
+    },
+  },
+}));
+
+const placement: PlacementDto = testPlacement({ viewerId: null });
+const project = {
+  id: 3,
+  version: 1,
+  name: 'Dock',
+  scene: { walls: [], zones: [], viewers: [] },
+  placements: [placement],
+} as unknown as ProjectDto;
+
+/** A fresh app start over the device's storage: a new client, the offline writes registered, the kept cache restored. */
+function appStart(children: ReactNode): { client: QueryClient; unmount: () => void } {
+  const client = makeTestQueryClient();
+  registerOfflineWrites(client);
+  const persister = getDevicePersister(window.localStorage)!;
+  const { unmount } = render(
+    <PersistQueryClientProvider
+      client={client}
+      persistOptions={{ ...deviceCacheOptions(persister), throttleTime: 0 } as ReturnType<typeof deviceCacheOptions>}
+      onSuccess={() => void afterRestore(client)}
+    >
+      {children}
+    </PersistQueryClientProvider>,
+  );
+  return { client, unmount };
+}
+
+function JobName() {
+  const q = useProjectQuery(3);
+  return <p data-testid="job">{q.data ? q.data.name : q.fetchStatus}</p>;
+}
+
+/** Waits until the kept cache in storage satisfies `check` (the persister writes after a short throttle). */
+async function kept(check: (raw: string) => boolean) {
+  await waitFor(() => expect(check(window.localStorage.getItem(DEVICE_CACHE_KEY) ?? '')).toBe(true), { timeout: 3000 });
+}
+
+beforeEach(() => {
+  jest.clearAllMocks();
+  window.localStorage.clear();
+  act(() => onlineManager.setOnline(true));
+});
+afterAll(() => onlineManager.setOnline(true));
+
+describe('the cache kept on the device', () => {
+  it('shows a job opened before after a reload with no connection, without asking the server', async () => {
+    jest.mocked(api.projects.get).mockResolvedValue({ project });
+    const first = appStart(<JobName />);
+    await screen.findByText('Dock');
+    await kept((raw) => raw.includes('"detail",3]'));
+    first.unmount();
+    first.client.clear();
+
+    act(() => onlineManager.setOnline(false));
+    jest.mocked(api.projects.get).mockRejectedValue(new Error('no network'));
+    appStart(<JobName />);
+    await screen.findByText('Dock');
+    expect(api.projects.get).toHaveBeenCalledTimes(1);
+  });
+
+  it('asks the server again after a reload with a connection, though the kept answer is seconds old', async () => {
+    jest.mocked(api.projects.get).mockResolvedValue({ project });
+    const first = appStart(<JobName />);
+    await screen.findByText('Dock');
+    await kept((raw) => raw.includes('"detail",3]'));
+    first.unmount();
+    first.client.clear();
+
+    // Changed on the server meanwhile (sent for review from another device, say).
+    jest.mocked(api.projects.get).mockResolvedValue({ project: { ...project, name: 'Dock (changed elsewhere)' } });
+    appStart(<JobName />);
+    await screen.findByText('Dock (changed elsewhere)');
+    expect(api.projects.get).toHaveBeenCalledTimes(2);
+  });
+
+  it('keeps nothing that is not data the person works with offline (a sheet status, an invitation)', async () => {
+    function Other() {
+      useQuery({ queryKey: ['sheet', 3], queryFn: () => ({ ok: true }) });
+      useQuery({ queryKey: ['session', 'invitation', 'tok'], queryFn: () => ({ email: 'a@b.test' }) });
+      useProjectQuery(3);
+      return null;
+    }
+    jest.mocked(api.projects.get).mockResolvedValue({ project });
+    appStart(<Other />);
+    await kept((raw) => raw.includes('"detail",3]'));
+    const raw = window.localStorage.getItem(DEVICE_CACHE_KEY)!;
+    expect(raw).not.toContain('"sheet"');
+    expect(raw).not.toContain('invitation');
+  });
+});
+
+it('never keeps "nobody signed in", so a load right after signing in asks the server instead of showing the sign-in screen', async () => {
+  function Session() {
+    useQuery({ queryKey: ['session', 'me'], queryFn: () => null });
+    useProjectQuery(3);
+    return null;
+  }
+  jest.mocked(api.projects.get).mockResolvedValue({ project });
+  appStart(<Session />);
+  await kept((raw) => raw.includes('"detail",3]'));
+  expect(window.localStorage.getItem(DEVICE_CACHE_KEY)).not.toContain('"me"');
+});
+
+describe('a change made offline', () => {
+  function Editor() {
+    const q = useProjectQuery(3);
+    const writes = usePlacementWrites(q.data ?? project);
+    return (
+      <>
+        <ConnectionStatus shape="band" />
+        <button data-testid="raise" onClick={() => writes.change(7, { heightM: 3.2 })} />
+        <p data-testid="height">{String(writes.placements[0].heightM)}</p>
+      </>
+    );
+  }
+
+  it('waits, is counted in the connection line, and is sent with the version kept on the device when the connection returns after a reload', async () => {
+    jest.mocked(api.projects.get).mockResolvedValue({ project });
+    const first = appStart(<Editor />);
+    await kept((raw) => raw.includes('"detail",3]'));
+
+    act(() => onlineManager.setOnline(false));
+    act(() => screen.getByTestId('raise').click());
+    expect((await screen.findByTestId('connection-status-text')).textContent).toBe('Offline · 1 change waits to be sent');
+    expect(api.projects.updatePlacement).not.toHaveBeenCalled();
+    await kept((raw) => raw.includes('"mutations":[{'));
+    first.unmount();
+    first.client.clear();
+
+    // The page is loaded again, still offline: the waiting change and the shown height came back.
+    jest.mocked(api.projects.get).mockRejectedValue(new Error('no network'));
+    appStart(<Editor />);
+    await waitFor(() => expect(screen.getByTestId('connection-status-text').textContent).toBe('Offline · 1 change waits to be sent'));
+    expect(screen.getByTestId('height').textContent).toBe('3.2');
+
+    jest
+      .mocked(api.projects.updatePlacement)
+      .mockResolvedValue({ placement: { ...placement, heightM: 3.2, version: 5 }, projectVersion: 2 });
+    act(() => onlineManager.setOnline(true));
+    await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenCalledTimes(1));
+    expect(api.projects.updatePlacement).toHaveBeenCalledWith(3, 7, { heightM: 3.2, version: placement.version });
+    await waitFor(() => expect(screen.queryByTestId('connection-status-text')).toBeNull());
+  });
+
+  it('is dropped from the device with everything else kept when the person signs out', async () => {
+    jest.mocked(api.projects.get).mockResolvedValue({ project });
+    const { client } = appStart(<Editor />);
+    await kept((raw) => raw.includes('"detail",3]'));
+    act(() => onlineManager.setOnline(false));
+    act(() => screen.getByTestId('raise').click());
+    await screen.findByTestId('connection-status-text');
+
+    await act(() => forgetDeviceData(client));
+    expect(window.localStorage.getItem(DEVICE_CACHE_KEY)).toBeNull();
+    expect(
+      client
+        .getMutationCache()
+        .getAll()
+        .filter((m) => m.state.status === 'pending'),
+    ).toEqual([]);
+    await waitFor(() =>
+      expect(screen.queryByTestId('connection-status-text')?.textContent ?? '').toBe('Offline · showing what this device keeps'),
+    );
+  });
+});
+
+describe('"Save as a job" with no signal', () => {
+  const vars = {
+    project: {
+      name: 'Blind corner (test)',
+      kind: 'site',
+      notes: 'Started from quick sizing.',
+      scene: { walls: [], zones: [], viewers: [] },
+    },
+    placement: { label: 'M1', catalogueItemId: 1, positionM: [1, 2], heightM: 3, azimuthRad: 0, tiltDownRad: 0.2, viewerId: null },
+  } as unknown as QuickSaveVars;
+
+  function SaveButton() {
+    const save = useQuickSaveMutation();
+    // The kept cache is written from the moment it has been restored.
+    return useIsRestoring() ? null : <button data-testid="save" onClick={() => save.mutate(vars)} />;
+  }
+
+  it('waits on the device and, after a reload, creates the job with its mirror once the connection returns', async () => {
+    const first = appStart(<SaveButton />);
+    act(() => onlineManager.setOnline(false));
+    fireEvent.click(await screen.findByTestId('save'));
+    await kept((raw) => raw.includes('"quick","save"'));
+    expect(api.projects.create).not.toHaveBeenCalled();
+    first.unmount();
+    first.client.clear();
+
+    jest.mocked(api.projects.create).mockResolvedValue({ project: { ...project, id: 41 } });
+    jest.mocked(api.projects.addPlacement).mockResolvedValue({ placement, projectVersion: 2 });
+    appStart(<SaveButton />);
+    await act(async () => onlineManager.setOnline(true));
+    await waitFor(() => expect(api.projects.addPlacement).toHaveBeenCalledWith(41, vars.placement));
+    expect(api.projects.create).toHaveBeenCalledWith(vars.project);
+    expect(api.projects.create).toHaveBeenCalledTimes(1);
+  });
+});
+
+describe('the connection line', () => {
+  it('says nothing while online with nothing waiting, and is still a polite status region for screen readers', () => {
+    const { container } = render(
+      <QueryClientProvider client={makeTestQueryClient()}>
+        <ConnectionStatus shape="rail" />
+      </QueryClientProvider>,
+    );
+    const region = container.querySelector('[role="status"]')!;
+    expect(region.getAttribute('aria-live')).toBe('polite');
+    expect(region.textContent).toBe('');
+  });
+});
