@@ -255,8 +255,15 @@ function visualPieces(doc: PDFKit.PDFDocument, size: number, text: string, line:
         .map((c) => c.ch)
         .join('');
     } else if (odd) {
-      // Neutral characters inside right-to-left text: already in visual order; brackets mirrored.
-      t = chunk.map((c) => bidi.getMirroredCharacter(c.ch) ?? c.ch).join('');
+      // Neutral characters inside right-to-left text: already in visual order; brackets mirrored,
+      // where the face has the mirrored glyph (U+2215 mirrors to U+29F5, which no shipped face has:
+      // it is drawn unmirrored rather than as an empty box).
+      t = chunk
+        .map((c) => {
+          const m = bidi.getMirroredCharacter(c.ch);
+          return m && fontFace(c.font).hasGlyphForCodePoint(m.codePointAt(0)!) ? m : c.ch;
+        })
+        .join('');
     } else {
       t = chunk.map((c) => c.ch).join('');
     }

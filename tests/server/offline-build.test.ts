@@ -147,7 +147,7 @@ describe('serving the offline files', () => {
   });
 
   it('still answers an app route with the page, which carries the manifest link', async () => {
-    const res = await request(h.app).get('/quick');
+    const res = await request(h.app).get('/quick').set('Accept', 'text/html');
     expect(res.status).toBe(200);
     expect(res.text).toContain(`<link rel="manifest" href="/${MANIFEST_FILE}">`);
   });

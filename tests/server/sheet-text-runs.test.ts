@@ -58,7 +58,8 @@ describe('setting text in any accepted script', () => {
           }
         },
       ),
-      { numRuns: 300 },
+      // Pinned: a division slash in right-to-left text mirrors to a character no shipped face has.
+      { numRuns: 300, examples: [['\u2215\u061b', 'regular', undefined]] },
     );
   });
 
