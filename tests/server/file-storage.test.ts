@@ -2,41 +2,23 @@
  * The two storage backends pass the same tests: the folder under the data folder, and S3 through
  * the AWS SDK against s3rver (a local S3 fake this file starts on a port the OS picks).
  */
-import fs from 'node:fs';
-import http from 'node:http';
-import os from 'node:os';
 import path from 'node:path';
-import type { AddressInfo } from 'node:net';
 import { text } from 'node:stream/consumers';
-import S3rver from 's3rver';
 import { folderStorage, newStorageKey, s3Storage, StorageNotFound, type FileStorage } from '../../server/modules/files/storage';
+import { startFakeS3ForFile } from './fake-s3';
 
 const BUCKET = 'sightfan-test';
-let dir: string;
-let server: http.Server;
-let endpoint: string;
-beforeAll(async () => {
-  dir = fs.mkdtempSync(path.join(os.tmpdir(), 'sightfan-storage-'));
-  const fake = new S3rver({ directory: path.join(dir, 's3'), silent: true, configureBuckets: [{ name: BUCKET }] });
-  await fake.configureBuckets();
-  server = http.createServer(fake.callback());
-  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
-  endpoint = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
-});
-afterAll(async () => {
-  await new Promise((resolve) => server?.close(resolve));
-  fs.rmSync(dir, { recursive: true, force: true });
-});
+const s3 = startFakeS3ForFile(BUCKET);
 
 const backends: [string, () => FileStorage][] = [
-  ['the folder', () => folderStorage(path.join(dir, 'uploads'))],
+  ['the folder', () => folderStorage(path.join(s3.dir, 'uploads'))],
   [
     'S3 (s3rver)',
     () =>
       s3Storage({
         bucket: BUCKET,
         prefix: 'sightfan/',
-        endpoint,
+        endpoint: s3.endpoint,
         region: 'us-east-1',
         // s3rver's own fixed test credentials.
         accessKeyId: 'S3RVER',

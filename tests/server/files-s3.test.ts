@@ -4,11 +4,7 @@
  * object nor a row.
  */
 import fs from 'node:fs';
-import http from 'node:http';
-import os from 'node:os';
 import path from 'node:path';
-import type { AddressInfo } from 'node:net';
-import S3rver from 's3rver';
 import sharp from 'sharp';
 import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
 import { FILE_LIMITS, FILE_MESSAGES } from '../../shared/schemas/files';
@@ -16,23 +12,10 @@ import { folderStorage, type FileStorage } from '../../server/modules/files/stor
 import { StoredFile } from '../../server/modules/files/stored-file.entity';
 import { EMAIL, startHarness, type Harness } from './harness';
 import { jpeg, png } from './upload-fixtures';
+import { startFakeS3ForFile } from './fake-s3';
 
 const BUCKET = 'sightfan-uploads';
-let dir: string;
-let server: http.Server;
-let endpoint: string;
-beforeAll(async () => {
-  dir = fs.mkdtempSync(path.join(os.tmpdir(), 'sightfan-s3-'));
-  const fake = new S3rver({ directory: path.join(dir, 's3'), silent: true, configureBuckets: [{ name: BUCKET }] });
-  await fake.configureBuckets();
-  server = http.createServer(fake.callback());
-  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
-  endpoint = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
-});
-afterAll(async () => {
-  await new Promise((resolve) => server?.close(resolve));
-  fs.rmSync(dir, { recursive: true, force: true });
-});
+const s3 = startFakeS3ForFile(BUCKET);
 
 async function job(h: Harness) {
   const a = await h.signedIn(EMAIL.installer);
@@ -46,7 +29,7 @@ describe('with S3_BUCKET set', () => {
     h = await startHarness({
       env: {
         S3_BUCKET: BUCKET,
-        S3_ENDPOINT: endpoint,
+        S3_ENDPOINT: s3.endpoint,
         S3_PREFIX: 'jobs/',
         S3_ACCESS_KEY_ID: 'S3RVER',
         S3_SECRET_ACCESS_KEY: 'S3RVER',
@@ -57,7 +40,7 @@ describe('with S3_BUCKET set', () => {
 
   const objects = async () => {
     const client = new S3Client({
-      endpoint,
+      endpoint: s3.endpoint,
       region: 'us-east-1',
       forcePathStyle: true,
       credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' },
@@ -91,7 +74,7 @@ describe('with S3_BUCKET set', () => {
 describe('a failed upload', () => {
   let h: Harness;
   let failOn: 'none' | 'thumbnail' | 'fill-the-job' = 'none';
-  const root = () => path.join(dir, 'failing');
+  const root = () => path.join(s3.dir, 'failing');
   const onDisk = () => (fs.existsSync(root()) ? fs.readdirSync(root(), { recursive: true }).filter((f) => String(f).length > 3) : []);
   beforeAll(async () => {
     const real = folderStorage(root());

@@ -10,7 +10,7 @@ import { fromBuffer } from 'file-type';
 import request from 'supertest';
 import { FILE_LIMITS, FILE_MESSAGES, fileDto } from '../../shared/schemas/files';
 import { StoredFile } from '../../server/modules/files/stored-file.entity';
-import { EMAIL, startHarness, type Harness } from './harness';
+import { crossingMirror, EMAIL, startHarness, type Harness } from './harness';
 import { elf, jpeg, mz, pdf, png, pngClaiming, svgWithScript, zipAndHtmlTail } from './upload-fixtures';
 
 let h: Harness;
@@ -44,15 +44,7 @@ async function newJob(name: string): Promise<number> {
 async function newMirror(projectId: number): Promise<number> {
   const a = await owner();
   const catalogueItemId = (await a.get('/api/catalogue')).body.items[0].id;
-  const res = await a.post(`/api/projects/${projectId}/placements`).send({
-    label: 'M1',
-    catalogueItemId,
-    positionM: [2.5, 0.4],
-    heightM: 3,
-    azimuthRad: Math.PI / 2,
-    tiltDownRad: 0.3,
-    viewerId: 'v1',
-  });
+  const res = await a.post(`/api/projects/${projectId}/placements`).send(crossingMirror(catalogueItemId));
   expect(res.status).toBe(201);
   return res.body.placement.id;
 }

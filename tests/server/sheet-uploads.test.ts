@@ -10,7 +10,7 @@ import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
 import type request from 'supertest';
-import { EMAIL, startHarness, type Harness } from './harness';
+import { crossingMirror, EMAIL, startHarness, type Harness } from './harness';
 import { jpeg } from './upload-fixtures';
 
 type Agent = ReturnType<typeof request.agent>;
@@ -145,17 +145,7 @@ it('shows each mirror’s newest photo beside its numbers, and says which file i
   };
   const job = (await a.post('/api/projects').send({ name: 'Mirror photos (demo)', scene })).body.project;
   const catalogueItemId = (await a.get('/api/catalogue')).body.items[0].id;
-  const mirror = (
-    await a.post(`/api/projects/${job.id}/placements`).send({
-      label: 'M1',
-      catalogueItemId,
-      positionM: [2.5, 0.4],
-      heightM: 3,
-      azimuthRad: Math.PI / 2,
-      tiltDownRad: 0.3,
-      viewerId: 'v1',
-    })
-  ).body.placement;
+  const mirror = (await a.post(`/api/projects/${job.id}/placements`).send(crossingMirror(catalogueItemId))).body.placement;
   const older = await a
     .post(`/api/projects/${job.id}/files`)
     .field('kind', 'photo')
