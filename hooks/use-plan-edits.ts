@@ -4,7 +4,7 @@
  * placements' writes through the one placement write path (use-placement-writes.ts), which the
  * placement editor shares.
  */
-import { useQueryClient } from '@tanstack/react-query';
+import { onlineManager, useQueryClient } from '@tanstack/react-query';
 import { useCallback, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { ApiError } from '@/shared/api-client';
 import { describeError } from '@/shared/errors';
@@ -66,11 +66,22 @@ export function usePlanEdits(project: ProjectDto) {
     deletePlacement: (id: number) => Promise<boolean>;
   } | null>(null);
 
+  /**
+   * Offline, each save goes to the mutation queue at once (not behind the previous save's promise,
+   * which waits for the connection): every one is then a paused write kept on the device, so a
+   * reload loses none of them. The project's mutation scope still runs them one after another,
+   * each reading the version the previous one returned.
+   */
+  const now = useCallback(<T>(run: () => Promise<T>): Promise<T> => {
+    setPending((n) => n + 1);
+    return run().finally(() => setPending((n) => n - 1));
+  }, []);
+
   const saveScene = useCallback(
     (next: Scene) => {
       setLocalScene(next);
       setProblem(null);
-      return enqueue(async () => {
+      return (onlineManager.isOnline() ? enqueue : now)(async () => {
         try {
           // The version is read when the save runs, after the mirror writes queued before it.
           await patchProject({ projectId: project.id, body: { scene: next } });
@@ -86,7 +97,7 @@ export function usePlanEdits(project: ProjectDto) {
         }
       });
     },
-    [enqueue, patchProject, qc, key, project.id],
+    [enqueue, now, patchProject, qc, key, project.id],
   );
 
   /** A placement change from the plan (the end of a drag): saved at once through the shared path. */

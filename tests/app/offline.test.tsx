@@ -19,6 +19,7 @@ import {
   registerOfflineWrites,
 } from '@/hooks/offline';
 import { usePlacementWrites } from '@/hooks/use-placement-writes';
+import { usePlanEdits } from '@/hooks/use-plan-edits';
 import { useProjectQuery } from '@/hooks/use-projects';
 import { useQuickSaveMutation, type QuickSaveVars } from '@/hooks/use-quick-save';
 import type { PlacementDto, ProjectDto } from '@/shared/schemas';
@@ -180,6 +181,48 @@ describe('a change made offline', () => {
     await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenCalledTimes(1));
     expect(api.projects.updatePlacement).toHaveBeenCalledWith(3, 7, { heightM: 3.2, version: placement.version });
     await waitFor(() => expect(screen.queryByTestId('connection-status-text')).toBeNull());
+  });
+
+  it('keeps every plan edit made offline through a reload, and sends them in order, each with the version the one before returned', async () => {
+    const withViewer = (id: string) => ({ id, name: id, positionM: [1, 1] as [number, number], eyeHeightM: 1.6 });
+    const sceneA = { walls: [], zones: [], viewers: [withViewer('a')] };
+    const sceneB = { walls: [], zones: [], viewers: [withViewer('a'), withViewer('b')] };
+    function Plan() {
+      const q = useProjectQuery(3);
+      const edits = usePlanEdits(q.data ?? project);
+      return (
+        <>
+          <ConnectionStatus shape="band" />
+          <button data-testid="edit-a" onClick={() => void edits.saveScene(sceneA)} />
+          <button data-testid="edit-b" onClick={() => void edits.saveScene(sceneB)} />
+        </>
+      );
+    }
+    jest.mocked(api.projects.get).mockResolvedValue({ project });
+    const first = appStart(<Plan />);
+    await kept((raw) => raw.includes('"detail",3]'));
+
+    act(() => onlineManager.setOnline(false));
+    act(() => screen.getByTestId('edit-a').click());
+    act(() => screen.getByTestId('edit-b').click());
+    expect((await screen.findByTestId('connection-status-text')).textContent).toBe('Offline · 2 changes wait to be sent');
+    await kept((raw) => (raw.match(/"mutationKey":\["projects","update"\]/g) ?? []).length === 2);
+    first.unmount();
+    first.client.clear();
+
+    jest.mocked(api.projects.get).mockRejectedValue(new Error('no network'));
+    appStart(<Plan />);
+    await waitFor(() => expect(screen.getByTestId('connection-status-text').textContent).toBe('Offline · 2 changes wait to be sent'));
+
+    jest
+      .mocked(api.projects.update)
+      .mockImplementation(async (_id, body) => ({ project: { ...project, scene: body.scene!, version: body.version + 1 } as ProjectDto }));
+    act(() => onlineManager.setOnline(true));
+    await waitFor(() => expect(api.projects.update).toHaveBeenCalledTimes(2));
+    expect(jest.mocked(api.projects.update).mock.calls.map(([, body]) => [body.scene?.viewers?.length, body.version])).toEqual([
+      [1, 1],
+      [2, 2],
+    ]);
   });
 
   it('is dropped from the device with everything else kept when the person signs out', async () => {
