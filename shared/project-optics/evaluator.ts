@@ -82,6 +82,15 @@ function unionAll(regions: readonly MultiPolygon[]): MultiPolygon {
 export class ProjectEvaluator {
   private cache: CacheEntry | null = null;
   private unions = new Map<string, UnionCache>();
+  /**
+   * Each zone's share as last worked out, with the outline and the union it was worked out from:
+   * clipping a large zone against the mirrors' union is the costly part of an evaluation, and most
+   * evaluations (another zone edited, a viewer renamed) leave both unchanged.
+   */
+  private shares = new Map<
+    string,
+    { polygon: SceneZone['polygonM']; polygonJson: string; covered: MultiPolygon; fraction: number; coveredM2: number }
+  >();
   /** A vehicle job's last evaluation and what it was made from (scoring is one call; no finer cache). */
   private lastVehicle: { key: string; catalogue: readonly CatalogueItemDto[]; result: ProjectEvaluation } | null = null;
 
@@ -186,11 +195,19 @@ export class ProjectEvaluator {
       return regions;
     };
 
+    const usedShares = new Set<string>();
     const zones = input.scene.zones.map((z): EvaluatedZone => {
       try {
         const covered = this.unionFor(zoneKey(z), regionsForZone(z));
+        usedShares.add(z.id);
+        const hit = this.shares.get(z.id);
+        if (hit && hit.covered === covered && (hit.polygon === z.polygonM || hit.polygonJson === JSON.stringify(z.polygonM))) {
+          hit.polygon = z.polygonM;
+          return { zoneId: z.id, fraction: hit.fraction, coveredM2: hit.coveredM2, covered, problem: null };
+        }
         // zoneCoverage unions its regions itself; handing it the one union already made is the same set.
         const { fraction, coveredM2 } = zoneCoverage({ zone: [z.polygonM], regions: [covered] });
+        this.shares.set(z.id, { polygon: z.polygonM, polygonJson: JSON.stringify(z.polygonM), covered, fraction, coveredM2 });
         return { zoneId: z.id, fraction, coveredM2, covered, problem: null };
       } catch {
         // polygon-clipping can fail on near-degenerate input; say so rather than stop the plan.
@@ -205,6 +222,7 @@ export class ProjectEvaluator {
     });
     // Keep only what this evaluation used, so a long drag does not grow the cache without bound.
     cache.byKey = used;
+    for (const id of [...this.shares.keys()]) if (!usedShares.has(id)) this.shares.delete(id);
     return { placements, zones };
   }
 }

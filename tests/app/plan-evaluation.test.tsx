@@ -44,4 +44,32 @@ describe('the plan’s cached evaluation', () => {
       evaluateProject({ scene, placements: movedAgain, catalogue }).zones,
     );
   });
+
+  it('answers as a fresh evaluator after zone edits that leave the mirrors alone (reshaped, renamed, moved under the same id)', () => {
+    const evaluator = new PlanEvaluator();
+    evaluator.evaluate({ scene, placements, catalogue });
+    const [z0, z1] = scene.zones;
+    const edits: Scene[] = [
+      // Renamed: the kept share is right.
+      { ...scene, zones: [{ ...z0, name: `${z0.name} (renamed)` }, z1] },
+      // Reshaped in place, a new outline under the same id: worked out again.
+      { ...scene, zones: [{ ...z0, polygonM: z0.polygonM.map(([x, y]) => [x + 1.5, y] as [number, number]) }, z1] },
+      // The two zones' outlines swapped between their ids.
+      {
+        ...scene,
+        zones: [
+          { ...z0, polygonM: z1.polygonM },
+          { ...z1, polygonM: z0.polygonM },
+        ],
+      },
+      // Back to the start: equal outlines in new arrays.
+      { ...scene, zones: scene.zones.map((z) => ({ ...z, polygonM: z.polygonM.map((p) => [...p] as [number, number]) })) },
+    ];
+    for (const edited of edits) {
+      expectSameFractions(
+        evaluator.evaluate({ scene: edited, placements, catalogue }).zones,
+        evaluateProject({ scene: edited, placements, catalogue }).zones,
+      );
+    }
+  });
 });
