@@ -10,7 +10,7 @@ import { resolveUnits } from '../../../shared/units';
 import { HttpError } from '../../http-error';
 import { defaultPaper } from '../../pdf/render-sheet';
 import type { SheetApproval } from '../../pdf/approval-mark';
-import { sheetFilename, type SheetInput } from '../../pdf/sheet-model';
+import { sheetFilename, type SheetFilesInput, type SheetInput } from '../../pdf/sheet-model';
 import { roleWords } from '../review/notices';
 import type { SheetWork } from '../../workers/sheet-pool';
 import { toCatalogueItemDto } from '../catalogue/catalogue.dto';
@@ -24,7 +24,6 @@ import { SheetEvaluation } from './sheet-evaluation.entity';
 import { SheetRevision } from './sheet-revision.entity';
 import sharp from 'sharp';
 import type { SheetImages } from '../../pdf/draw-plan';
-import type { SheetFilesInput } from '../../pdf/sheet-model';
 import { StoredFile } from '../files/stored-file.entity';
 import type { FileStorage } from '../files/storage';
 
