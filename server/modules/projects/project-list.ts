@@ -4,25 +4,27 @@
  * open-thread counts as correlated subqueries, so the cost does not grow with the number of
  * projects (no N+1) and nothing is turned into entities only to be turned into JSON again.
  *
- * The access rule is the same filter every other project query uses (`visibleProjects`), given to
- * the ORM's query builder, which writes each database's own SQL.
+ * The access rule is the same filter every other project query uses (`visibleProjectsBy`), given to
+ * the ORM's query builder, which writes each database's own SQL once per shape of the list.
  */
 import { sql, type FilterQuery } from '@mikro-orm/core';
-import type { EntityManager } from '@mikro-orm/knex';
+import type { EntityManager, QueryBuilder } from '@mikro-orm/knex';
+import { runCompiled } from '../../compiled-query';
+import { containsPattern, likePattern } from '../../text-search';
 import type { ProjectState, ProjectSummaryDto } from '../../../shared/schemas';
 import { fromDbDate, type DbDate } from '../../db-date';
 import type { User } from '../users/user.entity';
 import { ProjectComment } from '../review/comment.entity';
 import { Placement } from './placement.entity';
 import { Project } from './project.entity';
-import { visibleProjects } from './project-access';
+import { visibleProjectsBy } from './project-access';
 
 export type ProjectListSort = 'updated' | 'name' | 'customer';
 
 const iso = (d: DbDate) => fromDbDate(d).toISOString();
 const isoOrNull = (d: DbDate | null) => (d == null ? null : iso(d));
 
-interface SummaryRow {
+export interface SummaryRow {
   id: number;
   name: string;
   customer: string;
@@ -49,7 +51,7 @@ interface SummaryRow {
 }
 
 /** The same fields `toProjectSummaryDto` gives for a loaded project, from one row. */
-function toSummary(r: SummaryRow): ProjectSummaryDto {
+export function toSummary(r: SummaryRow): ProjectSummaryDto {
   const approved = r.state === 'approved' && r.approved_at != null && r.approved_revision != null && r.approved_hash;
   return {
     state: r.state,
@@ -81,13 +83,41 @@ function toSummary(r: SummaryRow): ProjectSummaryDto {
   };
 }
 
-/** The projects `user` may see that match `filter` (the search), in the chosen order, as summaries. */
+/**
+ * The projects `user` may see whose name, customer or site contains `search` (all when it is
+ * undefined), in the chosen order, as summaries. The SQL is written once per shape (the access
+ * rule's kind, searching or not, the order) and run with this request's ids and pattern
+ * (server/compiled-query.ts).
+ */
 export async function projectSummaries(
   em: EntityManager,
   user: User,
-  filter: FilterQuery<Project> | undefined,
+  search: string | undefined,
   sort: ProjectListSort,
 ): Promise<ProjectSummaryDto[]> {
+  const access = user.role === 'installer' ? 'own' : 'organization';
+  const values = {
+    userId: user.id,
+    organizationId: user.organization.id,
+    ...(search === undefined ? {} : { pattern: containsPattern(search) }),
+  };
+  const rows = await runCompiled<SummaryRow>(
+    em,
+    `project-list:${access}:${search === undefined ? 'all' : 'search'}:${sort}`,
+    values,
+    (slot) => summaryQuery(em, user.role, slot, search !== undefined, sort),
+  );
+  return rows.map(toSummary);
+}
+
+/** The list's query, for the slots' stand-ins (exported for the test that compares it built afresh with the kept statement). */
+export function summaryQuery(
+  em: EntityManager,
+  role: User['role'],
+  slot: (name: string) => number | string,
+  searching: boolean,
+  sort: ProjectListSort,
+): QueryBuilder<Project> {
   const placements = em
     .createQueryBuilder(Placement, 'pl')
     .count()
@@ -104,7 +134,10 @@ export async function projectSummaries(
       : sort === 'customer'
         ? { customer: 'asc' as const, name: 'asc' as const }
         : { updatedAt: 'desc' as const };
-  const qb = em
+  const pattern = searching ? likePattern(em, slot('pattern') as string) : undefined;
+  const filter: FilterQuery<Project>[] = [visibleProjectsBy(role, slot('userId') as number, slot('organizationId') as number)];
+  if (pattern) filter.push({ $or: [{ name: pattern }, { customer: pattern }, { site: pattern }] });
+  return em
     .createQueryBuilder(Project, 'p')
     .select([
       'p.id',
@@ -133,8 +166,6 @@ export async function projectSummaries(
     ])
     .join('p.owner', 'o')
     .leftJoin('p.reviewer', 'r')
-    .where({ $and: [visibleProjects(user), ...(filter ? [filter] : [])] })
+    .where({ $and: filter })
     .orderBy({ ...orderBy, id: 'asc' });
-  const rows = await qb.execute<SummaryRow[]>('all', false);
-  return rows.map(toSummary);
 }

@@ -29,7 +29,6 @@ import { projectSummaries } from './project-list';
 import { toPlacementDto, toProjectDto } from './project.dto';
 import { onStaleVersion } from '../../write-conflicts';
 import { requestEm } from '../../middleware/request-context';
-import { containsText } from '../../text-search';
 import { checkVehiclePlacement } from './vehicle-placement';
 import type { SheetWork } from '../../workers/sheet-pool';
 import { factChanges, placementFacts, projectChanges, recordEvent } from '../review/audit';
@@ -120,11 +119,7 @@ export function projectsRoutes(work: SheetWork, files: { storage: FileStorage; l
 
   r.get('/', async (req, res) => {
     const q = parseOr400(listQuery, req.query, 'The search');
-    const em = requestEm();
-    const search = q.q
-      ? { $or: [{ name: containsText(em, q.q) }, { customer: containsText(em, q.q) }, { site: containsText(em, q.q) }] }
-      : undefined;
-    res.json({ projects: await projectSummaries(em, req.user!, search, q.sort) });
+    res.json({ projects: await projectSummaries(requestEm(), req.user!, q.q || undefined, q.sort) });
   });
 
   r.post('/', requireRole('installer'), async (req, res) => {
