@@ -4,19 +4,18 @@
  */
 import fs from 'node:fs';
 import path from 'node:path';
-import { randomUUID } from 'node:crypto';
 import express, { type Express, type Request } from 'express';
 import expressStaticGzip from 'express-static-gzip';
-import { pinoHttp } from 'pino-http';
 import session from 'express-session';
 import helmet from 'helmet';
 import cors from 'cors';
 import type { AppConfig } from './config';
 import type { Orm } from './db';
 import type { Logger } from './logger';
-import { apiNotFound, errorHandler, safePath } from './middleware/errors';
+import { apiNotFound, errorHandler } from './middleware/errors';
 import { loadUser } from './middleware/auth';
 import { requestContext } from './middleware/request-context';
+import { requestLog } from './middleware/request-log';
 import { sameOriginOnly } from './middleware/same-origin';
 import { authRoutes } from './modules/auth/auth.routes';
 import { SignInLimiter, type SignInLimits, DEFAULT_SIGN_IN_LIMITS } from './modules/auth/sign-in-limiter';
@@ -61,9 +60,6 @@ export interface SightfanApp {
   close(): void;
 }
 
-/** A request id from the proxy is kept when it looks like one; otherwise a new one is made. */
-const INCOMING_REQUEST_ID = /^[A-Za-z0-9._:-]{8,64}$/;
-
 export const SESSION_COOKIE = 'sightfan.sid';
 const SESSION_DAYS = 14;
 
@@ -78,25 +74,8 @@ export function createApp(deps: AppDeps): SightfanApp {
   // the client writes itself.
   app.set('trust proxy', config.trustProxy);
 
-  // One JSON line per request with its id, method, route, status and time; never headers or bodies.
-  app.use(
-    pinoHttp({
-      logger: log.pino,
-      genReqId: (req, res) => {
-        const incoming = req.headers['x-request-id'];
-        const id = typeof incoming === 'string' && INCOMING_REQUEST_ID.test(incoming) ? incoming : randomUUID();
-        res.setHeader('X-Request-Id', id);
-        return id;
-      },
-      customProps: (req) => ({ reqId: req.id }),
-      customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info'),
-      serializers: {
-        req: (req: { method: string; raw: express.Request }) => ({ method: req.method, path: safePath(req.raw) }),
-        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
-      },
-      autoLogging: { ignore: (req) => req.url === '/api/health' || req.url === '/api/ready' },
-    }),
-  );
+  // One JSON line per request with its id, method, path, status and time; never headers or bodies.
+  app.use(requestLog(log.pino));
 
   app.use(
     helmet({

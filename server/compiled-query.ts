@@ -18,7 +18,9 @@
  * order, the access rule's kind. Values go through slots, never into the key.
  */
 import type { Platform } from '@mikro-orm/core';
-import type { EntityManager, QueryBuilder } from '@mikro-orm/knex';
+import type { EntityManager, Knex, QueryBuilder } from '@mikro-orm/knex';
+import { SqlitePlatform } from '@mikro-orm/sqlite';
+import type { Database, Statement } from 'sqlite3';
 
 type SlotValue = number | string;
 
@@ -47,7 +49,7 @@ export async function runCompiled<T>(
   em: EntityManager,
   shape: string,
   values: SlotValues,
-  build: (slot: (name: string) => SlotValue) => QueryBuilder<object>,
+  build: (slot: (name: string) => SlotValue) => Buildable,
 ): Promise<T[]> {
   const platform = em.getPlatform();
   let shapes = cache.get(platform);
@@ -62,10 +64,52 @@ export async function runCompiled<T>(
     if (!(p.slot in values)) throw new Error(`runCompiled(${shape}): no value for the slot "${p.slot}".`);
     return values[p.slot];
   });
-  return em.getConnection().execute<T[]>(compiled.sql, params, 'all', em.getTransactionContext());
+  const tx = em.getTransactionContext();
+  if (!tx && em.getPlatform() instanceof SqlitePlatform) return runPreparedOnSqlite<T>(em, compiled.sql, params);
+  return em.getConnection().execute<T[]>(compiled.sql, params, 'all', tx);
 }
 
-function compile(values: SlotValues, build: (slot: (name: string) => SlotValue) => QueryBuilder<object>): Compiled {
+/** SQLite statements prepared once per connection (the app has one), by their SQL. */
+const prepared = new WeakMap<object, Map<string, Statement>>();
+
+/**
+ * Outside a transaction on SQLite: the kept SQL as a prepared statement on the pool's connection.
+ * The ORM's execute() writes every value into the SQL text, so SQLite parsed and planned the
+ * statement anew on each run, on its one connection that every request waits for. The statement
+ * is reported to knex's `query` listeners as the ORM's own are (tests count statements that way).
+ */
+async function runPreparedOnSqlite<T>(em: EntityManager, sql: string, params: unknown[]): Promise<T[]> {
+  const client = em.getKnex().client as KnexClientWithPool;
+  const db = (await client.acquireConnection()) as Database;
+  try {
+    let statements = prepared.get(db);
+    if (!statements) prepared.set(db, (statements = new Map()));
+    let statement = statements.get(sql);
+    if (!statement) statements.set(sql, (statement = db.prepare(sql)));
+    client.emit('query', { sql, bindings: params, method: 'select' });
+    return await new Promise<T[]>((resolve, reject) =>
+      statement.all(params, (err: Error | null, rows: T[]) => {
+        if (err) {
+          statements.delete(sql);
+          reject(err);
+        } else resolve(rows);
+      }),
+    );
+  } finally {
+    client.releaseConnection(db);
+  }
+}
+
+interface KnexClientWithPool {
+  acquireConnection(): Promise<unknown>;
+  releaseConnection(connection: unknown): void;
+  emit(event: 'query', data: { sql: string; bindings: unknown[]; method: string }): void;
+}
+
+/** The ORM's query builder, or knex's own for a plain read of a few columns. */
+type Buildable = QueryBuilder<object> | Knex.QueryBuilder;
+
+function compile(values: SlotValues, build: (slot: (name: string) => SlotValue) => Buildable): Compiled {
   const names = Object.keys(values);
   const standIns = new Map<SlotValue, string>();
   names.forEach((name, i) => standIns.set(standIn(typeof values[name] === 'number' ? 'number' : 'string', i), name));
@@ -77,7 +121,7 @@ function compile(values: SlotValues, build: (slot: (name: string) => SlotValue) 
   });
   // knex's own SQL, with `?` for every value on both databases (the query builder's getQuery()
   // numbers them `$1…` on PostgreSQL, which the connection's execute() does not fill in).
-  const { sql, bindings } = qb.getKnexQuery().toSQL();
+  const { sql, bindings } = ('getKnexQuery' in qb ? qb.getKnexQuery() : qb).toSQL();
   if (sql.includes(STRING_MARK) || NUMBER_MARK.test(sql))
     throw new Error('runCompiled: a slot was written into the SQL instead of passed as a value.');
   const params = bindings.map((value) => {

@@ -15,7 +15,7 @@ export interface Logger {
   error(message: string, err?: unknown): void;
   /** The same log with fields bound to every line (e.g. the request id). */
   child(bindings: Record<string, unknown>): Logger;
-  /** The pino instance underneath, for pino-http. */
+  /** The pino instance underneath, for the request log (server/middleware/request-log.ts). */
   readonly pino: PinoLogger;
 }
 

@@ -8,10 +8,11 @@ declare module 'express-session' {
 }
 
 declare global {
-  // eslint-disable-next-line @typescript-eslint/no-namespace
   namespace Express {
     interface Request {
       user?: User;
+      /** The request's id (server/middleware/request-log.ts), on every log line it causes. */
+      id?: string;
     }
   }
 }

@@ -5,6 +5,7 @@ import type { Role } from '../../shared/schemas';
 import { HttpError } from '../http-error';
 import { User } from '../modules/users/user.entity';
 import { requestEm } from './request-context';
+import { runCompiled } from '../compiled-query';
 
 /** The user row's columns the ORM reads eagerly (scalars and references, not the lazy password hash), from the entity's metadata. */
 let userColumns: string[] | undefined;
@@ -20,7 +21,7 @@ function eagerUserColumns(em: EntityManager): string[] {
 /**
  * Loads the signed-in user on every request, so a disabled account or a changed role takes
  * effect at once rather than when the cookie expires. It runs on every signed-in request, so it is
- * one plain select of the user's row, mapped into the request's entity manager (`em.map`: a
+ * one plain select of the user's row (its SQL kept: server/compiled-query.ts), mapped into the request's entity manager (`em.map`: a
  * managed entity, changed and flushed like any other); the ORM's own findOne with the organisation
  * joined cost about six times as much CPU. The organisation is a reference (its id only) and the
  * password hash is not read: routes that answer with the user call `loadUserDetails` first.
@@ -30,10 +31,8 @@ export function loadUser(): RequestHandler {
     const id = req.session?.userId;
     if (!id) return next();
     const em = requestEm();
-    const row = await em.execute<Record<string, unknown>>(
-      em.getKnex()(em.getMetadata().get(User.name).tableName).select(eagerUserColumns(em)).where('id', id).limit(1),
-      [],
-      'get',
+    const [row] = await runCompiled<Record<string, unknown>>(em, 'user:signed-in', { id }, (slot) =>
+      em.getKnex()(em.getMetadata().get(User.name).tableName).select(eagerUserColumns(em)).where('id', slot('id')).limit(1),
     );
     const user = row ? em.map(User, row) : null;
     if (!user || user.disabled) {

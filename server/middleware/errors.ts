@@ -57,7 +57,8 @@ function knownClientError(err: unknown): [number, string] | undefined {
  */
 export function safePath(req: Request): string {
   const pattern = req.route?.path;
-  if (typeof pattern === 'string') return `${req.baseUrl}${pattern}`;
+  // A router's own root ('/') is the mount path itself: `/api/projects`, not `/api/projects/`.
+  if (typeof pattern === 'string') return pattern === '/' && req.baseUrl ? req.baseUrl : `${req.baseUrl}${pattern}`;
   const raw = (req.originalUrl ?? req.url ?? '').split('?')[0];
   return redact(raw).slice(0, 200);
 }
@@ -98,7 +99,7 @@ export function errorHandler(log: Logger): ErrorRequestHandler {
       res.status(known[0]).json({ error: known[1] });
       return;
     }
-    const reqId = (req as { id?: unknown }).id;
+    const reqId = req.id;
     (reqId === undefined ? log : log.child({ reqId })).error(`${req.method} ${safePath(req)} failed`, describeForLog(err));
     if (res.headersSent) return;
     res.status(500).json({

@@ -16,6 +16,11 @@ import {
 } from '../../server/modules/projects/project-list';
 import { Organization } from '../../server/modules/users/organization.entity';
 import { Project } from '../../server/modules/projects/project.entity';
+import { Placement } from '../../server/modules/projects/placement.entity';
+import { canEdit, findVisibleProject, readVisibleProject } from '../../server/modules/projects/project-access';
+import { toProjectDto } from '../../server/modules/projects/project.dto';
+import { placementsOfProject } from '../../server/modules/projects/projects.routes';
+import { openCommentCount, openCommentCounts } from '../../server/modules/review/review-service';
 import { User } from '../../server/modules/users/user.entity';
 import { containsPattern } from '../../server/text-search';
 import { EMAIL, startHarness, type Harness } from './harness';
@@ -115,6 +120,41 @@ describe('the project list run from its kept statement', () => {
       expect([...seen.get(user.id)!].sort((a, b) => a - b)).toEqual(expected);
       expect(expected.length).toBeGreaterThan(0);
     }
+  });
+});
+
+describe('one project read from its kept statements', () => {
+  it('answers, for every person and every project, what the ORM’s own reads answer (the same project or the same "not found")', async () => {
+    const ids = (await h.orm.em.fork().find(Project, {}, { fields: ['id'] })).map((p) => p.id);
+    let read = 0;
+    for (const viewer of people)
+      for (const id of ids) {
+        const fast = h.orm.em.fork();
+        const ormOwn = h.orm.em.fork();
+        const viaKept = await readVisibleProject(
+          fast,
+          await fast.findOneOrFail(User, viewer.id, { populate: ['organization'] }),
+          String(id),
+        ).then(
+          async (p) => toProjectDto(p, await placementsOfProject(fast, p), canEdit(viewer, p), await openCommentCount(fast, p.id)),
+          (e: unknown) => (e as Error).message,
+        );
+        const viaOrm = await findVisibleProject(ormOwn, viewer, String(id), ['owner', 'reviewer']).then(
+          async (p) =>
+            toProjectDto(
+              p,
+              await ormOwn.find(Placement, { project: p.id }, { orderBy: { id: 'asc' } }),
+              canEdit(viewer, p),
+              (await openCommentCounts(ormOwn, [p.id])).get(p.id) ?? 0,
+            ),
+          (e: unknown) => (e as Error).message,
+        );
+        expect(viaKept).toEqual(viaOrm);
+        if (typeof viaOrm !== 'string') read++;
+      }
+    // Every person reads some projects and is refused others: both branches were compared.
+    expect(read).toBeGreaterThan(people.length);
+    expect(read).toBeLessThan(people.length * ids.length);
   });
 });
 

@@ -84,7 +84,7 @@ export class SignInLimiter {
     if (++this.admitted % 200 === 0) await clearExpiredCounters(this.orm);
     const pairKey = `${email}|${address}`;
     const known = (await this.knownPairs.get(pairKey)) !== null;
-    const consumed: Array<[DbRateLimiter, string]> = [];
+    const consumed: [DbRateLimiter, string][] = [];
     const refuse = async (res: RateLimiterRes): Promise<Admission> => {
       // Attempts that were never checked do not count against the other limits.
       await Promise.all(consumed.map(([l, k]) => l.reward(k, 1)));

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { LockMode, type EntityManager as AnyEntityManager } from '@mikro-orm/core';
+import { LockMode } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/knex';
 import {
   createPlacementBody,
@@ -24,10 +24,11 @@ import type { User } from '../users/user.entity';
 import { MirrorModel } from '../catalogue/mirror-model.entity';
 import { Placement } from './placement.entity';
 import { Project } from './project.entity';
-import { assertCanEdit, canEdit, findVisibleProject, visibleCatalogue } from './project-access';
+import { assertCanEdit, canEdit, findVisibleProject, readVisibleProject, visibleCatalogue } from './project-access';
 import { projectSummaries } from './project-list';
 import { toPlacementDto, toProjectDto } from './project.dto';
 import { onStaleVersion } from '../../write-conflicts';
+import { runCompiled } from '../../compiled-query';
 import { requestEm } from '../../middleware/request-context';
 import { checkVehiclePlacement } from './vehicle-placement';
 import type { SheetWork } from '../../workers/sheet-pool';
@@ -41,7 +42,7 @@ import type { Logger } from '../../logger';
 // A stale `version` fails in the ORM (optimistic locking); the error middleware answers 409 with these.
 onStaleVersion(Project, 'project', async (em, stale) => {
   const project = await em.findOneOrFail(Project, stale.id, { populate: ['owner', 'organization', 'reviewer'] });
-  return toProjectDto(project, await placementsOf(em, project), true, await openCommentCount(em as EntityManager, project.id));
+  return toProjectDto(project, await placementsOfProject(em, project), true, await openCommentCount(em as EntityManager, project.id));
 });
 onStaleVersion(Placement, 'mirror', async (em, stale) => toPlacementDto(await em.findOneOrFail(Placement, stale.id)));
 
@@ -50,8 +51,16 @@ const listQuery = z.object({
   sort: z.enum(['updated', 'name', 'customer'], { message: 'Sort by updated, name or customer.' }).default('updated'),
 });
 
-async function placementsOf(em: AnyEntityManager, project: Project): Promise<Placement[]> {
-  return em.find(Placement, { project: project.id }, { orderBy: { id: 'asc' } });
+/** The project's mirrors in the order they were added (the SQL kept: server/compiled-query.ts), managed by `em`. */
+export async function placementsOfProject(em: EntityManager, project: Project): Promise<Placement[]> {
+  const rows = await runCompiled<Record<string, unknown>>(em, 'placements:of-project', { projectId: project.id }, (slot) =>
+    em
+      .createQueryBuilder(Placement, 'pl')
+      .select('pl.*')
+      .where({ project: slot('projectId') })
+      .orderBy({ id: 'asc' }),
+  );
+  return rows.map((row) => em.map(Placement, row));
 }
 
 /** Placement references must point at things that exist: a catalogue item, a viewer in the plan. */
@@ -138,9 +147,14 @@ export function projectsRoutes(work: SheetWork, files: { storage: FileStorage; l
   r.get('/:id', async (req, res) => {
     const em = requestEm();
     // The answer names the owner and reviewer; the organisation is needed only as its id.
-    const project = await findVisibleProject(em, req.user!, req.params.id, ['owner', 'reviewer']);
+    const project = await readVisibleProject(em, req.user!, req.params.id);
     res.json({
-      project: toProjectDto(project, await placementsOf(em, project), canEdit(req.user!, project), await openCommentCount(em, project.id)),
+      project: toProjectDto(
+        project,
+        await placementsOfProject(em, project),
+        canEdit(req.user!, project),
+        await openCommentCount(em, project.id),
+      ),
     });
   });
 
@@ -150,7 +164,7 @@ export function projectsRoutes(work: SheetWork, files: { storage: FileStorage; l
     try {
       const project = await patchProject(em, req.user!, req.params.id, req.body);
       await em.commit();
-      res.json({ project: toProjectDto(project, await placementsOf(em, project), true, await openCommentCount(em, project.id)) });
+      res.json({ project: toProjectDto(project, await placementsOfProject(em, project), true, await openCommentCount(em, project.id)) });
     } catch (e) {
       // A failed commit has already rolled back (PostgreSQL reports it so); roll back only what is open.
       if (em.isInTransaction()) await em.rollback();
@@ -182,7 +196,7 @@ export function projectsRoutes(work: SheetWork, files: { storage: FileStorage; l
       }
       // A viewer still served by a mirror cannot vanish from the plan.
       const ids = new Set(changes.scene.viewers.map((v) => v.id));
-      const orphan = (await placementsOf(em, project)).find((p) => p.viewerId && !ids.has(p.viewerId));
+      const orphan = (await placementsOfProject(em, project)).find((p) => p.viewerId && !ids.has(p.viewerId));
       if (orphan)
         throw new HttpError(409, `Mirror "${orphan.label}" serves a viewer this change removes; move it to another viewer first.`, {
           scene: 'A viewer in use was removed.',

@@ -4,6 +4,7 @@
  */
 import { raw } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/knex';
+import { runCompiled } from '../../compiled-query';
 import type { MirrorModel } from '../catalogue/mirror-model.entity';
 import { Placement } from '../projects/placement.entity';
 import { Project } from '../projects/project.entity';
@@ -107,5 +108,9 @@ export async function openCommentCounts(em: EntityManager, ids: number[]): Promi
 }
 
 export async function openCommentCount(em: EntityManager, id: number): Promise<number> {
-  return (await openCommentCounts(em, [id])).get(id) ?? 0;
+  // One job's count is asked on every read of a job: its SQL is kept (server/compiled-query.ts).
+  const [row] = await runCompiled<{ n: number | string }>(em, 'comments:open-count', { id }, (slot) =>
+    em.getKnex()('project_comment').count({ n: '*' }).whereNull('parent_id').where('resolved', false).where('project_id', slot('id')),
+  );
+  return Number(row?.n ?? 0);
 }

@@ -2,6 +2,7 @@ import session from 'express-session';
 import type { SessionData } from 'express-session';
 import type { Orm } from '../../db';
 import { fromDbDate, type DbDate } from '../../db-date';
+import { runCompiled } from '../../compiled-query';
 import { SessionRecord } from './session.entity';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
@@ -47,19 +48,16 @@ export class OrmSessionStore extends session.Store {
 
   /**
    * One plain select of the two columns a request needs, without a forked entity manager or an
-   * entity: this runs on every signed-in request, before the request's own entity manager exists.
+   * entity, its SQL kept (server/compiled-query.ts): this runs on every signed-in request, before
+   * the request's own entity manager exists.
    * The expiry comes back as the database keeps it (SQLite: milliseconds; PostgreSQL: a Date).
    */
   override get(sid: string, cb: (err: unknown, session?: SessionData | null) => void): void {
-    const conn = this.orm.em.getConnection();
-    conn
-      .execute<{ data: string; expires_at: DbDate }>(
-        this.orm.em.getKnex()('session').select('data', 'expires_at').where('sid', sid).limit(1),
-        [],
-        'get',
-      )
-      .then((found) => {
-        const row = found as typeof found | undefined;
+    const em = this.orm.em;
+    runCompiled<{ data: string; expires_at: DbDate }>(em, 'session:get', { sid }, (slot) =>
+      em.getKnex()('session').select('data', 'expires_at').where('sid', slot('sid')).limit(1),
+    )
+      .then(([row]) => {
         const expiresAt = row ? fromDbDate(row.expires_at).getTime() : NaN;
         if (!row || !(expiresAt > Date.now())) return cb(null, null);
         this.remember(sid, expiresAt);
