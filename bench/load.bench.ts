@@ -5,7 +5,8 @@
  *   - one instance on PostgreSQL (a throwaway cluster started as the tests start theirs),
  *   - two instances on that PostgreSQL behind a small round-robin proxy (its own process),
  * beside a bare Express server returning the same JSON, alone and as two processes behind the same
- * proxy (the ceiling: what two processes can gain on this machine at all). For each run: requests
+ * proxy (the ceiling: what two processes can gain on this machine at all), and the SQLite instance
+ * signed out (every layer of its middleware, no database work: the floor for any signed-in route). For each run: requests
  * per second, p50 and p99 latency, and the CPU each part used while it ran (app processes,
  * PostgreSQL, the proxy, this process generating the load) as a share of one core, plus the app's
  * CPU per request, which does not depend on how busy the machine is.
@@ -98,6 +99,8 @@ interface Setup {
   appPids: number[];
   proxyPid?: number;
   postgresPort?: number;
+  /** Signed out on purpose: the 401 answers are what is measured, not errors. */
+  signedOut?: boolean;
 }
 
 interface Run {
@@ -136,7 +139,7 @@ async function measure(setup: Setup, route: string, seconds: number): Promise<Ru
     rps: result.requests.average,
     p50: result.latency.p50,
     p99: result.latency.p99,
-    errors: result.errors + result.non2xx,
+    errors: result.errors + (setup.signedOut ? 0 : result.non2xx),
     app,
     db,
     proxy,
@@ -245,6 +248,15 @@ export async function runLoadBench(): Promise<void> {
         'Sightfan ×1, SQLite',
         await measure({ label, base: sqliteBase, cookie: sqliteCookie, appPids: [sqlite.pid] }, route, seconds),
       );
+    // The same middleware with no database work: signed out, the list is refused (401) after the
+    // request log, helmet, the body parser, the same-origin check, the session middleware (no
+    // cookie, so no statement) and loadUser: the most any signed-in route could reach here.
+    record(
+      'sqlite1:floor',
+      'stack only',
+      'Sightfan ×1, signed out (401)',
+      await measure({ label: 'stack only', base: sqliteBase, appPids: [sqlite.pid], signedOut: true }, '/api/projects', seconds),
+    );
     await stopAll(children.splice(0));
 
     // 2. Bare Express: one process, then two behind the proxy (the machine's ceiling for two).
@@ -328,6 +340,13 @@ export async function runLoadBench(): Promise<void> {
       ].filter(Boolean);
       console.log(`  ${label.padEnd(12)} ${parts.join('; ')}`);
     }
+    const floor = results.get('sqlite1:floor');
+    const bareList = results.get('bare1:list');
+    if (floor && bareList)
+      console.log(
+        `  stack only   Sightfan's middleware with no database work (signed out, 401) ${(100 * ratio(floor, bareList)).toFixed(0)} % of bare ` +
+          `Express at ${floor.appMsPerRequest.toFixed(2)} ms of CPU per answer: the most a signed-in route could reach with this stack.`,
+      );
     // Where the ceiling was in this run: the parts' CPU against the whole machine.
     const cores = os.cpus().length;
     const runs = [...results.values()];
