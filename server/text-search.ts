@@ -1,14 +1,14 @@
 import type { EntityManager } from '@mikro-orm/knex';
 import { PostgreSqlPlatform } from '@mikro-orm/postgresql';
 
-/** The LIKE pattern for "contains `text`". */
-export const containsPattern = (text: string) => `%${text}%`;
-
 /**
- * A filter for "matches this LIKE pattern, whatever the case": SQLite's LIKE already ignores the
- * case of ASCII letters, PostgreSQL's does not (its ILIKE does, and SQLite has no ILIKE). The
- * project list passes a stand-in for the pattern (server/compiled-query.ts).
+ * "Any of these columns contains this text, whatever the case of its ASCII letters", as a SQL
+ * condition with one `?` per column for the text. A substring search (SQLite's `instr`,
+ * PostgreSQL's `strpos`, both over `lower(…)`), not LIKE: a search for `50%` or `Dock_3` finds
+ * those names and nothing else (in a LIKE pattern `%` and `_` are wildcards, and SQLite has no
+ * default escape character). Columns are the code's own (`alias.column`), never a request's.
  */
-export function likePattern<P extends string | number>(em: EntityManager, pattern: P): { $like: P } | { $ilike: P } {
-  return em.getPlatform() instanceof PostgreSqlPlatform ? { $ilike: pattern } : { $like: pattern };
+export function containsAnyCondition(em: EntityManager, columns: readonly string[]): string {
+  const position = em.getPlatform() instanceof PostgreSqlPlatform ? 'strpos' : 'instr';
+  return `(${columns.map((c) => `${position}(lower(${c}), lower(?)) > 0`).join(' or ')})`;
 }

@@ -22,7 +22,6 @@ import { toProjectDto } from '../../server/modules/projects/project.dto';
 import { placementsOfProject } from '../../server/modules/projects/projects.routes';
 import { openCommentCount, openCommentCounts } from '../../server/modules/review/review-service';
 import { User } from '../../server/modules/users/user.entity';
-import { containsPattern } from '../../server/text-search';
 import { EMAIL, startHarness, type Harness } from './harness';
 
 let h: Harness;
@@ -75,7 +74,7 @@ afterAll(() => h.close());
 /** The same list, its query built afresh with the real values and run through the query builder. */
 async function builtAfresh(em: EntityManager, user: User, search: string | undefined, sort: ProjectListSort) {
   const values: Record<string, number | string> = { userId: user.id, organizationId: user.organization.id };
-  if (search !== undefined) values.pattern = containsPattern(search);
+  if (search !== undefined) values.search = search;
   const rows = await summaryQuery(em, user.role, (name) => values[name], search !== undefined, sort).execute<SummaryRow[]>('all', false);
   return rows.map(toSummary);
 }
@@ -121,6 +120,26 @@ describe('the project list run from its kept statement', () => {
       expect(expected.length).toBeGreaterThan(0);
     }
   });
+});
+
+describe('searching the list', () => {
+  /** ASCII letters folded, everything else as typed: SQLite's lower() folds only ASCII (common practice for its default build). */
+  const fold = (t: string) => t.replace(/[A-Z]/g, (c) => c.toLowerCase());
+  it.each(['_', '%', 'Dock_3', '50%', "O'Neill", 'back\\slash', 'dock', 'ock 3', 'PLAIN JOB'])(
+    'finds exactly the jobs whose name, customer or site contains %p, wildcards and quotes taken as typed',
+    async (text) => {
+      const em = h.orm.em.fork();
+      const owner = people[0];
+      const all = await em.find(Project, { owner: owner.id }, { fields: ['name', 'customer', 'site'] });
+      const expected = all
+        .filter((p) => [p.name, p.customer, p.site].some((v) => fold(v).includes(fold(text))))
+        .map((p) => p.id)
+        .sort((a, b) => a - b);
+      const found = (await projectSummaries(em, owner, text, 'name')).map((p) => p.id).sort((a, b) => a - b);
+      expect(found).toEqual(expected);
+      if (text !== '_' && text !== '%') expect(found.length).toBeGreaterThan(0);
+    },
+  );
 });
 
 describe('one project read from its kept statements', () => {

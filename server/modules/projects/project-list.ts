@@ -10,7 +10,7 @@
 import { sql, type FilterQuery } from '@mikro-orm/core';
 import type { EntityManager, QueryBuilder } from '@mikro-orm/knex';
 import { runCompiled } from '../../compiled-query';
-import { containsPattern, likePattern } from '../../text-search';
+import { containsAnyCondition } from '../../text-search';
 import type { ProjectState, ProjectSummaryDto } from '../../../shared/schemas';
 import { fromDbDate, type DbDate } from '../../db-date';
 import type { User } from '../users/user.entity';
@@ -99,7 +99,7 @@ export async function projectSummaries(
   const values = {
     userId: user.id,
     organizationId: user.organization.id,
-    ...(search === undefined ? {} : { pattern: containsPattern(search) }),
+    ...(search === undefined ? {} : { search }),
   };
   const rows = await runCompiled<SummaryRow>(
     em,
@@ -134,10 +134,8 @@ export function summaryQuery(
       : sort === 'customer'
         ? { customer: 'asc' as const, name: 'asc' as const }
         : { updatedAt: 'desc' as const };
-  const pattern = searching ? likePattern(em, slot('pattern') as string) : undefined;
-  const filter: FilterQuery<Project>[] = [visibleProjectsBy(role, slot('userId') as number, slot('organizationId') as number)];
-  if (pattern) filter.push({ $or: [{ name: pattern }, { customer: pattern }, { site: pattern }] });
-  return em
+  const access: FilterQuery<Project> = visibleProjectsBy(role, slot('userId') as number, slot('organizationId') as number);
+  const qb = em
     .createQueryBuilder(Project, 'p')
     .select([
       'p.id',
@@ -166,6 +164,10 @@ export function summaryQuery(
     ])
     .join('p.owner', 'o')
     .leftJoin('p.reviewer', 'r')
-    .where({ $and: filter })
-    .orderBy({ ...orderBy, id: 'asc' });
+    .where(access);
+  if (searching) {
+    const text = slot('search');
+    qb.andWhere(containsAnyCondition(em, ['p.name', 'p.customer', 'p.site']), [text, text, text]);
+  }
+  return qb.orderBy({ ...orderBy, id: 'asc' });
 }
