@@ -118,7 +118,10 @@ type Candidate = {
  * hidden behind racking therefore costs more exact traces, never a wrong first answer.
  * Candidates whose eye is behind the mirror are skipped, and so are candidates whose mirror body
  * would pass through a wall or rack at that aim (the rule `wallsThroughMirror` states; a mirror
- * cannot hang inside a wall, so such an aim is no answer however much it would show).
+ * cannot hang inside a wall, so such an aim is no answer however much it would show). A mount
+ * point with a `face` hangs each mirror on that face at each aim (see {@link vertexOnFace}: its
+ * back on the face, the vertex stood off it), so the face itself never refuses an aim that looks
+ * out of it; the options' poses carry the vertex used.
  */
 export function rankOptions(input: RankInput): RankedOption[] {
   const zone = checkZone(input.zone);
