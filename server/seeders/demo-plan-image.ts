@@ -109,7 +109,12 @@ export function drawDemoPlan(scene: Pick<Scene, 'walls'>, subtitle: string): Dem
     }
     const mid = (b.y0 + b.y1) / 2;
     line([b.x0, mid], [b.x1, mid], RACK, 1, 'stroke-dasharray="6 4"');
-    text([(b.x0 + b.x1) / 2, mid + 0.9], `PALLET RACKING ${String.fromCharCode(64 + ++rackNo)}`, 18, 'text-anchor="middle" font-weight="bold" fill-opacity="0.8"');
+    text(
+      [(b.x0 + b.x1) / 2, mid + 0.9],
+      `PALLET RACKING ${String.fromCharCode(64 + ++rackNo)}`,
+      18,
+      'text-anchor="middle" font-weight="bold" fill-opacity="0.8"',
+    );
   }
   // Every wall of the job, drawn on its own line: racking faces thinner than building walls.
   for (const w of scene.walls) line(w.aM, w.bM, w.kind === 'racking' ? RACK : INK, w.kind === 'racking' ? 3 : 8, 'stroke-linecap="square"');
