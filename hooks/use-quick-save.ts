@@ -15,8 +15,9 @@ export { quickSaveKey, type QuickSaveVars } from './quick-save-write';
 export function quickSaveVars(question: QuickQuestion, option: QuickOption, when: Date): QuickSaveVars {
   return {
     project: { name: quickProjectName(question, when), kind: 'site', notes: 'Started from quick sizing.', scene: quickScene(question) },
-    placement: quickPlacementBody(question, {
+    placement: quickPlacementBody({
       catalogueItemId: option.item.id,
+      positionM: option.positionM,
       heightM: option.heightM,
       azimuthRad: option.azimuthRad,
       tiltDownRad: option.tiltDownRad,

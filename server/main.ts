@@ -8,6 +8,7 @@ import { createApp } from './app';
 import { databaseTarget, describeDatabase, type AppConfig } from './config';
 import { openORM, underStartupLock } from './db';
 import type { Logger } from './logger';
+import { createStorage } from './modules/files/storage';
 import { startFakeSmtp, type FakeSmtp } from './modules/mail/fake-smtp';
 import { createMailer } from './modules/mail/mailer';
 import { seedDemo } from './seeders/demo';
@@ -24,10 +25,12 @@ export interface RunningServer {
 export async function startServer(config: AppConfig, log: Logger): Promise<RunningServer> {
   const target = databaseTarget(config);
   const orm = await openORM(target);
+  // One storage for the seed (the demo plan image) and the app.
+  const storage = createStorage(config.storage);
   // Migrations and the demo seed run under a lock, so instances started together take turns.
   const seeded = await underStartupLock(orm, async () => {
     await orm.getMigrator().up();
-    return config.demoMode && (await seedDemo(orm, config.bcryptCost));
+    return config.demoMode && (await seedDemo(orm, config.bcryptCost, storage));
   });
   log.info(`database ready: ${describeDatabase(target)} (migrations applied)`);
   await clearEvaluationCache(orm.em);
@@ -42,7 +45,7 @@ export async function startServer(config: AppConfig, log: Logger): Promise<Runni
   }
   const mailer = createMailer({ smtpUrl: config.smtpUrl, fakePort: fake?.port, from: config.mailFrom });
   const sessionSecret = config.sessionSecret ?? demoSessionSecret(config.databasePath);
-  const { app, close, drain } = createApp({ config, orm, mailer, log, sessionSecret });
+  const { app, close, drain } = createApp({ config, orm, mailer, log, sessionSecret, storage });
 
   const server: Server = await new Promise((resolve, reject) => {
     const s = app.listen(config.port, config.host, () => resolve(s));

@@ -39,6 +39,7 @@ export function QuickOptionCard({ rank, option, question, units, selected, onPre
       <QuickSketch
         question={question}
         fan={option.region}
+        mirrorM={option.positionM}
         width={120}
         maxHeight={120}
         label={`Plan sketch: the fan of ${option.item.name} over the area`}

@@ -35,8 +35,9 @@ function questionOf(draft: QuickDraft): QuickQuestion | null {
 
 /** The chosen option through the project evaluation (the numbers a saved job will show). */
 function evaluationOf(question: QuickQuestion, option: QuickOption): ProjectEvaluation | null {
-  const body = quickPlacementBody(question, {
+  const body = quickPlacementBody({
     catalogueItemId: option.item.id,
+    positionM: option.positionM,
     heightM: option.heightM,
     azimuthRad: option.azimuthRad,
     tiltDownRad: option.tiltDownRad,

@@ -1,6 +1,6 @@
 import Svg, { Circle, Line, Path } from 'react-native-svg';
 import { palette } from '@/constants/theme';
-import type { MultiPolygon } from '@/shared/geometry/polygon';
+import type { MultiPolygon, Pair } from '@/shared/geometry/polygon';
 import { quickEye, quickMirrorPosition, quickWalls, quickZoneRing, type QuickQuestion } from '@/shared/quick';
 import { pathOf, sketchFrame } from './quick-sketch';
 
@@ -8,6 +8,8 @@ export interface QuickSketchProps {
   question: QuickQuestion;
   /** What the mirror shows on the floor, clipped to the recognisable range. */
   fan: MultiPolygon;
+  /** Where the option's mirror hangs (its vertex); the mirror's place on the far wall when absent. */
+  mirrorM?: Pair;
   width: number;
   maxHeight: number;
   label: string;
@@ -15,10 +17,10 @@ export interface QuickSketchProps {
 }
 
 /** Walls dark, the area to see outlined in amber, the fan in glass blue, viewer and mirror as dots. */
-export function QuickSketch({ question, fan, width, maxHeight, label, testID }: QuickSketchProps) {
+export function QuickSketch({ question, fan, mirrorM, width, maxHeight, label, testID }: QuickSketchProps) {
   const f = sketchFrame(question, width, maxHeight);
   const [ex, ey] = f.toPx([quickEye(question)[0], quickEye(question)[1]]);
-  const [mx, my] = f.toPx(quickMirrorPosition(question));
+  const [mx, my] = f.toPx(mirrorM ?? quickMirrorPosition(question));
   return (
     <Svg width={f.width} height={f.height} role="img" aria-label={label} testID={testID}>
       <Path d={pathOf(f, [[quickZoneRing(question)]])} fill={palette.beaconSoft} stroke={palette.beaconPressed} strokeWidth={1.5} />

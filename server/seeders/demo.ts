@@ -12,6 +12,8 @@ import { DEMO_VEHICLE_JOBS } from './demo-vehicles';
 import type { EntityManager } from '@mikro-orm/knex';
 import { DEMO_REVIEW_JOB } from './demo-review-job';
 import { ProjectEvent } from '../modules/review/project-event.entity';
+import type { FileStorage } from '../modules/files/storage';
+import { addDemoPlan } from './demo-plan';
 
 /** Demo only: listed in README.md. Never use these anywhere real. */
 export const DEMO_PASSWORD = 'demo-password-1';
@@ -24,9 +26,11 @@ export const DEMO_USERS = [
 /**
  * Seeds the invented demo organisation, one user per role, the demo catalogue and the demo
  * project (being drawn up) and a small job waiting for the demo reviewer, once: if the demo organisation is
- * already there, nothing changes (so a restart keeps whatever people did).
+ * already there, nothing changes (so a restart keeps whatever people did). Given the uploads'
+ * storage, the demo project also gets its fictional plan image as a calibrated underlay
+ * (demo-plan.ts), stored as an upload is; without it (most API tests) the demo has no plan image.
  */
-export async function seedDemo(orm: Orm, bcryptCost: number): Promise<boolean> {
+export async function seedDemo(orm: Orm, bcryptCost: number, storage?: FileStorage): Promise<boolean> {
   const em = orm.em.fork();
   if (await em.count(Organization, { demo: true })) return seedMissingDemoVehicles(em);
   const org = em.create(Organization, { name: 'Harbourline Cold Storage (demo)', demo: true });
@@ -102,6 +106,7 @@ export async function seedDemo(orm: Orm, bcryptCost: number): Promise<boolean> {
   await em.nativeUpdate(Project, { id: waiting.id }, { createdAt: sentAt, updatedAt: sentAt });
   addDemoVehicles(em, users[0], org);
   await em.flush();
+  if (storage) await addDemoPlan(em, storage, project);
   return true;
 }
 

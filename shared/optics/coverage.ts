@@ -12,7 +12,7 @@ import {
   type Ring,
 } from '../geometry/polygon';
 import { boundsOfPoints, boxesMeet, packedPoints, segmentBounds } from '../geometry/bounds';
-import { clipRingToBox } from '../geometry/clip';
+import { clipRingToBox, clipToHalfSpace } from '../geometry/clip';
 import { clipOrientedCurvesToDisc } from '../geometry/clip-disc';
 import { simplifyMultiPolygon, simplifyRing } from '../geometry/simplify';
 import { robustDifference } from '../geometry/robust-boolean';
@@ -25,6 +25,7 @@ import type { Pose } from './pose';
 import { traceOutline, visibleOutline, type Outline, type TracedFan } from './trace';
 import { checkWalls, wallShadowRing, type Wall } from './walls';
 import { eyeSideShadows } from './eye-side';
+import { MOUNT_TOLERANCE_M, sideOfWallLine } from './mount';
 import { wallsInBox } from './wall-index';
 import { OUTLINE_SIMPLIFY_M, SLIVER_AREA_M2 } from '../geometry/tolerance';
 
@@ -235,7 +236,16 @@ export function subtractWalls(p: PreparedCoverage, region: MultiPolygon, walls: 
         const cut = clipRingToBox(bound, minX, minY, maxX, maxY);
         if (cut.length < 4 || !overlaps(region, cut)) continue;
       }
-      const ring = wallShadowRing(p.pm, p.eyeM, w, p.h0, p.farM, tolM);
+      // A wall with the whole mirror on one side of its line (the wall the mirror hangs on, or one
+      // beside it) hides only floor on its other side: a reflected sightline from the mirror to a
+      // point on the mirror's side stays on that side and never crosses the line.
+      const beyond = beyondWallLine(p.pm, w);
+      if (beyond && region.every((poly) => poly.every((r) => r.every((q) => beyond(q) <= MOUNT_TOLERANCE_M)))) continue;
+      let ring = wallShadowRing(p.pm, p.eyeM, w, p.h0, p.farM, tolM);
+      if (ring && beyond) {
+        const kept = clipToHalfSpace(ring.slice(0, ringLength(ring)), beyond);
+        ring = kept.length >= 3 ? [...kept, [kept[0][0], kept[0][1]]] : null;
+      }
       if (!ring) continue;
       // Cut to the region's box; a shadow that misses the region costs the grid sweep little.
       const cut = clipRingToBox(ring, minX - 0.01, minY - 0.01, maxX + 0.01, maxY + 0.01);
@@ -246,6 +256,22 @@ export function subtractWalls(p: PreparedCoverage, region: MultiPolygon, walls: 
     if (region.length > 0) [minX, minY, maxX, maxY] = bbox(region);
   }
   return region;
+}
+
+/**
+ * For a wall with the whole mirror body on one side of its line: the signed distance of a plan
+ * point beyond that line (positive on the side away from the mirror). Null when the body reaches
+ * across the line.
+ */
+function beyondWallLine(pm: PlacedMirror, w: Wall): ((q: Pair) => number) | null {
+  const side = sideOfWallLine(pm, w);
+  if (side === 0) return null;
+  const ex = w.bM[0] - w.aM[0];
+  const ey = w.bM[1] - w.aM[1];
+  const L = Math.hypot(ex, ey);
+  const nx = (-ey / L) * -side;
+  const ny = (ex / L) * -side;
+  return (q) => nx * (q[0] - w.aM[0]) + ny * (q[1] - w.aM[1]);
 }
 
 /**

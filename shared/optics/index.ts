@@ -23,5 +23,7 @@ export type { Visibility, VisibilityInput } from './visibility';
 export { apparentAngle, visibleInMirror } from './visibility';
 export { sphereReflectionPoint } from './alhazen';
 export { checkZone, zoneCoverage } from './zones';
+export type { MountFace } from './mount';
+export { vertexOnFace } from './mount';
 export type { Aim, CatalogueItem, MountPoint, RankFigures, RankInput, RankedOption, Target } from './rank';
 export { defaultAims, rankOptions, rankOrder } from './rank';

@@ -1,6 +1,7 @@
+import type { Pair } from '../geometry/polygon';
 import type { Vec3 } from '../geometry/vec3';
 import { checkEye, placeMirror, type Mirror, type PlacedMirror } from './mirror';
-import type { Pose } from './pose';
+import { poseFromAim, type Pose } from './pose';
 import { anyWallBlocks, checkWalls, type Wall } from './walls';
 
 /**
@@ -125,6 +126,29 @@ export function maxLinearOverBody(C: Vec3, R: number, planes: readonly Plane[], 
   return best;
 }
 
+/** Largest value of g·x over a placed mirror's body (metres along g, a unit vector); its reflecting surface lies inside. */
+export function bodyReach(pm: PlacedMirror, g: Vec3): number {
+  const best = maxLinearOverBody(pm.C, pm.R, bodyPlanes(pm), g);
+  // The body always holds its vertex; null only when rounding empties it.
+  return best ? best.value : dot3(g, pm.pose.vertexM);
+}
+
+/**
+ * Which side of a wall's line the whole mirror body lies on: +1 on the side of the wall's left
+ * normal (−ey, ex), −1 on the other, 0 when the body reaches past the line on both sides by more
+ * than `toleranceM` (the mounting tolerance: a body that only touches the face counts as beside it).
+ */
+export function sideOfWallLine(pm: PlacedMirror, wall: Wall, toleranceM = MOUNT_TOLERANCE_M): -1 | 0 | 1 {
+  const ex = wall.bM[0] - wall.aM[0];
+  const ey = wall.bM[1] - wall.aM[1];
+  const L = Math.hypot(ex, ey);
+  const n: Vec3 = [-ey / L, ex / L, 0];
+  const offset = n[0] * wall.aM[0] + n[1] * wall.aM[1];
+  if (bodyReach(pm, [-n[0], -n[1], 0]) + offset <= toleranceM) return 1;
+  if (bodyReach(pm, n) - offset <= toleranceM) return -1;
+  return 0;
+}
+
 /**
  * Walls and racks that pass through a mirror's body. A wall is a vertical rectangle with no
  * thickness (see {@link Wall}); it passes through the body when the part of the body beside the
@@ -166,6 +190,46 @@ export function wallsThroughMirror(input: { mirror: Mirror; pose: Pose; walls: r
     out.push({ wallIndex, depthM: Math.min(front, back), movesM: back <= front ? [toPlus, toMinus] : [toMinus, toPlus] });
   });
   return out;
+}
+
+/**
+ * A flat vertical face a mirror hangs on (a wall or a rack's end): `normal` is its horizontal
+ * unit normal pointing out of the face, toward the side the mirror hangs on; `maxStandOffM`, when
+ * given, is how far the mirror's vertex may stand off the face and still hang on it.
+ */
+export type MountFace = { normal: Pair; maxStandOffM?: number };
+
+/**
+ * Where a mirror's vertex goes when it hangs on a face with this aim: `onFaceM` is the point of
+ * the face it hangs at (plan x, y and the mounting height); the vertex is moved out along the
+ * face's normal until the rearmost point of its body lies on the face, so its back sits on the
+ * wall and the body is wholly in front of it (the same rule as a placement on a site plan: the
+ * position is the vertex, and no wall may pass through the body, see {@link wallsThroughMirror}).
+ * Turning the mirror on its bracket therefore moves the vertex out from the wall.
+ * Null when the aim would face the mirror into the face or along it (its axis has no part
+ * pointing out of the face), or when the vertex would stand further off than `maxStandOffM`.
+ */
+export function vertexOnFace(input: {
+  mirror: Mirror;
+  onFaceM: Vec3;
+  azimuthRad: number;
+  tiltDownRad: number;
+  face: MountFace;
+}): { vertexM: Vec3; standOffM: number } | null {
+  const [nx, ny] = input.face.normal;
+  const nl = Math.hypot(nx, ny);
+  const n: Vec3 = [nx / nl, ny / nl, 0];
+  const pose = poseFromAim({ vertexM: input.onFaceM, azimuthRad: input.azimuthRad, tiltDownRad: input.tiltDownRad });
+  // Facing out of the face: a mirror cannot look into the wall it hangs on, nor hang edge-on to it.
+  if (!(pose.axis[0] * n[0] + pose.axis[1] * n[1] > 1e-6)) return null;
+  const pm = placeMirror(input.mirror, pose);
+  const rear = maxLinearOverBody(pm.C, pm.R, bodyPlanes(pm), [-n[0], -n[1], 0]);
+  if (rear === null) return null;
+  const P = input.onFaceM;
+  // How far the body reaches behind the face when its vertex is on it (never negative: the vertex is part of the body).
+  const standOffM = Math.max(0, rear.value + (n[0] * P[0] + n[1] * P[1]));
+  if (input.face.maxStandOffM !== undefined && standOffM > input.face.maxStandOffM) return null;
+  return { vertexM: [P[0] + standOffM * n[0], P[1] + standOffM * n[1], P[2]], standOffM };
 }
 
 /**

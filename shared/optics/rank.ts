@@ -4,7 +4,7 @@ import { distance, type Vec3 } from '../geometry/vec3';
 import { coverage, fanRegion, prepareCoverage } from './coverage';
 import { OpticsInputError, requirePoint, requirePositive } from './errors';
 import { checkMirror, domeMountTiltRad, sphereRadiusM, type Mirror } from './mirror';
-import { wallsThroughMirror } from './mount';
+import { vertexOnFace, wallsThroughMirror, type MountFace } from './mount';
 import { recognisableRange } from './paraxial';
 import { poseFromAim, type Pose } from './pose';
 import type { Wall } from './walls';
@@ -12,7 +12,12 @@ import { checkZone, zoneCoverage } from './zones';
 import { FLOOR_SLACK } from '../geometry/tolerance';
 
 export type CatalogueItem = { id: string; name?: string; mirror: Mirror; cost: number };
-export type MountPoint = { id: string; vertexM: Vec3 };
+/**
+ * Where a mirror may go: its vertex, or, with `face`, the point of a wall face it hangs on (plan
+ * x, y and the mounting height). A mirror on a face is moved out from it for each aim until its
+ * back sits on the face ({@link vertexOnFace}); aims that would face it into the wall are skipped.
+ */
+export type MountPoint = { id: string; vertexM: Vec3; face?: MountFace };
 export type Aim = { azimuthRad: number; tiltDownRad: number };
 /** What must be recognisable: a target of `sizeM` subtending at least `minAngleRad`. */
 export type Target = { sizeM: number; minAngleRad: number; requiredRangeM?: number };
@@ -88,6 +93,8 @@ export function defaultAims(mount: Vec3, zone: Polygon): Aim[] {
 type Candidate = {
   item: CatalogueItem;
   mount: MountPoint;
+  /** The mirror's vertex for this aim (the mount point's, or moved out from its face). */
+  vertexM: Vec3;
   aim: Aim;
   rangeM: number;
   rangeKey: number;
@@ -111,7 +118,10 @@ type Candidate = {
  * hidden behind racking therefore costs more exact traces, never a wrong first answer.
  * Candidates whose eye is behind the mirror are skipped, and so are candidates whose mirror body
  * would pass through a wall or rack at that aim (the rule `wallsThroughMirror` states; a mirror
- * cannot hang inside a wall, so such an aim is no answer however much it would show).
+ * cannot hang inside a wall, so such an aim is no answer however much it would show). A mount
+ * point with a `face` hangs each mirror on that face at each aim (see {@link vertexOnFace}: its
+ * back on the face, the vertex stood off it), so the face itself never refuses an aim that looks
+ * out of it; the options' poses carry the vertex used.
  */
 export function rankOptions(input: RankInput): RankedOption[] {
   const zone = checkZone(input.zone);
@@ -151,15 +161,22 @@ export function rankOptions(input: RankInput): RankedOption[] {
   for (const item of input.catalogue) {
     const R = sphereRadiusM(item.mirror);
     for (const mount of input.mountPoints) {
-      const D = distance(eyeM, mount.vertexM);
-      if (!(D > 0)) continue;
-      const rangeM = recognisableRange({ radiusM: R, eyeDistanceM: D, targetSizeM: size, minAngleRad: minAngle }).rangeM;
-      const reach = Math.min(cap, rangeM);
-      if (!(reach > 0)) continue;
       for (const aim of aimsFor(item.mirror, mount.vertexM, zone, input.aims)) {
         let fraction = 0;
+        let vertexM = mount.vertexM;
+        let rangeM = 0;
         try {
-          const pose = poseFromAim({ vertexM: mount.vertexM, ...aim });
+          if (mount.face) {
+            const onFace = vertexOnFace({ mirror: item.mirror, onFaceM: mount.vertexM, ...aim, face: mount.face });
+            if (!onFace) continue;
+            vertexM = onFace.vertexM;
+          }
+          const D = distance(eyeM, vertexM);
+          if (!(D > 0)) continue;
+          rangeM = recognisableRange({ radiusM: R, eyeDistanceM: D, targetSizeM: size, minAngleRad: minAngle }).rangeM;
+          const reach = Math.min(cap, rangeM);
+          if (!(reach > 0)) continue;
+          const pose = poseFromAim({ vertexM, ...aim });
           if (walls.length > 0 && wallsThroughMirror({ mirror: item.mirror, pose, walls }).length > 0) continue;
           const prepared = prepareCoverage({
             mirror: item.mirror,
@@ -174,7 +191,7 @@ export function rankOptions(input: RankInput): RankedOption[] {
           if (e instanceof OpticsInputError) continue;
           throw e;
         }
-        candidates.push({ item, mount, aim, rangeM, rangeKey: Math.min(rangeM, required), fraction });
+        candidates.push({ item, mount, vertexM, aim, rangeM, rangeKey: Math.min(rangeM, required), fraction });
       }
     }
   }
@@ -190,7 +207,7 @@ export function rankOptions(input: RankInput): RankedOption[] {
   for (const c of bounds) {
     // The list is sorted best first; once `limit` exact options beat this bound, no later one can enter.
     if (exact.length >= limit && byKey(c, exact[limit - 1]) > 0) break;
-    const pose = poseFromAim({ vertexM: c.mount.vertexM, ...c.aim });
+    const pose = poseFromAim({ vertexM: c.vertexM, ...c.aim });
     const cov = coverage({
       mirror: c.item.mirror,
       pose,

@@ -3,7 +3,7 @@
  * the screen evaluates to show one option's full numbers.
  */
 import type { Pair } from '../geometry/polygon';
-import type { CreatePlacementBody, Scene, SceneWall, ZoneTarget } from '../schemas';
+import { MIRROR_SIZES, type CreatePlacementBody, type Scene, type SceneWall, type ZoneTarget } from '../schemas';
 import type { QuickQuestion } from './question';
 
 export const QUICK_IDS = { zone: 'blind-spot', viewer: 'viewer' } as const;
@@ -33,9 +33,23 @@ export function quickEye(q: QuickQuestion): [number, number, number] {
   return [-q.viewerBackM, q.passageWidthM / 2, q.eyeHeightM];
 }
 
+/**
+ * Where the mirror hangs: the point of the far wall's face at the mirror's place along it. The
+ * vertex of a ranked option stands off that face by as much as its body needs (its back on the
+ * wall), so each option carries its own `positionM`.
+ */
 export function quickMirrorPosition(q: QuickQuestion): Pair {
   return [q.mirrorAlongM, q.passageWidthM];
 }
+
+/** The far wall's face looks back across the passage (toward −y): a mirror on it faces the passage. */
+export const QUICK_FAR_WALL_NORMAL: Pair = [0, -1];
+
+/**
+ * How far the far wall runs past the mirror's place either way: half the diagonal of the largest
+ * panel the catalogue accepts, so any catalogue mirror at any aim hangs wholly on it.
+ */
+export const QUICK_FAR_WALL_MARGIN_M = Math.hypot(MIRROR_SIZES.width.maxM, MIRROR_SIZES.height.maxM) / 2;
 
 export function quickWalls(q: QuickQuestion): SceneWall[] {
   const w = q.openingWidthM;
@@ -44,14 +58,23 @@ export function quickWalls(q: QuickQuestion): SceneWall[] {
   const back = -(q.viewerBackM + 1);
   const kind = q.spot === 'aisle' ? 'racking' : 'wall';
   const heightM = QUICK_WALL_HEIGHT_M[kind];
-  const wall = (id: string, aM: Pair, bM: Pair): SceneWall => ({ id, kind, aM, bM, heightM });
+  const wall = (id: string, aM: Pair, bM: Pair, h: number = heightM): SceneWall => ({ id, kind, aM, bM, heightM: h });
+  // The passage's far side, which the mirror hangs on: as far back as the passage wall and a metre
+  // past the opening, as a person draws a passage, and on past the mirror wherever it hangs.
+  const far = wall(
+    'far-side-of-passage',
+    [Math.min(back, q.mirrorAlongM - QUICK_FAR_WALL_MARGIN_M), q.passageWidthM],
+    [Math.max(w + 1, q.mirrorAlongM + QUICK_FAR_WALL_MARGIN_M), q.passageWidthM],
+    // Tall enough that the largest mirror at the mounting height hangs on it, not above it; whole metres.
+    Math.max(heightM, Math.ceil(q.mirrorHeightM + QUICK_FAR_WALL_MARGIN_M)),
+  );
   switch (q.spot) {
     case 'corner':
-      return [wall('passage', [back, 0], [0, 0]), wall('near-side', [0, 0], [0, -d])];
+      return [wall('passage', [back, 0], [0, 0]), wall('near-side', [0, 0], [0, -d]), far];
     case 'aisle':
-      return [wall('passage', [back, 0], [0, 0]), wall('near-side', [0, 0], [0, -d]), wall('far-side', [w, 0], [w, -d])];
+      return [wall('passage', [back, 0], [0, 0]), wall('near-side', [0, 0], [0, -d]), wall('far-side', [w, 0], [w, -d]), far];
     case 'doorway':
-      return [wall('passage', [back, 0], [0, 0]), wall('beyond-door', [w, 0], [w + 1, 0])];
+      return [wall('passage', [back, 0], [0, 0]), wall('beyond-door', [w, 0], [w + 1, 0]), far];
   }
 }
 
@@ -74,16 +97,15 @@ export function quickScene(q: QuickQuestion): Scene {
   };
 }
 
-/** The mirror a ranked option places, as the placements API takes it. */
+/** The mirror a ranked option places, as the placements API takes it: at the option's own vertex (its back on the far wall). */
 export function quickPlacementBody(
-  q: QuickQuestion,
-  option: { catalogueItemId: number; heightM: number; azimuthRad: number; tiltDownRad: number },
+  option: { catalogueItemId: number; positionM: Pair; heightM: number; azimuthRad: number; tiltDownRad: number },
   label = 'M1',
 ): CreatePlacementBody {
   return {
     label,
     catalogueItemId: option.catalogueItemId,
-    positionM: quickMirrorPosition(q),
+    positionM: [option.positionM[0], option.positionM[1]],
     heightM: option.heightM,
     // Keep the aim within one turn either way, as a person would set it.
     azimuthRad: Math.atan2(Math.sin(option.azimuthRad), Math.cos(option.azimuthRad)),

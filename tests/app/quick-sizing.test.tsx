@@ -7,6 +7,7 @@ import { api } from '@/hooks/api';
 import { catalogueKeys } from '@/hooks/use-catalogue';
 import { sessionKeys } from '@/hooks/use-session';
 import { SAFETY_CAUTIONS } from '@/shared/cautions';
+import { HANGS_WITHIN_M } from '@/shared/project-optics';
 import { DEFAULT_QUICK_QUESTION, quickScene } from '@/shared/quick';
 import type { UserDto } from '@/shared/schemas';
 import { demoCatalogueDtos, testUser } from './fixtures';
@@ -93,7 +94,10 @@ describe('Quick sizing', () => {
     expect(projectId).toBe(41);
     expect(placement.viewerId).toBe('viewer');
     expect(catalogue.map((c) => c.id)).toContain(placement.catalogueItemId);
-    expect(placement.positionM).toEqual([DEFAULT_QUICK_QUESTION.mirrorAlongM, DEFAULT_QUICK_QUESTION.passageWidthM]);
+    // At its place along the far wall, stood off the wall's face by its body (its back on the wall).
+    expect(placement.positionM[0]).toBe(DEFAULT_QUICK_QUESTION.mirrorAlongM);
+    expect(placement.positionM[1]).toBeLessThan(DEFAULT_QUICK_QUESTION.passageWidthM);
+    expect(placement.positionM[1]).toBeGreaterThan(DEFAULT_QUICK_QUESTION.passageWidthM - HANGS_WITHIN_M);
   });
 });
 

@@ -79,13 +79,22 @@ describe('quick sizing on a phone', () => {
     const res = await page.request.get(`${product.server.url}/api/projects/${id}`);
     expect(res.status()).toBe(200);
     const { project } = (await res.json()) as {
-      project: { name: string; scene: { zones: { polygonM: [number, number][] }[]; walls: unknown[] }; placements: { heightM: number }[] };
+      project: {
+        name: string;
+        scene: { zones: { polygonM: [number, number][] }[]; walls: { id: string; aM: [number, number] }[] };
+        placements: { heightM: number; positionM: [number, number] }[];
+      };
     };
     expect(project.name).toMatch(/^Blind corner /);
-    expect(project.scene.walls.length).toBe(2);
+    // The passage wall, the corner's near side, and the far side of the 2.8 m passage the mirror hangs on.
+    expect(project.scene.walls.map((w) => w.id)).toEqual(['passage', 'near-side', 'far-side-of-passage']);
+    expect(project.scene.walls[2].aM[1]).toBe(2.8);
     expect(project.scene.zones[0].polygonM).toContainEqual([3.5, -12]);
     expect(project.placements).toHaveLength(1);
     expect(project.placements[0].heightM).toBe(3);
+    // Its vertex stands just off that wall's face (its back on the wall).
+    expect(project.placements[0].positionM[1]).toBeLessThan(2.8);
+    expect(project.placements[0].positionM[1]).toBeGreaterThan(2.3);
     await byTestId(page, 'nav-projects').click();
     await page.getByText(project.name).first().waitFor();
     // Before signing in the app asks who is signed in and is told 401; that is not an error.

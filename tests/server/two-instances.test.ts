@@ -3,7 +3,10 @@
  * nothing a person relies on lives in one instance's memory. Each instance is `startServer`, the
  * function `npm start` runs, with DATABASE_URL set.
  */
+import fs from 'node:fs';
 import http from 'node:http';
+import os from 'node:os';
+import path from 'node:path';
 import type { AddressInfo } from 'node:net';
 import request from 'supertest';
 import { parseConfig } from '../../server/config';
@@ -52,6 +55,8 @@ beforeAll(async () => {
     SESSION_SECRET: 'two-instances-share-this-secret-of-enough-length',
     FAKE_SMTP_PORT: '0',
     DEMO_MODE: 'true',
+    // The demo seed stores its plan image: in a folder of this run, not the working copy's data/.
+    UPLOADS_DIR: fs.mkdtempSync(path.join(os.tmpdir(), 'sightfan-two-instances-')),
     SHEET_WORKERS: '1',
     PUBLIC_URL: 'http://sightfan.test',
   });

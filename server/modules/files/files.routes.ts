@@ -7,7 +7,6 @@
  * then the row in a transaction. On any failure the objects written are deleted again, so a failed
  * upload leaves neither an object nor a row.
  */
-import { randomBytes } from 'node:crypto';
 import { pipeline } from 'node:stream/promises';
 import { Router, type Request, type Response } from 'express';
 import multer from 'multer';
@@ -27,7 +26,8 @@ import type { User } from '../users/user.entity';
 import { toFileDto } from './files.dto';
 import { removeObjects } from './file-objects';
 import { cleanName, processUpload } from './process-upload';
-import { newStorageKey, StorageNotFound, type FileStorage } from './storage';
+import { StorageNotFound, type FileStorage } from './storage';
+import { checkRoom, storeProcessedFile } from './store-file';
 import { StoredFile } from './stored-file.entity';
 
 export interface FilesDeps {
@@ -37,9 +37,6 @@ export interface FilesDeps {
 }
 
 const fileId = z.string().regex(/^[A-Za-z0-9_-]{16,32}$/);
-/** 144 random bits, URL-safe: not guessable, and no order to walk. */
-const newFileId = () => randomBytes(18).toString('base64url');
-
 const notFound = () => new HttpError(404, FILE_MESSAGES.notFound);
 const full = (sentence: string) => new HttpError(413, sentence, { file: sentence });
 
@@ -71,21 +68,6 @@ function receive(req: Request, res: Response): Promise<void> {
       reject(new HttpError(400, 'The upload was cut off before the whole file arrived. Try again.'));
     });
   });
-}
-
-/** How many files and bytes the job keeps now. */
-async function usage(em: EntityManager, projectId: number): Promise<{ count: number; bytes: number }> {
-  const rows: { n: number | string; b: number | string | null }[] = await em
-    .getConnection()
-    // Inside a transaction the query must run on its connection (SQLite has one; another would wait forever).
-    .execute('select count(*) as n, sum(bytes) as b from stored_file where project_id = ?', [projectId], 'all', em.getTransactionContext());
-  return { count: Number(rows[0]?.n ?? 0), bytes: Number(rows[0]?.b ?? 0) };
-}
-
-async function checkRoom(em: EntityManager, projectId: number, adding: number): Promise<void> {
-  const now = await usage(em, projectId);
-  if (now.count >= FILE_LIMITS.filesPerJob) throw full(FILE_MESSAGES.tooMany);
-  if (now.bytes + adding > FILE_LIMITS.jobBytes || (adding === 0 && now.bytes >= FILE_LIMITS.jobBytes)) throw full(FILE_MESSAGES.jobFull);
 }
 
 /** The file with this id, if the person may read its job; otherwise 404 (never 403: ids are not confirmed). */
@@ -147,40 +129,20 @@ export function projectFilesRoutes(deps: FilesDeps): Router {
     await checkRoom(em, project.id, 0);
     const processed = await processUpload(req.file.buffer, fields.kind, fields.page ?? 1, deps.pdf);
 
-    const storageKey = newStorageKey();
-    const thumbnailKey = newStorageKey();
-    const written: string[] = [];
-    try {
-      written.push(storageKey);
-      await deps.storage.put(storageKey, processed.data, processed.contentType);
-      written.push(thumbnailKey);
-      await deps.storage.put(thumbnailKey, processed.thumbnail, 'image/jpeg');
-      const file = await em.transactional(async (tx) => {
-        await checkRoom(tx, project.id, processed.data.length);
-        return tx.create(StoredFile, {
-          id: newFileId(),
-          project: project.id,
-          kind: fields.kind,
-          contentType: processed.contentType,
-          bytes: processed.data.length,
-          name: cleanName(req.file!.originalname, fields.kind === 'plan' ? 'plan' : 'photo'),
-          widthPx: processed.widthPx,
-          heightPx: processed.heightPx,
-          placement: fields.placementId ?? null,
-          sourcePage: processed.sourcePage,
-          sourcePages: processed.sourcePages,
-          storageKey,
-          thumbnailKey,
-          createdBy: user.id,
-        });
-      });
-      res.status(201).json({ file: toFileDto(file) });
-    } catch (e) {
-      await removeObjects(deps.storage, written, (err) =>
-        deps.log.error('An upload failed and its stored object could not be removed.', err),
-      );
-      throw e;
-    }
+    const file = await storeProcessedFile(
+      em,
+      deps.storage,
+      {
+        projectId: project.id,
+        kind: fields.kind,
+        processed,
+        name: cleanName(req.file.originalname, fields.kind === 'plan' ? 'plan' : 'photo'),
+        placementId: fields.placementId ?? null,
+        createdBy: user.id,
+      },
+      (err) => deps.log.error('An upload failed and its stored object could not be removed.', err),
+    );
+    res.status(201).json({ file: toFileDto(file) });
   });
 
   return r;

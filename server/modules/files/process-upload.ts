@@ -58,6 +58,11 @@ export async function processUpload(data: Buffer, kind: FileKind, page: number, 
       sourcePages: drawn.pages,
     };
   }
+  return processImage(data, type);
+}
+
+/** An image as an upload keeps it: re-encoded (see `reencode`) with its thumbnail. */
+export async function processImage(data: Buffer, type: 'image/png' | 'image/jpeg'): Promise<ProcessedUpload> {
   const image = await reencode(data, type);
   return { ...image, thumbnail: await thumbnailOf(image.data), sourcePage: null, sourcePages: null };
 }

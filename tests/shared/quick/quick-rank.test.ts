@@ -1,5 +1,5 @@
-import { defaultAims } from '../../../shared/optics';
-import { evaluateProject } from '../../../shared/project-optics';
+import { defaultAims, vertexOnFace } from '../../../shared/optics';
+import { evaluateProject, mirrorOfSpec } from '../../../shared/project-optics';
 import { quickPlacementBody, quickRankInput, quickScene, rankQuick, type QuickQuestion } from '../../../shared/quick';
 import { demoCatalogueDtos } from '../../../server/seeders/demo-catalogue';
 
@@ -26,11 +26,15 @@ const catalogue = all.filter((c) => ['DEMO-R300', 'DEMO-R800', 'DEMO-P400x600'].
 function bruteForce() {
   const scene = quickScene(q);
   const input = quickRankInput(q, catalogue, 1);
-  const vertex = input.mountPoints[0].vertexM;
+  const { vertexM: onFace, face } = input.mountPoints[0];
   const out: { code: string; fraction: number; cost: number }[] = [];
   for (const item of catalogue) {
-    for (const aim of defaultAims(vertex, input.zone)) {
-      const body = quickPlacementBody(q, { catalogueItemId: item.id, heightM: vertex[2], ...aim });
+    for (const aim of defaultAims(onFace, input.zone)) {
+      // Each mirror hangs with its back on the far wall; an aim facing into the wall is no option.
+      const hung = vertexOnFace({ mirror: mirrorOfSpec(item.mirror), onFaceM: onFace, ...aim, face: face! });
+      if (!hung) continue;
+      const [x, y, heightM] = hung.vertexM;
+      const body = quickPlacementBody({ catalogueItemId: item.id, positionM: [x, y], heightM, ...aim });
       const p = { ...body, id: 1, customMirror: null, viewerId: body.viewerId ?? null, catalogueItemId: item.id };
       const ev = evaluateProject({ scene, placements: [p], catalogue });
       if (ev.placements[0].problem) continue;
@@ -54,8 +58,9 @@ describe('quick ranking against a brute-force search', () => {
 
   it('reports each option’s share as the saved job would compute it', () => {
     for (const o of ranked) {
-      const body = quickPlacementBody(q, {
+      const body = quickPlacementBody({
         catalogueItemId: o.item.id,
+        positionM: o.positionM,
         heightM: o.heightM,
         azimuthRad: o.azimuthRad,
         tiltDownRad: o.tiltDownRad,
