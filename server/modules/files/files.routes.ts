@@ -4,7 +4,8 @@
  * (its installer) uploads and deletes. The contract is shared/schemas/files.ts.
  *
  * An upload is checked and processed whole before anything is kept; then the objects are written,
- * then the row in a transaction. On any failure the objects written are deleted again, so a failed
+ * then the row in a transaction that locks the job's row and checks its caps again (so uploads
+ * racing each other, on any instance, cannot pass a cap together). On any failure the objects written are deleted again, so a failed
  * upload leaves neither an object nor a row.
  */
 import { randomBytes } from 'node:crypto';
@@ -13,6 +14,7 @@ import { Router, type Request, type Response } from 'express';
 import multer from 'multer';
 import { create as createDisposition, encodeExtended } from 'content-disposition';
 import { z } from 'zod';
+import { LockMode } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/knex';
 import { FILE_LIMITS, FILE_MESSAGES, uploadFields } from '../../../shared/schemas/files';
 import { HttpError } from '../../http-error';
@@ -22,6 +24,7 @@ import { parseOr400 } from '../../middleware/validate';
 import type { Logger } from '../../logger';
 import type { PdfWork } from '../../workers/pdf-pool';
 import { Placement } from '../projects/placement.entity';
+import { Project } from '../projects/project.entity';
 import { assertCanEdit, findVisibleProject } from '../projects/project-access';
 import type { User } from '../users/user.entity';
 import { toFileDto } from './files.dto';
@@ -156,6 +159,10 @@ export function projectFilesRoutes(deps: FilesDeps): Router {
       written.push(thumbnailKey);
       await deps.storage.put(thumbnailKey, processed.thumbnail, 'image/jpeg');
       const file = await em.transactional(async (tx) => {
+        // The check and the insert are one step: the job's row stays locked until this commits, so
+        // a rival upload (here or on another instance) counts after this row is in. PostgreSQL
+        // takes a row lock (FOR UPDATE); SQLite has one connection, so its transactions take turns anyway.
+        await tx.lock(tx.getReference(Project, project.id), LockMode.PESSIMISTIC_WRITE);
         await checkRoom(tx, project.id, processed.data.length);
         return tx.create(StoredFile, {
           id: newFileId(),
