@@ -46,19 +46,24 @@ interface SetAside {
 type SetAsideStore = Record<string, SetAside>;
 
 let memoryStore: SetAsideStore = {};
-let readCache: SetAsideStore | undefined;
+/** The last text read from storage and what it parsed to (read on every render of the connection line). */
+let parsed: { raw: string | null; store: SetAsideStore } = { raw: null, store: {} };
 const listeners = new Set<() => void>();
 
 function readStore(): SetAsideStore {
-  if (readCache) return readCache;
   const storage = deviceStorage();
   if (!storage) return memoryStore;
-  try {
-    readCache = (JSON.parse(storage.getItem(SET_ASIDE_KEY) ?? '{}') as SetAsideStore) ?? {};
-  } catch {
-    readCache = {};
+  const raw = storage.getItem(SET_ASIDE_KEY);
+  if (raw !== parsed.raw) {
+    let store: SetAsideStore = {};
+    try {
+      store = raw ? (JSON.parse(raw) as SetAsideStore) : {};
+    } catch {
+      // Not ours to read (damaged): treat as empty rather than stop the app.
+    }
+    parsed = { raw, store };
   }
-  return readCache;
+  return parsed.store;
 }
 
 function writeStore(next: SetAsideStore): void {
@@ -66,7 +71,6 @@ function writeStore(next: SetAsideStore): void {
   if (!storage) memoryStore = next;
   else if (Object.keys(next).length === 0) storage.removeItem(SET_ASIDE_KEY);
   else storage.setItem(SET_ASIDE_KEY, JSON.stringify(next));
-  readCache = storage ? next : undefined;
   for (const l of listeners) l();
 }
 
@@ -99,14 +103,38 @@ function answerOf(qc: QueryClient, queryKey: QueryKey): KeptAnswer | undefined {
  * refused changes still waiting for `outgoing`'s choice. Writes already on their way are left be.
  */
 function setAsideWritesNotOf(qc: QueryClient, incoming: number | null, outgoing: number | null): void {
+  setAside(qc, (owner) => owner !== incoming, outgoing, outgoing !== null && outgoing !== incoming);
+}
+
+/**
+ * Sets the signed-in person's own waiting writes aside for them (signing out and keeping them):
+ * they stay on the device but are not sent until that person signs in here again.
+ */
+export function setAsideOwnWrites(qc: QueryClient): void {
+  const me = signedInId(qc);
+  if (me !== null) setAside(qc, (owner) => owner === me, me, true);
+}
+
+/** Brings the signed-in person's set-aside writes back (a sign-out that failed) and sends them. */
+export function bringBackOwnWrites(qc: QueryClient): void {
+  const me = signedInId(qc);
+  if (me === null) return;
+  bringBack(qc, me);
+  void qc.resumePausedMutations();
+}
+
+function setAside(qc: QueryClient, leaves: (owner: number | null) => boolean, outgoing: number | null, withConflicts: boolean): void {
   const cache = qc.getMutationCache();
   const leaving = new Set(
-    cache
-      .getAll()
-      .filter((m) => isOfflineWrite(m) && m.state.status === 'pending' && m.state.isPaused && (ownerOf(m) ?? outgoing) !== incoming),
+    cache.getAll().filter((m) => isOfflineWrite(m) && m.state.status === 'pending' && m.state.isPaused && leaves(ownerOf(m) ?? outgoing)),
   );
-  const conflicts =
-    outgoing !== null && outgoing !== incoming ? qc.getQueryCache().findAll({ queryKey: conflictKeys.project(0).slice(0, 2) }) : [];
+  // Refused changes still waiting for the person's choice (a stored list that is not empty).
+  const conflicts = withConflicts
+    ? qc
+        .getQueryCache()
+        .findAll({ queryKey: conflictKeys.project(0).slice(0, 2) })
+        .filter((q) => Array.isArray(q.state.data) && q.state.data.length > 0)
+    : [];
   if (leaving.size === 0 && conflicts.length === 0) return;
 
   const { mutations } = dehydrate(qc, { shouldDehydrateMutation: (m) => leaving.has(m), shouldDehydrateQuery: () => false });
@@ -185,7 +213,9 @@ export function guardWaitingWrites(qc: QueryClient): void {
     const before = signedInId(qc);
     let user: UserDto | null;
     try {
-      user = await qc.fetchQuery({ queryKey: sessionKeys.me(), queryFn: fetchMe, staleTime: 0 });
+      // Asked directly, not through the session query: a fetch of it paused offline would be
+      // continued only after this returns (QueryClient resumes mutations first, then queries).
+      user = await fetchMe();
     } catch {
       // The server could not say: send nothing now; the next reconnection or focus asks again.
       return;

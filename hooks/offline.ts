@@ -70,9 +70,14 @@ export function getDevicePersister(storage: SyncStorage | null = deviceStorage()
  * for other accounts stay.
  */
 export async function forgetDeviceData(qc: QueryClient): Promise<void> {
+  dropWaitingWrites(qc);
+  await getDevicePersister()?.removeClient();
+}
+
+/** Drops the signed-in person's waiting writes (the cache holds no one else's). */
+export function dropWaitingWrites(qc: QueryClient): void {
   const mutations = qc.getMutationCache();
   for (const m of mutations.getAll()) if (isOfflineWrite(m) && m.state.status === 'pending') mutations.remove(m);
-  await getDevicePersister()?.removeClient();
 }
 
 let tracking = false;

@@ -5,8 +5,8 @@
 import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import type { AcceptInvitationBody, ChangePasswordBody, ForgotPasswordBody, SignInBody, UpdateMeBody, UserDto } from '@/shared/schemas';
 import { api } from './api';
-import { switchAccount } from './device-accounts';
-import { forgetDeviceData, getDevicePersister } from './offline';
+import { bringBackOwnWrites, setAsideOwnWrites, switchAccount } from './device-accounts';
+import { dropWaitingWrites, getDevicePersister } from './offline';
 import { fetchMe, sessionKeys } from './session-query';
 
 export { sessionKeys } from './session-query';
@@ -59,8 +59,13 @@ export function useSignOutMutation() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (_waiting: WaitingOnSignOut) => api.auth.signOut(),
-    onSuccess: async (_answer, waiting) => {
-      if (waiting === 'discard') await forgetDeviceData(queryClient);
+    // At once, even offline (the sign-out itself then waits for a connection, and the changes
+    // must not be sent before it): kept changes are set aside for this person, others dropped.
+    onMutate: (waiting) => (waiting === 'keep' ? setAsideOwnWrites(queryClient) : dropWaitingWrites(queryClient)),
+    onError: (_err, waiting) => {
+      if (waiting === 'keep') bringBackOwnWrites(queryClient);
+    },
+    onSuccess: async () => {
       becomeSignedIn(queryClient, null);
       await getDevicePersister()?.removeClient();
     },
