@@ -15,6 +15,7 @@
  *   but the session from the cache (and so from the device's kept copy).
  */
 import { dehydrate, hydrate, type DehydratedState, type Mutation, type QueryClient, type QueryKey } from '@tanstack/react-query';
+import { ApiError } from '@/shared/api-client';
 import type { UserDto } from '@/shared/schemas';
 import { deviceStorage } from './device-storage';
 import { quickSaveKey } from './quick-save-write';
@@ -167,6 +168,24 @@ function setAside(qc: QueryClient, leaves: (owner: number | null) => boolean, ou
   writeStore(store);
 }
 
+function keepAfterSignedOut(qc: QueryClient, refused: Mutation<unknown, unknown, unknown, unknown>): void {
+  const owner = ownerOf(refused) ?? signedInId(qc);
+  const { mutations } = dehydrate(qc, { shouldDehydrateMutation: (m) => m === refused, shouldDehydrateQuery: () => false });
+  const store = { ...readStore() };
+  const key = owner === null ? 'unknown' : String(owner);
+  const target: SetAside = { writes: [...(store[key]?.writes ?? [])], answers: [...(store[key]?.answers ?? [])] };
+  // As it was before it was sent: waiting.
+  for (const d of mutations)
+    target.writes.push({ ...d, state: { ...d.state, status: 'pending', isPaused: true, error: null, failureCount: 0, failureReason: null } });
+  const projectId = projectOf(refused.state.variables);
+  const job = projectId === undefined ? undefined : answerOf(qc, projectKeys.detail(projectId));
+  if (job) target.answers = [...target.answers.filter((a) => JSON.stringify(a.queryKey) !== JSON.stringify(job.queryKey)), job];
+  store[key] = target;
+  qc.getMutationCache().remove(refused);
+  writeStore(store);
+  switchAccount(qc, null, owner);
+}
+
 /** Puts `owner`'s set-aside jobs and writes back into the cache (the caller then resumes them). */
 function bringBack(qc: QueryClient, owner: number): void {
   const store = readStore();
@@ -223,6 +242,17 @@ export function guardWaitingWrites(qc: QueryClient): void {
     if ((user?.id ?? null) !== before || cache.getAll().some((m) => isOfflineWrite(m) && (ownerOf(m) ?? before) !== (user?.id ?? null)))
       switchAccount(qc, user, before);
     return resumeAll();
+  };
+  // A waiting write refused because nobody is signed in any more (the session ended between the
+  // check and the send) is not lost: it goes back to its owner's set-aside writes, and the app to
+  // the sign-in screen.
+  const previousOnError = cache.config.onError;
+  cache.config = {
+    ...cache.config,
+    onError: (error, variables, result, mutation, context) => {
+      if (isOfflineWrite(mutation) && error instanceof ApiError && error.status === 401) keepAfterSignedOut(qc, mutation);
+      return previousOnError?.(error, variables, result, mutation, context);
+    },
   };
   qc.getQueryCache().subscribe((event) => {
     const q = event.query;

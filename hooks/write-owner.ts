@@ -3,7 +3,7 @@
  * `{ ownerId }`, which TanStack Query keeps as the mutation's context and persists with it, so the
  * owner survives a reload. hooks/device-accounts.ts sends a waiting write only for its owner.
  */
-import type { Mutation, QueryClient } from '@tanstack/react-query';
+import type { QueryClient } from '@tanstack/react-query';
 import type { UserDto } from '@/shared/schemas';
 import { sessionKeys } from './session-query';
 
@@ -23,7 +23,7 @@ export function ownerTag(qc: QueryClient): WriteOwner | undefined {
 }
 
 /** The person a write belongs to, if it was made by this build or a later one. */
-export function ownerOf(m: Pick<Mutation<unknown, Error, unknown, unknown>, 'state'>): number | undefined {
+export function ownerOf(m: { state: { context?: unknown } }): number | undefined {
   const context = m.state.context as Partial<WriteOwner> | undefined;
   return typeof context?.ownerId === 'number' ? context.ownerId : undefined;
 }

@@ -12,6 +12,7 @@ import type { ReactNode } from 'react';
 import { SignOutButton } from '@/components/account/sign-out-button';
 import { ConnectionStatus, OTHER_ACCOUNT_WAITING } from '@/components/shell/connection-status';
 import { api } from '@/hooks/api';
+import { ApiError } from '@/shared/api-client';
 import { SET_ASIDE_KEY, isOfflineWrite } from '@/hooks/device-accounts';
 import { afterRestore, DEVICE_CACHE_KEY, deviceCacheOptions, getDevicePersister, registerOfflineWrites } from '@/hooks/offline';
 import { usePlacementWrites } from '@/hooks/use-placement-writes';
@@ -109,6 +110,13 @@ describe('a change waiting on a device where someone else signs in', () => {
     await waitFor(() => expect(window.localStorage.getItem(DEVICE_CACHE_KEY)).toContain('"context":{"ownerId":11}'));
   });
 
+  it('is sent when the connection returns and the server says its maker is still the one signed in', async () => {
+    await inesEditsOffline();
+    act(() => onlineManager.setOnline(true));
+    await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenCalledWith(3, 7, { heightM: 3.2, version: placement.version }));
+    expect(api.auth.session).toHaveBeenCalled();
+  });
+
   it('is not sent when the connection returns under another person’s session, and that person sees the line and none of the job', async () => {
     const client = await inesEditsOffline();
     // Another tab on the device signed Rafael in meanwhile: the cookie is now his.
@@ -164,6 +172,22 @@ describe('a change waiting on a device where someone else signs in', () => {
     act(() => screen.getByTestId('sign-in').click());
     await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenCalledWith(3, 7, { heightM: 3.2, version: placement.version }));
     await waitFor(() => expect(othersLine()).toBe(''));
+  });
+
+  it('is kept for its owner, not lost, when the server refuses it because the session ended just before it was sent', async () => {
+    const client = await inesEditsOffline();
+    jest.mocked(api.projects.updatePlacement).mockRejectedValueOnce(new ApiError(401, 'Sign in to continue.'));
+    act(() => onlineManager.setOnline(true));
+    await waitFor(() => expect(client.getQueryData(['session', 'me'])).toBeNull());
+    expect(waitingInCache(client)).toEqual([]);
+    expect(setAside()).toContain('"ownerId":11');
+
+    serverSays(ines);
+    jest.mocked(api.auth.signIn).mockResolvedValue({ user: ines });
+    act(() => screen.getByTestId('sign-in').click());
+    await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenCalledTimes(2));
+    expect(jest.mocked(api.projects.updatePlacement).mock.calls[1]).toEqual([3, 7, { heightM: 3.2, version: placement.version }]);
+    await waitFor(() => expect(setAside()).toBe(''));
   });
 });
 
