@@ -176,7 +176,10 @@ function keepAfterSignedOut(qc: QueryClient, refused: Mutation<unknown, unknown,
   const target: SetAside = { writes: [...(store[key]?.writes ?? [])], answers: [...(store[key]?.answers ?? [])] };
   // As it was before it was sent: waiting.
   for (const d of mutations)
-    target.writes.push({ ...d, state: { ...d.state, status: 'pending', isPaused: true, error: null, failureCount: 0, failureReason: null } });
+    target.writes.push({
+      ...d,
+      state: { ...d.state, status: 'pending', isPaused: true, error: null, failureCount: 0, failureReason: null },
+    });
   const projectId = projectOf(refused.state.variables);
   const job = projectId === undefined ? undefined : answerOf(qc, projectKeys.detail(projectId));
   if (job) target.answers = [...target.answers.filter((a) => JSON.stringify(a.queryKey) !== JSON.stringify(job.queryKey)), job];
@@ -226,6 +229,7 @@ export function guardWaitingWrites(qc: QueryClient): void {
   if (guarded.has(cache)) return;
   guarded.add(cache);
   const resumeAll = cache.resumePausedMutations.bind(cache);
+  let failedChecks = 0;
   // The one door paused mutations go through (QueryClient calls it when the connection or focus returns).
   cache.resumePausedMutations = async () => {
     if (!cache.getAll().some((m) => isOfflineWrite(m) && m.state.isPaused)) return resumeAll();
@@ -235,8 +239,11 @@ export function guardWaitingWrites(qc: QueryClient): void {
       // Asked directly, not through the session query: a fetch of it paused offline would be
       // continued only after this returns (QueryClient resumes mutations first, then queries).
       user = await fetchMe();
+      failedChecks = 0;
     } catch {
-      // The server could not say: send nothing now; the next reconnection or focus asks again.
+      // The server could not say (the first request after a reconnection often fails): send
+      // nothing now and ask again shortly, then at the next reconnection or focus.
+      if (++failedChecks <= CHECK_RETRIES) setTimeout(() => void qc.resumePausedMutations(), CHECK_RETRY_MS * failedChecks);
       return;
     }
     if ((user?.id ?? null) !== before || cache.getAll().some((m) => isOfflineWrite(m) && (ownerOf(m) ?? before) !== (user?.id ?? null)))
@@ -266,3 +273,6 @@ export function guardWaitingWrites(qc: QueryClient): void {
   });
 }
 const guarded = new WeakSet<object>();
+/** Asking who is signed in again after a failure: this many times, 1 s, 2 s, … apart (common practice: a short back-off). */
+const CHECK_RETRIES = 6;
+const CHECK_RETRY_MS = 1000;

@@ -117,6 +117,16 @@ describe('a change waiting on a device where someone else signs in', () => {
     expect(api.auth.session).toHaveBeenCalled();
   });
 
+  it('asks again shortly when the first question after the reconnection fails, and then sends it', async () => {
+    await inesEditsOffline();
+    jest.mocked(api.auth.session).mockRejectedValue(new ApiError(0, 'Sightfan cannot reach its server.'));
+    act(() => onlineManager.setOnline(true));
+    await waitFor(() => expect(api.auth.session).toHaveBeenCalled());
+    expect(api.projects.updatePlacement).not.toHaveBeenCalled();
+    serverSays(ines);
+    await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenCalledTimes(1), { timeout: 3000 });
+  });
+
   it('is not sent when the connection returns under another person’s session, and that person sees the line and none of the job', async () => {
     const client = await inesEditsOffline();
     // Another tab on the device signed Rafael in meanwhile: the cookie is now his.
