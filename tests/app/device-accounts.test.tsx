@@ -201,6 +201,20 @@ describe('a change waiting on a device where someone else signs in', () => {
   });
 });
 
+describe('a session that changed under the app', () => {
+  it('drops the first person’s kept jobs as soon as the server names someone else, with nothing waiting', async () => {
+    serverSays(ines);
+    jest.mocked(api.projects.get).mockResolvedValue({ project });
+    const { client } = appStart(<Phone />, ines);
+    await waitFor(() => expect(client.getQueryData(projectKeys.detail(3))).toBeDefined());
+    serverSays(rafael);
+    await act(() => client.refetchQueries({ queryKey: ['session', 'me'] }));
+    await waitFor(() => expect(client.getQueryData(projectKeys.detail(3))).toBeUndefined());
+    expect(client.getQueryData(['session', 'me'])).toEqual(rafael);
+    await waitFor(() => expect(window.localStorage.getItem(DEVICE_CACHE_KEY) ?? '').not.toContain('"Dock"'));
+  });
+});
+
 describe('signing out with one’s own changes waiting', () => {
   it('asks first, with the count, and "Stay signed in" signs nobody out', async () => {
     await inesEditsOffline();
