@@ -87,6 +87,14 @@ export function writesOfOtherAccounts(me: number | null): number {
     .reduce((n, [, s]) => n + s.writes.length, 0);
 }
 
+/** The same write, whether in the cache or set aside: its key, when it was made, and what it sends. */
+function sameWrite(a: { mutationKey?: unknown; state: { submittedAt: number; variables: unknown } }, b: typeof a): boolean {
+  return (
+    JSON.stringify([a.mutationKey, a.state.submittedAt, a.state.variables]) ===
+    JSON.stringify([b.mutationKey, b.state.submittedAt, b.state.variables])
+  );
+}
+
 /** The project a write is about, if any (quick sizing's save makes a new one). */
 function projectOf(variables: unknown): number | undefined {
   const id = (variables as { projectId?: unknown } | undefined)?.projectId;
@@ -153,6 +161,8 @@ function setAside(qc: QueryClient, leaves: (owner: number | null) => boolean, ou
   for (const d of mutations) {
     const owner = ownerOf(d) ?? outgoing;
     const target = entry(owner);
+    // Already set aside (the kept cache was saved a moment before the write left it, then reloaded).
+    if (target.writes.some((w) => sameWrite(w, d))) continue;
     // A write made before owners were recorded belongs to whoever was signed in then.
     target.writes.push(owner === null || ownerOf(d) !== undefined ? d : { ...d, state: { ...d.state, context: { ownerId: owner } } });
     const projectId = projectOf(d.state.variables);
@@ -195,7 +205,11 @@ function bringBack(qc: QueryClient, owner: number): void {
   const mine = store[String(owner)];
   if (!mine) return;
   for (const a of mine.answers) qc.setQueryData(a.queryKey, a.data, { updatedAt: a.updatedAt });
-  hydrate(qc, { mutations: mine.writes, queries: [] });
+  const inCache = qc
+    .getMutationCache()
+    .getAll()
+    .map((m) => ({ mutationKey: m.options.mutationKey, state: m.state }));
+  hydrate(qc, { mutations: mine.writes.filter((w) => !inCache.some((m) => sameWrite(m, w))), queries: [] });
   const rest = { ...store };
   delete rest[String(owner)];
   writeStore(rest);

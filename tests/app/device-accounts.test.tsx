@@ -6,7 +6,7 @@
  * in again. Signing out with changes waiting asks first.
  */
 import { act, fireEvent, render, screen, waitFor } from '@testing-library/react';
-import { onlineManager, type QueryClient } from '@tanstack/react-query';
+import { hydrate, onlineManager, type DehydratedState, type QueryClient } from '@tanstack/react-query';
 import { PersistQueryClientProvider } from '@tanstack/react-query-persist-client';
 import type { ReactNode } from 'react';
 import { SignOutButton } from '@/components/account/sign-out-button';
@@ -182,6 +182,25 @@ describe('a change waiting on a device where someone else signs in', () => {
     act(() => screen.getByTestId('sign-in').click());
     await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenCalledWith(3, 7, { heightM: 3.2, version: placement.version }));
     await waitFor(() => expect(othersLine()).toBe(''));
+  });
+
+  it('is sent once though a kept cache saved a moment too early brings it back beside its set-aside copy', async () => {
+    const client = await inesEditsOffline();
+    serverSays(rafael);
+    act(() => onlineManager.setOnline(true));
+    await waitFor(() => expect(othersLine()).toBe(OTHER_ACCOUNT_WAITING));
+    // The page was reloaded before the kept cache was saved without it: the write is back in the cache.
+    const copy = (JSON.parse(setAside()) as Record<string, { writes: DehydratedState['mutations'] }>)['11'].writes;
+    act(() => hydrate(client, { mutations: copy, queries: [] }));
+    await act(() => client.resumePausedMutations());
+    expect((JSON.parse(setAside()) as Record<string, { writes: unknown[] }>)['11'].writes).toHaveLength(1);
+
+    serverSays(ines);
+    jest.mocked(api.auth.signIn).mockResolvedValue({ user: ines });
+    act(() => screen.getByTestId('sign-in').click());
+    await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenCalled());
+    await waitFor(() => expect(waitingInCache(client)).toEqual([]));
+    expect(api.projects.updatePlacement).toHaveBeenCalledTimes(1);
   });
 
   it('is kept for its owner, not lost, when the server refuses it because the session ended just before it was sent', async () => {

@@ -82,6 +82,8 @@ describe('one phone, two people, a change waiting for a connection', () => {
     // Another tab signs the officer in: the browser's session cookie is now theirs.
     const tab = await product.browser.newContext();
     await tab.request.post(`${product.server.url}/api/auth/sign-in`, { data: { email: reviewer.email, password: DEMO_PASSWORD } });
+    // (Cleared first: an added cookie sits beside the page's own rather than replacing it.)
+    await context.clearCookies();
     await context.addCookies(await tab.cookies());
     await tab.close();
 
