@@ -62,7 +62,8 @@ export function SignOutButton() {
         variant="secondary"
         testID="account-sign-out"
         busy={signOut.isPending}
-        onPress={() => (waiting > 0 ? setAsking(true) : signOut.mutate('discard'))}
+        // Nothing waits: "keep" sets aside only a refused change still waiting for this person's choice.
+        onPress={() => (waiting > 0 ? setAsking(true) : signOut.mutate('keep'))}
         block
       />
     </View>

@@ -16,7 +16,7 @@ import { ApiError } from '@/shared/api-client';
 import { SET_ASIDE_KEY, isOfflineWrite } from '@/hooks/device-accounts';
 import { afterRestore, DEVICE_CACHE_KEY, deviceCacheOptions, getDevicePersister, registerOfflineWrites } from '@/hooks/offline';
 import { usePlacementWrites } from '@/hooks/use-placement-writes';
-import { projectKeys, useProjectQuery } from '@/hooks/use-projects';
+import { conflictKeys, projectKeys, useProjectQuery, type StoredConflict } from '@/hooks/use-projects';
 import { useSignInMutation } from '@/hooks/use-session';
 import type { PlacementDto, ProjectDto, UserDto } from '@/shared/schemas';
 import { testPlacement, testUser } from './fixtures';
@@ -217,6 +217,38 @@ describe('a change waiting on a device where someone else signs in', () => {
     await waitFor(() => expect(api.projects.updatePlacement).toHaveBeenCalledTimes(2));
     expect(jest.mocked(api.projects.updatePlacement).mock.calls[1]).toEqual([3, 7, { heightM: 3.2, version: placement.version }]);
     await waitFor(() => expect(setAside()).toBe(''));
+  });
+});
+
+describe('a refused change waiting for its maker’s choice', () => {
+  it('is set aside when they sign out, unseen by the next person, and back when they sign in again', async () => {
+    serverSays(ines);
+    jest.mocked(api.projects.get).mockResolvedValue({ project });
+    const { client } = appStart(<Phone />, ines);
+    await waitFor(() => expect(client.getQueryData(projectKeys.detail(3))).toBeDefined());
+    const conflict: StoredConflict = { placementId: 7, message: 'Changed meanwhile.', mine: { heightM: 3.2 }, theirs: placement };
+    act(() => client.setQueryData(conflictKeys.project(3), [conflict]));
+
+    jest.mocked(api.auth.signOut).mockResolvedValue(undefined as never);
+    fireEvent.click(screen.getByTestId('account-sign-out'));
+    await waitFor(() => expect(client.getQueryData(['session', 'me'])).toBeNull());
+    expect(client.getQueryData(conflictKeys.project(3))).toBeUndefined();
+    expect(setAside()).toContain('Changed meanwhile.');
+
+    serverSays(rafael);
+    jest.mocked(api.auth.signIn).mockResolvedValue({ user: rafael });
+    act(() => screen.getByTestId('sign-in').click());
+    await waitFor(() => expect(client.getQueryData(['session', 'me'])).toEqual(rafael));
+    expect(client.getQueryData(conflictKeys.project(3))).toBeUndefined();
+
+    jest.mocked(api.auth.signOut).mockResolvedValue(undefined as never);
+    fireEvent.click(screen.getByTestId('account-sign-out'));
+    await waitFor(() => expect(client.getQueryData(['session', 'me'])).toBeNull());
+    serverSays(ines);
+    jest.mocked(api.auth.signIn).mockResolvedValue({ user: ines });
+    act(() => screen.getByTestId('sign-in').click());
+    await waitFor(() => expect(client.getQueryData(conflictKeys.project(3))).toEqual([conflict]));
+    expect(client.getQueryData<ProjectDto>(projectKeys.detail(3))?.version).toBe(project.version);
   });
 });
 
