@@ -10,6 +10,11 @@ import { DEMO_PASSWORD } from '../../server/seeders/demo';
 import type { ProjectDto } from '../../shared/schemas';
 import { PHONE, byTestId, demoUser, productForFile, shot, signInAs } from './browser';
 
+/** The page's global this check reads (the test is compiled without the DOM library). */
+interface SwGlobals {
+  navigator: { serviceWorker: { controller: object | null } };
+}
+
 const product = productForFile();
 const installer = demoUser('installer');
 const reviewer = demoUser('reviewer');
@@ -70,6 +75,11 @@ describe('one phone, two people, a change waiting for a connection', () => {
     await row.click();
     await byTestId(page, 'placement-notes').waitFor({ state: 'visible' });
 
+    // The service worker's precache done first: a late answer to one of its requests would put
+    // the installer's session cookie back (sessions roll) after the officer's replaces it.
+    await page.waitForFunction(() => (globalThis as unknown as SwGlobals).navigator.serviceWorker.controller !== null, undefined, {
+      timeout: 60_000,
+    });
     await context.setOffline(true);
     await byTestId(page, 'placement-notes').fill(NOTE);
     await byTestId(page, 'placement-notes').press('Tab');
