@@ -12,9 +12,11 @@
  *   otherwise assumes online until the first event, and a page opened offline would try to fetch).
  */
 import { createAsyncStoragePersister } from '@tanstack/query-async-storage-persister';
-import { defaultShouldDehydrateQuery, onlineManager, type Mutation, type Query, type QueryClient } from '@tanstack/react-query';
+import { defaultShouldDehydrateQuery, onlineManager, type Query, type QueryClient } from '@tanstack/react-query';
 import type { Persister } from '@tanstack/react-query-persist-client';
 import { Platform } from 'react-native';
+import { guardWaitingWrites, isOfflineWrite } from './device-accounts';
+import { deviceStorage, type SyncStorage } from './device-storage';
 import { DEVICE_CACHE_MAX_AGE_MS } from './query-client';
 import { quickSaveKey, quickSaveOptions } from './quick-save-write';
 import { projectMutationKeys, projectWriteOptions } from './use-projects';
@@ -37,16 +39,14 @@ export function keptOnDevice(query: Query): boolean {
   return defaultShouldDehydrateQuery(query);
 }
 
-/** The writes that wait for a connection (and count as "changes waiting"). */
-export const OFFLINE_WRITE_KEYS: readonly (readonly string[])[] = [...Object.values(projectMutationKeys), quickSaveKey];
+export { isOfflineWrite, OFFLINE_WRITE_KEYS } from './device-accounts';
 
-export function isOfflineWrite(m: Mutation<unknown, Error, unknown, unknown>): boolean {
-  const key = m.options.mutationKey;
-  return Boolean(key && OFFLINE_WRITE_KEYS.some((k) => k.length === key.length && k.every((part, i) => part === key[i])));
-}
-
-/** Gives every write its function and cache updates by key, so a persisted one can run after a reload. */
+/**
+ * Gives every write its function and cache updates by key, so a persisted one can run after a
+ * reload, and lets waiting writes go only for the person who made them (hooks/device-accounts.ts).
+ */
 export function registerOfflineWrites(qc: QueryClient): void {
+  guardWaitingWrites(qc);
   const writes = projectWriteOptions(qc);
   qc.setMutationDefaults(projectMutationKeys.updateProject, writes.updateProject);
   qc.setMutationDefaults(projectMutationKeys.addPlacement, writes.addPlacement);
@@ -55,34 +55,29 @@ export function registerOfflineWrites(qc: QueryClient): void {
   qc.setMutationDefaults(quickSaveKey, quickSaveOptions(qc));
 }
 
-type SyncStorage = Pick<Storage, 'getItem' | 'setItem' | 'removeItem'>;
-
 let devicePersister: Persister | null | undefined;
 
 /** The persister over this device's storage, or null where there is none (native, storage blocked). */
-export function getDevicePersister(storage: SyncStorage | null = webStorage()): Persister | null {
+export function getDevicePersister(storage: SyncStorage | null = deviceStorage()): Persister | null {
   if (devicePersister !== undefined) return devicePersister;
   devicePersister = storage ? createAsyncStoragePersister({ storage, key: DEVICE_CACHE_KEY, throttleTime: 500 }) : null;
   return devicePersister;
 }
 
-function webStorage(): SyncStorage | null {
-  if (Platform.OS !== 'web' || typeof window === 'undefined') return null;
-  try {
-    // Reading the property throws where storage is blocked (some private modes).
-    const s = window.localStorage;
-    s.getItem(DEVICE_CACHE_KEY);
-    return s;
-  } catch {
-    return null;
-  }
+/**
+ * Drops the signed-in person's waiting writes and the kept cache: on sign-out when the person
+ * chose to discard them. (Keeping them sets them aside instead: `switchAccount`.) Writes set aside
+ * for other accounts stay.
+ */
+export async function forgetDeviceData(qc: QueryClient): Promise<void> {
+  dropWaitingWrites(qc);
+  await getDevicePersister()?.removeClient();
 }
 
-/** Drops everything kept on the device: on sign-out, so the next person finds none of it. */
-export async function forgetDeviceData(qc: QueryClient): Promise<void> {
+/** Drops the signed-in person's waiting writes (the cache holds no one else's). */
+export function dropWaitingWrites(qc: QueryClient): void {
   const mutations = qc.getMutationCache();
   for (const m of mutations.getAll()) if (isOfflineWrite(m) && m.state.status === 'pending') mutations.remove(m);
-  await getDevicePersister()?.removeClient();
 }
 
 let tracking = false;

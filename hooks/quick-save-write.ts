@@ -7,6 +7,7 @@ import type { QueryClient } from '@tanstack/react-query';
 import type { CreatePlacementBody, CreateProjectBody } from '@/shared/schemas';
 import { api } from './api';
 import { projectKeys } from './use-projects';
+import { ownerTag } from './write-owner';
 
 export type QuickSaveVars = { project: CreateProjectBody; placement: CreatePlacementBody };
 
@@ -21,6 +22,7 @@ export function quickSaveOptions(qc: QueryClient) {
       await api.projects.addPlacement(project.id, placement);
       return project.id;
     },
+    onMutate: () => ownerTag(qc),
     onSuccess: () => void qc.invalidateQueries({ queryKey: projectKeys.all }),
   };
 }

@@ -3,6 +3,7 @@ import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tansta
 import type { CreatePlacementBody, CreateProjectBody, PatchProjectBody, PlacementDto, ProjectDto } from '@/shared/schemas';
 import { ApiError } from '@/shared/api-client';
 import { api } from './api';
+import { ownerTag } from './write-owner';
 
 /** Only the owner edits a project, so the list can be a little stale; the open project refetches on focus. */
 export const PROJECTS_STALE_MS = 30_000;
@@ -61,6 +62,7 @@ export type RemovePlacementVars = { projectId: number; placementId: number };
  * The project writes' functions and cache updates, without the scope. The hooks below use them,
  * and `registerOfflineWrites` (hooks/offline.ts) makes them the client's mutation defaults so a
  * write queued while offline runs after a reload too: its variables carry everything it needs.
+ * Each `onMutate` answers who made the write (hooks/write-owner.ts): it is sent only for them.
  */
 export function projectWriteOptions(qc: QueryClient) {
   const detail = (id: number) => projectKeys.detail(id);
@@ -81,6 +83,7 @@ export function projectWriteOptions(qc: QueryClient) {
       },
       onMutate: ({ projectId, body }: UpdateProjectVars) => {
         qc.setQueryData<ProjectDto>(detail(projectId), (old) => (old ? ({ ...old, ...body } as ProjectDto) : old));
+        return ownerTag(qc);
       },
       onSuccess: ({ project }: { project: ProjectDto }) => {
         qc.setQueryData(detail(project.id), project);
@@ -94,6 +97,7 @@ export function projectWriteOptions(qc: QueryClient) {
     addPlacement: {
       mutationKey: projectMutationKeys.addPlacement,
       mutationFn: ({ projectId, body }: AddPlacementVars) => api.projects.addPlacement(projectId, body),
+      onMutate: () => ownerTag(qc),
       onSuccess: ({ placement, projectVersion }: { placement: PlacementDto; projectVersion: number }, { projectId }: AddPlacementVars) => {
         qc.setQueryData<ProjectDto>(detail(projectId), (old) => replacePlacement(old, placement, projectVersion));
         refreshList();
@@ -111,6 +115,7 @@ export function projectWriteOptions(qc: QueryClient) {
         qc.setQueryData<ProjectDto>(detail(projectId), (old) =>
           old ? { ...old, placements: old.placements.map((p) => (p.id === placementId ? { ...p, ...edits } : p)) } : old,
         );
+        return ownerTag(qc);
       },
       onSuccess: ({ placement, projectVersion }: { placement: PlacementDto; projectVersion: number }, { projectId }: UpdatePlacementVars) =>
         qc.setQueryData<ProjectDto>(detail(projectId), (old) => replacePlacement(old, placement, projectVersion)),
@@ -124,6 +129,7 @@ export function projectWriteOptions(qc: QueryClient) {
     removePlacement: {
       mutationKey: projectMutationKeys.removePlacement,
       mutationFn: ({ projectId, placementId }: RemovePlacementVars) => api.projects.removePlacement(projectId, placementId),
+      onMutate: () => ownerTag(qc),
       onSuccess: ({ projectVersion }: { projectVersion: number }, { projectId, placementId }: RemovePlacementVars) => {
         qc.setQueryData<ProjectDto>(detail(projectId), (old) =>
           old ? { ...old, version: projectVersion, placements: old.placements.filter((p) => p.id !== placementId) } : old,

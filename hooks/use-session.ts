@@ -3,31 +3,18 @@
  * and not an error (no failed request in the console): the root layout's guard shows the sign-in screen.
  */
 import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
-import { ApiError } from '@/shared/api-client';
 import type { AcceptInvitationBody, ChangePasswordBody, ForgotPasswordBody, SignInBody, UpdateMeBody, UserDto } from '@/shared/schemas';
 import { api } from './api';
-import { forgetDeviceData } from './offline';
+import { bringBackOwnWrites, setAsideOwnWrites, switchAccount } from './device-accounts';
+import { dropWaitingWrites, getDevicePersister } from './offline';
+import { fetchMe, sessionKeys } from './session-query';
+
+export { sessionKeys } from './session-query';
 
 /** The session changes only when this person acts, so a minute is plenty; focus refetch catches expiry. */
 export const SESSION_STALE_MS = 60_000;
 /** An invitation does not change while someone reads it. */
 export const INVITATION_STALE_MS = 5 * 60_000;
-
-export const sessionKeys = {
-  all: ['session'] as const,
-  me: () => [...sessionKeys.all, 'me'] as const,
-  invitation: (token: string) => [...sessionKeys.all, 'invitation', token] as const,
-};
-
-async function fetchMe(): Promise<UserDto | null> {
-  try {
-    const { user } = await api.auth.session();
-    return user;
-  } catch (err) {
-    if (err instanceof ApiError && err.status === 401) return null;
-    throw err;
-  }
-}
 
 export function useSession() {
   const query = useQuery({ queryKey: sessionKeys.me(), queryFn: fetchMe, staleTime: SESSION_STALE_MS });
@@ -42,10 +29,14 @@ export function useSession() {
   };
 }
 
-/** Writes the signed-in user and drops everything cached for whoever was signed in before. */
+/**
+ * Writes the signed-in user and drops everything cached for whoever was signed in before; their
+ * waiting writes are set aside on the device for them, and this person's own come back and are
+ * sent (hooks/device-accounts.ts).
+ */
 function becomeSignedIn(queryClient: QueryClient, user: UserDto | null) {
-  queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== sessionKeys.all[0] });
-  queryClient.setQueryData(sessionKeys.me(), user);
+  switchAccount(queryClient, user);
+  if (user) void queryClient.resumePausedMutations();
 }
 
 export function useSignInMutation() {
@@ -56,14 +47,27 @@ export function useSignInMutation() {
   });
 }
 
+/** What happens to the person's own changes still waiting for a connection when they sign out. */
+export type WaitingOnSignOut = 'keep' | 'discard';
+
+/**
+ * Signing out: `keep` sets the person's waiting changes aside on the device until they sign in
+ * again; `discard` drops them. Either way nothing of theirs stays in the kept cache for the next
+ * person. The sign-out button asks which before this runs when changes wait.
+ */
 export function useSignOutMutation() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: () => api.auth.signOut(),
+    mutationFn: (_waiting: WaitingOnSignOut) => api.auth.signOut(),
+    // At once, even offline (the sign-out itself then waits for a connection, and the changes
+    // must not be sent before it): kept changes are set aside for this person, others dropped.
+    onMutate: (waiting) => (waiting === 'keep' ? setAsideOwnWrites(queryClient) : dropWaitingWrites(queryClient)),
+    onError: (_err, waiting) => {
+      if (waiting === 'keep') bringBackOwnWrites(queryClient);
+    },
     onSuccess: async () => {
-      // Nothing of this person's stays on the device: the kept cache and any change still waiting.
-      await forgetDeviceData(queryClient);
       becomeSignedIn(queryClient, null);
+      await getDevicePersister()?.removeClient();
     },
   });
 }

@@ -23,12 +23,12 @@ import { usePlanEdits } from '@/hooks/use-plan-edits';
 import { useProjectQuery } from '@/hooks/use-projects';
 import { useQuickSaveMutation, type QuickSaveVars } from '@/hooks/use-quick-save';
 import type { PlacementDto, ProjectDto } from '@/shared/schemas';
-import { testPlacement } from './fixtures';
+import { testPlacement, testUser } from './fixtures';
 import { makeTestQueryClient } from './render';
 
 jest.mock('@/hooks/api', () => ({
   api: {
-    auth: { signOut: jest.fn() },
+    auth: { signOut: jest.fn(), session: jest.fn() },
     projects: {
       get: jest.fn(),
       create: jest.fn(),
@@ -49,10 +49,14 @@ const project = {
   placements: [placement],
 } as unknown as ProjectDto;
 
+/** The person signed in on the device in these tests (the server answers for them: see beforeEach). */
+const installer = testUser({ id: 11, role: 'installer' });
+
 /** A fresh app start over the device's storage: a new client, the offline writes registered, the kept cache restored. */
 function appStart(children: ReactNode): { client: QueryClient; unmount: () => void } {
   const client = makeTestQueryClient();
   registerOfflineWrites(client);
+  client.setQueryData(['session', 'me'], installer);
   const persister = getDevicePersister(window.localStorage)!;
   const { unmount } = render(
     <PersistQueryClientProvider
@@ -78,6 +82,7 @@ async function kept(check: (raw: string) => boolean) {
 
 beforeEach(() => {
   jest.clearAllMocks();
+  jest.mocked(api.auth.session).mockResolvedValue({ user: installer });
   window.localStorage.clear();
   act(() => onlineManager.setOnline(true));
 });

@@ -4,7 +4,8 @@
  * (its installer) uploads and deletes. The contract is shared/schemas/files.ts.
  *
  * An upload is checked and processed whole before anything is kept; then the objects are written,
- * then the row in a transaction. On any failure the objects written are deleted again, so a failed
+ * then the row in a transaction that locks the job's row and checks its caps again (so uploads
+ * racing each other, on any instance, cannot pass a cap together). On any failure the objects written are deleted again, so a failed
  * upload leaves neither an object nor a row.
  */
 import { pipeline } from 'node:stream/promises';

@@ -1,9 +1,11 @@
 /**
  * Keeping a processed file: the one path every stored plan or photo takes (the upload route and the
- * demo seeder). The objects are written first, then the row in a transaction that checks the job's
- * caps again; on any failure the objects written are deleted, so nothing is left behind.
+ * demo seeder). The objects are written first, then the row in a transaction that locks the job's
+ * row and checks its caps again (so uploads racing each other, on any instance, cannot pass a cap
+ * together); on any failure the objects written are deleted, so nothing is left behind.
  */
 import { randomBytes } from 'node:crypto';
+import { LockMode } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/knex';
 import { FILE_LIMITS, FILE_MESSAGES, type FileKind } from '../../../shared/schemas/files';
 import { HttpError } from '../../http-error';
@@ -11,6 +13,7 @@ import { removeObjects } from './file-objects';
 import type { ProcessedUpload } from './process-upload';
 import { newStorageKey, type FileStorage } from './storage';
 import { StoredFile } from './stored-file.entity';
+import { Project } from '../projects/project.entity';
 
 /** 144 random bits, URL-safe: not guessable, and no order to walk. */
 export const newFileId = () => randomBytes(18).toString('base64url');
@@ -57,6 +60,10 @@ export async function storeProcessedFile(
     written.push(thumbnailKey);
     await storage.put(thumbnailKey, processed.thumbnail, 'image/jpeg');
     return await em.transactional(async (tx) => {
+      // The check and the insert are one step: the job's row stays locked until this commits, so a
+      // rival upload (here or on another instance) counts after this row is in. PostgreSQL takes a
+      // row lock (FOR UPDATE); SQLite has one connection, so its transactions take turns anyway.
+      await tx.lock(tx.getReference(Project, file.projectId), LockMode.PESSIMISTIC_WRITE);
       await checkRoom(tx, file.projectId, processed.data.length);
       return tx.create(StoredFile, {
         id: newFileId(),
