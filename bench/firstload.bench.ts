@@ -70,7 +70,7 @@ interface LoadFigures {
   goalMs: number | null;
   bytes: number;
   requests: number;
-  largest: Array<{ url: string; bytes: number }>;
+  largest: { url: string; bytes: number }[];
 }
 
 async function emulatePhone(page: Page, context: BrowserContext): Promise<CDPSession> {
@@ -124,7 +124,7 @@ async function coldLoad(
     const fcpMs = await read(`(performance.getEntriesByName('first-contentful-paint')[0] || {}).startTime`);
     const goalMs = await read(`window.__firstLoad.${goal}`);
     let bytes = 0;
-    const each: Array<{ url: string; bytes: number }> = [];
+    const each: { url: string; bytes: number }[] = [];
     for (const [id, size] of sizes) {
       bytes += size;
       each.push({ url: (urls.get(id) ?? '?').replace(/^https?:\/\/[^/]+/, ''), bytes: size });

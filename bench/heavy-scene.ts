@@ -4,7 +4,7 @@
  * scene limits, by app tests at the limits, and by the server test that checks a heavy sheet never
  * stalls other requests. No server imports here: the app's type-check includes this file.
  */
-import type { CatalogueItemDto, CreatePlacementBody, Scene } from '../shared/schemas';
+import type { CreatePlacementBody, Scene } from '../shared/schemas';
 
 export interface HeavyCounts {
   walls: number;

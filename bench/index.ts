@@ -11,7 +11,7 @@ import { runAimBench } from './aim.bench';
 import { runUploadsBench } from './uploads.bench';
 import { runFirstLoadBench } from './firstload.bench';
 
-const runners: Array<() => Promise<void>> = [
+const runners: (() => Promise<void>)[] = [
   runOpticsBench,
   runVehicleBench,
   runSheetBench,

@@ -6,10 +6,9 @@
  */
 import { useMemo } from 'react';
 import { ruleSetOf, vehicleJobFields, type EvaluatedPlacement, type ProjectEvaluation } from '@/shared/project-optics';
-import type { PlacementDto, Scene, Vehicle } from '@/shared/schemas';
+import type { PlacementDto, Scene, Vehicle, CatalogueItemDto } from '@/shared/schemas';
 import { vehicleGeometry, type RuleSetId, type VehicleField, type VehicleGeometry, type VehicleScore } from '@/shared/vehicle';
 import { usePlanEvaluation } from './use-plan-evaluation';
-import type { CatalogueItemDto } from '@/shared/schemas';
 
 export type VehiclePlacement = Pick<
   PlacementDto,

@@ -77,7 +77,7 @@ export function png(size: number, rgba: Buffer): Buffer {
 }
 
 /** An ICO file holding PNG images (every current browser reads PNG entries). */
-export function ico(images: Array<{ size: number; png: Buffer }>): Buffer {
+export function ico(images: { size: number; png: Buffer }[]): Buffer {
   const head = Buffer.alloc(6);
   head.writeUInt16LE(0, 0);
   head.writeUInt16LE(1, 2); // icon

@@ -2,4 +2,6 @@
 import { ensureWebBuild } from './web-build';
 
 ensureWebBuild();
+// Loaded only after the build is fresh (an import would start the server first).
+// eslint-disable-next-line @typescript-eslint/no-require-imports
 require('../server/index');

@@ -2,7 +2,7 @@
  * Turning plan geometry (metres) into SVG path strings (pixels), and the drawing helpers that are
  * pure arithmetic on the view: grid lines, the scale bar, the uncovered part of a zone.
  */
-import type { MultiPolygon, Ring } from '@/shared/geometry/polygon';
+import type { MultiPolygon } from '@/shared/geometry/polygon';
 import { chooseScaleBar, M_PER_FT, type UnitSystem } from '@/shared/units';
 import { toScreen, type PairM, type PlanView, type Size } from './plan-view';
 

@@ -35,7 +35,7 @@ export const idParam = z
   .transform((s) => Number(s));
 
 /** Turns a zod error into the API's `{error, fields}` body. */
-export function fieldErrors(issues: ReadonlyArray<{ path: ReadonlyArray<PropertyKey>; message: string }>): Record<string, string> {
+export function fieldErrors(issues: readonly { path: readonly PropertyKey[]; message: string }[]): Record<string, string> {
   const fields: Record<string, string> = {};
   for (const issue of issues) {
     const key = issue.path.map(String).join('.') || '_';

@@ -6,6 +6,8 @@
  * Conversion factors are exact by definition (international yard and pound agreement, 1959):
  * 1 in = 25.4 mm, 1 ft = 12 in = 0.3048 m.
  */
+import { M2_PER_FT2, M_PER_FT, M_PER_IN } from './factors';
+
 export type UnitSystem = 'metric' | 'imperial';
 
 /**
@@ -13,8 +15,6 @@ export type UnitSystem = 'metric' | 'imperial';
  * (mm / in), `distance` for mounting heights and distances across a site (m / ft + in).
  */
 export type LengthKind = 'size' | 'distance';
-
-import { M2_PER_FT2, M_PER_FT, M_PER_IN } from './factors';
 
 export { M2_PER_FT2, M_PER_FT, M_PER_IN };
 const IN_PER_FT = 12;

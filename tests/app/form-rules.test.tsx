@@ -3,7 +3,7 @@
  * form's yup schema (as Formik runs it) and, turned into the request the form would send, through
  * the route's zod schema. Per field, both must accept, or both refuse with the same sentence.
  */
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { validateYupSchema, yupToFormErrors } from 'formik';
 import { ValidationError, type AnyObject, type ObjectSchema } from 'yup';
 import type { z } from 'zod';

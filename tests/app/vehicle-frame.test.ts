@@ -3,7 +3,7 @@
  * screen's, where a tap puts a mirror, the first aim of a new mirror, and keeping the preset's
  * body on the typed dimensions.
  */
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { alongAzimuth } from '@/components/plan/plan-geometry';
 import { fromDisplay, normaliseAngle, azimuthFromDisplay, azimuthToDisplay, toDisplay } from '@/components/vehicle/vehicle-frame';
 import { ARM_M, MIRROR_TEMPLATES, newVehicleMirrorBody, outsideBody } from '@/components/vehicle/vehicle-mirrors';

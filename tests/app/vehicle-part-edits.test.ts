@@ -2,7 +2,7 @@
  * The vehicle screen's pure edits (components/vehicle/vehicle-part-edits.ts) and where a mirror's
  * label goes on the top view (components/vehicle/mirror-label.ts).
  */
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { mirrorLabelBox, shortMirrorLabel, AIM_KNOB_PX, MARKER_RING_PX } from '@/components/vehicle/mirror-label';
 import {
   addBodyBox,

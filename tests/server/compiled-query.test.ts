@@ -4,7 +4,7 @@
  * query builder answers when it is built afresh with the real values, for every kind of person,
  * order and search text, and that the stand-in mechanism refuses a query it cannot keep.
  */
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import type { EntityManager } from '@mikro-orm/knex';
 import { runCompiled } from '../../server/compiled-query';
 import {

@@ -4,7 +4,7 @@
  */
 import zlib from 'node:zlib';
 import express from 'express';
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { DriverException } from '@mikro-orm/core';
 import { errorHandler } from '../../server/middleware/errors';
 import { createLogger } from '../../server/logger';

@@ -3,7 +3,7 @@
  * accept: any mix of printable characters of every script, spaces and line breaks.
  */
 import { execFileSync } from 'node:child_process';
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import PDFDocument from 'pdfkit';
 import { getMirroredCharacter } from './bidi-mirror';
 import { isPrintable } from '../../shared/text/printable';

@@ -3,6 +3,7 @@
  * poppler (pdftotext, pdffonts, pdfinfo, pdftoppm), and the real fake SMTP server.
  * Check values are the engine's own numbers (evaluateProject), formatted with the sheet's formatters.
  */
+import net from 'node:net';
 import { formatCoveredShare } from '../../shared/zone-verdict';
 import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
@@ -365,9 +366,9 @@ describe('e-mailing the sheet', () => {
   it('reports a send the mail server refused as queued, keeps the revision, and delivers it from the outbox later, replies still going to the sender', async () => {
     // A real nodemailer transport toward a port where nothing listens.
     const closedPort = await new Promise<number>((resolve) => {
-      const s = require('node:net').createServer() as import('node:net').Server;
+      const s = net.createServer();
       s.listen(0, '127.0.0.1', () => {
-        const port = (s.address() as import('node:net').AddressInfo).port;
+        const port = (s.address() as net.AddressInfo).port;
         s.close(() => resolve(port));
       });
     });

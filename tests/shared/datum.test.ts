@@ -2,7 +2,7 @@
  * Locating a point on site from walls (shared/datum.ts). The rooms below are small enough to work
  * by hand; each expected distance is read off the drawing in the comment beside it.
  */
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { describeDimension, locate, MAX_TAPE_M, wallNames, type DatumWall, type Dimension } from '../../shared/datum';
 
 const wall = (a: [number, number], b: [number, number], kind: DatumWall['kind'] = 'wall'): DatumWall => ({ kind, aM: a, bM: b });

@@ -2,7 +2,7 @@
  * Side-view labels (shared/label-placement.ts): beside their symbol, clear of the sightlines. The
  * drawings below are small enough to check by eye; coordinates are page points, y down.
  */
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { LABEL_RINGS, boxMeetsSegment, placeLabel, type LabelBox, type Segment } from '../../shared/label-placement';
 
 const bounds: LabelBox = { x: 0, y: 0, w: 400, h: 200 };

@@ -1,4 +1,4 @@
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { bandWords, coveredPercent, formatCoveredShare, zoneBand } from '../../shared/zone-verdict';
 
 describe('a zone’s covered share and its verdict', () => {

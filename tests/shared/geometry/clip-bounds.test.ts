@@ -1,4 +1,4 @@
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { intersection } from 'polygon-clipping';
 import { boundsOfPoints, boxesMeet, packedPoints, segmentBounds, type Bounds } from '../../../shared/geometry/bounds';
 import { clipRingToBox, clipRingToConvex, clipToSlab } from '../../../shared/geometry/clip';

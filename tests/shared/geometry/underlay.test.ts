@@ -1,4 +1,4 @@
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { metresPerPixel, planToUnderlay, underlayToPlan } from '../../../shared/geometry/underlay';
 import { underlay, type Underlay } from '../../../shared/schemas/files';
 

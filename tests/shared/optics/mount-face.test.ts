@@ -1,4 +1,4 @@
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { coverage, poseFromAim, vertexOnFace, type Mirror, type Vec3, type Wall } from '../../../shared/optics';
 import { placeMirror } from '../../../shared/optics/mirror';
 import { bodyReach, wallsThroughMirror } from '../../../shared/optics/mount';

@@ -1,4 +1,4 @@
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { poseFromAim, type Mirror, type Vec3, type Wall } from '../../../shared/optics';
 import { maxLinearOverBody, moveOutOfWalls, wallsThroughMirror, MOUNT_TOLERANCE_M } from '../../../shared/optics/mount';
 import { rng } from './helpers';

@@ -1,4 +1,4 @@
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { coverage, OpticsInputError, poseFromAim, sphereReflectionPoint, type Mirror, type Vec3, type Wall } from '../../../shared/optics';
 import { wallsThroughMirror } from '../../../shared/optics/mount';
 import { agreement, rng } from './helpers';

@@ -15,7 +15,7 @@ import {
   type Wall,
 } from '../../../shared/optics';
 import { wallsThroughMirror } from '../../../shared/optics/mount';
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { circleRing } from '../../../shared/geometry/polygon';
 
 describe('zone coverage', () => {

@@ -3,7 +3,7 @@
  * segment subtends from a point, distances to a square's sides), worked out by hand here.
  */
 import { eyeOffAxisRad, floorSeenFigures } from '../../../shared/project-optics';
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { poseFromAim, type MultiPolygon, type Pair } from '../../../shared/optics';
 
 const deg = (d: number) => (d * Math.PI) / 180;

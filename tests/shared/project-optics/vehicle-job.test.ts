@@ -5,7 +5,7 @@
  * no longer exist. Every placement gets numbers or a sentence, every field a share in [0, 1]
  * whose verdict agrees with its pass mark, or the job a sentence: never NaN, never a throw.
  */
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { evaluateVehicleJob, formatFieldShare, ProjectEvaluator, vehicleJobFields } from '../../../shared/project-optics';
 import {
   checkedMirrorSpec,

@@ -1,4 +1,4 @@
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { createPlacementBody, createProjectBody } from '../../../shared/schemas';
 import { poseFromAim, vertexOnFace } from '../../../shared/optics';
 import { placeMirror } from '../../../shared/optics/mirror';

@@ -2,7 +2,7 @@
  * The plan's tools and the API must agree on the project limits: a tool says "no room" exactly when
  * the API would refuse the scene with one more thing in it.
  */
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { createProjectBody, limitProblem, LIMIT_MESSAGES, SCENE_LIMITS } from '../../../shared/schemas';
 import { heavyScene } from '../../../bench/heavy-project';
 

@@ -4,7 +4,7 @@
  * choice (common practice for site measurement); expected texts below are worked by hand from the
  * exact definitions 1 in = 25.4 mm and 1 ft = 0.3048 m (international yard and pound agreement, 1959).
  */
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { formatRange, rangeStepM, roundRangeDown, type UnitSystem } from '../../../shared/units';
 
 const FOOT_M = 0.3048;

@@ -3,7 +3,7 @@
  * pound agreement, 1959): 1 in = 25.4 mm, 1 ft = 0.3048 m. Expected values below are computed
  * from those definitions, not from the code under test.
  */
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import {
   formatAngle,
   formatArea,

@@ -1,7 +1,7 @@
 /** A demo right-hand-drive rigid truck (fictional) with six mirrors, shared by tests and the bench; any accepted vehicle for property tests. */
 import type { Vec3 } from '../../../shared/geometry/vec3';
 import type { Pose } from '../../../shared/optics';
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { vehicleKinds, vehiclePreset, type Vehicle, type VehicleInput } from '../../../shared/schemas/vehicle';
 import { vehicleGeometry, type VehicleMirror } from '../../../shared/vehicle';
 

@@ -1,4 +1,4 @@
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { vehicleKinds, vehiclePreset, vehicleRuleSets, type Vehicle } from '../../../shared/schemas/vehicle';
 import { mirrorAzimuthAcross, mirrorVehicleAcross, remapServedFieldIds, vehicleFields } from '../../../shared/vehicle';
 

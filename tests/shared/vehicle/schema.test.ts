@@ -1,4 +1,4 @@
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import { polygonArea } from '../../../shared/geometry/polygon';
 import { checkZone } from '../../../shared/optics';
 import { vehicle, vehicleKinds, vehiclePreset } from '../../../shared/schemas/vehicle';

@@ -1,4 +1,4 @@
-import fc from 'fast-check';
+import * as fc from 'fast-check';
 import polygonClipping from 'polygon-clipping';
 import { distanceToBoundary, pointInMultiPolygon, polygonArea, type Pair, type Polygon } from '../../../shared/geometry/polygon';
 import type { Vec3 } from '../../../shared/geometry/vec3';
