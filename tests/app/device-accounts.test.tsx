@@ -5,22 +5,20 @@
  * account wait here and none of the first's jobs, and the first person's changes go when they sign
  * in again. Signing out with changes waiting asks first.
  */
-import { act, fireEvent, render, screen, waitFor } from '@testing-library/react';
+import { act, fireEvent, screen, waitFor } from '@testing-library/react';
 import { hydrate, onlineManager, type DehydratedState, type QueryClient } from '@tanstack/react-query';
-import { PersistQueryClientProvider } from '@tanstack/react-query-persist-client';
-import type { ReactNode } from 'react';
 import { SignOutButton } from '@/components/account/sign-out-button';
 import { ConnectionStatus, OTHER_ACCOUNT_WAITING } from '@/components/shell/connection-status';
 import { api } from '@/hooks/api';
 import { ApiError } from '@/shared/api-client';
 import { SET_ASIDE_KEY, isOfflineWrite } from '@/hooks/device-accounts';
-import { afterRestore, DEVICE_CACHE_KEY, deviceCacheOptions, getDevicePersister, registerOfflineWrites } from '@/hooks/offline';
+import { DEVICE_CACHE_KEY } from '@/hooks/offline';
 import { usePlacementWrites } from '@/hooks/use-placement-writes';
 import { conflictKeys, projectKeys, useProjectQuery, type StoredConflict } from '@/hooks/use-projects';
 import { useSignInMutation } from '@/hooks/use-session';
 import type { PlacementDto, ProjectDto, UserDto } from '@/shared/schemas';
 import { testPlacement, testUser } from './fixtures';
-import { makeTestQueryClient } from './render';
+import { startOnDevice } from './render';
 
 jest.mock('@/hooks/api', () => ({
   api: {
@@ -43,22 +41,7 @@ const project = {
 /** Who the server says is signed in with the browser's cookie. */
 const serverSays = (user: UserDto | null) => jest.mocked(api.auth.session).mockResolvedValue({ user });
 
-function appStart(children: ReactNode, keptSession?: UserDto): { client: QueryClient; unmount: () => void } {
-  const client = makeTestQueryClient();
-  registerOfflineWrites(client);
-  if (keptSession) client.setQueryData(['session', 'me'], keptSession);
-  const persister = getDevicePersister(window.localStorage)!;
-  const { unmount } = render(
-    <PersistQueryClientProvider
-      client={client}
-      persistOptions={{ ...deviceCacheOptions(persister), throttleTime: 0 } as ReturnType<typeof deviceCacheOptions>}
-      onSuccess={() => void afterRestore(client)}
-    >
-      {children}
-    </PersistQueryClientProvider>,
-  );
-  return { client, unmount };
-}
+const appStart = startOnDevice;
 
 /** The shell's line, a mirror edit, and signing in and out: what a shared phone shows. */
 function Phone() {

@@ -5,26 +5,18 @@
  * connection returns; signing out leaves nothing of the person on the device.
  */
 import { act, fireEvent, render, screen, waitFor } from '@testing-library/react';
-import { onlineManager, QueryClientProvider, useIsRestoring, useQuery, type QueryClient } from '@tanstack/react-query';
-import { PersistQueryClientProvider } from '@tanstack/react-query-persist-client';
+import { onlineManager, QueryClientProvider, useIsRestoring, useQuery } from '@tanstack/react-query';
 import type { ReactNode } from 'react';
 import { ConnectionStatus } from '@/components/shell/connection-status';
 import { api } from '@/hooks/api';
-import {
-  afterRestore,
-  DEVICE_CACHE_KEY,
-  deviceCacheOptions,
-  forgetDeviceData,
-  getDevicePersister,
-  registerOfflineWrites,
-} from '@/hooks/offline';
+import { DEVICE_CACHE_KEY, forgetDeviceData } from '@/hooks/offline';
 import { usePlacementWrites } from '@/hooks/use-placement-writes';
 import { usePlanEdits } from '@/hooks/use-plan-edits';
 import { useProjectQuery } from '@/hooks/use-projects';
 import { useQuickSaveMutation, type QuickSaveVars } from '@/hooks/use-quick-save';
 import type { PlacementDto, ProjectDto } from '@/shared/schemas';
 import { testPlacement, testUser } from './fixtures';
-import { makeTestQueryClient } from './render';
+import { makeTestQueryClient, startOnDevice } from './render';
 
 jest.mock('@/hooks/api', () => ({
   api: {
@@ -52,23 +44,8 @@ const project = {
 /** The person signed in on the device in these tests (the server answers for them: see beforeEach). */
 const installer = testUser({ id: 11, role: 'installer' });
 
-/** A fresh app start over the device's storage: a new client, the offline writes registered, the kept cache restored. */
-function appStart(children: ReactNode): { client: QueryClient; unmount: () => void } {
-  const client = makeTestQueryClient();
-  registerOfflineWrites(client);
-  client.setQueryData(['session', 'me'], installer);
-  const persister = getDevicePersister(window.localStorage)!;
-  const { unmount } = render(
-    <PersistQueryClientProvider
-      client={client}
-      persistOptions={{ ...deviceCacheOptions(persister), throttleTime: 0 } as ReturnType<typeof deviceCacheOptions>}
-      onSuccess={() => void afterRestore(client)}
-    >
-      {children}
-    </PersistQueryClientProvider>,
-  );
-  return { client, unmount };
-}
+/** A fresh app start over the device's storage, the installer's session remembered. */
+const appStart = (children: ReactNode) => startOnDevice(children, installer);
 
 function JobName() {
   const q = useProjectQuery(3);

@@ -21,6 +21,7 @@ import { DEMO_PROJECT } from '../../server/seeders/demo-project';
 import { planToUnderlay, underlayToPlan } from '../../shared/geometry/underlay';
 import { fileDto, type Underlay } from '../../shared/schemas/files';
 import type { SceneWall } from '../../shared/schemas';
+import { binary } from './pdf-tools';
 import { EMAIL, startHarness, TEST_DATABASE, type Harness } from './harness';
 
 type Agent = ReturnType<typeof request.agent>;
@@ -41,12 +42,6 @@ afterAll(async () => {
   await h?.close();
   fs.rmSync(tmp, { recursive: true, force: true });
 });
-
-const binary = (res: request.Response, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
-};
 
 async function demoJob(): Promise<{ id: number; scene: { walls: SceneWall[]; underlay?: Underlay } }> {
   const list = await a.get('/api/projects');

@@ -11,6 +11,7 @@ import path from 'node:path';
 import sharp from 'sharp';
 import type request from 'supertest';
 import { crossingMirror, EMAIL, startHarness, type Harness } from './harness';
+import { binary } from './pdf-tools';
 import { jpeg } from './upload-fixtures';
 
 type Agent = ReturnType<typeof request.agent>;
@@ -28,12 +29,6 @@ afterAll(async () => {
   await h?.close();
   fs.rmSync(tmp, { recursive: true, force: true });
 });
-
-const binary = (res: request.Response, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
-};
 
 async function sheetOf(projectId: number): Promise<string> {
   const issued = await a.post(`/api/projects/${projectId}/sheet/revisions`);
