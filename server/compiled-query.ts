@@ -18,7 +18,7 @@
  * order, the access rule's kind. Values go through slots, never into the key.
  */
 import type { Platform } from '@mikro-orm/core';
-import type { EntityManager, Knex, QueryBuilder } from '@mikro-orm/knex';
+import type { EntityManager, Knex } from '@mikro-orm/knex';
 import { SqlitePlatform } from '@mikro-orm/sqlite';
 import type { Database, Statement } from 'sqlite3';
 
@@ -106,8 +106,8 @@ interface KnexClientWithPool {
   emit(event: 'query', data: { sql: string; bindings: unknown[]; method: string }): void;
 }
 
-/** The ORM's query builder, or knex's own for a plain read of a few columns. */
-type Buildable = QueryBuilder<object> | Knex.QueryBuilder;
+/** The ORM's query builder (anything with its knex query), or knex's own for a plain read of a few columns. */
+type Buildable = { getKnexQuery(): { toSQL(): Knex.Sql } } | { toSQL(): Knex.Sql };
 
 function compile(values: SlotValues, build: (slot: (name: string) => SlotValue) => Buildable): Compiled {
   const names = Object.keys(values);

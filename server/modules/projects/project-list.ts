@@ -164,7 +164,7 @@ export function summaryQuery(
     ])
     .join('p.owner', 'o')
     .leftJoin('p.reviewer', 'r')
-    .where(access);
+    .where({ $and: [access] });
   if (searching) {
     const text = slot('search');
     qb.andWhere(containsAnyCondition(em, ['p.name', 'p.customer', 'p.site']), [text, text, text]);

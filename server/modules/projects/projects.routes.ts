@@ -42,7 +42,12 @@ import type { Logger } from '../../logger';
 // A stale `version` fails in the ORM (optimistic locking); the error middleware answers 409 with these.
 onStaleVersion(Project, 'project', async (em, stale) => {
   const project = await em.findOneOrFail(Project, stale.id, { populate: ['owner', 'organization', 'reviewer'] });
-  return toProjectDto(project, await placementsOfProject(em, project), true, await openCommentCount(em as EntityManager, project.id));
+  return toProjectDto(
+    project,
+    await placementsOfProject(em as EntityManager, project),
+    true,
+    await openCommentCount(em as EntityManager, project.id),
+  );
 });
 onStaleVersion(Placement, 'mirror', async (em, stale) => toPlacementDto(await em.findOneOrFail(Placement, stale.id)));
 
