@@ -83,7 +83,10 @@ async function runPreparedOnSqlite<T>(em: EntityManager, sql: string, params: un
   const db = (await client.acquireConnection()) as Database;
   try {
     let statements = prepared.get(db);
-    if (!statements) prepared.set(db, (statements = new Map()));
+    if (!statements) {
+      prepared.set(db, (statements = new Map()));
+      finalizeBeforeClose(client);
+    }
     let statement = statements.get(sql);
     if (!statement) statements.set(sql, (statement = db.prepare(sql)));
     client.emit('query', { sql, bindings: params, method: 'select' });
@@ -103,7 +106,28 @@ async function runPreparedOnSqlite<T>(em: EntityManager, sql: string, params: un
 interface KnexClientWithPool {
   acquireConnection(): Promise<unknown>;
   releaseConnection(connection: unknown): void;
+  destroyRawConnection(connection: unknown): Promise<void>;
   emit(event: 'query', data: { sql: string; bindings: unknown[]; method: string }): void;
+}
+
+const finalizing = new WeakSet<object>();
+
+/**
+ * SQLite refuses to close a connection that still has prepared statements (SQLITE_BUSY), and knex
+ * closes it when the ORM closes (a stop, a test's restart): the connection and its file handle
+ * would stay open until the statements were garbage-collected. So the pool's close of a
+ * connection first finalizes the statements kept for it.
+ */
+function finalizeBeforeClose(client: KnexClientWithPool): void {
+  if (finalizing.has(client)) return;
+  finalizing.add(client);
+  const destroy = client.destroyRawConnection.bind(client);
+  client.destroyRawConnection = async (connection: unknown) => {
+    const statements = prepared.get(connection as object);
+    prepared.delete(connection as object);
+    if (statements) await Promise.all([...statements.values()].map((st) => new Promise<void>((done) => st.finalize(() => done()))));
+    return destroy(connection);
+  };
 }
 
 /** The ORM's query builder (anything with its knex query), or knex's own for a plain read of a few columns. */

@@ -22,7 +22,12 @@ import { toProjectDto } from '../../server/modules/projects/project.dto';
 import { placementsOfProject } from '../../server/modules/projects/projects.routes';
 import { openCommentCount, openCommentCounts } from '../../server/modules/review/review-service';
 import { User } from '../../server/modules/users/user.entity';
-import { EMAIL, startHarness, type Harness } from './harness';
+import { EMAIL, startHarness, TEST_DATABASE, type Harness } from './harness';
+import { initORM } from '../../server/db';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import type { Database } from 'sqlite3';
 
 let h: Harness;
 const people: User[] = [];
@@ -175,6 +180,31 @@ describe('one project read from its kept statements', () => {
     expect(read).toBeGreaterThan(people.length);
     expect(read).toBeLessThan(people.length * ids.length);
   });
+});
+
+describe('kept statements and closing the database', () => {
+  (TEST_DATABASE === 'sqlite' ? it : it.skip)(
+    'let the ORM close its SQLite connection after they ran (no statement left open)',
+    async () => {
+      const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'sightfan-kept-close-'));
+      const orm = await initORM(path.join(dir, 'close.sqlite'));
+      try {
+        await runCompiled(orm.em, 'session:get', { sid: 'nobody' }, (slot) =>
+          orm.em.getKnex()('session').select('data').where('sid', slot('sid')).limit(1),
+        );
+        const client = orm.em.getKnex().client as { acquireConnection(): Promise<Database>; releaseConnection(c: Database): void };
+        const db = await client.acquireConnection();
+        client.releaseConnection(db);
+        let closed: Error | null | undefined;
+        const close = db.close.bind(db);
+        db.close = ((cb?: (err: Error | null) => void) => close((err) => ((closed = err), cb?.(err)))) as Database['close'];
+        await orm.close(true);
+        expect(closed).toBeNull();
+      } finally {
+        fs.rmSync(dir, { recursive: true, force: true });
+      }
+    },
+  );
 });
 
 describe('what the kept statement refuses', () => {
